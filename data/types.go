@@ -1,0 +1,145 @@
+package data
+
+// This file holds the record types every table shares. The loader (load.go),
+// lookups (db.go) and formula parser (formula.go) build on them.
+// Fields may be added; do not rename or remove without updating cycle/ and tui/.
+
+// Value is one tabulated number with its provenance.
+type Value struct {
+	// V is the value in Unit.
+	V float64
+	// U is the standard uncertainty in Unit; 0 means "not stated".
+	U float64
+	// Unit is the unit as stored: "eV", "kJ/mol", "Å", "g/cm3", "nm3".
+	Unit string
+	// Source is the key of the citation in the sources table, or "user" for
+	// a value from the user's overlay file.
+	Source string
+	// Memory marks a value entered from memory, without the document at hand.
+	Memory bool
+	// Derived marks a value derived from a thermochemical cycle rather than
+	// measured directly (the second electron affinities of O and S).
+	Derived bool
+	// Override marks a value that a user overlay replaced; Replaced then
+	// holds the built-in value it replaced.
+	Override bool
+	Replaced *Value
+	// Note is free text from the row.
+	Note string
+}
+
+// Known reports whether the value was given (a zero Value is "absent").
+func (v *Value) Known() bool { return v != nil && v.Unit != "" }
+
+// Element is a chemical element with the data a Born–Haber cycle needs.
+type Element struct {
+	Symbol string
+	Name   string
+	Z      int
+	// StandardState is the reference state at 298.15 K and 1 bar written as
+	// a species, for example "Na(s)", "Cl2(g)", "Br2(l)", "S(s)", "C(s,graphite)".
+	StandardState string
+	// Atomization is ΔfH°(X, g, 298.15 K): the enthalpy to form one mole of
+	// gaseous atoms from the standard state, in kJ/mol.
+	Atomization Value
+	// Ionization holds the successive ionization energies (0 K, eV):
+	// Ionization[0] is the first.
+	Ionization []Value
+	// ElectronAffinity is the first electron affinity in eV (positive when
+	// attachment releases energy); absent for elements without one.
+	ElectronAffinity Value
+	// SecondAffinity is the second electron affinity in eV for O and S
+	// (negative: X⁻ + e⁻ → X²⁻ absorbs energy); cycle-derived, Derived=true.
+	SecondAffinity Value
+}
+
+// AtomizationStep is one sub-step on the way from an element's standard
+// state to gaseous atoms: a vaporization, sublimation or dissociation.
+type AtomizationStep struct {
+	// Kind is "vaporization", "sublimation" or "dissociation".
+	Kind string
+	// Reaction as written, e.g. "Br2(l) → Br2(g)" or "Cl2(g) → 2 Cl(g)".
+	Reaction string
+	// AtomsProduced is the number of gaseous atoms per reaction as written
+	// once the path is complete (dissociation of X2: 2); for a phase change
+	// of X2 it is 2 too (it serves two atoms), for S(s)→S(g) it is 1.
+	AtomsProduced int
+	// Enthalpy is ΔH° at 298.15 K per mole of the reaction as written (kJ/mol).
+	Enthalpy Value
+}
+
+// ShannonRadius is one row of Shannon's 1976 table.
+type ShannonRadius struct {
+	// CN is the coordination number as Shannon wrote it: "IV", "VI", "IVSQ", "VIII" ...
+	CN string
+	// Coordination is CN as an integer (4 for "IVSQ").
+	Coordination int
+	// Spin is "HS", "LS" or "".
+	Spin string
+	// Crystal and Ionic are the crystal and effective ionic radii in Å.
+	Crystal Value
+	Ionic   Value
+}
+
+// Ion is a monatomic or polyatomic ion.
+type Ion struct {
+	// Symbol is the ion written with its charge, for example "Na+", "O2-",
+	// "SO4^2-", "NH4+".
+	Symbol string
+	// Core is the element symbol or group formula without charge ("Na", "SO4").
+	Core string
+	// Charge in units of e.
+	Charge int
+	// Polyatomic is true for a group ion.
+	Polyatomic bool
+	// Shape is "monatomic", "linear" or "nonlinear" (for the n·RT terms).
+	Shape string
+	// Radii are Shannon radii by coordination (monatomic ions).
+	Radii []ShannonRadius
+	// ThermochemicalRadius in Å (polyatomic ions; Jenkins et al.).
+	ThermochemicalRadius Value
+	// GasFormation is ΔfH°(ion, g, 298.15 K) in kJ/mol, for polyatomic ions.
+	GasFormation Value
+	// BornConfig is the noble-gas (or pseudo noble-gas) configuration for
+	// Pauling's Born exponent: "He", "Ne", "Ar", "Kr", "Xe" (Cu+ counts as "Kr"? see table).
+	BornConfig string
+	// Hydration is the standard hydration enthalpy in kJ/mol on the scale
+	// named in HydrationScale.
+	Hydration      Value
+	HydrationScale string
+}
+
+// Compound is a tabulated solid.
+type Compound struct {
+	// Formula as conventionally written: "NaCl", "CaF2", "Mg(OH)2", "NH4Cl".
+	Formula string
+	Name    string
+	// Family groups compounds for comparison: "alkali halide", "silver halide" ...
+	Family string
+	// Cation and Anion are ion symbols (keys into the ion table) with counts
+	// per formula unit: Al2O3 → Cation "Al3+" ×2, Anion "O2-" ×3.
+	Cation      string
+	CationCount int
+	Anion       string
+	AnionCount  int
+	// Formation is ΔfH°(298.15 K) of the solid in kJ/mol.
+	Formation Value
+	// Structure is a prototype name of thermo/crystal, or "" when none fits.
+	Structure string
+	// Params are the prototype's parameters (a, c, u, x ... in Å or fractional).
+	Params map[string]float64
+	// ParamsSource is the source key of Params.
+	ParamsSource string
+	// Density in g/cm³ (for the volume-based model when no cell is given).
+	Density Value
+	// HandbookLattice is a published lattice energy (kJ/mol, positive as
+	// tabulated for the dissociation solid → gaseous ions); its Note says
+	// which convention (U or ΔH_L) the source used.
+	HandbookLattice Value
+}
+
+// Source is one citation.
+type Source struct {
+	Key      string
+	Citation string
+}
