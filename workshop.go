@@ -11,9 +11,3 @@ func runWorkshop(env cli.Env, args []string) int {
 	fmt.Fprintln(env.Stderr, "enthalpath: the interactive workshop is not built yet")
 	return cli.ExitInternal
 }
-
-// runServe starts the SSH server; replaced when tui/serve lands.
-func runServe(env cli.Env, args []string) int {
-	fmt.Fprintln(env.Stderr, "enthalpath serve: not built yet")
-	return cli.ExitInternal
-}
