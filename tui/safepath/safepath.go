@@ -1,0 +1,180 @@
+package safepath
+
+import (
+	"errors"
+	"fmt"
+	"io/fs"
+	"os"
+	"path/filepath"
+	"strings"
+)
+
+// Limits on a typed name, in bytes.
+const (
+	// MaxNameLen bounds the whole name a user may type.
+	MaxNameLen = 1024
+	// MaxComponentLen bounds one component between separators (the usual
+	// NAME_MAX of Linux and macOS file systems).
+	MaxComponentLen = 255
+)
+
+// Reasons a name is refused; a *RefusedError unwraps to one of them.
+var (
+	ErrEmpty        = errors.New("the name is empty")
+	ErrTooLong      = errors.New("the name is too long")
+	ErrControl      = errors.New("the name holds a NUL byte or another control character")
+	ErrAbsolute     = errors.New("the name is an absolute path")
+	ErrHome         = errors.New(`the name starts with "~"`)
+	ErrClimb        = errors.New(`the name has a ".." component`)
+	ErrLinkOutside  = errors.New("the name passes through a symbolic link that leads outside the folder")
+	ErrDanglingLink = errors.New("the name passes through a symbolic link whose target does not exist")
+	ErrRootUnusable = errors.New("the folder itself cannot be resolved")
+	ErrOutside      = errors.New("the resolved path lies outside the folder")
+)
+
+// RefusedError says which name was refused, why, and what to do instead.
+type RefusedError struct {
+	Name   string // the name as typed
+	Reason error  // one of the Err* values above
+	Hint   string // what the user can do instead
+	Err    error  // an underlying file-system error, if any
+}
+
+func (e *RefusedError) Error() string {
+	msg := fmt.Sprintf("file name %q refused: %v", e.Name, e.Reason)
+	if e.Err != nil {
+		msg += " (" + e.Err.Error() + ")"
+	}
+	if e.Hint != "" {
+		msg += "; " + e.Hint
+	}
+	return msg
+}
+
+// Unwrap returns the reason and any underlying error, so errors.Is works
+// with both.
+func (e *RefusedError) Unwrap() []error {
+	if e.Err != nil {
+		return []error{e.Reason, e.Err}
+	}
+	return []error{e.Reason}
+}
+
+// Join resolves name, as typed by a user, inside root and returns the
+// absolute path to open or create. root must exist; it may itself be a
+// symbolic link. Existing components of name are followed through symbolic
+// links only while they stay inside root; the returned path has those links
+// resolved. Components that do not exist yet are appended as typed, so a
+// save may create them.
+func Join(root, name string) (string, error) {
+	if err := checkName(name); err != nil {
+		return "", err
+	}
+	realRoot, err := resolveRoot(root)
+	if err != nil {
+		return "", &RefusedError{Name: name, Reason: ErrRootUnusable, Err: err,
+			Hint: "ask the administrator to check the folder"}
+	}
+	parts := strings.Split(filepath.Clean(name), string(filepath.Separator))
+	current := realRoot
+	for i, part := range parts {
+		next := filepath.Join(current, part)
+		info, err := os.Lstat(next)
+		if errors.Is(err, fs.ErrNotExist) {
+			// Nothing exists from here on: the rest is created as typed.
+			rest := filepath.Join(parts[i:]...)
+			return filepath.Join(current, rest), nil
+		}
+		if err != nil {
+			return "", &RefusedError{Name: name, Reason: ErrRootUnusable, Err: err,
+				Hint: "check the name and try again"}
+		}
+		if info.Mode()&fs.ModeSymlink != 0 {
+			target, err := filepath.EvalSymlinks(next)
+			if errors.Is(err, fs.ErrNotExist) {
+				return "", &RefusedError{Name: name, Reason: ErrDanglingLink,
+					Hint: "remove the link or choose another name"}
+			}
+			if err != nil {
+				return "", &RefusedError{Name: name, Reason: ErrLinkOutside, Err: err,
+					Hint: "choose a name without that link"}
+			}
+			if !within(realRoot, target) {
+				return "", &RefusedError{Name: name, Reason: ErrLinkOutside,
+					Hint: "choose a name inside your folder"}
+			}
+			next = target
+		}
+		current = next
+	}
+	if !within(realRoot, current) {
+		return "", &RefusedError{Name: name, Reason: ErrOutside,
+			Hint: "choose a name inside your folder"}
+	}
+	return current, nil
+}
+
+// checkName applies the rules that need no file system.
+func checkName(name string) error {
+	refuse := func(reason error, hint string) error {
+		return &RefusedError{Name: name, Reason: reason, Hint: hint}
+	}
+	switch {
+	case name == "":
+		return refuse(ErrEmpty, "type a file name")
+	case len(name) > MaxNameLen:
+		return refuse(ErrTooLong, fmt.Sprintf("use at most %d bytes", MaxNameLen))
+	}
+	for _, r := range name {
+		if r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0) {
+			return refuse(ErrControl, "type the name with printable characters only")
+		}
+	}
+	if filepath.IsAbs(name) || strings.HasPrefix(name, "/") || strings.HasPrefix(name, `\`) {
+		return refuse(ErrAbsolute, "type a name relative to your folder, such as cycles/NaCl.cycle")
+	}
+	if strings.HasPrefix(name, "~") {
+		return refuse(ErrHome, "names are already relative to your folder; drop the ~")
+	}
+	for _, part := range strings.Split(name, string(filepath.Separator)) {
+		if part == ".." {
+			return refuse(ErrClimb, "names cannot leave your folder; type a name inside it")
+		}
+		if len(part) > MaxComponentLen {
+			return refuse(ErrTooLong, fmt.Sprintf("use at most %d bytes between slashes", MaxComponentLen))
+		}
+	}
+	if filepath.Clean(name) == "." {
+		return refuse(ErrEmpty, "type a file name, not the folder itself")
+	}
+	return nil
+}
+
+func resolveRoot(root string) (string, error) {
+	abs, err := filepath.Abs(root)
+	if err != nil {
+		return "", err
+	}
+	real, err := filepath.EvalSymlinks(abs)
+	if err != nil {
+		return "", err
+	}
+	info, err := os.Stat(real)
+	if err != nil {
+		return "", err
+	}
+	if !info.IsDir() {
+		return "", fmt.Errorf("%s is not a directory", root)
+	}
+	return real, nil
+}
+
+// within reports whether path is root or lies below it; both are cleaned
+// absolute paths.
+func within(root, path string) bool {
+	rel, err := filepath.Rel(root, path)
+	if err != nil {
+		return false
+	}
+	return rel == "." || (rel != ".." && !strings.HasPrefix(rel, ".."+string(filepath.Separator)))
+}
