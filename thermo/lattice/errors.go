@@ -1,0 +1,83 @@
+package lattice
+
+import (
+	"errors"
+	"fmt"
+	"strconv"
+)
+
+// Sentinel errors. Every error a function of this package returns wraps one
+// of them inside a *ParamError, so callers can test the kind with errors.Is
+// and read the parameter at fault with errors.As.
+var (
+	// ErrNotPositive: a length, volume, count or exponent that must be > 0
+	// (or a finite number) was not.
+	ErrNotPositive = errors.New("must be positive and finite")
+	// ErrZeroCharge: an ion charge was zero, or had the wrong sign.
+	ErrZeroCharge = errors.New("ion charge is zero or has the wrong sign")
+	// ErrOutOfRange: a parameter lies outside the model's domain
+	// (ρ ≥ r₀, n ≤ 1, a lattice energy that is not negative).
+	ErrOutOfRange = errors.New("outside the model's domain")
+	// ErrNoSolution: an inverse problem has no physical root.
+	ErrNoSolution = errors.New("no physical solution")
+	// ErrNotNeutral: the ions of a formula unit do not balance.
+	ErrNotNeutral = errors.New("ions of the formula unit do not balance")
+	// ErrUnknownName: a name (electron configuration, shape) is not known.
+	ErrUnknownName = errors.New("unknown name")
+)
+
+// ParamError reports one bad input: the function, the parameter, the value
+// received and what to do about it. It unwraps to one of the sentinels above.
+type ParamError struct {
+	// Func is the function that refused the input, e.g. "BornMayer".
+	Func string
+	// Param names the parameter at fault, e.g. "rho" or "ions[1].Charge".
+	Param string
+	// Value is the offending value as text.
+	Value string
+	// Hint says what is wrong and what to supply instead.
+	Hint string
+	// Err is the sentinel the error wraps.
+	Err error
+}
+
+// Error reads like `BornMayer: rho = 3.1: must be less than r0 = 2.814 Å`.
+func (e *ParamError) Error() string {
+	if e.Value == "" {
+		return fmt.Sprintf("%s: %s: %s", e.Func, e.Param, e.Hint)
+	}
+	return fmt.Sprintf("%s: %s = %s: %s", e.Func, e.Param, e.Value, e.Hint)
+}
+
+// Unwrap returns the sentinel.
+func (e *ParamError) Unwrap() error { return e.Err }
+
+func paramErr(fn, param string, v float64, sentinel error, hint string, args ...any) error {
+	return &ParamError{Func: fn, Param: param, Value: fmtFloat(v), Err: sentinel, Hint: fmt.Sprintf(hint, args...)}
+}
+
+func fmtFloat(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
+
+// positive reports whether v is a finite number greater than zero (false for NaN).
+func positive(v float64) bool { return v > 0 && v <= maxFinite }
+
+const maxFinite = 1.7976931348623157e308
+
+func checkPositive(fn, param string, v float64, unit string) error {
+	if !positive(v) {
+		return paramErr(fn, param, v, ErrNotPositive, "give a positive, finite value in %s", unit)
+	}
+	return nil
+}
+
+// checkLattice checks that u is a usable lattice energy: finite and negative
+// (gaseous ions → solid).
+func checkLattice(fn string, u float64) error {
+	if !(u < 0) || u < -maxFinite {
+		return paramErr(fn, "u", u, ErrOutOfRange,
+			"a lattice energy (gaseous ions → solid) must be negative and finite, in kJ/mol; negate a tabulated dissociation value")
+	}
+	return nil
+}
+
+func asParam(err error, target **ParamError) bool { return errors.As(err, target) }

@@ -1,0 +1,95 @@
+package lattice
+
+import (
+	"fmt"
+	"math"
+)
+
+// Thresholds of the covalent-character verdict, in percent of |model|
+// (common practice, no source).
+const (
+	// AdequateBelowPercent: |gap| below this → the ionic model is adequate.
+	AdequateBelowPercent = 3.0
+	// SubstantialAbovePercent: a gap beyond this → substantial covalent
+	// character.
+	SubstantialAbovePercent = 10.0
+)
+
+// VerdictBasis states where the thresholds come from.
+const VerdictBasis = "thresholds 3 % and 10 % of |model|: common practice, no source"
+
+// Character classifies the gap between cycle and model.
+type Character int
+
+const (
+	// Undetermined: no usable numbers (a zero or non-finite model value).
+	Undetermined Character = iota
+	// IonicAdequate: |gap| < 3 %.
+	IonicAdequate
+	// SomeCovalent: the cycle binds 3–10 % more than the model.
+	SomeCovalent
+	// SubstantialCovalent: the cycle binds more than 10 % more than the model.
+	SubstantialCovalent
+	// ModelOverbinds: the model binds at least 3 % more than the cycle;
+	// that is not covalency — suspect the model's inputs (radii, d₀,
+	// structure) or the cycle's data.
+	ModelOverbinds
+)
+
+// String returns the verdict in words.
+func (c Character) String() string {
+	switch c {
+	case IonicAdequate:
+		return "ionic model adequate"
+	case SomeCovalent:
+		return "some covalent character"
+	case SubstantialCovalent:
+		return "substantial covalent character"
+	case ModelOverbinds:
+		return "model binds more than the cycle: check the model's inputs"
+	}
+	return "undetermined"
+}
+
+// Verdict is the comparison of a cycle lattice value with a model.
+type Verdict struct {
+	// Gap is cycle − model in kJ/mol: negative when the cycle binds more.
+	Gap float64
+	// GapPercent is 100·Gap/|model|.
+	GapPercent float64
+	// Character is the classification by the thresholds.
+	Character Character
+	// Basis is VerdictBasis.
+	Basis string
+}
+
+// String reads like "gap −18.2 kJ/mol (−2.3 %): ionic model adequate".
+func (v Verdict) String() string {
+	return fmt.Sprintf("gap %+.1f kJ/mol (%+.1f %%): %s", v.Gap, v.GapPercent, v.Character)
+}
+
+// Judge compares a cycle lattice value with a model value (both negative,
+// kJ/mol, same convention): gap = cycle − model. A cycle more negative
+// than the model means binding the ionic model misses, read as covalent
+// character once it passes AdequateBelowPercent; a cycle less negative by
+// as much is reported as ModelOverbinds. A zero or non-finite input gives
+// Undetermined with NaN gaps.
+func Judge(cycle, model float64) Verdict {
+	v := Verdict{Basis: VerdictBasis, Gap: math.NaN(), GapPercent: math.NaN()}
+	if model == 0 || math.IsNaN(cycle) || math.IsNaN(model) || math.IsInf(cycle, 0) || math.IsInf(model, 0) {
+		return v
+	}
+	v.Gap = cycle - model
+	v.GapPercent = 100 * v.Gap / math.Abs(model)
+	switch p := v.GapPercent; {
+	case math.Abs(p) < AdequateBelowPercent:
+		v.Character = IonicAdequate
+	case p > 0:
+		v.Character = ModelOverbinds
+	case -p <= SubstantialAbovePercent:
+		v.Character = SomeCovalent
+	default:
+		v.Character = SubstantialCovalent
+	}
+	return v
+}
