@@ -1,0 +1,283 @@
+package plot
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"github.com/charmbracelet/lipgloss"
+)
+
+// Glyphs are the point markers, one per group in order; groups beyond the
+// list reuse them.
+const Glyphs = "ox+*#@%&=~"
+
+// Glyph returns the marker of group g.
+func Glyph(g int) rune {
+	r := []rune(Glyphs)
+	if g < 0 {
+		g = -g
+	}
+	return r[g%len(r)]
+}
+
+// Point is one datum of a scatter plot.
+type Point struct {
+	X, Y  float64
+	Group int
+}
+
+// Styles are the styles of the chart's parts.
+type Styles struct {
+	Axis, Point, Guide, Label lipgloss.Style
+}
+
+// Scatter is a scatter plot of Y against X.
+type Scatter struct {
+	Points []Point
+	// Groups names the groups for the legend, by index.
+	Groups []string
+	XLabel string
+	YLabel string
+	// Diagonal draws the line y = x (a model agreeing with the cycle).
+	Diagonal bool
+}
+
+const yAxisWidth = 8
+
+// Render draws the plot in h lines of at most w cells, legend included.
+func (s Scatter) Render(w, h int, st Styles) string {
+	legend := legendLines(s.Groups, w)
+	ph := h - 2 - len(legend) // axis line and x label
+	pw := w - yAxisWidth - 1
+	if ph < 4 || pw < 10 {
+		return pad("(plot needs more room)", w, h)
+	}
+	xs, ys := make([]float64, 0, len(s.Points)), make([]float64, 0, len(s.Points))
+	for _, p := range s.Points {
+		if finite(p.X) && finite(p.Y) {
+			xs, ys = append(xs, p.X), append(ys, p.Y)
+		}
+	}
+	if len(xs) == 0 {
+		return pad("(nothing to plot yet)", w, h)
+	}
+	xlo, xhi := bounds(xs)
+	ylo, yhi := bounds(ys)
+	if s.Diagonal { // same range on both axes so y = x is the diagonal
+		xlo, ylo = math.Min(xlo, ylo), math.Min(xlo, ylo)
+		xhi, yhi = math.Max(xhi, yhi), math.Max(xhi, yhi)
+	}
+	col := func(x float64) int { return int(math.Round((x - xlo) / (xhi - xlo) * float64(pw-1))) }
+	row := func(y float64) int { return int(math.Round((yhi - y) / (yhi - ylo) * float64(ph-1))) }
+
+	cells := make([][]rune, ph)
+	kinds := make([][]byte, ph) // 0 blank, 1 guide, 2 point
+	for i := range cells {
+		cells[i] = []rune(strings.Repeat(" ", pw))
+		kinds[i] = make([]byte, pw)
+	}
+	if s.Diagonal {
+		for x := 0; x < pw; x++ {
+			v := xlo + (xhi-xlo)*float64(x)/float64(pw-1)
+			if y := row(v); y >= 0 && y < ph {
+				cells[y][x], kinds[y][x] = '.', 1
+			}
+		}
+	}
+	for _, p := range s.Points {
+		if !finite(p.X) || !finite(p.Y) {
+			continue
+		}
+		x, y := col(p.X), row(p.Y)
+		if x < 0 || x >= pw || y < 0 || y >= ph {
+			continue
+		}
+		g := Glyph(p.Group)
+		if kinds[y][x] == 2 && cells[y][x] != g {
+			g = '?' // two groups on one cell; the table has the numbers
+		}
+		cells[y][x], kinds[y][x] = g, 2
+	}
+	var b strings.Builder
+	tickEvery := max(2, ph/4)
+	for y := range ph {
+		label := ""
+		if y%tickEvery == 0 || y == ph-1 {
+			label = Tick(yhi - (yhi-ylo)*float64(y)/float64(ph-1))
+		}
+		b.WriteString(st.Axis.Render(fmt.Sprintf("%*s ┤", yAxisWidth-2, label)))
+		b.WriteString(renderRow(cells[y], kinds[y], st))
+		b.WriteByte('\n')
+	}
+	b.WriteString(st.Axis.Render(strings.Repeat(" ", yAxisWidth-1) + "└" + strings.Repeat("─", pw)))
+	b.WriteByte('\n')
+	left, right := Tick(xlo), Tick(xhi)
+	mid := " " + s.XLabel + " "
+	gap := pw - len([]rune(left)) - len([]rune(right)) - len([]rune(mid))
+	xl := left + strings.Repeat(" ", max(gap/2, 1)) + mid + strings.Repeat(" ", max(gap-gap/2, 1)) + right
+	b.WriteString(st.Label.Render(strings.Repeat(" ", yAxisWidth) + truncate(xl, pw)))
+	for _, l := range legend {
+		b.WriteByte('\n')
+		b.WriteString(st.Label.Render(l))
+	}
+	return b.String()
+}
+
+// Strip is a strip chart: one row per group, each value a glyph at its x.
+type Strip struct {
+	Groups []string
+	// Values[g] are the values of group g.
+	Values [][]float64
+	XLabel string
+	// Zero draws a vertical guide at x = 0.
+	Zero bool
+}
+
+// Render draws the strip chart in h lines of at most w cells.
+func (s Strip) Render(w, h int, st Styles) string {
+	labelW := 0
+	for _, g := range s.Groups {
+		labelW = max(labelW, len([]rune(g)))
+	}
+	labelW = min(labelW, max(8, w/4))
+	pw := w - labelW - 3
+	if pw < 10 || h < len(s.Groups)+2 || len(s.Groups) == 0 {
+		return pad("(chart needs more room)", w, h)
+	}
+	var all []float64
+	for _, vs := range s.Values {
+		for _, v := range vs {
+			if finite(v) {
+				all = append(all, v)
+			}
+		}
+	}
+	if len(all) == 0 {
+		return pad("(nothing to plot yet)", w, h)
+	}
+	lo, hi := bounds(all)
+	if s.Zero {
+		lo, hi = math.Min(lo, 0), math.Max(hi, 0)
+	}
+	col := func(x float64) int { return int(math.Round((x - lo) / (hi - lo) * float64(pw-1))) }
+	var b strings.Builder
+	for g, name := range s.Groups {
+		cells := []rune(strings.Repeat(" ", pw))
+		kinds := make([]byte, pw)
+		if s.Zero {
+			cells[col(0)], kinds[col(0)] = '┊', 1
+		}
+		if g < len(s.Values) {
+			for _, v := range s.Values[g] {
+				if finite(v) {
+					x := col(v)
+					cells[x], kinds[x] = Glyph(g), 2
+				}
+			}
+		}
+		b.WriteString(st.Label.Render(fmt.Sprintf("%-*s ", labelW, truncate(name, labelW))))
+		b.WriteString(st.Axis.Render("│ "))
+		b.WriteString(renderRow(cells, kinds, st))
+		b.WriteByte('\n')
+	}
+	b.WriteString(st.Axis.Render(strings.Repeat(" ", labelW+1) + "└" + strings.Repeat("─", pw+1)))
+	b.WriteByte('\n')
+	left, right := Tick(lo), Tick(hi)
+	mid := " " + s.XLabel + " "
+	gap := pw - len([]rune(left)) - len([]rune(right)) - len([]rune(mid))
+	xl := left + strings.Repeat(" ", max(gap/2, 1)) + mid + strings.Repeat(" ", max(gap-gap/2, 1)) + right
+	b.WriteString(st.Label.Render(strings.Repeat(" ", labelW+3) + truncate(xl, pw)))
+	lines := strings.Count(b.String(), "\n") + 1
+	for ; lines < h; lines++ {
+		b.WriteByte('\n')
+	}
+	return b.String()
+}
+
+func renderRow(cells []rune, kinds []byte, st Styles) string {
+	var b strings.Builder
+	for x := 0; x < len(cells); {
+		k := kinds[x]
+		j := x
+		for j < len(cells) && kinds[j] == k {
+			j++
+		}
+		seg := string(cells[x:j])
+		switch k {
+		case 1:
+			seg = st.Guide.Render(seg)
+		case 2:
+			seg = st.Point.Render(seg)
+		}
+		b.WriteString(seg)
+		x = j
+	}
+	return strings.TrimRight(b.String(), " ")
+}
+
+func legendLines(groups []string, w int) []string {
+	var lines []string
+	cur := ""
+	for g, name := range groups {
+		item := string(Glyph(g)) + " " + name
+		if cur != "" && len([]rune(cur))+3+len([]rune(item)) > w {
+			lines = append(lines, cur)
+			cur = ""
+		}
+		if cur != "" {
+			cur += "   "
+		}
+		cur += item
+	}
+	if cur != "" {
+		lines = append(lines, cur)
+	}
+	return lines
+}
+
+func bounds(v []float64) (lo, hi float64) {
+	lo, hi = v[0], v[0]
+	for _, x := range v {
+		lo, hi = math.Min(lo, x), math.Max(hi, x)
+	}
+	if hi-lo < 1e-9 {
+		return lo - 1, hi + 1
+	}
+	m := (hi - lo) * 0.04
+	return lo - m, hi + m
+}
+
+func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
+
+// Tick prints an axis value with three significant figures at most.
+func Tick(v float64) string {
+	a := math.Abs(v)
+	prec := 0
+	switch {
+	case a < 1:
+		prec = 2
+	case a < 10:
+		prec = 1
+	}
+	s := strconv.FormatFloat(v, 'f', prec, 64)
+	return strings.Replace(s, "-", "−", 1)
+}
+
+func truncate(s string, n int) string {
+	r := []rune(s)
+	if len(r) <= n {
+		return s
+	}
+	if n <= 1 {
+		return string(r[:max(n, 0)])
+	}
+	return string(r[:n-1]) + "…"
+}
+
+func pad(msg string, w, h int) string {
+	lines := make([]string, max(h, 1))
+	lines[0] = truncate(msg, w)
+	return strings.Join(lines, "\n")
+}
