@@ -1,0 +1,73 @@
+package cycle
+
+import (
+	"fmt"
+	"math"
+)
+
+func (c *Cycle) handbook(l LatticeValue) *Handbook {
+	v := c.Compound.HandbookLattice
+	if !v.Known() || !(v.V > 0) {
+		return nil
+	}
+	conv := LatticeEnergy
+	if c.Compound.LatticeConvention == "dH" {
+		conv = LatticeEnthalpy
+	}
+	h := &Handbook{Tabulated: v.V, Convention: conv, Uncertainty: v.U,
+		Source: Source{Kind: SourceData, Key: v.Source, Memory: v.Memory, Override: v.Override, Note: v.Note}}
+	// As a lattice step (negative) in the cycle's convention.
+	step := -v.V
+	switch {
+	case conv == LatticeEnthalpy && c.Conventions.Lattice == LatticeEnergy:
+		step += l.Correction // −ΔH_L + (ΔH_L − U) = −U
+	case conv == LatticeEnergy && c.Conventions.Lattice == LatticeEnthalpy:
+		step -= l.Correction
+	}
+	h.Value = step
+	cyc := l.In(c.Conventions.Lattice)
+	h.Difference = cyc - step
+	h.Percent = 100 * h.Difference / math.Abs(step)
+	return h
+}
+
+// commentary explains the conventions and flags inputs worth a look.
+func (c *Cycle) commentary(r *Result) (notes, warnings []string) {
+	conv := c.Conventions
+	notes = append(notes, "values in kJ/mol per reaction as written; conventions: "+conv.String())
+	h := freeElectronEnthalpy()
+	if conv.Ionization == Energies0K {
+		notes = append(notes, fmt.Sprintf("ionization energies and electron affinities are 0 K values; at 298.15 K each ionization gains 5/2·RT = %.3f kJ/mol and each attachment loses it, but the cations release exactly the electrons the anions take, so the terms cancel and the lattice value is the same in either convention", h))
+	} else {
+		notes = append(notes, fmt.Sprintf("ionization and attachment steps include ±5/2·RT = %.3f kJ/mol per electron (298.15 K enthalpies); for a neutral salt these terms cancel, so the lattice value equals the 0 K-convention one", h))
+	}
+	notes = append(notes, fmt.Sprintf("lattice: ΔH_L − U = %+.3f kJ/mol for the dissociation (Jenkins 2005: Σ n_i(n/2 − 2)RT); lattice step %.1f kJ/mol as −ΔH_L, %.1f kJ/mol as −U",
+		r.Lattice.Correction, r.Lattice.Enthalpy, r.Lattice.Energy))
+	notes = append(notes, "attachment steps are attachment enthalpies, the negatives of the electron affinities")
+	notes = append(notes, "uncertainties: independent inputs, root sum of squares with multiplicities")
+	for i := range r.Steps {
+		s := &r.Steps[i]
+		if s.Source.Kind == SourceSum || (s.Parent != "" && !c.inSum(i)) {
+			continue
+		}
+		switch {
+		case s.Source.Derived:
+			warnings = append(warnings, fmt.Sprintf("%s is itself cycle-derived in the data (%s); replace it with --set %s=VALUE if you have a better value",
+				s.Key, s.Source.Key, s.Key))
+		case s.Source.DefaultUncertainty:
+			warnings = append(warnings, fmt.Sprintf("%s: the source states no uncertainty; the default %g kJ/mol for its kind is used", s.Key, s.Uncertainty))
+		}
+		if s.Source.Memory {
+			warnings = append(warnings, fmt.Sprintf("%s: value entered from memory (%s); check it against the source", s.Key, s.Source.Key))
+		}
+	}
+	if c.Settings.LatticeFrom != "" {
+		notes = append(notes, "lattice step taken from the "+c.Settings.LatticeFrom+" model with its default relative uncertainty (common practice, no source)")
+	}
+	for _, m := range r.Models {
+		if m.Err != nil {
+			warnings = append(warnings, m.Err.Error())
+		}
+	}
+	return notes, warnings
+}

@@ -1,0 +1,201 @@
+package cycle
+
+import (
+	"errors"
+	"fmt"
+	"strings"
+)
+
+// Sentinel errors; the typed errors below wrap them so errors.Is works.
+var (
+	// ErrNothingToSolve: no step is unknown.
+	ErrNothingToSolve = errors.New("nothing to solve")
+	// ErrTooManyUnknowns: more than one step is unknown.
+	ErrTooManyUnknowns = errors.New("more than one unknown")
+	// ErrMissingDatum: a step needs a value the data do not have.
+	ErrMissingDatum = errors.New("missing datum")
+	// ErrChargeBalance: the ions' charges cannot make a neutral formula.
+	ErrChargeBalance = errors.New("impossible charge balance")
+	// ErrUnknownStep: no step has the key.
+	ErrUnknownStep = errors.New("unknown step")
+	// ErrUnknownCompound: the formula cannot be made into a cycle.
+	ErrUnknownCompound = errors.New("unknown compound")
+	// ErrUnknownModel: the model name is not one of ModelNames.
+	ErrUnknownModel = errors.New("unknown lattice model")
+	// ErrModel: a model could not be evaluated (missing radius, structure …).
+	ErrModel = errors.New("model not available")
+	// ErrBadSetting: a KEY=VALUE[±UNC] setting could not be read.
+	ErrBadSetting = errors.New("bad setting")
+	// ErrBadFile: a cycle file could not be read.
+	ErrBadFile = errors.New("bad cycle file")
+)
+
+// UnknownsError reports zero or several unknown steps.
+type UnknownsError struct {
+	// Keys are the steps marked unknown (empty for ErrNothingToSolve).
+	Keys []string
+}
+
+func (e *UnknownsError) Error() string {
+	if len(e.Keys) == 0 {
+		return "nothing to solve: mark one step unknown with --solve KEY (usually --solve lattice)"
+	}
+	return fmt.Sprintf("%d unknowns (%s): exactly one step can be solved; give a value to all but one with --set KEY=VALUE",
+		len(e.Keys), strings.Join(e.Keys, ", "))
+}
+
+func (e *UnknownsError) Unwrap() error {
+	if len(e.Keys) == 0 {
+		return ErrNothingToSolve
+	}
+	return ErrTooManyUnknowns
+}
+
+// MissingError reports a step without a value that is not the unknown.
+type MissingError struct {
+	// Key is the step; What names the missing datum in words ("first
+	// electron affinity of Xe").
+	Key, What string
+}
+
+func (e *MissingError) Error() string {
+	return fmt.Sprintf("no %s in the data; give it with --set %s=VALUE (kJ/mol per reaction as written) or solve for it with --solve %s",
+		e.What, e.Key, e.Key)
+}
+
+func (e *MissingError) Unwrap() error { return ErrMissingDatum }
+
+// StepError reports a key that names no step of the cycle.
+type StepError struct {
+	Key string
+	// Valid lists the cycle's step keys.
+	Valid []string
+}
+
+func (e *StepError) Error() string {
+	return fmt.Sprintf("no step %q in this cycle; the steps are: %s", e.Key, strings.Join(e.Valid, ", "))
+}
+
+func (e *StepError) Unwrap() error { return ErrUnknownStep }
+
+// ChargeError reports ions whose charges cannot balance in the formula.
+type ChargeError struct {
+	Formula string
+	Detail  string
+}
+
+func (e *ChargeError) Error() string {
+	return fmt.Sprintf("%s: impossible charge balance: %s", e.Formula, e.Detail)
+}
+
+func (e *ChargeError) Unwrap() error { return ErrChargeBalance }
+
+// CompoundError reports a formula that cannot be built, with suggestions.
+type CompoundError struct {
+	Formula string
+	// Reason says what is wrong; Err is the underlying error if any.
+	Reason string
+	Err    error
+	// Suggestions are tabulated formulas close to the one asked for.
+	Suggestions []string
+}
+
+func (e *CompoundError) Error() string {
+	msg := fmt.Sprintf("%s: %s", e.Formula, e.Reason)
+	if e.Err != nil {
+		msg += ": " + e.Err.Error()
+	}
+	if len(e.Suggestions) > 0 {
+		msg += "; did you mean " + strings.Join(e.Suggestions, ", ") + "?"
+	}
+	return msg
+}
+
+func (e *CompoundError) Unwrap() []error {
+	if e.Err != nil {
+		return []error{ErrUnknownCompound, e.Err}
+	}
+	return []error{ErrUnknownCompound}
+}
+
+// ModelError reports a model that cannot be evaluated, or an unknown name.
+type ModelError struct {
+	Model  string
+	Reason string
+	Err    error
+}
+
+func (e *ModelError) Error() string {
+	msg := fmt.Sprintf("model %s: %s", e.Model, e.Reason)
+	if e.Err != nil {
+		msg += ": " + e.Err.Error()
+	}
+	return msg
+}
+
+func (e *ModelError) Unwrap() []error {
+	base := ErrModel
+	if !isModelName(e.Model) {
+		base = ErrUnknownModel
+	}
+	if e.Err != nil {
+		return []error{base, e.Err}
+	}
+	return []error{base}
+}
+
+// SettingError reports a KEY=VALUE[±UNC] text that cannot be read; Column
+// is the 1-based column (in characters) of the fault.
+type SettingError struct {
+	Text   string
+	Column int
+	Reason string
+}
+
+func (e *SettingError) Error() string {
+	return fmt.Sprintf("setting %q: %s at column %d (write KEY=VALUE or KEY=VALUE±UNC, e.g. attachment-2=744±20)",
+		e.Text, e.Reason, e.Column)
+}
+
+func (e *SettingError) Unwrap() error { return ErrBadSetting }
+
+// FileError reports a fault in a cycle file, with the line and field.
+type FileError struct {
+	// Path is the file name, or "" for bytes given to Unmarshal.
+	Path string
+	// Line is the 1-based line, 0 when unknown.
+	Line int
+	// Field is the TOML key path at fault ("steps[3].value"), or "".
+	Field  string
+	Reason string
+	Err    error
+}
+
+func (e *FileError) Error() string {
+	var b strings.Builder
+	if e.Path != "" {
+		b.WriteString(e.Path)
+	} else {
+		b.WriteString("cycle file")
+	}
+	if e.Line > 0 {
+		fmt.Fprintf(&b, ":%d", e.Line)
+	}
+	if e.Field != "" {
+		fmt.Fprintf(&b, ": field %s", e.Field)
+	}
+	b.WriteString(": ")
+	b.WriteString(e.Reason)
+	if e.Err != nil {
+		b.WriteString(": ")
+		b.WriteString(e.Err.Error())
+	}
+	return b.String()
+}
+
+func (e *FileError) Unwrap() []error {
+	if e.Err != nil {
+		return []error{ErrBadFile, e.Err}
+	}
+	return []error{ErrBadFile}
+}

@@ -1,0 +1,565 @@
+package cycle
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"strings"
+
+	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/lattice"
+)
+
+// The lattice model names, as used by Settings.LatticeFrom, the command
+// line and the cycle file.
+const (
+	ModelBornLande   = "born-lande"
+	ModelBornMayer   = "born-mayer"
+	ModelKapustinkii = "kapustinskii"
+	ModelVolume      = "volume"
+	ModelEwald       = "ewald"
+)
+
+// ModelNames lists the models in display order.
+func ModelNames() []string {
+	return []string{ModelBornLande, ModelBornMayer, ModelKapustinkii, ModelVolume, ModelEwald}
+}
+
+func isModelName(s string) bool { return slices.Contains(ModelNames(), s) }
+
+func modelList() string { return strings.Join(ModelNames(), ", ") }
+
+// ParseModel checks a model name and returns it.
+func ParseModel(s string) (string, error) {
+	s = strings.ToLower(strings.TrimSpace(s))
+	if isModelName(s) {
+		return s, nil
+	}
+	return "", &ModelError{Model: s, Reason: "not a lattice model; use one of " + modelList()}
+}
+
+// Default relative uncertainties of the models, used where a model result
+// fills the lattice step (common practice, no source): they express how far
+// each model typically strays from cycle values for ionic salts.
+const (
+	ModelUncertaintyBorn         = 0.03
+	ModelUncertaintyKapustinskii = 0.05
+	ModelUncertaintyVolume       = 0.07
+)
+
+// ModelInputs are the numbers a model used, with where each came from. Only
+// the fields the model uses are set.
+type ModelInputs struct {
+	// Madelung is A (per formula unit, referred to D0; thermo/ewald's
+	// convention) and MadelungFrom says how it was obtained.
+	Madelung     float64
+	MadelungFrom string
+	// Structure is the prototype or file A was computed for.
+	Structure string
+	// D0 is the cation–anion distance in Å and D0From its origin.
+	D0     float64
+	D0From string
+	// BornExponent n and its origin (Born–Landé).
+	BornExponent     float64
+	BornExponentFrom string
+	// Rho is ρ in Å (Born–Mayer, Ewald).
+	Rho float64
+	// Radii in Å with the coordination numbers and kind used.
+	CationRadius, AnionRadius float64
+	CationCN, AnionCN         int
+	RadiusFrom                string
+	// Nu is the number of ions per formula unit (Kapustinskii).
+	Nu int
+	// MolarVolume is V_m in nm³ per formula unit and VolumeFrom its origin.
+	MolarVolume float64
+	VolumeFrom  string
+	// IonicStrength is I = ½Σnz² (volume model).
+	IonicStrength float64
+	// Fit names the volume-model equation or fit used.
+	Fit string
+}
+
+// ModelResult is one lattice model's value beside the cycle's.
+type ModelResult struct {
+	// Model is one of ModelNames.
+	Model string
+	// Title is the model's name in words with its reference.
+	Title string
+	// Energy is the model's lattice energy U (negative, kJ/mol).
+	Energy float64
+	// Value is the lattice step in the cycle's lattice convention (U, or
+	// ΔH_L by Jenkins' correction), the number compared with the cycle.
+	Value float64
+	// Uncertainty is the model's stated default uncertainty (kJ/mol),
+	// DefaultUncertainty is always true (see ModelUncertaintyBorn …).
+	Uncertainty        float64
+	DefaultUncertainty bool
+	// Citation is the model's reference.
+	Citation string
+	// Gap is cycle − model in kJ/mol (negative when the cycle binds more)
+	// and GapPercent is 100·Gap/|model|; NaN without a cycle value.
+	Gap, GapPercent float64
+	// Verdict classifies the gap (thermo/lattice.Judge, common-practice thresholds).
+	Verdict lattice.Verdict
+	Inputs  ModelInputs
+	// Err is why the model could not be evaluated; the numbers are then 0.
+	Err error
+}
+
+// OK reports whether the model produced a value.
+func (m *ModelResult) OK() bool { return m.Err == nil }
+
+func findModel(ms []ModelResult, name string) *ModelResult {
+	for i := range ms {
+		if ms[i].Model == name {
+			return &ms[i]
+		}
+	}
+	return nil
+}
+
+// gaps fills Gap, GapPercent and Verdict of every model against the cycle
+// lattice value (in the cycle's lattice convention).
+func gaps(ms []ModelResult, cycleValue float64) []ModelResult {
+	for i := range ms {
+		m := &ms[i]
+		if m.Err != nil {
+			m.Gap, m.GapPercent = math.NaN(), math.NaN()
+			continue
+		}
+		m.Verdict = lattice.Judge(cycleValue, m.Value)
+		m.Gap, m.GapPercent = m.Verdict.Gap, m.Verdict.GapPercent
+	}
+	return ms
+}
+
+// Compare evaluates every lattice model for c and compares each with
+// cycleValue, a lattice step (negative, kJ/mol) in c's lattice convention.
+func Compare(c *Cycle, cycleValue float64) []ModelResult {
+	return gaps(EvaluateModels(c), cycleValue)
+}
+
+// EvaluateModels returns every lattice model's value for c, in ModelNames
+// order, without gaps. A model that cannot be evaluated has Err set (and the
+// others are still returned). The Ewald sums go through c's Memo.
+func EvaluateModels(c *Cycle) []ModelResult {
+	out := make([]ModelResult, 0, 5)
+	for _, name := range ModelNames() {
+		m, err := EvaluateModel(c, name)
+		if err != nil {
+			m = ModelResult{Model: name, Err: err}
+		}
+		out = append(out, m)
+	}
+	return out
+}
+
+// VerdictThresholds returns the verdict's thresholds in words, marked as
+// common practice.
+func VerdictThresholds() string { return lattice.VerdictBasis }
+
+// EvaluateModel returns one model's lattice value for c (no gap).
+func EvaluateModel(c *Cycle, name string) (ModelResult, error) {
+	m := ModelResult{Model: name, DefaultUncertainty: true, Gap: math.NaN(), GapPercent: math.NaN()}
+	if c.Cation.Count <= 0 || c.Anion.Count <= 0 {
+		return m, &ModelError{Model: name, Reason: "the cycle has no ions"}
+	}
+	var (
+		u   float64
+		err error
+		rel = ModelUncertaintyBorn
+	)
+	switch name {
+	case ModelBornLande:
+		m.Title = "Born–Landé"
+		m.Citation = "M. Born and A. Landé, Verh. Dtsch. Phys. Ges. 20, 210 (1918)"
+		u, err = c.bornModel(&m.Inputs, false, false)
+	case ModelBornMayer:
+		m.Title = "Born–Mayer"
+		m.Citation = "M. Born and J. E. Mayer, Z. Phys. 75, 1 (1932)"
+		u, err = c.bornModel(&m.Inputs, true, false)
+	case ModelEwald:
+		m.Title = "Born–Mayer with the Ewald Madelung constant of the structure"
+		m.Citation = "P. P. Ewald, Ann. Phys. 369, 253 (1921); Born–Mayer repulsion"
+		u, err = c.bornModel(&m.Inputs, true, true)
+	case ModelKapustinkii:
+		m.Title = "Kapustinskii (1956)"
+		m.Citation = "A. F. Kapustinskii, Q. Rev. Chem. Soc. 10, 283 (1956)"
+		rel = ModelUncertaintyKapustinskii
+		u, err = c.kapustinskii(&m.Inputs)
+	case ModelVolume:
+		m.Title = "Jenkins–Glasser volume-based"
+		m.Citation = "H. D. B. Jenkins, H. K. Roobottom, J. Passmore, L. Glasser, Inorg. Chem. 38, 3609 (1999)"
+		rel = ModelUncertaintyVolume
+		u, err = c.volumeModel(&m.Inputs)
+	default:
+		return m, &ModelError{Model: name, Reason: "not a lattice model; use one of " + modelList()}
+	}
+	if err != nil {
+		var me *ModelError
+		if errors.As(err, &me) {
+			return m, err
+		}
+		return m, &ModelError{Model: name, Reason: "cannot be evaluated", Err: err}
+	}
+	m.Energy = u
+	m.Value = u
+	if c.Conventions.Lattice == LatticeEnthalpy {
+		m.Value = u - c.LatticeCorrection()
+	}
+	m.Uncertainty = rel * math.Abs(m.Value)
+	return m, nil
+}
+
+func (c *Cycle) ionKinds() []lattice.IonKind {
+	shape := func(s string) lattice.Shape {
+		sh, err := lattice.ParseShape(s)
+		if err != nil {
+			return lattice.Monatomic
+		}
+		return sh
+	}
+	return []lattice.IonKind{
+		{Charge: c.Cation.Ion.Charge, Count: c.Cation.Count, Shape: shape(c.Cation.Ion.Shape)},
+		{Charge: c.Anion.Ion.Charge, Count: c.Anion.Count, Shape: shape(c.Anion.Ion.Shape)},
+	}
+}
+
+// prototypeCN gives the coordination numbers (cation, anion) of the
+// built-in prototypes.
+func prototypeCN(name string) (int, int) {
+	switch name {
+	case "rock-salt", "nickel-arsenide":
+		return 6, 6
+	case "caesium-chloride":
+		return 8, 8
+	case "zinc-blende", "wurtzite":
+		return 4, 4
+	case "fluorite":
+		return 8, 4
+	case "antifluorite":
+		return 4, 8
+	case "rutile", "cadmium-chloride", "cadmium-iodide":
+		return 6, 3
+	case "corundum":
+		return 6, 4
+	}
+	return 6, 6
+}
+
+// radius returns the radius of part p (Å) at coordination cn with the kind
+// of the settings: a Shannon radius for a monatomic ion (the nearest CN the
+// table has when cn is missing, said in from), the thermochemical radius for
+// a polyatomic one.
+func (c *Cycle) radius(p Part, cn int) (r float64, used int, from string, err error) {
+	if p.Ion.Polyatomic || len(p.Ion.Radii) == 0 {
+		if p.Ion.ThermochemicalRadius.Known() {
+			return p.Ion.ThermochemicalRadius.V, 0, "thermochemical radius (" + p.Ion.ThermochemicalRadius.Source + ")", nil
+		}
+		return 0, 0, "", fmt.Errorf("no radius for %s in the data", p.Ion.Symbol)
+	}
+	best := -1
+	for i, sr := range p.Ion.Radii {
+		if sr.Spin == "LS" {
+			continue // high-spin (or spin-free) radii unless only low-spin exist
+		}
+		if best < 0 || abs(sr.Coordination-cn) < abs(p.Ion.Radii[best].Coordination-cn) {
+			best = i
+		}
+	}
+	if best < 0 {
+		best = 0
+	}
+	sr := p.Ion.Radii[best]
+	v := sr.Ionic
+	if c.Settings.Radius == RadiusCrystal {
+		v = sr.Crystal
+	}
+	if !v.Known() {
+		return 0, 0, "", fmt.Errorf("no Shannon %s radius for %s", c.Settings.Radius, p.Ion.Symbol)
+	}
+	from = fmt.Sprintf("Shannon %s radius, CN %s", c.Settings.Radius, sr.CN)
+	if sr.Coordination != cn {
+		from += fmt.Sprintf(" (CN %d not tabulated)", cn)
+	}
+	return v.V, sr.Coordination, from, nil
+}
+
+func abs(i int) int {
+	if i < 0 {
+		return -i
+	}
+	return i
+}
+
+// coordination returns the CNs the radii are taken at: the settings', else
+// the structure's, else 6 (for Kapustinskii always 6 unless set).
+func (c *Cycle) coordination(structureFree bool) (int, int) {
+	cc, ac := 6, 6
+	if !structureFree {
+		if p := c.Settings.Structure.Prototype; p != "" && c.Settings.Structure.Cell == nil {
+			cc, ac = prototypeCN(p)
+		}
+	}
+	if c.Settings.CationCN > 0 {
+		cc = c.Settings.CationCN
+	}
+	if c.Settings.AnionCN > 0 {
+		ac = c.Settings.AnionCN
+	}
+	return cc, ac
+}
+
+func (c *Cycle) radii(in *ModelInputs, structureFree bool) error {
+	cc, ac := c.coordination(structureFree)
+	rc, ucc, fc, err := c.radius(c.Cation, cc)
+	if err != nil {
+		return err
+	}
+	ra, uac, fa, err := c.radius(c.Anion, ac)
+	if err != nil {
+		return err
+	}
+	in.CationRadius, in.AnionRadius, in.CationCN, in.AnionCN = rc, ra, ucc, uac
+	in.RadiusFrom = fmt.Sprintf("%s: %s; %s: %s", c.Cation.Ion.Symbol, fc, c.Anion.Ion.Symbol, fa)
+	return nil
+}
+
+func (c *Cycle) kapustinskii(in *ModelInputs) (float64, error) {
+	if err := c.radii(in, true); err != nil {
+		return 0, err
+	}
+	in.Nu = c.Cation.Count + c.Anion.Count
+	return lattice.Kapustinskii(in.Nu, c.Cation.Ion.Charge, c.Anion.Ion.Charge, in.CationRadius, in.AnionRadius)
+}
+
+func (c *Cycle) volumeModel(in *ModelInputs) (float64, error) {
+	vm, from, err := c.molarVolume()
+	if err != nil {
+		return 0, err
+	}
+	in.MolarVolume, in.VolumeFrom = vm, from
+	est, err := lattice.VolumeBased(vm, c.ionKinds())
+	if err != nil {
+		return 0, err
+	}
+	in.IonicStrength = est.IonicStrength
+	in.Fit = est.Form.String()
+	if est.Form == lattice.Form1999 {
+		in.Fit += fmt.Sprintf(", %s fit α = %g kJ·nm/mol, β = %g kJ/mol", est.Fit.Name, est.Fit.Alpha, est.Fit.Beta)
+	}
+	return est.U, nil
+}
+
+// molarVolume returns V_m (nm³) from the cell when there is one with
+// measured parameters, else from the density and molar mass.
+func (c *Cycle) molarVolume() (float64, string, error) {
+	st := c.Settings.Structure
+	if st.Cell != nil {
+		vm, err := lattice.MolarVolumeFromCell(st.Cell.Volume(), st.Cell.FormulaUnits)
+		return vm, "cell volume of " + st.Name() + " / Z", err
+	}
+	if st.Prototype != "" && len(st.Params) > 0 {
+		cell, err := crystal.Build(st.Prototype, st.Params)
+		if err == nil {
+			vm, err := lattice.MolarVolumeFromCell(cell.Volume(), cell.FormulaUnits)
+			return vm, fmt.Sprintf("cell volume of %s (%s) / Z", st.Prototype, formatParams(st.Params)), err
+		}
+	}
+	if c.Compound.Density.Known() && c.MolarMass > 0 {
+		vm, err := lattice.MolarVolumeFromDensity(c.MolarMass, c.Compound.Density.V)
+		return vm, fmt.Sprintf("molar mass %.3f g/mol / density %g g/cm³ (%s)", c.MolarMass, c.Compound.Density.V, c.Compound.Density.Source), err
+	}
+	return 0, "", &ModelError{Model: ModelVolume, Reason: "no cell parameters and no density for " + c.Formula +
+		"; choose a structure with parameters (--structure) or give a CIF file"}
+}
+
+// bornModel evaluates Born–Landé (mayer false) or Born–Mayer (mayer true);
+// with actual true, the Madelung constant and d₀ are the chosen structure's
+// own (the ewald model).
+func (c *Cycle) bornModel(in *ModelInputs, mayer, actual bool) (float64, error) {
+	mad, err := c.madelung(in, actual)
+	if err != nil {
+		return 0, err
+	}
+	if err := c.distance(in, actual, mad.NearestDistance); err != nil {
+		return 0, err
+	}
+	pair := lattice.IonPair{Madelung: in.Madelung, ZCation: c.Cation.Ion.Charge, ZAnion: c.Anion.Ion.Charge, R0: in.D0}
+	if mayer {
+		in.Rho = c.Settings.Rho
+		if in.Rho == 0 {
+			in.Rho = lattice.DefaultRho
+		}
+		return lattice.BornMayer(pair, in.Rho)
+	}
+	n := c.Settings.BornExponent
+	in.BornExponentFrom = "set by the user"
+	if n == 0 {
+		var configs []string
+		for range c.Cation.Count {
+			configs = append(configs, c.Cation.Ion.BornConfig)
+		}
+		for range c.Anion.Count {
+			configs = append(configs, c.Anion.Ion.BornConfig)
+		}
+		n, err = lattice.BornExponent(configs...)
+		if err != nil {
+			return 0, &ModelError{Model: ModelBornLande, Reason: "no Born exponent class for " + c.Cation.Ion.Symbol + " or " +
+				c.Anion.Ion.Symbol + "; set n yourself", Err: err}
+		}
+		in.BornExponentFrom = fmt.Sprintf("mean of Pauling's values over the ions (%s ×%d, %s ×%d)",
+			c.Cation.Ion.BornConfig, c.Cation.Count, c.Anion.Ion.BornConfig, c.Anion.Count)
+	}
+	in.BornExponent = n
+	return lattice.BornLande(pair, n)
+}
+
+// distance sets in.D0 by the settings: for the textbook models (actual
+// false) DistanceAuto means the radii sum; for the ewald model the cell's
+// nearest cation–anion distance.
+func (c *Cycle) distance(in *ModelInputs, actual bool, geometric float64) error {
+	src := c.Settings.Distance
+	if src == DistanceAuto {
+		src = DistanceRadii
+		if actual {
+			src = DistanceGeometry
+		}
+	}
+	switch src {
+	case DistanceUser:
+		if !(c.Settings.D0 > 0) {
+			return &ModelError{Model: "d₀", Reason: "user d₀ must be a positive distance in Å"}
+		}
+		in.D0, in.D0From = c.Settings.D0, "set by the user"
+		return nil
+	case DistanceRadii:
+		err := c.radii(in, false)
+		if err == nil {
+			in.D0 = in.CationRadius + in.AnionRadius
+			in.D0From = "sum of radii (" + in.RadiusFrom + ")"
+			return nil
+		}
+		if c.Settings.Distance == DistanceRadii {
+			return err
+		}
+		// Automatic choice with a radius missing: fall back to the geometry.
+	}
+	if !(geometric > 0) {
+		return &ModelError{Model: "d₀", Reason: "no measured cell to take d₀ from for " + c.Formula +
+			"; choose a structure with parameters or a CIF file, or give d₀ in Å"}
+	}
+	in.D0 = geometric
+	in.D0From = "nearest cation–anion distance of " + in.Structure
+	return nil
+}
+
+// hasMeasuredCell reports whether the structure's geometry is measured (a
+// CIF, or prototype parameters from the data or the user) rather than a
+// prototype's defaults.
+func (c *Cycle) hasMeasuredCell() bool {
+	st := c.Settings.Structure
+	return st.Cell != nil || (st.Prototype != "" && len(st.Params) > 0)
+}
+
+// madelung finds the Madelung constant: the Ewald sum of the chosen
+// structure with the compound's ions; with no structure (textbook models
+// only) the prototype the radius-ratio rule suggests, with its default
+// parameters.
+func (c *Cycle) madelung(in *ModelInputs, actual bool) (MadelungValue, error) {
+	st := c.Settings.Structure
+	guessed := false
+	if st.Empty() {
+		if actual {
+			return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: "no structure for " + c.Formula +
+				"; choose a prototype or a CIF file with --structure"}
+		}
+		p, why, err := c.ratioRule()
+		if err != nil {
+			return MadelungValue{}, err
+		}
+		st = Structure{Prototype: p}
+		in.MadelungFrom = why
+		guessed = true
+	}
+	mv, err := c.Memo().Madelung(st, c.Cation, c.Anion, c.Settings.Accuracy)
+	if err != nil {
+		return MadelungValue{}, err
+	}
+	in.Madelung = mv.A
+	in.Structure = st.Name()
+	if !guessed {
+		in.MadelungFrom = "Ewald sum (conducting boundary) of " + describeStructure(st)
+	} else {
+		in.MadelungFrom += "; A by Ewald sum of its default cell"
+	}
+	if guessed {
+		mv.NearestDistance = 0 // the default cell's distance is not this compound's
+	}
+	return mv, nil
+}
+
+func describeStructure(st Structure) string {
+	if st.Cell != nil {
+		return st.Name()
+	}
+	if len(st.Params) == 0 {
+		return st.Prototype + " (default parameters)"
+	}
+	return st.Prototype + " (" + formatParams(st.Params) + ")"
+}
+
+func formatParams(p map[string]float64) string {
+	keys := make([]string, 0, len(p))
+	for k := range p {
+		keys = append(keys, k)
+	}
+	slices.Sort(keys)
+	parts := make([]string, len(keys))
+	for i, k := range keys {
+		parts[i] = fmt.Sprintf("%s=%g", k, p[k])
+	}
+	return strings.Join(parts, ", ")
+}
+
+// ratioRule picks a prototype from the stoichiometry and the radius ratio
+// r₊/r₋ (CN VI radii): the radius-ratio rule of Pauling (common practice,
+// no source for the exact cut-offs 0.414 and 0.732).
+func (c *Cycle) ratioRule() (string, string, error) {
+	a, b := c.Cation.Count, c.Anion.Count
+	var in ModelInputs
+	ratio := math.NaN()
+	if err := c.radii(&in, true); err == nil {
+		ratio = in.CationRadius / in.AnionRadius
+	}
+	pick := ""
+	switch {
+	case a == 1 && b == 1:
+		switch {
+		case ratio >= 0.732:
+			pick = "caesium-chloride"
+		case ratio >= 0.414 || math.IsNaN(ratio):
+			pick = "rock-salt"
+		default:
+			pick = "zinc-blende"
+		}
+	case a == 1 && b == 2:
+		pick = "rutile"
+		if ratio >= 0.732 || math.IsNaN(ratio) {
+			pick = "fluorite"
+		}
+	case a == 2 && b == 1:
+		pick = "antifluorite"
+	case a == 2 && b == 3:
+		pick = "corundum"
+	}
+	if pick == "" {
+		return "", "", &ModelError{Model: "Madelung", Reason: fmt.Sprintf("no structure for %s and no prototype fits a %d:%d formula; choose a CIF file", c.Formula, a, b)}
+	}
+	why := fmt.Sprintf("no structure in the data: %s guessed by the radius-ratio rule", pick)
+	if !math.IsNaN(ratio) {
+		why += fmt.Sprintf(" (r₊/r₋ = %.3f)", ratio)
+	}
+	return pick, why, nil
+}

@@ -1,0 +1,121 @@
+package cycle
+
+import (
+	"math"
+	"strconv"
+	"strings"
+	"unicode/utf8"
+
+	"enthalpath/thermo"
+)
+
+// Setting is one KEY=VALUE[±UNC] entry, as given to --set.
+type Setting struct {
+	// Key is the step key.
+	Key string
+	// Value and Uncertainty are in kJ/mol (converted from the unit given).
+	Value, Uncertainty float64
+	// HasUncertainty is false when no ±UNC was written; the step then keeps
+	// an uncertainty of 0 (an exact user value).
+	HasUncertainty bool
+}
+
+// ParseSetting reads "KEY=VALUE", "KEY=VALUE±UNC" or "KEY=VALUE+-UNC",
+// with an optional unit after the number (kj, kcal, ev: "lattice=-188.1kcal",
+// "attachment-1=-3.6±0.01 ev"); without one the value is in unit def. Spaces
+// around the parts are allowed. The key is not checked against a cycle (Set
+// does that).
+func ParseSetting(text string, def thermo.Unit) (Setting, error) {
+	bad := func(col int, reason string) (Setting, error) {
+		return Setting{}, &SettingError{Text: text, Column: col, Reason: reason}
+	}
+	if !utf8.ValidString(text) {
+		return bad(1, "not valid UTF-8")
+	}
+	eq := strings.IndexByte(text, '=')
+	if eq < 0 {
+		return bad(utf8.RuneCountInString(text)+1, "missing '='")
+	}
+	key := strings.TrimSpace(text[:eq])
+	if key == "" {
+		return bad(1, "missing step key before '='")
+	}
+	for i, r := range key {
+		if !(r >= 'a' && r <= 'z' || r >= '0' && r <= '9' || r == '-' || r >= 'A' && r <= 'Z') {
+			return bad(utf8.RuneCountInString(text[:i])+1, "a step key has only letters, digits and '-'")
+		}
+	}
+	rest := text[eq+1:]
+	col0 := utf8.RuneCountInString(text[:eq+1]) + 1
+	// Unit suffix.
+	unit := def
+	body := strings.TrimSpace(rest)
+	lower := strings.ToLower(body)
+	for _, u := range []struct {
+		suffix string
+		unit   thermo.Unit
+	}{{"kcal/mol", thermo.KcalPerMol}, {"kj/mol", thermo.KJPerMol}, {"kcal", thermo.KcalPerMol}, {"kj", thermo.KJPerMol}, {"ev", thermo.EVPerFormulaUnit}} {
+		if strings.HasSuffix(lower, u.suffix) {
+			unit = u.unit
+			body = strings.TrimSpace(body[:len(body)-len(u.suffix)])
+			break
+		}
+	}
+	valText, uncText, hasUnc := body, "", false
+	if i := strings.Index(body, "±"); i >= 0 {
+		valText, uncText, hasUnc = body[:i], body[i+len("±"):], true
+	} else if i := strings.Index(body, "+-"); i >= 0 {
+		valText, uncText, hasUnc = body[:i], body[i+2:], true
+	}
+	valText = strings.TrimSpace(valText)
+	if valText == "" {
+		return bad(col0, "missing value after '='")
+	}
+	v, err := parseNumber(valText)
+	if err != nil {
+		return bad(col0+leading(rest), "value "+strconv.Quote(valText)+" is not a number")
+	}
+	s := Setting{Key: key, Value: thermo.ToKJPerMol(v, unit)}
+	if hasUnc {
+		uncText = strings.TrimSpace(uncText)
+		uc := col0 + utf8.RuneCountInString(rest[:strings.Index(rest, uncText)])
+		if uncText == "" {
+			return bad(uc, "missing uncertainty after ±")
+		}
+		u, err := parseNumber(uncText)
+		if err != nil {
+			return bad(uc, "uncertainty "+strconv.Quote(uncText)+" is not a number")
+		}
+		if u < 0 {
+			return bad(uc, "uncertainty must not be negative")
+		}
+		s.Uncertainty, s.HasUncertainty = math.Abs(thermo.ToKJPerMol(u, unit)), true
+	}
+	return s, nil
+}
+
+func leading(s string) int {
+	return utf8.RuneCountInString(s) - utf8.RuneCountInString(strings.TrimLeft(s, " \t"))
+}
+
+// parseNumber reads a finite decimal number; a Unicode minus sign (−) is
+// accepted for a leading '-'.
+func parseNumber(s string) (float64, error) {
+	s = strings.Replace(s, "−", "-", 1)
+	if strings.ContainsAny(s, " \t_") {
+		return 0, strconv.ErrSyntax
+	}
+	low := strings.ToLower(s)
+	if strings.Contains(low, "inf") || strings.Contains(low, "nan") || strings.HasPrefix(low, "0x") || strings.HasPrefix(low, "-0x") || strings.HasPrefix(low, "+0x") {
+		return 0, strconv.ErrSyntax
+	}
+	v, err := strconv.ParseFloat(s, 64)
+	if err != nil || math.IsInf(v, 0) || math.IsNaN(v) {
+		return 0, strconv.ErrSyntax
+	}
+	return v, nil
+}
+
+// Apply sets the setting's step on c (see Cycle.Set); without ±UNC the
+// value is taken as exact (uncertainty 0).
+func (s Setting) Apply(c *Cycle) error { return c.Set(s.Key, s.Value, s.Uncertainty) }

@@ -1,0 +1,265 @@
+package cycle
+
+import (
+	"fmt"
+	"math"
+	"slices"
+
+	"enthalpath/thermo"
+)
+
+// freeElectronEnthalpy is 5/2·RT at 298.15 K in kJ/mol: the heat content
+// H(298.15 K) − H(0) of one mole of free electrons treated as an ideal
+// monatomic gas.
+func freeElectronEnthalpy() float64 { return 2.5 * thermo.RT(thermo.StandardTemperature) }
+
+// degreesOfFreedom is n of Jenkins (2005): 3 monatomic, 5 linear, 6 non-linear.
+func degreesOfFreedom(shape string) float64 {
+	switch shape {
+	case "linear":
+		return 5
+	case "nonlinear", "non-linear":
+		return 6
+	}
+	return 3
+}
+
+// LatticeCorrection returns ΔH_L − U in kJ/mol for the dissociation
+// MaXb(s) → a M(g) + b X(g) at 298.15 K, by Jenkins' rule
+// [a(n_M/2 − 2) + b(n_X/2 − 2)]·RT (H. D. B. Jenkins, J. Chem. Educ. 82,
+// 950 (2005)): −RT for a 1:1 salt of monatomic ions.
+func (c *Cycle) LatticeCorrection() float64 {
+	k := float64(c.Cation.Count)*(degreesOfFreedom(c.Cation.Ion.Shape)/2-2) +
+		float64(c.Anion.Count)*(degreesOfFreedom(c.Anion.Ion.Shape)/2-2)
+	return k * thermo.RT(thermo.StandardTemperature)
+}
+
+// shift returns Value − base for step s under conventions conv, where base
+// is the step's value in the conventions Hess's law is summed in: enthalpies
+// at 298.15 K with a thermal electron, lattice enthalpy ΔH_L.
+func (c *Cycle) shift(s *Step, conv Conventions) float64 {
+	h := freeElectronEnthalpy()
+	switch s.Kind {
+	case KindIonization:
+		if conv.Ionization == Energies0K {
+			return -h
+		}
+	case KindAttachment:
+		if conv.Ionization == Energies0K {
+			return h
+		}
+	case KindIonFormation:
+		if conv.Ionization == Energies0K {
+			// Tabulated ΔfH°(ion, g) counts the thermal electron; the 0 K
+			// convention leaves it out: −5/2·RT per electron removed, +5/2·RT
+			// per electron added.
+			p := c.Cation
+			if s.Side == SideAnion {
+				p = c.Anion
+			}
+			return -float64(p.Ion.Charge) * h
+		}
+	case KindLattice:
+		if conv.Lattice == LatticeEnergy {
+			// Step value −U; base −ΔH_L = −U − corr.
+			return c.LatticeCorrection()
+		}
+	}
+	return 0
+}
+
+// hessSign is +1 for the steps on the path elements → ions → solid and −1
+// for the formation step, so that Σ sign·m·base = 0.
+func hessSign(s *Step) float64 {
+	if s.Kind == KindFormation {
+		return -1
+	}
+	return 1
+}
+
+// LatticeValue is the lattice step (gaseous ions → solid, negative) in both
+// conventions.
+type LatticeValue struct {
+	// Enthalpy is −ΔH_L at 298.15 K and Energy is −U, in kJ/mol.
+	Enthalpy, Energy float64
+	// Uncertainty is the standard uncertainty in kJ/mol (the same for both).
+	Uncertainty float64
+	// Correction is ΔH_L − U for the dissociation (Jenkins' rule).
+	Correction float64
+}
+
+// In returns the value in convention conv.
+func (l LatticeValue) In(conv LatticeConvention) float64 {
+	if conv == LatticeEnergy {
+		return l.Energy
+	}
+	return l.Enthalpy
+}
+
+// Handbook compares the cycle's lattice value with the data's tabulated one.
+type Handbook struct {
+	// Value is the tabulated value as a lattice step (negative) in the
+	// cycle's lattice convention, converted with Jenkins' rule when the
+	// source tabulated the other quantity.
+	Value       float64
+	Uncertainty float64
+	// Tabulated is the raw row (positive, solid → ions) and Convention
+	// what it tabulated (U or ΔH_L).
+	Tabulated  float64
+	Convention LatticeConvention
+	Source     Source
+	// Difference is cycle − handbook in kJ/mol and Percent that over |handbook|.
+	Difference, Percent float64
+}
+
+// Result is a solved cycle. Solve never changes the Cycle it is given.
+type Result struct {
+	// Steps are the cycle's steps with the solved value filled in, the
+	// lattice step filled from a model if Settings.LatticeFrom says so, and
+	// composite steps summed.
+	Steps []Step
+	// Solved is the solved step (Source.Kind SourceSolved).
+	Solved Step
+	// Lattice is the lattice step in both conventions.
+	Lattice LatticeValue
+	// Conventions are those the Steps' values are in.
+	Conventions Conventions
+	// Models are the lattice models, each against Lattice.
+	Models []ModelResult
+	// Handbook is the data's tabulated lattice energy beside the cycle's,
+	// or nil when the data have none.
+	Handbook *Handbook
+	// Notes explain conventions and defaults that shaped the numbers.
+	Notes []string
+	// Warnings are things the user should look at (cycle-derived inputs,
+	// values from memory, default uncertainties, models that failed).
+	Warnings []string
+}
+
+// Step returns the result's step with key.
+func (r *Result) Step(key string) (*Step, bool) {
+	for i := range r.Steps {
+		if r.Steps[i].Key == key {
+			return &r.Steps[i], true
+		}
+	}
+	return nil, false
+}
+
+// Model returns the result of the model called name.
+func (r *Result) Model(name string) (*ModelResult, bool) {
+	for i := range r.Models {
+		if r.Models[i].Model == name {
+			return &r.Models[i], true
+		}
+	}
+	return nil, false
+}
+
+// Solve closes the cycle by Hess's law: exactly one step must be unknown
+// (or, with Settings.LatticeFrom, one step other than the lattice). It
+// returns the solved cycle with the propagated uncertainty, the lattice
+// value in both conventions and the model comparison. Errors: *UnknownsError
+// (zero or several unknowns), *MissingError (a step without a value),
+// *ModelError (LatticeFrom names a model that cannot be evaluated).
+func Solve(c *Cycle) (*Result, error) {
+	steps := slices.Clone(c.Steps)
+	w := *c
+	w.Steps = steps
+	res := &Result{Conventions: c.Conventions}
+	var models []ModelResult
+	if c.Settings.LatticeFrom != "" {
+		i, err := w.index("lattice")
+		if err != nil {
+			return nil, err
+		}
+		models = EvaluateModels(c)
+		m := findModel(models, c.Settings.LatticeFrom)
+		if m == nil {
+			return nil, &ModelError{Model: c.Settings.LatticeFrom, Reason: "not a lattice model; use one of " + modelList()}
+		}
+		if m.Err != nil {
+			return nil, &ModelError{Model: m.Model, Reason: "cannot fill the lattice step", Err: m.Err}
+		}
+		s := &steps[i]
+		s.Unknown = false
+		s.Value = m.Value
+		s.Uncertainty = m.Uncertainty
+		s.Source = Source{Kind: SourceModel, Key: m.Model, Citation: m.Citation, DefaultUncertainty: m.DefaultUncertainty,
+			Note: "lattice step from the " + m.Model + " model"}
+		if len(w.Unknowns()) == 0 {
+			return nil, &UnknownsError{}
+		}
+	}
+	w.refreshComposites()
+
+	unknown := -1
+	var unknowns []string
+	for i := range steps {
+		if steps[i].Unknown {
+			unknowns = append(unknowns, steps[i].Key)
+			unknown = i
+		}
+	}
+	if len(unknowns) != 1 {
+		return nil, &UnknownsError{Keys: unknowns}
+	}
+	if !w.inSum(unknown) {
+		return nil, &StepError{Key: steps[unknown].Key, Valid: w.Keys()}
+	}
+	sum, variance := 0.0, 0.0
+	for i := range steps {
+		s := &steps[i]
+		if i == unknown || !w.inSum(i) {
+			continue
+		}
+		if s.Source.Kind == SourceMissing {
+			return nil, &MissingError{Key: s.Key, What: s.Label}
+		}
+		base := s.Value - w.shift(s, w.Conventions)
+		sum += hessSign(s) * s.Multiplicity * base
+		variance += sq(s.Multiplicity * s.Uncertainty)
+	}
+	u := &steps[unknown]
+	if u.Multiplicity == 0 {
+		return nil, fmt.Errorf("cycle %s: step %s has multiplicity 0 and cannot be solved", c.Formula, u.Key)
+	}
+	base := -sum / (hessSign(u) * u.Multiplicity)
+	u.Value = base + w.shift(u, w.Conventions)
+	u.Uncertainty = math.Sqrt(variance) / math.Abs(u.Multiplicity)
+	u.Source = Source{Kind: SourceSolved, Citation: "Hess's law over the other steps"}
+	w.refreshComposites()
+	res.Solved = *u
+	res.Steps = steps
+
+	lat, _ := w.Step("lattice")
+	corr := w.LatticeCorrection()
+	latBase := lat.Value - w.shift(lat, w.Conventions)
+	res.Lattice = LatticeValue{Enthalpy: latBase, Energy: latBase + corr, Uncertainty: lat.Uncertainty, Correction: corr}
+	res.Handbook = w.handbook(res.Lattice)
+	if models == nil {
+		models = EvaluateModels(c)
+	}
+	res.Models = gaps(models, res.Lattice.In(w.Conventions.Lattice))
+	res.Notes, res.Warnings = w.commentary(res)
+	return res, nil
+}
+
+// Residual returns Σ sign·m·base over every step that has a value (the
+// amount by which the cycle fails to close, kJ/mol) and its uncertainty.
+// It is what an interactive caller can show when no step is unknown.
+func Residual(c *Cycle) (residual, uncertainty float64) {
+	w := *c
+	w.Steps = slices.Clone(c.Steps)
+	w.refreshComposites()
+	variance := 0.0
+	for i := range w.Steps {
+		s := &w.Steps[i]
+		if !w.inSum(i) || s.Unknown || s.Source.Kind == SourceMissing {
+			continue
+		}
+		residual += hessSign(s) * s.Multiplicity * (s.Value - w.shift(s, w.Conventions))
+		variance += sq(s.Multiplicity * s.Uncertainty)
+	}
+	return residual, math.Sqrt(variance)
+}
