@@ -68,6 +68,20 @@ func (v Verdict) String() string {
 	return fmt.Sprintf("gap %+.1f kJ/mol (%+.1f %%): %s", v.Gap, v.GapPercent, v.Character)
 }
 
+// Thresholds are the two cut-offs of a verdict, in percent of |model|.
+type Thresholds struct {
+	// Adequate: |gap| below it → IonicAdequate.
+	Adequate float64
+	// Substantial: a cycle more negative than the model by more than it →
+	// SubstantialCovalent.
+	Substantial float64
+}
+
+// DefaultThresholds returns {AdequateBelowPercent, SubstantialAbovePercent}.
+func DefaultThresholds() Thresholds {
+	return Thresholds{Adequate: AdequateBelowPercent, Substantial: SubstantialAbovePercent}
+}
+
 // Judge compares a cycle lattice value with a model value (both negative,
 // kJ/mol, same convention): gap = cycle − model. A cycle more negative
 // than the model means binding the ionic model misses, read as covalent
@@ -75,18 +89,31 @@ func (v Verdict) String() string {
 // as much is reported as ModelOverbinds. A zero or non-finite input gives
 // Undetermined with NaN gaps.
 func Judge(cycle, model float64) Verdict {
+	return JudgeWith(cycle, model, DefaultThresholds())
+}
+
+// JudgeWith is Judge with the user's thresholds; Basis then says they were
+// set by the user. Thresholds that are not 0 < Adequate ≤ Substantial give
+// Undetermined.
+func JudgeWith(cycle, model float64, th Thresholds) Verdict {
 	v := Verdict{Basis: VerdictBasis, Gap: math.NaN(), GapPercent: math.NaN()}
+	if th != DefaultThresholds() {
+		v.Basis = fmt.Sprintf("thresholds %g %% and %g %% of |model|: set by the user", th.Adequate, th.Substantial)
+		if !(th.Adequate > 0 && th.Adequate <= th.Substantial) || math.IsInf(th.Substantial, 0) {
+			return v
+		}
+	}
 	if model == 0 || math.IsNaN(cycle) || math.IsNaN(model) || math.IsInf(cycle, 0) || math.IsInf(model, 0) {
 		return v
 	}
 	v.Gap = cycle - model
 	v.GapPercent = 100 * v.Gap / math.Abs(model)
 	switch p := v.GapPercent; {
-	case math.Abs(p) < AdequateBelowPercent:
+	case math.Abs(p) < th.Adequate:
 		v.Character = IonicAdequate
 	case p > 0:
 		v.Character = ModelOverbinds
-	case -p <= SubstantialAbovePercent:
+	case -p <= th.Substantial:
 		v.Character = SomeCovalent
 	default:
 		v.Character = SubstantialCovalent
