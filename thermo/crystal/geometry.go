@@ -1,0 +1,172 @@
+package crystal
+
+import "math"
+
+// Reciprocal returns the reciprocal lattice vectors b₁, b₂, b₃ without the
+// factor 2π, as rows: bᵢ·aⱼ = δᵢⱼ. The distance between neighbouring lattice
+// planes (h k l) = eᵢ is 1/|bᵢ|.
+func (c *Crystal) Reciprocal() [3]Vec3 {
+	a := c.Lattice
+	v := a[0].Dot(a[1].Cross(a[2]))
+	return [3]Vec3{
+		a[1].Cross(a[2]).Scale(1 / v),
+		a[2].Cross(a[0]).Scale(1 / v),
+		a[0].Cross(a[1]).Scale(1 / v),
+	}
+}
+
+// Fractional returns the fractional coordinates of Cartesian position r.
+func (c *Crystal) Fractional(r Vec3) Vec3 {
+	b := c.Reciprocal()
+	return Vec3{b[0].Dot(r), b[1].Dot(r), b[2].Dot(r)}
+}
+
+// periodicDistance returns the shortest |df + n| over integer vectors n,
+// in Å, where df is a difference of fractional coordinates. With
+// skipZero, the n that makes df + n zero is left out (a site's distance to
+// its own images).
+func (c *Crystal) periodicDistance(df Vec3, recip [3]Vec3, skipZero bool) float64 {
+	for k := range df {
+		df[k] -= math.Round(df[k])
+	}
+	best := math.Inf(1)
+	if !(skipZero && df == (Vec3{})) {
+		best = c.Cartesian(df).Norm()
+	}
+	if math.IsInf(best, 1) {
+		// Self-image distance: start from the shortest lattice vector row.
+		for _, a := range c.Lattice {
+			best = math.Min(best, a.Norm())
+		}
+	}
+	// Every image closer than best has |df_k + n_k| ≤ best·|b_k|.
+	var lo, hi [3]int
+	for k := 0; k < 3; k++ {
+		h := best * recip[k].Norm()
+		lo[k] = int(math.Ceil(-df[k] - h))
+		hi[k] = int(math.Floor(-df[k] + h))
+	}
+	for n0 := lo[0]; n0 <= hi[0]; n0++ {
+		for n1 := lo[1]; n1 <= hi[1]; n1++ {
+			for n2 := lo[2]; n2 <= hi[2]; n2++ {
+				f := Vec3{df[0] + float64(n0), df[1] + float64(n1), df[2] + float64(n2)}
+				if skipZero && n0 == 0 && n1 == 0 && n2 == 0 && df == (Vec3{}) {
+					continue
+				}
+				if d := c.Cartesian(f).Norm(); d < best {
+					best = d
+				}
+			}
+		}
+	}
+	return best
+}
+
+// ShortestSeparation returns the shortest distance in Å between any two
+// sites, or between a site and its own periodic image, with the indices of
+// the pair (i ≤ j). It returns +Inf for a cell without sites.
+func (c *Crystal) ShortestSeparation() (d float64, i, j int) {
+	recip := c.Reciprocal()
+	d, i, j = math.Inf(1), -1, -1
+	for p := range c.Sites {
+		for q := p; q < len(c.Sites); q++ {
+			df := c.Sites[q].Frac.Sub(c.Sites[p].Frac)
+			if r := c.periodicDistance(df, recip, p == q); r < d {
+				d, i, j = r, p, q
+			}
+		}
+	}
+	return d, i, j
+}
+
+// NearestCationAnion returns the shortest distance in Å between a site of
+// positive charge and a site of negative charge over all periodic images,
+// with the indices i (cation) and j (anion). Without a cation or an anion it
+// returns +Inf, −1, −1.
+func (c *Crystal) NearestCationAnion() (d float64, i, j int) {
+	recip := c.Reciprocal()
+	d, i, j = math.Inf(1), -1, -1
+	for p, sp := range c.Sites {
+		if !(sp.Charge > 0) {
+			continue
+		}
+		for q, sq := range c.Sites {
+			if !(sq.Charge < 0) {
+				continue
+			}
+			if r := c.periodicDistance(sq.Frac.Sub(sp.Frac), recip, false); r < d {
+				d, i, j = r, p, q
+			}
+		}
+	}
+	return d, i, j
+}
+
+// CoordinationShellTolerance is the relative widening of a cation's
+// nearest cation–anion distance that still counts as its first shell in
+// MeanCationAnionDistance.
+const CoordinationShellTolerance = 0.15
+
+// MeanCationAnionDistance returns the mean cation–anion bond length in Å:
+// the average, over every bond from a cation to an anion of its first
+// coordination shell (anions within 1 + CoordinationShellTolerance times
+// that cation's nearest anion distance), of the bond length. It is the
+// distance some published Madelung constants are referred to. Without a
+// cation or an anion it returns NaN.
+func (c *Crystal) MeanCationAnionDistance() float64 {
+	recip := c.Reciprocal()
+	sum, n := 0.0, 0
+	for _, sp := range c.Sites {
+		if !(sp.Charge > 0) {
+			continue
+		}
+		var ds []float64
+		nearest := math.Inf(1)
+		for _, sq := range c.Sites {
+			if !(sq.Charge < 0) {
+				continue
+			}
+			ds = append(ds, c.shellDistances(sq.Frac.Sub(sp.Frac), recip)...)
+		}
+		for _, d := range ds {
+			nearest = math.Min(nearest, d)
+		}
+		for _, d := range ds {
+			if d <= nearest*(1+CoordinationShellTolerance) {
+				sum += d
+				n++
+			}
+		}
+	}
+	if n == 0 {
+		return math.NaN()
+	}
+	return sum / float64(n)
+}
+
+// shellDistances lists the distances of every image of df within 1 +
+// CoordinationShellTolerance times its shortest image distance.
+func (c *Crystal) shellDistances(df Vec3, recip [3]Vec3) []float64 {
+	r := c.periodicDistance(df, recip, false) * (1 + CoordinationShellTolerance)
+	for k := range df {
+		df[k] -= math.Round(df[k])
+	}
+	var lo, hi [3]int
+	for k := 0; k < 3; k++ {
+		h := r * recip[k].Norm()
+		lo[k] = int(math.Ceil(-df[k] - h))
+		hi[k] = int(math.Floor(-df[k] + h))
+	}
+	var out []float64
+	for n0 := lo[0]; n0 <= hi[0]; n0++ {
+		for n1 := lo[1]; n1 <= hi[1]; n1++ {
+			for n2 := lo[2]; n2 <= hi[2]; n2++ {
+				f := Vec3{df[0] + float64(n0), df[1] + float64(n1), df[2] + float64(n2)}
+				if d := c.Cartesian(f).Norm(); d <= r {
+					out = append(out, d)
+				}
+			}
+		}
+	}
+	return out
+}

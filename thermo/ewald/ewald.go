@@ -1,0 +1,320 @@
+package ewald
+
+import (
+	"fmt"
+	"math"
+
+	"enthalpath/thermo"
+	"enthalpath/thermo/crystal"
+)
+
+// DefaultAccuracy is the relative accuracy used when Options.Accuracy is 0.
+const DefaultAccuracy = 1e-10
+
+// FinestAccuracy is the smallest relative accuracy Sum can promise in
+// float64 arithmetic. A finer request is evaluated at this accuracy and
+// returned with an *AccuracyError.
+const FinestAccuracy = 1e-14
+
+// CoarsestAccuracy is the largest relative accuracy Options accepts.
+const CoarsestAccuracy = 1e-2
+
+// Boundary describes the boundary condition of every sum.
+const Boundary = "conducting (tin-foil): no surface dipole term"
+
+// Convention is the definition of Result.MadelungConstant.
+const Convention = "E_fu = −A·z₊·|z₋|·e²/(4πε₀·d), d the shortest cation–anion distance, z₊ and z₋ the charges of that nearest pair"
+
+// maxTerms bounds the work of one sum (pair checks plus lattice-sum terms).
+const maxTerms = 2e10
+
+// Options controls Sum.
+type Options struct {
+	// Accuracy is the requested relative accuracy of the energy; 0 means
+	// DefaultAccuracy. It must lie between 0 and CoarsestAccuracy.
+	Accuracy float64
+
+	// alpha, when positive, forces the splitting parameter (1/Å); only the
+	// package's tests set it, to show the result does not depend on it.
+	alpha float64
+}
+
+// Result is the outcome of an Ewald sum.
+type Result struct {
+	// EnergyEV is the electrostatic energy of one cell in eV.
+	EnergyEV float64
+	// EnergyPerFormulaUnitEV is EnergyEV divided by the formula units.
+	EnergyPerFormulaUnitEV float64
+	// EnergyKJPerMol is the energy per mole of formula units in kJ/mol.
+	EnergyKJPerMol float64
+	// SitePotentials holds, in the order of the crystal's sites, the
+	// electrostatic potential in volt at each site due to all other charges
+	// of the infinite crystal (the Madelung potential).
+	// EnergyEV = ½ Σᵢ qᵢ·SitePotentials[i].
+	SitePotentials []float64
+	// NearestDistance is the shortest cation–anion distance d in Å.
+	NearestDistance float64
+	// NearestPair holds the site indices (cation, anion) of that distance.
+	NearestPair [2]int
+	// MadelungConstant is A in the convention stated by Convention.
+	MadelungConstant float64
+	// Convention is the sentence defining MadelungConstant.
+	Convention string
+	// Boundary is the boundary condition (always Boundary).
+	Boundary string
+	// Accuracy is the relative accuracy requested.
+	Accuracy float64
+	// EstimatedError is the estimated relative error of EnergyEV
+	// (truncation of both sums and floating-point rounding).
+	EstimatedError float64
+	// Alpha is the splitting parameter in 1/Å.
+	Alpha float64
+	// RealCutoff is the real-space cut-off radius in Å.
+	RealCutoff float64
+	// RecipCutoff is the reciprocal-space cut-off |k| in 1/Å (k includes 2π).
+	RecipCutoff float64
+	// RealTerms counts the real-space pair terms evaluated.
+	RealTerms int
+	// RecipTerms counts the reciprocal vectors used (one of each ±k pair).
+	RecipTerms int
+}
+
+// Sum evaluates the Coulomb energy of the neutral periodic point-charge
+// crystal c by Ewald summation with conducting boundary conditions, with
+// the splitting parameter and both cut-offs chosen from opt.Accuracy.
+//
+// It returns an error wrapping crystal.ErrNotNeutral for a charged cell,
+// ErrNoIons when there is no cation or no anion, ErrBadOptions for a bad
+// accuracy, and a plain error for an empty or degenerate cell. When the
+// accuracy cannot be reached it returns the Result computed and an
+// *AccuracyError.
+func Sum(c *crystal.Crystal, opt Options) (Result, error) {
+	if c == nil {
+		return Result{}, fmt.Errorf("ewald.Sum: nil crystal")
+	}
+	if err := c.Validate(); err != nil {
+		return Result{}, fmt.Errorf("ewald.Sum: %w", err)
+	}
+	hasCation, hasAnion := false, false
+	for i, s := range c.Sites {
+		if math.IsNaN(s.Charge) || math.IsInf(s.Charge, 0) {
+			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: site %d (%s) has charge %g", c.Name, i, s.Species, s.Charge)
+		}
+		if bad := !isFinite(s.Frac[0]) || !isFinite(s.Frac[1]) || !isFinite(s.Frac[2]); bad {
+			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: site %d (%s) has position %v", c.Name, i, s.Species, s.Frac)
+		}
+		hasCation = hasCation || s.Charge > 0
+		hasAnion = hasAnion || s.Charge < 0
+	}
+	if !hasCation || !hasAnion {
+		return Result{}, fmt.Errorf("ewald.Sum: crystal %q: %w", c.Name, ErrNoIons)
+	}
+	for k, a := range c.Lattice {
+		if !isFinite(a[0]) || !isFinite(a[1]) || !isFinite(a[2]) {
+			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: lattice vector %d is %v", c.Name, k+1, a)
+		}
+	}
+	eps := opt.Accuracy
+	if eps == 0 {
+		eps = DefaultAccuracy
+	}
+	if math.IsNaN(eps) || eps < 0 || eps > CoarsestAccuracy {
+		return Result{}, fmt.Errorf("ewald.Sum: accuracy %g must lie between 0 and %g (0 means %g): %w",
+			opt.Accuracy, CoarsestAccuracy, DefaultAccuracy, ErrBadOptions)
+	}
+	if math.IsNaN(opt.alpha) || opt.alpha < 0 || math.IsInf(opt.alpha, 0) {
+		return Result{}, fmt.Errorf("ewald.Sum: forced splitting parameter %g: %w", opt.alpha, ErrBadOptions)
+	}
+	target := math.Max(eps, FinestAccuracy)
+
+	s := newSystem(c)
+	alpha := opt.alpha
+	if alpha == 0 {
+		alpha = s.balancedAlpha()
+	}
+	// Both truncation errors fall as exp(−p²); start from exp(−p²) = target/2
+	// and widen until the Kolafa–Perram estimates meet the target. On the
+	// built-in prototypes the error measured against a 1e-13 sum stayed
+	// below exp(−p²).
+	p := math.Sqrt(-math.Log(target / 2))
+	var res Result
+	var parts partialSums
+	for attempt := 0; ; attempt++ {
+		rc, kc := p/alpha, 2*alpha*p
+		if w := s.work(rc, kc); w > maxTerms {
+			return Result{}, fmt.Errorf("ewald.Sum: crystal %q with %d sites needs about %.3g terms (limit %.3g): %w",
+				c.Name, len(c.Sites), w, float64(maxTerms), ErrTooLarge)
+		}
+		parts = s.evaluate(alpha, rc, kc)
+		if i, j := parts.overlap[0], parts.overlap[1]; i >= 0 {
+			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: sites %d (%s) and %d (%s) sit at the same position (closer than %g Å)",
+				c.Name, i, c.Sites[i].Species, j, c.Sites[j].Species, coincident)
+		}
+		res = s.result(parts, alpha, rc, kc, eps, math.Exp(-p*p))
+		trunc := s.truncationError(alpha, rc, kc) / math.Abs(parts.total())
+		if !(trunc > target) || attempt == 3 {
+			break
+		}
+		p = math.Sqrt(p*p + math.Log(trunc/target) + 0.5)
+	}
+	if !(res.EstimatedError <= eps) {
+		reason := "floating-point rounding limits the sum"
+		if eps < FinestAccuracy {
+			reason = fmt.Sprintf("float64 arithmetic cannot promise better than %g", FinestAccuracy)
+		}
+		return res, &AccuracyError{Crystal: c.Name, Requested: eps, Estimated: res.EstimatedError, Reason: reason}
+	}
+	return res, nil
+}
+
+func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+
+// system holds the wrapped geometry of one crystal.
+type system struct {
+	c      *crystal.Crystal
+	lat    [3]crystal.Vec3
+	recip  [3]crystal.Vec3 // without 2π
+	volume float64
+	frac   []crystal.Vec3 // wrapped into [0,1)
+	pos    []crystal.Vec3 // Cartesian, Å
+	q      []float64
+	q2     float64 // Σ q²
+}
+
+func newSystem(c *crystal.Crystal) *system {
+	s := &system{c: c, lat: c.Lattice, recip: c.Reciprocal(), volume: c.Volume()}
+	n := len(c.Sites)
+	s.frac = make([]crystal.Vec3, n)
+	s.pos = make([]crystal.Vec3, n)
+	s.q = make([]float64, n)
+	for i, site := range c.Sites {
+		f := site.Frac
+		for k := range f {
+			f[k] -= math.Floor(f[k])
+		}
+		s.frac[i] = f
+		s.pos[i] = c.Cartesian(f)
+		s.q[i] = site.Charge
+		s.q2 += site.Charge * site.Charge
+	}
+	return s
+}
+
+// realToRecipCost is the measured cost of one real-space term (an erfc and a
+// square root) relative to one site-by-k-vector term of the reciprocal sum.
+const realToRecipCost = 6.0
+
+// balancedAlpha returns the splitting parameter that balances the cost of
+// the two sums for a cut-off product p fixed by the accuracy. With
+// rc = p/α and kc = 2αp the real sum costs ∝ N²·rc³/V and the reciprocal
+// sum ∝ N·kc³·V/(8π³), so their sum is least for α⁶ = (c_r/c_k)·N·π³/V²
+// (compare the choice of J. Kolafa and J. W. Perram, Mol. Simul. 9, 351
+// (1992), and the N^(1/6) scaling in their Eq. 33); the total work then
+// grows as N^1.5.
+func (s *system) balancedAlpha() float64 {
+	n := float64(len(s.q))
+	return math.Pow(realToRecipCost*n*math.Pi*math.Pi*math.Pi/(s.volume*s.volume), 1.0/6)
+}
+
+// work estimates the number of terms of a sum with cut-offs rc and kc.
+func (s *system) work(rc, kc float64) float64 {
+	n := float64(len(s.q))
+	real := n * n / 2 * (1 + 4*math.Pi/3*rc*rc*rc/s.volume)
+	recip := n * (4 * math.Pi / 3 * kc * kc * kc * s.volume / (16 * math.Pi * math.Pi * math.Pi))
+	return real + recip
+}
+
+// truncationError is the Kolafa–Perram (1992) estimate, in e²/Å, of the
+// energy error from cutting the real sum at rc and the reciprocal sum at kc:
+//
+//	δE_r ≈ Q·√(rc/(2V))·exp(−α²rc²)/(α·rc)²
+//	δE_k ≈ Q·(α/π²)·K^(−3/2)·V^(−1/2)·exp(−(πK/α)²),  K = kc/(2π)
+//
+// with Q = Σ qᵢ².
+func (s *system) truncationError(alpha, rc, kc float64) float64 {
+	ar := alpha * rc
+	dr := s.q2 * math.Sqrt(rc/(2*s.volume)) * math.Exp(-ar*ar) / (ar * ar)
+	kk := kc / (2 * math.Pi)
+	dk := s.q2 * alpha / (math.Pi * math.Pi) * math.Pow(kk, -1.5) / math.Sqrt(s.volume) * math.Exp(-math.Pow(math.Pi*kk/alpha, 2))
+	return dr + dk
+}
+
+// partialSums holds the three parts of the energy in e²/Å (before the
+// Coulomb constant) and the per-site potentials in e/Å.
+type partialSums struct {
+	real, recip, self float64
+	phi               []float64
+	nearest           float64
+	pair              [2]int
+	overlap           [2]int // two sites at one position, or (−1, −1)
+	realTerms         int
+	recipTerms        int
+	magnitude         float64 // Σ of the absolute values of all terms, for rounding
+}
+
+func (p partialSums) total() float64 { return p.real + p.recip + p.self }
+
+func (s *system) evaluate(alpha, rc, kc float64) partialSums {
+	n := len(s.q)
+	ps := partialSums{phi: make([]float64, n), nearest: math.Inf(1), pair: [2]int{-1, -1}}
+	rep, g := s.orbits()
+	var reps []int
+	if g > 1 {
+		for i, r := range rep {
+			if r == i {
+				reps = append(reps, i)
+			}
+		}
+	}
+	phiReal := make([]float64, n)
+	ps.realTerms, ps.nearest, ps.pair, ps.overlap = s.realSpace(alpha, rc, phiReal, reps)
+	phiRecip := make([]float64, n)
+	ps.recipTerms = s.reciprocalSpace(alpha, kc, phiRecip, reps)
+	for i, r := range rep {
+		phiReal[i], phiRecip[i] = phiReal[r], phiRecip[r]
+	}
+	selfFactor := 2 * alpha / math.Sqrt(math.Pi)
+	for i, q := range s.q {
+		self := -selfFactor * q
+		ps.phi[i] = phiReal[i] + phiRecip[i] + self
+		ps.real += 0.5 * q * phiReal[i]
+		ps.recip += 0.5 * q * phiRecip[i]
+		ps.self += 0.5 * q * self
+		ps.magnitude += 0.5 * math.Abs(q) * (math.Abs(phiReal[i]) + math.Abs(phiRecip[i]) + math.Abs(self))
+	}
+	return ps
+}
+
+func (s *system) result(ps partialSums, alpha, rc, kc, eps, tail float64) Result {
+	ke := thermo.CoulombEVAngstrom
+	c := s.c
+	r := Result{
+		EnergyEV:       ke * ps.total(),
+		SitePotentials: make([]float64, len(ps.phi)),
+		Convention:     Convention,
+		Boundary:       Boundary,
+		Accuracy:       eps,
+		Alpha:          alpha,
+		RealCutoff:     rc,
+		RecipCutoff:    kc,
+		RealTerms:      ps.realTerms,
+		RecipTerms:     ps.recipTerms,
+	}
+	for i, phi := range ps.phi {
+		r.SitePotentials[i] = ke * phi
+	}
+	r.EnergyPerFormulaUnitEV = r.EnergyEV / float64(c.FormulaUnits)
+	r.EnergyKJPerMol = thermo.EVToKJPerMol(r.EnergyPerFormulaUnitEV)
+	d, i, j := ps.nearest, ps.pair[0], ps.pair[1]
+	if i < 0 {
+		d, i, j = c.NearestCationAnion()
+	}
+	r.NearestDistance, r.NearestPair = d, [2]int{i, j}
+	zz := s.q[i] * -s.q[j]
+	r.MadelungConstant = -r.EnergyPerFormulaUnitEV * d / (zz * ke)
+	total := math.Abs(ps.total())
+	terms := float64(ps.realTerms + ps.recipTerms*len(s.q) + len(s.q))
+	rounding := 4 * 0x1p-53 * math.Sqrt(terms) * ps.magnitude / total
+	r.EstimatedError = math.Max(s.truncationError(alpha, rc, kc)/total, tail) + rounding
+	return r
+}
