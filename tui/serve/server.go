@@ -1,0 +1,220 @@
+package serve
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"log/slog"
+	"net"
+	"sync"
+	"sync/atomic"
+	"time"
+
+	"github.com/charmbracelet/ssh"
+	"github.com/charmbracelet/wish"
+	gossh "golang.org/x/crypto/ssh"
+)
+
+// Server serves the workshop over SSH. Make one with New, run it with
+// Serve, stop it with Shutdown.
+type Server struct {
+	cfg      Config
+	log      *slog.Logger
+	ssh      *ssh.Server
+	keys     *authorizedKeys // nil: any key, loopback only
+	hostKey  gossh.Signer
+	slots    chan struct{}
+	nextID   atomic.Uint64
+	conns    atomic.Int64
+	maxConns int64
+
+	mu       sync.Mutex
+	sessions map[*liveSession]struct{}
+	closing  bool
+	sessWG   sync.WaitGroup
+}
+
+// New checks cfg, loads or creates the host key and reads the
+// authorized-keys file.
+func New(cfg Config) (*Server, error) {
+	cfg, err := cfg.withDefaults()
+	if err != nil {
+		return nil, err
+	}
+	s := &Server{
+		cfg:      cfg,
+		log:      cfg.Logger,
+		slots:    make(chan struct{}, cfg.MaxSessions),
+		sessions: make(map[*liveSession]struct{}),
+		// Connections that have not opened a session yet (or are being
+		// refused) are bounded too, so a flood of handshakes cannot
+		// exhaust the host.
+		maxConns: int64(4*cfg.MaxSessions + 16),
+	}
+	signer, created, err := LoadOrCreateHostKey(cfg.HostKeyPath)
+	if err != nil {
+		return nil, err
+	}
+	s.hostKey = signer
+	if created {
+		s.log.Info("host key created", "path", cfg.HostKeyPath, "fingerprint", gossh.FingerprintSHA256(signer.PublicKey()))
+	} else {
+		s.log.Info("host key loaded", "path", cfg.HostKeyPath, "fingerprint", gossh.FingerprintSHA256(signer.PublicKey()))
+	}
+	if cfg.AuthorizedKeysPath != "" {
+		if s.keys, err = loadAuthorizedKeys(cfg.AuthorizedKeysPath, s.log); err != nil {
+			return nil, err
+		}
+	}
+	s.ssh, err = wish.NewServer(
+		wish.WithPublicKeyAuth(s.checkKey),
+		wish.WithMiddleware(func(ssh.Handler) ssh.Handler { return s.handle }),
+		// A backstop for connections that never open a session; sessions
+		// have their own idle timeout, counted in keystrokes.
+		wish.WithIdleTimeout(cfg.IdleTimeout+time.Minute),
+	)
+	if err != nil {
+		return nil, err
+	}
+	s.ssh.AddHostKey(signer)
+	s.ssh.Version = "enthalpath"
+	s.ssh.ConnCallback = s.onConnect
+	s.ssh.ConnectionFailedCallback = func(conn net.Conn, err error) {
+		s.log.Info("connection refused during handshake", "remote", conn.RemoteAddr().String(), "reason", err.Error())
+	}
+	s.ssh.ServerConfigCallback = func(ssh.Context) *gossh.ServerConfig {
+		return &gossh.ServerConfig{
+			MaxAuthTries:    6,
+			AuthLogCallback: s.onAuthAttempt,
+		}
+	}
+	return s, nil
+}
+
+// HostKey returns the server's public host key.
+func (s *Server) HostKey() gossh.PublicKey { return s.hostKey.PublicKey() }
+
+// ListenAndServe listens on addr and serves until Shutdown.
+func (s *Server) ListenAndServe(addr string) error {
+	if s.keys == nil && !IsLoopback(addr) {
+		return fmt.Errorf("listen %s: %w (give --authorized-keys, or listen on 127.0.0.1 or ::1)", addr, ErrNotLoopback)
+	}
+	ln, err := net.Listen("tcp", addr)
+	if err != nil {
+		return err
+	}
+	return s.Serve(ln)
+}
+
+// Serve accepts connections on ln until Shutdown. It refuses a listener
+// that is not on loopback when there is no authorized-keys file.
+func (s *Server) Serve(ln net.Listener) error {
+	addr := ln.Addr().String()
+	if s.keys == nil && !IsLoopback(addr) {
+		ln.Close()
+		return fmt.Errorf("listen %s: %w (give --authorized-keys, or listen on 127.0.0.1 or ::1)", addr, ErrNotLoopback)
+	}
+	if s.keys == nil {
+		s.log.Warn("no authorized-keys file: ANY key is accepted, from loopback only; every key gets its own folder",
+			"listen", addr)
+	}
+	s.log.Info("listening", "listen", addr, "max_sessions", s.cfg.MaxSessions,
+		"idle_timeout", s.cfg.IdleTimeout.String(), "state_dir", s.cfg.StateDir)
+	err := s.ssh.Serve(ln)
+	if errors.Is(err, ssh.ErrServerClosed) {
+		return nil
+	}
+	return err
+}
+
+// Shutdown stops accepting connections, tells every session to save its
+// work and quit, waits for them until ctx ends or the grace period passes,
+// then closes every connection.
+func (s *Server) Shutdown(ctx context.Context) error {
+	s.mu.Lock()
+	s.closing = true
+	live := make([]*liveSession, 0, len(s.sessions))
+	for ls := range s.sessions {
+		live = append(live, ls)
+	}
+	s.mu.Unlock()
+
+	ctx, cancel := context.WithTimeout(ctx, s.cfg.ShutdownGrace)
+	defer cancel()
+	// Stop accepting; established connections stay until below.
+	go s.ssh.Shutdown(ctx) //nolint:errcheck // Close below reports
+	s.log.Info("shutting down", "sessions", len(live))
+	for _, ls := range live {
+		ls.stop("server shutting down", ExitShutdown)
+	}
+	finished := make(chan struct{})
+	go func() {
+		s.sessWG.Wait()
+		close(finished)
+	}()
+	var err error
+	select {
+	case <-finished:
+	case <-ctx.Done():
+		err = fmt.Errorf("shutdown: sessions still running after the grace period: %w", ctx.Err())
+		s.mu.Lock()
+		for ls := range s.sessions {
+			ls.kill()
+		}
+		s.mu.Unlock()
+	}
+	if cerr := s.ssh.Close(); cerr != nil && err == nil && !errors.Is(cerr, net.ErrClosed) {
+		err = cerr
+	}
+	s.log.Info("stopped")
+	return err
+}
+
+// onConnect logs a new TCP connection and bounds their number.
+func (s *Server) onConnect(_ ssh.Context, conn net.Conn) net.Conn {
+	remote := conn.RemoteAddr().String()
+	if n := s.conns.Add(1); n > s.maxConns {
+		s.conns.Add(-1)
+		s.log.Warn("connection refused: too many connections", "remote", remote, "limit", s.maxConns)
+		return nil
+	}
+	s.log.Info("connection", "remote", remote)
+	return &countedConn{Conn: conn, done: func() { s.conns.Add(-1) }}
+}
+
+// onAuthAttempt logs refused authentication attempts other than the
+// initial "none" probe every client makes. It never logs key material or
+// passwords; a refused key is logged with its fingerprint by checkKey.
+func (s *Server) onAuthAttempt(conn gossh.ConnMetadata, method string, err error) {
+	if err == nil || method == "none" || method == "publickey" {
+		return
+	}
+	s.log.Info("authentication refused", "method", method, "user", conn.User(),
+		"remote", conn.RemoteAddr().String(), "reason", "only public keys are accepted")
+}
+
+// checkKey decides a public key.
+func (s *Server) checkKey(ctx ssh.Context, key ssh.PublicKey) bool {
+	if s.keys == nil {
+		return true
+	}
+	if s.keys.allows(key) {
+		return true
+	}
+	s.log.Info("authentication refused", "method", "publickey", "user", ctx.User(),
+		"remote", ctx.RemoteAddr().String(), "fingerprint", gossh.FingerprintSHA256(key),
+		"reason", "key not in the authorized-keys file")
+	return false
+}
+
+// countedConn calls done once when closed.
+type countedConn struct {
+	net.Conn
+	once sync.Once
+	done func()
+}
+
+func (c *countedConn) Close() error {
+	c.once.Do(c.done)
+	return c.Conn.Close()
+}
