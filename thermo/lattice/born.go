@@ -49,7 +49,7 @@ func Coulomb(p IonPair) (float64, error) {
 	if err := p.check("Coulomb"); err != nil {
 		return 0, err
 	}
-	return coulomb(p), nil
+	return finiteResult("Coulomb", coulomb(p))
 }
 
 func coulomb(p IonPair) float64 {
@@ -69,7 +69,7 @@ func BornLande(p IonPair, n float64) (float64, error) {
 	if !(n > 1) || n > maxFinite {
 		return 0, paramErr("BornLande", "n", n, ErrOutOfRange, "the Born exponent must be greater than 1 (Pauling's values are 5 to 12)")
 	}
-	return coulomb(p) * (1 - 1/n), nil
+	return finiteResult("BornLande", coulomb(p)*(1-1/n))
 }
 
 // BornMayer returns the Born–Mayer lattice energy in kJ/mol (negative):
@@ -88,7 +88,7 @@ func BornMayer(p IonPair, rho float64) (float64, error) {
 	if rho >= p.R0 {
 		return 0, paramErr("BornMayer", "rho", rho, ErrOutOfRange, "must be less than r0 = %s Å", fmtFloat(p.R0))
 	}
-	return coulomb(p) * (1 - rho/p.R0), nil
+	return finiteResult("BornMayer", coulomb(p)*(1-rho/p.R0))
 }
 
 // EffectiveRho returns the ρ (Å) for which BornMayer(p, ρ) equals u, the
@@ -104,11 +104,11 @@ func EffectiveRho(u float64, p IonPair) (float64, error) {
 		return 0, err
 	}
 	ratio := u / coulomb(p)
-	if ratio >= 1 {
+	if !(ratio < 1) {
 		return 0, paramErr("EffectiveRho", "u", u, ErrNoSolution,
 			"|u| is at or beyond the Coulomb energy %.1f kJ/mol, so no positive ρ reproduces it", coulomb(p))
 	}
-	return p.R0 * (1 - ratio), nil
+	return finiteResult("EffectiveRho", p.R0*(1-ratio))
 }
 
 // EffectiveBornExponent returns the n for which BornLande(p, n) equals u
@@ -122,11 +122,11 @@ func EffectiveBornExponent(u float64, p IonPair) (float64, error) {
 		return 0, err
 	}
 	ratio := u / coulomb(p)
-	if ratio >= 1 {
+	if !(ratio < 1) {
 		return 0, paramErr("EffectiveBornExponent", "u", u, ErrNoSolution,
 			"|u| is at or beyond the Coulomb energy %.1f kJ/mol, so no finite n reproduces it", coulomb(p))
 	}
-	return 1 / (1 - ratio), nil
+	return finiteResult("EffectiveBornExponent", 1/(1-ratio))
 }
 
 // paulingExponents are the Born exponents of L. Pauling, The Nature of the

@@ -66,26 +66,32 @@ func (c Convention) Correction(t float64, ions []IonKind) (float64, error) {
 		return 0, &ParamError{Func: fn, Param: "convention", Value: c.String(), Err: ErrUnknownName,
 			Hint: "use Jenkins2005 or GasWork"}
 	}
-	return -dissociation * rt, nil
+	return finiteResult(fn, -dissociation*rt)
 }
 
 // EnthalpyFromEnergy returns the lattice enthalpy ΔH_L (gaseous ions →
 // solid, kJ/mol) from the lattice energy u in this convention.
 func (c Convention) EnthalpyFromEnergy(u, t float64, ions []IonKind) (float64, error) {
+	if err := checkLattice("EnthalpyFromEnergy", u); err != nil {
+		return 0, err
+	}
 	d, err := c.Correction(t, ions)
 	if err != nil {
 		return 0, err
 	}
-	return u + d, nil
+	return finiteResult("EnthalpyFromEnergy", u+d)
 }
 
 // EnergyFromEnthalpy is the inverse of EnthalpyFromEnergy.
 func (c Convention) EnergyFromEnthalpy(h, t float64, ions []IonKind) (float64, error) {
+	if err := checkLatticeParam("EnergyFromEnthalpy", "h", h); err != nil {
+		return 0, err
+	}
 	d, err := c.Correction(t, ions)
 	if err != nil {
 		return 0, err
 	}
-	return h - d, nil
+	return finiteResult("EnergyFromEnthalpy", h-d)
 }
 
 // EnthalpyCorrection is Jenkins2005.Correction: ΔH_L − U in the formation

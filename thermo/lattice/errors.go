@@ -72,12 +72,24 @@ func checkPositive(fn, param string, v float64, unit string) error {
 
 // checkLattice checks that u is a usable lattice energy: finite and negative
 // (gaseous ions → solid).
-func checkLattice(fn string, u float64) error {
+func checkLattice(fn string, u float64) error { return checkLatticeParam(fn, "u", u) }
+
+func checkLatticeParam(fn, param string, u float64) error {
 	if !(u < 0) || u < -maxFinite {
-		return paramErr(fn, "u", u, ErrOutOfRange,
+		return paramErr(fn, param, u, ErrOutOfRange,
 			"a lattice energy (gaseous ions → solid) must be negative and finite, in kJ/mol; negate a tabulated dissociation value")
 	}
 	return nil
 }
 
 func asParam(err error, target **ParamError) bool { return errors.As(err, target) }
+
+// finiteResult returns v, or an ErrOutOfRange error when the inputs drove
+// the result to ±Inf or NaN (extreme but individually valid inputs).
+func finiteResult(fn string, v float64) (float64, error) {
+	if v != v || v > maxFinite || v < -maxFinite {
+		return 0, &ParamError{Func: fn, Param: "result", Value: fmtFloat(v), Err: ErrOutOfRange,
+			Hint: "the inputs are so extreme that the result is not a finite number; check their units"}
+	}
+	return v, nil
+}

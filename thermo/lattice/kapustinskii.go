@@ -61,7 +61,7 @@ func (c KapustinskiiConstants) Energy(nu, zCation, zAnion int, rCation, rAnion f
 		return 0, err
 	}
 	s := rCation + rAnion
-	return -c.K * float64(nu*abs(zCation)*abs(zAnion)) / s * (1 - c.D/s), nil
+	return finiteResult(fn, -c.K*float64(nu*abs(zCation)*abs(zAnion))/s*(1-c.D/s))
 }
 
 func (c KapustinskiiConstants) check(fn string) error {
@@ -109,12 +109,12 @@ func (c KapustinskiiConstants) RadiusSum(u float64, nu, zCation, zAnion int) (fl
 	m := -u
 	cc := c.K * float64(nu*abs(zCation)*abs(zAnion))
 	disc := cc*cc - 4*m*cc*c.D
-	if disc < 0 {
+	if !(disc >= 0) {
 		return 0, paramErr(fn, "u", u, ErrNoSolution,
 			"|u| exceeds %.1f kJ/mol, the largest the equation gives for these charges", cc/(4*c.D))
 	}
 	// Larger root, written to avoid cancellation: s = (c + √disc)/(2m).
-	return (cc + math.Sqrt(disc)) / (2 * m), nil
+	return finiteResult(fn, (cc+math.Sqrt(disc))/(2*m))
 }
 
 // KapustinskiiRadius returns the radius (Å) of one ion given the other's
@@ -135,7 +135,7 @@ func (c KapustinskiiConstants) Radius(u float64, nu, zCation, zAnion int, known 
 	if err != nil {
 		return 0, err
 	}
-	if s <= known {
+	if !(s > known) {
 		return 0, paramErr(fn, "known", known, ErrNoSolution,
 			"the radius sum that reproduces u is %.3f Å, not larger than the known radius", s)
 	}

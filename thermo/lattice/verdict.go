@@ -22,7 +22,7 @@ const VerdictBasis = "thresholds 3 % and 10 % of |model|: common practice, no so
 type Character int
 
 const (
-	// Undetermined: no usable numbers (a zero or non-finite model value).
+	// Undetermined: no usable numbers (a value that is not negative and finite).
 	Undetermined Character = iota
 	// IonicAdequate: |gap| < 3 %.
 	IonicAdequate
@@ -63,7 +63,7 @@ type Verdict struct {
 	Basis string
 }
 
-// String reads like "gap −18.2 kJ/mol (−2.3 %): ionic model adequate".
+// String reads like "gap -18.2 kJ/mol (-2.3 %): ionic model adequate".
 func (v Verdict) String() string {
 	return fmt.Sprintf("gap %+.1f kJ/mol (%+.1f %%): %s", v.Gap, v.GapPercent, v.Character)
 }
@@ -86,7 +86,8 @@ func DefaultThresholds() Thresholds {
 // kJ/mol, same convention): gap = cycle − model. A cycle more negative
 // than the model means binding the ionic model misses, read as covalent
 // character once it passes AdequateBelowPercent; a cycle less negative by
-// as much is reported as ModelOverbinds. A zero or non-finite input gives
+// as much is reported as ModelOverbinds. An input that is not negative and
+// finite (a dissociation value passed by mistake, zero, NaN) gives
 // Undetermined with NaN gaps.
 func Judge(cycle, model float64) Verdict {
 	return JudgeWith(cycle, model, DefaultThresholds())
@@ -103,7 +104,7 @@ func JudgeWith(cycle, model float64, th Thresholds) Verdict {
 			return v
 		}
 	}
-	if model == 0 || math.IsNaN(cycle) || math.IsNaN(model) || math.IsInf(cycle, 0) || math.IsInf(model, 0) {
+	if !(model < 0) || !(cycle < 0) || math.IsNaN(cycle) || math.IsNaN(model) || math.IsInf(cycle, 0) || math.IsInf(model, 0) {
 		return v
 	}
 	v.Gap = cycle - model

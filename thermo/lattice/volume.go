@@ -164,10 +164,14 @@ func VolumeBasedWith(vm float64, ions []IonKind, opt VolumeOptions) (VolumeEstim
 	}
 	switch form {
 	case Form2000:
-		return VolumeEstimate{U: -high, Form: Form2000, IonicStrength: i}, nil
+		u, err := finiteResult(fn, -high)
+		if err != nil {
+			return VolumeEstimate{}, err
+		}
+		return VolumeEstimate{U: u, Form: Form2000, IonicStrength: i}, nil
 	case Form1999:
 		u := -2 * i * (fit.Alpha/math.Cbrt(vm) + fit.Beta)
-		if !(u < 0) {
+		if !(u < 0) || u < -maxFinite {
 			return VolumeEstimate{}, paramErr(fn, "vm", vm, ErrOutOfRange,
 				"the %s fit gives no binding at this volume; the volume is far outside its range", fit.Name)
 		}
@@ -222,7 +226,7 @@ func VolumeForEnergy(u float64, ions []IonKind, opt VolumeOptions) (float64, err
 	switch form {
 	case Form2000:
 		r := GlasserJenkinsA * i / m
-		return 2 * i * r * r * r, nil
+		return finiteResult(fn, 2*i*r*r*r)
 	case Form1999:
 		den := m/(2*i) - fit.Beta
 		if !(den > 0) {
@@ -230,7 +234,7 @@ func VolumeForEnergy(u float64, ions []IonKind, opt VolumeOptions) (float64, err
 				"|u|/(2I) must exceed β = %g kJ/mol of the %s fit", fit.Beta, fit.Name)
 		}
 		c := fit.Alpha / den
-		return c * c * c, nil
+		return finiteResult(fn, c*c*c)
 	}
 	return 0, &ParamError{Func: fn, Param: "opt.Form", Value: form.String(), Err: ErrUnknownName,
 		Hint: "use FormAuto, Form1999 or Form2000"}
@@ -248,7 +252,7 @@ func MolarVolumeFromDensity(molarMass, density float64) (float64, error) {
 		return 0, err
 	}
 	cm3 := molarMass / (density * thermo.Avogadro)
-	return cm3 * cube(metrePerCentimetre/metrePerNanometre), nil
+	return finiteResult(fn, cm3*cube(metrePerCentimetre/metrePerNanometre))
 }
 
 // MolarVolumeFromCell returns V_m = V_cell/Z in nm³ from the cell volume in
@@ -261,7 +265,7 @@ func MolarVolumeFromCell(cellVolume float64, z int) (float64, error) {
 	if z <= 0 {
 		return 0, paramErr(fn, "z", float64(z), ErrNotPositive, "give the number of formula units in the cell (≥ 1)")
 	}
-	return cellVolume / float64(z) * cube(thermo.MetrePerAngstrom/metrePerNanometre), nil
+	return finiteResult(fn, cellVolume/float64(z)*cube(thermo.MetrePerAngstrom/metrePerNanometre))
 }
 
 func cube(x float64) float64 { return x * x * x }
