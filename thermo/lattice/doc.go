@@ -14,8 +14,9 @@
 // by Born–Landé is about −755 kJ/mol. Tabulated lattice energies are
 // usually printed positive, for the dissociation solid → gaseous ions;
 // negate them before passing them here. Functions that take a lattice
-// energy (the inverses, Judge) expect the negative, formation-direction
-// value and refuse a positive one.
+// energy (the inverses, the U ↔ ΔH_L conversions, Judge) expect the
+// negative, formation-direction value and refuse a positive one (Judge
+// answers Undetermined).
 //
 // Lengths (r₀, radii, ρ, d) are in ångström; the volume-based equations
 // take the formula-unit volume V_m in nm³ (MolarVolumeFromCell and
@@ -74,6 +75,14 @@
 // ±7 %. VolumeBased uses the high-range equation when it gives at least
 // 5000 kJ/mol in magnitude and the stoichiometry fit otherwise;
 // VolumeOptions forces either.
+//
+// # Inverses
+//
+// For derived quantities (thermochemical radii, effective parameters):
+// KapustinskiiRadiusSum and KapustinskiiRadius (the larger, physical root
+// of the quadratic), VolumeForEnergy and DerivedIonVolume (with additive
+// ion volumes), EffectiveRho and EffectiveBornExponent (the ρ or n that
+// makes Born–Mayer or Born–Landé reproduce a cycle value).
 //
 // # Lattice energy and lattice enthalpy
 //

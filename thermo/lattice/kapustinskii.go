@@ -36,8 +36,8 @@ func Kapustinskii1956() KapustinskiiConstants {
 //
 //	U = −K·ν·|z₊z₋|/(r₊+r₋)·(1 − d/(r₊+r₋))
 //
-// with ν the number of ions per formula unit (2 for NaCl, 3 for CaF₂, 5 for
-// Al₂O₃), z₊ and z₋ the ion charges (signs ignored) and r₊, r₋ the radii in
+// with ν the number of ions (not atoms) per formula unit (2 for NaCl and
+// for KNO₃, 3 for CaF₂, 5 for Al₂O₃), z₊ and z₋ the ion charges (signs ignored) and r₊, r₋ the radii in
 // Å. K and d were fitted with Goldschmidt/Pauling-type radii; with Shannon's
 // effective ionic radii use the six-coordinate (CN VI) values, whatever the
 // real coordination (common practice, no source).

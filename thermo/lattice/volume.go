@@ -279,3 +279,29 @@ func gcd(a, b int) int {
 	}
 	return a
 }
+
+// DerivedIonVolume returns the volume (nm³) of one ion of kind
+// ions[unknown] for which the volume-based model reproduces the lattice
+// energy u (negative, kJ/mol), assuming that ion volumes add up to V_m
+// (Jenkins et al. 1999): V_ion = (V_m(u) − known)/ions[unknown].Count,
+// where known is the summed volume (nm³) of all the other ions of the
+// formula unit. It fails with ErrNoSolution when the other ions already
+// fill V_m.
+func DerivedIonVolume(u float64, ions []IonKind, unknown int, known float64, opt VolumeOptions) (float64, error) {
+	const fn = "DerivedIonVolume"
+	if unknown < 0 || unknown >= len(ions) {
+		return 0, paramErr(fn, "unknown", float64(unknown), ErrOutOfRange, "give the index of the ion kind to solve for (0 to %d)", len(ions)-1)
+	}
+	if !(known >= 0) || known > maxFinite {
+		return 0, paramErr(fn, "known", known, ErrNotPositive, "give the summed volume of the other ions in nm³ (0 or more)")
+	}
+	vm, err := VolumeForEnergy(u, ions, opt)
+	if err != nil {
+		return 0, err
+	}
+	if !(vm > known) {
+		return 0, paramErr(fn, "known", known, ErrNoSolution,
+			"the other ions' volume is not less than V_m = %.5f nm³ that reproduces u", vm)
+	}
+	return (vm - known) / float64(ions[unknown].Count), nil
+}
