@@ -66,6 +66,9 @@ type AtomizationStep struct {
 	AtomsProduced int
 	// Enthalpy is ΔH° at 298.15 K per mole of the reaction as written (kJ/mol).
 	Enthalpy Value
+	// Element is the element symbol; Order the step's place in the path (1 first).
+	Element string
+	Order   int
 }
 
 // ShannonRadius is one row of Shannon's 1976 table.
@@ -79,6 +82,13 @@ type ShannonRadius struct {
 	// Crystal and Ionic are the crystal and effective ionic radii in Å.
 	Crystal Value
 	Ionic   Value
+	// Core and Charge name the ion ("Fe", 3).
+	Core   string
+	Charge int
+	// Substituted is empty for an exact match; otherwise it says which row
+	// the lookup returned in place of the one asked for, for example
+	// "CN VIII not tabulated for Na+; nearest CN VI used". Radius sets it.
+	Substituted string
 }
 
 // Ion is a monatomic or polyatomic ion.
@@ -107,6 +117,21 @@ type Ion struct {
 	// named in HydrationScale.
 	Hydration      Value
 	HydrationScale string
+	// Hydrations holds every tabulated hydration enthalpy with its scale
+	// (Hydration is the first of them).
+	Hydrations []ScaledValue
+	// BornExponent is Pauling's Born exponent n for BornConfig (absent when
+	// BornConfig is empty).
+	BornExponent Value
+	// Note is free text from the ion row.
+	Note string
+}
+
+// ScaledValue is a value on a named scale ("conventional" or "absolute"
+// for hydration enthalpies).
+type ScaledValue struct {
+	Scale string
+	Value Value
 }
 
 // Compound is a tabulated solid.
@@ -136,6 +161,15 @@ type Compound struct {
 	// tabulated for the dissociation solid → gaseous ions); its Note says
 	// which convention (U or ΔH_L) the source used.
 	HandbookLattice Value
+	// LatticeConvention is "U" (lattice energy) or "dH" (lattice enthalpy)
+	// for HandbookLattice, as the source tabulated it.
+	LatticeConvention string
+	// ParamsMemory marks Params entered from memory; ParamsOverride marks
+	// Params set by a user overlay.
+	ParamsMemory   bool
+	ParamsOverride bool
+	// Note is free text from the compound row.
+	Note string
 }
 
 // Source is one citation.

@@ -1,0 +1,720 @@
+package data
+
+import (
+	"fmt"
+	"slices"
+	"sort"
+	"strconv"
+	"strings"
+
+	"enthalpath/thermo"
+)
+
+// builder applies table rows to a DB under construction. With overlay set,
+// a row whose key exists replaces the fields it gives (marking each replaced
+// value Override with the old value in Replaced); other rows are added.
+type builder struct {
+	db      *DB
+	overlay bool
+}
+
+// userSource is the source key of an overlay value that names none.
+const userSource = "user"
+
+func (b *builder) apply(table string, r record) error {
+	switch table {
+	case "sources.csv":
+		return b.source(r)
+	case "elements.csv":
+		return b.element(r)
+	case "ionization.csv":
+		return b.ionization(r)
+	case "affinity.csv":
+		return b.affinity(r)
+	case "atomization_steps.csv":
+		return b.step(r)
+	case "born_exponents.csv":
+		return b.bornExponent(r)
+	case "ions.csv":
+		return b.ion(r)
+	case "shannon.csv":
+		return b.shannon(r)
+	case "ion_values.csv":
+		return b.ionValue(r)
+	case "compounds.csv":
+		return b.compound(r)
+	}
+	return fmt.Errorf("unknown table %q", table)
+}
+
+// problem records an inconsistency of the built-in tables that does not stop
+// loading (an unknown source key, a compound naming a missing ion); tests
+// require DB.Problems to be empty. In an overlay the same is an error.
+func (b *builder) problem(e *TableError) error {
+	if b.overlay {
+		return e
+	}
+	b.db.problems = append(b.db.problems, e.Error())
+	return nil
+}
+
+// value reads one sourced value from r. present is false when the value
+// cell is empty.
+func (b *builder) value(r record, field, uncField, srcField, memName, unit string) (v Value, present bool, err error) {
+	x, ok, err := r.float(field)
+	if err != nil || !ok {
+		return Value{}, false, err
+	}
+	v = Value{V: x, Unit: unit, Note: r.str("note")}
+	if uncField != "" {
+		u, ok, err := r.float(uncField)
+		if err != nil {
+			return Value{}, false, err
+		}
+		if ok {
+			if u < 0 {
+				return Value{}, false, r.errorf(uncField, "uncertainty %g is negative", u)
+			}
+			v.U = u
+		}
+	}
+	v.Source = r.str(srcField)
+	switch {
+	case v.Source == "" && b.overlay:
+		v.Source = userSource
+	case v.Source == "":
+		if err := b.problem(r.errorf(srcField, "value without a source")); err != nil {
+			return Value{}, false, err
+		}
+	case v.Source != userSource || !b.overlay:
+		if _, known := b.db.sourceIdx[v.Source]; !known {
+			e := r.errorf(srcField, "unknown source key %q (add it to sources.csv or a [[source]] table)", v.Source)
+			if err := b.problem(e); err != nil {
+				return Value{}, false, err
+			}
+		}
+	}
+	if v.Memory, err = r.memoryOf(memName); err != nil {
+		return Value{}, false, err
+	}
+	if _, has := r.fields["derived"]; has {
+		if v.Derived, err = r.flag("derived"); err != nil {
+			return Value{}, false, err
+		}
+	}
+	return v, true, nil
+}
+
+// set stores nv in *dst; in an overlay it marks nv as the user's and keeps
+// the built-in value it replaces.
+func (b *builder) set(dst *Value, nv Value) {
+	if b.overlay {
+		nv.Override = true
+		if dst.Known() {
+			old := *dst
+			nv.Replaced = &old
+		}
+	}
+	*dst = nv
+}
+
+func (b *builder) source(r record) error {
+	key, err := r.requiredStr("key")
+	if err != nil {
+		return err
+	}
+	cit, err := r.requiredStr("citation")
+	if err != nil {
+		return err
+	}
+	if i, ok := b.db.sourceIdx[key]; ok {
+		if !b.overlay {
+			return r.errorf("key", "source %q listed twice", key)
+		}
+		b.db.sources[i].Citation = cit
+		return nil
+	}
+	b.db.sourceIdx[key] = len(b.db.sources)
+	b.db.sources = append(b.db.sources, Source{Key: key, Citation: cit})
+	return nil
+}
+
+func (b *builder) element(r record) error {
+	sym, err := r.requiredStr("symbol")
+	if err != nil {
+		return err
+	}
+	if !IsElementSymbol(sym) {
+		return r.errorf("symbol", "%q is not an element symbol", sym)
+	}
+	i, exists := b.db.elementIdx[sym]
+	if exists && !b.overlay {
+		return r.errorf("symbol", "element %s listed twice", sym)
+	}
+	if !exists {
+		b.db.elementIdx[sym] = len(b.db.elements)
+		b.db.elements = append(b.db.elements, Element{Symbol: sym, Z: atomicNumber(sym)})
+		i = len(b.db.elements) - 1
+	}
+	e := &b.db.elements[i]
+	if z, ok, err := r.integer("z"); err != nil {
+		return err
+	} else if ok {
+		if z != atomicNumber(sym) {
+			return r.errorf("z", "atomic number %d does not match %s (Z = %d)", z, sym, atomicNumber(sym))
+		}
+	}
+	if r.has("name") {
+		e.Name = r.str("name")
+	}
+	if r.has("standard_state") {
+		e.StandardState = r.str("standard_state")
+	}
+	v, ok, err := b.value(r, "atomization_kj_per_mol", "atomization_uncertainty", "source", "atomization", "kJ/mol")
+	if err != nil {
+		return err
+	}
+	if ok {
+		if v.V < 0 {
+			return r.errorf("atomization_kj_per_mol", "atomization enthalpy %g is negative", v.V)
+		}
+		b.set(&e.Atomization, v)
+	} else if !exists && !b.overlay {
+		return r.errorf("atomization_kj_per_mol", "missing value")
+	}
+	return nil
+}
+
+func (b *builder) elementFor(r record, field string) (*Element, error) {
+	sym, err := r.requiredStr(field)
+	if err != nil {
+		return nil, err
+	}
+	i, ok := b.db.elementIdx[sym]
+	if !ok {
+		return nil, r.errorf(field, "element %q is not in the element table (add an element row first)", sym)
+	}
+	return &b.db.elements[i], nil
+}
+
+func (b *builder) ionization(r record) error {
+	e, err := b.elementFor(r, "symbol")
+	if err != nil {
+		return err
+	}
+	stage, err := r.requiredInt("stage")
+	if err != nil {
+		return err
+	}
+	v, ok, err := b.value(r, "energy_ev", "uncertainty_ev", "source", "energy", "eV")
+	if err != nil {
+		return err
+	}
+	if !ok {
+		return r.errorf("energy_ev", "missing value")
+	}
+	if v.V <= 0 {
+		return r.errorf("energy_ev", "ionization energy %g eV is not positive", v.V)
+	}
+	n := len(e.Ionization)
+	switch {
+	case stage >= 1 && stage <= n && b.overlay:
+		b.set(&e.Ionization[stage-1], v)
+	case stage == n+1:
+		if b.overlay {
+			v.Override = true
+		}
+		e.Ionization = append(e.Ionization, v)
+	default:
+		return r.errorf("stage", "stage %d for %s but %d stages are known: give stages in order 1, 2, 3 ...", stage, e.Symbol, n)
+	}
+	if stage > e.Z {
+		return r.errorf("stage", "%s has only %d electrons", e.Symbol, e.Z)
+	}
+	return nil
+}
+
+func (b *builder) affinity(r record) error {
+	e, err := b.elementFor(r, "symbol")
+	if err != nil {
+		return err
+	}
+	order, err := r.requiredInt("order")
+	if err != nil {
+		return err
+	}
+	v, ok, err := b.value(r, "affinity_ev", "uncertainty_ev", "source", "affinity", "eV")
+	if err != nil {
+		return err
+	}
+	if !ok {
+		// Published in kJ/mol: converted once, here.
+		v, ok, err = b.value(r, "affinity_kj_per_mol", "", "source", "affinity", "eV")
+		if err != nil {
+			return err
+		}
+		if !ok {
+			return r.errorf("affinity_ev", "missing value (give affinity_ev or affinity_kj_per_mol)")
+		}
+		v.V = thermo.KJPerMolToEV(v.V)
+		if u, has, err := r.float("uncertainty_ev"); err != nil {
+			return err
+		} else if has {
+			v.U = u
+		}
+	}
+	switch order {
+	case 1:
+		b.set(&e.ElectronAffinity, v)
+	case 2:
+		b.set(&e.SecondAffinity, v)
+	default:
+		return r.errorf("order", "affinity order %d: only 1 and 2 are kept", order)
+	}
+	return nil
+}
+
+var stepKinds = []string{"vaporization", "sublimation", "dissociation"}
+
+func (b *builder) step(r record) error {
+	e, err := b.elementFor(r, "element")
+	if err != nil {
+		return err
+	}
+	order, err := r.requiredInt("order")
+	if err != nil {
+		return err
+	}
+	kind, err := r.requiredStr("kind")
+	if err != nil {
+		return err
+	}
+	if !contains(stepKinds, kind) {
+		return r.errorf("kind", "%q is not one of %s", kind, strings.Join(stepKinds, ", "))
+	}
+	reaction, err := r.requiredStr("reaction")
+	if err != nil {
+		return err
+	}
+	atoms, err := r.requiredInt("atoms_produced")
+	if err != nil {
+		return err
+	}
+	if atoms < 1 {
+		return r.errorf("atoms_produced", "%d: must be at least 1", atoms)
+	}
+	v, ok, err := b.value(r, "enthalpy_kj_per_mol", "uncertainty", "source", "enthalpy", "kJ/mol")
+	if err != nil {
+		return err
+	}
+	if !ok {
+		return r.errorf("enthalpy_kj_per_mol", "missing value")
+	}
+	steps := b.db.steps[e.Symbol]
+	st := AtomizationStep{Kind: kind, Reaction: reaction, AtomsProduced: atoms, Element: e.Symbol, Order: order}
+	switch {
+	case order >= 1 && order <= len(steps) && b.overlay:
+		st.Enthalpy = steps[order-1].Enthalpy
+		b.set(&st.Enthalpy, v)
+		steps[order-1] = st
+	case order == len(steps)+1:
+		b.set(&st.Enthalpy, v)
+		steps = append(steps, st)
+	default:
+		return r.errorf("order", "step %d for %s but %d steps are known: give steps in order", order, e.Symbol, len(steps))
+	}
+	b.db.steps[e.Symbol] = steps
+	return nil
+}
+
+func (b *builder) bornExponent(r record) error {
+	cfg, err := r.requiredStr("config")
+	if err != nil {
+		return err
+	}
+	v, ok, err := b.value(r, "exponent", "", "source", "exponent", "1")
+	if err != nil {
+		return err
+	}
+	if !ok {
+		return r.errorf("exponent", "missing value")
+	}
+	if v.V <= 1 {
+		return r.errorf("exponent", "Born exponent %g must exceed 1", v.V)
+	}
+	old, exists := b.db.born[cfg]
+	if exists && !b.overlay {
+		return r.errorf("config", "configuration %s listed twice", cfg)
+	}
+	b.set(&old, v)
+	b.db.born[cfg] = old
+	return nil
+}
+
+var ionShapes = []string{"monatomic", "linear", "nonlinear"}
+
+func (b *builder) ion(r record) error {
+	sym, err := r.requiredStr("symbol")
+	if err != nil {
+		return err
+	}
+	i, exists := b.db.ionIdx[sym]
+	if exists && !b.overlay {
+		return r.errorf("symbol", "ion %s listed twice", sym)
+	}
+	if !exists {
+		b.db.ionIdx[sym] = len(b.db.ions)
+		b.db.ions = append(b.db.ions, Ion{Symbol: sym})
+		i = len(b.db.ions) - 1
+	}
+	ion := &b.db.ions[i]
+	if r.has("core") || !exists {
+		if ion.Core, err = r.requiredStr("core"); err != nil {
+			return err
+		}
+		if _, ferr := ParseFormula(ion.Core); ferr != nil {
+			return r.errorf("core", "%v", ferr)
+		}
+	}
+	if r.has("charge") || !exists {
+		if ion.Charge, err = r.requiredInt("charge"); err != nil {
+			return err
+		}
+		if ion.Charge == 0 {
+			return r.errorf("charge", "an ion needs a non-zero charge")
+		}
+	}
+	if r.has("polyatomic") {
+		if ion.Polyatomic, err = r.flag("polyatomic"); err != nil {
+			return err
+		}
+	}
+	if r.has("shape") || !exists {
+		shape := r.str("shape")
+		if shape == "" {
+			shape = "monatomic"
+			if ion.Polyatomic {
+				return r.errorf("shape", "missing value (linear or nonlinear for a polyatomic ion)")
+			}
+		}
+		if !contains(ionShapes, shape) {
+			return r.errorf("shape", "%q is not one of %s", shape, strings.Join(ionShapes, ", "))
+		}
+		ion.Shape = shape
+	}
+	if r.has("born_config") {
+		cfg := r.str("born_config")
+		if _, ok := b.db.born[cfg]; !ok {
+			return r.errorf("born_config", "%q is not a Born exponent class (%s)", cfg, strings.Join(sortedKeys(b.db.born), ", "))
+		}
+		ion.BornConfig = cfg
+	}
+	if r.has("note") {
+		ion.Note = r.str("note")
+	}
+	return nil
+}
+
+func (b *builder) shannon(r record) error {
+	core, err := r.requiredStr("core")
+	if err != nil {
+		return err
+	}
+	charge, err := r.requiredInt("charge")
+	if err != nil {
+		return err
+	}
+	cn, err := r.requiredStr("cn")
+	if err != nil {
+		return err
+	}
+	n, ok := romanCN(cn)
+	if !ok {
+		return r.errorf("cn", "%q is not a coordination number as Shannon writes it (II … XIV, IVSQ, IVPY)", cn)
+	}
+	spin := r.str("spin")
+	if spin != "" && spin != "HS" && spin != "LS" {
+		return r.errorf("spin", "%q is not HS, LS or empty", spin)
+	}
+	cr, okC, err := b.value(r, "crystal_radius", "", "source", "crystal_radius", "Å")
+	if err != nil {
+		return err
+	}
+	ir, okI, err := b.value(r, "ionic_radius", "", "source", "ionic_radius", "Å")
+	if err != nil {
+		return err
+	}
+	k := ionKey{core, charge}
+	list := b.db.radii[k]
+	for j := range list {
+		if list[j].CN == cn && list[j].Spin == spin {
+			if !b.overlay {
+				return r.errorf("cn", "%s%s CN %s %s listed twice", core, chargeSuffix(charge, false), cn, spin)
+			}
+			if okC {
+				b.set(&list[j].Crystal, cr)
+			}
+			if okI {
+				b.set(&list[j].Ionic, ir)
+			}
+			return nil
+		}
+	}
+	if !okI {
+		return r.errorf("ionic_radius", "missing value")
+	}
+	sr := ShannonRadius{CN: cn, Coordination: n, Spin: spin, Core: core, Charge: charge}
+	b.set(&sr.Ionic, ir)
+	if okC {
+		b.set(&sr.Crystal, cr)
+	}
+	b.db.radii[k] = append(list, sr)
+	return nil
+}
+
+func (b *builder) ionValue(r record) error {
+	sym, err := r.requiredStr("ion")
+	if err != nil {
+		return err
+	}
+	i, ok := b.db.ionIdx[sym]
+	if !ok {
+		return b.problem(r.errorf("ion", "ion %q is not in the ion table", sym))
+	}
+	ion := &b.db.ions[i]
+	prop, err := r.requiredStr("property")
+	if err != nil {
+		return err
+	}
+	unit := r.str("unit")
+	want := map[string]string{"thermochemical_radius": "Å", "gas_formation": "kJ/mol", "hydration": "kJ/mol"}[prop]
+	if want == "" {
+		return r.errorf("property", "%q is not thermochemical_radius, gas_formation or hydration", prop)
+	}
+	if unit == "A" || unit == "angstrom" {
+		unit = "Å"
+	}
+	if unit != "" && unit != want {
+		return r.errorf("unit", "%s is stored in %s, not %q", prop, want, unit)
+	}
+	v, ok, err := b.value(r, "value", "uncertainty", "source", prop, want)
+	if err != nil {
+		return err
+	}
+	if !ok {
+		return r.errorf("value", "missing value")
+	}
+	switch prop {
+	case "thermochemical_radius":
+		b.set(&ion.ThermochemicalRadius, v)
+	case "gas_formation":
+		b.set(&ion.GasFormation, v)
+	case "hydration":
+		scale := r.str("scale")
+		if scale != "conventional" && scale != "absolute" {
+			return r.errorf("scale", "%q: a hydration enthalpy needs scale conventional or absolute", scale)
+		}
+		for j := range ion.Hydrations {
+			if ion.Hydrations[j].Scale == scale {
+				if !b.overlay {
+					return r.errorf("scale", "%s hydration on the %s scale listed twice", sym, scale)
+				}
+				b.set(&ion.Hydrations[j].Value, v)
+				return nil
+			}
+		}
+		sv := ScaledValue{Scale: scale}
+		b.set(&sv.Value, v)
+		ion.Hydrations = append(ion.Hydrations, sv)
+	}
+	return nil
+}
+
+func (b *builder) compound(r record) error {
+	formula, err := r.requiredStr("formula")
+	if err != nil {
+		return err
+	}
+	if _, ferr := ParseFormula(formula); ferr != nil {
+		return r.errorf("formula", "%v", ferr)
+	}
+	i, exists := b.db.compoundIdx[formula]
+	if exists && !b.overlay {
+		return r.errorf("formula", "compound %s listed twice", formula)
+	}
+	if !exists {
+		b.db.compoundIdx[formula] = len(b.db.compounds)
+		b.db.compounds = append(b.db.compounds, Compound{Formula: formula})
+		i = len(b.db.compounds) - 1
+	}
+	c := &b.db.compounds[i]
+	for field, dst := range map[string]*string{"name": &c.Name, "family": &c.Family, "structure": &c.Structure, "note": &c.Note} {
+		if r.has(field) {
+			*dst = r.str(field)
+		}
+	}
+	for _, side := range []struct {
+		ion, count string
+		dstIon     *string
+		dstCount   *int
+	}{{"cation", "cation_count", &c.Cation, &c.CationCount}, {"anion", "anion_count", &c.Anion, &c.AnionCount}} {
+		if r.has(side.ion) || !exists {
+			if *side.dstIon, err = r.requiredStr(side.ion); err != nil {
+				return err
+			}
+			if _, ok := b.db.ionIdx[*side.dstIon]; !ok {
+				if err := b.problem(r.errorf(side.ion, "ion %q is not in the ion table", *side.dstIon)); err != nil {
+					return err
+				}
+			}
+		}
+		if r.has(side.count) || !exists {
+			if *side.dstCount, err = r.requiredInt(side.count); err != nil {
+				return err
+			}
+			if *side.dstCount < 1 {
+				return r.errorf(side.count, "count %d must be at least 1", *side.dstCount)
+			}
+		}
+	}
+	if v, ok, err := b.value(r, "formation_kj_per_mol", "formation_uncertainty", "formation_source", "formation", "kJ/mol"); err != nil {
+		return err
+	} else if ok {
+		b.set(&c.Formation, v)
+	}
+	if v, ok, err := b.value(r, "density_g_cm3", "", "density_source", "density", "g/cm3"); err != nil {
+		return err
+	} else if ok {
+		if v.V <= 0 {
+			return r.errorf("density_g_cm3", "density %g is not positive", v.V)
+		}
+		b.set(&c.Density, v)
+	}
+	if v, ok, err := b.value(r, "lattice_kj_per_mol", "", "lattice_source", "lattice", "kJ/mol"); err != nil {
+		return err
+	} else if ok {
+		conv := r.str("lattice_convention")
+		if conv != "U" && conv != "dH" {
+			return r.errorf("lattice_convention", "%q: give U (lattice energy) or dH (lattice enthalpy)", conv)
+		}
+		c.LatticeConvention = conv
+		b.set(&c.HandbookLattice, v)
+	}
+	if r.has("params") {
+		p, err := parseParams(r)
+		if err != nil {
+			return err
+		}
+		src := r.str("params_source")
+		switch {
+		case src == "" && b.overlay:
+			src = userSource
+		case src == "":
+			if err := b.problem(r.errorf("params_source", "parameters without a source")); err != nil {
+				return err
+			}
+		default:
+			if _, ok := b.db.sourceIdx[src]; !ok && !(b.overlay && src == userSource) {
+				if err := b.problem(r.errorf("params_source", "unknown source key %q", src)); err != nil {
+					return err
+				}
+			}
+		}
+		c.Params, c.ParamsSource, c.ParamsOverride = p, src, b.overlay
+		if c.ParamsMemory, err = r.memoryOf("params"); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// parseParams reads "a=5.64;c=3.2" into a map.
+func parseParams(r record) (map[string]float64, error) {
+	out := map[string]float64{}
+	for _, part := range strings.Split(r.str("params"), ";") {
+		part = strings.TrimSpace(part)
+		if part == "" {
+			continue
+		}
+		k, v, ok := strings.Cut(part, "=")
+		k = strings.TrimSpace(k)
+		if !ok || k == "" {
+			return nil, r.errorf("params", "%q is not name=value", part)
+		}
+		x, err := strconv.ParseFloat(strings.TrimSpace(v), 64)
+		if err != nil {
+			return nil, r.errorf("params", "%q: %q is not a number", k, strings.TrimSpace(v))
+		}
+		if _, dup := out[k]; dup {
+			return nil, r.errorf("params", "parameter %q given twice", k)
+		}
+		out[k] = x
+	}
+	return out, nil
+}
+
+// finish sorts the radii, attaches them and the Born exponents to the ions,
+// and builds the lookup indexes.
+func (b *builder) finish() {
+	db := b.db
+	for k, list := range db.radii {
+		sort.SliceStable(list, func(i, j int) bool {
+			if list[i].Coordination != list[j].Coordination {
+				return list[i].Coordination < list[j].Coordination
+			}
+			if list[i].CN != list[j].CN {
+				return list[i].CN < list[j].CN
+			}
+			return list[i].Spin < list[j].Spin
+		})
+		db.radii[k] = list
+	}
+	db.ionKeyIdx = make(map[ionKey]int, len(db.ions))
+	db.ionFoldIdx = make(map[string]int, len(db.ions))
+	for i := range db.ions {
+		ion := &db.ions[i]
+		ion.Radii = db.radii[ionKey{ion.Core, ion.Charge}]
+		ion.BornExponent = Value{}
+		if ion.BornConfig != "" {
+			ion.BornExponent = db.born[ion.BornConfig]
+		}
+		if len(ion.Hydrations) > 0 {
+			ion.Hydration, ion.HydrationScale = ion.Hydrations[0].Value, ion.Hydrations[0].Scale
+		}
+		k := ionKey{ion.Core, ion.Charge}
+		if _, dup := db.ionKeyIdx[k]; !dup {
+			db.ionKeyIdx[k] = i
+		}
+		db.ionFoldIdx[foldIon(ion.Symbol)] = i
+		db.ionFoldIdx[foldIon(canonicalIonSymbol(ion.Core, ion.Charge, ion.Polyatomic))] = i
+	}
+	db.compositionIdx = make(map[string]int, len(db.compounds))
+	db.compoundFoldIdx = make(map[string]int, len(db.compounds))
+	for i, c := range db.compounds {
+		db.compoundFoldIdx[strings.ToLower(c.Formula)] = i
+		f, err := ParseFormula(c.Formula)
+		if err != nil {
+			continue
+		}
+		key := f.compositionKey()
+		if _, dup := db.compositionIdx[key]; !dup {
+			db.compositionIdx[key] = i
+		}
+	}
+	db.elementFoldIdx = make(map[string]int, len(db.elements))
+	for i, e := range db.elements {
+		db.elementFoldIdx[strings.ToLower(e.Symbol)] = i
+		if e.Name != "" {
+			db.elementFoldIdx[strings.ToLower(e.Name)] = i
+		}
+	}
+}
+
+func sortedKeys[V any](m map[string]V) []string {
+	keys := make([]string, 0, len(m))
+	for k := range m {
+		keys = append(keys, k)
+	}
+	slices.Sort(keys)
+	return keys
+}

@@ -1,0 +1,46 @@
+package data
+
+// Table files and their columns, as agreed in data/README.md. The overlay's
+// [[table]] names map to the same columns.
+var tableColumns = map[string][]string{
+	"sources.csv":           {"key", "citation"},
+	"elements.csv":          {"symbol", "z", "name", "standard_state", "atomization_kj_per_mol", "atomization_uncertainty", "source", "memory", "note"},
+	"ionization.csv":        {"symbol", "stage", "energy_ev", "uncertainty_ev", "source", "memory", "note"},
+	"affinity.csv":          {"symbol", "order", "affinity_ev", "affinity_kj_per_mol", "uncertainty_ev", "source", "memory", "derived", "note"},
+	"atomization_steps.csv": {"element", "order", "kind", "reaction", "atoms_produced", "enthalpy_kj_per_mol", "uncertainty", "source", "memory", "note"},
+	"shannon.csv":           {"core", "charge", "cn", "spin", "crystal_radius", "ionic_radius", "source", "memory", "note"},
+	"born_exponents.csv":    {"config", "exponent", "source", "memory", "note"},
+	"ions.csv":              {"symbol", "core", "charge", "polyatomic", "shape", "born_config", "note"},
+	"ion_values.csv":        {"ion", "property", "value", "uncertainty", "unit", "scale", "source", "memory", "derived", "note"},
+	"compounds.csv": {"formula", "name", "family", "cation", "cation_count", "anion", "anion_count",
+		"formation_kj_per_mol", "formation_uncertainty", "formation_source", "structure", "params", "params_source",
+		"density_g_cm3", "density_source", "lattice_kj_per_mol", "lattice_convention", "lattice_source", "memory", "note"},
+}
+
+// tableOrder is the order tables are read in (each may refer to the ones
+// before it). Optional tables may be absent from the file system.
+var tableOrder = []struct {
+	file     string
+	overlay  string // [[name]] in the overlay file
+	optional bool
+}{
+	{"sources.csv", "source", false},
+	{"elements.csv", "element", false},
+	{"ionization.csv", "ionization", false},
+	{"affinity.csv", "affinity", false},
+	{"atomization_steps.csv", "atomization_step", false},
+	{"born_exponents.csv", "born_exponent", false},
+	{"ions.csv", "ion", false},
+	{"shannon.csv", "shannon", false},
+	{"ion_values.csv", "ion_value", true},
+	{"compounds.csv", "compound", true},
+}
+
+// TableFiles lists the table file names in reading order.
+func TableFiles() []string {
+	out := make([]string, len(tableOrder))
+	for i, t := range tableOrder {
+		out[i] = t.file
+	}
+	return out
+}

@@ -1,0 +1,493 @@
+package data
+
+import (
+	"embed"
+	"fmt"
+	"io/fs"
+	"maps"
+	"slices"
+	"strconv"
+	"strings"
+)
+
+//go:embed tables/*.csv
+var embedded embed.FS
+
+// DB is the loaded reference data with its lookup indexes. It is immutable:
+// share one between goroutines freely.
+type DB struct {
+	sources   []Source
+	sourceIdx map[string]int
+
+	elements       []Element
+	elementIdx     map[string]int
+	elementFoldIdx map[string]int // lower-case symbol or name
+
+	steps map[string][]AtomizationStep
+	born  map[string]Value
+
+	ions       []Ion
+	ionIdx     map[string]int // symbol as written in ions.csv
+	ionKeyIdx  map[ionKey]int
+	ionFoldIdx map[string]int // folded symbol (see foldIon)
+
+	radii map[ionKey][]ShannonRadius
+
+	compounds       []Compound
+	compoundIdx     map[string]int // formula as written
+	compoundFoldIdx map[string]int // lower-case formula
+	compositionIdx  map[string]int // normalized composition (first compound)
+
+	overlays []string
+	problems []string
+}
+
+type ionKey struct {
+	core   string
+	charge int
+}
+
+func newDB() *DB {
+	return &DB{
+		sourceIdx:   map[string]int{},
+		elementIdx:  map[string]int{},
+		steps:       map[string][]AtomizationStep{},
+		born:        map[string]Value{},
+		ionIdx:      map[string]int{},
+		radii:       map[ionKey][]ShannonRadius{},
+		compoundIdx: map[string]int{},
+	}
+}
+
+// Load reads the tables embedded in the program.
+func Load() (*DB, error) {
+	sub, err := fs.Sub(embedded, "tables")
+	if err != nil {
+		return nil, err
+	}
+	return LoadFS(sub)
+}
+
+// LoadFS reads the tables from the root of fsys (sources.csv, elements.csv
+// …; ion_values.csv and compounds.csv may be absent).
+func LoadFS(fsys fs.FS) (*DB, error) {
+	b := &builder{db: newDB()}
+	for _, t := range tableOrder {
+		f, err := fsys.Open(t.file)
+		if err != nil {
+			if t.optional && isNotExist(err) {
+				continue
+			}
+			return nil, &TableError{File: t.file, Err: err}
+		}
+		recs, err := readCSV(t.file, f, tableColumns[t.file])
+		f.Close()
+		if err != nil {
+			return nil, err
+		}
+		for _, r := range recs {
+			if err := b.apply(t.file, r); err != nil {
+				return nil, err
+			}
+		}
+	}
+	b.finish()
+	return b.db, nil
+}
+
+func isNotExist(err error) bool {
+	return err != nil && strings.Contains(err.Error(), fs.ErrNotExist.Error())
+}
+
+// Problems lists inconsistencies found while loading the built-in tables
+// that did not stop loading: values without a source, unknown source keys,
+// compounds that name an ion missing from the ion table. Empty for good data.
+func (db *DB) Problems() []string { return slices.Clone(db.problems) }
+
+// Overlays names the overlay files applied to this DB, in order.
+func (db *DB) Overlays() []string { return slices.Clone(db.overlays) }
+
+// clone returns a deep copy whose records may be changed without touching db.
+func (db *DB) clone() *DB {
+	c := &DB{
+		sources:     slices.Clone(db.sources),
+		sourceIdx:   maps.Clone(db.sourceIdx),
+		elements:    make([]Element, len(db.elements)),
+		elementIdx:  maps.Clone(db.elementIdx),
+		steps:       make(map[string][]AtomizationStep, len(db.steps)),
+		born:        maps.Clone(db.born),
+		ions:        make([]Ion, len(db.ions)),
+		ionIdx:      maps.Clone(db.ionIdx),
+		radii:       make(map[ionKey][]ShannonRadius, len(db.radii)),
+		compounds:   make([]Compound, len(db.compounds)),
+		compoundIdx: maps.Clone(db.compoundIdx),
+		overlays:    slices.Clone(db.overlays),
+		problems:    slices.Clone(db.problems),
+	}
+	for i, e := range db.elements {
+		c.elements[i] = copyElement(e)
+	}
+	for k, s := range db.steps {
+		c.steps[k] = slices.Clone(s)
+	}
+	for i, ion := range db.ions {
+		c.ions[i] = copyIon(ion)
+	}
+	for k, r := range db.radii {
+		c.radii[k] = slices.Clone(r)
+	}
+	for i, cp := range db.compounds {
+		c.compounds[i] = copyCompound(cp)
+	}
+	return c
+}
+
+func copyElement(e Element) Element {
+	e.Ionization = slices.Clone(e.Ionization)
+	return e
+}
+
+func copyIon(ion Ion) Ion {
+	ion.Radii = slices.Clone(ion.Radii)
+	ion.Hydrations = slices.Clone(ion.Hydrations)
+	return ion
+}
+
+func copyCompound(c Compound) Compound {
+	c.Params = maps.Clone(c.Params)
+	return c
+}
+
+// Element returns the element with symbol sym (exact case; "na" or
+// "sodium" finds Na too when unambiguous).
+func (db *DB) Element(sym string) (Element, error) {
+	s := strings.TrimSpace(sym)
+	if i, ok := db.elementIdx[s]; ok {
+		return copyElement(db.elements[i]), nil
+	}
+	if i, ok := db.elementFoldIdx[strings.ToLower(s)]; ok {
+		return copyElement(db.elements[i]), nil
+	}
+	return Element{}, &NotFoundError{Kind: "element", Query: sym, Suggestions: db.suggestElements(s)}
+}
+
+// Elements returns every element in order of atomic number.
+func (db *DB) Elements() []Element {
+	out := make([]Element, len(db.elements))
+	for i, e := range db.elements {
+		out[i] = copyElement(e)
+	}
+	slices.SortStableFunc(out, func(a, b Element) int { return a.Z - b.Z })
+	return out
+}
+
+// AtomizationSteps returns the sub-steps that take element sym from its
+// standard state to gaseous atoms, in order. For an element without
+// tabulated sub-steps (a metal) it returns the one step "X(s) → X(g)" built
+// from the element's atomization enthalpy (kind "sublimation", or
+// "vaporization" for a liquid); for a monatomic gas, or an unknown symbol,
+// it returns nil. The enthalpies of the steps sum to AtomsProduced of the
+// last step times the element's atomization enthalpy.
+func (db *DB) AtomizationSteps(sym string) []AtomizationStep {
+	if s, ok := db.steps[sym]; ok {
+		return slices.Clone(s)
+	}
+	i, ok := db.elementIdx[sym]
+	if !ok {
+		return nil
+	}
+	e := db.elements[i]
+	if !e.Atomization.Known() || strings.HasSuffix(e.StandardState, "(g)") {
+		return nil
+	}
+	kind, phase := "sublimation", "s"
+	if strings.HasSuffix(e.StandardState, "(l)") {
+		kind, phase = "vaporization", "l"
+	}
+	return []AtomizationStep{{
+		Kind:          kind,
+		Reaction:      fmt.Sprintf("%s(%s) → %s(g)", sym, phase, sym),
+		AtomsProduced: 1,
+		Enthalpy:      e.Atomization,
+		Element:       sym,
+		Order:         1,
+	}}
+}
+
+// BornExponent returns Pauling's Born exponent for a noble-gas configuration
+// class ("He", "Ne", "Ar", "Kr", "Xe").
+func (db *DB) BornExponent(config string) (Value, error) {
+	if v, ok := db.born[config]; ok {
+		return v, nil
+	}
+	return Value{}, &NotFoundError{Kind: "born exponent", Query: config, Suggestions: sortedKeys(db.born)}
+}
+
+// Ion returns the ion written as symbol: "Na+", "Ca2+", "O2-", "SO4^2-",
+// "SO4 2-", "SO42-", "NH4+", "Fe+3", "Cl^-". Digits before the sign are
+// read as the charge or as part of the formula, whichever names a tabulated
+// ion (the charge first).
+func (db *DB) Ion(symbol string) (Ion, error) {
+	s := strings.TrimSpace(symbol)
+	if i, ok := db.ionIdx[s]; ok {
+		return copyIon(db.ions[i]), nil
+	}
+	if i, ok := db.ionFoldIdx[foldIon(s)]; ok {
+		return copyIon(db.ions[i]), nil
+	}
+	for _, cand := range ionReadings(s) {
+		if i, ok := db.ionKeyIdx[cand]; ok {
+			return copyIon(db.ions[i]), nil
+		}
+	}
+	return Ion{}, &NotFoundError{Kind: "ion", Query: symbol, Suggestions: db.suggestIons(s)}
+}
+
+// IonByCharge returns the ion with the given core ("Fe", "SO4") and charge.
+func (db *DB) IonByCharge(core string, charge int) (Ion, error) {
+	if i, ok := db.ionKeyIdx[ionKey{strings.TrimSpace(core), charge}]; ok {
+		return copyIon(db.ions[i]), nil
+	}
+	q := canonicalIonSymbol(core, charge, false)
+	var sugg []string
+	for _, ion := range db.ions {
+		if ion.Core == core {
+			sugg = append(sugg, ion.Symbol)
+		}
+	}
+	if len(sugg) == 0 {
+		sugg = db.suggestIons(q)
+	}
+	return Ion{}, &NotFoundError{Kind: "ion", Query: q, Suggestions: sugg}
+}
+
+// Ions returns every ion in table order (monatomic rows first).
+func (db *DB) Ions() []Ion {
+	out := make([]Ion, len(db.ions))
+	for i, ion := range db.ions {
+		out[i] = copyIon(ion)
+	}
+	return out
+}
+
+// Radius returns the Shannon radius of ion core^charge at coordination cn
+// ("VI", "IVSQ", or a number such as "6") and spin ("HS", "LS" or "").
+//
+// Matching rules, in order:
+//   - CN: the row with exactly that CN string; for a number, the row with
+//     that coordination (a plain "IV" before "IVSQ"/"IVPY"); if none, the
+//     nearest tabulated coordination (ties go to the lower one) and the
+//     result's Substituted field says so. An empty cn means VI.
+//   - Spin: the row with that spin; a spin-less row matches any asked spin;
+//     with spin "" and both spins tabulated, high spin is used (and said so).
+func (db *DB) Radius(core string, charge int, cn string, spin string) (ShannonRadius, error) {
+	list := db.radii[ionKey{strings.TrimSpace(core), charge}]
+	sym := canonicalIonSymbol(core, charge, false)
+	if len(list) == 0 {
+		return ShannonRadius{}, &NotFoundError{Kind: "radius", Query: sym, Detail: "no Shannon radii tabulated for this ion", Suggestions: db.ionsWithRadii(core)}
+	}
+	cn = strings.ToUpper(strings.TrimSpace(cn))
+	if cn == "" {
+		cn = "VI"
+	}
+	want, isNum := 0, false
+	if n, err := strconv.Atoi(cn); err == nil {
+		want, isNum = n, true
+	} else if n, ok := romanCN(cn); ok {
+		want = n
+	} else {
+		return ShannonRadius{}, &NotFoundError{Kind: "radius", Query: sym + " CN " + cn, Detail: "not a coordination number (II … XIV, IVSQ, IVPY or a number)"}
+	}
+	spin = strings.ToUpper(strings.TrimSpace(spin))
+	if spin != "" && spin != "HS" && spin != "LS" {
+		return ShannonRadius{}, &NotFoundError{Kind: "radius", Query: sym + " spin " + spin, Detail: "spin is HS, LS or empty"}
+	}
+	// Candidate rows at the chosen CN.
+	var at []ShannonRadius
+	if !isNum {
+		for _, r := range list {
+			if r.CN == cn {
+				at = append(at, r)
+			}
+		}
+	}
+	if len(at) == 0 {
+		target, bestD := 0, -1
+		for _, r := range list {
+			d := abs(r.Coordination - want)
+			if bestD < 0 || d < bestD || (d == bestD && r.Coordination < target) {
+				bestD, target = d, r.Coordination
+			}
+		}
+		var same []ShannonRadius
+		for _, r := range list {
+			if r.Coordination == target {
+				same = append(same, r)
+			}
+		}
+		spelling := same[0].CN
+		for _, r := range same {
+			if isPlainCN(r.CN) {
+				spelling = r.CN
+				break
+			}
+		}
+		for _, r := range same {
+			if r.CN == spelling {
+				at = append(at, r)
+			}
+		}
+	}
+	var note []string
+	if len(at) > 0 && (at[0].Coordination != want || (!isNum && at[0].CN != cn)) {
+		note = append(note, fmt.Sprintf("CN %s not tabulated for %s; nearest CN %s used", cn, sym, at[0].CN))
+	}
+	pick := -1
+	for i, r := range at {
+		if r.Spin == spin {
+			pick = i
+			break
+		}
+	}
+	if pick < 0 {
+		for i, r := range at {
+			if r.Spin == "" {
+				pick = i
+				break
+			}
+		}
+	}
+	if pick < 0 && spin == "" {
+		for i, r := range at {
+			if r.Spin == "HS" {
+				pick = i
+				note = append(note, "spin not given: high spin used")
+				break
+			}
+		}
+	}
+	if pick < 0 {
+		var have []string
+		for _, r := range at {
+			have = append(have, r.CN+" "+r.Spin)
+		}
+		return ShannonRadius{}, &NotFoundError{Kind: "radius", Query: fmt.Sprintf("%s CN %s %s", sym, cn, spin), Detail: "tabulated at this CN: " + strings.Join(have, ", ")}
+	}
+	r := at[pick]
+	r.Substituted = strings.Join(note, "; ")
+	return r, nil
+}
+
+func isPlainCN(cn string) bool { return cn != "IVSQ" && cn != "IVPY" }
+
+func abs(x int) int {
+	if x < 0 {
+		return -x
+	}
+	return x
+}
+
+// Radii returns every Shannon row of ion core^charge, sorted by coordination.
+func (db *DB) Radii(core string, charge int) []ShannonRadius {
+	return slices.Clone(db.radii[ionKey{core, charge}])
+}
+
+func (db *DB) ionsWithRadii(core string) []string {
+	var out []string
+	for k := range db.radii {
+		if k.core == core {
+			out = append(out, canonicalIonSymbol(k.core, k.charge, false))
+		}
+	}
+	slices.Sort(out)
+	return out
+}
+
+// Hydration returns the standard hydration enthalpy of an ion (kJ/mol) and
+// its scale ("conventional", H+ = 0, or "absolute"): the first tabulated one.
+func (db *DB) Hydration(ion string) (Value, string, error) {
+	x, err := db.Ion(ion)
+	if err != nil {
+		return Value{}, "", err
+	}
+	if len(x.Hydrations) == 0 {
+		return Value{}, "", &NotFoundError{Kind: "hydration", Query: x.Symbol, Detail: "no hydration enthalpy tabulated", Suggestions: db.ionsWithHydration()}
+	}
+	return x.Hydrations[0].Value, x.Hydrations[0].Scale, nil
+}
+
+// HydrationOnScale returns the hydration enthalpy of an ion on the named
+// scale ("conventional" or "absolute").
+func (db *DB) HydrationOnScale(ion, scale string) (Value, error) {
+	x, err := db.Ion(ion)
+	if err != nil {
+		return Value{}, err
+	}
+	for _, h := range x.Hydrations {
+		if h.Scale == scale {
+			return h.Value, nil
+		}
+	}
+	return Value{}, &NotFoundError{Kind: "hydration", Query: x.Symbol + " (" + scale + ")", Detail: "not tabulated on this scale"}
+}
+
+func (db *DB) ionsWithHydration() []string {
+	var out []string
+	for _, ion := range db.ions {
+		if len(ion.Hydrations) > 0 && len(out) < 5 {
+			out = append(out, ion.Symbol)
+		}
+	}
+	return out
+}
+
+// Compound returns the compound with this formula: first an exact match of
+// the formula as tabulated, then a case-insensitive one, then any compound
+// with the same composition ("ClNa", "Na Cl", "F2Ca" find NaCl and CaF2;
+// the first tabulated compound wins when polymorphs share a composition).
+func (db *DB) Compound(formula string) (Compound, error) {
+	s := strings.TrimSpace(formula)
+	if i, ok := db.compoundIdx[s]; ok {
+		return copyCompound(db.compounds[i]), nil
+	}
+	if i, ok := db.compoundFoldIdx[strings.ToLower(s)]; ok {
+		return copyCompound(db.compounds[i]), nil
+	}
+	if f, err := ParseFormula(s); err == nil {
+		if i, ok := db.compositionIdx[f.compositionKey()]; ok {
+			return copyCompound(db.compounds[i]), nil
+		}
+	}
+	return Compound{}, &NotFoundError{Kind: "compound", Query: formula, Suggestions: db.suggestCompounds(s)}
+}
+
+// Compounds returns every compound in table order.
+func (db *DB) Compounds() []Compound {
+	out := make([]Compound, len(db.compounds))
+	for i, c := range db.compounds {
+		out[i] = copyCompound(c)
+	}
+	return out
+}
+
+// Source returns the citation with this key.
+func (db *DB) Source(key string) (Source, error) {
+	if i, ok := db.sourceIdx[key]; ok {
+		return db.sources[i], nil
+	}
+	if key == userSource {
+		return Source{Key: userSource, Citation: "value from the user's overlay file"}, nil
+	}
+	return Source{}, &NotFoundError{Kind: "source", Query: key, Suggestions: suggest(key, db.sourceKeys(), 3)}
+}
+
+// Sources returns every citation in table order.
+func (db *DB) Sources() []Source { return slices.Clone(db.sources) }
+
+func (db *DB) sourceKeys() []string {
+	out := make([]string, len(db.sources))
+	for i, s := range db.sources {
+		out[i] = s.Key
+	}
+	return out
+}

@@ -1,0 +1,599 @@
+package data
+
+import (
+	"errors"
+	"maps"
+	"slices"
+	"strconv"
+	"strings"
+)
+
+// Formula is a parsed chemical formula: its top-level groups in the order
+// written, and its charge (0 for a neutral formula).
+type Formula struct {
+	// Groups are the top-level parts: an element with its count, or a
+	// bracketed group with its count ("Ca3(PO4)2" → Ca×3, (PO4)×2).
+	Groups []Group
+	// Charge in units of e.
+	Charge int
+}
+
+// Group is one top-level part of a formula.
+type Group struct {
+	// Text is the part without its count, normalized: "Ca", "PO4", "OH".
+	Text string
+	// Count is the multiplier written after the part (1 if none).
+	Count int
+	// Bracketed is true for a part written in (), [] or {}.
+	Bracketed bool
+	atoms     map[string]int // per one unit of the group
+}
+
+// Composition returns the atoms of one unit of the group.
+func (g Group) Composition() map[string]int { return maps.Clone(g.atoms) }
+
+// Composition returns the number of atoms of each element.
+func (f Formula) Composition() map[string]int {
+	out := map[string]int{}
+	for _, g := range f.Groups {
+		for el, n := range g.atoms {
+			out[el] += n * g.Count
+		}
+	}
+	return out
+}
+
+// Atoms returns the number of atoms in the formula.
+func (f Formula) Atoms() int {
+	n := 0
+	for _, c := range f.Composition() {
+		n += c
+	}
+	return n
+}
+
+// Elements returns the element symbols in Hill order.
+func (f Formula) Elements() []string { return hillOrder(f.Composition()) }
+
+// String returns the formula as written, normalized: no spaces, brackets as
+// parentheses, counts of 1 left out, the charge as in "Fe3+", "NH4+" or
+// "SO4^2-".
+func (f Formula) String() string {
+	var b strings.Builder
+	for _, g := range f.Groups {
+		if g.Bracketed {
+			b.WriteString("(" + g.Text + ")")
+		} else {
+			b.WriteString(g.Text)
+		}
+		if g.Count != 1 {
+			b.WriteString(strconv.Itoa(g.Count))
+		}
+	}
+	b.WriteString(chargeSuffix(f.Charge, f.multiAtom()))
+	return b.String()
+}
+
+// Hill returns the formula in Hill order: C first, then H, then the other
+// elements alphabetically (without C, all alphabetically), with the charge.
+func (f Formula) Hill() string {
+	comp := f.Composition()
+	var b strings.Builder
+	for _, el := range hillOrder(comp) {
+		b.WriteString(el)
+		if comp[el] != 1 {
+			b.WriteString(strconv.Itoa(comp[el]))
+		}
+	}
+	b.WriteString(chargeSuffix(f.Charge, f.multiAtom()))
+	return b.String()
+}
+
+func (f Formula) multiAtom() bool {
+	return !(len(f.Groups) == 1 && !f.Groups[0].Bracketed && f.Groups[0].Count == 1)
+}
+
+func (f Formula) compositionKey() string { return f.Hill() }
+
+func hillOrder(comp map[string]int) []string {
+	els := slices.Sorted(maps.Keys(comp))
+	if _, hasC := comp["C"]; !hasC {
+		return els
+	}
+	out := []string{"C"}
+	if _, hasH := comp["H"]; hasH {
+		out = append(out, "H")
+	}
+	for _, el := range els {
+		if el != "C" && el != "H" {
+			out = append(out, el)
+		}
+	}
+	return out
+}
+
+// chargeSuffix writes a charge: "+", "2-", or with caret "^2-".
+func chargeSuffix(q int, caret bool) string {
+	if q == 0 {
+		return ""
+	}
+	sign := "+"
+	if q < 0 {
+		sign, q = "-", -q
+	}
+	if q == 1 {
+		return sign
+	}
+	if caret {
+		return "^" + strconv.Itoa(q) + sign
+	}
+	return strconv.Itoa(q) + sign
+}
+
+// canonicalIonSymbol writes an ion as the tables do: "Ca2+", "NH4+", "SO4^2-".
+func canonicalIonSymbol(core string, charge int, polyatomic bool) string {
+	return strings.TrimSpace(core) + chargeSuffix(charge, polyatomic)
+}
+
+var errTooManyAtoms = errors.New("too many atoms")
+
+const (
+	maxCount = 999999
+	maxDepth = 16
+	maxAtoms = 1_000_000_000
+)
+
+// ParseFormula reads a chemical formula: element symbols with counts,
+// nested (), [] and {} groups with counts (Mg(OH)2, Ca3(PO4)2), Unicode
+// subscript digits, spaces between parts, and a trailing charge: "NH4+",
+// "SO4^2-", "SO4 2-", "Fe3+", "Fe+3", "O2-", "SO₄²⁻".
+//
+// Without a caret or space, digits right before a trailing sign are the
+// charge when the formula is a single element ("Fe3+", "O2-" is oxide) and a
+// count otherwise ("NH4+", "NO3-"); write "SO4^2-" or "SO4 2-" for a
+// multi-atom ion with a charge beyond ±1, and "O2^-" for superoxide.
+// Hydrates ("CuSO4·5H2O", "CuSO4.5H2O") are rejected. Errors are
+// *FormulaError with the column of the offending character.
+func ParseFormula(s string) (Formula, error) {
+	p := &formulaParser{input: s, in: []rune(s)}
+	return p.parse()
+}
+
+type formulaParser struct {
+	input string
+	in    []rune
+	pos   int
+}
+
+// fail reports an error at the 1-based character position col (0: the
+// whole input); FormulaError.Column holds it as a 0-based offset.
+func (p *formulaParser) fail(col int, msg string) error {
+	return &FormulaError{Input: p.input, Column: col - 1, Msg: msg}
+}
+
+func (p *formulaParser) peek() rune {
+	if p.pos < len(p.in) {
+		return normalizeRune(p.in[p.pos])
+	}
+	return 0
+}
+
+// normalizeRune maps subscript digits to ASCII and the minus sign to '-'.
+func normalizeRune(r rune) rune {
+	switch {
+	case r >= '₀' && r <= '₉':
+		return '0' + (r - '₀')
+	case r == '−' || r == '–':
+		return '-'
+	}
+	return r
+}
+
+func isSuperscript(r rune) bool {
+	return strings.ContainsRune("⁰¹²³⁴⁵⁶⁷⁸⁹⁺⁻", r)
+}
+
+func superscriptToASCII(r rune) rune {
+	if i := strings.IndexRune("⁰¹²³⁴⁵⁶⁷⁸⁹", r); i >= 0 {
+		return '0' + rune(len([]rune("⁰¹²³⁴⁵⁶⁷⁸⁹"[:i])))
+	}
+	switch r {
+	case '⁺':
+		return '+'
+	case '⁻':
+		return '-'
+	}
+	return r
+}
+
+func isUpper(r rune) bool { return r >= 'A' && r <= 'Z' }
+func isLower(r rune) bool { return r >= 'a' && r <= 'z' }
+func isDigit(r rune) bool { return r >= '0' && r <= '9' }
+
+func (p *formulaParser) parse() (Formula, error) {
+	var f Formula
+	if strings.TrimSpace(p.input) == "" {
+		return f, p.fail(0, "empty formula")
+	}
+	lastCountDigits := false // the previous token ended with a written count
+	for {
+		p.skipSpaces()
+		if p.pos >= len(p.in) {
+			break
+		}
+		c := p.peek()
+		col := p.pos + 1
+		switch {
+		case isUpper(c):
+			sym, err := p.symbol()
+			if err != nil {
+				return f, err
+			}
+			n, written, err := p.count()
+			if err != nil {
+				return f, err
+			}
+			f.Groups = append(f.Groups, Group{Text: sym, Count: n, atoms: map[string]int{sym: 1}})
+			lastCountDigits = written
+		case c == '(' || c == '[' || c == '{':
+			text, atoms, err := p.bracket(1)
+			if err != nil {
+				return f, err
+			}
+			n, written, err := p.count()
+			if err != nil {
+				return f, err
+			}
+			f.Groups = append(f.Groups, Group{Text: text, Count: n, Bracketed: true, atoms: atoms})
+			lastCountDigits = written
+		case c == '^' || c == '+' || c == '-' || isSuperscript(p.in[p.pos]):
+			if len(f.Groups) == 0 {
+				return f, p.fail(col, "a charge must follow the formula")
+			}
+			q, err := p.charge(&f, lastCountDigits)
+			if err != nil {
+				return f, err
+			}
+			f.Charge = q
+		case isDigit(c):
+			// "SO4 2-": a space-separated charge; anything else is a misplaced count.
+			if len(f.Groups) > 0 && p.in[p.pos-1] == ' ' && p.restIsCharge() {
+				q, err := p.charge(&f, false)
+				if err != nil {
+					return f, err
+				}
+				f.Charge = q
+				break
+			}
+			if len(f.Groups) == 0 {
+				return f, p.fail(col, "a formula cannot start with a number (write \"NaCl\", not \"2NaCl\")")
+			}
+			return f, p.fail(col, "a count must follow an element or a closing bracket")
+		case c == '·' || c == '.' || c == '*' || c == '•' || c == '∙' || c == '⋅':
+			return f, p.fail(col, "hydrates are not supported: enter the anhydrous salt and treat the water separately")
+		case c == ')' || c == ']' || c == '}':
+			return f, p.fail(col, "unmatched "+strconv.QuoteRune(c))
+		case isLower(c):
+			return f, p.fail(col, "element symbols start with a capital letter, found "+strconv.QuoteRune(c))
+		default:
+			return f, p.fail(col, "unexpected character "+strconv.QuoteRune(p.in[p.pos]))
+		}
+	}
+	if len(f.Groups) == 0 {
+		return f, p.fail(0, "no elements in the formula")
+	}
+	total := 0
+	for _, g := range f.Groups {
+		for _, n := range g.atoms {
+			total += n * g.Count
+			if total > maxAtoms {
+				return f, p.fail(0, "too many atoms")
+			}
+		}
+	}
+	return f, nil
+}
+
+func (p *formulaParser) skipSpaces() {
+	for p.pos < len(p.in) && (p.in[p.pos] == ' ' || p.in[p.pos] == '\t') {
+		p.pos++
+	}
+}
+
+// restIsCharge reports whether the rest of the input is digits then a sign.
+func (p *formulaParser) restIsCharge() bool {
+	i := p.pos
+	for i < len(p.in) && isDigit(normalizeRune(p.in[i])) {
+		i++
+	}
+	if i >= len(p.in) || (normalizeRune(p.in[i]) != '+' && normalizeRune(p.in[i]) != '-') {
+		return false
+	}
+	i++
+	for i < len(p.in) && p.in[i] == ' ' {
+		i++
+	}
+	return i == len(p.in)
+}
+
+func (p *formulaParser) symbol() (string, error) {
+	col := p.pos + 1
+	sym := string(p.peek())
+	p.pos++
+	if isLower(p.peek()) {
+		two := sym + string(p.peek())
+		if IsElementSymbol(two) {
+			p.pos++
+			return two, nil
+		}
+		if !IsElementSymbol(sym) {
+			return "", p.fail(col, "unknown element "+strconv.Quote(two))
+		}
+		// "Cx": C followed by a stray lower-case letter.
+		return "", p.fail(col, "unknown element "+strconv.Quote(two))
+	}
+	if !IsElementSymbol(sym) {
+		return "", p.fail(col, "unknown element "+strconv.Quote(sym))
+	}
+	return sym, nil
+}
+
+// count reads an optional count; written reports whether digits were present.
+func (p *formulaParser) count() (n int, written bool, err error) {
+	start := p.pos
+	for p.pos < len(p.in) && isDigit(p.peek()) {
+		p.pos++
+		if p.pos-start > 6 {
+			return 0, true, p.fail(start+1, "count too large (at most 999999)")
+		}
+	}
+	if p.pos == start {
+		return 1, false, nil
+	}
+	var digits strings.Builder
+	for _, r := range p.in[start:p.pos] {
+		digits.WriteRune(normalizeRune(r))
+	}
+	n, _ = strconv.Atoi(digits.String())
+	if n == 0 {
+		return 0, true, p.fail(start+1, "count 0")
+	}
+	if p.in[start] == '0' || normalizeRune(p.in[start]) == '0' {
+		return 0, true, p.fail(start+1, "count with a leading zero")
+	}
+	return n, true, nil
+}
+
+var closerOf = map[rune]rune{'(': ')', '[': ']', '{': '}'}
+
+// bracket reads a bracketed group starting at p.pos and returns its
+// normalized text and the atoms of one unit.
+func (p *formulaParser) bracket(depth int) (string, map[string]int, error) {
+	openCol := p.pos + 1
+	open := p.peek()
+	if depth > maxDepth {
+		return "", nil, p.fail(openCol, "brackets nested too deeply")
+	}
+	closer := closerOf[open]
+	p.pos++
+	atoms := map[string]int{}
+	var text strings.Builder
+	for {
+		if p.pos >= len(p.in) {
+			return "", nil, p.fail(openCol, "unclosed "+strconv.QuoteRune(open))
+		}
+		c := p.peek()
+		col := p.pos + 1
+		switch {
+		case c == closer:
+			p.pos++
+			if len(atoms) == 0 {
+				return "", nil, p.fail(openCol, "empty brackets")
+			}
+			return text.String(), atoms, nil
+		case c == ')' || c == ']' || c == '}':
+			return "", nil, p.fail(col, strconv.QuoteRune(c)+" does not close "+strconv.QuoteRune(open)+" opened at column "+strconv.Itoa(openCol))
+		case isUpper(c):
+			sym, err := p.symbol()
+			if err != nil {
+				return "", nil, err
+			}
+			n, _, err := p.count()
+			if err != nil {
+				return "", nil, err
+			}
+			if err := addAtoms(atoms, map[string]int{sym: 1}, n); err != nil {
+				return "", nil, p.fail(col, err.Error())
+			}
+			text.WriteString(sym)
+			if n != 1 {
+				text.WriteString(strconv.Itoa(n))
+			}
+		case c == '(' || c == '[' || c == '{':
+			inner, in, err := p.bracket(depth + 1)
+			if err != nil {
+				return "", nil, err
+			}
+			n, _, err := p.count()
+			if err != nil {
+				return "", nil, err
+			}
+			if err := addAtoms(atoms, in, n); err != nil {
+				return "", nil, p.fail(col, err.Error())
+			}
+			text.WriteString("(" + inner + ")")
+			if n != 1 {
+				text.WriteString(strconv.Itoa(n))
+			}
+		case c == '·' || c == '.' || c == '*' || c == '•' || c == '∙' || c == '⋅':
+			return "", nil, p.fail(col, "hydrates are not supported: enter the anhydrous salt and treat the water separately")
+		case c == '+' || c == '-' || c == '^':
+			return "", nil, p.fail(col, "a charge goes at the end of the formula, outside brackets")
+		case isDigit(c):
+			return "", nil, p.fail(col, "a count must follow an element or a closing bracket")
+		case isLower(c):
+			return "", nil, p.fail(col, "element symbols start with a capital letter, found "+strconv.QuoteRune(c))
+		default:
+			return "", nil, p.fail(col, "unexpected character "+strconv.QuoteRune(p.in[p.pos]))
+		}
+	}
+}
+
+func addAtoms(dst, src map[string]int, n int) error {
+	for el, k := range src {
+		if k > maxAtoms/n {
+			return errTooManyAtoms
+		}
+		dst[el] += k * n
+		if dst[el] > maxAtoms {
+			return errTooManyAtoms
+		}
+	}
+	return nil
+}
+
+// charge reads the trailing charge. When countIsCharge may apply (digits
+// were written right before a bare sign on a single-element formula), the
+// count is taken back as the charge's magnitude.
+func (p *formulaParser) charge(f *Formula, lastCountDigits bool) (int, error) {
+	col := p.pos + 1
+	var mag strings.Builder
+	sign := rune(0)
+	signs := 0
+	caret := false
+	if p.peek() == '^' {
+		caret = true
+		p.pos++
+	}
+	for p.pos < len(p.in) {
+		r := normalizeRune(p.in[p.pos])
+		if isSuperscript(r) {
+			r = superscriptToASCII(r)
+		}
+		switch {
+		case isDigit(r) && signs == 0:
+			mag.WriteRune(r)
+		case r == '+' || r == '-':
+			if sign != 0 && r != sign {
+				return 0, p.fail(p.pos+1, "charge has both signs")
+			}
+			sign = r
+			signs++
+		case isDigit(r) && signs == 1 && mag.Len() == 0:
+			// "Fe+3": sign first, then magnitude.
+			mag.WriteRune(r)
+			signs = 2 // no further signs
+		case isDigit(r) && signs == 2:
+			mag.WriteRune(r)
+		case r == ' ':
+			p.pos++
+			p.skipSpaces()
+			if p.pos < len(p.in) {
+				return 0, p.fail(p.pos+1, "nothing may follow the charge")
+			}
+			continue
+		case r == '·' || r == '.' || r == '*' || r == '•' || r == '∙' || r == '⋅':
+			return 0, p.fail(p.pos+1, "hydrates are not supported: enter the anhydrous salt and treat the water separately")
+		default:
+			return 0, p.fail(p.pos+1, "unexpected character "+strconv.QuoteRune(p.in[p.pos])+" in the charge")
+		}
+		p.pos++
+	}
+	if sign == 0 {
+		return 0, p.fail(col, "charge without a sign (write 2+ or 2-)")
+	}
+	q := 1
+	if mag.Len() > 0 {
+		if mag.Len() > 3 {
+			return 0, p.fail(col, "charge too large")
+		}
+		q, _ = strconv.Atoi(mag.String())
+		if q == 0 {
+			return 0, p.fail(col, "charge 0")
+		}
+		if signs > 2 {
+			return 0, p.fail(col, "write the charge once")
+		}
+	} else if signs > 1 {
+		q = signs // "Fe++"
+	}
+	if !caret && lastCountDigits && mag.Len() == 0 && signs == 1 && len(f.Groups) == 1 && !f.Groups[0].Bracketed {
+		// "Fe3+", "O2-": the digits were the charge.
+		q = f.Groups[0].Count
+		f.Groups[0].Count = 1
+	}
+	if sign == '-' {
+		q = -q
+	}
+	return q, nil
+}
+
+// foldIon normalizes an ion symbol for lookup: spaces, carets and a "+1"
+// magnitude dropped, sign-first charges ("Fe+3") turned around, superscripts
+// read as ASCII.
+func foldIon(s string) string {
+	var b []rune
+	for _, r := range s {
+		r = normalizeRune(r)
+		if isSuperscript(r) {
+			r = superscriptToASCII(r)
+		}
+		if r == ' ' || r == '^' || r == '\t' {
+			continue
+		}
+		b = append(b, r)
+	}
+	// Sign then digits at the end: move the sign behind the digits.
+	i := len(b)
+	for i > 0 && isDigit(b[i-1]) {
+		i--
+	}
+	if i < len(b) && i > 0 && (b[i-1] == '+' || b[i-1] == '-') {
+		sign := b[i-1]
+		digits := slices.Clone(b[i:])
+		b = append(append(b[:i-1], digits...), sign)
+	}
+	return string(b)
+}
+
+// ionReadings lists the (core, charge) pairs an ion symbol may mean, most
+// likely first: "SO42-" → (SO4, -2), (SO42, -1), (SO, -42) …
+func ionReadings(s string) []ionKey {
+	t := []rune(foldIon(s))
+	if len(t) < 2 {
+		return nil
+	}
+	sign := t[len(t)-1]
+	if sign != '+' && sign != '-' {
+		return nil
+	}
+	body := t[:len(t)-1]
+	signs := 1
+	for len(body) > 0 && body[len(body)-1] == sign {
+		body = body[:len(body)-1]
+		signs++
+	}
+	mul := 1
+	if sign == '-' {
+		mul = -1
+	}
+	if signs > 1 {
+		return []ionKey{{string(body), mul * signs}}
+	}
+	i := len(body)
+	for i > 0 && isDigit(body[i-1]) {
+		i--
+	}
+	var out []ionKey
+	for k := i; k < len(body); k++ {
+		if k == 0 || body[k] == '0' {
+			continue
+		}
+		q, err := strconv.Atoi(string(body[k:]))
+		if err == nil && q > 0 && q < 10 {
+			out = append(out, ionKey{string(body[:k]), mul * q})
+		}
+	}
+	out = append(out, ionKey{string(body), mul})
+	return out
+}

@@ -1,0 +1,65 @@
+package data
+
+// periodicSymbols lists the element symbols in order of atomic number
+// (IUPAC names, 2016): index i holds Z = i+1. The formula parser accepts
+// any of them, whether or not the element table has data for it.
+var periodicSymbols = [...]string{
+	"H", "He", "Li", "Be", "B", "C", "N", "O", "F", "Ne",
+	"Na", "Mg", "Al", "Si", "P", "S", "Cl", "Ar", "K", "Ca",
+	"Sc", "Ti", "V", "Cr", "Mn", "Fe", "Co", "Ni", "Cu", "Zn",
+	"Ga", "Ge", "As", "Se", "Br", "Kr", "Rb", "Sr", "Y", "Zr",
+	"Nb", "Mo", "Tc", "Ru", "Rh", "Pd", "Ag", "Cd", "In", "Sn",
+	"Sb", "Te", "I", "Xe", "Cs", "Ba", "La", "Ce", "Pr", "Nd",
+	"Pm", "Sm", "Eu", "Gd", "Tb", "Dy", "Ho", "Er", "Tm", "Yb",
+	"Lu", "Hf", "Ta", "W", "Re", "Os", "Ir", "Pt", "Au", "Hg",
+	"Tl", "Pb", "Bi", "Po", "At", "Rn", "Fr", "Ra", "Ac", "Th",
+	"Pa", "U", "Np", "Pu", "Am", "Cm", "Bk", "Cf", "Es", "Fm",
+	"Md", "No", "Lr", "Rf", "Db", "Sg", "Bh", "Hs", "Mt", "Ds",
+	"Rg", "Cn", "Nh", "Fl", "Mc", "Lv", "Ts", "Og",
+}
+
+// atomicNumber returns Z for an element symbol, or 0.
+func atomicNumber(sym string) int {
+	for i, s := range periodicSymbols {
+		if s == sym {
+			return i + 1
+		}
+	}
+	return 0
+}
+
+// IsElementSymbol reports whether sym is a chemical element symbol (exact case).
+func IsElementSymbol(sym string) bool { return atomicNumber(sym) > 0 }
+
+// romanCN reads a coordination number as Shannon writes it.
+func romanCN(cn string) (int, bool) {
+	switch cn {
+	case "I":
+		return 1, true
+	case "II":
+		return 2, true
+	case "III":
+		return 3, true
+	case "IV", "IVSQ", "IVPY":
+		return 4, true
+	case "V":
+		return 5, true
+	case "VI":
+		return 6, true
+	case "VII":
+		return 7, true
+	case "VIII":
+		return 8, true
+	case "IX":
+		return 9, true
+	case "X":
+		return 10, true
+	case "XI":
+		return 11, true
+	case "XII":
+		return 12, true
+	case "XIV":
+		return 14, true
+	}
+	return 0, false
+}

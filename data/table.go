@@ -1,0 +1,187 @@
+package data
+
+import (
+	"encoding/csv"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+)
+
+// record is one row of a table or one [[table]] entry of an overlay, with
+// the position of each field for error messages.
+type record struct {
+	file   string
+	line   int
+	fields map[string]string
+	// lines holds per-field lines where they differ from line (overlay keys).
+	lines map[string]int
+}
+
+func (r record) has(field string) bool {
+	v, ok := r.fields[field]
+	return ok && strings.TrimSpace(v) != ""
+}
+
+func (r record) str(field string) string { return strings.TrimSpace(r.fields[field]) }
+
+func (r record) lineOf(field string) int {
+	if l, ok := r.lines[field]; ok {
+		return l
+	}
+	return r.line
+}
+
+func (r record) errorf(field, format string, args ...any) *TableError {
+	return &TableError{File: r.file, Line: r.lineOf(field), Field: field, Err: fmt.Errorf(format, args...)}
+}
+
+// float reads a number; ok is false when the cell is empty.
+func (r record) float(field string) (v float64, ok bool, err error) {
+	s := r.str(field)
+	if s == "" {
+		return 0, false, nil
+	}
+	v, perr := strconv.ParseFloat(s, 64)
+	if perr != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+		return 0, false, r.errorf(field, "%q is not a number", s)
+	}
+	return v, true, nil
+}
+
+// requiredFloat reads a number that must be present.
+func (r record) requiredFloat(field string) (float64, error) {
+	v, ok, err := r.float(field)
+	if err != nil {
+		return 0, err
+	}
+	if !ok {
+		return 0, r.errorf(field, "missing value")
+	}
+	return v, nil
+}
+
+// integer reads a whole number; ok is false when the cell is empty.
+func (r record) integer(field string) (v int, ok bool, err error) {
+	s := r.str(field)
+	if s == "" {
+		return 0, false, nil
+	}
+	n, perr := strconv.Atoi(strings.TrimPrefix(s, "+"))
+	if perr != nil {
+		return 0, false, r.errorf(field, "%q is not a whole number", s)
+	}
+	return n, true, nil
+}
+
+func (r record) requiredInt(field string) (int, error) {
+	v, ok, err := r.integer(field)
+	if err != nil {
+		return 0, err
+	}
+	if !ok {
+		return 0, r.errorf(field, "missing value")
+	}
+	return v, nil
+}
+
+func (r record) requiredStr(field string) (string, error) {
+	s := r.str(field)
+	if s == "" {
+		return "", r.errorf(field, "missing value")
+	}
+	return s, nil
+}
+
+// flag reads yes/no; empty is no.
+func (r record) flag(field string) (bool, error) {
+	switch strings.ToLower(r.str(field)) {
+	case "", "no", "false", "0":
+		return false, nil
+	case "yes", "true", "1":
+		return true, nil
+	}
+	return false, r.errorf(field, "%q is not yes or no", r.str(field))
+}
+
+// memoryOf tells whether the value called name is marked as recalled: the
+// memory cell is "yes" (all values of the row) or a ";"-separated list of
+// value names.
+func (r record) memoryOf(name string) (bool, error) {
+	s := strings.TrimSpace(r.fields["memory"])
+	switch strings.ToLower(s) {
+	case "", "no", "false":
+		return false, nil
+	case "yes", "true":
+		return true, nil
+	}
+	for _, part := range strings.Split(s, ";") {
+		if strings.TrimSpace(part) == name {
+			return true, nil
+		}
+	}
+	return false, nil
+}
+
+// readCSV reads a table: "#" lines before the header are comments; rows may
+// omit trailing empty cells but may not have more cells than the header.
+func readCSV(file string, rd io.Reader, known []string) ([]record, error) {
+	cr := csv.NewReader(rd)
+	cr.Comment = '#'
+	cr.FieldsPerRecord = -1
+	header, err := cr.Read()
+	if err != nil {
+		if errors.Is(err, io.EOF) {
+			return nil, &TableError{File: file, Err: errors.New("empty table: no header row")}
+		}
+		return nil, csvError(file, err)
+	}
+	for i, h := range header {
+		header[i] = strings.TrimSpace(strings.TrimPrefix(h, "\ufeff"))
+		if known != nil && !contains(known, header[i]) {
+			return nil, &TableError{File: file, Line: 1, Field: header[i], Err: fmt.Errorf("unknown column (known: %s)", strings.Join(known, ", "))}
+		}
+	}
+	var out []record
+	for {
+		row, err := cr.Read()
+		if errors.Is(err, io.EOF) {
+			break
+		}
+		if err != nil {
+			return nil, csvError(file, err)
+		}
+		line, _ := cr.FieldPos(0)
+		if len(row) > len(header) {
+			return nil, &TableError{File: file, Line: line, Err: fmt.Errorf("%d cells but the header has %d", len(row), len(header))}
+		}
+		if len(row) == 1 && strings.TrimSpace(row[0]) == "" {
+			continue
+		}
+		rec := record{file: file, line: line, fields: make(map[string]string, len(header))}
+		for i, cell := range row {
+			rec.fields[header[i]] = cell
+		}
+		out = append(out, rec)
+	}
+	return out, nil
+}
+
+func csvError(file string, err error) error {
+	var pe *csv.ParseError
+	if errors.As(err, &pe) {
+		return &TableError{File: file, Line: pe.Line, Err: pe.Err}
+	}
+	return &TableError{File: file, Err: err}
+}
+
+func contains(list []string, s string) bool {
+	for _, x := range list {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}
