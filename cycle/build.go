@@ -1,14 +1,21 @@
 package cycle
 
 import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+
 	"enthalpath/data"
+	"enthalpath/thermo"
 )
 
 // Options choose how Build makes a cycle.
 type Options struct {
 	// Cation and Anion, when set, are the ion symbols to use ("Mg+",
 	// "Cl-"): needed for a formula whose ions the data cannot decide, or to
-	// build a hypothetical compound with unusual charges.
+	// build a hypothetical compound with unusual charges. An ion the data
+	// do not list is made from its symbol (monatomic, no radii).
 	Cation, Anion string
 	// Conventions the step values are built in (zero value: ΔH_L, 0 K).
 	Conventions Conventions
@@ -19,6 +26,27 @@ type Options struct {
 	Memo *Memo
 }
 
+// Default uncertainties used where a source states none (common practice,
+// no source): small against the uncertainties a cycle usually carries.
+const (
+	// DefaultIonizationUncertaintyEV for ionization energies (spectroscopic
+	// values are far more precise; this only keeps the sum honest).
+	DefaultIonizationUncertaintyEV = 0.001
+	// DefaultAffinityUncertaintyEV for measured electron affinities.
+	DefaultAffinityUncertaintyEV = 0.01
+	// DefaultDerivedAttachment for cycle-derived attachment enthalpies
+	// (O⁻ → O²⁻, S⁻ → S²⁻), which depend on the lattice energies used.
+	DefaultDerivedAttachment = 40.0
+	// DefaultEnthalpy for atomization, phase-change, dissociation and
+	// formation enthalpies (kJ/mol).
+	DefaultEnthalpy = 2.0
+	// DefaultIonFormation for gaseous polyatomic-ion formation enthalpies.
+	DefaultIonFormation = 10.0
+	// DefaultLatticeRelative is the relative uncertainty of a handbook
+	// lattice value that states none.
+	DefaultLatticeRelative = 0.01
+)
+
 // Build assembles the cycle of formula from db: the compound's ions (from
 // its data row, or for a formula not tabulated from the ions the data know
 // for its elements and Options), every step with its value, uncertainty and
@@ -27,5 +55,473 @@ type Options struct {
 // suggestions), *ChargeError (no charges that balance). A missing datum is
 // not an error here: its step has Source.Kind SourceMissing and Solve names it.
 func Build(db *data.DB, formula string, opt Options) (*Cycle, error) {
-	return build(db, formula, opt)
+	if db == nil {
+		return nil, &CompoundError{Formula: formula, Reason: "no data loaded"}
+	}
+	formula = strings.TrimSpace(formula)
+	if formula == "" {
+		return nil, &CompoundError{Formula: formula, Reason: "empty formula"}
+	}
+	c := &Cycle{memo: opt.Memo, Settings: opt.Settings.clone()}
+	if c.memo == nil {
+		c.memo = NewMemo()
+	}
+	comp, cerr := db.Compound(formula)
+	if cerr == nil && opt.Cation == "" && opt.Anion == "" {
+		c.Formula, c.Name, c.Family, c.Tabulated, c.Compound = comp.Formula, comp.Name, comp.Family, true, comp
+		cat, err := db.Ion(comp.Cation)
+		if err != nil {
+			return nil, &CompoundError{Formula: formula, Reason: "its cation is not in the ion table", Err: err}
+		}
+		an, err := db.Ion(comp.Anion)
+		if err != nil {
+			return nil, &CompoundError{Formula: formula, Reason: "its anion is not in the ion table", Err: err}
+		}
+		c.Cation = Part{Ion: cat, Count: comp.CationCount}
+		c.Anion = Part{Ion: an, Count: comp.AnionCount}
+		if comp.CationCount*cat.Charge+comp.AnionCount*an.Charge != 0 {
+			return nil, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%d %s and %d %s do not balance", comp.CationCount, cat.Symbol, comp.AnionCount, an.Symbol)}
+		}
+	} else {
+		if err := c.hypothetical(db, formula, opt, cerr); err != nil {
+			return nil, err
+		}
+		if cerr == nil {
+			c.Tabulated, c.Compound, c.Name, c.Family = true, comp, comp.Name, comp.Family
+			if comp.Cation != c.Cation.Ion.Symbol || comp.Anion != c.Anion.Ion.Symbol {
+				// Other ions than the data row's: the row's values do not apply.
+				c.Tabulated, c.Compound = false, data.Compound{}
+			}
+		}
+	}
+	if c.Cation.Ion.Charge <= 0 || c.Anion.Ion.Charge >= 0 {
+		return nil, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s must be a cation and %s an anion", c.Cation.Ion.Symbol, c.Anion.Ion.Symbol)}
+	}
+	c.MolarMass = molarMass(c.Cation, c.Anion)
+	if c.Settings.Structure.Empty() && c.Compound.Structure != "" {
+		c.Settings.Structure = Structure{Prototype: c.Compound.Structure, Params: cloneParams(c.Compound.Params), FromData: true}
+	}
+	b := builder{db: db, c: c}
+	b.side(SideCation)
+	b.side(SideAnion)
+	b.compoundSteps()
+	c.Steps = b.steps
+	// The data values are 0 K / ΔH_L; convert to the conventions asked for.
+	c.Conventions = Conventions{}
+	c.SetConventions(opt.Conventions)
+	c.refreshComposites()
+	return c, nil
+}
+
+func cloneParams(p map[string]float64) map[string]float64 {
+	if p == nil {
+		return nil
+	}
+	d := make(map[string]float64, len(p))
+	for k, v := range p {
+		d[k] = v
+	}
+	return d
+}
+
+type builder struct {
+	db    *data.DB
+	c     *Cycle
+	steps []Step
+}
+
+func (b *builder) source(v data.Value) Source {
+	s := Source{Kind: SourceData, Key: v.Source, Memory: v.Memory, Derived: v.Derived, Override: v.Override, Note: v.Note}
+	if src, err := b.db.Source(v.Source); err == nil {
+		s.Citation = src.Citation
+	}
+	return s
+}
+
+// entry converts a data value to kJ/mol with its uncertainty, using def
+// (kJ/mol) when the source states none.
+func (b *builder) entry(v data.Value, def float64) Entry {
+	val, unc := v.V, v.U
+	if v.Unit == "eV" {
+		val, unc = thermo.EVToKJPerMol(v.V), thermo.EVToKJPerMol(v.U)
+	}
+	e := Entry{Value: val, Uncertainty: math.Abs(unc), Source: b.source(v)}
+	if !(e.Uncertainty > 0) {
+		e.Uncertainty = def
+		e.Source.DefaultUncertainty = true
+	}
+	return e
+}
+
+func (b *builder) add(s Step, v *data.Value, def float64) {
+	if v != nil && v.Known() {
+		e := b.entry(*v, def)
+		s.Value, s.Uncertainty, s.Source = e.Value, e.Uncertainty, e.Source
+		s.Reference = &e
+	} else if !s.Composite {
+		s.Source = Source{Kind: SourceMissing}
+	}
+	b.steps = append(b.steps, s)
+}
+
+var ordinals = []string{"zeroth", "first", "second", "third", "fourth", "fifth", "sixth", "seventh", "eighth"}
+
+func ordinal(i int) string {
+	if i >= 0 && i < len(ordinals) {
+		return ordinals[i]
+	}
+	return fmt.Sprintf("%dth", i)
+}
+
+func (b *builder) side(side Side) {
+	p, suffix := b.c.Cation, "cation"
+	if side == SideAnion {
+		p, suffix = b.c.Anion, "anion"
+	}
+	count := float64(p.Count)
+	if p.Ion.Polyatomic {
+		s := Step{Key: "ion-formation-" + suffix, Kind: KindIonFormation, Side: side, Multiplicity: count,
+			Label:    "standard enthalpy of formation of gaseous " + p.Ion.Symbol,
+			Reaction: ionFormationReaction(b.db, p.Ion)}
+		b.add(s, &p.Ion.GasFormation, DefaultIonFormation)
+		return
+	}
+	el, err := b.db.Element(p.Ion.Core)
+	if err != nil {
+		el = data.Element{Symbol: p.Ion.Core}
+	}
+	b.atomization(side, suffix, el, count)
+	if side == SideCation {
+		for i := 1; i <= p.Ion.Charge; i++ {
+			s := Step{Key: fmt.Sprintf("ionization-%d", i), Kind: KindIonization, Side: side, Order: i, Multiplicity: count,
+				Label:    fmt.Sprintf("%s ionization energy of %s", ordinal(i), el.Symbol),
+				Reaction: fmt.Sprintf("%s(g) → %s(g) + e⁻", ionText(el.Symbol, i-1), ionText(el.Symbol, i))}
+			var v *data.Value
+			if i <= len(el.Ionization) {
+				v = &el.Ionization[i-1]
+			}
+			b.add(s, v, thermo.EVToKJPerMol(DefaultIonizationUncertaintyEV))
+		}
+		return
+	}
+	for j := 1; j <= -p.Ion.Charge; j++ {
+		s := Step{Key: fmt.Sprintf("attachment-%d", j), Kind: KindAttachment, Side: side, Order: j, Multiplicity: count,
+			Label:    fmt.Sprintf("%s electron attachment enthalpy of %s (minus the %s electron affinity)", ordinal(j), el.Symbol, ordinal(j)),
+			Reaction: fmt.Sprintf("%s(g) + e⁻ → %s(g)", ionText(el.Symbol, -(j-1)), ionText(el.Symbol, -j))}
+		var v *data.Value
+		def := thermo.EVToKJPerMol(DefaultAffinityUncertaintyEV)
+		switch j {
+		case 1:
+			v = &el.ElectronAffinity
+		case 2:
+			v = &el.SecondAffinity
+			def = DefaultDerivedAttachment
+		}
+		if v != nil && v.Known() {
+			neg := *v // attachment enthalpy = −(electron affinity)
+			neg.V = -neg.V
+			v = &neg
+		}
+		b.add(s, v, def)
+	}
+}
+
+// atomization adds atomization-<suffix> and its sub-steps.
+func (b *builder) atomization(side Side, suffix string, el data.Element, count float64) {
+	state := el.StandardState
+	formula, atoms, phase := splitState(state, el.Symbol)
+	if phase == "(g)" && atoms == 1 {
+		return // a monatomic gas is already gaseous atoms
+	}
+	reaction := fmt.Sprintf("%s%s → %s(g)", coefficient(1/float64(atoms)), subscriptDigits(formula)+phase, el.Symbol)
+	s := Step{Key: "atomization-" + suffix, Kind: KindAtomization, Side: side, Multiplicity: count,
+		Label: "atomization of " + el.Symbol + " (ΔfH° of the gaseous atom)", Reaction: reaction}
+	subs := b.db.AtomizationSteps(el.Symbol)
+	if len(subs) == 0 || (len(subs) == 1 && subs[0].AtomsProduced == 1) {
+		b.add(s, &el.Atomization, DefaultEnthalpy)
+		return
+	}
+	s.Composite = true
+	s.Source = Source{Kind: SourceSum, Citation: "sum of its sub-steps"}
+	if el.Atomization.Known() {
+		e := b.entry(el.Atomization, DefaultEnthalpy)
+		s.Reference = &e
+		s.Value, s.Uncertainty = e.Value, e.Uncertainty
+	}
+	b.steps = append(b.steps, s)
+	seen := map[string]int{}
+	for _, sub := range subs {
+		key := sub.Kind + "-" + suffix
+		if seen[key]++; seen[key] > 1 {
+			key = fmt.Sprintf("%s-%d-%s", sub.Kind, seen[key], suffix)
+		}
+		atomsBy := sub.AtomsProduced
+		if atomsBy <= 0 {
+			atomsBy = 1
+		}
+		kind := KindSublimation
+		switch sub.Kind {
+		case "vaporization":
+			kind = KindVaporization
+		case "dissociation":
+			kind = KindDissociation
+		}
+		ss := Step{Key: key, Kind: kind, Side: side, Multiplicity: count / float64(atomsBy), Parent: s.Key,
+			Label:    sub.Kind + " of " + el.Symbol + " (sub-step of its atomization)",
+			Reaction: prettyReaction(sub.Reaction)}
+		v := sub.Enthalpy
+		b.add(ss, &v, DefaultEnthalpy)
+	}
+}
+
+func (b *builder) compoundSteps() {
+	c := b.c
+	lat := Step{Key: "lattice", Kind: KindLattice, Side: SideCompound, Multiplicity: 1, Unknown: true,
+		Label: "lattice step of " + c.Formula + " (gaseous ions → solid)",
+		Reaction: fmt.Sprintf("%s%s(g) + %s%s(g) → %s(s)", countPrefix(c.Cation.Count), ionSymbolText(c.Cation.Ion),
+			countPrefix(c.Anion.Count), ionSymbolText(c.Anion.Ion), subscriptDigits(c.Formula))}
+	if h := c.Compound.HandbookLattice; h.Known() && h.V > 0 {
+		e := b.entry(h, DefaultLatticeRelative*h.V)
+		e.Value = -h.V // tabulated for the dissociation; the step is the reverse
+		if c.Compound.LatticeConvention == "U" {
+			// Stored as ΔH_L (the base); SetConventions shifts it back for U.
+			e.Value -= c.LatticeCorrection()
+		}
+		e.Source.Note = strings.TrimSpace("handbook lattice value (" + c.Compound.LatticeConvention + "), used when another step is solved. " + e.Source.Note)
+		lat.Reference = &e
+		lat.Value, lat.Uncertainty, lat.Source = e.Value, e.Uncertainty, e.Source
+	} else {
+		lat.Source = Source{Kind: SourceMissing}
+	}
+	b.steps = append(b.steps, lat)
+	f := Step{Key: "formation", Kind: KindFormation, Side: SideCompound, Multiplicity: 1,
+		Label:    "standard enthalpy of formation of " + c.Formula,
+		Reaction: formationReaction(b.db, c) + " → " + subscriptDigits(c.Formula) + "(s)"}
+	b.add(f, &c.Compound.Formation, DefaultEnthalpy)
+}
+
+// hypothetical finds the ions of a formula that is not tabulated (or whose
+// ions the options override).
+func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options, lookupErr error) error {
+	counts, order, err := parseBinary(formula)
+	suggestions := func() []string {
+		var nf *data.NotFoundError
+		if errors.As(lookupErr, &nf) {
+			return nf.Suggestions
+		}
+		return nil
+	}
+	if err != nil && (opt.Cation == "" || opt.Anion == "") {
+		return &CompoundError{Formula: formula, Reason: "not in the data and not a simple binary formula MₐXᵦ; give its ions with the cation and anion options", Err: err, Suggestions: suggestions()}
+	}
+	ion := func(sym string) (data.Ion, error) {
+		if in, err := db.Ion(sym); err == nil {
+			return in, nil
+		}
+		core, z, ok := parseIonSymbol(sym)
+		if !ok {
+			return data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("cannot read ion %q (write it like Mg+ or O2-)", sym)}
+		}
+		if !data.IsElementSymbol(core) {
+			return data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("ion %q is not in the data and %q is not an element", sym, core)}
+		}
+		return data.Ion{Symbol: sym, Core: core, Charge: z, Shape: "monatomic", Note: "hypothetical ion, not in the data"}, nil
+	}
+	var cat, an data.Ion
+	switch {
+	case opt.Cation != "" && opt.Anion != "":
+		if cat, err = ion(opt.Cation); err != nil {
+			return err
+		}
+		if an, err = ion(opt.Anion); err != nil {
+			return err
+		}
+	default:
+		if len(order) != 2 {
+			return &CompoundError{Formula: formula, Reason: fmt.Sprintf("not in the data, and %d elements where a binary compound has 2", len(order)), Suggestions: suggestions()}
+		}
+		cat, an, err = pickIons(db, formula, order, counts, opt)
+		if err != nil {
+			return err
+		}
+	}
+	if cat.Charge <= 0 || an.Charge >= 0 {
+		return &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s must be a cation and %s an anion", cat.Symbol, an.Symbol)}
+	}
+	g := gcd(cat.Charge, -an.Charge)
+	a, bb := -an.Charge/g, cat.Charge/g
+	if counts != nil {
+		ca, cb := counts[cat.Core], counts[an.Core]
+		if ca == 0 || cb == 0 || ca*cat.Charge+cb*an.Charge != 0 {
+			return &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s and %s cannot make %s (they balance as %s%s%s%s)",
+				cat.Symbol, an.Symbol, formula, cat.Core, countText(a), an.Core, countText(bb))}
+		}
+		a, bb = ca, cb
+	}
+	c.Formula = formula
+	c.Cation = Part{Ion: cat, Count: a}
+	c.Anion = Part{Ion: an, Count: bb}
+	return nil
+}
+
+func countText(n int) string {
+	if n == 1 {
+		return ""
+	}
+	return fmt.Sprint(n)
+}
+
+func gcd(a, b int) int {
+	for b != 0 {
+		a, b = b, a%b
+	}
+	if a < 0 {
+		return -a
+	}
+	return a
+}
+
+// pickIons chooses, for a binary formula, the cation and anion of the data
+// whose charges balance its counts; when the data have no balancing cation
+// it makes one with the charge the counts imply (a hypothetical ion).
+func pickIons(db *data.DB, formula string, order []string, counts map[string]int, opt Options) (data.Ion, data.Ion, error) {
+	first, second := order[0], order[1]
+	var cations, anions []data.Ion
+	for _, in := range db.Ions() {
+		if in.Polyatomic {
+			continue
+		}
+		if in.Core == first && in.Charge > 0 {
+			cations = append(cations, in)
+		}
+		if in.Core == second && in.Charge < 0 {
+			anions = append(anions, in)
+		}
+	}
+	if opt.Anion != "" {
+		a, err := db.Ion(opt.Anion)
+		if err != nil {
+			return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: "unknown anion", Err: err}
+		}
+		anions = []data.Ion{a}
+	}
+	if opt.Cation != "" {
+		a, err := db.Ion(opt.Cation)
+		if err != nil {
+			return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: "unknown cation", Err: err}
+		}
+		cations = []data.Ion{a}
+	}
+	if len(anions) == 0 {
+		if !data.IsElementSymbol(second) {
+			return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("%q is not an element", second)}
+		}
+		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("the data have no anion of %s; write the metal first and give the ions (for example Anion %s-)", second, second)}
+	}
+	for _, an := range anions {
+		for _, ca := range cations {
+			if counts[first]*ca.Charge+counts[second]*an.Charge == 0 {
+				return ca, an, nil
+			}
+		}
+	}
+	an := anions[0]
+	num := -counts[second] * an.Charge
+	if num%counts[first] != 0 {
+		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%d %s ions carry %d negative charges, which %d %s atoms cannot balance with a whole charge each",
+			counts[second], an.Symbol, num, counts[first], first)}
+	}
+	z := num / counts[first]
+	if el, err := db.Element(first); err != nil || len(el.Ionization) < z {
+		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s would need the charge %+d, beyond the ionization energies in the data", first, z)}
+	}
+	sym := fmt.Sprintf("%s%s+", first, countText(z))
+	return data.Ion{Symbol: sym, Core: first, Charge: z, Shape: "monatomic", Note: "hypothetical ion, not in the data"}, an, nil
+}
+
+// parseBinary reads a formula of element symbols with counts ("Al2O3",
+// "MgCl"), returning the counts and the symbols in order of appearance.
+func parseBinary(f string) (map[string]int, []string, error) {
+	counts := map[string]int{}
+	var order []string
+	i := 0
+	for i < len(f) {
+		ch := f[i]
+		if !(ch >= 'A' && ch <= 'Z') {
+			return nil, nil, fmt.Errorf("unexpected %q at column %d", rune(ch), i+1)
+		}
+		j := i + 1
+		for j < len(f) && f[j] >= 'a' && f[j] <= 'z' {
+			j++
+		}
+		sym := f[i:j]
+		if !data.IsElementSymbol(sym) {
+			return nil, nil, fmt.Errorf("unknown element %q at column %d", sym, i+1)
+		}
+		k := j
+		for k < len(f) && f[k] >= '0' && f[k] <= '9' {
+			k++
+		}
+		n := 1
+		if k > j {
+			if k-j > 3 {
+				return nil, nil, fmt.Errorf("count too large at column %d", j+1)
+			}
+			fmt.Sscan(f[j:k], &n)
+			if n == 0 {
+				return nil, nil, fmt.Errorf("zero count at column %d", j+1)
+			}
+		}
+		if counts[sym] == 0 {
+			order = append(order, sym)
+		}
+		counts[sym] += n
+		i = k
+	}
+	return counts, order, nil
+}
+
+// parseIonSymbol reads "Mg+", "Mg2+", "O2-", "Fe+3", "Cl^-".
+func parseIonSymbol(s string) (core string, charge int, ok bool) {
+	s = strings.ReplaceAll(strings.TrimSpace(s), "^", "")
+	i := 0
+	for i < len(s) && (s[i] >= 'A' && s[i] <= 'Z' || s[i] >= 'a' && s[i] <= 'z') {
+		i++
+	}
+	core, rest := s[:i], s[i:]
+	if core == "" || rest == "" {
+		return "", 0, false
+	}
+	sign := 1
+	var digits string
+	switch {
+	case strings.HasSuffix(rest, "+") || strings.HasSuffix(rest, "-"):
+		if rest[len(rest)-1] == '-' {
+			sign = -1
+		}
+		digits = rest[:len(rest)-1]
+	case rest[0] == '+' || rest[0] == '-':
+		if rest[0] == '-' {
+			sign = -1
+		}
+		digits = rest[1:]
+	default:
+		return "", 0, false
+	}
+	n := 1
+	if digits != "" {
+		if len(digits) > 2 {
+			return "", 0, false
+		}
+		for _, d := range digits {
+			if d < '0' || d > '9' {
+				return "", 0, false
+			}
+		}
+		fmt.Sscan(digits, &n)
+	}
+	if n == 0 {
+		return "", 0, false
+	}
+	return core, sign * n, true
 }

@@ -227,6 +227,9 @@ func (c *Cycle) SetConventions(conv Conventions) {
 // unknown, missing, or when it has no sub-steps) or its sub-steps.
 func (c *Cycle) inSum(i int) bool {
 	s := &c.Steps[i]
+	if s.Composite && s.Source.Kind == SourceSum && !s.Unknown {
+		return false
+	}
 	if s.Parent != "" {
 		p, ok := c.Step(s.Parent)
 		return ok && p.Source.Kind == SourceSum && !p.Unknown

@@ -1,0 +1,178 @@
+package cycle
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"enthalpath/data"
+)
+
+var subscripts = strings.NewReplacer("0", "₀", "1", "₁", "2", "₂", "3", "₃", "4", "₄", "5", "₅", "6", "₆", "7", "₇", "8", "₈", "9", "₉")
+var superscripts = map[rune]string{'0': "⁰", '1': "¹", '2': "²", '3': "³", '4': "⁴", '5': "⁵", '6': "⁶", '7': "⁷", '8': "⁸", '9': "⁹", '+': "⁺", '-': "⁻"}
+
+// subscriptDigits writes the digits of a formula as subscripts: "MgF2" → "MgF₂".
+func subscriptDigits(f string) string { return subscripts.Replace(f) }
+
+func superscript(s string) string {
+	var b strings.Builder
+	for _, r := range s {
+		if t, ok := superscripts[r]; ok {
+			b.WriteString(t)
+		} else {
+			b.WriteRune(r)
+		}
+	}
+	return b.String()
+}
+
+// chargeText is the charge as a superscript: 2 → "²⁺", −1 → "⁻", 0 → "".
+func chargeText(z int) string {
+	switch {
+	case z == 0:
+		return ""
+	case z == 1:
+		return "⁺"
+	case z == -1:
+		return "⁻"
+	case z > 0:
+		return superscript(fmt.Sprintf("%d+", z))
+	}
+	return superscript(fmt.Sprintf("%d-", -z))
+}
+
+// ionText writes element el with charge z: "Mg²⁺", "O⁻", "Na".
+func ionText(el string, z int) string { return el + chargeText(z) }
+
+// ionSymbolText writes a data ion with sub- and superscripts: "SO₄²⁻".
+func ionSymbolText(in data.Ion) string { return subscriptDigits(in.Core) + chargeText(in.Charge) }
+
+// IonText writes an ion symbol for display ("SO4^2-" → "SO₄²⁻").
+func IonText(in data.Ion) string { return ionSymbolText(in) }
+
+func countPrefix(n int) string {
+	if n == 1 {
+		return ""
+	}
+	return fmt.Sprintf("%d ", n)
+}
+
+// coefficient writes a stoichiometric coefficient: 1 → "", 0.5 → "½",
+// 1.5 → "3/2 ", 2 → "2 ".
+func coefficient(x float64) string {
+	switch {
+	case math.Abs(x-1) < 1e-9:
+		return ""
+	case math.Abs(x-0.5) < 1e-9:
+		return "½"
+	case math.Abs(x-math.Round(x)) < 1e-9:
+		return fmt.Sprintf("%d ", int(math.Round(x)))
+	case math.Abs(2*x-math.Round(2*x)) < 1e-9:
+		return fmt.Sprintf("%d/2 ", int(math.Round(2*x)))
+	}
+	return fmt.Sprintf("%g ", x)
+}
+
+// splitState reads a standard state "Cl2(g)", "S(s,rhombic)", "Na(s)" into
+// the formula, its atoms per molecule and the phase "(g)".
+func splitState(state, symbol string) (formula string, atoms int, phase string) {
+	if state == "" {
+		return symbol, 1, "(s)"
+	}
+	i := strings.IndexByte(state, '(')
+	if i < 0 {
+		i = len(state)
+	}
+	formula, phase = state[:i], state[i:]
+	atoms = 1
+	if rest := strings.TrimPrefix(formula, symbol); rest != formula && rest != "" {
+		fmt.Sscan(rest, &atoms)
+		if atoms <= 0 {
+			atoms = 1
+		}
+	}
+	return formula, atoms, phase
+}
+
+// prettyReaction writes the digits of a data reaction as subscripts and
+// drops the space after a coefficient: "Cl2(g) → 2 Cl(g)" → "Cl₂(g) → 2Cl(g)".
+func prettyReaction(r string) string {
+	parts := strings.Fields(r)
+	var out []string
+	for i := 0; i < len(parts); i++ {
+		p := parts[i]
+		if isInteger(p) && i+1 < len(parts) && parts[i+1] != "→" && parts[i+1] != "+" {
+			out = append(out, p+subscriptDigits(parts[i+1]))
+			i++
+			continue
+		}
+		out = append(out, subscriptDigits(p))
+	}
+	return strings.Join(out, " ")
+}
+
+func isInteger(s string) bool {
+	if s == "" {
+		return false
+	}
+	for _, r := range s {
+		if r < '0' || r > '9' {
+			return false
+		}
+	}
+	return true
+}
+
+// elementTerms writes the elements of counts in their standard states with
+// coefficients: {"Na":1,"Cl":1} → "Na(s) + ½Cl₂(g)".
+func elementTerms(db *data.DB, order []string, counts map[string]int) string {
+	var terms []string
+	for _, sym := range order {
+		state := sym + "(s)"
+		if el, err := db.Element(sym); err == nil && el.StandardState != "" {
+			state = el.StandardState
+		}
+		formula, atoms, phase := splitState(state, sym)
+		terms = append(terms, coefficient(float64(counts[sym])/float64(atoms))+subscriptDigits(formula)+phase)
+	}
+	return strings.Join(terms, " + ")
+}
+
+// formationReaction is the left side of the formation reaction.
+func formationReaction(db *data.DB, c *Cycle) string {
+	counts := map[string]int{}
+	var order []string
+	addCore := func(core string, mult int) {
+		cc, o, err := parseBinary(core)
+		if err != nil {
+			cc, o = map[string]int{core: 1}, []string{core}
+		}
+		for _, s := range o {
+			if counts[s] == 0 {
+				order = append(order, s)
+			}
+			counts[s] += cc[s] * mult
+		}
+	}
+	addCore(c.Cation.Ion.Core, c.Cation.Count)
+	addCore(c.Anion.Ion.Core, c.Anion.Count)
+	return elementTerms(db, order, counts)
+}
+
+// ionFormationReaction writes the formation of a gaseous polyatomic ion
+// from its elements: "½N₂(g) + 2H₂(g) → NH₄⁺(g) + e⁻".
+func ionFormationReaction(db *data.DB, in data.Ion) string {
+	counts, order, err := parseBinary(in.Core)
+	left := subscriptDigits(in.Core)
+	if err == nil {
+		left = elementTerms(db, order, counts)
+	}
+	ion := ionSymbolText(in) + "(g)"
+	switch {
+	case in.Charge > 0:
+		return fmt.Sprintf("%s → %s + %se⁻", left, ion, countPrefix(in.Charge))
+	case in.Charge < 0:
+		return fmt.Sprintf("%s + %se⁻ → %s", left, countPrefix(-in.Charge), ion)
+	}
+	return left + " → " + ion
+}
