@@ -685,8 +685,14 @@ func (b *builder) finish() {
 		if _, dup := db.ionKeyIdx[k]; !dup {
 			db.ionKeyIdx[k] = i
 		}
-		db.ionFoldIdx[foldIon(ion.Symbol)] = i
-		db.ionFoldIdx[foldIon(canonicalIonSymbol(ion.Core, ion.Charge, ion.Polyatomic))] = i
+		for _, key := range []string{foldIon(ion.Symbol), caretIonSymbol(ion.Core, ion.Charge)} {
+			if _, dup := db.ionFoldIdx[key]; !dup {
+				db.ionFoldIdx[key] = i
+			}
+		}
+		if !ion.Polyatomic {
+			db.ionFoldIdx[canonicalIonSymbol(ion.Core, ion.Charge, false)] = i
+		}
 	}
 	db.compositionIdx = make(map[string]int, len(db.compounds))
 	db.compoundFoldIdx = make(map[string]int, len(db.compounds))

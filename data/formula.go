@@ -528,20 +528,31 @@ func (p *formulaParser) charge(f *Formula, lastCountDigits bool) (int, error) {
 	return q, nil
 }
 
-// foldIon normalizes an ion symbol for lookup: spaces, carets and a "+1"
-// magnitude dropped, sign-first charges ("Fe+3") turned around, superscripts
-// read as ASCII.
+// foldIon normalizes an ion symbol for lookup: superscripts become a caret
+// form ("O²⁻" → "O^2-"), a space before the charge becomes a caret ("SO4 2-"
+// → "SO4^2-"), other spaces go, and a sign-first charge is turned around
+// ("Fe+3" → "Fe3+", "Fe^+3" → "Fe^3+").
 func foldIon(s string) string {
 	var b []rune
-	for _, r := range s {
+	sup := false
+	in := []rune(strings.TrimSpace(s))
+	for i, r := range in {
 		r = normalizeRune(r)
-		if isSuperscript(r) {
-			r = superscriptToASCII(r)
+		switch {
+		case isSuperscript(r):
+			if !sup {
+				b = append(b, '^')
+				sup = true
+			}
+			b = append(b, superscriptToASCII(r))
+		case r == ' ' || r == '\t':
+			rest := strings.TrimSpace(string(in[i:]))
+			if rest != "" && strings.Trim(rest, "0123456789+-−") == "" && !strings.ContainsRune(string(b), '^') {
+				b = append(b, '^')
+			}
+		default:
+			b = append(b, r)
 		}
-		if r == ' ' || r == '^' || r == '\t' {
-			continue
-		}
-		b = append(b, r)
 	}
 	// Sign then digits at the end: move the sign behind the digits.
 	i := len(b)
@@ -556,10 +567,40 @@ func foldIon(s string) string {
 	return string(b)
 }
 
+// caretIonSymbol writes an ion with an explicit caret: "Ca^2+", "O2^-".
+func caretIonSymbol(core string, charge int) string {
+	sign := "+"
+	if charge < 0 {
+		sign, charge = "-", -charge
+	}
+	if charge == 1 {
+		return core + "^" + sign
+	}
+	return core + "^" + strconv.Itoa(charge) + sign
+}
+
 // ionReadings lists the (core, charge) pairs an ion symbol may mean, most
 // likely first: "SO42-" → (SO4, -2), (SO42, -1), (SO, -42) …
 func ionReadings(s string) []ionKey {
-	t := []rune(foldIon(s))
+	folded := foldIon(s)
+	if core, q, ok := strings.Cut(folded, "^"); ok {
+		t := []rune(q)
+		if len(t) == 0 || (t[len(t)-1] != '+' && t[len(t)-1] != '-') {
+			return nil
+		}
+		n := 1
+		if len(t) > 1 {
+			var err error
+			if n, err = strconv.Atoi(string(t[:len(t)-1])); err != nil || n == 0 {
+				return nil
+			}
+		}
+		if t[len(t)-1] == '-' {
+			n = -n
+		}
+		return []ionKey{{core, n}}
+	}
+	t := []rune(folded)
 	if len(t) < 2 {
 		return nil
 	}
