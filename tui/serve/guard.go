@@ -25,7 +25,7 @@ type guard struct {
 	inner    tea.Model
 	shutdown func(reason string) tea.Msg
 	report   func(where string, value any, stack []byte)
-	quit     func() // asks the program to quit from outside the event loop
+	send     func(tea.Msg) // sends to the program from outside the event loop
 
 	mu     sync.Mutex
 	failed bool
@@ -98,9 +98,10 @@ func (g *guard) View() (view string) {
 	defer func() {
 		if r := recover(); r != nil {
 			g.fail("View", r)
-			if g.quit != nil {
-				// The event loop is busy drawing this frame: quit from outside it.
-				go g.quit()
+			if g.send != nil {
+				// The event loop is busy drawing this frame: have the next
+				// Update save and quit.
+				go g.send(cmdPanicked{})
 			}
 			view = "enthalpath: this session hit an internal error and is closing.\n"
 		}

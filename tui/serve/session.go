@@ -84,7 +84,23 @@ func (s *Server) handle(sess ssh.Session) {
 		sess.Context().SetValue(authLoggedKey{}, true)
 		log.Info("authenticated", "method", "publickey")
 	}
-	exit, reason := s.run(sess, id, start, log)
+	// Shutdown waits for every session counted here, until its exit
+	// status is sent.
+	s.mu.Lock()
+	closing := s.closing
+	if !closing {
+		s.sessWG.Add(1)
+	}
+	s.mu.Unlock()
+	var exit int
+	var reason string
+	if closing {
+		exit, reason = refuse(sess, log, ExitShutdown, "server shutting down",
+			"the server is shutting down; please try again later")
+	} else {
+		defer s.sessWG.Done()
+		exit, reason = s.run(sess, id, start, log)
+	}
 	log.Info("session end", "exit", exit, "reason", reason, "duration", time.Since(start).Round(time.Millisecond).String())
 	_ = sess.Exit(exit)
 }
@@ -159,7 +175,7 @@ func (s *Server) run(sess ssh.Session, id uint64, start time.Time, log *slog.Log
 		tea.WithoutSignalHandler(),
 		tea.WithAltScreen(),
 	)
-	g.quit = prog.Quit
+	g.send = prog.Send
 
 	ls := &liveSession{prog: prog, shutdown: s.cfg.ShutdownMsg, log: log}
 	s.mu.Lock()
@@ -169,13 +185,11 @@ func (s *Server) run(sess ssh.Session, id uint64, start time.Time, log *slog.Log
 			"the server is shutting down; please try again later")
 	}
 	s.sessions[ls] = struct{}{}
-	s.sessWG.Add(1)
 	s.mu.Unlock()
 	defer func() {
 		s.mu.Lock()
 		delete(s.sessions, ls)
 		s.mu.Unlock()
-		s.sessWG.Done()
 	}()
 	log.Info("session start", "term", pty.Term, "width", pty.Window.Width, "height", pty.Window.Height,
 		"colour_profile", profileName(renderer.ColorProfile()), "dark_background", renderer.HasDarkBackground(),
