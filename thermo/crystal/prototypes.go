@@ -319,10 +319,10 @@ func Prototypes() []Prototype {
 				s := place(nil, "A", 2, fcc, Vec3{1.0 / 8, 1.0 / 8, 1.0 / 8}, Vec3{7.0 / 8, 3.0 / 8, 3.0 / 8})
 				s = place(s, "B", 3, fcc, Vec3{0.5, 0.5, 0.5}, Vec3{0.25, 0.75, 0}, Vec3{0.75, 0, 0.25}, Vec3{0, 0.25, 0.75})
 				s = place(s, "X", -2, fcc,
-					Vec3{u, u, u}, Vec3{-u + 0.75, -u + 0.25, u + 0.5},
-					Vec3{-u + 0.25, u + 0.5, -u + 0.75}, Vec3{u + 0.5, -u + 0.75, -u + 0.25},
-					Vec3{-u, -u, -u}, Vec3{u + 0.25, -u + 0.75, u + 0.5},
-					Vec3{u + 0.75, u + 0.5, -u + 0.25}, Vec3{-u + 0.5, u + 0.25, u + 0.75})
+					Vec3{u, u, u}, Vec3{-u, -u, -u},
+					Vec3{-u + 0.25, u, -u + 0.25}, Vec3{-u, u + 0.25, u + 0.25},
+					Vec3{-u + 0.75, -u + 0.75, u}, Vec3{u + 0.25, -u + 0.5, u + 0.75},
+					Vec3{u, -u + 0.75, -u + 0.75}, Vec3{u + 0.25, u + 0.25, -u})
 				return cubic(p["a"]), s, nil
 			},
 			formulaUnits: 8,

@@ -31,7 +31,7 @@
 //     E_fu = −A·z₊·|z₋|·e²/(4πε₀·d), where E_fu is the energy per formula
 //     unit, d the shortest cation–anion distance and z₊, z₋ the charges of
 //     the ions of that shortest pair. Rock salt gives A = 1.747565; fluorite,
-//     with z₊·|z₋| = 2, gives 2.519393. Tables that refer A to another
+//     with z₊·|z₋| = 2, gives 2.51939. Tables that refer A to another
 //     distance or charge product differ by the ratio of those; the energy
 //     per formula unit does not depend on the convention.
 //
