@@ -472,6 +472,9 @@ func (rd *reader) sites(opt Options) ([]asymSite, error) {
 
 // crystal reads the whole block.
 func (rd *reader) crystal(opt Options, tol float64) (*crystal.Crystal, error) {
+	if !rd.b.has("_atom_site_fract_x") {
+		return nil, rd.errf(rd.b.line, "_atom_site_fract_x", ErrNoSites, "data_%s gives no fractional atom coordinates", rd.b.name)
+	}
 	lat, err := rd.lattice()
 	if err != nil {
 		return nil, err

@@ -39,7 +39,8 @@ func (op Symop) det() float64 {
 //
 // Each expression is a sum of terms; a term is a signed variable (x, y or z,
 // either case), a signed number (integer, decimal or fraction p/q), or a
-// number times a variable ("2x", "2*x", "x*2", "1/2x"). Spaces are ignored.
+// whole number times a variable ("2x", "2*x", "x*2"): the rotation part of
+// a crystallographic operation is an integer matrix. Spaces are ignored.
 // The rotation part must have determinant ±1, as every crystallographic
 // operation does. Errors are *SymopError with the 1-based column at fault.
 func ParseSymop(s string) (Symop, error) {
@@ -131,18 +132,29 @@ func (p *symopParser) term(op *Symop, row int, sign float64) error {
 		if p.pos < len(p.src) && p.src[p.pos] == '*' {
 			p.pos++
 			p.skipSpace()
+			at := p.pos
 			x, err := p.number()
 			if err != nil {
 				return err
+			}
+			if x != math.Trunc(x) {
+				return p.fail("coefficient "+strconv.FormatFloat(x, 'g', -1, 64)+" is not a whole number (rotation parts are integer)", at)
 			}
 			coef = x
 		}
 		op.Rot[row][axis] += sign * coef
 		return nil
 	}
+	at := p.pos
 	x, err := p.number()
 	if err != nil {
 		return err
+	}
+	whole := func() error {
+		if x != math.Trunc(x) {
+			return p.fail("coefficient "+strconv.FormatFloat(x, 'g', -1, 64)+" is not a whole number (rotation parts are integer)", at)
+		}
+		return nil
 	}
 	p.skipSpace()
 	if p.pos < len(p.src) && p.src[p.pos] == '*' {
@@ -152,10 +164,16 @@ func (p *symopParser) term(op *Symop, row int, sign float64) error {
 		if !ok {
 			return p.fail("expected x, y or z after '*'", p.pos)
 		}
+		if err := whole(); err != nil {
+			return err
+		}
 		op.Rot[row][axis] += sign * x
 		return nil
 	}
 	if axis, ok := p.variable(); ok {
+		if err := whole(); err != nil {
+			return err
+		}
 		op.Rot[row][axis] += sign * x
 		return nil
 	}
