@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"log/slog"
 	"net"
+	"path/filepath"
 	"time"
 
 	tea "github.com/charmbracelet/bubbletea"
@@ -64,6 +65,13 @@ type Config struct {
 	// StateDir holds users/<hex fingerprint>/ folders.
 	StateDir string
 
+	// RecoveryFile is the base name of a user's recovery file inside their
+	// folder (default "recovered.cycle"). The name is the same from one
+	// session to the next, so a new session can offer the work an earlier
+	// one left; a user's second concurrent session gets "recovered-2.cycle",
+	// and so on, so concurrent sessions never write over each other.
+	RecoveryFile string
+
 	MaxSessions   int
 	IdleTimeout   time.Duration
 	MaxInputLen   int
@@ -88,6 +96,9 @@ var (
 
 func (c *Config) withDefaults() (Config, error) {
 	out := *c
+	if out.RecoveryFile == "" {
+		out.RecoveryFile = "recovered.cycle"
+	}
 	if out.MaxSessions == 0 {
 		out.MaxSessions = DefaultMaxSessions
 	}
@@ -117,6 +128,8 @@ func (c *Config) withDefaults() (Config, error) {
 		return out, fmt.Errorf("%w: HostKeyPath is empty", ErrConfig)
 	case out.StateDir == "":
 		return out, fmt.Errorf("%w: StateDir is empty", ErrConfig)
+	case out.RecoveryFile != filepath.Base(out.RecoveryFile) || out.RecoveryFile == "." || out.RecoveryFile == "..":
+		return out, fmt.Errorf("%w: RecoveryFile %q must be a plain file name", ErrConfig, out.RecoveryFile)
 	case out.NewModel == nil || out.ShutdownMsg == nil:
 		return out, fmt.Errorf("%w: NewModel and ShutdownMsg are required", ErrConfig)
 	}

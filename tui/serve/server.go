@@ -30,8 +30,11 @@ type Server struct {
 
 	mu       sync.Mutex
 	sessions map[*liveSession]struct{}
-	closing  bool
-	sessWG   sync.WaitGroup
+	// recoveryInUse holds, per user folder, the recovery-file numbers of
+	// that user's running sessions.
+	recoveryInUse map[string]map[int]bool
+	closing       bool
+	sessWG        sync.WaitGroup
 }
 
 // New checks cfg, loads or creates the host key and reads the
@@ -42,10 +45,11 @@ func New(cfg Config) (*Server, error) {
 		return nil, err
 	}
 	s := &Server{
-		cfg:      cfg,
-		log:      cfg.Logger,
-		slots:    make(chan struct{}, cfg.MaxSessions),
-		sessions: make(map[*liveSession]struct{}),
+		cfg:           cfg,
+		log:           cfg.Logger,
+		slots:         make(chan struct{}, cfg.MaxSessions),
+		sessions:      make(map[*liveSession]struct{}),
+		recoveryInUse: make(map[string]map[int]bool),
 		// Connections that have not opened a session yet (or are being
 		// refused) are bounded too, so a flood of handshakes cannot
 		// exhaust the host.

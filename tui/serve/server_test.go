@@ -224,7 +224,7 @@ func TestIdleTimeoutClosesIdleSession(t *testing.T) {
 	if err != nil || code != ExitIdle {
 		t.Fatalf("exit %d, %v; want %d", code, err, ExitIdle)
 	}
-	if msg := tm.stderr.String(); !strings.Contains(msg, "without a keystroke") || !strings.Contains(msg, "recovered-") {
+	if msg := tm.stderr.String(); !strings.Contains(msg, "without a keystroke") || !strings.Contains(msg, "recovered.cycle") {
 		t.Errorf("closing line = %q; want the idle reason and the recovery file", msg)
 	}
 	saved := recoveryFiles(t, ts, ts.key)
@@ -237,7 +237,7 @@ func TestIdleTimeoutClosesIdleSession(t *testing.T) {
 func recoveryFiles(t *testing.T, ts *testServer, key gossh.Signer) []string {
 	t.Helper()
 	dir := filepath.Join(ts.state, "users", UserFolderName(key.PublicKey()))
-	names, _ := filepath.Glob(filepath.Join(dir, "recovered-*"))
+	names, _ := filepath.Glob(filepath.Join(dir, "recovered*"))
 	var out []string
 	for _, name := range names {
 		b, err := os.ReadFile(name)
@@ -565,4 +565,27 @@ func TestLoopbackOnlyWithoutAuthorizedKeys(t *testing.T) {
 		t.Fatalf("loopback without authorized keys refused a key: %v", err)
 	}
 	client.Close()
+}
+
+func TestRecoveryFilesPerConcurrentSession(t *testing.T) {
+	ts := startServer(t, func(c *Config) { c.RecoveryFile = "kept.hesscycle" })
+	dir := filepath.Join(ts.state, "users", "u")
+	first, releaseFirst := ts.srv.claimRecovery(dir)
+	second, releaseSecond := ts.srv.claimRecovery(dir)
+	other, releaseOther := ts.srv.claimRecovery(filepath.Join(ts.state, "users", "v"))
+	defer releaseOther()
+	if filepath.Base(first) != "kept.hesscycle" || filepath.Base(second) != "kept-2.hesscycle" || filepath.Base(other) != "kept.hesscycle" {
+		t.Errorf("names = %s, %s, %s", first, second, other)
+	}
+	releaseFirst()
+	again, releaseAgain := ts.srv.claimRecovery(dir)
+	defer releaseAgain()
+	defer releaseSecond()
+	if again != first {
+		t.Errorf("a freed name is not reused: %s, want %s", again, first)
+	}
+	if _, err := New(Config{HostKeyPath: "h", StateDir: "s", RecoveryFile: "../x", NewModel: newProbe(nil),
+		ShutdownMsg: func(string) tea.Msg { return nil }}); !errors.Is(err, ErrConfig) {
+		t.Errorf("RecoveryFile ../x accepted: %v", err)
+	}
 }

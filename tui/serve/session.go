@@ -8,6 +8,7 @@ import (
 	"log/slog"
 	"os"
 	"path/filepath"
+	"strings"
 	"sync"
 	"sync/atomic"
 	"time"
@@ -99,7 +100,7 @@ func (s *Server) handle(sess ssh.Session) {
 			"the server is shutting down; please try again later")
 	} else {
 		defer s.sessWG.Done()
-		exit, reason = s.run(sess, id, start, log)
+		exit, reason = s.run(sess, log)
 	}
 	log.Info("session end", "exit", exit, "reason", reason, "duration", time.Since(start).Round(time.Millisecond).String())
 	_ = sess.Exit(exit)
@@ -112,7 +113,7 @@ func refuse(sess ssh.Session, log *slog.Logger, exit int, why, line string) (int
 	return exit, why
 }
 
-func (s *Server) run(sess ssh.Session, id uint64, start time.Time, log *slog.Logger) (int, string) {
+func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 	if cmd := sess.RawCommand(); cmd != "" || sess.Subsystem() != "" {
 		return refuse(sess, log, ExitNoTerminal, "command given",
 			"this server runs only the interactive workshop; connect without a command: ssh -t HOST")
@@ -135,7 +136,8 @@ func (s *Server) run(sess ssh.Session, id uint64, start time.Time, log *slog.Log
 		return refuse(sess, log, ExitFailure, "user folder unusable",
 			"your folder on this server could not be prepared; please tell the administrator")
 	}
-	recovery := filepath.Join(folder, recoveryName(start, id))
+	recovery, release := s.claimRecovery(folder)
+	defer release()
 
 	var dropped atomic.Int64
 	gate := newInputGate(sess, s.cfg.MaxBurst, func(n int) {
@@ -320,10 +322,35 @@ func (s *Server) userFolder(key gossh.PublicKey) (string, error) {
 	return filepath.Abs(dir)
 }
 
-// recoveryName names a session's recovery file: the UTC start time and the
-// session number, so two sessions of one user never share a file.
-func recoveryName(start time.Time, id uint64) string {
-	return fmt.Sprintf("recovered-%s-s%d.cycle", start.UTC().Format("20060102T150405Z"), id)
+// claimRecovery picks the recovery file of a new session in folder: the
+// configured name for the user's first running session, the same name
+// numbered -2, -3, ... for further concurrent ones. release frees it.
+func (s *Server) claimRecovery(folder string) (path string, release func()) {
+	s.mu.Lock()
+	defer s.mu.Unlock()
+	used := s.recoveryInUse[folder]
+	if used == nil {
+		used = make(map[int]bool)
+		s.recoveryInUse[folder] = used
+	}
+	n := 1
+	for used[n] {
+		n++
+	}
+	used[n] = true
+	name := s.cfg.RecoveryFile
+	if n > 1 {
+		ext := filepath.Ext(name)
+		name = fmt.Sprintf("%s-%d%s", strings.TrimSuffix(name, ext), n, ext)
+	}
+	return filepath.Join(folder, name), func() {
+		s.mu.Lock()
+		defer s.mu.Unlock()
+		delete(used, n)
+		if len(used) == 0 {
+			delete(s.recoveryInUse, folder)
+		}
+	}
 }
 
 // profileName names a termenv colour profile for the log.
