@@ -70,8 +70,24 @@ func (f Formula) String() string {
 			b.WriteString(strconv.Itoa(g.Count))
 		}
 	}
-	b.WriteString(chargeSuffix(f.Charge, f.multiAtom()))
+	b.WriteString(f.chargeText(len(f.Groups) == 1 && !f.Groups[0].Bracketed, f.Groups[0].Count))
 	return b.String()
+}
+
+// chargeText writes the charge so that it reads back the same: a single
+// element with count 1 takes "3+"; a single element with a count takes a
+// caret ("O2^-", "O2^2-") so the count is not read as the charge; anything
+// else "+", "-" or "^2-".
+func (f Formula) chargeText(singleElement bool, count int) string {
+	switch {
+	case f.Charge == 0:
+		return ""
+	case singleElement && count == 1:
+		return chargeSuffix(f.Charge, false)
+	case singleElement:
+		return caretIonSymbol("", f.Charge)
+	}
+	return chargeSuffix(f.Charge, true)
 }
 
 // Hill returns the formula in Hill order: C first, then H, then the other
@@ -79,18 +95,19 @@ func (f Formula) String() string {
 func (f Formula) Hill() string {
 	comp := f.Composition()
 	var b strings.Builder
-	for _, el := range hillOrder(comp) {
+	els := hillOrder(comp)
+	for _, el := range els {
 		b.WriteString(el)
 		if comp[el] != 1 {
 			b.WriteString(strconv.Itoa(comp[el]))
 		}
 	}
-	b.WriteString(chargeSuffix(f.Charge, f.multiAtom()))
+	if len(els) == 1 {
+		b.WriteString(f.chargeText(true, comp[els[0]]))
+	} else {
+		b.WriteString(f.chargeText(false, 0))
+	}
 	return b.String()
-}
-
-func (f Formula) multiAtom() bool {
-	return !(len(f.Groups) == 1 && !f.Groups[0].Bracketed && f.Groups[0].Count == 1)
 }
 
 func (f Formula) compositionKey() string { return f.Hill() }
@@ -140,7 +157,7 @@ var errTooManyAtoms = errors.New("too many atoms")
 const (
 	maxCount = 999999
 	maxDepth = 16
-	maxAtoms = 1_000_000_000
+	maxAtoms = maxCount // per element, so that Hill counts read back
 )
 
 // ParseFormula reads a chemical formula: element symbols with counts,
@@ -282,12 +299,15 @@ func (p *formulaParser) parse() (Formula, error) {
 	if len(f.Groups) == 0 {
 		return f, p.fail(0, "no elements in the formula")
 	}
-	total := 0
+	total := map[string]int{}
 	for _, g := range f.Groups {
-		for _, n := range g.atoms {
-			total += n * g.Count
-			if total > maxAtoms {
-				return f, p.fail(0, "too many atoms")
+		for el, n := range g.atoms {
+			if n > maxAtoms/g.Count {
+				return f, p.fail(0, "too many atoms of "+el)
+			}
+			total[el] += n * g.Count
+			if total[el] > maxAtoms {
+				return f, p.fail(0, "too many atoms of "+el+" (at most 999999)")
 			}
 		}
 	}
@@ -392,7 +412,7 @@ func (p *formulaParser) bracket(depth int) (string, map[string]int, error) {
 			}
 			return text.String(), atoms, nil
 		case c == ')' || c == ']' || c == '}':
-			return "", nil, p.fail(col, strconv.QuoteRune(c)+" does not close "+strconv.QuoteRune(open)+" opened at column "+strconv.Itoa(openCol))
+			return "", nil, p.fail(col, strconv.QuoteRune(c)+" does not close "+strconv.QuoteRune(open)+" opened at column "+strconv.Itoa(openCol-1))
 		case isUpper(c):
 			sym, err := p.symbol()
 			if err != nil {
