@@ -3,6 +3,7 @@ package cycle
 import (
 	"fmt"
 	"math"
+	"strings"
 )
 
 func (c *Cycle) handbook(l LatticeValue) *Handbook {
@@ -41,25 +42,32 @@ func (c *Cycle) commentary(r *Result) (notes, warnings []string) {
 	} else {
 		notes = append(notes, fmt.Sprintf("ionization and attachment steps include ±5/2·RT = %.3f kJ/mol per electron (298.15 K enthalpies); for a neutral salt these terms cancel, so the lattice value equals the 0 K-convention one", h))
 	}
-	notes = append(notes, fmt.Sprintf("lattice: ΔH_L − U = %+.3f kJ/mol for the dissociation (Jenkins 2005: Σ n_i(n/2 − 2)RT); lattice step %.1f kJ/mol as −ΔH_L, %.1f kJ/mol as −U",
-		r.Lattice.Correction, r.Lattice.Enthalpy, r.Lattice.Energy))
+	notes = append(notes, fmt.Sprintf("lattice step (gaseous ions → solid): %.1f kJ/mol as an enthalpy, %.1f kJ/mol as an energy U; they differ by %+.3f kJ/mol (Jenkins 2005: ΔH_L = U + Σ nᵢ(nᵢ/2 − 2)RT for the dissociation, n = 3 monatomic, 5 linear, 6 non-linear ions)",
+		r.Lattice.Enthalpy, r.Lattice.Energy, r.Lattice.Enthalpy-r.Lattice.Energy))
 	notes = append(notes, "attachment steps are attachment enthalpies, the negatives of the electron affinities")
 	notes = append(notes, "uncertainties: independent inputs, root sum of squares with multiplicities")
+	var memory, defaults []string
 	for i := range r.Steps {
 		s := &r.Steps[i]
 		if s.Source.Kind == SourceSum || (s.Parent != "" && !c.inSum(i)) {
 			continue
 		}
-		switch {
-		case s.Source.Derived:
-			warnings = append(warnings, fmt.Sprintf("%s is itself cycle-derived in the data (%s); replace it with --set %s=VALUE if you have a better value",
+		if s.Source.Derived {
+			warnings = append(warnings, fmt.Sprintf("%s is itself cycle-derived in the data (%s), not measured; replace it with --set %s=VALUE if you have a better value",
 				s.Key, s.Source.Key, s.Key))
-		case s.Source.DefaultUncertainty:
-			warnings = append(warnings, fmt.Sprintf("%s: the source states no uncertainty; the default %g kJ/mol for its kind is used", s.Key, s.Uncertainty))
+		}
+		if s.Source.DefaultUncertainty {
+			defaults = append(defaults, fmt.Sprintf("%s ±%.2g", s.Key, s.Uncertainty))
 		}
 		if s.Source.Memory {
-			warnings = append(warnings, fmt.Sprintf("%s: value entered from memory (%s); check it against the source", s.Key, s.Source.Key))
+			memory = append(memory, s.Key)
 		}
+	}
+	if len(defaults) > 0 {
+		warnings = append(warnings, "no uncertainty stated by the source, default of the kind used (kJ/mol): "+strings.Join(defaults, ", "))
+	}
+	if len(memory) > 0 {
+		warnings = append(warnings, "values entered in the data from memory (check them against the cited source): "+strings.Join(memory, ", "))
 	}
 	if c.Settings.LatticeFrom != "" {
 		notes = append(notes, "lattice step taken from the "+c.Settings.LatticeFrom+" model with its default relative uncertainty (common practice, no source)")

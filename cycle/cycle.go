@@ -47,6 +47,8 @@ type Cycle struct {
 	Conventions Conventions
 	// Settings for the models and output; change them freely.
 	Settings Settings
+	// Note is free text saved with the cycle file.
+	Note string
 
 	memo *Memo
 }

@@ -1,6 +1,23 @@
 package cycle
 
-import "enthalpath/data"
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"os"
+	"path/filepath"
+	"regexp"
+	"slices"
+	"strconv"
+	"strings"
+
+	"github.com/BurntSushi/toml"
+
+	"enthalpath/data"
+	"enthalpath/thermo"
+)
 
 // FileFormat is the name written in every cycle file, FileVersion its
 // version; FileExtension is the usual file name ending.
@@ -10,21 +27,397 @@ const (
 	FileExtension = ".hesscycle"
 )
 
+// MaxFileSize bounds what Unmarshal and Open read (1 MiB: a cycle file is a
+// few kilobytes).
+const MaxFileSize = 1 << 20
+
+type fileDoc struct {
+	Format   string `toml:"format"`
+	Version  int    `toml:"version"`
+	Note     string `toml:"note,omitempty"`
+	Compound string `toml:"compound"`
+	Cation   string `toml:"cation"`
+	Anion    string `toml:"anion"`
+	// Solve lists the unknown steps (normally one).
+	Solve       []string      `toml:"solve"`
+	Conventions fileConv      `toml:"conventions"`
+	Models      fileModels    `toml:"models"`
+	Steps       []fileStepDoc `toml:"step"`
+}
+
+type fileConv struct {
+	Lattice    string `toml:"lattice"`
+	Ionization string `toml:"ionization"`
+}
+
+type fileModels struct {
+	LatticeFrom  string             `toml:"lattice_from,omitempty"`
+	Rho          float64            `toml:"rho,omitempty"`
+	BornExponent float64            `toml:"born_exponent,omitempty"`
+	Radius       string             `toml:"radius"`
+	CationCN     int                `toml:"cation_cn,omitempty"`
+	AnionCN      int                `toml:"anion_cn,omitempty"`
+	D0           string             `toml:"d0"`
+	Structure    string             `toml:"structure,omitempty"`
+	Params       map[string]float64 `toml:"params,omitempty"`
+	CIF          string             `toml:"cif,omitempty"`
+	Accuracy     float64            `toml:"accuracy,omitempty"`
+	Units        string             `toml:"units"`
+}
+
+type fileStepDoc struct {
+	Key          string  `toml:"key"`
+	Reaction     string  `toml:"reaction"`
+	Value        float64 `toml:"value"`
+	Uncertainty  float64 `toml:"uncertainty"`
+	Multiplicity float64 `toml:"multiplicity"`
+	Source       string  `toml:"source"`
+	SourceKey    string  `toml:"source_key,omitempty"`
+	Override     bool    `toml:"override,omitempty"`
+	Memory       bool    `toml:"memory,omitempty"`
+	Derived      bool    `toml:"derived,omitempty"`
+	Unknown      bool    `toml:"unknown,omitempty"`
+}
+
 // Marshal writes c as a cycle file (TOML, see the README section "Cycle
-// files"): the compound, every step with its value, uncertainty, source and
-// override flag, the unknown, the conventions and the model settings.
-func Marshal(c *Cycle) ([]byte, error) { return marshal(c) }
+// files"): the compound and its ions, every step with its value,
+// uncertainty, source and override flag, the unknown, the conventions and
+// the model settings. The output is deterministic.
+func Marshal(c *Cycle) ([]byte, error) {
+	doc := fileDoc{Format: FileFormat, Version: FileVersion, Compound: c.Formula,
+		Cation: c.Cation.Ion.Symbol, Anion: c.Anion.Ion.Symbol, Solve: c.Unknowns(), Note: c.Note}
+	if doc.Solve == nil {
+		doc.Solve = []string{}
+	}
+	doc.Conventions = fileConv{Lattice: c.Conventions.Lattice.String(), Ionization: c.Conventions.Ionization.String()}
+	st := c.Settings
+	m := fileModels{LatticeFrom: st.LatticeFrom, Rho: st.Rho, BornExponent: st.BornExponent, Radius: st.Radius.String(),
+		CationCN: st.CationCN, AnionCN: st.AnionCN, D0: st.Distance.String(), Accuracy: st.Accuracy, Units: st.Units.Key()}
+	if st.Distance == DistanceUser {
+		m.D0 = strconv.FormatFloat(st.D0, 'g', -1, 64)
+	}
+	if st.Structure.Cell != nil || st.Structure.CIF != "" {
+		m.CIF = st.Structure.CIF
+	} else if !st.Structure.FromData {
+		m.Structure = st.Structure.Prototype
+		m.Params = st.Structure.Params
+	}
+	doc.Models = m
+	for _, s := range c.Steps {
+		doc.Steps = append(doc.Steps, fileStepDoc{Key: s.Key, Reaction: s.Reaction, Value: s.Value, Uncertainty: s.Uncertainty,
+			Multiplicity: s.Multiplicity, Source: s.Source.Kind.String(), SourceKey: s.Source.Key, Override: s.Source.Override,
+			Memory: s.Source.Memory, Derived: s.Source.Derived, Unknown: s.Unknown})
+	}
+	var buf bytes.Buffer
+	buf.WriteString("# enthalpath cycle file: a Born–Haber cycle with its values, sources and settings.\n")
+	buf.WriteString("# Energies in kJ/mol per reaction as written. Only steps with source = \"user\" are\n")
+	buf.WriteString("# read back as values; the others are rebuilt from the data when the file is opened.\n")
+	enc := toml.NewEncoder(&buf)
+	enc.Indent = ""
+	if err := enc.Encode(doc); err != nil {
+		return nil, fmt.Errorf("cycle %s: encoding the cycle file: %w", c.Formula, err)
+	}
+	return buf.Bytes(), nil
+}
 
 // Unmarshal reads a cycle file: it rebuilds the compound's cycle from db
-// and applies the file's values, unknowns, conventions and settings. A
-// malformed file gives a *FileError with the line and field. A structure
+// and applies the file's user values, unknowns, conventions and settings.
+// A malformed file gives a *FileError with the line and field. A structure
 // read from a CIF file is recorded by path only: the caller parses the CIF
 // and sets Settings.Structure.Cell (this package reads no file but in Open).
 func Unmarshal(db *data.DB, b []byte) (*Cycle, error) { return unmarshal(db, b, "") }
 
+var lineInMessage = regexp.MustCompile(`line (\d+)`)
+var lastKeyInMessage = regexp.MustCompile(`last key "([^"]*)"`)
+
+func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
+	fail := func(line int, field, reason string, err error) (*Cycle, error) {
+		return nil, &FileError{Path: path, Line: line, Field: field, Reason: reason, Err: err}
+	}
+	if len(b) > MaxFileSize {
+		return fail(0, "", fmt.Sprintf("file is %d bytes, more than the %d a cycle file may have", len(b), MaxFileSize), nil)
+	}
+	text := string(b)
+	var doc fileDoc
+	md, err := toml.Decode(text, &doc)
+	if err != nil {
+		var pe toml.ParseError
+		if errors.As(err, &pe) {
+			return fail(pe.Position.Line, pe.LastKey, pe.Message, nil)
+		}
+		line := 0
+		if m := lineInMessage.FindStringSubmatch(err.Error()); m != nil {
+			line, _ = strconv.Atoi(m[1])
+		}
+		field := ""
+		if m := lastKeyInMessage.FindStringSubmatch(err.Error()); m != nil {
+			field = m[1]
+		}
+		msg := err.Error()
+		if i := strings.LastIndex(msg, "): "); i >= 0 {
+			msg = msg[i+3:]
+		}
+		return fail(line, field, strings.TrimPrefix(msg, "toml: "), nil)
+	}
+	if und := md.Undecoded(); len(und) > 0 {
+		k := und[0].String()
+		return fail(findKeyLine(text, und[0]), k, "unknown field (a newer file version, or a typing error?)", nil)
+	}
+	lineOf := func(key ...string) int { return findKeyLine(text, toml.Key(key)) }
+	if doc.Format != FileFormat {
+		return fail(lineOf("format"), "format", fmt.Sprintf("is %q, expected %q: not an enthalpath cycle file", doc.Format, FileFormat), nil)
+	}
+	if doc.Version < 1 || doc.Version > FileVersion {
+		return fail(lineOf("version"), "version", fmt.Sprintf("%d is not a version this program reads (1 to %d)", doc.Version, FileVersion), nil)
+	}
+	if strings.TrimSpace(doc.Compound) == "" {
+		return fail(lineOf("compound"), "compound", "missing: give the compound's formula", nil)
+	}
+	var conv Conventions
+	if doc.Conventions.Lattice != "" {
+		if conv.Lattice, err = ParseLatticeConvention(doc.Conventions.Lattice); err != nil {
+			return fail(lineOf("conventions", "lattice"), "conventions.lattice", err.Error(), nil)
+		}
+	}
+	if doc.Conventions.Ionization != "" {
+		if conv.Ionization, err = ParseIonizationConvention(doc.Conventions.Ionization); err != nil {
+			return fail(lineOf("conventions", "ionization"), "conventions.ionization", err.Error(), nil)
+		}
+	}
+	set, ferr := doc.Models.settings(text, path)
+	if ferr != nil {
+		return nil, ferr
+	}
+	opt := Options{Conventions: conv, Settings: set}
+	c, err := Build(db, doc.Compound, opt)
+	if err == nil && doc.Cation != "" && doc.Anion != "" && (c.Cation.Ion.Symbol != doc.Cation || c.Anion.Ion.Symbol != doc.Anion) {
+		opt.Cation, opt.Anion = doc.Cation, doc.Anion
+		c, err = Build(db, doc.Compound, opt)
+	}
+	if err != nil {
+		return fail(lineOf("compound"), "compound", "cannot build the cycle", err)
+	}
+	c.Note = doc.Note
+	// Unknowns: clear Build's default, then mark the file's.
+	for i := range c.Steps {
+		c.Steps[i].Unknown = false
+		c.reset(i)
+	}
+	for i, s := range doc.Steps {
+		field := fmt.Sprintf("step[%d]", i+1)
+		line := findTableLine(text, "step", i, "key")
+		if _, ok := c.Step(s.Key); !ok {
+			return fail(line, field+".key", fmt.Sprintf("no step %q in the cycle of %s (steps: %s)", s.Key, c.Formula, strings.Join(c.Keys(), ", ")), nil)
+		}
+		switch s.Source {
+		case "user":
+			if math.IsNaN(s.Value) || math.IsInf(s.Value, 0) {
+				return fail(findTableLine(text, "step", i, "value"), field+".value", "not a finite number", nil)
+			}
+			if math.IsNaN(s.Uncertainty) || math.IsInf(s.Uncertainty, 0) || s.Uncertainty < 0 {
+				return fail(findTableLine(text, "step", i, "uncertainty"), field+".uncertainty", "must be a finite number ≥ 0", nil)
+			}
+			if err := c.Set(s.Key, s.Value, s.Uncertainty); err != nil {
+				return fail(line, field, "cannot set the value", err)
+			}
+		case "data", "model", "solved", "sum", "missing", "":
+		default:
+			return fail(findTableLine(text, "step", i, "source"), field+".source",
+				fmt.Sprintf("%q is not a source kind (data, user, model, solved, sum, missing)", s.Source), nil)
+		}
+		if s.Unknown {
+			c.Steps[slices.IndexFunc(c.Steps, func(t Step) bool { return t.Key == s.Key })].Unknown = true
+		}
+	}
+	for _, k := range doc.Solve {
+		if err := c.MarkUnknown(k); err != nil {
+			return fail(lineOf("solve"), "solve", err.Error(), nil)
+		}
+	}
+	return c, nil
+}
+
+func (m fileModels) settings(text, path string) (Settings, *FileError) {
+	var s Settings
+	var err error
+	bad := func(key, reason string) (Settings, *FileError) {
+		return Settings{}, &FileError{Path: path, Line: findKeyLine(text, toml.Key{"models", key}), Field: "models." + key, Reason: reason}
+	}
+	if m.LatticeFrom != "" {
+		if s.LatticeFrom, err = ParseModel(m.LatticeFrom); err != nil {
+			return bad("lattice_from", err.Error())
+		}
+	}
+	if m.Rho < 0 || math.IsNaN(m.Rho) || math.IsInf(m.Rho, 0) {
+		return bad("rho", "must be a positive distance in Å (or absent for the default)")
+	}
+	s.Rho = m.Rho
+	if m.BornExponent != 0 && !(m.BornExponent > 1 && m.BornExponent < 100) {
+		return bad("born_exponent", "must be greater than 1 (or absent for Pauling's values)")
+	}
+	s.BornExponent = m.BornExponent
+	if m.Radius != "" {
+		if s.Radius, err = ParseRadiusKind(m.Radius); err != nil {
+			return bad("radius", err.Error())
+		}
+	}
+	if m.CationCN < 0 || m.CationCN > 16 {
+		return bad("cation_cn", "a coordination number is between 1 and 16 (0 for the structure's)")
+	}
+	if m.AnionCN < 0 || m.AnionCN > 16 {
+		return bad("anion_cn", "a coordination number is between 1 and 16 (0 for the structure's)")
+	}
+	s.CationCN, s.AnionCN = m.CationCN, m.AnionCN
+	if m.D0 != "" {
+		if s.Distance, s.D0, err = ParseDistance(m.D0); err != nil {
+			return bad("d0", err.Error())
+		}
+	}
+	if m.Structure != "" {
+		s.Structure = Structure{Prototype: m.Structure, Params: m.Params}
+	}
+	if m.CIF != "" {
+		s.Structure = Structure{CIF: m.CIF}
+	}
+	if m.Accuracy != 0 && !(m.Accuracy > 0 && m.Accuracy <= 1e-2) {
+		return bad("accuracy", "the Ewald accuracy lies between 0 and 0.01")
+	}
+	s.Accuracy = m.Accuracy
+	if m.Units != "" {
+		if s.Units, err = thermo.ParseUnit(m.Units); err != nil {
+			return bad("units", err.Error())
+		}
+	}
+	return s, nil
+}
+
+// ParseDistance reads a d₀ setting: auto, geometry, radii, or a distance in Å.
+func ParseDistance(s string) (DistanceSource, float64, error) {
+	t := strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(s), "Å"))
+	if v, err := parseNumber(t); err == nil {
+		if !(v > 0.5 && v < 20) {
+			return 0, 0, fmt.Errorf("d₀ = %g Å is not a cation–anion distance (0.5 to 20 Å)", v)
+		}
+		return DistanceUser, v, nil
+	}
+	d, err := ParseDistanceSource(s)
+	if d == DistanceUser && err == nil {
+		return 0, 0, fmt.Errorf("give d₀ as a distance in Å, e.g. 2.81")
+	}
+	return d, 0, err
+}
+
+// findKeyLine returns the 1-based line of key (a dotted path outside arrays
+// of tables), or 0.
+func findKeyLine(text string, key toml.Key) int {
+	table, want := "", key[len(key)-1]
+	if len(key) > 1 {
+		table = strings.Join(key[:len(key)-1], ".")
+	}
+	cur := ""
+	for i, line := range strings.Split(text, "\n") {
+		t := strings.TrimSpace(line)
+		if strings.HasPrefix(t, "[") {
+			cur = strings.Trim(t, "[] ")
+			continue
+		}
+		if cur == table && keyOfLine(t) == want {
+			return i + 1
+		}
+	}
+	return 0
+}
+
+// findTableLine returns the line of field in the n-th (0-based) [[name]]
+// table, or of the table header when the field is absent.
+func findTableLine(text, name string, n int, field string) int {
+	count, header := -1, 0
+	for i, line := range strings.Split(text, "\n") {
+		t := strings.TrimSpace(line)
+		if strings.HasPrefix(t, "[") {
+			if count == n {
+				return header
+			}
+			if strings.Trim(t, "[] ") == name && strings.HasPrefix(t, "[[") {
+				count++
+				header = i + 1
+			}
+			continue
+		}
+		if count == n && keyOfLine(t) == field {
+			return i + 1
+		}
+	}
+	if count == n {
+		return header
+	}
+	return 0
+}
+
+func keyOfLine(t string) string {
+	k, _, ok := strings.Cut(t, "=")
+	if !ok {
+		return ""
+	}
+	return strings.Trim(strings.TrimSpace(k), `"`)
+}
+
 // Save writes c to path atomically: a temporary file in the same folder,
 // synced, then renamed over path, so a crash never leaves a truncated file.
-func Save(path string, c *Cycle) error { return save(path, c) }
+func Save(path string, c *Cycle) error {
+	b, err := Marshal(c)
+	if err != nil {
+		return err
+	}
+	return WriteFileAtomic(path, b)
+}
+
+// WriteFileAtomic writes b to path through a synced temporary file in the
+// same folder and a rename.
+func WriteFileAtomic(path string, b []byte) (err error) {
+	dir := filepath.Dir(path)
+	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp-*")
+	if err != nil {
+		return fmt.Errorf("saving %s: %w", path, err)
+	}
+	defer func() {
+		if err != nil {
+			tmp.Close()
+			os.Remove(tmp.Name())
+		}
+	}()
+	if _, err = tmp.Write(b); err != nil {
+		return fmt.Errorf("saving %s: %w", path, err)
+	}
+	if err = tmp.Sync(); err != nil {
+		return fmt.Errorf("saving %s: %w", path, err)
+	}
+	if err = tmp.Close(); err != nil {
+		return fmt.Errorf("saving %s: %w", path, err)
+	}
+	if err = os.Chmod(tmp.Name(), 0o644); err != nil {
+		return fmt.Errorf("saving %s: %w", path, err)
+	}
+	if err = os.Rename(tmp.Name(), path); err != nil {
+		return fmt.Errorf("saving %s: %w", path, err)
+	}
+	if d, derr := os.Open(dir); derr == nil {
+		d.Sync()
+		d.Close()
+	}
+	return nil
+}
 
 // Open reads the cycle file at path (see Unmarshal).
-func Open(db *data.DB, path string) (*Cycle, error) { return open(db, path) }
+func Open(db *data.DB, path string) (*Cycle, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, &FileError{Path: path, Reason: "cannot open", Err: err}
+	}
+	defer f.Close()
+	var buf bytes.Buffer
+	if _, err := buf.ReadFrom(io.LimitReader(f, MaxFileSize+1)); err != nil {
+		return nil, &FileError{Path: path, Reason: "cannot read", Err: err}
+	}
+	return unmarshal(db, buf.Bytes(), path)
+}

@@ -112,6 +112,9 @@ func sumStructure(st Structure, cation, anion Part, accuracy float64) (MadelungV
 	if st.Cell != nil {
 		cell = st.Cell
 	} else {
+		if st.CIF != "" {
+			return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: "the CIF file " + st.CIF + " has not been read; open it with --structure FILE.cif"}
+		}
 		if st.Prototype == "" {
 			return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: "no structure chosen"}
 		}

@@ -187,7 +187,7 @@ type Structure struct {
 }
 
 // Empty reports whether no structure is chosen.
-func (s Structure) Empty() bool { return s.Prototype == "" && s.Cell == nil }
+func (s Structure) Empty() bool { return s.Prototype == "" && s.Cell == nil && s.CIF == "" }
 
 // Name returns the prototype name, the CIF path, or "".
 func (s Structure) Name() string {

@@ -1,4 +1,277 @@
 package cli
 
-// runCompare is replaced by the real command when its engine lands.
-func runCompare(env Env, args []string) error { return errNotBuilt }
+import (
+	"encoding/csv"
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+
+	"enthalpath/cycle"
+	"enthalpath/data"
+)
+
+const compareSynopsis = "compare FORMULA... | --all [--csv|--json] [model flags]"
+
+// CompareRow is one compound of a comparison: its cycle lattice value and
+// every model beside it, or the reason the cycle could not close.
+type CompareRow struct {
+	Formula, Family string
+	// Lattice is the cycle's lattice step in the convention in force.
+	Lattice     float64
+	Uncertainty float64
+	// Handbook is the data's lattice value as a step in the same
+	// convention (NaN when absent).
+	Handbook float64
+	Models   []cycle.ModelResult
+	// Err is why the cycle could not be solved (the row has no numbers).
+	Err error
+}
+
+// compareRows builds and solves the cycle of each formula with the same
+// settings, sharing one Madelung memo.
+func compareRows(db *data.DB, formulas []string, mf *modelFlags, set map[string]bool) ([]CompareRow, error) {
+	conv, err := mf.conventions()
+	if err != nil {
+		return nil, err
+	}
+	memo := cycle.NewMemo()
+	rows := make([]CompareRow, 0, len(formulas))
+	for _, f := range formulas {
+		row := CompareRow{Formula: f, Handbook: math.NaN(), Lattice: math.NaN(), Uncertainty: math.NaN()}
+		c, err := cycle.Build(db, f, cycle.Options{Conventions: conv, Memo: memo})
+		if err != nil {
+			row.Err = err
+			rows = append(rows, row)
+			continue
+		}
+		row.Formula, row.Family = c.Formula, c.Family
+		local := map[string]bool{}
+		for k, v := range set {
+			local[k] = v
+		}
+		local["lattice-as"], local["ionization-at"] = false, false
+		if err := mf.apply(c, local, false); err != nil {
+			return nil, err
+		}
+		r, err := cycle.Solve(c)
+		if err != nil {
+			row.Err = err
+			rows = append(rows, row)
+			continue
+		}
+		row.Lattice, row.Uncertainty, row.Models = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models
+		if r.Handbook != nil {
+			row.Handbook = r.Handbook.Value
+		}
+		rows = append(rows, row)
+	}
+	return rows, nil
+}
+
+func runCompare(env Env, args []string) error {
+	fs := newFlagSet("compare", compareSynopsis, env.Stderr)
+	var mf modelFlags
+	mf.register(fs)
+	var all, asCSV, asJSON bool
+	fs.BoolVar(&all, "all", false, "every built-in (and overlay) compound")
+	fs.BoolVar(&asCSV, "csv", false, "print CSV")
+	fs.BoolVar(&asJSON, "json", false, "print JSON")
+	pos, err := parseInterleaved(fs, args)
+	if err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			return nil
+		}
+		return &UsageError{err}
+	}
+	set := map[string]bool{}
+	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
+	switch {
+	case asCSV && asJSON:
+		return Usagef("choose one of --csv and --json")
+	case all && len(pos) > 0:
+		return Usagef("give formulas or --all, not both")
+	case !all && len(pos) == 0:
+		return Usagef("no formula: usage: enthalpath %s", compareSynopsis)
+	}
+	if set["structure"] && len(pos) != 1 {
+		return Usagef("--structure applies to one compound; compare each compound's own structure by leaving it out")
+	}
+	db, err := loadData(env)
+	if err != nil {
+		return err
+	}
+	formulas := pos
+	if all {
+		for _, c := range db.Compounds() {
+			formulas = append(formulas, c.Formula)
+		}
+	}
+	rows, err := compareRows(db, formulas, &mf, set)
+	if err != nil {
+		return err
+	}
+	unit := rowsUnit(&mf)
+	conv, _ := mf.conventions()
+	switch {
+	case asCSV:
+		return writeCompareCSV(env.Stdout, rows, conv.Lattice.Symbol())
+	case asJSON:
+		return writeCompareJSON(env.Stdout, rows, conv.Lattice.Symbol())
+	}
+	writeCompareText(env.Stdout, rows, unit, conv.Lattice.Symbol())
+	if !all {
+		for _, r := range rows {
+			if r.Err != nil {
+				return &UsageError{fmt.Errorf("%s: %w", r.Formula, r.Err)}
+			}
+		}
+	}
+	return nil
+}
+
+func rowsUnit(mf *modelFlags) (u thermoUnit) {
+	u, _ = parseUnitOrKJ(mf.units)
+	return u
+}
+
+func writeCompareText(w io.Writer, rows []CompareRow, u thermoUnit, conv string) {
+	head := []string{"compound", "family", "cycle " + conv}
+	for _, m := range cycle.ModelNames() {
+		head = append(head, m)
+	}
+	head = append(head, "verdict (ewald, else born-mayer)")
+	t := table{head: head, right: map[int]bool{2: true, 3: true, 4: true, 5: true, 6: true, 7: true}}
+	var failed []CompareRow
+	for _, r := range rows {
+		if r.Err != nil {
+			failed = append(failed, r)
+			continue
+		}
+		cells := []string{r.Formula, r.Family, energyPM(r.Lattice, r.Uncertainty, u)}
+		for _, name := range cycle.ModelNames() {
+			cells = append(cells, modelCell(r.Models, name))
+		}
+		cells = append(cells, headlineVerdict(r.Models))
+		t.add(cells...)
+	}
+	fmt.Fprintf(w, "cycle lattice step (%s, %s) against the ionic models: each model column is the gap cycle − model in percent of |model|\n\n", conv, u)
+	t.write(w, "")
+	fmt.Fprintf(w, "\nverdict %s\n", cycle.VerdictThresholds())
+	if len(failed) > 0 {
+		fmt.Fprintf(w, "\n%d compound(s) whose cycle does not close:\n", len(failed))
+		for _, r := range failed {
+			fmt.Fprintf(w, "  %-10s %s\n", r.Formula, wrapText(r.Err.Error(), 100, strings.Repeat(" ", 13)))
+		}
+	}
+}
+
+func modelCell(ms []cycle.ModelResult, name string) string {
+	for _, m := range ms {
+		if m.Model == name {
+			if m.Err != nil {
+				return "—"
+			}
+			return percent(m.GapPercent)
+		}
+	}
+	return "—"
+}
+
+// headlineVerdict is the verdict of the structure-specific model, or of
+// Born–Mayer when there is no structure.
+func headlineVerdict(ms []cycle.ModelResult) string {
+	for _, name := range []string{cycle.ModelEwald, cycle.ModelBornMayer, cycle.ModelKapustinkii} {
+		for _, m := range ms {
+			if m.Model == name && m.Err == nil {
+				return m.Verdict.Character.String() + " (" + name + ")"
+			}
+		}
+	}
+	return "no model available"
+}
+
+func num(v float64) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return ""
+	}
+	return strconv.FormatFloat(math.Round(v*1000)/1000, 'f', -1, 64)
+}
+
+func writeCompareCSV(w io.Writer, rows []CompareRow, conv string) error {
+	cw := csv.NewWriter(w)
+	head := []string{"formula", "family", "convention", "cycle_kj_per_mol", "uncertainty_kj_per_mol", "handbook_kj_per_mol"}
+	for _, m := range cycle.ModelNames() {
+		head = append(head, m+"_kj_per_mol", m+"_gap_kj_per_mol", m+"_gap_percent", m+"_verdict")
+	}
+	head = append(head, "status")
+	if err := cw.Write(head); err != nil {
+		return err
+	}
+	for _, r := range rows {
+		rec := []string{r.Formula, r.Family, conv, num(r.Lattice), num(r.Uncertainty), num(r.Handbook)}
+		for _, name := range cycle.ModelNames() {
+			var m *cycle.ModelResult
+			for i := range r.Models {
+				if r.Models[i].Model == name {
+					m = &r.Models[i]
+				}
+			}
+			if m == nil || m.Err != nil {
+				rec = append(rec, "", "", "", "")
+				continue
+			}
+			rec = append(rec, num(m.Value), num(m.Gap), num(m.GapPercent), m.Verdict.Character.String())
+		}
+		status := "ok"
+		if r.Err != nil {
+			status = "not closed: " + r.Err.Error()
+		}
+		rec = append(rec, status)
+		if err := cw.Write(rec); err != nil {
+			return err
+		}
+	}
+	cw.Flush()
+	return cw.Error()
+}
+
+type compareJSONRow struct {
+	Formula     string      `json:"formula"`
+	Family      string      `json:"family,omitempty"`
+	Convention  string      `json:"convention"`
+	Lattice     jsonNumber  `json:"cycle_kj_per_mol"`
+	Uncertainty jsonNumber  `json:"uncertainty_kj_per_mol"`
+	Handbook    jsonNumber  `json:"handbook_kj_per_mol"`
+	Models      []modelJSON `json:"models"`
+	Error       string      `json:"error,omitempty"`
+}
+
+func writeCompareJSON(w io.Writer, rows []CompareRow, conv string) error {
+	out := struct {
+		VerdictThresholds string           `json:"verdict_thresholds"`
+		Compounds         []compareJSONRow `json:"compounds"`
+	}{VerdictThresholds: cycle.VerdictThresholds(), Compounds: []compareJSONRow{}}
+	for _, r := range rows {
+		j := compareJSONRow{Formula: r.Formula, Family: r.Family, Convention: conv, Lattice: jsonNumber(r.Lattice),
+			Uncertainty: jsonNumber(r.Uncertainty), Handbook: jsonNumber(r.Handbook), Models: []modelJSON{}}
+		if r.Err != nil {
+			j.Error = r.Err.Error()
+		}
+		for _, m := range r.Models {
+			mj := modelJSON{Model: m.Model, KJPerMol: jsonNumber(m.Value), EnergyKJ: jsonNumber(m.Energy), Gap: jsonNumber(m.Gap), GapPercent: jsonNumber(m.GapPercent)}
+			if m.Err != nil {
+				mj.Error = m.Err.Error()
+				mj.KJPerMol, mj.EnergyKJ = jsonNumber(math.NaN()), jsonNumber(math.NaN())
+			} else {
+				mj.Verdict = m.Verdict.Character.String()
+			}
+			j.Models = append(j.Models, mj)
+		}
+		out.Compounds = append(out.Compounds, j)
+	}
+	return writeJSON(w, out)
+}

@@ -1,0 +1,203 @@
+package cli
+
+import (
+	"encoding/json"
+	"flag"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+	"unicode/utf8"
+
+	"enthalpath/data"
+	"enthalpath/thermo"
+)
+
+// loadData loads the built-in tables with the user's --data overlay, if any.
+// A broken overlay is a usage error (the user named the file).
+func loadData(env Env) (*data.DB, error) {
+	if env.DataFile == "" {
+		db, err := data.Load()
+		if err != nil {
+			return nil, fmt.Errorf("loading the built-in data: %w", err)
+		}
+		return db, nil
+	}
+	db, err := data.LoadWithUserFile(env.DataFile)
+	if err != nil {
+		return nil, &UsageError{fmt.Errorf("--data %s: %w", env.DataFile, err)}
+	}
+	return db, nil
+}
+
+// parseInterleaved parses flags that may come before, between or after the
+// positional arguments; "--" ends the flags.
+func parseInterleaved(fs *flag.FlagSet, args []string) ([]string, error) {
+	var pos []string
+	for {
+		if err := fs.Parse(args); err != nil {
+			return nil, err
+		}
+		rest := fs.Args()
+		if len(rest) == 0 {
+			return pos, nil
+		}
+		if rest[0] == "--" {
+			return append(pos, rest[1:]...), nil
+		}
+		pos = append(pos, rest[0])
+		args = rest[1:]
+	}
+}
+
+// newFlagSet makes a flag set that reports errors instead of exiting and
+// prints its usage to w.
+func newFlagSet(name, synopsis string, w io.Writer) *flag.FlagSet {
+	fs := flag.NewFlagSet(name, flag.ContinueOnError)
+	fs.SetOutput(w)
+	fs.Usage = func() {
+		fmt.Fprintf(w, "usage: enthalpath %s\n\nflags:\n", synopsis)
+		fs.PrintDefaults()
+	}
+	return fs
+}
+
+// listFlag is a repeatable string flag.
+type listFlag []string
+
+func (l *listFlag) String() string     { return strings.Join(*l, ",") }
+func (l *listFlag) Set(s string) error { *l = append(*l, s); return nil }
+
+// energy formats a value in kJ/mol in unit u with a sensible precision.
+func energy(kj float64, u thermo.Unit) string {
+	if math.IsNaN(kj) {
+		return "—"
+	}
+	v := thermo.FromKJPerMol(kj, u)
+	prec := 1
+	if u == thermo.EVPerFormulaUnit {
+		prec = 3
+	}
+	return strings.Replace(fmt.Sprintf("%.*f", prec, v), "-", "−", 1)
+}
+
+// energyPM formats value ± uncertainty in unit u.
+func energyPM(kj, unc float64, u thermo.Unit) string {
+	s := energy(kj, u)
+	if unc > 0 {
+		s += " ± " + energy(unc, u)
+	}
+	return s
+}
+
+// percent formats a percentage with its sign.
+func percent(p float64) string {
+	if math.IsNaN(p) {
+		return "—"
+	}
+	return strings.Replace(fmt.Sprintf("%+.1f %%", p), "-", "−", 1)
+}
+
+// table lays out rows in columns padded by rune count; right lists the
+// columns to right-align.
+type table struct {
+	head  []string
+	rows  [][]string
+	right map[int]bool
+}
+
+func (t *table) add(cells ...string) { t.rows = append(t.rows, cells) }
+
+func (t *table) write(w io.Writer, indent string) {
+	widths := make([]int, len(t.head))
+	all := append([][]string{t.head}, t.rows...)
+	for _, r := range all {
+		for i, c := range r {
+			if i < len(widths) {
+				widths[i] = max(widths[i], utf8.RuneCountInString(c))
+			}
+		}
+	}
+	for k, r := range all {
+		var b strings.Builder
+		b.WriteString(indent)
+		for i, c := range r {
+			if i >= len(widths) {
+				break
+			}
+			pad := strings.Repeat(" ", widths[i]-utf8.RuneCountInString(c))
+			if t.right[i] {
+				b.WriteString(pad + c)
+			} else if i == len(r)-1 {
+				b.WriteString(c)
+			} else {
+				b.WriteString(c + pad)
+			}
+			if i < len(r)-1 {
+				b.WriteString("  ")
+			}
+		}
+		fmt.Fprintln(w, strings.TrimRight(b.String(), " "))
+		if k == 0 {
+			var u strings.Builder
+			u.WriteString(indent)
+			for i := range widths {
+				u.WriteString(strings.Repeat("─", widths[i]))
+				if i < len(widths)-1 {
+					u.WriteString("  ")
+				}
+			}
+			fmt.Fprintln(w, u.String())
+		}
+	}
+}
+
+// writeJSON writes v as indented JSON with a final newline.
+func writeJSON(w io.Writer, v any) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	enc.SetEscapeHTML(false)
+	return enc.Encode(v)
+}
+
+// jsonNumber is a float that encodes NaN and infinities as null.
+type jsonNumber float64
+
+func (n jsonNumber) MarshalJSON() ([]byte, error) {
+	f := float64(n)
+	if math.IsNaN(f) || math.IsInf(f, 0) {
+		return []byte("null"), nil
+	}
+	return json.Marshal(math.Round(f*1e6) / 1e6)
+}
+
+// wrapText wraps s at width runes with the given indent on continuation lines.
+func wrapText(s string, width int, indent string) string {
+	words := strings.Fields(s)
+	var b strings.Builder
+	line := 0
+	for i, wd := range words {
+		n := utf8.RuneCountInString(wd)
+		if i > 0 && line+1+n > width {
+			b.WriteString("\n" + indent)
+			line = utf8.RuneCountInString(indent)
+		} else if i > 0 {
+			b.WriteString(" ")
+			line++
+		}
+		b.WriteString(wd)
+		line += n
+	}
+	return b.String()
+}
+
+type thermoUnit = thermo.Unit
+
+// parseUnitOrKJ reads a unit key, kJ/mol when it cannot.
+func parseUnitOrKJ(s string) (thermo.Unit, error) {
+	u, err := thermo.ParseUnit(s)
+	if err != nil {
+		return thermo.KJPerMol, err
+	}
+	return u, nil
+}
