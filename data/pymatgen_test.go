@@ -5,31 +5,25 @@ import (
 	"fmt"
 	"math"
 	"os"
-	"sort"
-	"strings"
 	"testing"
-
-	"enthalpath/thermo"
 )
 
-// Reference files written by testdata/gen_data.py from Debian's
+// Reference file written by testdata/gen_data.py from Debian's
 // python3-pymatgen 2022.11.7+dfsg1-11+deb12u2 (periodic_table.json and
 // entries/exp_compounds.json.gz). Tolerances are those of the issue:
 // ionization energies 0.01 eV, electron affinities 0.02 eV, Shannon radii
-// exactly (to the 0.001 Å printed), formation enthalpies within the larger
-// of the two stated uncertainties or 8 kJ/mol.
+// exactly (to the 0.001 Å printed). The formation enthalpies
+// (pymatgen_formation.json) are compared in compounds_data_test.go.
 const (
-	pymatgenElementsFile  = "../testdata/pymatgen_elements.json"
-	pymatgenFormationFile = "../testdata/pymatgen_formation.json"
-	ieTolerance           = 0.01 // eV
-	eaTolerance           = 0.02 // eV
-	radiusTolerance       = 5e-7 // Å: exact at the 4 decimals the file keeps
-	formationFloor        = 8.0  // kJ/mol
+	pymatgenElementsFile = "../testdata/pymatgen_elements.json"
+	ieTolerance          = 0.01 // eV
+	eaTolerance          = 0.02 // eV
+	radiusTolerance      = 5e-7 // Å: exact at the 4 decimals the file keeps
 )
 
 // acceptedDisagreements lists every comparison we accept to fail, with the
 // reason; data/README.md repeats the list. Keys: "IE <sym> <stage>",
-// "EA <sym>", "radius <sym> <charge> <cn> <spin>", "formation <formula>".
+// "EA <sym>", "radius <sym> <charge> <cn> <spin>".
 var acceptedDisagreements = map[string]string{
 	"EA Ga":   "0.43 eV is the value tabulated by Rienstra-Kiracofe et al. (2002); pymatgen carries 0.301 eV from a later photodetachment measurement",
 	"EA In":   "0.3 eV is the value tabulated by Rienstra-Kiracofe et al. (2002); pymatgen carries 0.384 eV from a later measurement",
@@ -54,14 +48,6 @@ type pymatgenElements struct {
 			Ionic   *float64 `json:"ionic_radius"`
 		} `json:"shannon"`
 	} `json:"elements"`
-}
-
-type pymatgenFormation struct {
-	Version   map[string]string `json:"version"`
-	Compounds map[string]struct {
-		EV  *float64 `json:"energy_ev_per_fu"`
-		UEV *float64 `json:"uncertainty_ev_per_fu"`
-	} `json:"compounds"`
 }
 
 func readJSON(t *testing.T, path string, v any) {
@@ -148,63 +134,7 @@ func TestAgainstPymatgen(t *testing.T) {
 		t.Errorf("too few overlapping values: %d IEs, %d EAs, %d radii", nIE, nEA, nR)
 	}
 	for key := range acceptedDisagreements {
-		if !strings.HasPrefix(key, "formation ") && !used[key] {
-			t.Errorf("accepted disagreement %q no longer occurs: remove it from the list and from data/README.md", key)
-		}
-	}
-}
-
-// Formation enthalpies of every tabulated compound that pymatgen's
-// experimental file also holds (matched by composition).
-func TestFormationAgainstPymatgen(t *testing.T) {
-	db := mustLoad(t)
-	if len(db.Compounds()) == 0 {
-		t.Skip("compounds.csv is absent")
-	}
-	var pm pymatgenFormation
-	readJSON(t, pymatgenFormationFile, &pm)
-	byComp := map[string]string{}
-	for formula := range pm.Compounds {
-		f, err := ParseFormula(formula)
-		if err != nil {
-			continue
-		}
-		k := f.compositionKey()
-		if prev, dup := byComp[k]; !dup || formula < prev {
-			byComp[k] = formula
-		}
-	}
-	used := map[string]bool{}
-	n := 0
-	var worst []string
-	for _, c := range db.Compounds() {
-		if !c.Formation.Known() {
-			continue
-		}
-		f, err := ParseFormula(c.Formula)
-		if err != nil {
-			continue
-		}
-		ref, ok := byComp[f.compositionKey()]
-		if !ok || pm.Compounds[ref].EV == nil {
-			continue
-		}
-		n++
-		rec := pm.Compounds[ref]
-		refKJ := thermo.EVToKJPerMol(*rec.EV)
-		tol := math.Max(formationFloor, c.Formation.U)
-		if rec.UEV != nil {
-			tol = math.Max(tol, thermo.EVToKJPerMol(*rec.UEV))
-		}
-		if d := math.Abs(c.Formation.V - refKJ); d > tol {
-			disagreement(t, used, "formation "+c.Formula, fmt.Sprintf("%.2f kJ/mol here, %.2f in pymatgen (%s), tolerance %.1f", c.Formation.V, refKJ, ref, tol))
-			worst = append(worst, c.Formula)
-		}
-	}
-	sort.Strings(worst)
-	t.Logf("compared %d formation enthalpies; outside tolerance: %v", n, worst)
-	for key := range acceptedDisagreements {
-		if strings.HasPrefix(key, "formation ") && !used[key] {
+		if !used[key] {
 			t.Errorf("accepted disagreement %q no longer occurs: remove it from the list and from data/README.md", key)
 		}
 	}
