@@ -1,4 +1,467 @@
 package cli
 
-// runMadelung is replaced by the real command when its engine lands.
-func runMadelung(env Env, args []string) error { return errNotBuilt }
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+
+	"enthalpath/thermo/cif"
+	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/ewald"
+)
+
+const madelungSynopsis = `madelung NAME|FILE.cif [flags]
+       enthalpath madelung --list [--json]
+
+Computes the Madelung constant, the Ewald energy and the site potentials of a
+built-in prototype (see --list) or of the structure in a CIF file. Flags may
+come before or after the structure.`
+
+// maxListedSites is the largest cell whose site potentials the text output
+// lists one by one; larger cells get one line per species (--json has all).
+const maxListedSites = 64
+
+func runMadelung(env Env, args []string) error {
+	fs := newFlagSet("madelung", madelungSynopsis, env.Stderr)
+	var params, charges listFlag
+	fs.Var(&params, "param", "prototype parameter `key=value` (repeatable, or comma-separated)")
+	fs.Var(&charges, "charges", "ion charges `LABEL=Z,...`: slot labels (M, X, A, B) for a prototype; site labels, type symbols or elements for a CIF file")
+	supercell := fs.String("supercell", "", "repeat the cell: `n` for n×n×n, or n1xn2xn3")
+	accuracy := fs.Float64("accuracy", ewald.DefaultAccuracy, "relative accuracy of the Ewald sum")
+	asJSON := fs.Bool("json", false, "print one JSON object")
+	list := fs.Bool("list", false, "list the built-in prototypes with their parameters")
+	pos, err := parseInterleaved(fs, args)
+	if errors.Is(err, flag.ErrHelp) {
+		return nil
+	}
+	if err != nil {
+		return &UsageError{err}
+	}
+	if *list {
+		if len(pos) > 0 || len(params) > 0 || len(charges) > 0 || *supercell != "" {
+			return Usagef("--list takes no structure and no other flags except --json")
+		}
+		return listPrototypes(env.Stdout, *asJSON)
+	}
+	if len(pos) != 1 {
+		fs.Usage()
+		return Usagef("madelung: give exactly one prototype name or CIF file (got %d arguments); see --list", len(pos))
+	}
+	chargeMap, err := parseKeyValues("--charges", charges)
+	if err != nil {
+		return err
+	}
+	paramMap, err := parseKeyValues("--param", params)
+	if err != nil {
+		return err
+	}
+	n, err := parseSupercell(*supercell)
+	if err != nil {
+		return err
+	}
+	job := madelungJob{target: pos[0], params: paramMap, charges: chargeMap, supercell: n}
+	c, err := job.crystal()
+	if err != nil {
+		return err
+	}
+	res, sumErr := ewald.Sum(c, ewald.Options{Accuracy: *accuracy})
+	var accErr *ewald.AccuracyError
+	switch {
+	case errors.As(sumErr, &accErr):
+		fmt.Fprintf(env.Stderr, "enthalpath madelung: warning: %v\n", accErr)
+	case errors.Is(sumErr, ewald.ErrBadOptions):
+		return &UsageError{fmt.Errorf("--accuracy %g: %w", *accuracy, sumErr)}
+	case sumErr != nil:
+		return &UsageError{fmt.Errorf("%s: %w", pos[0], sumErr)}
+	}
+	if *asJSON {
+		return writeJSON(env.Stdout, madelungJSON(job, c, res, sumErr == nil))
+	}
+	printMadelung(env.Stdout, job, c, res)
+	return nil
+}
+
+// madelungJob is what the command line asked for.
+type madelungJob struct {
+	target    string
+	params    map[string]float64
+	charges   map[string]float64
+	supercell [3]int
+	prototype *crystal.Prototype // nil for a CIF file
+	values    map[string]float64 // the prototype parameters used
+}
+
+func isCIFPath(s string) bool {
+	return strings.HasSuffix(strings.ToLower(s), ".cif") || strings.ContainsRune(s, '/')
+}
+
+// crystal builds the structure: prototype with parameters and charges, or
+// CIF file, then the supercell.
+func (j *madelungJob) crystal() (*crystal.Crystal, error) {
+	var c *crystal.Crystal
+	if isCIFPath(j.target) {
+		if len(j.params) > 0 {
+			return nil, Usagef("%s: --param applies to prototypes only; a CIF file gives its own geometry", j.target)
+		}
+		var err error
+		c, err = cif.ParseFile(j.target, cif.Options{Charges: j.charges})
+		if err != nil {
+			return nil, &UsageError{err}
+		}
+	} else {
+		p, err := crystal.LookupPrototype(j.target)
+		if err != nil {
+			return nil, &UsageError{fmt.Errorf("%w (or give a path ending in .cif)", err)}
+		}
+		j.prototype = &p
+		c, err = crystal.Build(p.Name, j.params)
+		if err != nil {
+			return nil, &UsageError{err}
+		}
+		j.values = p.Defaults()
+		for k, v := range j.params {
+			j.values[k] = v
+		}
+		if len(j.charges) > 0 {
+			ions := map[string]crystal.Ion{}
+			for label, z := range j.charges {
+				known := false
+				for _, s := range p.Slots {
+					known = known || s.Label == label
+				}
+				if !known {
+					return nil, Usagef("--charges: %s has no slot %q (slots: %s)", p.Name, label, slotLabels(p))
+				}
+				ions[label] = crystal.Ion{Charge: z}
+			}
+			if c, err = c.WithIons(ions); err != nil {
+				return nil, &UsageError{fmt.Errorf("--charges: %w", err)}
+			}
+		}
+	}
+	if n := j.supercell; n != [3]int{1, 1, 1} {
+		var err error
+		if c, err = c.Supercell(n[0], n[1], n[2]); err != nil {
+			return nil, &UsageError{fmt.Errorf("--supercell: %w", err)}
+		}
+	}
+	return c, nil
+}
+
+func slotLabels(p crystal.Prototype) string {
+	var s []string
+	for _, sl := range p.Slots {
+		s = append(s, sl.Label)
+	}
+	return strings.Join(s, ", ")
+}
+
+// parseKeyValues reads repeated or comma-separated key=value items.
+func parseKeyValues(flagName string, items []string) (map[string]float64, error) {
+	m := map[string]float64{}
+	for _, item := range items {
+		for _, part := range strings.Split(item, ",") {
+			part = strings.TrimSpace(part)
+			if part == "" {
+				continue
+			}
+			k, v, ok := strings.Cut(part, "=")
+			k = strings.TrimSpace(k)
+			if !ok || k == "" {
+				return nil, Usagef("%s %q: want key=value", flagName, part)
+			}
+			x, err := strconv.ParseFloat(strings.TrimSpace(strings.Replace(v, "−", "-", 1)), 64)
+			if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+				return nil, Usagef("%s %q: %q is not a number", flagName, part, v)
+			}
+			if _, dup := m[k]; dup {
+				return nil, Usagef("%s: %s given twice", flagName, k)
+			}
+			m[k] = x
+		}
+	}
+	return m, nil
+}
+
+// parseSupercell reads "", "n" or "n1xn2xn3".
+func parseSupercell(s string) ([3]int, error) {
+	if s == "" {
+		return [3]int{1, 1, 1}, nil
+	}
+	parts := strings.FieldsFunc(strings.ToLower(s), func(r rune) bool { return r == 'x' || r == '×' })
+	if len(parts) != 1 && len(parts) != 3 {
+		return [3]int{}, Usagef("--supercell %q: want n or n1xn2xn3", s)
+	}
+	var n [3]int
+	for i, p := range parts {
+		v, err := strconv.Atoi(strings.TrimSpace(p))
+		if err != nil || v < 1 {
+			return [3]int{}, Usagef("--supercell %q: %q is not a positive whole number", s, p)
+		}
+		n[i] = v
+	}
+	if len(parts) == 1 {
+		n[1], n[2] = n[0], n[0]
+	}
+	return n, nil
+}
+
+func minus(s string) string { return strings.Replace(s, "-", "−", 1) }
+
+func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Result) {
+	if p := job.prototype; p != nil {
+		fmt.Fprintf(w, "structure   %s: %s (example %s)\n", p.Name, p.Description, p.Example)
+		var ps []string
+		for _, q := range p.Params {
+			ps = append(ps, strings.TrimSpace(fmt.Sprintf("%s = %g %s", q.Key, job.values[q.Key], q.Unit)))
+		}
+		fmt.Fprintf(w, "parameters  %s\n", strings.Join(ps, ", "))
+	} else {
+		fmt.Fprintf(w, "structure   %s (CIF file)\n", c.Name)
+	}
+	abc, ang := cellParameters(c)
+	fmt.Fprintf(w, "cell        a = %.5f, b = %.5f, c = %.5f Å; α = %.3f°, β = %.3f°, γ = %.3f°\n",
+		abc[0], abc[1], abc[2], ang[0], ang[1], ang[2])
+	fmt.Fprintf(w, "            V = %.4f Å³, %d sites, Z = %d formula units\n", c.Volume(), len(c.Sites), c.FormulaUnits)
+	fmt.Fprintf(w, "ions        %s\n\n", ionSummary(c))
+
+	i, j := r.NearestPair[0], r.NearestPair[1]
+	fmt.Fprintf(w, "shortest cation–anion distance  d = %.6f Å  (site %d %s and site %d %s)\n",
+		r.NearestDistance, i+1, c.Sites[i].Species, j+1, c.Sites[j].Species)
+	if mean := c.MeanCationAnionDistance(); !math.IsNaN(mean) {
+		fmt.Fprintf(w, "mean cation–anion bond length      %.6f Å\n", mean)
+	}
+	fmt.Fprintf(w, "Madelung constant               A = %.10f\n", r.MadelungConstant)
+	fmt.Fprintf(w, "  convention: %s (z₊ = %g, z₋ = %s)\n\n", r.Convention, c.Sites[i].Charge, minus(fmt.Sprintf("%g", c.Sites[j].Charge)))
+
+	t := table{head: []string{"Coulomb energy", "eV", "kJ/mol"}, right: map[int]bool{1: true, 2: true}}
+	t.add("per cell", minus(fmt.Sprintf("%.8f", r.EnergyEV)), "")
+	t.add("per formula unit", minus(fmt.Sprintf("%.8f", r.EnergyPerFormulaUnitEV)), minus(fmt.Sprintf("%.4f", r.EnergyKJPerMol)))
+	t.write(w, "")
+	fmt.Fprintf(w, "  boundary condition: %s\n", r.Boundary)
+	fmt.Fprintf(w, "  accuracy: requested %.3g, estimated %.2g (α = %.4f Å⁻¹, real cut-off %.3f Å, reciprocal cut-off %.3f Å⁻¹, %d + %d terms)\n\n",
+		r.Accuracy, r.EstimatedError, r.Alpha, r.RealCutoff, r.RecipCutoff, r.RealTerms, r.RecipTerms)
+
+	if len(c.Sites) <= maxListedSites {
+		st := table{head: []string{"site", "species", "charge", "x", "y", "z", "potential / V"}, right: map[int]bool{0: true, 2: true, 3: true, 4: true, 5: true, 6: true}}
+		for k, s := range c.Sites {
+			st.add(strconv.Itoa(k+1), s.Species, minus(fmt.Sprintf("%+g", s.Charge)),
+				fmt.Sprintf("%.5f", s.Frac[0]), fmt.Sprintf("%.5f", s.Frac[1]), fmt.Sprintf("%.5f", s.Frac[2]),
+				minus(fmt.Sprintf("%.6f", r.SitePotentials[k])))
+		}
+		fmt.Fprintln(w, "site potentials (Madelung potential at each ion from all other ions)")
+		st.write(w, "  ")
+		return
+	}
+	st := table{head: []string{"species", "charge", "sites", "lowest / V", "highest / V"}, right: map[int]bool{1: true, 2: true, 3: true, 4: true}}
+	type group struct {
+		charge   float64
+		n        int
+		lo, hi   float64
+		position int
+	}
+	groups := map[string]*group{}
+	var order []string
+	for k, s := range c.Sites {
+		key := s.Species + "|" + strconv.FormatFloat(s.Charge, 'g', -1, 64)
+		g, ok := groups[key]
+		if !ok {
+			g = &group{charge: s.Charge, lo: math.Inf(1), hi: math.Inf(-1), position: k}
+			groups[key] = g
+			order = append(order, key)
+		}
+		g.n++
+		g.lo = math.Min(g.lo, r.SitePotentials[k])
+		g.hi = math.Max(g.hi, r.SitePotentials[k])
+	}
+	sort.SliceStable(order, func(a, b int) bool { return groups[order[a]].position < groups[order[b]].position })
+	for _, key := range order {
+		g := groups[key]
+		sp, _, _ := strings.Cut(key, "|")
+		st.add(sp, minus(fmt.Sprintf("%+g", g.charge)), strconv.Itoa(g.n), minus(fmt.Sprintf("%.6f", g.lo)), minus(fmt.Sprintf("%.6f", g.hi)))
+	}
+	fmt.Fprintf(w, "site potentials by species (%d sites; --json lists every site)\n", len(c.Sites))
+	st.write(w, "  ")
+}
+
+func cellParameters(c *crystal.Crystal) (abc, angles [3]float64) {
+	for k := 0; k < 3; k++ {
+		abc[k] = c.Lattice[k].Norm()
+		u, v := c.Lattice[(k+1)%3], c.Lattice[(k+2)%3]
+		angles[k] = math.Acos(u.Dot(v)/(u.Norm()*v.Norm())) * 180 / math.Pi
+	}
+	return abc, angles
+}
+
+// ionSummary lists "Species charge ×count" in order of first appearance.
+func ionSummary(c *crystal.Crystal) string {
+	type key struct {
+		sp string
+		q  float64
+	}
+	count := map[key]int{}
+	var order []key
+	for _, s := range c.Sites {
+		k := key{s.Species, s.Charge}
+		if count[k] == 0 {
+			order = append(order, k)
+		}
+		count[k]++
+	}
+	var parts []string
+	for _, k := range order {
+		parts = append(parts, fmt.Sprintf("%s %s ×%d", k.sp, minus(fmt.Sprintf("%+g", k.q)), count[k]))
+	}
+	return strings.Join(parts, ", ")
+}
+
+type madelungSite struct {
+	Species   string     `json:"species"`
+	Label     string     `json:"label,omitempty"`
+	Charge    float64    `json:"charge"`
+	Frac      [3]float64 `json:"fractional"`
+	Potential float64    `json:"potential_volt"`
+}
+
+type madelungStructure struct {
+	Name         string             `json:"name"`
+	Source       string             `json:"source"`
+	Description  string             `json:"description,omitempty"`
+	Parameters   map[string]float64 `json:"parameters,omitempty"`
+	Supercell    [3]int             `json:"supercell"`
+	Lattice      [3][3]float64      `json:"lattice_angstrom"`
+	CellLengths  [3]float64         `json:"cell_lengths_angstrom"`
+	CellAngles   [3]float64         `json:"cell_angles_degree"`
+	Volume       float64            `json:"volume_angstrom3"`
+	FormulaUnits int                `json:"formula_units"`
+	Sites        []madelungSite     `json:"sites"`
+}
+
+type madelungAccuracy struct {
+	Requested float64 `json:"requested"`
+	Estimated float64 `json:"estimated"`
+	Reached   bool    `json:"reached"`
+}
+
+type madelungEwald struct {
+	Alpha       float64 `json:"alpha_per_angstrom"`
+	RealCutoff  float64 `json:"real_cutoff_angstrom"`
+	RecipCutoff float64 `json:"reciprocal_cutoff_per_angstrom"`
+	RealTerms   int     `json:"real_terms"`
+	RecipTerms  int     `json:"reciprocal_vectors"`
+}
+
+type madelungOutput struct {
+	Structure         madelungStructure `json:"structure"`
+	MadelungConstant  float64           `json:"madelung_constant"`
+	Convention        string            `json:"convention"`
+	NearestDistance   float64           `json:"nearest_distance_angstrom"`
+	NearestPair       [2]int            `json:"nearest_pair_sites"`
+	MeanDistance      jsonNumber        `json:"mean_cation_anion_distance_angstrom"`
+	EnergyCell        float64           `json:"energy_ev_per_cell"`
+	EnergyFormulaUnit float64           `json:"energy_ev_per_formula_unit"`
+	EnergyKJPerMol    float64           `json:"energy_kj_per_mol"`
+	FormulaUnits      int               `json:"formula_units"`
+	SitePotentials    []float64         `json:"site_potentials_volt"`
+	Boundary          string            `json:"boundary_condition"`
+	Accuracy          madelungAccuracy  `json:"accuracy"`
+	Ewald             madelungEwald     `json:"ewald"`
+}
+
+func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, reached bool) madelungOutput {
+	abc, ang := cellParameters(c)
+	st := madelungStructure{
+		Name: c.Name, Source: "cif", Supercell: job.supercell,
+		CellLengths: abc, CellAngles: ang, Volume: c.Volume(), FormulaUnits: c.FormulaUnits,
+	}
+	if p := job.prototype; p != nil {
+		st.Source, st.Description, st.Parameters = "prototype", p.Description, job.values
+	}
+	for k := 0; k < 3; k++ {
+		st.Lattice[k] = c.Lattice[k]
+	}
+	for k, s := range c.Sites {
+		st.Sites = append(st.Sites, madelungSite{Species: s.Species, Label: s.Label, Charge: s.Charge, Frac: s.Frac, Potential: r.SitePotentials[k]})
+	}
+	return madelungOutput{
+		Structure:         st,
+		MadelungConstant:  r.MadelungConstant,
+		Convention:        r.Convention,
+		NearestDistance:   r.NearestDistance,
+		NearestPair:       [2]int{r.NearestPair[0] + 1, r.NearestPair[1] + 1},
+		MeanDistance:      jsonNumber(c.MeanCationAnionDistance()),
+		EnergyCell:        r.EnergyEV,
+		EnergyFormulaUnit: r.EnergyPerFormulaUnitEV,
+		EnergyKJPerMol:    r.EnergyKJPerMol,
+		FormulaUnits:      c.FormulaUnits,
+		SitePotentials:    r.SitePotentials,
+		Boundary:          r.Boundary,
+		Accuracy:          madelungAccuracy{Requested: r.Accuracy, Estimated: r.EstimatedError, Reached: reached},
+		Ewald: madelungEwald{Alpha: r.Alpha, RealCutoff: r.RealCutoff, RecipCutoff: r.RecipCutoff,
+			RealTerms: r.RealTerms, RecipTerms: r.RecipTerms},
+	}
+}
+
+type prototypeParamJSON struct {
+	Key     string  `json:"key"`
+	Doc     string  `json:"description"`
+	Unit    string  `json:"unit"`
+	Default float64 `json:"default"`
+}
+
+type prototypeSlotJSON struct {
+	Label  string  `json:"label"`
+	Role   string  `json:"role"`
+	Charge float64 `json:"default_charge"`
+}
+
+type prototypeJSON struct {
+	Name        string               `json:"name"`
+	Description string               `json:"description"`
+	Example     string               `json:"example"`
+	Params      []prototypeParamJSON `json:"parameters"`
+	Slots       []prototypeSlotJSON  `json:"slots"`
+}
+
+func listPrototypes(w io.Writer, asJSON bool) error {
+	protos := crystal.Prototypes()
+	if asJSON {
+		var out []prototypeJSON
+		for _, p := range protos {
+			pj := prototypeJSON{Name: p.Name, Description: p.Description, Example: p.Example}
+			for _, q := range p.Params {
+				pj.Params = append(pj.Params, prototypeParamJSON{q.Key, q.Doc, q.Unit, q.Default})
+			}
+			for _, s := range p.Slots {
+				pj.Slots = append(pj.Slots, prototypeSlotJSON{s.Label, s.Role, s.Charge})
+			}
+			out = append(out, pj)
+		}
+		return writeJSON(w, map[string]any{"prototypes": out})
+	}
+	t := table{head: []string{"prototype", "example", "parameters (defaults)", "ions (default charges)"}}
+	for _, p := range protos {
+		var ps, ss []string
+		for _, q := range p.Params {
+			ps = append(ps, strings.TrimSpace(fmt.Sprintf("%s=%g %s", q.Key, q.Default, q.Unit)))
+		}
+		for _, s := range p.Slots {
+			ss = append(ss, fmt.Sprintf("%s %s", s.Label, minus(fmt.Sprintf("%+g", s.Charge))))
+		}
+		t.add(p.Name, p.Example, strings.Join(ps, ", "), strings.Join(ss, ", "))
+	}
+	t.write(w, "")
+	fmt.Fprintln(w, "\nparameters:")
+	for _, p := range protos {
+		for _, q := range p.Params {
+			fmt.Fprintf(w, "  %-17s %-9s %s\n", p.Name, q.Key, q.Doc)
+		}
+	}
+	fmt.Fprintln(w, "\nexample: enthalpath madelung wurtzite --param u=0.375 --charges M=2,X=-2")
+	return nil
+}
