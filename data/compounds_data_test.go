@@ -5,8 +5,10 @@ package data
 // where its expectation comes from. The tables themselves were entered from
 // memory (memory=yes); these tests catch slips in them by testing facts that
 // must hold whatever the exact numbers: composition, charge balance, the
-// definition of a tabulated Born–Fajans–Haber lattice energy, Hess's law for
-// the solution cycle, and agreement with an outside compilation (pymatgen).
+// definition of a tabulated Born–Fajans–Haber lattice energy and Hess's law
+// for the solution cycle — and compare the formation enthalpies with an
+// outside compilation (pymatgen); the disagreements kept on purpose are
+// listed in tables/DISAGREEMENTS.md.
 
 import (
 	"encoding/csv"
@@ -268,8 +270,10 @@ func TestCompoundStructures(t *testing.T) {
 		}
 		checked++
 	}
-	if checked < 100 {
-		t.Errorf("only %d cells compared with Shannon radii, want at least 100", checked)
+	// 93 cells have two monatomic ions with Shannon radii in the data (the
+	// hydrides lack an H⁻ radius); fewer means rows or radii went missing.
+	if checked < 90 {
+		t.Errorf("only %d cells compared with Shannon radii, want at least 90", checked)
 	}
 }
 
@@ -280,14 +284,14 @@ func TestCompoundStructures(t *testing.T) {
 // b(n_X/2 − 2)]RT with n = 3 for monatomic ions. For halides and hydrides
 // with monatomic ions every input is in our tables: ΔfH(M^z+, g) =
 // atomization + Σ IE, ΔfH(X⁻, g) = atomization − EA (the 5/2·RT terms of the
-// ions and electrons cancel for a neutral salt). Agreement within 1.5 %
+// ions and electrons cancel for a neutral salt). Agreement within 1 %
 // (the handbook used its own auxiliary data, which differ from ours by a
 // few kJ/mol; our tolerance, no source) shows the recalled lattice energy,
 // formation enthalpy and element data belong together.
 func TestHandbookLatticeMatchesCycle(t *testing.T) {
 	db := loadTables(t)
 	rt := thermo.RT(298.15)
-	compared := 0
+	compared, worst, worstName := 0, 0.0, ""
 	for _, c := range db.Compounds() {
 		if !c.HandbookLattice.Known() {
 			continue
@@ -322,7 +326,10 @@ func TestHandbookLatticeMatchesCycle(t *testing.T) {
 		if c.LatticeConvention == "U" {
 			want = dHL - float64(c.CationCount+c.AnionCount)*(1.5-2)*rt
 		}
-		if math.Abs(c.HandbookLattice.V-want) > 0.015*want {
+		if dev := math.Abs(c.HandbookLattice.V-want) / want; dev > worst {
+			worst, worstName = dev, c.Formula
+		}
+		if math.Abs(c.HandbookLattice.V-want) > 0.010*want {
 			t.Errorf("%s: handbook %s = %.0f kJ/mol, cycle from our tables gives %.1f (%.1f %%)",
 				c.Formula, c.LatticeConvention, c.HandbookLattice.V, want, 100*(c.HandbookLattice.V-want)/want)
 		}
@@ -331,6 +338,7 @@ func TestHandbookLatticeMatchesCycle(t *testing.T) {
 	if compared < 30 {
 		t.Errorf("only %d handbook lattice energies compared with the cycle, want at least 30", compared)
 	}
+	t.Logf("%d compared; largest deviation %.2f %% (%s)", compared, 100*worst, worstName)
 }
 
 // TestAlkaliHalideTrends: for the alkali halides the lattice energy falls
@@ -393,7 +401,9 @@ var pymatgenAccepted = map[string]string{
 	"K2CrO4":  "NBS 1982 −1403.7",
 }
 
-type pymatgenFormation struct {
+// compoundFormationRef is the part of testdata/pymatgen_formation.json this
+// test reads.
+type compoundFormationRef struct {
 	Compounds map[string]struct {
 		KJ  *float64 `json:"formation_kj_per_mol"`
 		UKJ *float64 `json:"uncertainty_kj_per_mol"`
@@ -402,20 +412,22 @@ type pymatgenFormation struct {
 
 // TestFormationAgainstPymatgen compares every formation enthalpy with the
 // experimental value pymatgen ships (testdata/pymatgen_formation.json,
-// written by testdata/gen_data.py), per formula unit, within the larger of
-// the two stated uncertainties or 8 kJ/mol (issue 3).
+// written by testdata/gen_data.py from Debian's python3-pymatgen), per
+// formula unit (matched by reduced composition), within the larger of the
+// two stated uncertainties or 8 kJ/mol (issue 3).
 func TestFormationAgainstPymatgen(t *testing.T) {
 	raw, err := os.ReadFile("../testdata/pymatgen_formation.json")
 	if err != nil {
 		t.Fatalf("reference file: %v (run testdata/regenerate.sh)", err)
 	}
-	var ref pymatgenFormation
+	var ref compoundFormationRef
 	if err := json.Unmarshal(raw, &ref); err != nil {
 		t.Fatalf("reference file: %v", err)
 	}
 	type entry struct {
-		atoms int
-		kj, u float64
+		formula string
+		atoms   int
+		kj, u   float64
 	}
 	byKey := map[string][]entry{}
 	for formula, v := range ref.Compounds {
@@ -426,11 +438,12 @@ func TestFormationAgainstPymatgen(t *testing.T) {
 		if err != nil {
 			continue
 		}
-		e := entry{atoms: f.Atoms(), kj: *v.KJ}
+		e := entry{formula: formula, atoms: f.Atoms(), kj: *v.KJ}
 		if v.UKJ != nil {
 			e.u = *v.UKJ
 		}
-		byKey[reducedKey(f.Composition())] = append(byKey[reducedKey(f.Composition())], e)
+		k := reducedKey(f.Composition())
+		byKey[k] = append(byKey[k], e)
 	}
 	db := loadTables(t)
 	var missing []string
@@ -454,13 +467,13 @@ func TestFormationAgainstPymatgen(t *testing.T) {
 			if math.Abs(c.Formation.V-theirs) > tol {
 				disagree = true
 				if _, ok := pymatgenAccepted[c.Formula]; !ok {
-					t.Errorf("%s: ours %.2f kJ/mol (%s), pymatgen %.2f ± %.1f: differ by %.1f > %.1f; re-check the value or list it in DISAGREEMENTS.md and pymatgenAccepted",
-						c.Formula, c.Formation.V, c.Formation.Source, theirs, theirU, c.Formation.V-theirs, tol)
+					t.Errorf("%s: ours %.2f kJ/mol (%s), pymatgen %s %.2f ± %.1f: differ by %+.1f, tolerance %.1f; re-check the value, or list it in tables/DISAGREEMENTS.md and pymatgenAccepted with the reason",
+						c.Formula, c.Formation.V, c.Formation.Source, e.formula, theirs, theirU, c.Formation.V-theirs, tol)
 				}
 			}
 		}
 		if _, ok := pymatgenAccepted[c.Formula]; ok && !disagree {
-			t.Errorf("%s is listed as an accepted disagreement but now agrees with pymatgen: remove it from the list", c.Formula)
+			t.Errorf("%s is listed as an accepted disagreement but agrees with pymatgen: remove it from pymatgenAccepted and tables/DISAGREEMENTS.md", c.Formula)
 		}
 	}
 	for f := range pymatgenAccepted {
@@ -625,6 +638,11 @@ func TestSolutionCycle(t *testing.T) {
 	if len(rows) < 8 {
 		t.Errorf("%d enthalpies of solution, want at least 8", len(rows))
 	}
+	// The gas_formation rows follow the NBS tables' convention for gaseous
+	// ions (ΔfH(H+, g) = 1536.202 kJ/mol: the ion and the free electron each
+	// carry 5/2·RT), so the ions built here from the element tables get the
+	// same ±z·5/2·RT; for a salt of two monatomic ions the terms cancel.
+	rt52 := 2.5 * thermo.RT(298.15)
 	gas := func(ion Ion) (float64, bool) {
 		if ion.GasFormation.Known() {
 			return ion.GasFormation.V, true
@@ -642,8 +660,9 @@ func TestSolutionCycle(t *testing.T) {
 			for i := 0; i < ion.Charge; i++ {
 				v += thermo.EVToKJPerMol(el.Ionization[i].V)
 			}
+			v += float64(ion.Charge) * rt52
 		case ion.Charge == -1 && el.ElectronAffinity.Known():
-			v -= thermo.EVToKJPerMol(el.ElectronAffinity.V)
+			v -= thermo.EVToKJPerMol(el.ElectronAffinity.V) + rt52
 		default:
 			return 0, false
 		}
