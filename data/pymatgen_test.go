@@ -25,14 +25,13 @@ const (
 // reason; data/README.md repeats the list. Keys: "IE <sym> <stage>",
 // "EA <sym>", "radius <sym> <charge> <cn> <spin>".
 var acceptedDisagreements = map[string]string{
-	"EA Ga":   "0.43 eV is the value tabulated by Rienstra-Kiracofe et al. (2002); pymatgen carries 0.301 eV from a later photodetachment measurement",
-	"EA In":   "0.3 eV is the value tabulated by Rienstra-Kiracofe et al. (2002); pymatgen carries 0.384 eV from a later measurement",
-	"EA Tl":   "0.377 eV is the value tabulated by Rienstra-Kiracofe et al. (2002); pymatgen carries 0.320 eV from a later measurement",
-	"EA Nb":   "0.893 eV is the value tabulated by Rienstra-Kiracofe et al. (2002); pymatgen carries 0.917 eV from a later measurement",
-	"EA La":   "0.47 eV is the value tabulated by Rienstra-Kiracofe et al. (2002); pymatgen carries 0.558 eV from a later measurement",
-	"EA Re":   "0.15 eV is the value tabulated by Rienstra-Kiracofe et al. (2002), ±0.15 eV; pymatgen carries 0.060 eV from a later measurement",
-	"EA Os":   "1.1 eV is the value tabulated by Rienstra-Kiracofe et al. (2002), ±0.2 eV; pymatgen carries 1.078 eV from a later measurement",
-	"IE Bi 3": "25.56 eV is the value recalled for NIST ASD; pymatgen has 25.5708 eV; the difference (0.011 eV) is just above the tolerance and is left for a check against the database",
+	"EA Ga": "0.43 eV as recalled from the 2002 review of Rienstra-Kiracofe et al. (row marked memory); pymatgen carries 0.301 eV, apparently a later measurement; to be checked against the review",
+	"EA In": "0.3 eV as recalled from the 2002 review of Rienstra-Kiracofe et al. (row marked memory); pymatgen carries 0.384 eV, apparently a later measurement; to be checked against the review",
+	"EA Tl": "0.377 eV as recalled from the 2002 review of Rienstra-Kiracofe et al. (row marked memory); pymatgen carries 0.320 eV, apparently a later measurement; to be checked against the review",
+	"EA Nb": "0.893 eV as recalled from the 2002 review of Rienstra-Kiracofe et al. (row marked memory); pymatgen carries 0.917 eV, apparently a later measurement; to be checked against the review",
+	"EA La": "0.47 eV as recalled from the 2002 review of Rienstra-Kiracofe et al. (row marked memory); pymatgen carries 0.558 eV, apparently a later measurement; to be checked against the review",
+	"EA Re": "0.15 eV (stated ±0.15 eV) as recalled from the 2002 review of Rienstra-Kiracofe et al. (row marked memory); pymatgen carries 0.060 eV, apparently a later measurement; to be checked against the review",
+	"EA Os": "1.1 eV (stated ±0.2 eV) as recalled from the 2002 review of Rienstra-Kiracofe et al. (row marked memory); pymatgen carries 1.078 eV, apparently a later measurement; to be checked against the review",
 }
 
 type pymatgenElements struct {
