@@ -212,7 +212,8 @@ var cnForStructure = map[string][2]string{
 }
 
 // TestCompoundStructures: structure names are prototypes of thermo/crystal,
-// params use only that prototype's keys, and the cell they give builds. As a
+// params use only that prototype's keys, the cell they give builds and has
+// the compound's cation:anion ratio (a necessary fact). As a
 // check on the cell parameters themselves (entered from memory), the
 // shortest cation–anion distance of the built cell must lie within 20 % of
 // the sum of the Shannon ionic radii at the structure's coordination
@@ -250,6 +251,19 @@ func TestCompoundStructures(t *testing.T) {
 		if err != nil {
 			t.Errorf("%s: %v", c.Formula, err)
 			continue
+		}
+		// The prototype's stoichiometry must be the compound's.
+		nCat, nAn := 0, 0
+		for _, site := range cell.Sites {
+			switch {
+			case site.Charge > 0:
+				nCat++
+			case site.Charge < 0:
+				nAn++
+			}
+		}
+		if nCat*c.AnionCount != nAn*c.CationCount {
+			t.Errorf("%s: %s has cation:anion sites %d:%d, the formula %d:%d", c.Formula, c.Structure, nCat, nAn, c.CationCount, c.AnionCount)
 		}
 		cat, an := ionOf(t, db, c.Cation), ionOf(t, db, c.Anion)
 		if cat.Polyatomic || an.Polyatomic {
