@@ -184,6 +184,13 @@ func (b *builder) side(side Side) {
 			Label:    "standard enthalpy of formation of gaseous " + p.Ion.Symbol,
 			Reaction: ionFormationReaction(b.db, p.Ion)}
 		b.add(s, &p.Ion.GasFormation, DefaultIonFormation)
+		// The tabulated value counts the thermal electron (298.15 K
+		// convention); the cycle is built in the 0 K convention.
+		last := &b.steps[len(b.steps)-1]
+		if d := b.c.shift(last, Conventions{}); last.Reference != nil {
+			last.Value += d
+			last.Reference.Value += d
+		}
 		return
 	}
 	el, err := b.db.Element(p.Ion.Core)

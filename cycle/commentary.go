@@ -53,7 +53,7 @@ func (c *Cycle) commentary(r *Result) (notes, warnings []string) {
 			continue
 		}
 		if s.Source.Derived {
-			warnings = append(warnings, fmt.Sprintf("%s is itself cycle-derived in the data (%s), not measured; replace it with --set %s=VALUE if you have a better value",
+			warnings = append(warnings, fmt.Sprintf("%s is derived in the data (%s) from other values, for O²⁻ and S²⁻ from a cycle, not measured; replace it with --set %s=VALUE if you have a better value",
 				s.Key, s.Source.Key, s.Key))
 		}
 		if s.Source.DefaultUncertainty {
