@@ -1,13 +1,202 @@
 package main
 
 import (
+	"context"
+	"errors"
+	"flag"
 	"fmt"
+	"io"
+	"log/slog"
+	"os"
+	"os/signal"
+	"path/filepath"
+	"syscall"
+	"time"
 
+	tea "github.com/charmbracelet/bubbletea"
+
+	"enthalpath/cycle"
 	"enthalpath/cycle/cli"
+	"enthalpath/data"
+	"enthalpath/tui"
+	"enthalpath/tui/serve"
 )
 
-// runServe starts the SSH server; replaced when tui/serve lands.
+// defaultListen is the address served when --listen is not given: loopback
+// only, on a port of our own above the privileged range.
+const defaultListen = "127.0.0.1:2324"
+
+// shutdownDeadline bounds SIGINT/SIGTERM handling from signal to exit.
+const shutdownDeadline = 10 * time.Second
+
+const serveUsage = `usage: enthalpath [--data FILE] serve [FLAGS]
+
+Serves the interactive workshop over SSH. Every user connects with ssh -t
+and a public key, and works in a folder of their own under the state
+directory, named after the key. Without --authorized-keys any key is let in,
+and only loopback addresses may be served.
+
+Flags:
+`
+
+// serveFlags are the parsed command line of "enthalpath serve".
+type serveFlags struct {
+	listen    string
+	logFormat string
+	config    serve.Config
+}
+
+// parseServeFlags reads the command line; the error is a usage error.
+func parseServeFlags(args []string, stderr io.Writer) (serveFlags, error) {
+	var f serveFlags
+	fs := flag.NewFlagSet("serve", flag.ContinueOnError)
+	fs.SetOutput(stderr)
+	fs.Usage = func() {
+		fmt.Fprint(stderr, serveUsage)
+		fs.PrintDefaults()
+	}
+	stateDir := fs.String("state-dir", defaultStateDir(), "`DIR` holding the host key (unless --host-key) and users/<key digest>/ folders")
+	fs.StringVar(&f.listen, "listen", defaultListen, "`ADDR`ess to listen on, host:port")
+	hostKey := fs.String("host-key", "", "ed25519 host key `FILE`, created (mode 0600) if missing (default DIR/host_ed25519)")
+	fs.StringVar(&f.config.AuthorizedKeysPath, "authorized-keys", "", "`FILE` of public keys allowed in, re-read when it changes (none: any key, loopback only)")
+	fs.IntVar(&f.config.MaxSessions, "max-sessions", serve.DefaultMaxSessions, "most sessions at once; the next is refused politely")
+	fs.DurationVar(&f.config.IdleTimeout, "idle-timeout", serve.DefaultIdleTimeout, "close a session after this `DURATION` without a keystroke (its work is saved first)")
+	fs.IntVar(&f.config.MaxInputLen, "max-line", serve.DefaultMaxInputLen, "most characters in any text a user types in a field")
+	fs.IntVar(&f.config.MaxBurst, "max-burst", serve.DefaultMaxBurst, "drop any input burst longer than this many `BYTES` (a runaway paste)")
+	fs.StringVar(&f.logFormat, "log-format", "text", "log lines on standard error as text or json")
+	if err := fs.Parse(args); err != nil {
+		return f, err
+	}
+	if fs.NArg() > 0 {
+		fs.Usage()
+		return f, fmt.Errorf("serve takes no arguments, got %q", fs.Arg(0))
+	}
+	var problems []error
+	if f.config.MaxSessions < 1 {
+		problems = append(problems, fmt.Errorf("--max-sessions %d: give at least 1", f.config.MaxSessions))
+	}
+	if f.config.IdleTimeout <= 0 {
+		problems = append(problems, fmt.Errorf("--idle-timeout %v: give a positive duration such as 30m", f.config.IdleTimeout))
+	}
+	if f.config.MaxInputLen < 1 {
+		problems = append(problems, fmt.Errorf("--max-line %d: give at least 1", f.config.MaxInputLen))
+	}
+	if f.config.MaxBurst < 16 {
+		problems = append(problems, fmt.Errorf("--max-burst %d: give at least 16 bytes", f.config.MaxBurst))
+	}
+	if f.logFormat != "text" && f.logFormat != "json" {
+		problems = append(problems, fmt.Errorf("--log-format %q: give text or json", f.logFormat))
+	}
+	if *stateDir == "" {
+		problems = append(problems, errors.New("--state-dir is empty and there is no home folder: give --state-dir DIR"))
+	}
+	if f.config.AuthorizedKeysPath == "" && !serve.IsLoopback(f.listen) {
+		problems = append(problems, fmt.Errorf("--listen %s: %w; give --authorized-keys FILE to serve other addresses", f.listen, serve.ErrNotLoopback))
+	}
+	if err := errors.Join(problems...); err != nil {
+		return f, err
+	}
+	f.config.StateDir = *stateDir
+	f.config.HostKeyPath = *hostKey
+	if f.config.HostKeyPath == "" {
+		f.config.HostKeyPath = filepath.Join(*stateDir, "host_ed25519")
+	}
+	f.config.RecoveryFile = "recovery" + cycle.FileExtension
+	return f, nil
+}
+
+// defaultStateDir is $XDG_STATE_HOME/enthalpath/serve, or the same under
+// ~/.local/state; "" when there is no home folder.
+func defaultStateDir() string {
+	dir := os.Getenv("XDG_STATE_HOME")
+	if dir == "" {
+		home, err := os.UserHomeDir()
+		if err != nil {
+			return ""
+		}
+		dir = filepath.Join(home, ".local", "state")
+	}
+	return filepath.Join(dir, "enthalpath", "serve")
+}
+
+// runServe runs "enthalpath serve" until SIGINT or SIGTERM.
 func runServe(env cli.Env, args []string) int {
-	fmt.Fprintln(env.Stderr, "enthalpath serve: not built yet")
-	return cli.ExitInternal
+	f, err := parseServeFlags(args, env.Stderr)
+	if errors.Is(err, flag.ErrHelp) {
+		return cli.ExitOK
+	}
+	if err != nil {
+		fmt.Fprintf(env.Stderr, "enthalpath serve: %v\n", err)
+		return cli.ExitUsage
+	}
+	var handler slog.Handler = slog.NewTextHandler(env.Stderr, nil)
+	if f.logFormat == "json" {
+		handler = slog.NewJSONHandler(env.Stderr, nil)
+	}
+	log := slog.New(handler)
+
+	// The data is loaded once and shared, read-only, by every session.
+	db, err := data.LoadWithUserFile(env.DataFile)
+	if err != nil {
+		if env.DataFile != "" && db != nil {
+			fmt.Fprintf(env.Stderr, "enthalpath serve: --data %s: %v\n", env.DataFile, err)
+			return cli.ExitUsage
+		}
+		fmt.Fprintf(env.Stderr, "enthalpath serve: loading the built-in data: %v\n", err)
+		return cli.ExitInternal
+	}
+
+	cfg := f.config
+	cfg.Logger = log
+	cfg.NewModel = func(s serve.SessionSetup) tea.Model {
+		return tui.New(tui.Options{
+			Renderer:     s.Renderer,
+			DB:           db,
+			FileRoot:     s.Folder,
+			RecoveryPath: s.RecoveryPath,
+			Width:        s.Width,
+			Height:       s.Height,
+			MaxInputLen:  s.MaxInputLen,
+		})
+	}
+	cfg.ShutdownMsg = func(reason string) tea.Msg { return tui.ShutdownMsg{Reason: reason} }
+	if err := os.MkdirAll(cfg.StateDir, 0o700); err != nil {
+		fmt.Fprintf(env.Stderr, "enthalpath serve: --state-dir %s: %v\n", cfg.StateDir, err)
+		return cli.ExitUsage
+	}
+	srv, err := serve.New(cfg)
+	if err != nil {
+		fmt.Fprintf(env.Stderr, "enthalpath serve: %v\n", err)
+		return cli.ExitUsage
+	}
+
+	signals := make(chan os.Signal, 1)
+	signal.Notify(signals, syscall.SIGINT, syscall.SIGTERM)
+	served := make(chan error, 1)
+	go func() { served <- srv.ListenAndServe(f.listen) }()
+	select {
+	case err := <-served:
+		signal.Stop(signals)
+		if err != nil {
+			fmt.Fprintf(env.Stderr, "enthalpath serve: %v\n", err)
+			return cli.ExitInternal
+		}
+		return cli.ExitOK
+	case sig := <-signals:
+		// A second signal ends the process at once (Go's default action).
+		signal.Stop(signals)
+		log.Info("signal received; saving every session's work", "signal", sig.String())
+	}
+	ctx, cancel := context.WithTimeout(context.Background(), shutdownDeadline)
+	defer cancel()
+	code := cli.ExitOK
+	if err := srv.Shutdown(ctx); err != nil {
+		log.Error("shutdown incomplete", "error", err.Error())
+		code = cli.ExitInternal
+	}
+	select {
+	case <-served:
+	case <-ctx.Done():
+	}
+	return code
 }
