@@ -1,0 +1,165 @@
+package analysis
+
+import (
+	"fmt"
+	"math"
+	"slices"
+	"sync"
+
+	"enthalpath/cycle"
+	"enthalpath/data"
+)
+
+// Analyst runs the analyses over one data set. Make one with New and share
+// it: it is safe for concurrent use.
+type Analyst struct {
+	db   *data.DB
+	memo *cycle.Memo
+
+	mu      sync.Mutex
+	spreads map[string]spreadEntry
+}
+
+type spreadEntry struct {
+	s   Spread
+	err error
+}
+
+// New returns an Analyst over db (which it only reads).
+func New(db *data.DB) *Analyst {
+	return &Analyst{db: db, memo: cycle.NewMemo(), spreads: map[string]spreadEntry{}}
+}
+
+// DB returns the data the Analyst reads.
+func (a *Analyst) DB() *data.DB { return a.db }
+
+// Memo returns the Madelung memo the Analyst's cycles share.
+func (a *Analyst) Memo() *cycle.Memo { return a.memo }
+
+// SpreadFamilies are the compound families over which Spread measures a
+// model against the cycle: the salts for which the ionic models were made.
+func SpreadFamilies() []string { return []string{"alkali halide", "alkaline-earth halide"} }
+
+// Spread is how far one lattice model strays from the Born–Haber cycle over
+// the built-in alkali and alkaline-earth halides: the basis of the model
+// uncertainty of an estimate.
+type Spread struct {
+	// Model is the model name (cycle.ModelNames).
+	Model string
+	// Compounds is how many salts entered; Skipped lists those the model or
+	// the cycle could not evaluate, with the reason.
+	Compounds int
+	Skipped   []string
+	// MeanPercent is the mean of 100·(cycle − model)/|model| (negative when
+	// the cycle binds more), RMSPercent its root mean square and
+	// MaxPercent the largest |gap| %, reached for Worst.
+	MeanPercent, RMSPercent, MaxPercent float64
+	Worst                               string
+}
+
+// Relative returns the model's relative standard uncertainty (RMS/100).
+func (s Spread) Relative() float64 { return s.RMSPercent / 100 }
+
+// Basis describes the spread in words, for output.
+func (s Spread) Basis() string {
+	return fmt.Sprintf("%s model σ = %.1f %% of its value: RMS gap to the cycle over %d built-in alkali and alkaline-earth halides (mean %+.1f %%, largest %.1f %% for %s), computed from the data",
+		s.Model, s.RMSPercent, s.Compounds, s.MeanPercent, s.MaxPercent, s.Worst)
+}
+
+// ModelSpread computes (once per Analyst and model, then remembers) the
+// Spread of model with the same options an estimate uses by default.
+func (a *Analyst) ModelSpread(model string) (Spread, error) {
+	a.mu.Lock()
+	e, ok := a.spreads[model]
+	a.mu.Unlock()
+	if ok {
+		return e.s, e.err
+	}
+	s, err := a.computeSpread(model)
+	a.mu.Lock()
+	a.spreads[model] = spreadEntry{s, err}
+	a.mu.Unlock()
+	return s, err
+}
+
+func (a *Analyst) computeSpread(model string) (Spread, error) {
+	if _, err := cycle.ParseModel(model); err != nil {
+		return Spread{}, err
+	}
+	s := Spread{Model: model}
+	var sum, sumSq float64
+	for _, comp := range a.db.Compounds() {
+		if !slices.Contains(SpreadFamilies(), comp.Family) || !comp.Formation.Known() {
+			continue
+		}
+		c, err := cycle.Build(a.db, comp.Formula, cycle.Options{Memo: a.memo})
+		if err != nil {
+			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
+			continue
+		}
+		cyc, _, err := cycleLattice(c)
+		if err != nil {
+			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
+			continue
+		}
+		m, err := cycle.EvaluateModel(c, model)
+		if err != nil {
+			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
+			continue
+		}
+		g := 100 * (cyc - m.Value) / math.Abs(m.Value)
+		sum += g
+		sumSq += g * g
+		s.Compounds++
+		if math.Abs(g) > s.MaxPercent {
+			s.MaxPercent, s.Worst = math.Abs(g), comp.Formula
+		}
+	}
+	if s.Compounds < 3 {
+		return s, &InputError{Subject: model, Reason: fmt.Sprintf("only %d built-in halides can be evaluated with this model, too few to measure its spread", s.Compounds)}
+	}
+	n := float64(s.Compounds)
+	s.MeanPercent = sum / n
+	s.RMSPercent = math.Sqrt(sumSq / n)
+	return s, nil
+}
+
+// cycleLattice returns the lattice step of c (negative, in c's lattice
+// convention) closed by Hess's law over the other steps, and its σ, without
+// evaluating any model. Every other step must have a value.
+func cycleLattice(c *cycle.Cycle) (float64, float64, error) {
+	w := c.Clone()
+	if err := w.SolveFor("lattice"); err != nil {
+		return 0, 0, err
+	}
+	if err := missingStep(w); err != nil {
+		return 0, 0, err
+	}
+	r, u := cycle.Residual(w)
+	// Σ sign·m·base over the other steps plus the lattice step's base is
+	// zero; under LatticeEnergy the step is shifted from its base by the
+	// Jenkins correction.
+	v := -r
+	if w.Conventions.Lattice == cycle.LatticeEnergy {
+		v += w.LatticeCorrection()
+	}
+	return v, u, nil
+}
+
+// missingStep returns a *cycle.MissingError for the first step without a
+// value that Hess's sum needs (a composite's sub-steps stand for it).
+func missingStep(c *cycle.Cycle) error {
+	for i := range c.Steps {
+		s := &c.Steps[i]
+		if !s.Missing() {
+			continue
+		}
+		if s.Parent != "" {
+			if p, ok := c.Step(s.Parent); ok && p.Source.Kind != cycle.SourceSum {
+				continue // the parent's own value stands for its sub-steps
+			}
+		}
+		return &cycle.MissingError{Key: s.Key, What: s.Label}
+	}
+	return nil
+}

@@ -1,0 +1,47 @@
+// Package analysis answers the questions that bring a chemist to a
+// Born–Haber cycle beyond one cycle: would a hypothetical compound be stable
+// (Estimate), which oxidation state of a metal wins against a non-metal
+// (Scan), how much heat a salt gives when it dissolves (Solution), what
+// radius a complex ion behaves as (DeriveRadius), and all of that for many
+// formulas at once (Batch).
+//
+// Every analysis is a cycle of package enthalpath/cycle solved in a
+// particular direction; this package only chooses the direction, fills the
+// inputs a hypothetical compound lacks and reports the numbers with their
+// provenance. Energies are kJ/mol of the reaction as written; the lattice
+// step goes from gaseous ions to the solid and is negative.
+//
+// # Shape
+//
+// An *Analyst holds the data (read only), one Madelung memo and the model
+// spreads it has computed, so that one Analyst serves a whole batch or a
+// whole interactive session; it is safe for concurrent use. It keeps no
+// global state and touches no terminal or file (Batch reads and writes the
+// streams it is given).
+//
+// # Radii of hypothetical ions
+//
+// A hypothetical ion (Mg⁺, Mg³⁺, Cl²⁻) has no Shannon radius. IonRadius then
+// takes the six-coordinate radius of the ion of the same charge of the
+// nearest element by atomic number that has one (the "neighbour rule": Mg⁺
+// is given the radius of Na⁺, Mg³⁺ that of Al³⁺), the usual assumption of
+// textbook estimates of MgCl and MgCl₃ (common practice, no source). The
+// user can give any radius instead.
+//
+// # Model uncertainty
+//
+// The lattice step of an estimate comes from a model, and the model is the
+// largest uncertainty. Its standard uncertainty is the root-mean-square
+// relative gap between that model and the cycle over the built-in alkali
+// and alkaline-earth halides that have a formation enthalpy (Spread),
+// computed from the data at first use, never typed in: see
+// Analyst.ModelSpread and the test that reports it. The σ of an estimate is
+// the root sum of squares of that model σ and the data uncertainties the
+// cycle propagates.
+//
+// # Entropy
+//
+// Every comparison here is of enthalpies. Free energies decide stability;
+// for salts of the same metal the entropy terms largely cancel, but not
+// always, and the output says so.
+package analysis

@@ -1,0 +1,294 @@
+package analysis
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+
+	"enthalpath/cycle"
+	"enthalpath/data"
+)
+
+// DefaultModel is the lattice model of an estimate unless another is asked.
+const DefaultModel = cycle.ModelKapustinkii
+
+// EstimateModels are the models an estimate can take its lattice step from:
+// those that need no measured cell of the compound.
+func EstimateModels() []string {
+	return []string{cycle.ModelKapustinkii, cycle.ModelBornMayer, cycle.ModelBornLande, cycle.ModelVolume, cycle.ModelEwald}
+}
+
+// EstimateOptions choose how an estimate is made; the zero value estimates
+// the formation enthalpy with Kapustinskii and the ions the data choose.
+type EstimateOptions struct {
+	// Charges fix the ions' charges by element symbol (or polyatomic core).
+	Charges Charges
+	// Model is one of EstimateModels; "" means DefaultModel.
+	Model string
+	// Structure is a prototype of thermo/crystal for the Born models
+	// ("rock-salt"); "" keeps the compound's own, or the radius-ratio rule.
+	Structure string
+	// CationRadius and AnionRadius (Å), when positive, replace the radii.
+	CationRadius, AnionRadius float64
+	// Sets replace step values (kJ/mol per reaction as written).
+	Sets []cycle.Setting
+	// Solve is the step to solve; "" means formation.
+	Solve string
+}
+
+// IonUse is one ion of an estimate.
+type IonUse struct {
+	Symbol string
+	Charge int
+	Count  int
+	// Hypothetical marks an ion the data do not list.
+	Hypothetical bool
+	Radius       Radius
+}
+
+// Estimate is the outcome of an estimate: the lattice step from a model
+// and the step solved by Hess's law (usually the formation enthalpy).
+type Estimate struct {
+	Formula   string
+	Tabulated bool
+	Cation    IonUse
+	Anion     IonUse
+	// Model is the model name, ModelTitle and ModelCitation describe it.
+	Model, ModelTitle, ModelCitation string
+	// Lattice is the model's lattice step (negative, kJ/mol) as ΔH_L at
+	// 298.15 K, LatticeEnergy the same as U.
+	Lattice, LatticeEnergy float64
+	// ModelUncertainty is the model's σ (kJ/mol), from Spread.
+	ModelUncertainty float64
+	Spread           Spread
+	// Solved is the solved step; Value and Uncertainty repeat its value
+	// and total σ, InputUncertainty the part of σ from the data alone.
+	Solved                               cycle.Step
+	Value, Uncertainty, InputUncertainty float64
+	// Measured is the data's value of the solved step, when it has one.
+	Measured *cycle.Entry
+	// Result is the solved cycle (steps, notes, warnings, other models).
+	Result *cycle.Result
+	// Notes explain the choices made.
+	Notes []string
+}
+
+// Estimate builds the cycle of formula (tabulated or not), fills its
+// lattice step from a model with the model's σ, and solves opt.Solve
+// (formation unless said otherwise).
+func (a *Analyst) Estimate(formula string, opt EstimateOptions) (*Estimate, error) {
+	c, est, err := a.prepare(formula, opt)
+	if err != nil {
+		return nil, err
+	}
+	res, err := cycle.Solve(c)
+	if err != nil {
+		return nil, err
+	}
+	est.Result = res
+	est.Solved = res.Solved
+	est.Value, est.Uncertainty = res.Solved.Value, res.Solved.Uncertainty
+	m := math.Abs(res.Solved.Multiplicity)
+	est.InputUncertainty = math.Sqrt(math.Max(0, sq(est.Uncertainty)-sq(est.ModelUncertainty/m)))
+	return est, nil
+}
+
+// quickFormation is Estimate's answer without the model comparison: the
+// solved value and σ (for scans and batches, where speed matters).
+func (a *Analyst) quickEstimate(formula string, opt EstimateOptions) (*Estimate, error) {
+	c, est, err := a.prepare(formula, opt)
+	if err != nil {
+		return nil, err
+	}
+	if est.Solved.Key != "formation" {
+		return a.Estimate(formula, opt)
+	}
+	if err := missingStep(c); err != nil {
+		return nil, err
+	}
+	r, u := cycle.Residual(c)
+	est.Value, est.Uncertainty = r, u
+	est.InputUncertainty = math.Sqrt(math.Max(0, sq(u)-sq(est.ModelUncertainty)))
+	if s, ok := c.Step("formation"); ok {
+		est.Solved = *s
+		est.Solved.Value, est.Solved.Uncertainty = r, u
+		est.Solved.Source = cycle.Source{Kind: cycle.SourceSolved, Citation: "Hess's law over the other steps"}
+	}
+	return est, nil
+}
+
+func sq(x float64) float64 { return x * x }
+
+// prepare builds the cycle with the model's lattice step and the unknown.
+func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *Estimate, error) {
+	model := opt.Model
+	if model == "" {
+		model = DefaultModel
+	}
+	model, err := cycle.ParseModel(model)
+	if err != nil {
+		return nil, nil, err
+	}
+	bo := cycle.Options{Memo: a.memo}
+	if len(opt.Charges) > 0 {
+		bo.Cation, bo.Anion, err = a.ionsFromCharges(formula, opt.Charges)
+		if err != nil {
+			return nil, nil, err
+		}
+	}
+	c, err := cycle.Build(a.db, formula, bo)
+	if err != nil {
+		return nil, nil, err
+	}
+	est := &Estimate{Formula: c.Formula, Tabulated: c.Tabulated, Model: model}
+	if opt.Structure != "" {
+		c.Settings.Structure = cycle.Structure{Prototype: opt.Structure}
+		c.Settings.Distance = cycle.DistanceRadii
+	}
+	if !c.Tabulated || c.Settings.Structure.Empty() || !c.Settings.Structure.FromData {
+		// No measured cell of this compound: d₀ from the radii.
+		c.Settings.Distance = cycle.DistanceRadii
+	}
+	for _, side := range []struct {
+		p    *cycle.Part
+		use  *IonUse
+		user float64
+	}{{&c.Cation, &est.Cation, opt.CationRadius}, {&c.Anion, &est.Anion, opt.AnionRadius}} {
+		in := &side.p.Ion
+		*side.use = IonUse{Symbol: in.Symbol, Charge: in.Charge, Count: side.p.Count,
+			Hypothetical: strings.Contains(in.Note, "hypothetical")}
+		var r Radius
+		switch {
+		case side.user > 0:
+			r = Radius{Value: side.user, Kind: "user", From: fmt.Sprintf("radius of %s given by the user", in.Symbol)}
+			useRadius(in, r)
+		default:
+			r, err = IonRadius(a.db, *in)
+			if err == nil && r.Kind == "neighbour" {
+				useRadius(in, r)
+			}
+		}
+		if err != nil && model != cycle.ModelVolume {
+			return nil, nil, &InputError{Subject: formula, Field: "radius of " + in.Symbol, Reason: "the " + model + " model needs it", Err: err}
+		}
+		side.use.Radius = r
+		if r.Kind == "neighbour" || r.Kind == "user" {
+			est.Notes = append(est.Notes, r.From)
+		}
+	}
+	for _, s := range opt.Sets {
+		if err := s.Apply(c); err != nil {
+			return nil, nil, &InputError{Subject: formula, Field: "--set " + s.Key, Reason: "cannot be applied", Err: err}
+		}
+	}
+	m, err := cycle.EvaluateModel(c, model)
+	if err != nil {
+		return nil, nil, &InputError{Subject: formula, Field: "lattice step", Reason: "the " + model + " model cannot give it", Err: err}
+	}
+	spread, err := a.ModelSpread(model)
+	if err != nil {
+		return nil, nil, &InputError{Subject: formula, Field: "model uncertainty", Reason: "cannot measure the " + model + " model's spread", Err: err}
+	}
+	est.ModelTitle, est.ModelCitation = m.Title, m.Citation
+	est.Spread = spread
+	est.ModelUncertainty = spread.Relative() * math.Abs(m.Value)
+	est.Lattice = m.Value
+	if c.Conventions.Lattice == cycle.LatticeEnergy {
+		est.Lattice = m.Value - c.LatticeCorrection()
+	}
+	est.LatticeEnergy = m.Energy
+	if err := c.Set("lattice", m.Value, est.ModelUncertainty); err != nil {
+		return nil, nil, err
+	}
+	if s, ok := c.Step("lattice"); ok {
+		s.Source = cycle.Source{Kind: cycle.SourceModel, Key: model, Citation: m.Citation,
+			Note: "lattice step from the " + model + " model; σ: " + spread.Basis()}
+	}
+	solve := opt.Solve
+	if solve == "" {
+		solve = "formation"
+	}
+	if solve == "lattice" {
+		return nil, nil, &InputError{Subject: formula, Field: "--solve lattice", Reason: "an estimate takes the lattice step from a model; solve another step, or use the cycle command"}
+	}
+	s, ok := c.Step(solve)
+	if !ok {
+		return nil, nil, &cycle.StepError{Key: solve, Valid: c.Keys()}
+	}
+	if s.Reference != nil {
+		ref := *s.Reference
+		est.Measured = &ref
+	}
+	if err := c.SolveFor(solve); err != nil {
+		return nil, nil, err
+	}
+	est.Solved = *s
+	est.Notes = append(est.Notes, "entropy is not included: these are enthalpies, and stability is decided by free energies")
+	return c, est, nil
+}
+
+// ionsFromCharges turns charges into the cation and anion symbols of
+// cycle.Options for formula.
+func (a *Analyst) ionsFromCharges(formula string, ch Charges) (string, string, error) {
+	var cat, an string
+	for core, z := range ch {
+		sym := a.ionSymbol(core, z)
+		switch {
+		case z > 0 && cat == "":
+			cat = sym
+		case z < 0 && an == "":
+			an = sym
+		default:
+			return "", "", &InputError{Subject: formula, Field: "--charges", Reason: "give one positive and one negative charge (one cation and one anion)"}
+		}
+	}
+	first, second := firstTwoSymbols(formula)
+	if cat == "" || an == "" {
+		// The other ion: the data's ion of the other element.
+		other, positive := second, false
+		if cat == "" {
+			other, positive = first, true
+		}
+		if _, given := ch[other]; given || other == "" {
+			return "", "", &InputError{Subject: formula, Field: "--charges", Reason: "give one positive and one negative charge"}
+		}
+		sym, err := a.dataIon(other, positive)
+		if err != nil {
+			return "", "", &InputError{Subject: formula, Field: "--charges", Reason: "give the charge of " + other + " too", Err: err}
+		}
+		if positive {
+			cat = sym
+		} else {
+			an = sym
+		}
+	}
+	return cat, an, nil
+}
+
+func (a *Analyst) ionSymbol(core string, z int) string {
+	if in, err := a.db.IonByCharge(core, z); err == nil {
+		return in.Symbol
+	}
+	return core + chargeSuffix(z)
+}
+
+// dataIon returns the symbol of the data's monatomic ion of element el with
+// the sign asked; several: the one of lowest |charge| for a cation, highest
+// for an anion.
+func (a *Analyst) dataIon(el string, positive bool) (string, error) {
+	var best *data.Ion
+	for _, in := range a.db.Ions() {
+		if in.Polyatomic || in.Core != el || (in.Charge > 0) != positive {
+			continue
+		}
+		if best == nil || (positive && in.Charge < best.Charge) || (!positive && in.Charge < best.Charge) {
+			b := in
+			best = &b
+		}
+	}
+	if best == nil {
+		return "", errors.New("the data have no such ion of " + el)
+	}
+	return best.Symbol, nil
+}
