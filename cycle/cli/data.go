@@ -1,4 +1,565 @@
 package cli
 
-// runData is replaced by the real command when its engine lands.
-func runData(env Env, args []string) error { return errNotBuilt }
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"slices"
+	"strconv"
+	"strings"
+
+	"enthalpath/data"
+	"enthalpath/thermo"
+)
+
+const dataSynopsis = `data QUERY [--kind element|ion|compound] [--json]
+       enthalpath data --list elements|ions|compounds|sources [--json]`
+
+// runData shows one element, ion or compound with every value, its
+// uncertainty, unit and source, or lists the keys of one table.
+func runData(env Env, args []string) error {
+	fs := newFlagSet("data", dataSynopsis, env.Stderr)
+	var asJSON bool
+	var kind, list string
+	fs.BoolVar(&asJSON, "json", false, "print JSON")
+	fs.StringVar(&kind, "kind", "", "read QUERY as an `element`, ion or compound (default: an ion if it ends in a charge, else an element, else a compound)")
+	fs.StringVar(&list, "list", "", "list every `TABLE` row key: elements, ions, compounds or sources")
+	pos, err := parseInterleaved(fs, args)
+	if err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			return nil
+		}
+		return &UsageError{err}
+	}
+	if list == "" && len(pos) != 1 {
+		return Usagef("give one QUERY (an element symbol, an ion such as Fe3+ or SO4^2-, or a formula): usage: enthalpath %s", dataSynopsis)
+	}
+	if list != "" && len(pos) > 0 {
+		return Usagef("--list takes no QUERY")
+	}
+	db, err := dataWithOverlay(env)
+	if err != nil {
+		return err
+	}
+	if list != "" {
+		return dataList(env.Stdout, db, list, asJSON)
+	}
+	q := pos[0]
+	var rec any
+	switch kind {
+	case "element":
+		e, err := db.Element(q)
+		if err != nil {
+			return &UsageError{err}
+		}
+		rec = e
+	case "ion":
+		ion, err := db.Ion(q)
+		if err != nil {
+			return &UsageError{err}
+		}
+		rec = ion
+	case "compound":
+		c, err := db.Compound(q)
+		if err != nil {
+			return &UsageError{err}
+		}
+		rec = c
+	case "":
+		if rec, err = dataFindAny(db, q); err != nil {
+			return err
+		}
+	default:
+		return Usagef("--kind %q: give element, ion or compound", kind)
+	}
+	if asJSON {
+		return writeJSON(env.Stdout, dataJSON(db, rec))
+	}
+	dataPrint(env.Stdout, db, rec)
+	return nil
+}
+
+// dataWithOverlay loads the built-in data with the --data file, or else the
+// default overlay file when it exists. A broken default file is reported on
+// stderr and the built-in data are used.
+func dataWithOverlay(env Env) (*data.DB, error) {
+	if env.DataFile != "" {
+		return loadData(env)
+	}
+	path, err := data.DefaultOverlayPath()
+	if err == nil {
+		if _, statErr := os.Stat(path); statErr == nil {
+			db, err := data.LoadWithUserFile(path)
+			if err != nil && db != nil {
+				fmt.Fprintf(env.Stderr, "enthalpath data: ignoring the overlay file: %v\n", err)
+				return db, nil
+			}
+			if err != nil {
+				return nil, fmt.Errorf("loading the built-in data: %w", err)
+			}
+			return db, nil
+		}
+	}
+	return loadData(env)
+}
+
+// dataFindAny resolves a query: an ion when it ends in a charge, then an
+// element, then a compound. A miss is a usage error with suggestions of
+// every kind.
+func dataFindAny(db *data.DB, q string) (any, error) {
+	t := strings.TrimSpace(q)
+	endsInCharge := strings.HasSuffix(t, "+") || strings.HasSuffix(t, "-") || strings.HasSuffix(t, "⁺") || strings.HasSuffix(t, "⁻")
+	var errs []error
+	if endsInCharge {
+		ion, err := db.Ion(t)
+		if err == nil {
+			return ion, nil
+		}
+		errs = append(errs, err)
+	} else {
+		if e, err := db.Element(t); err == nil {
+			return e, nil
+		} else {
+			errs = append(errs, err)
+		}
+		c, err := db.Compound(t)
+		if err == nil {
+			return c, nil
+		}
+		errs = append(errs, err)
+	}
+	var sugg []string
+	for _, err := range errs {
+		var nf *data.NotFoundError
+		if errors.As(err, &nf) {
+			for _, s := range nf.Suggestions {
+				if !slices.Contains(sugg, s) {
+					sugg = append(sugg, s)
+				}
+			}
+		}
+	}
+	msg := fmt.Sprintf("nothing called %q in the data", q)
+	if _, ferr := data.ParseFormula(t); ferr != nil && !endsInCharge && len(t) > 2 {
+		msg += " (" + ferr.Error() + ")"
+	}
+	if len(sugg) > 0 {
+		msg += "; did you mean " + strings.Join(sugg, ", ") + "?"
+	}
+	return nil, Usagef("%s", msg)
+}
+
+// ---- text output ----
+
+// dataValueText writes "107.5 ± 0.7 kJ/mol" with the source key and markers.
+func dataValueText(v data.Value) string {
+	if !v.Known() {
+		return "—"
+	}
+	return dataNumberText(v) + "  " + dataProvenance(v)
+}
+
+func dataNumberText(v data.Value) string {
+	s := strconv.FormatFloat(v.V, 'f', -1, 64)
+	if v.U > 0 {
+		s += " ± " + strconv.FormatFloat(v.U, 'f', -1, 64)
+	}
+	if v.Unit != "" && v.Unit != "1" {
+		s += " " + v.Unit
+	}
+	return s
+}
+
+// dataProvenance writes "[source; memory, derived, override of …]".
+func dataProvenance(v data.Value) string {
+	parts := []string{v.Source}
+	if v.Memory {
+		parts = append(parts, "memory")
+	}
+	if v.Derived {
+		parts = append(parts, "derived")
+	}
+	if v.Override {
+		if v.Replaced != nil {
+			parts = append(parts, "override of "+dataNumberText(*v.Replaced)+" ["+v.Replaced.Source+"]")
+		} else {
+			parts = append(parts, "user value")
+		}
+	}
+	return "[" + strings.Join(parts, "; ") + "]"
+}
+
+// dataCitations collects the source keys used by the values shown.
+type dataCitations struct{ keys []string }
+
+func (c *dataCitations) add(v data.Value) {
+	if v.Known() && !slices.Contains(c.keys, v.Source) {
+		c.keys = append(c.keys, v.Source)
+	}
+	if v.Replaced != nil {
+		c.add(*v.Replaced)
+	}
+}
+
+func (c *dataCitations) write(w io.Writer, db *data.DB) {
+	fmt.Fprintln(w, "\nSources")
+	for _, k := range c.keys {
+		s, err := db.Source(k)
+		if err != nil {
+			fmt.Fprintf(w, "  %-16s (no citation: %v)\n", k, err)
+			continue
+		}
+		fmt.Fprintf(w, "  %-16s %s\n", k, hangingWrap(s.Citation, 78-19, 19))
+	}
+	fmt.Fprintln(w, "\nmemory: entered without the cited document at hand (check it there); derived: from a")
+	fmt.Fprintln(w, "thermochemical cycle; override / user value: from the user's overlay file.")
+}
+
+// hangingWrap wraps s to width runes and indents the continuation lines.
+func hangingWrap(s string, width, indent int) string {
+	return strings.ReplaceAll(wrapText(s, width, ""), "\n", "\n"+strings.Repeat(" ", indent))
+}
+
+func dataPrint(w io.Writer, db *data.DB, rec any) {
+	var cite dataCitations
+	switch r := rec.(type) {
+	case data.Element:
+		dataPrintElement(w, db, r, &cite)
+	case data.Ion:
+		dataPrintIon(w, r, &cite)
+	case data.Compound:
+		dataPrintCompound(w, db, r, &cite)
+	}
+	cite.write(w, db)
+	if ov := db.Overlays(); len(ov) > 0 {
+		fmt.Fprintf(w, "overlay files applied: %s\n", strings.Join(ov, ", "))
+	}
+}
+
+func dataPrintElement(w io.Writer, db *data.DB, e data.Element, cite *dataCitations) {
+	fmt.Fprintf(w, "%s  %s  (Z = %d)   standard state at 298.15 K: %s\n\n", e.Symbol, e.Name, e.Z, e.StandardState)
+	fmt.Fprintf(w, "Atomization ΔfH°(%s, g, 298.15 K)  %s\n", e.Symbol, dataValueText(e.Atomization))
+	cite.add(e.Atomization)
+	if steps := db.AtomizationSteps(e.Symbol); len(steps) > 0 {
+		t := table{head: []string{"step", "kind", "ΔH° (kJ/mol)", "source"}}
+		for _, s := range steps {
+			t.add(s.Reaction, s.Kind, dataNumberText(s.Enthalpy), dataProvenance(s.Enthalpy))
+			cite.add(s.Enthalpy)
+		}
+		fmt.Fprintln(w)
+		t.write(w, "  ")
+	}
+	if len(e.Ionization) > 0 {
+		fmt.Fprintln(w, "\nIonization energies (as published, 0 K)")
+		t := table{head: []string{"stage", "ion formed", "eV", "kJ/mol", "source"}, right: map[int]bool{2: true, 3: true}}
+		for i, v := range e.Ionization {
+			ev := strconv.FormatFloat(v.V, 'f', -1, 64)
+			if v.U > 0 {
+				ev += " ± " + strconv.FormatFloat(v.U, 'f', -1, 64)
+			}
+			t.add(strconv.Itoa(i+1), e.Symbol+dataChargeText(i+1), ev, strconv.FormatFloat(thermo.EVToKJPerMol(v.V), 'f', 1, 64), dataProvenance(v))
+			cite.add(v)
+		}
+		t.write(w, "  ")
+	}
+	fmt.Fprintln(w)
+	for _, a := range []struct {
+		label string
+		v     data.Value
+	}{{"Electron affinity", e.ElectronAffinity}, {"Second electron affinity", e.SecondAffinity}} {
+		if !a.v.Known() {
+			continue
+		}
+		kj := thermo.EVToKJPerMol(a.v.V)
+		fmt.Fprintf(w, "%s  %s eV = %.1f kJ/mol (attachment enthalpy %+.1f kJ/mol)  %s\n", a.label,
+			strconv.FormatFloat(a.v.V, 'f', -1, 64), kj, -kj, dataProvenance(a.v))
+		cite.add(a.v)
+	}
+	if !e.ElectronAffinity.Known() {
+		fmt.Fprintln(w, "Electron affinity  none tabulated (no bound anion, or not in the data)")
+	}
+}
+
+func dataChargeText(n int) string {
+	if n == 1 {
+		return "+"
+	}
+	return strconv.Itoa(n) + "+"
+}
+
+func dataPrintIon(w io.Writer, ion data.Ion, cite *dataCitations) {
+	kind := "monatomic"
+	if ion.Polyatomic {
+		kind = "polyatomic, " + ion.Shape
+	}
+	fmt.Fprintf(w, "%s  core %s, charge %+d, %s\n", ion.Symbol, ion.Core, ion.Charge, kind)
+	if ion.Note != "" {
+		fmt.Fprintf(w, "  %s\n", wrapText(ion.Note, 76, "  "))
+	}
+	fmt.Fprintln(w)
+	if ion.BornConfig != "" {
+		fmt.Fprintf(w, "Born exponent (Pauling, %s class)  n = %s\n", ion.BornConfig, dataValueText(ion.BornExponent))
+		cite.add(ion.BornExponent)
+	}
+	if len(ion.Radii) > 0 {
+		fmt.Fprintln(w, "\nShannon radii (Å)")
+		t := table{head: []string{"CN", "spin", "ionic", "crystal", "source"}, right: map[int]bool{2: true, 3: true}}
+		for _, r := range ion.Radii {
+			cr := "—"
+			if r.Crystal.Known() {
+				cr = strconv.FormatFloat(r.Crystal.V, 'f', -1, 64)
+			}
+			t.add(r.CN, r.Spin, strconv.FormatFloat(r.Ionic.V, 'f', -1, 64), cr, dataProvenance(r.Ionic))
+			cite.add(r.Ionic)
+			cite.add(r.Crystal)
+		}
+		t.write(w, "  ")
+	} else if !ion.Polyatomic {
+		fmt.Fprintln(w, "Shannon radii  none tabulated")
+	}
+	fmt.Fprintln(w)
+	for _, x := range []struct {
+		label string
+		v     data.Value
+	}{{"Thermochemical radius", ion.ThermochemicalRadius}, {"ΔfH°(ion, g, 298.15 K)", ion.GasFormation}} {
+		if x.v.Known() {
+			fmt.Fprintf(w, "%s  %s\n", x.label, dataValueText(x.v))
+			cite.add(x.v)
+		}
+	}
+	for _, h := range ion.Hydrations {
+		fmt.Fprintf(w, "Hydration enthalpy (%s scale)  %s\n", h.Scale, dataValueText(h.Value))
+		if h.Value.Note != "" {
+			fmt.Fprintf(w, "  %s\n", wrapText(h.Value.Note, 76, "  "))
+		}
+		cite.add(h.Value)
+	}
+	if len(ion.Hydrations) == 0 {
+		fmt.Fprintln(w, "Hydration enthalpy  none tabulated")
+	}
+}
+
+func dataPrintCompound(w io.Writer, db *data.DB, c data.Compound, cite *dataCitations) {
+	fmt.Fprintf(w, "%s  %s", c.Formula, c.Name)
+	if c.Family != "" {
+		fmt.Fprintf(w, "  (%s)", c.Family)
+	}
+	fmt.Fprintf(w, "\n  ions: %d × %s, %d × %s\n\n", c.CationCount, c.Cation, c.AnionCount, c.Anion)
+	fmt.Fprintf(w, "Formation ΔfH°(298.15 K)  %s\n", dataValueText(c.Formation))
+	cite.add(c.Formation)
+	st := c.Structure
+	if st == "" {
+		st = "no prototype fits"
+	}
+	fmt.Fprintf(w, "Structure  %s\n", st)
+	if len(c.Params) > 0 {
+		var parts []string
+		for _, k := range slices.Sorted(dataMapKeys(c.Params)) {
+			parts = append(parts, k+" = "+strconv.FormatFloat(c.Params[k], 'f', -1, 64))
+		}
+		marks := []string{c.ParamsSource}
+		if c.ParamsMemory {
+			marks = append(marks, "memory")
+		}
+		if c.ParamsOverride {
+			marks = append(marks, "user value")
+		}
+		fmt.Fprintf(w, "  parameters  %s (lengths in Å)  [%s]\n", strings.Join(parts, ", "), strings.Join(marks, "; "))
+		cite.add(data.Value{Unit: "Å", Source: c.ParamsSource})
+	}
+	if c.Density.Known() {
+		fmt.Fprintf(w, "Density  %s\n", dataValueText(c.Density))
+		cite.add(c.Density)
+	}
+	if c.HandbookLattice.Known() {
+		conv := map[string]string{"U": "lattice energy U", "dH": "lattice enthalpy ΔH_L"}[c.LatticeConvention]
+		fmt.Fprintf(w, "Handbook %s (solid → gaseous ions)  %s\n", conv, dataValueText(c.HandbookLattice))
+		cite.add(c.HandbookLattice)
+	}
+	if c.Note != "" {
+		fmt.Fprintf(w, "Note  %s\n", wrapText(c.Note, 72, "      "))
+	}
+	for _, sym := range []string{c.Cation, c.Anion} {
+		if _, err := db.Ion(sym); err != nil {
+			fmt.Fprintf(w, "warning: %v\n", err)
+		}
+	}
+}
+
+func dataMapKeys[V any](m map[string]V) func(func(string) bool) {
+	return func(yield func(string) bool) {
+		for k := range m {
+			if !yield(k) {
+				return
+			}
+		}
+	}
+}
+
+// ---- lists ----
+
+func dataList(w io.Writer, db *data.DB, what string, asJSON bool) error {
+	var keys []string
+	switch what {
+	case "elements":
+		for _, e := range db.Elements() {
+			keys = append(keys, e.Symbol)
+		}
+	case "ions":
+		for _, i := range db.Ions() {
+			keys = append(keys, i.Symbol)
+		}
+	case "compounds":
+		for _, c := range db.Compounds() {
+			keys = append(keys, c.Formula)
+		}
+	case "sources":
+		if asJSON {
+			out := []map[string]string{}
+			for _, s := range db.Sources() {
+				out = append(out, map[string]string{"key": s.Key, "citation": s.Citation})
+			}
+			return writeJSON(w, out)
+		}
+		for _, s := range db.Sources() {
+			fmt.Fprintf(w, "%-16s %s\n", s.Key, hangingWrap(s.Citation, 78-17, 17))
+		}
+		return nil
+	default:
+		return Usagef("--list %q: give elements, ions, compounds or sources", what)
+	}
+	if asJSON {
+		return writeJSON(w, keys)
+	}
+	fmt.Fprintln(w, wrapText(strings.Join(keys, " "), 78, ""))
+	return nil
+}
+
+// ---- JSON ----
+
+type dataValueJSON struct {
+	Value       jsonNumber     `json:"value"`
+	Uncertainty jsonNumber     `json:"uncertainty"`
+	Unit        string         `json:"unit"`
+	Source      string         `json:"source"`
+	Citation    string         `json:"citation,omitempty"`
+	Memory      bool           `json:"memory"`
+	Derived     bool           `json:"derived"`
+	Override    bool           `json:"override"`
+	Replaced    *dataValueJSON `json:"replaced,omitempty"`
+	Note        string         `json:"note,omitempty"`
+}
+
+func dataValueOf(db *data.DB, v data.Value) *dataValueJSON {
+	if !v.Known() {
+		return nil
+	}
+	out := &dataValueJSON{Value: jsonNumber(v.V), Uncertainty: jsonNumber(v.U), Unit: v.Unit, Source: v.Source,
+		Memory: v.Memory, Derived: v.Derived, Override: v.Override, Note: v.Note}
+	if s, err := db.Source(v.Source); err == nil {
+		out.Citation = s.Citation
+	}
+	if v.Replaced != nil {
+		out.Replaced = dataValueOf(db, *v.Replaced)
+	}
+	return out
+}
+
+func dataNumber(v data.Value) *jsonNumber {
+	if !v.Known() {
+		return nil
+	}
+	n := jsonNumber(v.V)
+	return &n
+}
+
+type dataStepJSON struct {
+	Kind          string         `json:"kind"`
+	Reaction      string         `json:"reaction"`
+	AtomsProduced int            `json:"atoms_produced"`
+	Enthalpy      *dataValueJSON `json:"enthalpy_kj_per_mol"`
+}
+
+type dataRadiusJSON struct {
+	CN           string         `json:"cn"`
+	Coordination int            `json:"coordination"`
+	Spin         string         `json:"spin"`
+	Ionic        *dataValueJSON `json:"ionic_radius"`
+	Crystal      *dataValueJSON `json:"crystal_radius,omitempty"`
+}
+
+type dataScaledJSON struct {
+	Scale string         `json:"scale"`
+	Value *dataValueJSON `json:"enthalpy"`
+}
+
+func dataJSON(db *data.DB, rec any) any {
+	switch r := rec.(type) {
+	case data.Element:
+		ies := []jsonNumber{}
+		var ieVals []*dataValueJSON
+		for _, v := range r.Ionization {
+			ies = append(ies, jsonNumber(v.V))
+			ieVals = append(ieVals, dataValueOf(db, v))
+		}
+		var steps []dataStepJSON
+		for _, s := range db.AtomizationSteps(r.Symbol) {
+			steps = append(steps, dataStepJSON{s.Kind, s.Reaction, s.AtomsProduced, dataValueOf(db, s.Enthalpy)})
+		}
+		return map[string]any{
+			"kind": "element", "symbol": r.Symbol, "name": r.Name, "z": r.Z, "standard_state": r.StandardState,
+			"atomization_kj_per_mol":            dataNumber(r.Atomization),
+			"atomization":                       dataValueOf(db, r.Atomization),
+			"atomization_steps":                 steps,
+			"ionization_energies_ev":            ies,
+			"ionization_energies":               ieVals,
+			"electron_affinity_ev":              dataNumber(r.ElectronAffinity),
+			"electron_affinity":                 dataValueOf(db, r.ElectronAffinity),
+			"second_electron_affinity_ev":       dataNumber(r.SecondAffinity),
+			"second_electron_affinity":          dataValueOf(db, r.SecondAffinity),
+			"ionization_energy_convention":      "0 K, as published",
+			"electron_affinity_sign_convention": "positive when attachment releases energy",
+		}
+	case data.Ion:
+		var radii []dataRadiusJSON
+		for _, x := range r.Radii {
+			radii = append(radii, dataRadiusJSON{x.CN, x.Coordination, x.Spin, dataValueOf(db, x.Ionic), dataValueOf(db, x.Crystal)})
+		}
+		var hyd []dataScaledJSON
+		for _, h := range r.Hydrations {
+			hyd = append(hyd, dataScaledJSON{h.Scale, dataValueOf(db, h.Value)})
+		}
+		return map[string]any{
+			"kind": "ion", "symbol": r.Symbol, "core": r.Core, "charge": r.Charge, "polyatomic": r.Polyatomic, "shape": r.Shape,
+			"born_config": r.BornConfig, "born_exponent": dataValueOf(db, r.BornExponent),
+			"shannon_radii":         radii,
+			"thermochemical_radius": dataValueOf(db, r.ThermochemicalRadius),
+			"gas_formation":         dataValueOf(db, r.GasFormation),
+			"hydration":             hyd,
+			"note":                  r.Note,
+		}
+	case data.Compound:
+		params := map[string]jsonNumber{}
+		for k, v := range r.Params {
+			params[k] = jsonNumber(v)
+		}
+		return map[string]any{
+			"kind": "compound", "formula": r.Formula, "name": r.Name, "family": r.Family,
+			"cation": r.Cation, "cation_count": r.CationCount, "anion": r.Anion, "anion_count": r.AnionCount,
+			"formation_enthalpy_kj_per_mol": dataNumber(r.Formation),
+			"formation_enthalpy":            dataValueOf(db, r.Formation),
+			"structure":                     r.Structure,
+			"params":                        params,
+			"params_source":                 r.ParamsSource,
+			"params_memory":                 r.ParamsMemory,
+			"params_override":               r.ParamsOverride,
+			"density_g_cm3":                 dataValueOf(db, r.Density),
+			"handbook_lattice_kj_per_mol":   dataValueOf(db, r.HandbookLattice),
+			"handbook_lattice_convention":   r.LatticeConvention,
+			"note":                          r.Note,
+		}
+	}
+	return nil
+}

@@ -1,0 +1,175 @@
+package cli
+
+import (
+	"bytes"
+	"encoding/json"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// runDataCmd runs "enthalpath data ARGS" in-process with no user overlay
+// unless dataFile is given; XDG_CONFIG_HOME points at an empty directory so
+// a real ~/.config/enthalpath/data.toml cannot leak in.
+func runDataCmd(t *testing.T, dataFile string, args ...string) (code int, stdout, stderr string) {
+	t.Helper()
+	if os.Getenv("ENTHALPATH_TEST_KEEP_CONFIG") == "" {
+		t.Setenv("XDG_CONFIG_HOME", t.TempDir())
+	}
+	var out, errb bytes.Buffer
+	code = Run(Env{Stdout: &out, Stderr: &errb, DataFile: dataFile}, "data", args)
+	return code, out.String(), errb.String()
+}
+
+func TestDataElementJSON(t *testing.T) {
+	code, out, errs := runDataCmd(t, "", "Na", "--json")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var got struct {
+		Kind  string    `json:"kind"`
+		IE    []float64 `json:"ionization_energies_ev"`
+		EA    *float64  `json:"electron_affinity_ev"`
+		Atom  *float64  `json:"atomization_kj_per_mol"`
+		Steps []struct {
+			Reaction string `json:"reaction"`
+		} `json:"atomization_steps"`
+		IEVals []struct {
+			Source   string `json:"source"`
+			Citation string `json:"citation"`
+			Unit     string `json:"unit"`
+		} `json:"ionization_energies"`
+	}
+	if err := json.Unmarshal([]byte(out), &got); err != nil {
+		t.Fatalf("%v\n%s", err, out)
+	}
+	// NIST ASD: IE1(Na) = 5.1390767 eV; Rienstra-Kiracofe et al. 2002:
+	// EA(Na) = 0.547926 eV; CODATA 1989: ΔfH°(Na, g) = 107.5 kJ/mol (all from memory).
+	if got.Kind != "element" || len(got.IE) < 4 || math.Abs(got.IE[0]-5.1390767) > 1e-4 {
+		t.Errorf("ionization_energies_ev = %v", got.IE)
+	}
+	if got.EA == nil || math.Abs(*got.EA-0.547926) > 1e-4 {
+		t.Errorf("electron_affinity_ev = %v", got.EA)
+	}
+	if got.Atom == nil || math.Abs(*got.Atom-107.5) > 0.01 {
+		t.Errorf("atomization_kj_per_mol = %v", got.Atom)
+	}
+	if len(got.Steps) != 1 || got.IEVals[0].Source != "nist-asd" || !strings.Contains(got.IEVals[0].Citation, "Kramida") || got.IEVals[0].Unit != "eV" {
+		t.Errorf("steps %v, first IE %+v", got.Steps, got.IEVals[0])
+	}
+}
+
+func TestDataCompoundJSON(t *testing.T) {
+	code, out, errs := runDataCmd(t, "", "NaCl", "--json")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var got map[string]any
+	if err := json.Unmarshal([]byte(out), &got); err != nil {
+		t.Fatal(err)
+	}
+	// NBS tables (Wagman et al. 1982): ΔfH°(NaCl, s) = −411.153 kJ/mol (from memory).
+	f, ok := got["formation_enthalpy_kj_per_mol"].(float64)
+	if !ok || math.Abs(f-(-411.153)) > 0.5 {
+		t.Errorf("formation_enthalpy_kj_per_mol = %v", got["formation_enthalpy_kj_per_mol"])
+	}
+	if got["kind"] != "compound" || got["cation"] != "Na+" || got["anion"] != "Cl-" {
+		t.Errorf("compound JSON: %v", got)
+	}
+}
+
+func TestDataText(t *testing.T) {
+	cases := []struct {
+		args []string
+		want []string
+	}{
+		{[]string{"Br"}, []string{"Br2(l) → Br2(g)", "Br2(g) → 2 Br(g)", "Electron affinity", "codata1989", "Sources"}},
+		{[]string{"O"}, []string{"Second electron affinity", "derived", "shriver2010"}},
+		{[]string{"Fe3+"}, []string{"Shannon radii", "VI    HS", "shannon1976", "Born exponent"}},
+		{[]string{"Ca 2+"}, []string{"Ca2+", "Shannon radii"}},
+		{[]string{"sodium"}, []string{"Na  sodium"}},
+		{[]string{"ClNa"}, []string{"NaCl", "Formation ΔfH°", "nbs1982"}},
+		{[]string{"--kind", "element", "Co"}, []string{"Co  cobalt"}},
+		{[]string{"--list", "sources"}, []string{"shannon1976", "Acta Crystallogr."}},
+		{[]string{"--list", "ions", "--json"}, []string{`"Na+"`}},
+	}
+	for _, c := range cases {
+		code, out, errs := runDataCmd(t, "", c.args...)
+		if code != ExitOK {
+			t.Errorf("data %v: exit %d: %s", c.args, code, errs)
+			continue
+		}
+		for _, w := range c.want {
+			if !strings.Contains(out, w) {
+				t.Errorf("data %v: output lacks %q:\n%s", c.args, w, out)
+			}
+		}
+	}
+}
+
+func TestDataUnknownQuery(t *testing.T) {
+	cases := []struct {
+		args []string
+		want string
+	}{
+		{[]string{"Nq"}, "did you mean"},
+		{[]string{"Na2Q"}, `unknown element "Q" at column 3`},
+		{[]string{"Fe9+"}, "Fe3+"},
+		{[]string{}, "give one QUERY"},
+		{[]string{"--kind", "mineral", "NaCl"}, "--kind"},
+		{[]string{"--list", "minerals"}, "--list"},
+	}
+	for _, c := range cases {
+		code, _, errs := runDataCmd(t, "", c.args...)
+		if code != ExitUsage || !strings.Contains(errs, c.want) {
+			t.Errorf("data %v: exit %d, stderr %q; want exit 2 mentioning %q", c.args, code, errs, c.want)
+		}
+	}
+}
+
+// An invented overlay value (not real data) shows as an override with the
+// built-in value it replaces.
+func TestDataOverlay(t *testing.T) {
+	dir := t.TempDir()
+	file := filepath.Join(dir, "mine.toml")
+	os.WriteFile(file, []byte("[[element]]\nsymbol = \"Na\"\natomization_kj_per_mol = 108.25\n"), 0o600)
+	code, out, errs := runDataCmd(t, file, "Na")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	if !strings.Contains(out, "108.25 kJ/mol  [user; override of 107.5 ± 0.7 kJ/mol [codata1989]]") {
+		t.Errorf("override not shown:\n%s", out)
+	}
+	code, out, _ = runDataCmd(t, file, "Na", "--json")
+	if code != ExitOK || !strings.Contains(out, `"override": true`) || !strings.Contains(out, `"replaced"`) {
+		t.Errorf("JSON lacks the override: %s", out)
+	}
+	bad := filepath.Join(dir, "bad.toml")
+	os.WriteFile(bad, []byte("[[element]]\nsymbol = \"Na\"\natomization_kj_per_mol = \"abc\"\n"), 0o600)
+	code, _, errs = runDataCmd(t, bad, "Na")
+	if code != ExitUsage || !strings.Contains(errs, "line 3") || !strings.Contains(errs, "atomization_kj_per_mol") {
+		t.Errorf("malformed --data file: exit %d, %q", code, errs)
+	}
+}
+
+// The default overlay (os.UserConfigDir()/enthalpath/data.toml) is read when
+// it exists; a broken one is reported and the built-in data are used.
+func TestDataDefaultOverlay(t *testing.T) {
+	cfg := t.TempDir()
+	t.Setenv("XDG_CONFIG_HOME", cfg)
+	t.Setenv("ENTHALPATH_TEST_KEEP_CONFIG", "1")
+	os.MkdirAll(filepath.Join(cfg, "enthalpath"), 0o700)
+	path := filepath.Join(cfg, "enthalpath", "data.toml")
+	os.WriteFile(path, []byte("[[element]]\nsymbol = \"K\"\natomization_kj_per_mol = 90.5\n"), 0o600)
+	code, out, errs := runDataCmd(t, "", "K")
+	if code != ExitOK || !strings.Contains(out, "90.5 kJ/mol  [user; override of 89") {
+		t.Errorf("default overlay not applied: exit %d %s\n%s", code, errs, out)
+	}
+	os.WriteFile(path, []byte("[[element]\n"), 0o600)
+	code, out, errs = runDataCmd(t, "", "K")
+	if code != ExitOK || !strings.Contains(errs, "ignoring the overlay file") || !strings.Contains(out, "89") {
+		t.Errorf("broken default overlay: exit %d, stderr %q", code, errs)
+	}
+}
