@@ -45,6 +45,100 @@ type fileDoc struct {
 	Steps       []fileStepDoc `toml:"step"`
 }
 
+// fileDocIn is fileDoc as read: steps as generic tables, so that a field
+// of the wrong type is reported at its own line (the TOML decoder names only
+// the last step's line for an array of tables).
+type fileDocIn struct {
+	Format      string           `toml:"format"`
+	Version     int              `toml:"version"`
+	Note        string           `toml:"note"`
+	Compound    string           `toml:"compound"`
+	Cation      string           `toml:"cation"`
+	Anion       string           `toml:"anion"`
+	Solve       []string         `toml:"solve"`
+	Conventions fileConv         `toml:"conventions"`
+	Models      fileModels       `toml:"models"`
+	Steps       []map[string]any `toml:"step"`
+}
+
+// stepFromTable converts one [[step]] table; the error names the field.
+func stepFromTable(m map[string]any) (fileStepDoc, string, string) {
+	var s fileStepDoc
+	str := func(k string, dst *string) (string, string) {
+		v, ok := m[k]
+		if !ok {
+			return "", ""
+		}
+		x, ok := v.(string)
+		if !ok {
+			return k, "must be a string"
+		}
+		*dst = x
+		return "", ""
+	}
+	num := func(k string, dst *float64) (string, string) {
+		v, ok := m[k]
+		if !ok {
+			return "", ""
+		}
+		switch x := v.(type) {
+		case float64:
+			*dst = x
+		case int64:
+			*dst = float64(x)
+		default:
+			return k, "must be a number"
+		}
+		return "", ""
+	}
+	flag := func(k string, dst *bool) (string, string) {
+		v, ok := m[k]
+		if !ok {
+			return "", ""
+		}
+		x, ok := v.(bool)
+		if !ok {
+			return k, "must be true or false"
+		}
+		*dst = x
+		return "", ""
+	}
+	known := map[string]bool{"key": true, "reaction": true, "value": true, "uncertainty": true, "multiplicity": true,
+		"source": true, "source_key": true, "override": true, "memory": true, "derived": true, "unknown": true}
+	for _, k := range sortedMapKeys(m) {
+		if !known[k] {
+			return s, k, "unknown field (a newer file version, or a typing error?)"
+		}
+	}
+	for _, f := range []func() (string, string){
+		func() (string, string) { return str("key", &s.Key) },
+		func() (string, string) { return str("reaction", &s.Reaction) },
+		func() (string, string) { return num("value", &s.Value) },
+		func() (string, string) { return num("uncertainty", &s.Uncertainty) },
+		func() (string, string) { return num("multiplicity", &s.Multiplicity) },
+		func() (string, string) { return str("source", &s.Source) },
+		func() (string, string) { return str("source_key", &s.SourceKey) },
+		func() (string, string) { return flag("override", &s.Override) },
+		func() (string, string) { return flag("memory", &s.Memory) },
+		func() (string, string) { return flag("derived", &s.Derived) },
+		func() (string, string) { return flag("unknown", &s.Unknown) },
+	} {
+		if k, why := f(); k != "" {
+			return s, k, why
+		}
+	}
+	return s, "", ""
+}
+
+func sortedMapKeys(m map[string]any) []string {
+	keys := make([]string, 0, len(m))
+	for k := range m {
+		keys = append(keys, k)
+	}
+	slices.Sort(keys)
+	return keys
+}
+
 type fileConv struct {
 	Lattice    string `toml:"lattice"`
 	Ionization string `toml:"ionization"`
@@ -52,16 +146,16 @@ type fileConv struct {
 
 type fileModels struct {
 	LatticeFrom  string             `toml:"lattice_from,omitempty"`
-	Rho          float64            `toml:"rho,omitempty"`
-	BornExponent float64            `toml:"born_exponent,omitempty"`
+	Rho          float64            `toml:"rho,omitzero"`
+	BornExponent float64            `toml:"born_exponent,omitzero"`
 	Radius       string             `toml:"radius"`
-	CationCN     int                `toml:"cation_cn,omitempty"`
-	AnionCN      int                `toml:"anion_cn,omitempty"`
+	CationCN     int                `toml:"cation_cn,omitzero"`
+	AnionCN      int                `toml:"anion_cn,omitzero"`
 	D0           string             `toml:"d0"`
 	Structure    string             `toml:"structure,omitempty"`
 	Params       map[string]float64 `toml:"params,omitempty"`
 	CIF          string             `toml:"cif,omitempty"`
-	Accuracy     float64            `toml:"accuracy,omitempty"`
+	Accuracy     float64            `toml:"accuracy,omitzero"`
 	Units        string             `toml:"units"`
 }
 
@@ -138,8 +232,8 @@ func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
 		return fail(0, "", fmt.Sprintf("file is %d bytes, more than the %d a cycle file may have", len(b), MaxFileSize), nil)
 	}
 	text := string(b)
-	var doc fileDoc
-	md, err := toml.Decode(text, &doc)
+	var in fileDocIn
+	md, err := toml.Decode(text, &in)
 	if err != nil {
 		var pe toml.ParseError
 		if errors.As(err, &pe) {
@@ -159,9 +253,20 @@ func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
 		}
 		return fail(line, field, strings.TrimPrefix(msg, "toml: "), nil)
 	}
-	if und := md.Undecoded(); len(und) > 0 {
-		k := und[0].String()
-		return fail(findKeyLine(text, und[0]), k, "unknown field (a newer file version, or a typing error?)", nil)
+	for _, k := range md.Undecoded() {
+		if len(k) > 0 && k[0] == "step" {
+			continue // checked per step below
+		}
+		return fail(findKeyLine(text, k), k.String(), "unknown field (a newer file version, or a typing error?)", nil)
+	}
+	doc := fileDoc{Format: in.Format, Version: in.Version, Note: in.Note, Compound: in.Compound, Cation: in.Cation,
+		Anion: in.Anion, Solve: in.Solve, Conventions: in.Conventions, Models: in.Models}
+	for i, m := range in.Steps {
+		s, field, why := stepFromTable(m)
+		if field != "" {
+			return fail(findTableLine(text, "step", i, field), fmt.Sprintf("step[%d].%s", i+1, field), why, nil)
+		}
+		doc.Steps = append(doc.Steps, s)
 	}
 	lineOf := func(key ...string) int { return findKeyLine(text, toml.Key(key)) }
 	if doc.Format != FileFormat {

@@ -190,7 +190,7 @@ func runCycle(env Env, args []string) error {
 	var mf modelFlags
 	mf.register(fs)
 	var solve, sets listFlag
-	var latticeFrom, save, open, cation, anion string
+	var latticeFrom, save, open, cation, anion, note string
 	var asJSON bool
 	fs.Var(&solve, "solve", "the step `KEY` to solve for (default lattice); repeat to see the error for two unknowns")
 	fs.Var(&sets, "set", "give step KEY a value: `KEY=VALUE[±UNC]` (±, +- accepted; optional unit suffix kj, kcal, ev); repeatable")
@@ -200,6 +200,7 @@ func runCycle(env Env, args []string) error {
 	fs.StringVar(&cation, "cation", "", "cation `ION` for a hypothetical compound, e.g. Mg+")
 	fs.StringVar(&anion, "anion", "", "anion `ION` for a hypothetical compound, e.g. Cl-")
 	fs.BoolVar(&asJSON, "json", false, "print JSON")
+	fs.StringVar(&note, "note", "", "free `TEXT` saved with the cycle file")
 	pos, err := parseInterleaved(fs, args)
 	if err != nil {
 		if errors.Is(err, flag.ErrHelp) {
@@ -294,6 +295,9 @@ func runCycle(env Env, args []string) error {
 		if l, ok := c.Step("lattice"); ok && l.Unknown {
 			l.Unknown = false
 		}
+	}
+	if set["note"] {
+		c.Note = note
 	}
 	if save != "" {
 		if err := cycle.Save(save, c); err != nil {
