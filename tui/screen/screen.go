@@ -86,3 +86,9 @@ func Fail(err error) tea.Cmd {
 
 // Switch returns a command that shows screen id.
 func Switch(id ID) tea.Cmd { return func() tea.Msg { return SwitchMsg{To: id} } }
+
+// UnitsMsg tells every screen the display unit changed (Context.Units).
+type UnitsMsg struct{}
+
+// ShownMsg tells a screen it has just become the visible one.
+type ShownMsg struct{}

@@ -1,0 +1,469 @@
+package assembly
+
+import (
+	"errors"
+	"fmt"
+	"strings"
+
+	"github.com/charmbracelet/bubbles/key"
+	"github.com/charmbracelet/bubbles/textinput"
+	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/lipgloss"
+
+	"enthalpath/cycle"
+	"enthalpath/tui/diagram"
+	"enthalpath/tui/hessdiagram"
+	"enthalpath/tui/screen"
+	"enthalpath/tui/session"
+)
+
+// Model is the assembly screen.
+type Model struct {
+	KeyMap KeyMap
+
+	ctx  *screen.Context
+	sess *session.Session
+
+	forCycle *cycle.Cycle // the cycle the order below was made for
+	order    []string     // step keys in the order they are proposed
+	decided  []string     // what was done with each decided step
+	unknown  string       // the step chosen as the unknown, or ""
+	editing  bool
+	input    textinput.Model
+	editErr  error
+	w, h     int
+}
+
+var _ screen.Screen = (*Model)(nil)
+
+// New returns the assembly over the session's cycle.
+func New(ctx *screen.Context, sess *session.Session) *Model {
+	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
+	ti.Prompt = "value › "
+	return &Model{KeyMap: DefaultKeyMap(), ctx: ctx, sess: sess, input: ti}
+}
+
+// Init does nothing.
+func (m *Model) Init() tea.Cmd { return nil }
+
+// Title is the screen's name.
+func (m *Model) Title() string { return "Assembly" }
+
+// Capturing reports whether a value is being typed.
+func (m *Model) Capturing() bool { return m.editing }
+
+// SetSize sets the body size.
+func (m *Model) SetSize(w, h int) { m.w, m.h = w, h }
+
+// Position returns how many steps are decided and how many there are.
+func (m *Model) Position() (decided, total int) { return len(m.decided), len(m.order) }
+
+// Unknown returns the key of the step chosen as the unknown so far.
+func (m *Model) Unknown() string { return m.unknown }
+
+// ShortHelp lists the main keys.
+func (m *Model) ShortHelp() []key.Binding {
+	k := m.KeyMap
+	if m.editing {
+		return []key.Binding{k.Submit, k.Cancel}
+	}
+	return []key.Binding{k.Accept, k.Type, k.Unknown, k.Back}
+}
+
+// FullHelp lists every key.
+func (m *Model) FullHelp() [][]key.Binding {
+	k := m.KeyMap
+	return [][]key.Binding{{k.Accept, k.Type, k.Unknown}, {k.Back, k.Bench}}
+}
+
+// restart makes the proposal order for the session's cycle: the terms of
+// Hess's sum in cycle order with the lattice step moved last and the
+// formation step just before it.
+func (m *Model) restart() {
+	c := m.sess.Cycle
+	m.forCycle, m.order, m.decided, m.unknown, m.editing = c, nil, nil, "", false
+	if c == nil {
+		return
+	}
+	var lattice, formation string
+	for _, i := range hessdiagram.Terms(c.Steps) {
+		s := &c.Steps[i]
+		if s.Kind == cycle.KindLattice {
+			lattice = s.Key
+			continue
+		}
+		m.order = append(m.order, s.Key)
+	}
+	for i := range c.Steps {
+		if c.Steps[i].Kind == cycle.KindFormation {
+			formation = c.Steps[i].Key
+		}
+	}
+	if formation != "" {
+		m.order = append(m.order, formation)
+	}
+	if lattice != "" {
+		m.order = append(m.order, lattice)
+	}
+}
+
+// Update handles keys and results.
+func (m *Model) Update(msg tea.Msg) tea.Cmd {
+	switch msg := msg.(type) {
+	case session.OpenedMsg:
+		m.restart()
+		return nil
+	case screen.ShownMsg:
+		if m.forCycle != m.sess.Cycle {
+			m.restart()
+		}
+		return nil
+	case tea.KeyMsg:
+		return m.key(msg)
+	}
+	if m.editing {
+		var cmd tea.Cmd
+		m.input, cmd = m.input.Update(msg)
+		return cmd
+	}
+	return nil
+}
+
+func (m *Model) currentKey() string {
+	if len(m.decided) < len(m.order) {
+		return m.order[len(m.decided)]
+	}
+	return ""
+}
+
+func (m *Model) current() *cycle.Step {
+	if m.sess.Cycle == nil {
+		return nil
+	}
+	s, ok := m.sess.Cycle.Step(m.currentKey())
+	if !ok {
+		return nil
+	}
+	return s
+}
+
+// Done reports whether every step is decided.
+func (m *Model) Done() bool { return m.sess.Cycle != nil && len(m.decided) == len(m.order) }
+
+func (m *Model) key(k tea.KeyMsg) tea.Cmd {
+	if m.sess.Cycle == nil {
+		return screen.Status("Nothing to assemble: type a formula on the Shelf and press ctrl+g.")
+	}
+	if m.forCycle != m.sess.Cycle {
+		m.restart()
+	}
+	if m.editing {
+		return m.editKey(k)
+	}
+	km := m.KeyMap
+	switch {
+	case key.Matches(k, km.Bench):
+		return screen.Switch(screen.Bench)
+	case key.Matches(k, km.Back):
+		return m.back()
+	case m.Done() && key.Matches(k, km.Accept):
+		return screen.Switch(screen.Bench)
+	case m.Done():
+		return nil
+	case key.Matches(k, km.Accept):
+		return m.accept()
+	case key.Matches(k, km.Type):
+		m.editing, m.editErr = true, nil
+		m.input.Reset()
+		m.input.Placeholder = "e.g. -349.0±0.5 (" + m.ctx.Units.String() + ")"
+		return m.input.Focus()
+	case key.Matches(k, km.Unknown):
+		return m.markUnknown()
+	}
+	return nil
+}
+
+// proposal returns what the workshop proposes for step s: a data value, a
+// model value (for the lattice step when another step is the unknown), or
+// the unknown itself (the lattice step otherwise).
+func (m *Model) proposal(s *cycle.Step) (text string, ok bool) {
+	c := m.sess.Cycle
+	if s.Kind == cycle.KindLattice {
+		if m.unknown == "" {
+			return "solve it by Hess's law from the other steps (the usual unknown)", true
+		}
+		if mr, ok := m.latticeModel(); ok {
+			return fmt.Sprintf("%s %s %s from the %s model (%s is the unknown)", m.ctx.Signed(mr.Value),
+				m.ctx.Uncertainty(mr.Uncertainty), m.ctx.Units, mr.Model, m.unknown), true
+		}
+		return "no model can give it for this compound: type a value", false
+	}
+	if r := s.Reference; r != nil {
+		return fmt.Sprintf("%s %s %s from %s", m.ctx.Signed(r.Value), m.ctx.Uncertainty(r.Uncertainty), m.ctx.Units, sourceName(r.Source)), true
+	}
+	if s.Composite && s.Source.Kind == cycle.SourceSum {
+		return fmt.Sprintf("%s %s %s, the sum of its sub-steps", m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units), true
+	}
+	_ = c
+	return "the data have no value: type one (e) or make it the unknown (x)", false
+}
+
+func sourceName(s cycle.Source) string {
+	if s.Key != "" {
+		return s.Key
+	}
+	return s.Kind.String()
+}
+
+// latticeModel picks the model that fills the lattice step when another
+// step is solved: Born–Mayer with the Ewald constant, else Born–Mayer, else
+// Kapustinskii.
+func (m *Model) latticeModel() (cycle.ModelResult, bool) {
+	for _, name := range []string{cycle.ModelEwald, cycle.ModelBornMayer, cycle.ModelKapustinkii} {
+		mr, err := cycle.EvaluateModel(m.sess.Cycle, name)
+		if err == nil && mr.OK() {
+			return mr, true
+		}
+	}
+	return cycle.ModelResult{}, false
+}
+
+func (m *Model) accept() tea.Cmd {
+	s := m.current()
+	if s == nil {
+		return nil
+	}
+	if _, ok := m.proposal(s); !ok {
+		return screen.Fail(fmt.Errorf("%s has nothing to accept: type a value with e or make it the unknown with x", s.Key))
+	}
+	key := s.Key
+	var f func(c *cycle.Cycle) error
+	var note string
+	switch {
+	case s.Kind == cycle.KindLattice && m.unknown == "":
+		f = func(c *cycle.Cycle) error { c.Settings.LatticeFrom = ""; return c.SolveFor(key) }
+		note, m.unknown = "unknown", key
+	case s.Kind == cycle.KindLattice:
+		mr, _ := m.latticeModel()
+		f = func(c *cycle.Cycle) error {
+			c.Settings.LatticeFrom = mr.Model
+			return c.Reset(key)
+		}
+		note = "from the " + mr.Model + " model"
+	default:
+		f = func(c *cycle.Cycle) error { return c.Reset(key) }
+		note = "data"
+	}
+	cmd, err := m.sess.Change(f)
+	if err != nil {
+		return screen.Fail(err)
+	}
+	m.decided = append(m.decided, note)
+	return cmd
+}
+
+func (m *Model) markUnknown() tea.Cmd {
+	s := m.current()
+	if s == nil {
+		return nil
+	}
+	key, prev := s.Key, m.unknown
+	cmd, err := m.sess.Change(func(c *cycle.Cycle) error {
+		if prev != "" {
+			if err := c.Reset(prev); err != nil {
+				return err
+			}
+			m.relabel(prev, "data")
+		}
+		return c.MarkUnknown(key)
+	})
+	if err != nil {
+		return screen.Fail(err)
+	}
+	m.unknown = key
+	m.decided = append(m.decided, "unknown")
+	status := key + " is the unknown."
+	if prev != "" {
+		status += " " + prev + " went back to its data value (one unknown only)."
+	}
+	return tea.Batch(cmd, screen.Status(status))
+}
+
+func (m *Model) relabel(key, note string) {
+	for i, k := range m.order[:len(m.decided)] {
+		if k == key {
+			m.decided[i] = note
+		}
+	}
+}
+
+func (m *Model) back() tea.Cmd {
+	if len(m.decided) == 0 {
+		return screen.Status("Already at the first step.")
+	}
+	last := m.order[len(m.decided)-1]
+	if m.decided[len(m.decided)-1] == "unknown" && m.unknown == last {
+		m.unknown = ""
+	}
+	m.decided = m.decided[:len(m.decided)-1]
+	return nil
+}
+
+func (m *Model) editKey(k tea.KeyMsg) tea.Cmd {
+	switch {
+	case key.Matches(k, m.KeyMap.Cancel):
+		m.editing, m.editErr = false, nil
+		m.input.Blur()
+		return nil
+	case key.Matches(k, m.KeyMap.Submit):
+		s := m.current()
+		kj, unc, hasUnc, err := screen.ParseEnergy(m.input.Value(), m.ctx.Units)
+		if err != nil {
+			m.editErr = err
+			return nil
+		}
+		if !hasUnc {
+			unc = 0
+			if s.Reference != nil {
+				unc = s.Reference.Uncertainty
+			}
+		}
+		key := s.Key
+		cmd, err := m.sess.Change(func(c *cycle.Cycle) error {
+			if s.Kind == cycle.KindLattice {
+				c.Settings.LatticeFrom = ""
+			}
+			return c.Set(key, kj, unc)
+		})
+		if err != nil {
+			m.editErr = err
+			return nil
+		}
+		m.editing = false
+		m.input.Blur()
+		m.decided = append(m.decided, "your value")
+		return cmd
+	}
+	before := m.input.Value()
+	var cmd tea.Cmd
+	m.input, cmd = m.input.Update(k)
+	if m.input.Value() != before {
+		m.editErr = nil
+	}
+	return cmd
+}
+
+// View renders the assembly.
+func (m *Model) View() string {
+	st := m.ctx.Styles
+	c := m.sess.Cycle
+	if c == nil {
+		return st.Muted.Render("Nothing to assemble yet. On the Shelf, type a formula (one the data lack works too) and press ctrl+g.")
+	}
+	if m.forCycle != c {
+		m.restart()
+	}
+	lines := []string{st.Title.Render(fmt.Sprintf("Assembling the cycle of %s — step %d of %d", c.Formula, min(len(m.decided)+1, len(m.order)), len(m.order)))}
+	// The decided steps, one line each.
+	for i, k := range m.order[:len(m.decided)] {
+		s, _ := c.Step(k)
+		val := m.ctx.Signed(s.Value)
+		if s.Unknown {
+			val = "?"
+		}
+		if s.Kind == cycle.KindLattice && c.Settings.LatticeFrom != "" {
+			val = "model"
+		}
+		marker := "✓"
+		if m.decided[i] == "unknown" {
+			marker = "?"
+		}
+		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s %10s  %s", marker, s.Reaction, val, m.decided[i]), m.w))
+	}
+	if s := m.current(); s != nil {
+		text, ok := m.proposal(s)
+		lines = append(lines, "", st.Accent.Render(fmt.Sprintf("Next: %s", s.Label))+st.Muted.Render("  ("+s.Key+")"),
+			"  "+s.Reaction+multNote(s.Multiplicity))
+		if ok {
+			lines = append(lines, "  proposed: "+text)
+		} else {
+			lines = append(lines, st.Warn.Render("  "+text))
+		}
+		if m.editing {
+			lines = append(lines, "  "+m.input.View())
+			if m.editErr != nil {
+				lines = append(lines, st.Error.Render("  ✗ not accepted: ")+st.Text.Render(m.editErr.Error()))
+			}
+		}
+	} else {
+		lines = append(lines, "", m.doneLine())
+	}
+	top := strings.Join(lines, "\n")
+	rest := m.h - lipgloss.Height(top) - 1
+	if rest >= 6 {
+		limit := m.drawnTerms()
+		d := hessdiagram.Build(c.Formula, m.drawSteps(), hessdiagram.Options{Units: m.ctx.Units, Limit: limit, Solved: m.Done() && m.sess.Solved() != nil})
+		top += "\n" + d.Render(m.w, rest, diagram.Styles{Rule: st.Rule, Arrow: st.Text, Solved: st.Solved, Label: st.Text, Axis: st.Muted})
+	}
+	return top
+}
+
+func (m *Model) drawSteps() []cycle.Step {
+	if m.Done() {
+		if res := m.sess.Solved(); res != nil {
+			return res.Steps
+		}
+	}
+	return m.sess.Cycle.Steps
+}
+
+// drawnTerms counts the decided steps that are arrows of the drawing (the
+// formation step is the closing arrow, drawn once everything is decided).
+func (m *Model) drawnTerms() int {
+	if m.Done() {
+		return -1
+	}
+	n := 0
+	for _, k := range m.order[:len(m.decided)] {
+		if s, ok := m.sess.Cycle.Step(k); ok && s.Kind != cycle.KindFormation {
+			n++
+		}
+	}
+	return n
+}
+
+func (m *Model) doneLine() string {
+	st := m.ctx.Styles
+	if !m.sess.Fresh() {
+		return st.Muted.Render("solving…")
+	}
+	if err := m.sess.SolveErr; err != nil {
+		var unk *cycle.UnknownsError
+		msg := session.Explain(err)
+		if errors.As(err, &unk) {
+			msg += " Press b to go back."
+		}
+		return st.Error.Render("Not solved: ") + msg
+	}
+	s := m.sess.Result.Solved
+	return st.Solved.Render("? solved: ") + st.Accent.Render(fmt.Sprintf("%s = %s %s %s", s.Label, m.ctx.Signed(s.Value),
+		m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units)) + st.Muted.Render("   enter: on to the bench")
+}
+
+func multNote(v float64) string {
+	if v == 1 {
+		return ""
+	}
+	return fmt.Sprintf("   (×%g per formula unit)", v)
+}
+
+func trunc(s string, n int) string {
+	r := []rune(s)
+	if len(r) <= n {
+		return s
+	}
+	if n <= 1 {
+		return string(r[:max(n, 0)])
+	}
+	return string(r[:n-1]) + "…"
+}

@@ -1,0 +1,347 @@
+package bench
+
+import (
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+
+	"github.com/charmbracelet/bubbles/key"
+	"github.com/charmbracelet/bubbles/textinput"
+	tea "github.com/charmbracelet/bubbletea"
+
+	"enthalpath/cycle"
+	"enthalpath/tui/hessdiagram"
+	"enthalpath/tui/prompt"
+	"enthalpath/tui/screen"
+	"enthalpath/tui/session"
+)
+
+// Model is the bench screen.
+type Model struct {
+	KeyMap KeyMap
+
+	ctx  *screen.Context
+	sess *session.Session
+
+	cursor     int
+	top        int
+	editing    bool
+	input      textinput.Model
+	editErr    error
+	showSource bool
+	drawing    bool // in a small window: the drawing instead of the list
+	export     *prompt.Model
+	w, h       int
+}
+
+var _ screen.Screen = (*Model)(nil)
+
+// New returns the bench over the session's cycle.
+func New(ctx *screen.Context, sess *session.Session) *Model {
+	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
+	return &Model{KeyMap: DefaultKeyMap(), ctx: ctx, sess: sess, input: ti}
+}
+
+// Init does nothing.
+func (m *Model) Init() tea.Cmd { return nil }
+
+// Title is the screen's name.
+func (m *Model) Title() string { return "Bench" }
+
+// Capturing reports whether a value or file name is being typed.
+func (m *Model) Capturing() bool { return m.editing || m.export != nil }
+
+// SetSize sets the body size.
+func (m *Model) SetSize(w, h int) {
+	m.w, m.h = w, h
+	m.input.Width = max(10, w-40)
+}
+
+// Cursor returns the index of the highlighted step.
+func (m *Model) Cursor() int { return m.cursor }
+
+// Editing reports whether a value is being typed, and the refusal shown.
+func (m *Model) Editing() (bool, error) { return m.editing, m.editErr }
+
+// ShowingSource reports whether the citation box is open.
+func (m *Model) ShowingSource() bool { return m.showSource }
+
+// ShowingDrawing reports whether the small-window view shows the drawing.
+func (m *Model) ShowingDrawing() bool { return m.drawing }
+
+// Exporting reports whether the SVG file name is being asked.
+func (m *Model) Exporting() bool { return m.export != nil }
+
+// ShortHelp lists the main keys.
+func (m *Model) ShortHelp() []key.Binding {
+	k := m.KeyMap
+	if m.editing {
+		return []key.Binding{k.Accept, k.Cancel}
+	}
+	return []key.Binding{k.Edit, k.Unknown, k.Reset, k.Source}
+}
+
+// FullHelp lists every key.
+func (m *Model) FullHelp() [][]key.Binding {
+	k := m.KeyMap
+	return [][]key.Binding{
+		{k.Up, k.Down, k.Top, k.Bottom},
+		{k.Edit, k.Unknown, k.Reset, k.Source},
+		{k.Assemble, k.Pane, k.Export, k.Lattice, k.Electrons},
+	}
+}
+
+func (m *Model) steps() []cycle.Step {
+	if res := m.sess.Solved(); res != nil {
+		return res.Steps
+	}
+	if m.sess.Cycle == nil {
+		return nil
+	}
+	return m.sess.Cycle.Steps
+}
+
+// current returns the highlighted step of the cycle (not the result).
+func (m *Model) current() *cycle.Step {
+	c := m.sess.Cycle
+	if c == nil || m.cursor < 0 || m.cursor >= len(c.Steps) {
+		return nil
+	}
+	return &c.Steps[m.cursor]
+}
+
+// Update handles keys and results.
+func (m *Model) Update(msg tea.Msg) tea.Cmd {
+	switch msg := msg.(type) {
+	case session.OpenedMsg:
+		m.cursor, m.top, m.editing, m.showSource, m.export = 0, 0, false, false, nil
+		if c := m.sess.Cycle; c != nil {
+			for i := range c.Steps {
+				if c.Steps[i].Unknown {
+					m.cursor = i
+				}
+			}
+		}
+		return nil
+	case tea.KeyMsg:
+		return m.key(msg)
+	}
+	if m.editing {
+		var cmd tea.Cmd
+		m.input, cmd = m.input.Update(msg)
+		return cmd
+	}
+	return nil
+}
+
+func (m *Model) key(k tea.KeyMsg) tea.Cmd {
+	if m.export != nil {
+		cmd := m.export.Update(k)
+		if m.export.Done() {
+			m.export = nil
+		}
+		return cmd
+	}
+	if m.editing {
+		return m.editKey(k)
+	}
+	if m.showSource {
+		// Any key closes the box; movement keys also move.
+		m.showSource = false
+		if key.Matches(k, m.KeyMap.Source) || k.Type == tea.KeyEsc {
+			return nil
+		}
+	}
+	c := m.sess.Cycle
+	if c == nil {
+		if key.Matches(k, m.KeyMap.Edit, m.KeyMap.Unknown, m.KeyMap.Reset, m.KeyMap.Source, m.KeyMap.Assemble, m.KeyMap.Export) {
+			return screen.Status("No cycle yet: pick a compound on the Shelf (1) and press enter.")
+		}
+		return nil
+	}
+	km := m.KeyMap
+	switch {
+	case key.Matches(k, km.Up):
+		m.move(-1)
+	case key.Matches(k, km.Down):
+		m.move(1)
+	case key.Matches(k, km.Top):
+		m.move(-len(c.Steps))
+	case key.Matches(k, km.Bottom):
+		m.move(len(c.Steps))
+	case key.Matches(k, km.Edit):
+		return m.startEdit()
+	case key.Matches(k, km.Unknown):
+		s := m.current()
+		return m.change(func(c *cycle.Cycle) error { return c.SolveFor(s.Key) },
+			"Solving for "+s.Label+" ("+s.Key+").")
+	case key.Matches(k, km.Reset):
+		s := m.current()
+		return m.change(func(c *cycle.Cycle) error { return c.Reset(s.Key) }, "Reset "+s.Key+" to the data.")
+	case key.Matches(k, km.Source):
+		m.showSource = true
+	case key.Matches(k, km.Assemble):
+		return screen.Switch(screen.Assembly)
+	case key.Matches(k, km.Pane):
+		m.drawing = !m.drawing
+	case key.Matches(k, km.Export):
+		m.askExport()
+	case key.Matches(k, km.Lattice):
+		conv := c.Conventions
+		conv.Lattice = 1 - conv.Lattice
+		return m.change(func(c *cycle.Cycle) error { c.SetConventions(conv); return nil },
+			"Lattice step now as "+conv.Lattice.String()+" ("+conv.Lattice.Symbol()+").")
+	case key.Matches(k, km.Electrons):
+		conv := c.Conventions
+		conv.Ionization = 1 - conv.Ionization
+		return m.change(func(c *cycle.Cycle) error { c.SetConventions(conv); return nil },
+			"Ionization and attachment steps now at "+conv.Ionization.String()+".")
+	}
+	return nil
+}
+
+func (m *Model) change(f func(*cycle.Cycle) error, done string) tea.Cmd {
+	cmd, err := m.sess.Change(f)
+	if err != nil {
+		return screen.Fail(err)
+	}
+	return tea.Batch(cmd, screen.Status(done))
+}
+
+func (m *Model) move(d int) {
+	n := len(m.steps())
+	if n == 0 {
+		return
+	}
+	m.cursor = max(0, min(n-1, m.cursor+d))
+}
+
+func (m *Model) startEdit() tea.Cmd {
+	s := m.current()
+	if s == nil {
+		return nil
+	}
+	m.editing, m.editErr = true, nil
+	m.input.Reset()
+	m.input.Prompt = fmt.Sprintf("%s (%s) › ", s.Key, m.ctx.Units)
+	cur := "no value yet"
+	if s.Source.Kind != cycle.SourceMissing && !s.Unknown {
+		cur = "now " + m.ctx.Signed(s.Value) + " " + m.ctx.Uncertainty(s.Uncertainty)
+	}
+	m.input.Placeholder = cur + "; type e.g. -349.0±0.5"
+	return m.input.Focus()
+}
+
+func (m *Model) editKey(k tea.KeyMsg) tea.Cmd {
+	switch {
+	case key.Matches(k, m.KeyMap.Cancel):
+		m.editing, m.editErr = false, nil
+		m.input.Blur()
+		return nil
+	case key.Matches(k, m.KeyMap.Accept):
+		s := m.current()
+		kj, unc, hasUnc, err := screen.ParseEnergy(m.input.Value(), m.ctx.Units)
+		if err == nil {
+			err = m.plausible(s, kj)
+		}
+		if err != nil {
+			m.editErr = err
+			return nil
+		}
+		if !hasUnc {
+			unc = s.Uncertainty
+		}
+		key := s.Key
+		cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return c.Set(key, kj, unc) })
+		if err != nil {
+			m.editErr = err
+			return nil
+		}
+		m.editing, m.editErr = false, nil
+		m.input.Blur()
+		return tea.Batch(cmd, screen.Status(fmt.Sprintf("%s set to %s %s %s (your value).", key,
+			m.ctx.Signed(kj), m.ctx.Uncertainty(unc), m.ctx.Units)))
+	}
+	before := m.input.Value()
+	var cmd tea.Cmd
+	m.input, cmd = m.input.Update(k)
+	if m.input.Value() != before {
+		m.editErr = nil
+	}
+	return cmd
+}
+
+// plausible refuses values whose sign contradicts the step's physics, with
+// the reason: ionization and atomization take energy in; the lattice step
+// (gaseous ions → solid) gives it out.
+func (m *Model) plausible(s *cycle.Step, kj float64) error {
+	switch s.Kind {
+	case cycle.KindIonization, cycle.KindAtomization, cycle.KindSublimation, cycle.KindVaporization, cycle.KindDissociation:
+		if kj <= 0 {
+			return fmt.Errorf("%s takes energy in, so its value is positive; did you mean %s?", s.Label, m.flip(kj))
+		}
+	case cycle.KindLattice:
+		if kj >= 0 {
+			return fmt.Errorf("the lattice step goes from the gaseous ions to the solid and is negative; did you mean %s?", m.flip(kj))
+		}
+	}
+	return nil
+}
+
+func (m *Model) flip(kj float64) string { return m.ctx.Signed(-kj) }
+
+func (m *Model) askExport() {
+	c := m.sess.Cycle
+	d := hessdiagram.Build(c.Formula, m.steps(), hessdiagram.Options{Units: m.ctx.Units, Limit: -1, Solved: m.sess.Solved() != nil})
+	name := stem(c.Formula) + "-cycle.svg"
+	m.export = prompt.New(m.ctx.Styles, "Export the drawing as SVG", name, "A file name; esc cancels.", m.ctx.MaxInputLen,
+		func(answer string) (tea.Cmd, error) {
+			if filepath.Ext(answer) != ".svg" {
+				answer += ".svg"
+			}
+			path, err := m.ctx.ResolvePath(answer)
+			if err != nil {
+				return nil, err
+			}
+			return func() tea.Msg {
+				if err := writeSVG(path, d); err != nil {
+					return screen.StatusMsg{Text: "SVG not written: " + err.Error(), Err: true}
+				}
+				return screen.StatusMsg{Text: "Drawing written to " + path + "."}
+			}, nil
+		})
+	m.export.SetWidth(min(m.w-6, 80))
+}
+
+// writeSVG writes atomically: a temporary file beside path, then a rename.
+func writeSVG(path string, d interface{ WriteSVG(w io.Writer) error }) error {
+	dir := filepath.Dir(path)
+	f, err := os.CreateTemp(dir, ".svg-*")
+	if err != nil {
+		return err
+	}
+	tmp := f.Name()
+	defer os.Remove(tmp)
+	if err := d.WriteSVG(f); err != nil {
+		f.Close()
+		return err
+	}
+	if err := f.Close(); err != nil {
+		return err
+	}
+	return os.Rename(tmp, path)
+}
+
+func stem(s string) string {
+	out := make([]rune, 0, len(s))
+	for _, r := range s {
+		if r < 128 && (r >= '0' && r <= '9' || r|0x20 >= 'a' && r|0x20 <= 'z') {
+			out = append(out, r)
+		}
+	}
+	if len(out) == 0 {
+		return "cycle"
+	}
+	return string(out)
+}

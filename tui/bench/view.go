@@ -1,0 +1,272 @@
+package bench
+
+import (
+	"fmt"
+	"strings"
+
+	"github.com/charmbracelet/lipgloss"
+
+	"enthalpath/cycle"
+	"enthalpath/tui/diagram"
+	"enthalpath/tui/hessdiagram"
+	"enthalpath/tui/session"
+)
+
+// minDrawing is the least height the drawing is shown in under the list.
+const minDrawing = 8
+
+// View renders the bench.
+func (m *Model) View() string {
+	st := m.ctx.Styles
+	c := m.sess.Cycle
+	if c == nil {
+		return st.Muted.Render("No cycle open. Pick a compound on the Shelf (press 1, or tab) and press enter,\n" +
+			"or type a formula there and press ctrl+g to assemble it step by step.")
+	}
+	top := []string{m.titleLine(), m.solvedLine()}
+	if m.export != nil {
+		top = append(top, m.export.View())
+	}
+	if m.editing {
+		top = append(top, m.editView())
+	}
+	used := lipgloss.Height(strings.Join(top, "\n"))
+	rest := m.h - used
+	var parts []string
+	switch {
+	case m.showSource:
+		parts = append(parts, m.sourceView(rest))
+	case m.drawing:
+		parts = append(parts, m.drawingView(rest))
+	case rest-(len(c.Steps)+2) >= minDrawing:
+		listH := len(c.Steps) + 2
+		parts = append(parts, m.listView(listH), m.drawingView(rest-listH))
+	default:
+		parts = append(parts, m.listView(rest))
+	}
+	return strings.Join(append(top, parts...), "\n")
+}
+
+func (m *Model) titleLine() string {
+	st := m.ctx.Styles
+	c := m.sess.Cycle
+	name := c.Formula
+	if c.Name != "" {
+		name += " — " + c.Name
+	}
+	if !c.Tabulated {
+		name += " (not in the data: hypothetical)"
+	}
+	if s := c.Settings.Structure.Name(); s != "" {
+		name += " · " + s
+	}
+	conv := c.Conventions.Lattice.Symbol() + ", ionization at " + c.Conventions.Ionization.String()
+	return st.Title.Render(trunc(name, m.w-len([]rune(conv))-3)) + "   " + st.Muted.Render(conv)
+}
+
+func (m *Model) solvedLine() string {
+	st := m.ctx.Styles
+	if !m.sess.Fresh() {
+		return st.Muted.Render("solving…")
+	}
+	if m.sess.SolveErr != nil {
+		return st.Error.Render("not solved: ") + st.Text.Render(explainShort(m.sess.SolveErr, m.w-12))
+	}
+	res := m.sess.Result
+	s := res.Solved
+	line := fmt.Sprintf("%s = %s %s %s", s.Key, m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units)
+	extra := ""
+	if s.Kind == cycle.KindLattice {
+		extra = fmt.Sprintf(" · ΔH_L %s · U %s", m.ctx.Signed(res.Lattice.Enthalpy), m.ctx.Signed(res.Lattice.Energy))
+	} else {
+		extra = fmt.Sprintf(" · %s · lattice ΔH_L %s", s.Label, m.ctx.Signed(res.Lattice.Enthalpy))
+	}
+	return st.Solved.Render("? solved: ") + st.Accent.Render(line) + st.Muted.Render(trunc(extra, max(0, m.w-len([]rune(line))-10)))
+}
+
+func explainShort(err error, w int) string { return trunc(session.Explain(err), w) }
+
+// Column widths of the step list.
+const (
+	colFlag  = 3
+	colMult  = 5
+	colValue = 10
+	colUnc   = 8
+)
+
+func (m *Model) listView(h int) string {
+	st := m.ctx.Styles
+	steps := m.steps()
+	if h < 3 {
+		return ""
+	}
+	colReaction := 12
+	for i := range steps {
+		n := len([]rune(steps[i].Reaction)) + 1
+		if steps[i].Parent != "" {
+			n += 2
+		}
+		colReaction = max(colReaction, n)
+	}
+	colReaction = min(colReaction, m.w-colFlag-colMult-colValue-colUnc-5-14)
+	colSource := max(10, m.w-colFlag-colMult-colValue-colUnc-colReaction-5)
+	header := fmt.Sprintf("%-*s%-*s %*s %*s %*s %-*s", colFlag, "", colReaction, "reaction", colMult, "×",
+		colValue, m.ctx.Units.String(), colUnc, "±", colSource, "source")
+	lines := []string{st.Title.Render(trunc(header, m.w))}
+	rows := h - 2
+	if m.cursor < m.top {
+		m.top = m.cursor
+	}
+	if m.cursor >= m.top+rows {
+		m.top = m.cursor - rows + 1
+	}
+	for i := m.top; i < len(steps) && i < m.top+rows; i++ {
+		s := &steps[i]
+		cursor := " "
+		if i == m.cursor {
+			cursor = "›"
+		}
+		flag := " "
+		switch {
+		case s.Unknown || s.Source.Kind == cycle.SourceSolved:
+			flag = "?"
+		case s.Source.Kind == cycle.SourceMissing:
+			flag = "!"
+		case s.Source.Kind == cycle.SourceUser:
+			flag = "*"
+		}
+		reaction := s.Reaction
+		if s.Parent != "" {
+			reaction = "└ " + reaction
+		}
+		value, unc := m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty)
+		switch {
+		case s.Unknown && s.Source.Kind != cycle.SourceSolved:
+			value, unc = "?", ""
+		case s.Source.Kind == cycle.SourceMissing:
+			value, unc = "missing", ""
+		}
+		text := fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", cursor, flag, colReaction, trunc(reaction, colReaction),
+			colMult, mult(s.Multiplicity), colValue, value, colUnc, unc, colSource, trunc(sourceText(s), colSource))
+		text = trunc(text, m.w)
+		switch {
+		case i == m.cursor:
+			text = st.Selected.Render(text)
+		case flag == "?":
+			text = st.Solved.Render(text)
+		case flag == "!":
+			text = st.Warn.Render(text)
+		}
+		lines = append(lines, text)
+	}
+	lines = append(lines, st.Muted.Render(trunc("? the unknown (solved)  ! no value in the data  * your value  └ sub-step", m.w)))
+	return strings.Join(lines, "\n")
+}
+
+func mult(v float64) string {
+	switch {
+	case v == 1:
+		return ""
+	case v == 0.5:
+		return "×½"
+	case v == float64(int(v)):
+		return fmt.Sprintf("×%d", int(v))
+	}
+	return fmt.Sprintf("×%g", v)
+}
+
+func sourceText(s *cycle.Step) string {
+	src := s.Source
+	t := src.Kind.String()
+	if src.Key != "" && src.Key != "user" {
+		t += ": " + src.Key
+	}
+	if mk := src.Markers(); len(mk) > 0 {
+		t += " (" + strings.Join(mk, ", ") + ")"
+	}
+	return t
+}
+
+func (m *Model) drawingView(h int) string {
+	st := m.ctx.Styles
+	if h < 6 {
+		return st.Muted.Render("(no room for the drawing; press v, or enlarge the window)")
+	}
+	d := hessdiagram.Build(m.sess.Cycle.Formula, m.steps(), hessdiagram.Options{Units: m.ctx.Units, Limit: -1, Solved: m.sess.Solved() != nil})
+	title := st.Title.Render("Drawn to scale") + st.Muted.Render(trunc(" · "+m.ctx.Units.String()+" per formula unit · ? marks the solved step · d exports SVG", m.w-14))
+	return title + "\n" + d.Render(m.w, h-1, m.diagramStyles())
+}
+
+func (m *Model) diagramStyles() diagram.Styles {
+	st := m.ctx.Styles
+	return diagram.Styles{Rule: st.Rule, Arrow: st.Text, Solved: st.Solved, Label: st.Text, Axis: st.Muted}
+}
+
+func (m *Model) editView() string {
+	st := m.ctx.Styles
+	s := m.current()
+	lines := []string{st.Title.Render("New value for "+s.Label) + st.Muted.Render(" — "+s.Reaction+", per reaction as written; ± uncertainty optional"),
+		m.input.View()}
+	if m.editErr != nil {
+		lines = append(lines, st.Error.Render("✗ not accepted: ")+st.Text.Render(trunc(m.editErr.Error(), m.w-17)))
+	} else {
+		lines = append(lines, st.Muted.Render("enter accepts · esc cancels · without ± the old uncertainty is kept"))
+	}
+	return strings.Join(lines, "\n")
+}
+
+func (m *Model) sourceView(h int) string {
+	st := m.ctx.Styles
+	s := m.current()
+	if res := m.sess.Solved(); res != nil {
+		if rs, ok := res.Step(s.Key); ok {
+			s = rs
+		}
+	}
+	src := s.Source
+	w := min(m.w-4, 100)
+	wrap := lipgloss.NewStyle().Width(w - 4)
+	lines := []string{
+		st.Title.Render(s.Label) + st.Muted.Render("  ("+s.Key+")"),
+		"reaction:   " + s.Reaction,
+		fmt.Sprintf("value:      %s %s %s per reaction as written, ×%g in the sum", m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units, s.Multiplicity),
+		"source:     " + sourceText(s),
+	}
+	if src.Citation != "" {
+		lines = append(lines, wrap.Render("citation:   "+src.Citation))
+	}
+	if src.Note != "" {
+		lines = append(lines, wrap.Render("note:       "+src.Note))
+	}
+	if src.Memory {
+		lines = append(lines, st.Warn.Render("This value was entered from memory: check it against the citation before relying on it."))
+	}
+	if src.Derived {
+		lines = append(lines, st.Warn.Render("This value is itself derived from a thermochemical cycle, not measured."))
+	}
+	if src.DefaultUncertainty {
+		lines = append(lines, st.Warn.Render("The source states no uncertainty; the default for this kind of step is used."))
+	}
+	if r := s.Reference; r != nil && (src.Kind != r.Source.Kind || r.Value != s.Value) {
+		lines = append(lines, fmt.Sprintf("data value: %s %s (%s) — r resets to it", m.ctx.Signed(r.Value), m.ctx.Uncertainty(r.Uncertainty), r.Source.Key))
+	}
+	if res := m.sess.Solved(); res != nil && s.Kind == cycle.KindLattice && res.Handbook != nil {
+		hb := res.Handbook
+		lines = append(lines, fmt.Sprintf("handbook:   %s %s (%s), cycle − handbook %s (%+.1f %%)", m.ctx.Signed(hb.Value),
+			m.ctx.Uncertainty(hb.Uncertainty), hb.Source.Key, m.ctx.Signed(hb.Difference), hb.Percent))
+	}
+	lines = append(lines, "", st.Muted.Render("any key closes this box"))
+	box := st.Panel.Width(w).Render(strings.Join(lines, "\n"))
+	return lipgloss.NewStyle().MaxHeight(max(h, 1)).Render(box)
+}
+
+func trunc(s string, n int) string {
+	r := []rune(s)
+	if len(r) <= n {
+		return s
+	}
+	if n <= 1 {
+		return string(r[:max(n, 0)])
+	}
+	return string(r[:n-1]) + "…"
+}

@@ -1,0 +1,441 @@
+package tui
+
+import (
+	"errors"
+	"fmt"
+	"os"
+	"strings"
+
+	"github.com/charmbracelet/bubbles/help"
+	"github.com/charmbracelet/bubbles/key"
+	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/lipgloss"
+
+	"enthalpath/cycle"
+	"enthalpath/thermo"
+	"enthalpath/tui/analyses"
+	"enthalpath/tui/assembly"
+	"enthalpath/tui/bench"
+	"enthalpath/tui/modelpanel"
+	"enthalpath/tui/prompt"
+	"enthalpath/tui/screen"
+	"enthalpath/tui/session"
+	"enthalpath/tui/shelf"
+	"enthalpath/tui/survey"
+	"enthalpath/tui/theme"
+)
+
+// ShutdownMsg tells the workshop to stop (the SSH server is shutting down,
+// or the local process got a signal): unsaved work goes to the recovery
+// file and the program quits.
+type ShutdownMsg struct{ Reason string }
+
+// openedMsg is the answer of an open request.
+type openedMsg struct {
+	c      *cycle.Cycle
+	path   string
+	guided bool
+	err    error
+}
+
+// savedMsg is the answer of a save.
+type savedMsg struct {
+	path     string
+	err      error
+	thenQuit bool
+}
+
+// Model is the root model of the workshop.
+type Model struct {
+	// Keys are the global keys, Confirm those of the unsaved-changes question.
+	Keys    KeyMap
+	Confirm ConfirmKeys
+
+	opts    Options
+	ctx     *screen.Context
+	sess    *session.Session
+	screens []screen.Screen
+	active  screen.ID
+	help    help.Model
+
+	width, height int
+	status        string
+	statusErr     bool
+	showHelp      bool
+	confirming    bool
+	prompt        *prompt.Model
+	quitting      bool
+	recovered     string // path of the recovery file written, for the last frame
+}
+
+var _ tea.Model = (*Model)(nil)
+
+// New returns the workshop's root model for opts. Invalid options (see
+// Validate) give a model that shows the problem and quits on any key.
+func New(opts Options) tea.Model {
+	if opts.MaxInputLen == 0 {
+		opts.MaxInputLen = DefaultMaxInputLen
+	}
+	st := theme.DefaultStyles(opts.Renderer)
+	m := &Model{Keys: DefaultKeyMap(), Confirm: DefaultConfirmKeys(), opts: opts, sess: &session.Session{}}
+	m.ctx = &screen.Context{Styles: st, Units: thermo.KJPerMol, DB: opts.DB, MaxInputLen: opts.MaxInputLen,
+		ResolvePath: opts.resolver()}
+	m.help = help.New()
+	m.help.ShortSeparator = " · "
+	m.help.Styles = help.Styles{
+		Ellipsis: st.HelpSep, ShortKey: st.HelpKey, ShortDesc: st.HelpDesc, ShortSeparator: st.HelpSep,
+		FullKey: st.HelpKey, FullDesc: st.HelpDesc, FullSeparator: st.HelpSep,
+	}
+	if err := opts.Validate(); err != nil {
+		m.status, m.statusErr = err.Error(), true
+	}
+	m.screens = []screen.Screen{
+		screen.Shelf:    shelf.New(m.ctx),
+		screen.Bench:    bench.New(m.ctx, m.sess),
+		screen.Assembly: assembly.New(m.ctx, m.sess),
+		screen.Models:   modelpanel.New(m.ctx, m.sess),
+		screen.Survey:   survey.New(m.ctx),
+		screen.Analyses: analyses.New(m.ctx, m.sess),
+	}
+	m.width, m.height = opts.Width, opts.Height
+	m.layout()
+	return m
+}
+
+// Session returns the session's state (for the program's runner and tests).
+func (m *Model) Session() *session.Session { return m.sess }
+
+// Active returns the screen shown.
+func (m *Model) Active() screen.ID { return m.active }
+
+// Screen returns screen id.
+func (m *Model) Screen(id screen.ID) screen.Screen { return m.screens[id] }
+
+// Context returns the shared context.
+func (m *Model) Context() *screen.Context { return m.ctx }
+
+// Init starts the screens and opens Options.Initial.
+func (m *Model) Init() tea.Cmd {
+	cmds := []tea.Cmd{m.checkRecovery()}
+	for _, s := range m.screens {
+		cmds = append(cmds, s.Init())
+	}
+	if in := strings.TrimSpace(m.opts.Initial); in != "" {
+		cmds = append(cmds, m.openCmd(initialRequest(in)))
+	}
+	return tea.Batch(cmds...)
+}
+
+func initialRequest(in string) screen.OpenMsg {
+	if strings.HasSuffix(in, cycle.FileExtension) || strings.ContainsRune(in, '/') {
+		return screen.OpenMsg{File: in}
+	}
+	if st, err := os.Stat(in); err == nil && st.Mode().IsRegular() {
+		return screen.OpenMsg{File: in}
+	}
+	return screen.OpenMsg{Formula: in}
+}
+
+func (m *Model) checkRecovery() tea.Cmd {
+	p := m.opts.RecoveryPath
+	if p == "" {
+		return nil
+	}
+	return func() tea.Msg {
+		if _, err := os.Stat(p); err == nil {
+			return screen.StatusMsg{Text: "A recovery file from an earlier session is kept at " + p + " (ctrl+o opens it)."}
+		}
+		return nil
+	}
+}
+
+// Update routes a message. A panic anywhere below writes the recovery file
+// first and then goes on up, so Bubble Tea restores the terminal.
+func (m *Model) Update(msg tea.Msg) (model tea.Model, cmd tea.Cmd) {
+	defer m.recoverAndRepanic()
+	return m, m.update(msg)
+}
+
+func (m *Model) update(msg tea.Msg) tea.Cmd {
+	switch msg := msg.(type) {
+	case tea.WindowSizeMsg:
+		m.width, m.height = msg.Width, msg.Height
+		m.layout()
+		return nil
+	case ShutdownMsg:
+		return m.shutdown(msg.Reason)
+	case screen.StatusMsg:
+		m.status, m.statusErr = msg.Text, msg.Err
+		return nil
+	case screen.SwitchMsg:
+		return m.switchTo(msg.To)
+	case screen.OpenMsg:
+		if m.sess.Dirty && m.sess.Cycle != nil {
+			// Opening another compound replaces the cycle: keep the old one.
+			if p, err := m.writeRecovery(); err == nil && p != "" {
+				m.status = "The unsaved " + m.sess.Cycle.Formula + " cycle was kept in " + p + "."
+			}
+		}
+		return m.openCmd(msg)
+	case openedMsg:
+		return m.opened(msg)
+	case savedMsg:
+		return m.saved(msg)
+	case session.SolvedMsg:
+		if !m.sess.Apply(msg) {
+			return nil
+		}
+		return m.broadcast(msg)
+	case tea.KeyMsg:
+		return m.key(msg)
+	}
+	return m.broadcast(msg)
+}
+
+func (m *Model) broadcast(msg tea.Msg) tea.Cmd {
+	cmds := make([]tea.Cmd, 0, len(m.screens))
+	for _, s := range m.screens {
+		cmds = append(cmds, s.Update(msg))
+	}
+	return tea.Batch(cmds...)
+}
+
+func (m *Model) key(k tea.KeyMsg) tea.Cmd {
+	if m.prompt != nil {
+		cmd := m.prompt.Update(k)
+		if m.prompt.Done() {
+			m.prompt = nil
+		}
+		return cmd
+	}
+	if m.confirming {
+		return m.confirmKey(k)
+	}
+	if m.tooSmall() {
+		if key.Matches(k, m.Keys.Quit, m.Keys.ForceQuit) {
+			return m.quit()
+		}
+		return nil
+	}
+	cur := m.screens[m.active]
+	capturing := cur.Capturing()
+	switch {
+	case key.Matches(k, m.Keys.ForceQuit):
+		return m.quit()
+	case m.showHelp && key.Matches(k, m.Keys.Help, m.Confirm.Back, m.Keys.Quit):
+		m.showHelp = false
+		return nil
+	case key.Matches(k, m.Keys.NextScreen):
+		return m.switchTo((m.active + 1) % screen.ID(len(m.screens)))
+	case key.Matches(k, m.Keys.PrevScreen):
+		return m.switchTo((m.active + screen.ID(len(m.screens)) - 1) % screen.ID(len(m.screens)))
+	case key.Matches(k, m.Keys.Save):
+		return m.askSave(false)
+	case key.Matches(k, m.Keys.Open):
+		return m.askOpen()
+	case !capturing && key.Matches(k, m.Keys.Help):
+		m.showHelp = !m.showHelp
+		return nil
+	case !capturing && key.Matches(k, m.Keys.Quit):
+		return m.quit()
+	case !capturing && key.Matches(k, m.Keys.Units):
+		return m.nextUnits()
+	case !capturing && key.Matches(k, m.Keys.GoTo):
+		return m.switchTo(screen.ID(k.Runes[0] - '1'))
+	}
+	if m.showHelp {
+		return nil
+	}
+	return cur.Update(k)
+}
+
+func (m *Model) nextUnits() tea.Cmd {
+	units := thermo.Units()
+	for i, u := range units {
+		if u == m.ctx.Units {
+			m.ctx.Units = units[(i+1)%len(units)]
+			break
+		}
+	}
+	return tea.Batch(screen.Status("Energies now in "+m.ctx.Units.String()+"."), m.broadcast(screen.UnitsMsg{}))
+}
+
+func (m *Model) switchTo(id screen.ID) tea.Cmd {
+	if id < 0 || int(id) >= len(m.screens) {
+		return nil
+	}
+	m.active = id
+	m.showHelp = false
+	return m.screens[id].Update(screen.ShownMsg{})
+}
+
+func (m *Model) openCmd(req screen.OpenMsg) tea.Cmd {
+	db := m.opts.DB
+	resolve := m.ctx.ResolvePath
+	return func() tea.Msg {
+		if db == nil {
+			return openedMsg{err: errors.New("no data loaded")}
+		}
+		if req.File != "" {
+			path, err := resolve(req.File)
+			if err != nil {
+				return openedMsg{err: err}
+			}
+			c, err := cycle.Open(db, path)
+			return openedMsg{c: c, path: path, err: err}
+		}
+		c, err := cycle.Build(db, req.Formula, cycle.Options{})
+		return openedMsg{c: c, guided: req.Guided, err: err}
+	}
+}
+
+func (m *Model) opened(msg openedMsg) tea.Cmd {
+	if msg.err != nil {
+		m.status, m.statusErr = msg.err.Error(), true
+		return nil
+	}
+	solve := m.sess.Open(msg.c, msg.path)
+	m.status, m.statusErr = "", false
+	if msg.path != "" {
+		m.status = "Opened " + msg.path + "."
+	}
+	target := screen.Bench
+	if msg.guided {
+		target = screen.Assembly
+	}
+	return tea.Batch(m.broadcast(session.OpenedMsg{}), solve, m.switchTo(target))
+}
+
+// layout hands every screen its body size.
+func (m *Model) layout() {
+	w, h := m.bodySize()
+	for _, s := range m.screens {
+		s.SetSize(w, h)
+	}
+	m.help.Width = m.width
+}
+
+func (m *Model) bodySize() (int, int) { return max(m.width, 1), max(m.height-3, 1) }
+
+func (m *Model) tooSmall() bool {
+	return m.width > 0 && m.height > 0 && (m.width < MinWidth || m.height < MinHeight)
+}
+
+// View draws the header, the body (screen, help, question or prompt), the
+// status line and the help line.
+func (m *Model) View() (out string) {
+	defer m.recoverAndRepanic()
+	if m.quitting {
+		if m.recovered != "" {
+			return "Unsaved work kept in " + m.recovered + "\n"
+		}
+		return ""
+	}
+	st := m.ctx.Styles
+	if m.width == 0 || m.height == 0 {
+		return "starting…"
+	}
+	if m.tooSmall() {
+		return m.smallView()
+	}
+	w, h := m.bodySize()
+	var body string
+	switch {
+	case m.prompt != nil:
+		m.prompt.SetWidth(min(w-6, 90))
+		body = m.centre(st.Overlay.Render(m.prompt.View()), w, h)
+	case m.confirming:
+		body = m.centre(st.Overlay.Render(m.confirmView()), w, h)
+	case m.showHelp:
+		body = m.centre(st.Overlay.Render(m.fullHelpView()), w, h)
+	default:
+		body = m.screens[m.active].View()
+	}
+	body = lipgloss.NewStyle().Width(w).Height(h).MaxHeight(h).MaxWidth(w).Render(body)
+	return lipgloss.JoinVertical(lipgloss.Left, m.header(), body, m.statusLine(), m.helpLine())
+}
+
+func (m *Model) centre(box string, w, h int) string {
+	return lipgloss.Place(w, h, lipgloss.Center, lipgloss.Center, box)
+}
+
+func (m *Model) smallView() string {
+	msg := fmt.Sprintf("The window is %d×%d; the workshop needs at least %d×%d.\nEnlarge the window, or press q to quit.",
+		m.width, m.height, MinWidth, MinHeight)
+	return lipgloss.NewStyle().Width(m.width).MaxHeight(m.height).Render(m.ctx.Styles.Warn.Render(msg))
+}
+
+func (m *Model) header() string {
+	st := m.ctx.Styles
+	var tabs []string
+	for i, s := range m.screens {
+		label := fmt.Sprintf("%d %s", i+1, s.Title())
+		if screen.ID(i) == m.active {
+			tabs = append(tabs, st.ActiveTab.Render("["+label+"]"))
+		} else {
+			tabs = append(tabs, st.Tab.Render(" "+label+" "))
+		}
+	}
+	left := strings.Join(tabs, "")
+	right := m.ctx.Units.String()
+	if c := m.sess.Cycle; c != nil {
+		name := c.Formula
+		if m.sess.Dirty {
+			name += " (unsaved)"
+		}
+		right = name + " · " + right
+	}
+	right = st.Header.Render(right)
+	gap := m.width - lipgloss.Width(left) - lipgloss.Width(right)
+	if gap < 1 {
+		return lipgloss.NewStyle().MaxWidth(m.width).Render(left)
+	}
+	return left + strings.Repeat(" ", gap) + right
+}
+
+func (m *Model) statusLine() string {
+	st := m.ctx.Styles
+	text := m.status
+	var out string
+	switch {
+	case text != "" && m.statusErr:
+		out = st.Error.Render("error: ") + st.Text.Render(text)
+	case text != "":
+		out = st.Text.Render(text)
+	case m.sess.Path != "":
+		out = st.Muted.Render("file: " + m.sess.Path)
+	default:
+		out = st.Muted.Render("enthalpath workshop — ? lists every key")
+	}
+	return lipgloss.NewStyle().MaxWidth(m.width).Render(out)
+}
+
+func (m *Model) helpLine() string {
+	return lipgloss.NewStyle().MaxWidth(m.width).Render(m.help.ShortHelpView(m.ShortHelp()))
+}
+
+// ShortHelp is the always-visible help line: the screen's main keys and
+// the few global ones.
+func (m *Model) ShortHelp() []key.Binding {
+	b := m.screens[m.active].ShortHelp()
+	if m.screens[m.active].Capturing() {
+		return append(b, m.Keys.ForceQuit)
+	}
+	return append(b, m.Keys.Help, m.Keys.Quit)
+}
+
+// FullHelp is the overlay's content: the screen's keys, then the global keys.
+func (m *Model) FullHelp() [][]key.Binding {
+	k := m.Keys
+	groups := m.screens[m.active].FullHelp()
+	return append(groups,
+		[]key.Binding{k.NextScreen, k.PrevScreen, k.GoTo, k.Units},
+		[]key.Binding{k.Save, k.Open, k.Help, k.Quit, k.ForceQuit})
+}
+
+func (m *Model) fullHelpView() string {
+	st := m.ctx.Styles
+	title := st.Title.Render("Keys on the " + m.screens[m.active].Title() + " screen, then everywhere")
+	note := st.Muted.Render("On the Shelf and while a value is being typed, letters go to the text; use tab, ctrl keys and esc.")
+	return title + "\n\n" + m.help.FullHelpView(m.FullHelp()) + "\n\n" + note + "\n" + st.Muted.Render("? or esc closes this list.")
+}

@@ -1,0 +1,290 @@
+package modelpanel
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"github.com/charmbracelet/bubbles/key"
+	"github.com/charmbracelet/bubbles/textinput"
+	tea "github.com/charmbracelet/bubbletea"
+
+	"enthalpath/cycle"
+	"enthalpath/tui/screen"
+	"enthalpath/tui/session"
+)
+
+// Model is the model panel.
+type Model struct {
+	KeyMap KeyMap
+
+	ctx  *screen.Context
+	sess *session.Session
+
+	rows    []setting
+	cursor  int
+	editing bool
+	input   textinput.Model
+	editErr error
+	w, h    int
+}
+
+var _ screen.Screen = (*Model)(nil)
+
+// New returns the model panel over the session's cycle.
+func New(ctx *screen.Context, sess *session.Session) *Model {
+	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
+	return &Model{KeyMap: DefaultKeyMap(), ctx: ctx, sess: sess, rows: settingsRows(), input: ti}
+}
+
+// Init does nothing.
+func (m *Model) Init() tea.Cmd { return nil }
+
+// Title is the screen's name.
+func (m *Model) Title() string { return "Models" }
+
+// Capturing reports whether a setting is being typed.
+func (m *Model) Capturing() bool { return m.editing }
+
+// SetSize sets the body size.
+func (m *Model) SetSize(w, h int) { m.w, m.h = w, h; m.input.Width = max(10, w-30) }
+
+// Cursor returns the highlighted setting's index; Editing whether it is
+// being typed and the refusal shown.
+func (m *Model) Cursor() int            { return m.cursor }
+func (m *Model) Editing() (bool, error) { return m.editing, m.editErr }
+func (m *Model) SettingNames() (out []string) {
+	for _, r := range m.rows {
+		out = append(out, r.name)
+	}
+	return out
+}
+
+// ShortHelp lists the main keys.
+func (m *Model) ShortHelp() []key.Binding {
+	k := m.KeyMap
+	if m.editing {
+		return []key.Binding{k.Accept, k.Cancel}
+	}
+	return []key.Binding{k.Down, k.Edit, k.Next, k.Default}
+}
+
+// FullHelp lists every key.
+func (m *Model) FullHelp() [][]key.Binding {
+	k := m.KeyMap
+	return [][]key.Binding{{k.Up, k.Down}, {k.Edit, k.Next, k.Prev, k.Default}}
+}
+
+// Update handles keys.
+func (m *Model) Update(msg tea.Msg) tea.Cmd {
+	k, ok := msg.(tea.KeyMsg)
+	if !ok {
+		if m.editing {
+			var cmd tea.Cmd
+			m.input, cmd = m.input.Update(msg)
+			return cmd
+		}
+		return nil
+	}
+	c := m.sess.Cycle
+	if c == nil {
+		return screen.Status("No cycle yet: open a compound from the Shelf first.")
+	}
+	row := m.rows[m.cursor]
+	km := m.KeyMap
+	if m.editing {
+		switch {
+		case key.Matches(k, km.Cancel):
+			m.editing, m.editErr = false, nil
+			m.input.Blur()
+			return nil
+		case key.Matches(k, km.Accept):
+			text := m.input.Value()
+			cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return row.parse(c, text, m.ctx.ResolvePath) })
+			if err != nil {
+				m.editErr = err
+				return nil
+			}
+			m.editing, m.editErr = false, nil
+			m.input.Blur()
+			return tea.Batch(cmd, screen.Status(row.name+": "+row.show(&c.Settings)+"."))
+		}
+		before := m.input.Value()
+		var cmd tea.Cmd
+		m.input, cmd = m.input.Update(k)
+		if before != m.input.Value() {
+			m.editErr = nil
+		}
+		return cmd
+	}
+	switch {
+	case key.Matches(k, km.Up):
+		m.cursor = max(0, m.cursor-1)
+	case key.Matches(k, km.Down):
+		m.cursor = min(len(m.rows)-1, m.cursor+1)
+	case key.Matches(k, km.Edit):
+		m.editing, m.editErr = true, nil
+		m.input.Reset()
+		m.input.Prompt = row.name + " › "
+		m.input.Placeholder = row.hint
+		return m.input.Focus()
+	case key.Matches(k, km.Next), key.Matches(k, km.Prev):
+		d := 1
+		if key.Matches(k, km.Prev) {
+			d = -1
+		}
+		cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return step(row, c, d) })
+		if err != nil {
+			return screen.Fail(err)
+		}
+		return tea.Batch(cmd, screen.Status(row.name+": "+row.show(&c.Settings)+"."))
+	case key.Matches(k, km.Default):
+		cmd, _ := m.sess.Change(func(c *cycle.Cycle) error { row.reset(c); return nil })
+		return tea.Batch(cmd, screen.Status(row.name+" back to its default."))
+	}
+	return nil
+}
+
+// View renders the panel.
+func (m *Model) View() string {
+	st := m.ctx.Styles
+	c := m.sess.Cycle
+	if c == nil {
+		return st.Muted.Render("No cycle open: pick a compound on the Shelf first.")
+	}
+	var lines []string
+	res := m.sess.Solved()
+	cycleValue := math.NaN()
+	switch {
+	case res != nil:
+		cycleValue = res.Lattice.In(c.Conventions.Lattice)
+		lines = append(lines, st.Title.Render(fmt.Sprintf("%s: cycle lattice %s = %s %s %s", c.Formula, c.Conventions.Lattice.Symbol(),
+			m.ctx.Signed(cycleValue), m.ctx.Uncertainty(res.Lattice.Uncertainty), m.ctx.Units)))
+	case !m.sess.Fresh():
+		lines = append(lines, st.Muted.Render("solving…"))
+	default:
+		lines = append(lines, st.Error.Render("The cycle is not solved: ")+trunc(session.Explain(m.sess.SolveErr), m.w-26))
+	}
+	lines = append(lines, m.modelTable(res)...)
+	lines = append(lines, st.Muted.Render(trunc("gap = cycle − model (█ left of │: the cycle binds more); verdict "+cycle.VerdictThresholds(), m.w)))
+	lines = append(lines, m.madelungLine(res))
+	lines = append(lines, "", st.Title.Render("Settings")+st.Muted.Render(" (↑/↓ choose · e type · ←/→ step · r default)"))
+	for i, r := range m.rows {
+		cursor := " "
+		if i == m.cursor {
+			cursor = "›"
+		}
+		text := trunc(fmt.Sprintf("%s %-22s %s", cursor, r.name, r.show(&c.Settings)), m.w)
+		if i == m.cursor {
+			text = st.Selected.Render(text)
+		}
+		lines = append(lines, text)
+	}
+	if m.editing {
+		lines = append(lines, m.input.View())
+		if m.editErr != nil {
+			lines = append(lines, st.Error.Render("✗ not accepted: ")+trunc(m.editErr.Error(), m.w-17))
+		}
+	}
+	if len(lines) > m.h {
+		lines = lines[:m.h]
+	}
+	return strings.Join(lines, "\n")
+}
+
+// barCell is the percent one cell of the gap bar stands for.
+const barCell = 2.0
+
+func (m *Model) modelTable(res *cycle.Result) []string {
+	st := m.ctx.Styles
+	var models []cycle.ModelResult
+	if res != nil {
+		models = res.Models
+	}
+	nameW := 13
+	half := 5
+	if m.w >= 110 {
+		half = 10
+	}
+	scale := fmt.Sprintf("−%g%%", barCell*float64(half))
+	scale = scale + strings.Repeat(" ", max(1, 2*half+1-2*len([]rune(scale))-1)) + "0" + strings.Replace(scale, "−", "+", 1)
+	verdictW := max(10, m.w-nameW-10-9-8-(2*half+1)-6)
+	head := fmt.Sprintf("%-*s %10s %9s %8s %-*s %s", nameW, "model", m.ctx.Units.String(), "gap", "gap %", 2*half+1, trunc(scale, 2*half+1), "verdict")
+	out := []string{st.Title.Render(trunc(head, m.w))}
+	if len(models) == 0 {
+		return append(out, st.Muted.Render("  (the models appear once the cycle is solved)"))
+	}
+	for _, mr := range models {
+		if !mr.OK() {
+			out = append(out, trunc(fmt.Sprintf("%-*s %10s  %s", nameW, mr.Model, "—", "not available: "+mr.Err.Error()), m.w))
+			continue
+		}
+		line := fmt.Sprintf("%-*s %10s %9s %8s %s %s", nameW, mr.Model, m.ctx.Signed(mr.Value), m.ctx.Signed(mr.Gap), pct(mr.GapPercent),
+			bar(mr.GapPercent, half), trunc(mr.Verdict.Character.String(), verdictW))
+		out = append(out, trunc(line, m.w))
+	}
+	if hb := res.Handbook; hb != nil {
+		out = append(out, st.Muted.Render(trunc(fmt.Sprintf("%-*s %10s %9s %8s  (%s, tabulated as %s)", nameW, "handbook", m.ctx.Signed(hb.Value),
+			m.ctx.Signed(hb.Difference), pct(hb.Percent), hb.Source.Key, hb.Convention.Symbol()), m.w)))
+	}
+	return out
+}
+
+func pct(v float64) string {
+	if math.IsNaN(v) {
+		return "—"
+	}
+	return strings.Replace(fmt.Sprintf("%+.1f %%", v), "-", "−", 1)
+}
+
+// bar draws a gap in percent as a bar about zero, barCell percent a cell,
+// barHalf cells each side, clipped with an arrow: negative to the left.
+func bar(pct float64, barHalf int) string {
+	cells := []rune(strings.Repeat("·", barHalf) + "│" + strings.Repeat("·", barHalf))
+	if math.IsNaN(pct) {
+		return string(cells)
+	}
+	n := int(math.Round(math.Abs(pct) / barCell))
+	clipped := n > barHalf
+	n = min(n, barHalf)
+	for i := 1; i <= n; i++ {
+		if pct < 0 {
+			cells[barHalf-i] = '█'
+		} else {
+			cells[barHalf+i] = '█'
+		}
+	}
+	if clipped {
+		if pct < 0 {
+			cells[0] = '◀'
+		} else {
+			cells[2*barHalf] = '▶'
+		}
+	}
+	return string(cells)
+}
+
+func (m *Model) madelungLine(res *cycle.Result) string {
+	st := m.ctx.Styles
+	if res == nil {
+		return ""
+	}
+	mr, ok := res.Model(cycle.ModelEwald)
+	if !ok || !mr.OK() || mr.Inputs.Madelung == 0 {
+		return st.Muted.Render("Ewald Madelung constant: not available for this structure")
+	}
+	in := mr.Inputs
+	return trunc(fmt.Sprintf("Ewald Madelung constant A = %.6f for %s, referred to d₀ = %.4f Å (%s; tin-foil boundary)",
+		in.Madelung, in.Structure, in.D0, in.MadelungFrom), m.w)
+}
+
+func trunc(s string, n int) string {
+	r := []rune(s)
+	if len(r) <= n {
+		return s
+	}
+	if n <= 1 {
+		return string(r[:max(n, 0)])
+	}
+	return string(r[:n-1]) + "…"
+}

@@ -1,0 +1,67 @@
+package screen
+
+import (
+	"errors"
+	"math"
+	"testing"
+
+	"enthalpath/thermo"
+)
+
+func TestParseEnergy(t *testing.T) {
+	// Expected conversions use the exact factors of package thermo
+	// (thermochemical calorie 4.184 J; 1 eV per particle = 96.485332… kJ/mol,
+	// CODATA 2018).
+	cases := []struct {
+		text    string
+		u       thermo.Unit
+		kj, unc float64
+		hasUnc  bool
+	}{
+		{"-787.2", thermo.KJPerMol, -787.2, 0, false},
+		{"−787.2 ± 2", thermo.KJPerMol, -787.2, 2, true},
+		{"744+-20", thermo.KJPerMol, 744, 20, true},
+		{"-100", thermo.KcalPerMol, -418.4, 0, false},
+		{"1", thermo.EVPerFormulaUnit, thermo.KJPerMolPerEV, 0, false},
+	}
+	for _, c := range cases {
+		kj, unc, has, err := ParseEnergy(c.text, c.u)
+		if err != nil {
+			t.Errorf("ParseEnergy(%q): %v", c.text, err)
+			continue
+		}
+		if math.Abs(kj-c.kj) > 1e-9 || math.Abs(unc-c.unc) > 1e-9 || has != c.hasUnc {
+			t.Errorf("ParseEnergy(%q) = %v ± %v (%v), want %v ± %v (%v)", c.text, kj, unc, has, c.kj, c.unc, c.hasUnc)
+		}
+	}
+	for _, bad := range []string{"", "abc", "12kJ", "5 ± x", "5 ± -1", "NaN", "Inf"} {
+		_, _, _, err := ParseEnergy(bad, thermo.KJPerMol)
+		var ie *InputError
+		if !errors.As(err, &ie) {
+			t.Errorf("ParseEnergy(%q): error %v, want *InputError", bad, err)
+		}
+	}
+}
+
+func TestFormatEnergyRoundTrip(t *testing.T) {
+	for _, u := range thermo.Units() {
+		for _, kj := range []float64{-787.25, 0, 496.0, 1e-4} {
+			s := FormatEnergy(kj, u)
+			back, _, _, err := ParseEnergy(s, u)
+			if err != nil {
+				t.Fatalf("%s: %v", s, err)
+			}
+			// Printing rounds to the unit's decimals: 0.05 kJ/mol, 0.05 kcal/mol, 0.0005 eV.
+			tol := 0.05 * 4.2
+			if u == thermo.EVPerFormulaUnit {
+				tol = 0.0005 * 96.5
+			}
+			if math.Abs(back-kj) > tol {
+				t.Errorf("%v in %v → %q → %v", kj, u, s, back)
+			}
+		}
+	}
+	if got := FormatEnergy(-0.01, thermo.KJPerMol); got != "0.0" {
+		t.Errorf("negative zero printed as %q", got)
+	}
+}

@@ -1,0 +1,292 @@
+package shelf
+
+import (
+	"fmt"
+	"slices"
+	"strings"
+
+	"github.com/charmbracelet/bubbles/key"
+	"github.com/charmbracelet/bubbles/textinput"
+	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/lipgloss"
+
+	"enthalpath/data"
+	"enthalpath/tui/screen"
+)
+
+// Scenario is the invented setting of the demo the workshop opens on. The
+// study, its group and its purpose are fictitious; the compounds are real
+// rows of the data, chosen by that invented study.
+const Scenario = "Demo (invented scenario): the fictitious Larchmere Solid-State Group's shortlist of " +
+	"candidate salts for a heat-store trial. The study is made up; the data are real and cited."
+
+// Shortlist is the invented study's candidate salts, pinned at the top of
+// the shelf (those the data have).
+var Shortlist = [...]string{"KCl", "MgO", "CaF2", "AgBr", "CsI", "LiF"}
+
+// Model is the shelf screen.
+type Model struct {
+	KeyMap KeyMap
+
+	ctx      *screen.Context
+	input    textinput.Model
+	all      []row
+	shown    []int // indices into all
+	cursor   int
+	top      int
+	w, h     int
+	shortSet map[string]bool
+}
+
+type row struct {
+	c         data.Compound
+	shortlist bool
+	user      bool
+	haystack  string
+}
+
+var _ screen.Screen = (*Model)(nil)
+
+// New builds the shelf over the compounds of ctx.DB.
+func New(ctx *screen.Context) *Model {
+	m := &Model{KeyMap: DefaultKeyMap(), ctx: ctx, shortSet: map[string]bool{}}
+	for _, f := range Shortlist {
+		m.shortSet[f] = true
+	}
+	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
+	ti.Prompt = "formula or filter › "
+	ti.Placeholder = "type to filter, or a formula the data lack (e.g. MgCl)"
+	ti.Focus()
+	m.input = ti
+	var compounds []data.Compound
+	if ctx.DB != nil {
+		compounds = ctx.DB.Compounds()
+	}
+	for _, c := range compounds {
+		m.all = append(m.all, row{
+			c:         c,
+			shortlist: m.shortSet[c.Formula],
+			user:      c.Formation.Source == "user" || c.Formation.Override,
+			haystack:  strings.ToLower(strings.Join([]string{c.Formula, c.Name, c.Family, c.Structure}, " ")),
+		})
+	}
+	// Shortlist first in the study's order, then the rest as the data list them.
+	order := func(r row) int {
+		if i := slices.Index(Shortlist[:], r.c.Formula); i >= 0 {
+			return i
+		}
+		return len(Shortlist)
+	}
+	slices.SortStableFunc(m.all, func(a, b row) int { return order(a) - order(b) })
+	m.refilter()
+	return m
+}
+
+// Init starts the cursor blinking.
+func (m *Model) Init() tea.Cmd { return nil }
+
+// Title is the screen's name.
+func (m *Model) Title() string { return "Shelf" }
+
+// Capturing is always true: the filter line takes every printable key.
+func (m *Model) Capturing() bool { return true }
+
+// SetSize sets the body size.
+func (m *Model) SetSize(w, h int) {
+	m.w, m.h = w, h
+	m.input.Width = max(10, w-len([]rune(m.input.Prompt))-2)
+	m.clampScroll()
+}
+
+// ShortHelp lists the main keys.
+func (m *Model) ShortHelp() []key.Binding {
+	return []key.Binding{m.KeyMap.Open, m.KeyMap.Assemble}
+}
+
+// FullHelp lists every key.
+func (m *Model) FullHelp() [][]key.Binding {
+	k := m.KeyMap
+	return [][]key.Binding{{k.Up, k.Down, k.PageUp, k.PageDown}, {k.Open, k.Assemble, k.Clear}}
+}
+
+// Filter returns the text typed so far.
+func (m *Model) Filter() string { return strings.TrimSpace(m.input.Value()) }
+
+// Selected returns the highlighted compound's formula, or "".
+func (m *Model) Selected() string {
+	if len(m.shown) == 0 {
+		return ""
+	}
+	return m.all[m.shown[m.cursor]].c.Formula
+}
+
+// Matches returns the formulas shown, in order.
+func (m *Model) Matches() []string {
+	out := make([]string, len(m.shown))
+	for i, j := range m.shown {
+		out[i] = m.all[j].c.Formula
+	}
+	return out
+}
+
+// Update handles keys.
+func (m *Model) Update(msg tea.Msg) tea.Cmd {
+	if k, ok := msg.(tea.KeyMsg); ok {
+		switch {
+		case key.Matches(k, m.KeyMap.Up):
+			m.move(-1)
+			return nil
+		case key.Matches(k, m.KeyMap.Down):
+			m.move(1)
+			return nil
+		case key.Matches(k, m.KeyMap.PageUp):
+			m.move(-m.listHeight())
+			return nil
+		case key.Matches(k, m.KeyMap.PageDown):
+			m.move(m.listHeight())
+			return nil
+		case key.Matches(k, m.KeyMap.Clear):
+			m.input.SetValue("")
+			m.refilter()
+			return nil
+		case key.Matches(k, m.KeyMap.Open), key.Matches(k, m.KeyMap.Assemble):
+			return m.open(key.Matches(k, m.KeyMap.Assemble))
+		}
+	}
+	before := m.input.Value()
+	var cmd tea.Cmd
+	m.input, cmd = m.input.Update(msg)
+	if m.input.Value() != before {
+		m.refilter()
+	}
+	return cmd
+}
+
+func (m *Model) open(guided bool) tea.Cmd {
+	formula := m.Selected()
+	if formula == "" {
+		formula = m.Filter()
+		guided = true // nothing in the data: the assembly is where it starts
+	}
+	if formula == "" {
+		return screen.Fail(fmt.Errorf("type a formula first (for example NaCl), or pick one with ↑/↓"))
+	}
+	return func() tea.Msg { return screen.OpenMsg{Formula: formula, Guided: guided} }
+}
+
+func (m *Model) move(d int) {
+	if len(m.shown) == 0 {
+		return
+	}
+	m.cursor = max(0, min(len(m.shown)-1, m.cursor+d))
+	m.clampScroll()
+}
+
+// refilter recomputes the shown rows: every word of the filter must occur
+// in the formula, name, family or structure (case-insensitive); a row whose
+// formula equals the filter comes first.
+func (m *Model) refilter() {
+	f := strings.ToLower(m.Filter())
+	words := strings.Fields(f)
+	m.shown = m.shown[:0]
+	exact := -1
+	for i, r := range m.all {
+		ok := true
+		for _, w := range words {
+			if !strings.Contains(r.haystack, w) {
+				ok = false
+				break
+			}
+		}
+		if !ok {
+			continue
+		}
+		if f != "" && strings.ToLower(r.c.Formula) == f && exact < 0 {
+			exact = len(m.shown)
+		}
+		m.shown = append(m.shown, i)
+	}
+	if exact > 0 {
+		e := m.shown[exact]
+		copy(m.shown[1:exact+1], m.shown[:exact])
+		m.shown[0] = e
+	}
+	m.cursor, m.top = 0, 0
+}
+
+func (m *Model) listHeight() int { return max(1, m.h-6) }
+
+func (m *Model) clampScroll() {
+	lh := m.listHeight()
+	if m.cursor < m.top {
+		m.top = m.cursor
+	}
+	if m.cursor >= m.top+lh {
+		m.top = m.cursor - lh + 1
+	}
+}
+
+// View renders the shelf.
+func (m *Model) View() string {
+	st := m.ctx.Styles
+	var lines []string
+	lines = append(lines, st.Muted.Render(truncate(Scenario, m.w)))
+	lines = append(lines, m.input.View())
+	unit := m.ctx.Units.String()
+	header := fmt.Sprintf("   %-9s %-22s %-16s %12s  %-12s", "formula", "name", "family", "ΔfH°("+unit+")", "structure")
+	lines = append(lines, st.Title.Render(truncate(header, m.w)))
+	lh := m.listHeight()
+	if len(m.shown) == 0 {
+		msg := "No compound of the data matches."
+		if f := m.Filter(); f != "" {
+			msg += fmt.Sprintf(" Enter assembles a cycle for %q step by step from element data.", f)
+		}
+		lines = append(lines, st.Warn.Render(truncate(msg, m.w)))
+	}
+	for i := m.top; i < len(m.shown) && i < m.top+lh; i++ {
+		r := m.all[m.shown[i]]
+		mark := " "
+		switch {
+		case r.shortlist:
+			mark = "★"
+		case r.user:
+			mark = "u"
+		}
+		cursor := " "
+		if i == m.cursor {
+			cursor = "›"
+		}
+		form := "—"
+		if r.c.Formation.Known() {
+			form = m.ctx.Energy(r.c.Formation.V)
+		}
+		structure := r.c.Structure
+		if structure == "" {
+			structure = "—"
+		}
+		text := fmt.Sprintf("%s%s %-9s %-22s %-16s %12s  %-12s", cursor, mark, r.c.Formula, truncate(r.c.Name, 22),
+			truncate(r.c.Family, 16), form, structure)
+		text = truncate(text, m.w)
+		if i == m.cursor {
+			text = st.Selected.Render(text)
+		}
+		lines = append(lines, text)
+	}
+	for len(lines) < m.h-1 {
+		lines = append(lines, "")
+	}
+	foot := fmt.Sprintf("%d of %d compounds · ★ the invented study's shortlist · u from your data file", len(m.shown), len(m.all))
+	lines = append(lines, st.Muted.Render(truncate(foot, m.w)))
+	return lipgloss.JoinVertical(lipgloss.Left, lines[:min(len(lines), max(m.h, 1))]...)
+}
+
+func truncate(s string, n int) string {
+	r := []rune(s)
+	if len(r) <= n {
+		return s
+	}
+	if n <= 1 {
+		return string(r[:max(n, 0)])
+	}
+	return string(r[:n-1]) + "…"
+}
