@@ -52,6 +52,7 @@ func (b *block) has(tag string) bool {
 func parseBlocks(toks []token, file string) ([]*block, error) {
 	var blocks []*block
 	var cur *block
+	seen := map[string]int{} // lower-case block name → line
 	syntaxErr := func(l int, tag, msg string, args ...any) error {
 		return &Error{File: file, Line: l, Tag: tag, Msg: fmt.Sprintf(msg, args...), Err: ErrSyntax}
 	}
@@ -68,11 +69,10 @@ func parseBlocks(toks []token, file string) ([]*block, error) {
 		t := toks[i]
 		switch t.kind {
 		case tokData:
-			for _, b := range blocks {
-				if strings.EqualFold(b.name, t.text) {
-					return nil, syntaxErr(t.line, "", "block data_%s appears twice (first on line %d)", t.text, b.line)
-				}
+			if l, dup := seen[strings.ToLower(t.text)]; dup {
+				return nil, syntaxErr(t.line, "", "block data_%s appears twice (first on line %d)", t.text, l)
 			}
+			seen[strings.ToLower(t.text)] = t.line
 			cur = &block{name: t.text, line: t.line, items: map[string]value{}, inLoop: map[string]*loop{}, tagLine: map[string]int{}, spelled: map[string]string{}}
 			blocks = append(blocks, cur)
 			i++

@@ -37,10 +37,13 @@ const MaxMergeTolerance = 0.5
 // OccupancyTolerance is the largest |occupancy − 1| read as a full site.
 const OccupancyTolerance = 1e-3
 
-// maxSites bounds the number of sites after symmetry expansion, so that a
-// hostile file cannot make the merge step (quadratic in the site count) run
-// for ever.
-const maxSites = 20000
+// maxSites and maxImages bound the number of sites after symmetry
+// expansion and the number of images computed, so that a hostile file
+// cannot exhaust memory or time.
+const (
+	maxSites  = 50000
+	maxImages = 1000000
+)
 
 // ParseFile reads the CIF file at path; see Parse.
 func ParseFile(path string, opt Options) (*crystal.Crystal, error) {
@@ -487,8 +490,8 @@ func (rd *reader) crystal(opt Options, tol float64) (*crystal.Crystal, error) {
 	if err != nil {
 		return nil, err
 	}
-	if len(asym)*len(ops) > maxSites*4 {
-		return nil, rd.errf(0, "", ErrBadValue, "%d sites × %d operations is too many to expand (at most %d sites after merging are read)", len(asym), len(ops), maxSites)
+	if len(asym)*len(ops) > maxImages {
+		return nil, rd.errf(0, "", ErrBadValue, "%d sites × %d operations is too many to expand (at most %d images, %d sites after merging, are read)", len(asym), len(ops), maxImages, maxSites)
 	}
 	c := &crystal.Crystal{Name: rd.file, Lattice: lat}
 	if c.Name == "" {
@@ -523,38 +526,99 @@ func wrap(x float64) float64 {
 // expand applies every operation to every asymmetric site and keeps one
 // copy of each position. Two images of the same site closer than tol (Å,
 // shortest periodic distance) are one site; images of different sites that
-// close are a collision, reported as an error.
+// close are a collision, reported as an error. Sites are binned on a grid
+// whose cells are at least tol wide in every direction, so each image is
+// compared only with the sites in its own and the 26 adjacent grid cells.
 func expand(c *crystal.Crystal, asym []asymSite, ops []Symop, tol float64, rd *reader) error {
-	owner := []int{}
+	var owner []int
+	g := newGrid(c, tol)
 	for i, s := range asym {
 		for _, op := range ops {
 			f := op.Apply(s.frac)
 			for k := range f {
 				f[k] = wrap(f[k])
 			}
-			dup := false
-			for j := range c.Sites {
-				if periodicDistance(c, c.Sites[j].Frac, f) < tol {
-					if owner[j] != i {
-						o := asym[owner[j]]
-						return rd.errf(s.line, "_atom_site_label", ErrCollision,
-							"an image of site %s falls within %g Å of site %s (line %d); if the two share the site with partial occupancy, that is not supported; otherwise check the coordinates", s.label, tol, o.label, o.line)
-					}
-					dup = true
-					break
+			j := g.find(c, f, tol)
+			if j >= 0 {
+				if owner[j] != i {
+					o := asym[owner[j]]
+					return rd.errf(s.line, "_atom_site_label", ErrCollision,
+						"an image of site %s falls within %g Å of site %s (line %d); if the two share the site with partial occupancy, that is not supported; otherwise check the coordinates", s.label, tol, o.label, o.line)
 				}
-			}
-			if dup {
 				continue
 			}
 			if len(c.Sites) >= maxSites {
 				return rd.errf(0, "", ErrBadValue, "more than %d sites after symmetry expansion; that is beyond what this reader accepts", maxSites)
 			}
+			g.add(f, len(c.Sites))
 			c.Sites = append(c.Sites, crystal.Site{Label: s.label, Species: s.element, Charge: s.charge, Frac: f})
 			owner = append(owner, i)
 		}
 	}
 	return nil
+}
+
+// grid bins sites by fractional position.
+type grid struct {
+	n    [3]int
+	bins map[[3]int][]int
+}
+
+// maxBins bounds the grid divisions along one axis.
+const maxBins = 1024
+
+// newGrid divides each axis into cells at least tol wide: the spacing of
+// the lattice planes normal to axis i is V/|a_j × a_k|.
+func newGrid(c *crystal.Crystal, tol float64) *grid {
+	g := &grid{bins: map[[3]int][]int{}}
+	v := c.Volume()
+	for i := 0; i < 3; i++ {
+		cross := c.Lattice[(i+1)%3].Cross(c.Lattice[(i+2)%3]).Norm()
+		n := 1
+		if cross > 0 {
+			if spacing := v / cross; spacing/tol < maxBins {
+				n = int(spacing / tol)
+			} else {
+				n = maxBins
+			}
+		}
+		if n < 1 {
+			n = 1
+		}
+		g.n[i] = n
+	}
+	return g
+}
+
+func (g *grid) key(f crystal.Vec3) [3]int {
+	var k [3]int
+	for i := 0; i < 3; i++ {
+		k[i] = int(f[i]*float64(g.n[i])) % g.n[i]
+	}
+	return k
+}
+
+func (g *grid) add(f crystal.Vec3, idx int) {
+	k := g.key(f)
+	g.bins[k] = append(g.bins[k], idx)
+}
+
+// find returns the index of a site within tol of f, or -1.
+func (g *grid) find(c *crystal.Crystal, f crystal.Vec3, tol float64) int {
+	k := g.key(f)
+	for d0 := -1; d0 <= 1; d0++ {
+		for d1 := -1; d1 <= 1; d1++ {
+			for d2 := -1; d2 <= 1; d2++ {
+				kk := [3]int{(k[0] + d0 + g.n[0]) % g.n[0], (k[1] + d1 + g.n[1]) % g.n[1], (k[2] + d2 + g.n[2]) % g.n[2]}
+				for _, j := range g.bins[kk] {
+					if periodicDistance(c, c.Sites[j].Frac, f) < tol {
+						return j
+					}
+				}
+			}
+		}
+	}
+	return -1
 }
 
 // periodicDistance is the distance in Å between fractional positions f and

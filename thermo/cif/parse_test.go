@@ -330,6 +330,11 @@ func ftoa(x float64) string { return strconv.FormatFloat(x, 'f', 12, 64) }
 
 func readFile(t *testing.T, path string) string {
 	t.Helper()
+	return mustRead(t, path)
+}
+
+func mustRead(t testing.TB, path string) string {
+	t.Helper()
 	b, err := os.ReadFile(path)
 	if err != nil {
 		t.Fatal(err)

@@ -271,7 +271,7 @@ func (op Symop) String() string {
 				if c > 0 && b.Len() > 0 {
 					b.WriteByte('+')
 				}
-				b.WriteString(strconv.FormatFloat(c, 'g', -1, 64))
+				b.WriteString(strconv.FormatFloat(c, 'f', -1, 64))
 				b.WriteByte('*')
 			}
 			b.WriteString(v)
@@ -302,7 +302,7 @@ func fraction(t float64) string {
 		}
 		return strconv.FormatInt(num, 10) + "/" + strconv.FormatInt(den, 10)
 	}
-	return strconv.FormatFloat(t, 'g', -1, 64)
+	return strconv.FormatFloat(t, 'f', -1, 64)
 }
 
 func gcd64(a, b int64) int64 {
