@@ -214,4 +214,3 @@ func sphereVolumeNM3(rAngstrom float64) float64 {
 	r := rAngstrom / 10
 	return 4 * math.Pi / 3 * r * r * r
 }
-
