@@ -51,6 +51,8 @@
 // _atom_type_oxidation_number of its type symbol, and from
 // Options.Charges, looked up by the site's label, then its type symbol,
 // then its element. A site with no charge from any of these is an error.
+// Every site is one atom: a molecular ion (OH⁻, SO₄²⁻) must be listed atom
+// by atom, each with its own (formal or partial) charge.
 //
 // # Expansion
 //

@@ -6,6 +6,7 @@ import (
 	"io"
 	"math"
 	"os"
+	"path/filepath"
 	"sort"
 	"strings"
 
@@ -59,7 +60,7 @@ func ParseFile(path string, opt Options) (*crystal.Crystal, error) {
 // point-charge crystal: the cell from the _cell_ items, the atom sites
 // expanded by the symmetry operations, wrapped into [0,1) and merged within
 // the tolerance, each with its charge. name is used in error messages and
-// as the crystal's name. Every problem is returned as *Error; see the
+// (its last path element) as the crystal's name. Every problem is returned as *Error; see the
 // package documentation for what is read and what is refused.
 func Parse(r io.Reader, name string, opt Options) (*crystal.Crystal, error) {
 	src, err := io.ReadAll(r)
@@ -466,7 +467,7 @@ func (rd *reader) sites(opt Options) ([]asymSite, error) {
 		}
 		if !s.known {
 			return nil, rd.errf(s.line, "_atom_type_oxidation_number", ErrMissingCharge,
-				"no charge for site %s (type %s): give it in an _atom_type_symbol/_atom_type_oxidation_number loop, as a charged type symbol such as %s2+, or through Options.Charges (by label, type symbol or element)", s.label, s.typ, s.element)
+				"no charge for site %s (type %s): give it in an _atom_type_symbol/_atom_type_oxidation_number loop, as a charged type symbol such as %s2+, or as a charge by label, type symbol or element (Options.Charges; on the command line --charges %s=2,...)", s.label, s.typ, s.element, s.element)
 		}
 		out = append(out, s)
 	}
@@ -493,8 +494,8 @@ func (rd *reader) crystal(opt Options, tol float64) (*crystal.Crystal, error) {
 	if len(asym)*len(ops) > maxImages {
 		return nil, rd.errf(0, "", ErrBadValue, "%d sites × %d operations is too many to expand (at most %d images, %d sites after merging, are read)", len(asym), len(ops), maxImages, maxSites)
 	}
-	c := &crystal.Crystal{Name: rd.file, Lattice: lat}
-	if c.Name == "" {
+	c := &crystal.Crystal{Name: filepath.Base(rd.file), Lattice: lat}
+	if rd.file == "" {
 		c.Name = "data_" + rd.b.name
 	}
 	if err := expand(c, asym, ops, tol, rd); err != nil {
@@ -667,7 +668,7 @@ func (rd *reader) neutral(c *crystal.Crystal) error {
 		line = rd.b.inLoop[tag].lineOr(rd.b.tagLine[tag])
 	}
 	return rd.errf(line, tag, ErrNotNeutral,
-		"the cell is not neutral: its charges sum to %+.6g e (%s); correct the oxidation numbers or pass the charges through Options.Charges", q, strings.Join(parts, ", "))
+		"the cell is not neutral: its charges sum to %+.6g e (%s); correct the oxidation numbers, or give charges by label, type symbol or element (Options.Charges; on the command line --charges LABEL=Z,...)", q, strings.Join(parts, ", "))
 }
 
 // formulaUnits returns Z from _cell_formula_units_Z, or else the greatest
