@@ -589,3 +589,49 @@ func TestRecoveryFilesPerConcurrentSession(t *testing.T) {
 		t.Errorf("RecoveryFile ../x accepted: %v", err)
 	}
 }
+
+func TestHugeWindowClamped(t *testing.T) {
+	ts := startServer(t, nil)
+	tm := ts.mustTerm(t, ts.key, termOptions{width: 100000, height: 100000})
+	tm.mustSee("size: 1000x500")
+	if err := tm.sess.WindowChange(1<<30, 1<<30); err != nil {
+		t.Fatal(err)
+	}
+	tm.typeKeys("w")
+	tm.mustSee("keys: w|")
+	if strings.Contains(tm.screen(), "size: 1073741824") {
+		t.Error("a window of 2³⁰ columns reached the model")
+	}
+}
+
+// TestOnlyTheWorkshopIsServed: port forwarding, subsystems (sftp) and
+// other channel types are refused, so nothing else on the host is exposed.
+func TestOnlyTheWorkshopIsServed(t *testing.T) {
+	ts := startServer(t, nil)
+	client, err := ts.dial(ts.key)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer client.Close()
+	if conn, err := client.Dial("tcp", ts.addr); err == nil {
+		conn.Close()
+		t.Error("local port forwarding was allowed")
+	}
+	if ln, err := client.Listen("tcp", "127.0.0.1:0"); err == nil {
+		ln.Close()
+		t.Error("remote port forwarding was allowed")
+	}
+	if _, _, err := client.OpenChannel("x11", nil); err == nil {
+		t.Error("an x11 channel was opened")
+	}
+	sess, err := client.NewSession()
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer sess.Close()
+	if err := sess.RequestSubsystem("sftp"); err == nil {
+		if err := sess.Wait(); err == nil {
+			t.Error("the sftp subsystem ran and exited 0")
+		}
+	}
+}

@@ -32,6 +32,19 @@ const rendererQueryBudget = 900 * time.Millisecond
 // cheap wake-up per tick when nothing changed.
 const frameRate = 120
 
+// The largest window a session lays out for: a client claiming more (no
+// real terminal has 1000 columns) is drawn at this size rather than letting
+// one session build frames of any size it likes.
+const (
+	maxWindowWidth  = 1000
+	maxWindowHeight = 500
+)
+
+// clampWindow bounds a window size claimed by a client.
+func clampWindow(w, h int) (int, int) {
+	return max(0, min(w, maxWindowWidth)), max(0, min(h, maxWindowHeight))
+}
+
 // authLoggedKey marks a connection whose authentication has been logged.
 type authLoggedKey struct{}
 
@@ -157,10 +170,11 @@ func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 	renderer := bubbletea.MakeRenderer(sessionInput{Session: sess, in: gate})
 	gate.setDeadline(time.Time{})
 
+	width, height := clampWindow(pty.Window.Width, pty.Window.Height)
 	setup := SessionSetup{
 		Renderer:     renderer,
-		Width:        pty.Window.Width,
-		Height:       pty.Window.Height,
+		Width:        width,
+		Height:       height,
 		User:         sess.User(),
 		Fingerprint:  gossh.FingerprintSHA256(sess.PublicKey()),
 		Folder:       folder,
@@ -264,7 +278,8 @@ func followWindow(prog *tea.Program, winch <-chan ssh.Window, done <-chan struct
 			if !ok {
 				return
 			}
-			prog.Send(tea.WindowSizeMsg{Width: w.Width, Height: w.Height})
+			width, height := clampWindow(w.Width, w.Height)
+			prog.Send(tea.WindowSizeMsg{Width: width, Height: height})
 		}
 	}
 }
