@@ -7,7 +7,6 @@ import (
 	"slices"
 	"strings"
 
-	"enthalpath/thermo/crystal"
 	"enthalpath/thermo/lattice"
 )
 
@@ -361,10 +360,10 @@ func (c *Cycle) molarVolume() (float64, string, error) {
 		return vm, "cell volume of " + st.Name() + " / Z", err
 	}
 	if st.Prototype != "" && len(st.Params) > 0 {
-		cell, err := crystal.Build(st.Prototype, st.Params)
-		if err == nil {
-			vm, err := lattice.MolarVolumeFromCell(cell.Volume(), cell.FormulaUnits)
-			return vm, fmt.Sprintf("cell volume of %s (%s) / Z", st.Prototype, formatParams(st.Params)), err
+		mv, err := c.Memo().Madelung(st, c.Cation, c.Anion, c.Settings.Accuracy)
+		if err == nil && mv.FormulaUnits > 0 {
+			vm, err := lattice.MolarVolumeFromCell(mv.Volume, mv.FormulaUnits)
+			return vm, "cell volume of " + describeStructure(st) + " / Z", err
 		}
 	}
 	if c.Compound.Density.Known() && c.MolarMass > 0 {
@@ -397,14 +396,7 @@ func (c *Cycle) bornModel(in *ModelInputs, mayer, actual bool) (float64, error) 
 	n := c.Settings.BornExponent
 	in.BornExponentFrom = "set by the user"
 	if n == 0 {
-		var configs []string
-		for range c.Cation.Count {
-			configs = append(configs, c.Cation.Ion.BornConfig)
-		}
-		for range c.Anion.Count {
-			configs = append(configs, c.Anion.Ion.BornConfig)
-		}
-		n, err = lattice.BornExponent(configs...)
+		n, err = c.bornExponent()
 		if err != nil {
 			return 0, &ModelError{Model: ModelBornLande, Reason: "no Born exponent class for " + c.Cation.Ion.Symbol + " or " +
 				c.Anion.Ion.Symbol + "; set n yourself", Err: err}
@@ -414,6 +406,25 @@ func (c *Cycle) bornModel(in *ModelInputs, mayer, actual bool) (float64, error) 
 	}
 	in.BornExponent = n
 	return lattice.BornLande(pair, n)
+}
+
+// bornExponent is the count-weighted mean of the ions' Pauling exponents:
+// from the data's Born-exponent table when the ions carry it, else from
+// thermo/lattice's table of configurations.
+func (c *Cycle) bornExponent() (float64, error) {
+	nc, na := c.Cation.Ion.BornExponent, c.Anion.Ion.BornExponent
+	if nc.Known() && na.Known() {
+		a, b := float64(c.Cation.Count), float64(c.Anion.Count)
+		return (a*nc.V + b*na.V) / (a + b), nil
+	}
+	var configs []string
+	for range c.Cation.Count {
+		configs = append(configs, c.Cation.Ion.BornConfig)
+	}
+	for range c.Anion.Count {
+		configs = append(configs, c.Anion.Ion.BornConfig)
+	}
+	return lattice.BornExponent(configs...)
 }
 
 // distance sets in.D0 by the settings: for the textbook models (actual

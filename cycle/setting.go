@@ -78,7 +78,12 @@ func ParseSetting(text string, def thermo.Unit) (Setting, error) {
 	s := Setting{Key: key, Value: thermo.ToKJPerMol(v, unit)}
 	if hasUnc {
 		uncText = strings.TrimSpace(uncText)
-		uc := col0 + utf8.RuneCountInString(rest[:strings.Index(rest, uncText)])
+		sep, at := "±", strings.Index(rest, "±")
+		if at < 0 {
+			sep, at = "+-", strings.Index(rest, "+-")
+		}
+		start := at + len(sep)
+		uc := col0 + utf8.RuneCountInString(rest[:start]) + leading(rest[start:])
 		if uncText == "" {
 			return bad(uc, "missing uncertainty after ±")
 		}
