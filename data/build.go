@@ -97,7 +97,7 @@ func (b *builder) value(r record, field, uncField, srcField, memName, unit strin
 	if v.Memory, err = r.memoryOf(memName); err != nil {
 		return Value{}, false, err
 	}
-	if _, has := r.fields["derived"]; has {
+	if _, has := r.get("derived"); has {
 		if v.Derived, err = r.flag("derived"); err != nil {
 			return Value{}, false, err
 		}
@@ -535,9 +535,11 @@ func (b *builder) compound(r record) error {
 	if err != nil {
 		return err
 	}
-	if _, ferr := ParseFormula(formula); ferr != nil {
+	parsed, ferr := ParseFormula(formula)
+	if ferr != nil {
 		return r.errorf("formula", "%v", ferr)
 	}
+	b.db.compKeys[formula] = parsed.compositionKey()
 	i, exists := b.db.compoundIdx[formula]
 	if exists && !b.overlay {
 		return r.errorf("formula", "compound %s listed twice", formula)
@@ -698,11 +700,10 @@ func (b *builder) finish() {
 	db.compoundFoldIdx = make(map[string]int, len(db.compounds))
 	for i, c := range db.compounds {
 		db.compoundFoldIdx[strings.ToLower(c.Formula)] = i
-		f, err := ParseFormula(c.Formula)
-		if err != nil {
+		key, ok := db.compKeys[c.Formula]
+		if !ok {
 			continue
 		}
-		key := f.compositionKey()
 		if _, dup := db.compositionIdx[key]; !dup {
 			db.compositionIdx[key] = i
 		}

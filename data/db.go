@@ -36,7 +36,8 @@ type DB struct {
 	compounds       []Compound
 	compoundIdx     map[string]int // formula as written
 	compoundFoldIdx map[string]int // lower-case formula
-	compositionIdx  map[string]int // normalized composition (first compound)
+	compositionIdx  map[string]int    // normalized composition (first compound)
+	compKeys        map[string]string // formula → composition key
 
 	overlays []string
 	problems []string
@@ -56,6 +57,7 @@ func newDB() *DB {
 		ionIdx:      map[string]int{},
 		radii:       map[ionKey][]ShannonRadius{},
 		compoundIdx: map[string]int{},
+		compKeys:    map[string]string{},
 	}
 }
 
@@ -121,6 +123,7 @@ func (db *DB) clone() *DB {
 		radii:       make(map[ionKey][]ShannonRadius, len(db.radii)),
 		compounds:   make([]Compound, len(db.compounds)),
 		compoundIdx: maps.Clone(db.compoundIdx),
+		compKeys:    maps.Clone(db.compKeys),
 		overlays:    slices.Clone(db.overlays),
 		problems:    slices.Clone(db.problems),
 	}
@@ -142,6 +145,11 @@ func (db *DB) clone() *DB {
 	return c
 }
 
+func sharedElement(e Element) Element {
+	e.Ionization = e.Ionization[:len(e.Ionization):len(e.Ionization)]
+	return e
+}
+
 func copyElement(e Element) Element {
 	e.Ionization = slices.Clone(e.Ionization)
 	return e
@@ -153,20 +161,34 @@ func copyIon(ion Ion) Ion {
 	return ion
 }
 
+// sharedIon returns ion with its slices capped at their length, so that an
+// append by the caller allocates instead of writing into the DB. The
+// elements are shared: treat them as read-only (see Ion).
+func sharedIon(ion Ion) Ion {
+	ion.Radii = ion.Radii[:len(ion.Radii):len(ion.Radii)]
+	ion.Hydrations = ion.Hydrations[:len(ion.Hydrations):len(ion.Hydrations)]
+	return ion
+}
+
 func copyCompound(c Compound) Compound {
 	c.Params = maps.Clone(c.Params)
 	return c
 }
 
 // Element returns the element with symbol sym (exact case; "na" or
-// "sodium" finds Na too when unambiguous).
+// "sodium" finds Na too). Its Ionization slice is shared with the DB
+// (capped, so appending copies): do not write to its elements. Elements
+// returns deep copies.
 func (db *DB) Element(sym string) (Element, error) {
+	if i, ok := db.elementIdx[sym]; ok {
+		return sharedElement(db.elements[i]), nil
+	}
 	s := strings.TrimSpace(sym)
 	if i, ok := db.elementIdx[s]; ok {
-		return copyElement(db.elements[i]), nil
+		return sharedElement(db.elements[i]), nil
 	}
 	if i, ok := db.elementFoldIdx[strings.ToLower(s)]; ok {
-		return copyElement(db.elements[i]), nil
+		return sharedElement(db.elements[i]), nil
 	}
 	return Element{}, &NotFoundError{Kind: "element", Query: sym, Suggestions: db.suggestElements(s)}
 }
@@ -227,17 +249,24 @@ func (db *DB) BornExponent(config string) (Value, error) {
 // "SO4 2-", "SO42-", "NH4+", "Fe+3", "Cl^-". Digits before the sign are
 // read as the charge or as part of the formula, whichever names a tabulated
 // ion (the charge first).
+//
+// The Radii and Hydrations slices of the result are shared with the DB
+// (capped, so appending copies): do not write to their elements. Ions
+// returns deep copies.
 func (db *DB) Ion(symbol string) (Ion, error) {
+	if i, ok := db.ionIdx[symbol]; ok {
+		return sharedIon(db.ions[i]), nil
+	}
 	s := strings.TrimSpace(symbol)
 	if i, ok := db.ionIdx[s]; ok {
-		return copyIon(db.ions[i]), nil
+		return sharedIon(db.ions[i]), nil
 	}
 	if i, ok := db.ionFoldIdx[foldIon(s)]; ok {
-		return copyIon(db.ions[i]), nil
+		return sharedIon(db.ions[i]), nil
 	}
 	for _, cand := range ionReadings(s) {
 		if i, ok := db.ionKeyIdx[cand]; ok {
-			return copyIon(db.ions[i]), nil
+			return sharedIon(db.ions[i]), nil
 		}
 	}
 	return Ion{}, &NotFoundError{Kind: "ion", Query: symbol, Suggestions: db.suggestIons(s)}
@@ -246,7 +275,7 @@ func (db *DB) Ion(symbol string) (Ion, error) {
 // IonByCharge returns the ion with the given core ("Fe", "SO4") and charge.
 func (db *DB) IonByCharge(core string, charge int) (Ion, error) {
 	if i, ok := db.ionKeyIdx[ionKey{strings.TrimSpace(core), charge}]; ok {
-		return copyIon(db.ions[i]), nil
+		return sharedIon(db.ions[i]), nil
 	}
 	q := canonicalIonSymbol(core, charge, false)
 	var sugg []string
@@ -281,7 +310,15 @@ func (db *DB) Ions() []Ion {
 //   - Spin: the row with that spin; a spin-less row matches any asked spin;
 //     with spin "" and both spins tabulated, high spin is used (and said so).
 func (db *DB) Radius(core string, charge int, cn string, spin string) (ShannonRadius, error) {
-	list := db.radii[ionKey{strings.TrimSpace(core), charge}]
+	list := db.radii[ionKey{core, charge}]
+	// Fast path: the row exactly as asked.
+	for _, r := range list {
+		if r.CN == cn && r.Spin == spin {
+			return r, nil
+		}
+	}
+	core = strings.TrimSpace(core)
+	list = db.radii[ionKey{core, charge}]
 	sym := canonicalIonSymbol(core, charge, false)
 	if len(list) == 0 {
 		return ShannonRadius{}, &NotFoundError{Kind: "radius", Query: sym, Detail: "no Shannon radii tabulated for this ion", Suggestions: db.ionsWithRadii(core)}

@@ -26,16 +26,27 @@ type Group struct {
 	Count int
 	// Bracketed is true for a part written in (), [] or {}.
 	Bracketed bool
-	atoms     map[string]int // per one unit of the group
+	// atoms holds one unit of a bracketed group; nil for a single element
+	// (Text).
+	atoms map[string]int
 }
 
 // Composition returns the atoms of one unit of the group.
-func (g Group) Composition() map[string]int { return maps.Clone(g.atoms) }
+func (g Group) Composition() map[string]int {
+	if g.atoms == nil {
+		return map[string]int{g.Text: 1}
+	}
+	return maps.Clone(g.atoms)
+}
 
 // Composition returns the number of atoms of each element.
 func (f Formula) Composition() map[string]int {
-	out := map[string]int{}
+	out := make(map[string]int, len(f.Groups))
 	for _, g := range f.Groups {
+		if g.atoms == nil {
+			out[g.Text] += g.Count
+			continue
+		}
 		for el, n := range g.atoms {
 			out[el] += n * g.Count
 		}
@@ -250,7 +261,7 @@ func (p *formulaParser) parse() (Formula, error) {
 			if err != nil {
 				return f, err
 			}
-			f.Groups = append(f.Groups, Group{Text: sym, Count: n, atoms: map[string]int{sym: 1}})
+			f.Groups = append(f.Groups, Group{Text: sym, Count: n})
 			lastCountDigits = written
 		case c == '(' || c == '[' || c == '{':
 			text, atoms, err := p.bracket(1)
@@ -301,7 +312,7 @@ func (p *formulaParser) parse() (Formula, error) {
 	}
 	total := map[string]int{}
 	for _, g := range f.Groups {
-		for el, n := range g.atoms {
+		for el, n := range g.Composition() {
 			if n > maxAtoms/g.Count {
 				return f, p.fail(0, "too many atoms of "+el)
 			}
@@ -553,10 +564,10 @@ func (p *formulaParser) charge(f *Formula, lastCountDigits bool) (int, error) {
 // → "SO4^2-"), other spaces go, and a sign-first charge is turned around
 // ("Fe+3" → "Fe3+", "Fe^+3" → "Fe^3+").
 func foldIon(s string) string {
-	var b []rune
+	s = strings.TrimSpace(s)
+	b := make([]rune, 0, len(s))
 	sup := false
-	in := []rune(strings.TrimSpace(s))
-	for i, r := range in {
+	for i, r := range s {
 		r = normalizeRune(r)
 		switch {
 		case isSuperscript(r):
@@ -566,8 +577,8 @@ func foldIon(s string) string {
 			}
 			b = append(b, superscriptToASCII(r))
 		case r == ' ' || r == '\t':
-			rest := strings.TrimSpace(string(in[i:]))
-			if rest != "" && strings.Trim(rest, "0123456789+-−") == "" && !strings.ContainsRune(string(b), '^') {
+			rest := strings.TrimSpace(s[i:])
+			if rest != "" && strings.Trim(rest, "0123456789+-−") == "" && !slices.Contains(b, '^') {
 				b = append(b, '^')
 			}
 		default:
@@ -581,8 +592,8 @@ func foldIon(s string) string {
 	}
 	if i < len(b) && i > 0 && (b[i-1] == '+' || b[i-1] == '-') {
 		sign := b[i-1]
-		digits := slices.Clone(b[i:])
-		b = append(append(b[:i-1], digits...), sign)
+		copy(b[i-1:], b[i:])
+		b[len(b)-1] = sign
 	}
 	return string(b)
 }

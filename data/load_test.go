@@ -502,16 +502,24 @@ func TestRadiusMatching(t *testing.T) {
 	}
 }
 
-// Returned records are copies: changing them does not change the DB.
+// Returned records do not let a caller change the DB: Element and Ions
+// return copies; Ion shares capped slices, so appending copies.
 func TestLookupsReturnCopies(t *testing.T) {
 	db := mustLoad(t)
-	e, _ := db.Element("Na")
-	e.Ionization[0].V = 0
+	els := db.Elements()
+	els[10].Ionization[0].V = 0 // Na
+	ions := db.Ions()
+	ions[1].Radii[0].Ionic.V = 0
 	ion, _ := db.Ion("Na+")
-	ion.Radii[0].Ionic.V = 0
+	n := len(ion.Radii)
+	_ = append(ion.Radii, ShannonRadius{CN: "XIV"})
 	e2, _ := db.Element("Na")
 	ion2, _ := db.Ion("Na+")
-	if e2.Ionization[0].V == 0 || ion2.Radii[0].Ionic.V == 0 {
+	all := db.Ions()
+	if e2.Ionization[0].V == 0 || all[1].Radii[0].Ionic.V == 0 || db.Elements()[10].Symbol != "Na" {
 		t.Fatal("a lookup result shares memory with the DB")
+	}
+	if len(ion2.Radii) != n || cap(ion2.Radii) != n {
+		t.Fatal("appending to a returned slice reached the DB")
 	}
 }

@@ -126,7 +126,7 @@ func overlayRecord(name, table, file string, index int, entry map[string]any, li
 	if l := lines[table]; index < len(l) {
 		keyLine = l[index]
 	}
-	rec := record{file: name, line: keyLine[""], fields: map[string]string{}, lines: map[string]int{}}
+	rec := record{file: name, line: keyLine[""], lines: map[string]int{}}
 	known := tableColumns[file]
 	for _, k := range slices.Sorted(mapKeys(entry)) {
 		v := entry[k]
@@ -138,13 +138,13 @@ func overlayRecord(name, table, file string, index int, entry map[string]any, li
 		}
 		switch x := v.(type) {
 		case string:
-			rec.fields[k] = x
+			rec.set(k, x)
 		case int64:
-			rec.fields[k] = strconv.FormatInt(x, 10)
+			rec.set(k, strconv.FormatInt(x, 10))
 		case float64:
-			rec.fields[k] = strconv.FormatFloat(x, 'g', -1, 64)
+			rec.set(k, strconv.FormatFloat(x, 'g', -1, 64))
 		case bool:
-			rec.fields[k] = map[bool]string{true: "yes", false: "no"}[x]
+			rec.set(k, map[bool]string{true: "yes", false: "no"}[x])
 		default:
 			return rec, &TableError{File: name, Line: rec.lineOf(k), Field: k, Err: fmt.Errorf("expected a number, string or true/false, got %T", v)}
 		}

@@ -13,19 +13,47 @@ import (
 // record is one row of a table or one [[table]] entry of an overlay, with
 // the position of each field for error messages.
 type record struct {
-	file   string
-	line   int
-	fields map[string]string
+	file string
+	line int
+	// cols maps a field name to its index in cells; CSV rows of one table
+	// share it.
+	cols  map[string]int
+	cells []string
 	// lines holds per-field lines where they differ from line (overlay keys).
 	lines map[string]int
 }
 
-func (r record) has(field string) bool {
-	v, ok := r.fields[field]
-	return ok && strings.TrimSpace(v) != ""
+// get returns the raw cell of field and whether the row has that column.
+func (r record) get(field string) (string, bool) {
+	i, ok := r.cols[field]
+	if !ok || i >= len(r.cells) {
+		return "", ok
+	}
+	return r.cells[i], true
 }
 
-func (r record) str(field string) string { return strings.TrimSpace(r.fields[field]) }
+// set stores a field (overlay records build their columns one by one).
+func (r *record) set(field, value string) {
+	if r.cols == nil {
+		r.cols = map[string]int{}
+	}
+	if i, ok := r.cols[field]; ok {
+		r.cells[i] = value
+		return
+	}
+	r.cols[field] = len(r.cells)
+	r.cells = append(r.cells, value)
+}
+
+func (r record) has(field string) bool {
+	v, _ := r.get(field)
+	return strings.TrimSpace(v) != ""
+}
+
+func (r record) str(field string) string {
+	v, _ := r.get(field)
+	return strings.TrimSpace(v)
+}
 
 func (r record) lineOf(field string) int {
 	if l, ok := r.lines[field]; ok {
@@ -110,7 +138,7 @@ func (r record) flag(field string) (bool, error) {
 // memory cell is "yes" (all values of the row) or a ";"-separated list of
 // value names.
 func (r record) memoryOf(name string) (bool, error) {
-	s := strings.TrimSpace(r.fields["memory"])
+	s := r.str("memory")
 	switch strings.ToLower(s) {
 	case "", "no", "false":
 		return false, nil
@@ -138,8 +166,10 @@ func readCSV(file string, rd io.Reader, known []string) ([]record, error) {
 		}
 		return nil, csvError(file, err)
 	}
+	cols := make(map[string]int, len(header))
 	for i, h := range header {
 		header[i] = strings.TrimSpace(strings.TrimPrefix(h, "\ufeff"))
+		cols[header[i]] = i
 		if known != nil && !contains(known, header[i]) {
 			return nil, &TableError{File: file, Line: 1, Field: header[i], Err: fmt.Errorf("unknown column (known: %s)", strings.Join(known, ", "))}
 		}
@@ -160,11 +190,7 @@ func readCSV(file string, rd io.Reader, known []string) ([]record, error) {
 		if len(row) == 1 && strings.TrimSpace(row[0]) == "" {
 			continue
 		}
-		rec := record{file: file, line: line, fields: make(map[string]string, len(header))}
-		for i, cell := range row {
-			rec.fields[header[i]] = cell
-		}
-		out = append(out, rec)
+		out = append(out, record{file: file, line: line, cols: cols, cells: row})
 	}
 	return out, nil
 }
