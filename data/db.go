@@ -34,8 +34,8 @@ type DB struct {
 	radii map[ionKey][]ShannonRadius
 
 	compounds       []Compound
-	compoundIdx     map[string]int // formula as written
-	compoundFoldIdx map[string]int // lower-case formula
+	compoundIdx     map[string]int    // formula as written
+	compoundFoldIdx map[string]int    // lower-case formula
 	compositionIdx  map[string]int    // normalized composition (first compound)
 	compKeys        map[string]string // formula → composition key
 
