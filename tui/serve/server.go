@@ -186,15 +186,21 @@ func (s *Server) onConnect(_ ssh.Context, conn net.Conn) net.Conn {
 	return &countedConn{Conn: conn, done: func() { s.conns.Add(-1) }}
 }
 
-// onAuthAttempt logs refused authentication attempts other than the
-// initial "none" probe every client makes. It never logs key material or
-// passwords; a refused key is logged with its fingerprint by checkKey.
+// onAuthAttempt logs every authentication outcome except the initial
+// "none" probe every client makes and refused keys (checkKey logs those,
+// with their fingerprints). It never logs key material or passwords. A
+// success here is final (a key query without a signature is not reported
+// by x/crypto); the key's fingerprint is logged with every line of the
+// session, from the verified key the connection carries.
 func (s *Server) onAuthAttempt(conn gossh.ConnMetadata, method string, err error) {
-	if err == nil || method == "none" || method == "publickey" {
-		return
+	switch {
+	case method == "none":
+	case err == nil:
+		s.log.Info("authenticated", "method", method, "user", conn.User(), "remote", conn.RemoteAddr().String())
+	case method != "publickey":
+		s.log.Info("authentication refused", "method", method, "user", conn.User(),
+			"remote", conn.RemoteAddr().String(), "reason", "only public keys are accepted")
 	}
-	s.log.Info("authentication refused", "method", method, "user", conn.User(),
-		"remote", conn.RemoteAddr().String(), "reason", "only public keys are accepted")
 }
 
 // checkKey decides a public key.

@@ -103,6 +103,20 @@ func TestPTYSessionShowsScreenAndReactsToKeys(t *testing.T) {
 	if code, err := tm.exit(10 * time.Second); err != nil || code != ExitOK {
 		t.Fatalf("exit = %d, %v; want %d", code, err, ExitOK)
 	}
+	// The log tells the story: connection, login, start, end with its
+	// duration, each session line with the key's fingerprint.
+	fp := gossh.FingerprintSHA256(ts.key.PublicKey())
+	deadline := time.Now().Add(5 * time.Second)
+	for !strings.Contains(ts.logs.String(), `"msg":"session end"`) && time.Now().Before(deadline) {
+		time.Sleep(10 * time.Millisecond)
+	}
+	logs := ts.logs.String()
+	for _, want := range []string{`"msg":"connection"`, `"msg":"authenticated","method":"publickey","user":"ada"`,
+		`"msg":"session start"`, `"msg":"session end"`, `"duration":`, `"fingerprint":"` + fp + `"`} {
+		if !strings.Contains(logs, want) {
+			t.Errorf("log lacks %s; logs:\n%s", want, logs)
+		}
+	}
 }
 
 // TestRendererFollowsEachClient: two clients at once, each gets its own

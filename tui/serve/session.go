@@ -45,9 +45,6 @@ func clampWindow(w, h int) (int, int) {
 	return max(0, min(w, maxWindowWidth)), max(0, min(h, maxWindowHeight))
 }
 
-// authLoggedKey marks a connection whose authentication has been logged.
-type authLoggedKey struct{}
-
 // liveSession is a running session, as Shutdown sees it.
 type liveSession struct {
 	prog     *tea.Program
@@ -100,10 +97,6 @@ func (s *Server) handle(sess ssh.Session) {
 		fingerprint = gossh.FingerprintSHA256(key)
 	}
 	log := s.log.With("session", id, "user", sess.User(), "remote", sess.RemoteAddr().String(), "fingerprint", fingerprint)
-	if sess.Context().Value(authLoggedKey{}) == nil {
-		sess.Context().SetValue(authLoggedKey{}, true)
-		log.Info("authenticated", "method", "publickey")
-	}
 	// Shutdown waits for every session counted here, until its exit
 	// status is sent.
 	s.mu.Lock()
