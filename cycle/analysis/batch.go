@@ -1,0 +1,369 @@
+package analysis
+
+import (
+	"bufio"
+	"encoding/csv"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+
+	"enthalpath/cycle"
+	"enthalpath/thermo"
+)
+
+// Batch input columns (a header row names them; order is free; only
+// formula is required). A column "set:KEY" gives step KEY a value
+// ("744±20", kJ/mol per reaction as written), as --set does.
+const (
+	ColFormula      = "formula"
+	ColCharges      = "charges"
+	ColModel        = "model"
+	ColStructure    = "structure"
+	ColCationRadius = "cation_radius"
+	ColAnionRadius  = "anion_radius"
+	colSetPrefix    = "set:"
+)
+
+// BatchColumns lists the recognized input columns (besides set:KEY).
+func BatchColumns() []string {
+	return []string{ColFormula, ColCharges, ColModel, ColStructure, ColCationRadius, ColAnionRadius}
+}
+
+// MaxBatchLine is the longest input line (bytes) a batch accepts, so that
+// memory stays bounded whatever the file holds.
+const MaxBatchLine = 64 << 10
+
+// BatchRow is one input row: the formula and its estimate options.
+type BatchRow struct {
+	// Line is the 1-based line of the row in the input.
+	Line    int
+	Formula string
+	Options EstimateOptions
+}
+
+// BatchReader reads batch rows from CSV one at a time (streaming: memory
+// does not grow with the file).
+type BatchReader struct {
+	r      *csv.Reader
+	header []string
+	col    map[string]int
+	sets   []int // columns set:KEY
+}
+
+// NewBatchReader reads the header row from r. Lines starting with '#' are
+// comments. Errors are *CSVError with the line and column.
+func NewBatchReader(r io.Reader) (*BatchReader, error) {
+	cr := csv.NewReader(&lineLimiter{r: bufio.NewReader(r)})
+	cr.Comment = '#'
+	cr.FieldsPerRecord = -1
+	cr.TrimLeadingSpace = true
+	cr.ReuseRecord = true
+	head, err := cr.Read()
+	if err == io.EOF {
+		return nil, &CSVError{Line: 1, Reason: "empty file: the first line must name the columns, e.g. formula,charges,model"}
+	}
+	if err != nil {
+		return nil, csvErr(err, nil)
+	}
+	br := &BatchReader{r: cr, col: map[string]int{}}
+	for i, h := range head {
+		h = strings.ToLower(strings.TrimSpace(strings.TrimPrefix(h, "\ufeff")))
+		br.header = append(br.header, h)
+		if _, dup := br.col[h]; dup {
+			return nil, &CSVError{Line: 1, Column: h, Reason: "column named twice"}
+		}
+		br.col[h] = i
+		switch {
+		case strings.HasPrefix(h, colSetPrefix):
+			if strings.TrimSpace(h[len(colSetPrefix):]) == "" {
+				return nil, &CSVError{Line: 1, Column: h, Reason: "set: needs a step key, e.g. set:attachment-2"}
+			}
+			br.sets = append(br.sets, i)
+		case isBatchColumn(h):
+		default:
+			return nil, &CSVError{Line: 1, Column: h, Reason: "unknown column; use " + strings.Join(BatchColumns(), ", ") + " or set:KEY"}
+		}
+	}
+	if _, ok := br.col[ColFormula]; !ok {
+		return nil, &CSVError{Line: 1, Column: ColFormula, Reason: "no formula column in the header"}
+	}
+	return br, nil
+}
+
+func isBatchColumn(h string) bool {
+	for _, c := range BatchColumns() {
+		if c == h {
+			return true
+		}
+	}
+	return false
+}
+
+// Next returns the next row, or io.EOF after the last. A malformed row is a
+// *CSVError naming its line and column; the reader can go on after it.
+func (br *BatchReader) Next() (BatchRow, error) {
+	rec, err := br.r.Read()
+	if err == io.EOF {
+		return BatchRow{}, io.EOF
+	}
+	if err != nil {
+		return BatchRow{}, csvErr(err, br.header)
+	}
+	line, _ := br.r.FieldPos(0)
+	row := BatchRow{Line: line}
+	if len(rec) != len(br.header) {
+		return row, &CSVError{Line: line, Reason: fmt.Sprintf("%d columns where the header has %d", len(rec), len(br.header))}
+	}
+	cell := func(name string) string {
+		if i, ok := br.col[name]; ok {
+			return strings.TrimSpace(rec[i])
+		}
+		return ""
+	}
+	bad := func(name, reason string, err error) (BatchRow, error) {
+		return row, &CSVError{Line: line, Column: name, Reason: reason, Err: err}
+	}
+	row.Formula = cell(ColFormula)
+	if row.Formula == "" {
+		return bad(ColFormula, "empty formula", nil)
+	}
+	if s := cell(ColCharges); s != "" {
+		ch, err := ParseCharges(strings.ReplaceAll(s, ";", ","), row.Formula)
+		if err != nil {
+			return bad(ColCharges, "cannot read the charges", err)
+		}
+		row.Options.Charges = ch
+	}
+	if s := cell(ColModel); s != "" {
+		m, err := cycle.ParseModel(s)
+		if err != nil {
+			return bad(ColModel, "unknown model", err)
+		}
+		row.Options.Model = m
+	}
+	row.Options.Structure = cell(ColStructure)
+	for _, rc := range []struct {
+		name string
+		dst  *float64
+	}{{ColCationRadius, &row.Options.CationRadius}, {ColAnionRadius, &row.Options.AnionRadius}} {
+		s := cell(rc.name)
+		if s == "" {
+			continue
+		}
+		v, err := strconv.ParseFloat(s, 64)
+		if err != nil || !(v > 0) || math.IsInf(v, 0) {
+			return bad(rc.name, fmt.Sprintf("%q is not a positive radius in Å", s), nil)
+		}
+		*rc.dst = v
+	}
+	for _, i := range br.sets {
+		s := strings.TrimSpace(rec[i])
+		if s == "" {
+			continue
+		}
+		key := strings.TrimSpace(br.header[i][len(colSetPrefix):])
+		st, err := cycle.ParseSetting(key+"="+s, thermo.KJPerMol)
+		if err != nil {
+			return bad(br.header[i], "cannot read the value", err)
+		}
+		row.Options.Sets = append(row.Options.Sets, st)
+	}
+	return row, nil
+}
+
+func csvErr(err error, header []string) error {
+	var pe *csv.ParseError
+	if errors.As(err, &pe) {
+		return &CSVError{Line: pe.Line, Reason: fmt.Sprintf("malformed CSV at byte %d of the line", pe.Column), Err: pe.Err}
+	}
+	var le *lineTooLong
+	if errors.As(err, &le) {
+		return &CSVError{Line: le.line, Reason: fmt.Sprintf("line longer than %d bytes", MaxBatchLine)}
+	}
+	return &CSVError{Reason: "cannot read the input", Err: err}
+}
+
+// lineLimiter passes bytes through but fails on a line longer than
+// MaxBatchLine, so that a file without newlines cannot fill memory.
+type lineLimiter struct {
+	r    *bufio.Reader
+	run  int
+	line int
+}
+
+type lineTooLong struct{ line int }
+
+func (e *lineTooLong) Error() string { return fmt.Sprintf("line %d too long", e.line) }
+
+func (l *lineLimiter) Read(p []byte) (int, error) {
+	n, err := l.r.Read(p)
+	for i := 0; i < n; i++ {
+		if p[i] == '\n' {
+			l.run = 0
+			l.line++
+			continue
+		}
+		l.run++
+		if l.run > MaxBatchLine {
+			return i, &lineTooLong{line: l.line + 1}
+		}
+	}
+	return n, err
+}
+
+// BatchResult is one output row.
+type BatchResult struct {
+	Line    int    `json:"line"`
+	Formula string `json:"formula"`
+	Cation  string `json:"cation,omitempty"`
+	Anion   string `json:"anion,omitempty"`
+	Model   string `json:"model,omitempty"`
+	// LatticeKJPerMol is the model's lattice step (ΔH_L, negative) and
+	// ModelUncertaintyKJPerMol its σ.
+	LatticeKJPerMol          *float64 `json:"lattice_kj_per_mol,omitempty"`
+	ModelUncertaintyKJPerMol *float64 `json:"model_uncertainty_kj_per_mol,omitempty"`
+	// FormationKJPerMol is the estimated formation enthalpy and
+	// UncertaintyKJPerMol its total σ.
+	FormationKJPerMol   *float64 `json:"formation_kj_per_mol,omitempty"`
+	UncertaintyKJPerMol *float64 `json:"uncertainty_kj_per_mol,omitempty"`
+	// MeasuredFormationKJPerMol is the data's value when tabulated, and
+	// CycleLatticeKJPerMol the lattice step Hess's law gives from it.
+	MeasuredFormationKJPerMol *float64 `json:"measured_formation_kj_per_mol,omitempty"`
+	CycleLatticeKJPerMol      *float64 `json:"cycle_lattice_kj_per_mol,omitempty"`
+	Error                     string   `json:"error,omitempty"`
+}
+
+// batchCSVHeader is the output CSV header, in BatchResult order.
+var batchCSVHeader = []string{"line", "formula", "cation", "anion", "model", "lattice_kj_per_mol", "model_uncertainty_kj_per_mol",
+	"formation_kj_per_mol", "uncertainty_kj_per_mol", "measured_formation_kj_per_mol", "cycle_lattice_kj_per_mol", "error"}
+
+// BatchOptions choose the output.
+type BatchOptions struct {
+	// JSON writes a JSON array (one object per row) instead of CSV.
+	JSON bool
+	// Progress, when set, is called after each row with the rows done.
+	Progress func(rows int)
+}
+
+// BatchSummary counts the rows.
+type BatchSummary struct {
+	Rows, Failed int
+}
+
+// Row estimates one batch row.
+func (a *Analyst) Row(row BatchRow) BatchResult {
+	out := BatchResult{Line: row.Line, Formula: row.Formula}
+	est, err := a.quickEstimate(row.Formula, row.Options)
+	if err != nil {
+		out.Error = oneLine(err.Error())
+		return out
+	}
+	out.Formula = est.Formula
+	out.Cation, out.Anion, out.Model = est.Cation.Symbol, est.Anion.Symbol, est.Model
+	out.LatticeKJPerMol = num(est.Lattice)
+	out.ModelUncertaintyKJPerMol = num(est.ModelUncertainty)
+	out.FormationKJPerMol = num(est.Value)
+	out.UncertaintyKJPerMol = num(est.Uncertainty)
+	if est.Measured != nil && est.Solved.Key == "formation" {
+		out.MeasuredFormationKJPerMol = num(est.Measured.Value)
+		// Cycle lattice = model lattice + (measured − estimated formation).
+		out.CycleLatticeKJPerMol = num(est.Lattice + est.Measured.Value - est.Value)
+	}
+	return out
+}
+
+func num(v float64) *float64 {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return nil
+	}
+	r := math.Round(v*1000) / 1000
+	return &r
+}
+
+func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
+
+// Batch reads rows from r and writes one result per row to w as it goes
+// (CSV, or a JSON array). A row that cannot be estimated gets its error in
+// the error column and the batch goes on; a malformed input row stops the
+// batch with a *CSVError naming its line and column.
+func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummary, error) {
+	var sum BatchSummary
+	br, err := NewBatchReader(r)
+	if err != nil {
+		return sum, err
+	}
+	bw := bufio.NewWriterSize(w, 64<<10)
+	var cw *csv.Writer
+	if opt.JSON {
+		bw.WriteString("[")
+	} else {
+		cw = csv.NewWriter(bw)
+		cw.Write(batchCSVHeader)
+	}
+	rec := make([]string, len(batchCSVHeader))
+	finish := func() error {
+		if opt.JSON {
+			if sum.Rows > 0 {
+				bw.WriteString("\n")
+			}
+			bw.WriteString("]\n")
+		} else {
+			cw.Flush()
+			if err := cw.Error(); err != nil {
+				return err
+			}
+		}
+		return bw.Flush()
+	}
+	for {
+		row, err := br.Next()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			finish()
+			return sum, err
+		}
+		res := a.Row(row)
+		sum.Rows++
+		if res.Error != "" {
+			sum.Failed++
+		}
+		if opt.JSON {
+			b, err := json.Marshal(res)
+			if err != nil {
+				return sum, err
+			}
+			if sum.Rows > 1 {
+				bw.WriteString(",")
+			}
+			bw.WriteString("\n  ")
+			bw.Write(b)
+		} else {
+			res.fill(rec)
+			if err := cw.Write(rec); err != nil {
+				return sum, err
+			}
+		}
+		if opt.Progress != nil {
+			opt.Progress(sum.Rows)
+		}
+	}
+	return sum, finish()
+}
+
+func (res *BatchResult) fill(rec []string) {
+	f := func(p *float64) string {
+		if p == nil {
+			return ""
+		}
+		return strconv.FormatFloat(*p, 'f', -1, 64)
+	}
+	rec[0], rec[1], rec[2], rec[3], rec[4] = strconv.Itoa(res.Line), res.Formula, res.Cation, res.Anion, res.Model
+	rec[5], rec[6], rec[7], rec[8] = f(res.LatticeKJPerMol), f(res.ModelUncertaintyKJPerMol), f(res.FormationKJPerMol), f(res.UncertaintyKJPerMol)
+	rec[9], rec[10], rec[11] = f(res.MeasuredFormationKJPerMol), f(res.CycleLatticeKJPerMol), res.Error
+}

@@ -1,0 +1,166 @@
+package analysis
+
+import (
+	"bytes"
+	"encoding/csv"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+	"testing"
+)
+
+func TestBatchCSV(t *testing.T) {
+	a := testAnalyst(t)
+	in := "# invented screening list (demo data, not a study)\n" +
+		"formula,charges,model,cation_radius,set:attachment-2\n" +
+		"MgCl,,,,\n" +
+		"NaCl,,born-mayer,,\n" +
+		"CaCl,\"Ca=+1,Cl=-1\",,1.3,\n" +
+		"Qq2,,,,\n" +
+		"MgO,,,,744±20\n"
+	var out bytes.Buffer
+	sum, err := a.Batch(strings.NewReader(in), &out, BatchOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if sum.Rows != 5 || sum.Failed != 1 {
+		t.Errorf("summary %+v, want 5 rows with 1 failure (Qq2)", sum)
+	}
+	recs, err := csv.NewReader(&out).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(recs) != 6 || strings.Join(recs[0], ",") != strings.Join(batchCSVHeader, ",") {
+		t.Fatalf("output:\n%v", recs)
+	}
+	byFormula := map[string][]string{}
+	for _, r := range recs[1:] {
+		byFormula[r[1]] = r
+	}
+	if r := byFormula["Qq2"]; r == nil || r[11] == "" {
+		t.Errorf("Qq2 row has no error: %v", r)
+	}
+	if r := byFormula["NaCl"]; r == nil || r[4] != "born-mayer" || r[9] != "-411.153" { // NaCl ΔfH° −411.153 kJ/mol, NBS 1982 via compounds.csv
+		t.Errorf("NaCl row: %v", r)
+	}
+	if r := byFormula["CaCl"]; r == nil || r[2] != "Ca+" || r[11] != "" {
+		t.Errorf("CaCl row: %v", r)
+	}
+	if r := byFormula["MgO"]; r == nil || r[7] == "" {
+		t.Errorf("MgO row: %v", r)
+	}
+	// The batch agrees with a single estimate of the same formula.
+	e, err := a.Estimate("MgCl", EstimateOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := byFormula["MgCl"][7]; got != fmt.Sprint(*num(e.Value)) {
+		t.Errorf("batch MgCl formation %s, Estimate %.3f", got, e.Value)
+	}
+}
+
+func TestBatchJSON(t *testing.T) {
+	a := testAnalyst(t)
+	var out bytes.Buffer
+	if _, err := a.Batch(strings.NewReader("formula\nMgCl\nMgCl2\n"), &out, BatchOptions{JSON: true}); err != nil {
+		t.Fatal(err)
+	}
+	var rows []BatchResult
+	if err := json.Unmarshal(out.Bytes(), &rows); err != nil {
+		t.Fatalf("%v\n%s", err, out.String())
+	}
+	if len(rows) != 2 || rows[0].FormationKJPerMol == nil || rows[1].MeasuredFormationKJPerMol == nil {
+		t.Errorf("rows: %s", out.String())
+	}
+	out.Reset()
+	if _, err := a.Batch(strings.NewReader("formula\n"), &out, BatchOptions{JSON: true}); err != nil || strings.TrimSpace(out.String()) != "[]" {
+		t.Errorf("empty batch: %q %v", out.String(), err)
+	}
+}
+
+func TestBatchInputErrors(t *testing.T) {
+	a := testAnalyst(t)
+	cases := []struct {
+		name, in string
+		line     int
+		column   string
+	}{
+		{"empty", "", 1, ""},
+		{"no formula column", "model\nkapustinskii\n", 1, "formula"},
+		{"unknown column", "formula,colour\nNaCl,red\n", 1, "colour"},
+		{"bad radius", "formula,anion_radius\nNaCl,1.8\nKCl,big\n", 3, "anion_radius"},
+		{"bad charges", "formula,charges\nMgCl,Mg=+x\n", 2, "charges"},
+		{"bad set", "formula,set:lattice\nNaCl,-780±\n", 2, "set:lattice"},
+		{"unknown model", "formula,model\nNaCl,guess\n", 2, "model"},
+		{"field count", "formula,model\nNaCl\n", 2, ""},
+		{"bare quote", "formula\n\"NaCl\n", 0, ""},
+	}
+	for _, tc := range cases {
+		_, err := a.Batch(strings.NewReader(tc.in), io.Discard, BatchOptions{})
+		var ce *CSVError
+		if !errors.As(err, &ce) || !errors.Is(err, ErrBadCSV) {
+			t.Errorf("%s: got %v, want a *CSVError", tc.name, err)
+			continue
+		}
+		if (tc.line != 0 && ce.Line != tc.line) || ce.Column != tc.column {
+			t.Errorf("%s: error at line %d column %q (%v), want line %d column %q", tc.name, ce.Line, ce.Column, err, tc.line, tc.column)
+		}
+	}
+}
+
+func TestBatchLongLine(t *testing.T) {
+	a := testAnalyst(t)
+	in := "formula\n" + strings.Repeat("N", MaxBatchLine+10) + "\n"
+	_, err := a.Batch(strings.NewReader(in), io.Discard, BatchOptions{})
+	var ce *CSVError
+	if !errors.As(err, &ce) || ce.Line != 2 {
+		t.Errorf("long line: %v", err)
+	}
+}
+
+// FuzzBatchReader: no input makes the reader panic or loop, and every
+// error is a *CSVError with a line.
+func FuzzBatchReader(f *testing.F) {
+	for _, s := range []string{
+		"formula\nNaCl\n",
+		"formula,charges,model,structure,cation_radius,anion_radius,set:attachment-2\nMgCl,\"Mg=+1,Cl=-1\",born-mayer,rock-salt,1.0,1.8,744±20\n",
+		"# c\nformula\n\"Na\"\"Cl\"\n",
+		"formula,set:\nx,1\n",
+		"\ufeffFormula\r\nKCl\r\n",
+		"formula,charges\nMgCl,M=2;X=-1\n",
+	} {
+		f.Add([]byte(s))
+	}
+	f.Fuzz(func(t *testing.T, b []byte) {
+		br, err := NewBatchReader(bytes.NewReader(b))
+		if err != nil {
+			var ce *CSVError
+			if !errors.As(err, &ce) {
+				t.Fatalf("header error %v is not a *CSVError", err)
+			}
+			return
+		}
+		for i := 0; i < 10000; i++ {
+			row, err := br.Next()
+			if err == io.EOF {
+				return
+			}
+			if err != nil {
+				var ce *CSVError
+				if !errors.As(err, &ce) {
+					t.Fatalf("row error %v is not a *CSVError", err)
+				}
+				if _, ok := err.(*CSVError); ok && strings.Contains(err.Error(), "malformed") {
+					return // the csv reader does not resync after a bad quote
+				}
+				continue
+			}
+			if row.Formula == "" {
+				t.Fatalf("row without formula accepted at line %d", row.Line)
+			}
+		}
+		t.Fatal("more than 10000 rows from a fuzz input")
+	})
+}
