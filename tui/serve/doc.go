@@ -22,7 +22,8 @@
 // A session needs a PTY and no command. It runs its own tea.Program with a
 // lipgloss renderer bound to that session (wish's bubbletea.MakeRenderer:
 // the colour profile and dark/light background of the client's terminal,
-// never the server's), follows window-change requests, and works inside
+// never the server's), draws at most 120 frames a second, follows
+// window-change requests, and works inside
 // STATE/users/HEX/ where HEX is the lowercase hexadecimal SHA-256 of the
 // key in SSH wire format (the same digest as the "SHA256:" fingerprint
 // printed by ssh-keygen -l, in hexadecimal so that folder names differ even
@@ -36,9 +37,13 @@
 // and closed. A single read of more than Config.MaxBurst bytes, and whatever
 // follows it within a tenth of a second, is dropped (a runaway paste never
 // reaches the model); Config.MaxInputLen is handed to the model for its
-// text fields. A panic in one session's model, view or command is recovered
+// text fields. A window claimed larger than 1000×500 is laid out at that
+// size. A panic in one session's model, view or command is recovered
 // in that session: its model is asked to write its recovery file, the user
 // is told, and no other session notices.
+//
+// Only interactive sessions are served: commands, subsystems (sftp), port
+// forwarding and other channel types are refused.
 //
 // # Shutdown
 //

@@ -7,6 +7,7 @@ import (
 	"net"
 	"os"
 	"path/filepath"
+	"runtime"
 	"strings"
 	"testing"
 	"time"
@@ -647,5 +648,38 @@ func TestOnlyTheWorkshopIsServed(t *testing.T) {
 		if err := sess.Wait(); err == nil {
 			t.Error("the sftp subsystem ran and exited 0")
 		}
+	}
+}
+
+// TestSessionsLeaveNothingBehind: after sessions end, by quitting or by a
+// dropped connection, their goroutines are gone (common practice for a
+// long-running server, no source).
+func TestSessionsLeaveNothingBehind(t *testing.T) {
+	ts := startServer(t, nil)
+	warm := ts.mustTerm(t, ts.key, termOptions{})
+	warm.mustSee("enthalpath probe screen")
+	warm.typeKeys("\x03")
+	warm.exit(5 * time.Second)
+	warm.client.Close()
+	time.Sleep(100 * time.Millisecond)
+	baseline := runtime.NumGoroutine()
+	for i := 0; i < 10; i++ {
+		tm := ts.mustTerm(t, ts.key, termOptions{})
+		tm.mustSee("enthalpath probe screen")
+		if i%2 == 0 {
+			tm.typeKeys("\x03")
+			if _, err := tm.exit(5 * time.Second); err != nil {
+				t.Fatal(err)
+			}
+		}
+		tm.client.Close()
+	}
+	deadline := time.Now().Add(10 * time.Second)
+	for runtime.NumGoroutine() > baseline+2 && time.Now().Before(deadline) {
+		time.Sleep(20 * time.Millisecond)
+	}
+	if n := runtime.NumGoroutine(); n > baseline+2 {
+		buf := make([]byte, 1<<20)
+		t.Errorf("%d goroutines after 10 sessions ended, %d before:\n%s", n, baseline, buf[:runtime.Stack(buf, true)])
 	}
 }
