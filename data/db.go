@@ -2,6 +2,7 @@ package data
 
 import (
 	"embed"
+	"errors"
 	"fmt"
 	"io/fs"
 	"maps"
@@ -97,9 +98,7 @@ func LoadFS(fsys fs.FS) (*DB, error) {
 	return b.db, nil
 }
 
-func isNotExist(err error) bool {
-	return err != nil && strings.Contains(err.Error(), fs.ErrNotExist.Error())
-}
+func isNotExist(err error) bool { return errors.Is(err, fs.ErrNotExist) }
 
 // Problems lists inconsistencies found while loading the built-in tables
 // that did not stop loading: values without a source, unknown source keys,

@@ -523,3 +523,28 @@ func TestLookupsReturnCopies(t *testing.T) {
 		t.Fatal("appending to a returned slice reached the DB")
 	}
 }
+
+// LoadFS works without the optional tables (compounds.csv, ion_values.csv).
+func TestLoadFSWithoutOptionalTables(t *testing.T) {
+	fsys := fstest.MapFS{}
+	for _, name := range TableFiles() {
+		if name == "compounds.csv" || name == "ion_values.csv" {
+			continue
+		}
+		b, err := embedded.ReadFile("tables/" + name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		fsys[name] = &fstest.MapFile{Data: b}
+	}
+	db, err := LoadFS(fsys)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(db.Compounds()) != 0 {
+		t.Errorf("%d compounds without compounds.csv", len(db.Compounds()))
+	}
+	if _, err := db.Compound("NaCl"); err == nil {
+		t.Error("NaCl found without compounds.csv")
+	}
+}
