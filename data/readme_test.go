@@ -124,3 +124,31 @@ func TestReadmeCounts(t *testing.T) {
 	}
 	t.Errorf("%s: the generated counts are out of date; run: go test ./data/ -run TestReadmeCounts -update", readmeFile)
 }
+
+// The overlay example in README.md loads and does what the text says.
+func TestReadmeOverlayExample(t *testing.T) {
+	raw, err := os.ReadFile(readmeFile)
+	if err != nil {
+		t.Fatal(err)
+	}
+	text := string(raw)
+	i := strings.Index(text, "```toml\n")
+	j := strings.Index(text[i+1:], "\n```")
+	if i < 0 || j < 0 {
+		t.Fatal("README.md has no ```toml block")
+	}
+	example := text[i+len("```toml\n") : i+1+j]
+	db, err := mustLoad(t).WithOverlay(strings.NewReader(example), "README example")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if na, _ := db.Element("Na"); !na.Atomization.Override || na.Atomization.Source != "notebook-7" {
+		t.Errorf("Na after the example: %+v", na.Atomization)
+	}
+	if r, err := db.Radius("Cs", 1, "VII", ""); err != nil || r.Substituted != "" || !r.Ionic.Override {
+		t.Errorf("Cs+ VII after the example: %+v %v", r, err)
+	}
+	if c, err := db.Compound("CsAuCl4"); err != nil || !c.Formation.Override || c.Density.Source != "notebook-7" {
+		t.Errorf("CsAuCl4 after the example: %+v %v", c, err)
+	}
+}
