@@ -18,7 +18,7 @@ func DefaultKeyMap() KeyMap {
 		PrevScreen: key.NewBinding(key.WithKeys("shift+tab"), key.WithHelp("shift+tab", "previous screen")),
 		GoTo:       key.NewBinding(key.WithKeys("1", "2", "3", "4", "5", "6"), key.WithHelp("1…6", "go to screen by number")),
 		Units:      key.NewBinding(key.WithKeys("u"), key.WithHelp("u", "units kJ/mol → kcal/mol → eV")),
-		Help:       key.NewBinding(key.WithKeys("?"), key.WithHelp("?", "all keys")),
+		Help:       key.NewBinding(key.WithKeys("?", "f1"), key.WithHelp("?/f1", "all keys")),
 		Save:       key.NewBinding(key.WithKeys("ctrl+s"), key.WithHelp("ctrl+s", "save the cycle file")),
 		Open:       key.NewBinding(key.WithKeys("ctrl+o"), key.WithHelp("ctrl+o", "open a cycle file")),
 		Quit:       key.NewBinding(key.WithKeys("q"), key.WithHelp("q", "quit")),

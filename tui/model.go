@@ -212,35 +212,36 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		return m.confirmKey(k)
 	}
 	if m.tooSmall() {
-		if key.Matches(k, m.Keys.Quit, m.Keys.ForceQuit) {
+		if key.Matches(k, m.Keys.Quit, m.Keys.ForceQuit, m.Confirm.Back) {
 			return m.quit()
 		}
 		return nil
 	}
 	cur := m.screens[m.active]
-	capturing := cur.Capturing()
+	// While the screen is typing, printable keys are text, not commands.
+	global := func(b key.Binding) bool { return key.Matches(k, b) && !(cur.Capturing() && printable(k)) }
 	switch {
 	case key.Matches(k, m.Keys.ForceQuit):
 		return m.quit()
-	case m.showHelp && key.Matches(k, m.Keys.Help, m.Confirm.Back, m.Keys.Quit):
+	case m.showHelp && (global(m.Keys.Help) || key.Matches(k, m.Confirm.Back) || global(m.Keys.Quit)):
 		m.showHelp = false
 		return nil
-	case key.Matches(k, m.Keys.NextScreen):
+	case global(m.Keys.NextScreen):
 		return m.switchTo((m.active + 1) % screen.ID(len(m.screens)))
-	case key.Matches(k, m.Keys.PrevScreen):
+	case global(m.Keys.PrevScreen):
 		return m.switchTo((m.active + screen.ID(len(m.screens)) - 1) % screen.ID(len(m.screens)))
-	case key.Matches(k, m.Keys.Save):
+	case global(m.Keys.Save):
 		return m.askSave(false)
-	case key.Matches(k, m.Keys.Open):
+	case global(m.Keys.Open):
 		return m.askOpen()
-	case !capturing && key.Matches(k, m.Keys.Help):
+	case global(m.Keys.Help):
 		m.showHelp = !m.showHelp
 		return nil
-	case !capturing && key.Matches(k, m.Keys.Quit):
+	case global(m.Keys.Quit):
 		return m.quit()
-	case !capturing && key.Matches(k, m.Keys.Units):
+	case global(m.Keys.Units):
 		return m.nextUnits()
-	case !capturing && key.Matches(k, m.Keys.GoTo):
+	case global(m.Keys.GoTo):
 		return m.switchTo(screen.ID(k.Runes[0] - '1'))
 	}
 	if m.showHelp {
@@ -405,7 +406,7 @@ func (m *Model) statusLine() string {
 	case m.sess.Path != "":
 		out = st.Muted.Render("file: " + m.sess.Path)
 	default:
-		out = st.Muted.Render("enthalpath workshop — ? lists every key")
+		out = st.Muted.Render("enthalpath workshop — ? or f1 lists every key")
 	}
 	return lipgloss.NewStyle().MaxWidth(m.width).Render(out)
 }
@@ -424,13 +425,46 @@ func (m *Model) ShortHelp() []key.Binding {
 	return append(b, m.Keys.Help, m.Keys.Quit)
 }
 
-// FullHelp is the overlay's content: the screen's keys, then the global keys.
+// FullHelp is the overlay's content: the screen's keys, then the global
+// keys — while the screen is typing, only the global keys that still work
+// (the non-printable ones).
 func (m *Model) FullHelp() [][]key.Binding {
 	k := m.Keys
 	groups := m.screens[m.active].FullHelp()
-	return append(groups,
-		[]key.Binding{k.NextScreen, k.PrevScreen, k.GoTo, k.Units},
-		[]key.Binding{k.Save, k.Open, k.Help, k.Quit, k.ForceQuit})
+	globals := [][]key.Binding{{k.NextScreen, k.PrevScreen, k.GoTo, k.Units}, {k.Save, k.Open, k.Help, k.Quit, k.ForceQuit}}
+	if m.screens[m.active].Capturing() {
+		for i, g := range globals {
+			var kept []key.Binding
+			for _, b := range g {
+				if nb, ok := withoutPrintable(b); ok {
+					kept = append(kept, nb)
+				}
+			}
+			globals[i] = kept
+		}
+	}
+	return append(groups, globals...)
+}
+
+// printable reports whether k is text (a character or space).
+func printable(k tea.KeyMsg) bool { return k.Type == tea.KeyRunes || k.Type == tea.KeySpace }
+
+// withoutPrintable returns b reduced to its non-printable keys, with its
+// help key label rewritten, and false when none is left.
+func withoutPrintable(b key.Binding) (key.Binding, bool) {
+	var keys []string
+	for _, s := range b.Keys() {
+		if len([]rune(s)) > 1 && s != "space" {
+			keys = append(keys, s)
+		}
+	}
+	if len(keys) == 0 {
+		return b, false
+	}
+	if len(keys) == len(b.Keys()) {
+		return b, true
+	}
+	return key.NewBinding(key.WithKeys(keys...), key.WithHelp(strings.Join(keys, "/"), b.Help().Desc)), true
 }
 
 func (m *Model) fullHelpView() string {

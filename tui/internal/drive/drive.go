@@ -172,3 +172,11 @@ func (f *Fixture) LastStatus() string {
 	}
 	return f.Statuses[len(f.Statuses)-1].Text
 }
+
+// RunCmd runs cmd (if any) and feeds its messages to u as Run does.
+func RunCmd(u Updater, cmd tea.Cmd) []tea.Msg {
+	if cmd == nil {
+		return nil
+	}
+	return Run(u, cmd())
+}

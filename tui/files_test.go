@@ -1,0 +1,160 @@
+package tui_test
+
+import (
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	tea "github.com/charmbracelet/bubbletea"
+
+	"enthalpath/cycle"
+	"enthalpath/tui"
+	"enthalpath/tui/internal/drive"
+	"enthalpath/tui/screen"
+)
+
+// openEdited opens NaCl and types 500 ± 1 kJ/mol for the first ionization.
+func openEdited(t *testing.T, u drive.Updater) {
+	t.Helper()
+	drive.Run(u, screen.OpenMsg{Formula: "NaCl"})
+	keys(u, "g", "j", "e")
+	drive.Run(u, drive.Text("500±1")...)
+	keys(u, "enter")
+}
+
+func TestQuitAsksBeforeLosingChanges(t *testing.T) {
+	db := loadDB(t)
+	m, u, dir := newRoot(t, db, 80, 24)
+	openEdited(t, u)
+	if !m.Session().Dirty {
+		t.Fatal("editing did not mark the session unsaved")
+	}
+	if msgs := drive.Run(u, drive.Key("q")); drive.Quit(msgs) {
+		t.Fatal("q quit with unsaved changes")
+	}
+	if v := m.View(); !strings.Contains(v, "unsaved changes") || !strings.Contains(v, "keep a recovery file") {
+		t.Fatalf("no question about unsaved changes:\n%s", v)
+	}
+	keys(u, "esc")
+	if strings.Contains(m.View(), "unsaved changes.") {
+		t.Fatal("esc did not go back to work")
+	}
+	keys(u, "q")
+	msgs := drive.Run(u, drive.Key("k"))
+	if !drive.Quit(msgs) {
+		t.Fatal("k did not quit")
+	}
+	c, err := cycle.Open(db, filepath.Join(dir, "recovery.hesscycle"))
+	if err != nil {
+		t.Fatalf("recovery file: %v", err)
+	}
+	s, _ := c.Step("ionization-1")
+	if math.Abs(s.Value-500) > 1e-9 || s.Source.Kind != cycle.SourceUser {
+		t.Errorf("recovered ionization-1 = %+v, want the typed 500", *s)
+	}
+	if m.RecoveredTo() == "" {
+		t.Error("RecoveredTo is empty after keeping a recovery file")
+	}
+}
+
+func TestQuitWithoutChangesQuitsAtOnce(t *testing.T) {
+	db := loadDB(t)
+	_, u, dir := newRoot(t, db, 80, 24)
+	drive.Run(u, screen.OpenMsg{Formula: "KCl"})
+	if !drive.Quit(drive.Run(u, drive.Key("q"))) {
+		t.Fatal("q did not quit a clean session")
+	}
+	if _, err := os.Stat(filepath.Join(dir, "recovery.hesscycle")); err == nil {
+		t.Error("a recovery file was written for a clean session")
+	}
+}
+
+func TestShutdownWritesRecovery(t *testing.T) {
+	db := loadDB(t)
+	_, u, dir := newRoot(t, db, 80, 24)
+	openEdited(t, u)
+	if !drive.Quit(drive.Run(u, tui.ShutdownMsg{Reason: "test"})) {
+		t.Fatal("ShutdownMsg did not quit")
+	}
+	if _, err := cycle.Open(db, filepath.Join(dir, "recovery.hesscycle")); err != nil {
+		t.Fatalf("no usable recovery file after shutdown: %v", err)
+	}
+}
+
+func TestSaveThenOpen(t *testing.T) {
+	db := loadDB(t)
+	m, u, dir := newRoot(t, db, 80, 24)
+	openEdited(t, u)
+	keys(u, "ctrl+s")
+	if v := m.View(); !strings.Contains(v, "Save the NaCl cycle as") || !strings.Contains(v, "NaCl"+cycle.FileExtension) {
+		t.Fatalf("no save prompt with a proposed name:\n%s", v)
+	}
+	keys(u, "enter")
+	path := filepath.Join(dir, "NaCl"+cycle.FileExtension)
+	if _, err := os.Stat(path); err != nil {
+		t.Fatalf("not saved: %v", err)
+	}
+	if m.Session().Dirty || m.Session().Path != path {
+		t.Errorf("after saving: dirty=%v path=%q", m.Session().Dirty, m.Session().Path)
+	}
+	// Open another compound, then the saved file again.
+	drive.Run(u, screen.OpenMsg{Formula: "KBr"})
+	keys(u, "ctrl+o")
+	drive.Run(u, drive.Text("NaCl"+cycle.FileExtension)...)
+	keys(u, "enter")
+	c := m.Session().Cycle
+	if c == nil || c.Formula != "NaCl" {
+		t.Fatalf("opened %v", c)
+	}
+	if s, _ := c.Step("ionization-1"); s.Value != 500 {
+		t.Errorf("reopened ionization-1 = %v, want the saved 500", s.Value)
+	}
+	if m.Session().Dirty {
+		t.Error("a freshly opened file is marked unsaved")
+	}
+}
+
+func TestFileNamesStayInTheFileRoot(t *testing.T) {
+	db := loadDB(t)
+	m, u, dir := newRoot(t, db, 80, 24)
+	openEdited(t, u)
+	for _, bad := range []string{"../escape", "/etc/passwd", "a/../../b"} {
+		keys(u, "ctrl+s", "ctrl+u") // ctrl+u clears the proposed name
+		drive.Run(u, drive.Text(bad)...)
+		keys(u, "enter")
+		if v := m.View(); !strings.Contains(v, "not accepted") {
+			t.Errorf("%q: no refusal shown in place:\n%s", bad, v)
+		}
+		keys(u, "esc")
+	}
+	entries, _ := os.ReadDir(filepath.Dir(dir))
+	for _, e := range entries {
+		if strings.HasPrefix(e.Name(), "escape") {
+			t.Errorf("a file escaped the root: %s", e.Name())
+		}
+	}
+}
+
+func TestTooSmallWindowSaysSo(t *testing.T) {
+	db := loadDB(t)
+	m, u, _ := newRoot(t, db, 60, 20)
+	v := m.View()
+	if !strings.Contains(v, "60×20") || !strings.Contains(v, "at least 80×24") {
+		t.Fatalf("small window:\n%s", v)
+	}
+	drive.Run(u, tea.WindowSizeMsg{Width: 80, Height: 24})
+	if v := m.View(); strings.Contains(v, "at least") || !strings.Contains(v, "Shelf") {
+		t.Errorf("at 80×24:\n%s", v)
+	}
+	// At exactly the minimum every line fits.
+	for i, l := range strings.Split(m.View(), "\n") {
+		if n := len([]rune(l)); n > 80 {
+			t.Errorf("line %d is %d cells", i, n)
+		}
+	}
+	if n := strings.Count(m.View(), "\n") + 1; n != 24 {
+		t.Errorf("%d lines at 80×24", n)
+	}
+}

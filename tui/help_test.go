@@ -1,0 +1,168 @@
+package tui_test
+
+import (
+	"strings"
+	"testing"
+
+	"github.com/charmbracelet/bubbles/key"
+	tea "github.com/charmbracelet/bubbletea"
+
+	"enthalpath/data"
+	"enthalpath/tui"
+	"enthalpath/tui/internal/drive"
+	"enthalpath/tui/screen"
+)
+
+func loadDB(t testing.TB) *data.DB {
+	t.Helper()
+	db, err := data.Load()
+	if err != nil {
+		t.Fatal(err)
+	}
+	return db
+}
+
+// newRoot returns the workshop at w×h with plain-text styles, files and
+// recovery in a temporary folder.
+func newRoot(t testing.TB, db *data.DB, w, h int) (*tui.Model, drive.Updater, string) {
+	t.Helper()
+	dir := t.TempDir()
+	m := tui.New(tui.Options{Renderer: drive.Renderer(), DB: db, FileRoot: dir, RecoveryPath: dir + "/recovery.hesscycle"}).(*tui.Model)
+	u := drive.Model(m)
+	drive.RunCmd(u, m.Init())
+	drive.Run(u, tea.WindowSizeMsg{Width: w, Height: h})
+	return m, u, dir
+}
+
+func keys(u drive.Updater, names ...string) {
+	for _, n := range names {
+		drive.Run(u, drive.Key(n))
+	}
+}
+
+// preps put each screen in a state where every key of its help has
+// something to act on (a cursor away from the ends, a value to reset, a
+// decided step to go back over, a filter to clear).
+var preps = []struct {
+	name string
+	id   screen.ID
+	prep func(t testing.TB, u drive.Updater)
+}{
+	{"shelf", screen.Shelf, func(t testing.TB, u drive.Updater) {
+		drive.Run(u, drive.Text("a")...)
+		keys(u, "down", "down")
+	}},
+	{"bench", screen.Bench, func(t testing.TB, u drive.Updater) {
+		drive.Run(u, screen.OpenMsg{Formula: "NaCl"})
+		keys(u, "g", "j", "e")
+		drive.Run(u, drive.Text("500")...)
+		keys(u, "enter")
+	}},
+	{"assembly", screen.Assembly, func(t testing.TB, u drive.Updater) {
+		drive.Run(u, screen.OpenMsg{Formula: "NaCl", Guided: true})
+		keys(u, "y")
+	}},
+	{"models", screen.Models, func(t testing.TB, u drive.Updater) {
+		drive.Run(u, screen.OpenMsg{Formula: "NaCl"})
+		keys(u, "4", "j", "j", "j", "l")
+	}},
+	{"survey", screen.Survey, func(t testing.TB, u drive.Updater) {
+		keys(u, "tab", "tab", "tab", "tab", "j", "j")
+	}},
+	{"analyses", screen.Analyses, func(t testing.TB, u drive.Updater) {
+		keys(u, "shift+tab", "j")
+	}},
+}
+
+// TestEveryHelpKeyDoesSomething presses, on each screen, every key of every
+// binding its full help lists (the screen's and the global ones) and checks
+// the key had an observable effect: the screen changed or the program quit.
+// Help text and key come from the same key.Binding, so the help cannot
+// list a key that does nothing.
+func TestEveryHelpKeyDoesSomething(t *testing.T) {
+	db := loadDB(t)
+	for _, p := range preps {
+		t.Run(p.name, func(t *testing.T) {
+			m, u, _ := newRoot(t, db, 100, 30)
+			p.prep(t, u)
+			if m.Active() != p.id {
+				t.Fatalf("prep left screen %d active, want %d", m.Active(), p.id)
+			}
+			for _, group := range m.FullHelp() {
+				for _, b := range group {
+					h := b.Help()
+					if h.Key == "" || h.Desc == "" {
+						t.Errorf("binding %v has no help text", b.Keys())
+					}
+					for _, k := range b.Keys() {
+						if k == string(rune('1'+p.id)) && key.Matches(drive.Key(k), m.Keys.GoTo) {
+							continue // going to the screen already shown is rightly a no-op
+						}
+						m, u, _ := newRoot(t, db, 100, 30)
+						p.prep(t, u)
+						before := m.View()
+						msgs := drive.Run(u, drive.Key(k))
+						if after := m.View(); after == before && !drive.Quit(msgs) {
+							t.Errorf("%s: key %q (%s: %s) changed nothing", p.name, k, h.Key, h.Desc)
+						}
+					}
+				}
+			}
+		})
+	}
+}
+
+// TestHelpKeysMeanWhatTheySay checks the effect of the keys whose help
+// names a precise outcome.
+func TestHelpKeysMeanWhatTheySay(t *testing.T) {
+	db := loadDB(t)
+	m, u, _ := newRoot(t, db, 100, 30)
+	drive.Run(u, screen.OpenMsg{Formula: "NaCl"})
+	if m.Active() != screen.Bench {
+		t.Fatalf("enter on a compound shows screen %d, want the bench", m.Active())
+	}
+	keys(u, "tab")
+	if m.Active() != screen.Assembly {
+		t.Errorf("tab: screen %d, want the next one", m.Active())
+	}
+	keys(u, "shift+tab", "3")
+	if m.Active() != screen.Assembly {
+		t.Errorf("3: screen %d, want the third", m.Active())
+	}
+	keys(u, "2", "u")
+	if m.Context().Units.String() != "kcal/mol" || !strings.Contains(m.View(), "kcal/mol") {
+		t.Errorf("u: units %v", m.Context().Units)
+	}
+	keys(u, "u", "u")
+	if m.Context().Units.String() != "kJ/mol" {
+		t.Errorf("u three times: units %v, want back to kJ/mol", m.Context().Units)
+	}
+	keys(u, "?")
+	if v := m.View(); !strings.Contains(v, "Keys on the Bench screen") {
+		t.Errorf("? did not open the key list:\n%s", v)
+	}
+	keys(u, "esc")
+	if strings.Contains(m.View(), "Keys on the") {
+		t.Error("esc did not close the key list")
+	}
+	// On the shelf "?" is text; f1 opens the list there.
+	keys(u, "1")
+	drive.Run(u, drive.Text("?")...)
+	if strings.Contains(m.View(), "Keys on the") {
+		t.Error("? opened the key list while the shelf was typing")
+	}
+	keys(u, "f1")
+	if !strings.Contains(m.View(), "Keys on the Shelf screen") {
+		t.Error("f1 did not open the key list on the shelf")
+	}
+	// q is not listed on the shelf, where it is text.
+	for _, g := range m.FullHelp() {
+		for _, b := range g {
+			for _, k := range b.Keys() {
+				if len([]rune(k)) == 1 && strings.Contains("qu123456?", k) {
+					t.Errorf("the shelf's help lists the printable global key %q", k)
+				}
+			}
+		}
+	}
+}
