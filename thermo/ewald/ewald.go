@@ -202,7 +202,7 @@ func newSystem(c *crystal.Crystal) *system {
 
 // realToRecipCost is the measured cost of one real-space term (an erfc and a
 // square root) relative to one site-by-k-vector term of the reciprocal sum.
-const realToRecipCost = 6.0
+const realToRecipCost = 10.0
 
 // balancedAlpha returns the splitting parameter that balances the cost of
 // the two sums for a cut-off product p fixed by the accuracy. With
