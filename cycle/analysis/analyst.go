@@ -18,6 +18,65 @@ type Analyst struct {
 
 	mu      sync.Mutex
 	spreads map[string]spreadEntry
+	built   map[string]builtEntry
+	radii   map[string]radiusEntry
+}
+
+type radiusEntry struct {
+	r   Radius
+	err error
+}
+
+// ionRadius is IonRadius remembered per ion (the neighbour rule looks at
+// every element).
+func (a *Analyst) ionRadius(ion data.Ion) (Radius, error) {
+	key := fmt.Sprintf("%s|%s|%d|%v", ion.Symbol, ion.Core, ion.Charge, ion.Polyatomic)
+	a.mu.Lock()
+	e, ok := a.radii[key]
+	a.mu.Unlock()
+	if ok {
+		return e.r, e.err
+	}
+	r, err := IonRadius(a.db, ion)
+	a.mu.Lock()
+	if len(a.radii) >= maxBuilt {
+		clear(a.radii)
+	}
+	a.radii[key] = radiusEntry{r, err}
+	a.mu.Unlock()
+	return r, err
+}
+
+type builtEntry struct {
+	c   *cycle.Cycle
+	err error
+}
+
+// maxBuilt bounds the remembered cycles; when full the memory is emptied.
+const maxBuilt = 4096
+
+// build returns a fresh copy of the cycle of formula with the given ions,
+// built once per Analyst: a data lookup of a formula the data do not have
+// is far slower than copying the cycle built the first time.
+func (a *Analyst) build(formula, cation, anion string) (*cycle.Cycle, error) {
+	key := formula + "|" + cation + "|" + anion
+	a.mu.Lock()
+	e, ok := a.built[key]
+	a.mu.Unlock()
+	if !ok {
+		c, err := cycle.Build(a.db, formula, cycle.Options{Cation: cation, Anion: anion, Memo: a.memo})
+		e = builtEntry{c, err}
+		a.mu.Lock()
+		if len(a.built) >= maxBuilt {
+			clear(a.built)
+		}
+		a.built[key] = e
+		a.mu.Unlock()
+	}
+	if e.err != nil {
+		return nil, e.err
+	}
+	return e.c.Clone(), nil
 }
 
 type spreadEntry struct {
@@ -27,7 +86,7 @@ type spreadEntry struct {
 
 // New returns an Analyst over db (which it only reads).
 func New(db *data.DB) *Analyst {
-	return &Analyst{db: db, memo: cycle.NewMemo(), spreads: map[string]spreadEntry{}}
+	return &Analyst{db: db, memo: cycle.NewMemo(), spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[string]radiusEntry{}}
 }
 
 // DB returns the data the Analyst reads.

@@ -130,14 +130,14 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 	if err != nil {
 		return nil, nil, err
 	}
-	bo := cycle.Options{Memo: a.memo}
+	var cation, anion string
 	if len(opt.Charges) > 0 {
-		bo.Cation, bo.Anion, err = a.ionsFromCharges(formula, opt.Charges)
+		cation, anion, err = a.ionsFromCharges(formula, opt.Charges)
 		if err != nil {
 			return nil, nil, err
 		}
 	}
-	c, err := cycle.Build(a.db, formula, bo)
+	c, err := a.build(formula, cation, anion)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -164,7 +164,7 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 			r = Radius{Value: side.user, Kind: "user", From: fmt.Sprintf("radius of %s given by the user", in.Symbol)}
 			useRadius(in, r)
 		default:
-			r, err = IonRadius(a.db, *in)
+			r, err = a.ionRadius(*in)
 			if err == nil && r.Kind == "neighbour" {
 				useRadius(in, r)
 			}

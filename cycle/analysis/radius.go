@@ -64,7 +64,7 @@ type DerivedRadius struct {
 // polyatomic ions are obtained, and the effective Born–Mayer ρ that closes
 // the gap between the cycle and Born–Mayer.
 func (a *Analyst) DeriveRadius(formula string, opt RadiusOptions) (*DerivedRadius, error) {
-	c, err := cycle.Build(a.db, formula, cycle.Options{Memo: a.memo})
+	c, err := a.build(formula, "", "")
 	if err != nil {
 		return nil, err
 	}
@@ -92,14 +92,14 @@ func (a *Analyst) DeriveRadius(formula string, opt RadiusOptions) (*DerivedRadiu
 		}
 	}
 	d := &DerivedRadius{Formula: c.Formula, Ion: target.Ion.Symbol, Counter: other.Ion.Symbol, DefaultRho: lattice.DefaultRho}
-	if r, err := IonRadius(a.db, target.Ion); err == nil && r.Kind != "neighbour" {
+	if r, err := a.ionRadius(target.Ion); err == nil && r.Kind != "neighbour" {
 		d.Tabulated = &r
 	}
 	// The other ion's radius.
 	if opt.CounterRadius > 0 {
 		d.CounterRadius = Radius{Value: opt.CounterRadius, Kind: "user", From: "radius of " + other.Ion.Symbol + " given by the user"}
 	} else {
-		r, err := IonRadius(a.db, other.Ion)
+		r, err := a.ionRadius(other.Ion)
 		if err != nil {
 			return nil, &InputError{Subject: formula, Field: "radius of " + other.Ion.Symbol, Reason: "needed as the known radius; give it", Err: err}
 		}

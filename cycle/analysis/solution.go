@@ -110,7 +110,7 @@ func (a *Analyst) Solution(formula string, opt SolutionOptions) (*SolutionCycle,
 	if solve == "" {
 		solve = KeyDissolution
 	}
-	c, err := cycle.Build(a.db, formula, cycle.Options{Memo: a.memo})
+	c, err := a.build(formula, "", "")
 	if err != nil {
 		return nil, err
 	}

@@ -1,0 +1,72 @@
+package analysis
+
+import (
+	"bytes"
+	"fmt"
+	"io"
+	"testing"
+)
+
+// BenchmarkScanMgCl: one metal–non-metal scan up to charge 4 (the issue
+// asks under 1 ms in-process). The Analyst is warm: its model spread and
+// Madelung memo are computed before the timer starts, as in a session.
+func BenchmarkScanMgCl(b *testing.B) {
+	a := testAnalyst(b)
+	if _, err := a.Scan("Mg", "Cl", ScanOptions{MaxCharge: 4}); err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := a.Scan("Mg", "Cl", ScanOptions{MaxCharge: 4}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkEstimate: one full estimate (cycle solved with every model compared).
+func BenchmarkEstimate(b *testing.B) {
+	a := testAnalyst(b)
+	if _, err := a.Estimate("MgCl", EstimateOptions{}); err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := a.Estimate("MgCl", EstimateOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// batchInput makes an invented screening list of n formulas: binary halides
+// and oxides of common metals with charges 1 to 3 (demo data).
+func batchInput(n int) []byte {
+	metals := []string{"Li", "Na", "K", "Rb", "Cs", "Mg", "Ca", "Sr", "Ba", "Al", "Sc", "Fe", "Co", "Ni", "Cu", "Zn"}
+	anions := []struct {
+		el string
+		z  int
+	}{{"F", 1}, {"Cl", 1}, {"Br", 1}, {"I", 1}, {"O", 2}, {"S", 2}}
+	var b bytes.Buffer
+	b.WriteString("formula,charges\n")
+	for i := 0; i < n; i++ {
+		m := metals[i%len(metals)]
+		x := anions[(i/len(metals))%len(anions)]
+		z := 1 + (i/(len(metals)*len(anions)))%3
+		g := gcd(z, x.z)
+		fmt.Fprintf(&b, "%s%s%s%s,\"%s=+%d,%s=-%d\"\n", m, countText(x.z/g), x.el, countText(z/g), m, z, x.el, x.z)
+	}
+	return b.Bytes()
+}
+
+func gcd(a, b int) int { return gcdInt(a, b) }
+
+// BenchmarkBatch10000: 10,000 formulas through the batch, in-process.
+func BenchmarkBatch10000(b *testing.B) {
+	in := batchInput(10000)
+	a := testAnalyst(b)
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := a.Batch(bytes.NewReader(in), io.Discard, BatchOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
