@@ -27,7 +27,7 @@ func (faultyScreen) Update(msg tea.Msg) tea.Cmd {
 	}
 	return nil
 }
-func (faultyScreen) Capturing() bool { return false }
+func (faultyScreen) Capturing() bool          { return false }
 func (faultyScreen) ShortHelp() []key.Binding { return nil }
 
 // TestPanicRestoresTerminalAndKeepsWork runs the real program on pipes,
