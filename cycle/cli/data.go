@@ -440,8 +440,8 @@ func dataList(w io.Writer, db *data.DB, what string, asJSON bool) error {
 // ---- JSON ----
 
 type dataValueJSON struct {
-	Value       jsonNumber     `json:"value"`
-	Uncertainty jsonNumber     `json:"uncertainty"`
+	Value       float64        `json:"value"`
+	Uncertainty float64        `json:"uncertainty"`
 	Unit        string         `json:"unit"`
 	Source      string         `json:"source"`
 	Citation    string         `json:"citation,omitempty"`
@@ -456,7 +456,7 @@ func dataValueOf(db *data.DB, v data.Value) *dataValueJSON {
 	if !v.Known() {
 		return nil
 	}
-	out := &dataValueJSON{Value: jsonNumber(v.V), Uncertainty: jsonNumber(v.U), Unit: v.Unit, Source: v.Source,
+	out := &dataValueJSON{Value: v.V, Uncertainty: v.U, Unit: v.Unit, Source: v.Source,
 		Memory: v.Memory, Derived: v.Derived, Override: v.Override, Note: v.Note}
 	if s, err := db.Source(v.Source); err == nil {
 		out.Citation = s.Citation
@@ -467,11 +467,11 @@ func dataValueOf(db *data.DB, v data.Value) *dataValueJSON {
 	return out
 }
 
-func dataNumber(v data.Value) *jsonNumber {
+func dataNumber(v data.Value) *float64 {
 	if !v.Known() {
 		return nil
 	}
-	n := jsonNumber(v.V)
+	n := v.V
 	return &n
 }
 
@@ -498,10 +498,10 @@ type dataScaledJSON struct {
 func dataJSON(db *data.DB, rec any) any {
 	switch r := rec.(type) {
 	case data.Element:
-		ies := []jsonNumber{}
+		ies := []float64{}
 		var ieVals []*dataValueJSON
 		for _, v := range r.Ionization {
-			ies = append(ies, jsonNumber(v.V))
+			ies = append(ies, v.V)
 			ieVals = append(ieVals, dataValueOf(db, v))
 		}
 		var steps []dataStepJSON
@@ -541,9 +541,9 @@ func dataJSON(db *data.DB, rec any) any {
 			"note":                  r.Note,
 		}
 	case data.Compound:
-		params := map[string]jsonNumber{}
+		params := map[string]float64{}
 		for k, v := range r.Params {
-			params[k] = jsonNumber(v)
+			params[k] = v
 		}
 		return map[string]any{
 			"kind": "compound", "formula": r.Formula, "name": r.Name, "family": r.Family,
