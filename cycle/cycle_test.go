@@ -463,7 +463,7 @@ func TestHypotheticalCompound(t *testing.T) {
 	if c.Tabulated || c.Cation.Ion.Charge != 1 || c.Anion.Ion.Symbol != "Cl-" {
 		t.Fatalf("MgCl ions: %+v %+v", c.Cation.Ion, c.Anion.Ion)
 	}
-	c.Settings.LatticeFrom = ModelKapustinkii
+	c.Settings.LatticeFrom = ModelKapustinskii
 	c.Cation.Ion.Radii = nil // Mg⁺ has no tabulated radius
 	if _, err := Solve(c); err == nil {
 		t.Errorf("Kapustinskii without a radius for Mg⁺ should fail")

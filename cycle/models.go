@@ -13,16 +13,21 @@ import (
 // The lattice model names, as used by Settings.LatticeFrom, the command
 // line and the cycle file.
 const (
-	ModelBornLande   = "born-lande"
-	ModelBornMayer   = "born-mayer"
-	ModelKapustinkii = "kapustinskii"
-	ModelVolume      = "volume"
-	ModelEwald       = "ewald"
+	ModelBornLande    = "born-lande"
+	ModelBornMayer    = "born-mayer"
+	ModelKapustinskii = "kapustinskii"
+	ModelVolume       = "volume"
+	ModelEwald        = "ewald"
 )
+
+// ModelKapustinkii is the first, misspelt name of ModelKapustinskii.
+//
+// Deprecated: use ModelKapustinskii.
+const ModelKapustinkii = ModelKapustinskii
 
 // ModelNames lists the models in display order.
 func ModelNames() []string {
-	return []string{ModelBornLande, ModelBornMayer, ModelKapustinkii, ModelVolume, ModelEwald}
+	return []string{ModelBornLande, ModelBornMayer, ModelKapustinskii, ModelVolume, ModelEwald}
 }
 
 func isModelName(s string) bool { return slices.Contains(ModelNames(), s) }
@@ -182,7 +187,7 @@ func EvaluateModel(c *Cycle, name string) (ModelResult, error) {
 		m.Title = "Born–Mayer with the Ewald Madelung constant of the structure"
 		m.Citation = "P. P. Ewald, Ann. Phys. 369, 253 (1921); Born–Mayer repulsion"
 		u, err = c.bornModel(&m.Inputs, true, true)
-	case ModelKapustinkii:
+	case ModelKapustinskii:
 		m.Title = "Kapustinskii (1956)"
 		m.Citation = "A. F. Kapustinskii, Q. Rev. Chem. Soc. 10, 283 (1956)"
 		rel = ModelUncertaintyKapustinskii

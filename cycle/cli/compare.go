@@ -118,16 +118,20 @@ func runCompare(env Env, args []string) error {
 	conv, _ := mf.conventions()
 	switch {
 	case asCSV:
-		return writeCompareCSV(env.Stdout, rows, conv.Lattice.Symbol())
+		err = writeCompareCSV(env.Stdout, rows, conv.Lattice.Symbol())
 	case asJSON:
-		return writeCompareJSON(env.Stdout, rows, conv.Lattice.Symbol())
+		err = writeCompareJSON(env.Stdout, rows, conv.Lattice.Symbol())
+	default:
+		writeCompareText(env.Stdout, rows, unit, conv.Lattice.Symbol())
 	}
-	writeCompareText(env.Stdout, rows, unit, conv.Lattice.Symbol())
-	if !all {
-		for _, r := range rows {
-			if r.Err != nil {
-				return &UsageError{fmt.Errorf("%s: %w", r.Formula, r.Err)}
-			}
+	if err != nil {
+		return err
+	}
+	// A formula that names no compound is a usage error; a cycle that
+	// cannot close is a result, reported in its row.
+	for _, r := range rows {
+		if errors.Is(r.Err, cycle.ErrUnknownCompound) || errors.Is(r.Err, cycle.ErrChargeBalance) {
+			return &UsageError{fmt.Errorf("%s: %w", r.Formula, r.Err)}
 		}
 	}
 	return nil
@@ -184,7 +188,7 @@ func modelCell(ms []cycle.ModelResult, name string) string {
 // headlineVerdict is the verdict of the structure-specific model, or of
 // Born–Mayer when there is no structure.
 func headlineVerdict(ms []cycle.ModelResult) string {
-	for _, name := range []string{cycle.ModelEwald, cycle.ModelBornMayer, cycle.ModelKapustinkii} {
+	for _, name := range []string{cycle.ModelEwald, cycle.ModelBornMayer, cycle.ModelKapustinskii} {
 		for _, m := range ms {
 			if m.Model == name && m.Err == nil {
 				return m.Verdict.Character.String() + " (" + name + ")"

@@ -300,7 +300,19 @@ func runCycle(env Env, args []string) error {
 		c.Note = note
 	}
 	if save != "" {
-		if err := cycle.Save(save, c); err != nil {
+		toSave := c
+		if st := c.Settings.Structure; st.CIF != "" && !filepath.IsAbs(st.CIF) && open == "" {
+			// The file records the CIF path relative to its own folder.
+			if abs, err := filepath.Abs(st.CIF); err == nil {
+				if dir, err := filepath.Abs(filepath.Dir(save)); err == nil {
+					if rel, err := filepath.Rel(dir, abs); err == nil {
+						toSave = c.Clone()
+						toSave.Settings.Structure.CIF = rel
+					}
+				}
+			}
+		}
+		if err := cycle.Save(save, toSave); err != nil {
 			return err
 		}
 	}

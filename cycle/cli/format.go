@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"strconv"
 	"strings"
 	"unicode/utf8"
 
@@ -85,6 +86,9 @@ func energy(kj float64, u thermo.Unit) string {
 func energyPM(kj, unc float64, u thermo.Unit) string {
 	s := energy(kj, u)
 	if unc > 0 {
+		if v := thermo.FromKJPerMol(unc, u); v < 0.05 {
+			return s + " ± " + strconv.FormatFloat(v, 'g', 2, 64)
+		}
 		s += " ± " + energy(unc, u)
 	}
 	return s
