@@ -9,7 +9,10 @@ import (
 
 // The Madelung constant of rock salt (published value 1.747565, handbook
 // tables of Madelung constants, from memory) and its energy per formula unit
-// for NaCl's lattice parameter.
+// for NaCl's lattice parameter. The expected energy and potential follow
+// from the published A alone: E = −A·N_A·e²/(4πε₀d) = −1.747565 ×
+// 1389.3546 kJ·Å/mol / 2.8201 Å = −861.0 kJ/mol, and φ(Na) = −A·e/(4πε₀d) =
+// −1.747565 × 14.399645 V·Å / 2.8201 Å = −8.9232 V (worked by hand).
 func ExampleSum() {
 	nacl, err := crystal.Build("rock-salt", map[string]float64{"a": 5.6402})
 	if err != nil {
@@ -28,9 +31,6 @@ func ExampleSum() {
 	}
 	fmt.Printf("A = %.6f (d = %.4f Å)\n", r.MadelungConstant, r.NearestDistance)
 	fmt.Printf("E = %.1f kJ/mol, φ(Na) = %.4f V\n", r.EnergyKJPerMol, r.SitePotentials[0])
-	// From the published A alone: E = −A·N_A·e²/(4πε₀d) = −1.747565 ×
-	// 1389.3546 kJ·Å/mol / 2.8201 Å = −861.0 kJ/mol, and φ(Na) = −A·e/(4πε₀d)
-	// = −1.747565 × 14.399645 V·Å / 2.8201 Å = −8.9232 V (worked by hand).
 	// Output:
 	// A = 1.747565 (d = 2.8201 Å)
 	// E = -861.0 kJ/mol, φ(Na) = -8.9232 V
