@@ -98,7 +98,7 @@ func Build(db *data.DB, formula string, opt Options) (*Cycle, error) {
 		return nil, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s must be a cation and %s an anion", c.Cation.Ion.Symbol, c.Anion.Ion.Symbol)}
 	}
 	c.MolarMass = molarMass(c.Cation, c.Anion)
-	if c.Settings.Structure.Empty() && c.Compound.Structure != "" {
+	if c.Settings.Structure.Empty() && c.Compound.Structure != "" && !c.Settings.noStructure {
 		c.Settings.Structure = Structure{Prototype: c.Compound.Structure, Params: cloneParams(c.Compound.Params), FromData: true}
 	}
 	b := builder{db: db, c: c}

@@ -17,6 +17,7 @@ import (
 
 	"enthalpath/data"
 	"enthalpath/thermo"
+	"enthalpath/thermo/crystal"
 )
 
 // FileFormat is the name written in every cycle file, FileVersion its
@@ -192,9 +193,12 @@ func Marshal(c *Cycle) ([]byte, error) {
 	}
 	if st.Structure.Cell != nil || st.Structure.CIF != "" {
 		m.CIF = st.Structure.CIF
-	} else if !st.Structure.FromData {
+	} else if !sameStructure(st.Structure, c.Compound.Structure, c.Compound.Params) {
 		m.Structure = st.Structure.Prototype
 		m.Params = st.Structure.Params
+		if m.Structure == "" && c.Compound.Structure != "" {
+			m.Structure = "none"
+		}
 	}
 	doc.Models = m
 	for _, s := range c.Steps {
@@ -212,6 +216,19 @@ func Marshal(c *Cycle) ([]byte, error) {
 		return nil, fmt.Errorf("cycle %s: encoding the cycle file: %w", c.Formula, err)
 	}
 	return buf.Bytes(), nil
+}
+
+// sameStructure reports whether st is the compound's own structure from the data.
+func sameStructure(st Structure, proto string, params map[string]float64) bool {
+	if st.Prototype != proto || len(st.Params) != len(params) {
+		return false
+	}
+	for k, v := range params {
+		if w, ok := st.Params[k]; !ok || w != v {
+			return false
+		}
+	}
+	return true
 }
 
 // Unmarshal reads a cycle file: it rebuilds the compound's cycle from db
@@ -378,7 +395,14 @@ func (m fileModels) settings(text, path string) (Settings, *FileError) {
 			return bad("d0", err.Error())
 		}
 	}
-	if m.Structure != "" {
+	switch m.Structure {
+	case "":
+	case "none":
+		s.noStructure = true
+	default:
+		if _, err := crystal.LookupPrototype(m.Structure); err != nil {
+			return bad("structure", err.Error())
+		}
 		s.Structure = Structure{Prototype: m.Structure, Params: m.Params}
 	}
 	if m.CIF != "" {

@@ -237,6 +237,10 @@ type Settings struct {
 	Accuracy float64
 	// Units is the unit values are printed in (and --set values read in).
 	Units thermo.Unit
+
+	// noStructure keeps Build from filling in the compound's own structure
+	// (a cycle file that chose none).
+	noStructure bool
 }
 
 func (s Settings) clone() Settings {

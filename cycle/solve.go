@@ -205,7 +205,9 @@ func Solve(c *Cycle) (*Result, error) {
 		return nil, &UnknownsError{Keys: unknowns}
 	}
 	if !w.inSum(unknown) {
-		return nil, &StepError{Key: steps[unknown].Key, Valid: w.Keys()}
+		parent := steps[unknown].Parent
+		return nil, fmt.Errorf("%w: step %s is a sub-step of %s, which has a value of its own; reset %s (or solve for %s) instead: %w",
+			ErrUnknownStep, steps[unknown].Key, parent, parent, parent, ErrTooManyUnknowns)
 	}
 	sum, variance := 0.0, 0.0
 	for i := range steps {
