@@ -1,14 +1,9 @@
 package data
 
 import (
-	"errors"
 	"fmt"
 	"strings"
 )
-
-// ErrNoCompoundTable is returned by checks that need compounds.csv when the
-// embedded data holds none.
-var ErrNoCompoundTable = errors.New("data: no compound table")
 
 // NotFoundError is returned by a lookup that found nothing. Suggestions holds
 // near matches (closest first), possibly none.
