@@ -12,18 +12,29 @@ import (
 // position, for which the Coulomb energy is infinite.
 const coincident = 1e-6
 
-// Work is split into a fixed number of chunks, each with its own
-// accumulators, reduced in chunk order: the result is bit-for-bit the same
-// whatever the number of processors.
-const chunks = 8
+// Work on a large cell is split into parallelChunks chunks, each with its
+// own accumulators, reduced in chunk order: the result is bit-for-bit the
+// same whatever the number of processors. A small cell is one chunk.
+const parallelChunks = 8
 
-// parallelSites is the smallest cell that is summed on several goroutines.
+// parallelSites is the smallest cell that is split into chunks.
 const parallelSites = 48
 
-// forChunks runs f(c) for c = 0 … chunks−1, in parallel when n is large.
+// chunksFor returns the number of chunks for a cell of n sites; it depends
+// on n only.
+func chunksFor(n int) int {
+	if n < parallelSites {
+		return 1
+	}
+	return parallelChunks
+}
+
+// forChunks runs f(c) for c = 0 … chunksFor(n)−1, on several goroutines
+// when there are several chunks and processors.
 func forChunks(n int, f func(c int)) {
+	chunks := chunksFor(n)
 	workers := min(runtime.GOMAXPROCS(0), chunks)
-	if n < parallelSites || workers < 2 {
+	if workers < 2 {
 		for c := 0; c < chunks; c++ {
 			f(c)
 		}
@@ -154,6 +165,7 @@ func (s *system) realSpace(alpha, rc float64, phi []float64, reps []int) (terms 
 	// Self images: the same for every site.
 	selfSum, selfCount, _, _ := im.sum(crystal.Vec3{}, crystal.Vec3{}, true)
 
+	chunks := chunksFor(n)
 	parts := make([]realPart, chunks)
 	forChunks(n, func(c int) {
 		p := &parts[c]
@@ -258,6 +270,7 @@ func (s *system) reciprocalSpace(alpha, kc float64, phi []float64, reps []int) i
 		phi   []float64
 		count int
 	}
+	chunks := chunksFor(n)
 	parts := make([]recipPart, chunks)
 	forChunks(n, func(c int) {
 		part := &parts[c]
