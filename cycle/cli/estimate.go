@@ -1,4 +1,166 @@
 package cli
 
-// runEstimate is replaced by the real command when its engine lands.
-func runEstimate(env Env, args []string) error { return errNotBuilt }
+import (
+	"fmt"
+	"io"
+	"strings"
+
+	"enthalpath/cycle/analysis"
+	"enthalpath/thermo"
+)
+
+const estimateSynopsis = "estimate FORMULA [--charges M=+2,X=-1] [--model MODEL] [--structure PROTOTYPE] [--cation-radius Å] [--anion-radius Å] [--set KEY=VALUE] [--solve KEY] [--json]"
+
+func runEstimate(env Env, args []string) error {
+	fs := newFlagSet("estimate", estimateSynopsis, env.Stderr)
+	var charges, model, structure, solve string
+	var rc, ra float64
+	var sets listFlag
+	var asJSON bool
+	fs.StringVar(&charges, "charges", "", "ion charges by element, `M=+2,X=-1` or Mg=+1,Cl=-1 (M: first element of the formula, X: second)")
+	fs.StringVar(&model, "model", analysis.DefaultModel, "lattice `MODEL`: "+strings.Join(analysis.EstimateModels(), ", "))
+	fs.StringVar(&structure, "structure", "", "`PROTOTYPE` for the Born models (rock-salt, fluorite, …); default: the compound's own or the radius-ratio rule")
+	fs.Float64Var(&rc, "cation-radius", 0, "cation radius in `Å` (default: Shannon CN VI, or the neighbour rule for a hypothetical ion)")
+	fs.Float64Var(&ra, "anion-radius", 0, "anion radius in `Å`")
+	fs.Var(&sets, "set", "give step KEY a value, `KEY=VALUE[±UNC]` kJ/mol; repeatable")
+	fs.StringVar(&solve, "solve", "formation", "the step `KEY` to solve (the lattice step comes from the model)")
+	fs.BoolVar(&asJSON, "json", false, "print JSON")
+	pos, a, err := analysisSetup(env, fs, args)
+	if err != nil || a == nil {
+		return err
+	}
+	if len(pos) != 1 {
+		return Usagef("give one formula: usage: enthalpath %s", estimateSynopsis)
+	}
+	opt := analysis.EstimateOptions{Model: model, Structure: structure, CationRadius: rc, AnionRadius: ra, Solve: solve}
+	if rc < 0 || ra < 0 {
+		return Usagef("--cation-radius and --anion-radius must be positive (Å)")
+	}
+	if charges != "" {
+		if opt.Charges, err = analysis.ParseCharges(charges, pos[0]); err != nil {
+			return inputError(err)
+		}
+	}
+	if opt.Sets, err = parseSets(sets); err != nil {
+		return err
+	}
+	est, err := a.Estimate(pos[0], opt)
+	if err != nil {
+		return inputError(err)
+	}
+	if asJSON {
+		return writeJSON(env.Stdout, estimateJSONOf(est))
+	}
+	printEstimate(env.Stdout, est)
+	return nil
+}
+
+type estimateIonJSON struct {
+	Symbol       string  `json:"symbol"`
+	Charge       int     `json:"charge"`
+	Count        int     `json:"count"`
+	Hypothetical bool    `json:"hypothetical"`
+	RadiusA      float64 `json:"radius_angstrom"`
+	RadiusFrom   string  `json:"radius_from"`
+}
+
+type estimateJSON struct {
+	Compound  string          `json:"compound"`
+	Tabulated bool            `json:"tabulated"`
+	Cation    estimateIonJSON `json:"cation"`
+	Anion     estimateIonJSON `json:"anion"`
+	Model     string          `json:"model"`
+	Citation  string          `json:"model_citation"`
+	// Lattice step as ΔH_L (298.15 K) and as U, negative.
+	LatticeKJ        jsonNumber  `json:"lattice_kj_per_mol"`
+	LatticeEnergyKJ  jsonNumber  `json:"lattice_energy_kj_per_mol"`
+	ModelUncertainty jsonNumber  `json:"model_uncertainty_kj_per_mol"`
+	ModelBasis       string      `json:"model_uncertainty_basis"`
+	Solved           string      `json:"solved"`
+	FormationKJ      *jsonNumber `json:"formation_kj_per_mol,omitempty"`
+	ValueKJ          jsonNumber  `json:"kj_per_mol"`
+	UncertaintyKJ    jsonNumber  `json:"uncertainty_kj_per_mol"`
+	InputUncertainty jsonNumber  `json:"input_uncertainty_kj_per_mol"`
+	MeasuredKJ       *jsonNumber `json:"measured_kj_per_mol,omitempty"`
+	MeasuredSource   string      `json:"measured_source,omitempty"`
+	Steps            []analysisStepJSON  `json:"steps"`
+	Notes            []string    `json:"notes"`
+	Warnings         []string    `json:"warnings,omitempty"`
+}
+
+type analysisStepJSON struct {
+	Key           string     `json:"key"`
+	Reaction      string     `json:"reaction"`
+	Multiplicity  float64    `json:"multiplicity"`
+	KJ            jsonNumber `json:"kj_per_mol"`
+	UncertaintyKJ jsonNumber `json:"uncertainty_kj_per_mol"`
+	Source        string     `json:"source"`
+}
+
+func estimateJSONOf(e *analysis.Estimate) estimateJSON {
+	ion := func(u analysis.IonUse) estimateIonJSON {
+		return estimateIonJSON{Symbol: u.Symbol, Charge: u.Charge, Count: u.Count, Hypothetical: u.Hypothetical, RadiusA: u.Radius.Value, RadiusFrom: u.Radius.From}
+	}
+	out := estimateJSON{Compound: e.Formula, Tabulated: e.Tabulated, Cation: ion(e.Cation), Anion: ion(e.Anion),
+		Model: e.Model, Citation: e.ModelCitation, LatticeKJ: jsonNum(e.Lattice), LatticeEnergyKJ: jsonNum(e.LatticeEnergy),
+		ModelUncertainty: jsonNum(e.ModelUncertainty), ModelBasis: e.Spread.Basis(), Solved: e.Solved.Key,
+		ValueKJ: jsonNum(e.Value), UncertaintyKJ: jsonNum(e.Uncertainty), InputUncertainty: jsonNum(e.InputUncertainty),
+		Notes: e.Notes}
+	if e.Solved.Key == "formation" {
+		v := jsonNum(e.Value)
+		out.FormationKJ = &v
+	}
+	if e.Measured != nil {
+		v := jsonNum(e.Measured.Value)
+		out.MeasuredKJ, out.MeasuredSource = &v, e.Measured.Source.Key
+	}
+	if e.Result != nil {
+		for _, s := range e.Result.Steps {
+			out.Steps = append(out.Steps, analysisStepJSON{Key: s.Key, Reaction: s.Reaction, Multiplicity: s.Multiplicity,
+				KJ: jsonNum(s.Value), UncertaintyKJ: jsonNum(s.Uncertainty), Source: sourceWords(s.Source)})
+		}
+		out.Notes = append(out.Notes, e.Result.Notes...)
+		out.Warnings = e.Result.Warnings
+	}
+	return out
+}
+
+func printEstimate(w io.Writer, e *analysis.Estimate) {
+	u := thermo.KJPerMol
+	kind := "hypothetical compound"
+	if e.Tabulated {
+		kind = "tabulated compound"
+	}
+	fmt.Fprintf(w, "%s (%s): %s ×%d, %s ×%d\n", e.Formula, kind, e.Cation.Symbol, e.Cation.Count, e.Anion.Symbol, e.Anion.Count)
+	fmt.Fprintf(w, "  radii: %s %.3f Å (%s); %s %.3f Å (%s)\n", e.Cation.Symbol, e.Cation.Radius.Value, e.Cation.Radius.From,
+		e.Anion.Symbol, e.Anion.Radius.Value, e.Anion.Radius.From)
+	fmt.Fprintf(w, "  lattice step from %s: ΔH_L %s kJ/mol (U %s), model σ %s kJ/mol\n", e.ModelTitle,
+		energy(e.Lattice, u), energy(e.LatticeEnergy, u), energy(e.ModelUncertainty, u))
+	fmt.Fprintf(w, "  %s\n", wrapText("model σ basis: "+e.Spread.Basis(), 96, "    "))
+	if e.Result != nil {
+		t := &table{head: []string{"step", "reaction", "×", "kJ/mol", "σ", "source"}, right: map[int]bool{2: true, 3: true, 4: true}}
+		for _, s := range e.Result.Steps {
+			if s.Parent != "" {
+				continue
+			}
+			t.add(s.Key, s.Reaction, fmt.Sprintf("%g", s.Multiplicity), energy(s.Value, u), energy(s.Uncertainty, u), sourceWords(s.Source))
+		}
+		fmt.Fprintln(w)
+		t.write(w, "  ")
+	}
+	fmt.Fprintf(w, "\n  %s (solved): %s kJ/mol  (σ from the data alone %s, model σ %s)\n", e.Solved.Key,
+		energyPM(e.Value, e.Uncertainty, u), energy(e.InputUncertainty, u), energy(e.ModelUncertainty, u))
+	if e.Measured != nil {
+		fmt.Fprintf(w, "  measured %s: %s kJ/mol (%s); estimate − measured = %s kJ/mol\n", e.Solved.Key,
+			energyPM(e.Measured.Value, e.Measured.Uncertainty, u), e.Measured.Source.Key, energy(e.Value-e.Measured.Value, u))
+	}
+	for _, n := range e.Notes {
+		fmt.Fprintf(w, "  note: %s\n", wrapText(n, 96, "        "))
+	}
+	if e.Result != nil {
+		for _, wn := range e.Result.Warnings {
+			fmt.Fprintf(w, "  warning: %s\n", wrapText(wn, 96, "           "))
+		}
+	}
+}
+

@@ -1,4 +1,160 @@
 package cli
 
-// runScan is replaced by the real command when its engine lands.
-func runScan(env Env, args []string) error { return errNotBuilt }
+import (
+	"fmt"
+	"io"
+	"strings"
+
+	"enthalpath/cycle/analysis"
+	"enthalpath/thermo"
+)
+
+const scanSynopsis = "scan METAL NONMETAL [--max-charge N] [--anion ION] [--model MODEL] [--structure PROTOTYPE] [--json]"
+
+func runScan(env Env, args []string) error {
+	fs := newFlagSet("scan", scanSynopsis, env.Stderr)
+	var maxCharge int
+	var anion, model, structure string
+	var asJSON bool
+	fs.IntVar(&maxCharge, "max-charge", 0, fmt.Sprintf("highest metal charge `N` (default: as far as the data's ionization energies go, at most %d)", analysis.DefaultMaxCharge))
+	fs.StringVar(&anion, "anion", "", "the non-metal's `ION` (default: its monatomic anion in the data)")
+	fs.StringVar(&model, "model", analysis.DefaultModel, "lattice `MODEL` of the estimates: "+strings.Join(analysis.EstimateModels(), ", "))
+	fs.StringVar(&structure, "structure", "", "`PROTOTYPE` for the Born models")
+	fs.BoolVar(&asJSON, "json", false, "print JSON")
+	pos, a, err := analysisSetup(env, fs, args)
+	if err != nil || a == nil {
+		return err
+	}
+	if len(pos) != 2 {
+		return Usagef("give a metal and a non-metal: usage: enthalpath %s", scanSynopsis)
+	}
+	if maxCharge < 0 {
+		return Usagef("--max-charge must be positive")
+	}
+	sc, err := a.Scan(pos[0], pos[1], analysis.ScanOptions{MaxCharge: maxCharge, Anion: anion, Model: model, Structure: structure})
+	if err != nil {
+		return inputError(err)
+	}
+	if asJSON {
+		return writeJSON(env.Stdout, scanJSONOf(sc))
+	}
+	printScan(env.Stdout, sc)
+	return nil
+}
+
+type scanCompoundJSON struct {
+	Formula           string      `json:"formula"`
+	Charge            int         `json:"charge"`
+	MetalAtoms        int         `json:"metal_atoms"`
+	FormationKJ       jsonNumber  `json:"formation_kj_per_mol"`
+	UncertaintyKJ     jsonNumber  `json:"uncertainty_kj_per_mol"`
+	FormationFrom     string      `json:"formation_from"`
+	EstimateKJ        jsonNumber  `json:"estimate_kj_per_mol"`
+	EstimateUncKJ     jsonNumber  `json:"estimate_uncertainty_kj_per_mol"`
+	MeasuredKJ        *jsonNumber `json:"measured_kj_per_mol,omitempty"`
+	PerMetalKJ        jsonNumber  `json:"per_metal_kj_per_mol"`
+	PerMetalUncKJ     jsonNumber  `json:"per_metal_uncertainty_kj_per_mol"`
+	Stable            bool        `json:"stable_to_disproportionation"`
+	LosesNonMetal     bool        `json:"loses_nonmetal"`
+	LowerState        string      `json:"lower_state,omitempty"`
+	CationRadiusA     float64     `json:"cation_radius_angstrom"`
+	CationRadiusBasis string      `json:"cation_radius_from"`
+}
+
+type disproportionationJSON struct {
+	Reaction      string     `json:"reaction"`
+	From          int        `json:"from_charge"`
+	Lower         int        `json:"lower_charge"`
+	Upper         int        `json:"upper_charge"`
+	KJ            jsonNumber `json:"kj_per_mol"`
+	UncertaintyKJ jsonNumber `json:"uncertainty_kj_per_mol"`
+	Favoured      bool       `json:"favoured"`
+}
+
+type scanJSON struct {
+	Metal               string                   `json:"metal"`
+	NonMetal            string                   `json:"nonmetal"`
+	Anion               string                   `json:"anion"`
+	Model               string                   `json:"model"`
+	ModelBasis          string                   `json:"model_uncertainty_basis"`
+	Compounds           []scanCompoundJSON       `json:"compounds"`
+	Disproportionations []disproportionationJSON `json:"disproportionations"`
+	Favoured            string                   `json:"favoured"`
+	Skipped             []string                 `json:"skipped,omitempty"`
+	Notes               []string                 `json:"notes"`
+}
+
+func scanJSONOf(sc *analysis.Scan) scanJSON {
+	out := scanJSON{Metal: sc.Metal, NonMetal: sc.NonMetal, Anion: sc.Anion, Model: sc.Model, ModelBasis: sc.Spread.Basis(),
+		Favoured: sc.Favoured, Skipped: sc.Skipped, Notes: sc.Notes,
+		Compounds: []scanCompoundJSON{}, Disproportionations: []disproportionationJSON{}}
+	for _, c := range sc.Compounds {
+		j := scanCompoundJSON{Formula: c.Formula, Charge: c.Charge, MetalAtoms: c.MetalCount,
+			FormationKJ: jsonNum(c.Formation), UncertaintyKJ: jsonNum(c.Uncertainty), FormationFrom: "estimate",
+			EstimateKJ: jsonNum(c.Estimate), EstimateUncKJ: jsonNum(c.EstimateUncertainty),
+			PerMetalKJ: jsonNum(c.PerMetal), PerMetalUncKJ: jsonNum(c.PerMetalUncertainty),
+			Stable: c.Stable, LosesNonMetal: c.LosesNonMetal, LowerState: c.LowerState,
+			CationRadiusA: c.CationRadius.Value, CationRadiusBasis: c.CationRadius.From}
+		if c.FromData {
+			j.FormationFrom = "data (" + c.Measured.Source.Key + ")"
+		}
+		if c.Measured != nil {
+			v := jsonNum(c.Measured.Value)
+			j.MeasuredKJ = &v
+		}
+		out.Compounds = append(out.Compounds, j)
+	}
+	for _, d := range sc.Disproportionations {
+		out.Disproportionations = append(out.Disproportionations, disproportionationJSON{Reaction: d.Reaction, From: d.From, Lower: d.Lower, Upper: d.Upper,
+			KJ: jsonNum(d.Enthalpy), UncertaintyKJ: jsonNum(d.Uncertainty), Favoured: d.Favoured})
+	}
+	return out
+}
+
+func printScan(w io.Writer, sc *analysis.Scan) {
+	u := thermo.KJPerMol
+	fmt.Fprintf(w, "oxidation states of %s with %s (%s), lattice steps from %s\n\n", sc.Metal, sc.NonMetal, sc.Anion, sc.Model)
+	t := &table{head: []string{"compound", "charge", "ΔfH° kJ/mol", "per mol " + sc.Metal, "from", "verdict"}, right: map[int]bool{1: true, 2: true, 3: true}}
+	for _, c := range sc.Compounds {
+		from := "estimate"
+		if c.FromData {
+			from = "data (" + c.Measured.Source.Key + "); estimate " + energy(c.Estimate, u)
+		}
+		verdict := "stable to disproportionation"
+		if !c.Stable {
+			verdict = "disproportionates"
+		}
+		if c.LosesNonMetal {
+			verdict += "; releases " + sc.NonMetal + ", forming " + c.LowerState
+		}
+		t.add(c.Formula, fmt.Sprintf("%+d", c.Charge), energyPM(c.Formation, c.Uncertainty, u), energy(c.PerMetal, u), from, verdict)
+	}
+	t.write(w, "  ")
+	fmt.Fprintln(w)
+	d := &table{head: []string{"reaction", "ΔH kJ/mol", ""}, right: map[int]bool{1: true}}
+	for _, r := range sc.Disproportionations {
+		mark := ""
+		if r.Favoured {
+			mark = "favoured (exothermic)"
+		}
+		d.add(strings.ReplaceAll(r.Reaction, "->", "→"), energyPM(r.Enthalpy, r.Uncertainty, u), mark)
+	}
+	d.write(w, "  ")
+	if sc.Favoured != "" {
+		fmt.Fprintf(w, "\n  favoured: %s (most negative ΔfH° per mole of %s)\n", sc.Favoured, sc.Metal)
+	} else {
+		fmt.Fprintf(w, "\n  favoured: none — every state is endothermic\n")
+	}
+	fmt.Fprintf(w, "  %s\n", wrapText("model σ basis: "+sc.Spread.Basis(), 96, "    "))
+	for _, s := range sc.Skipped {
+		fmt.Fprintf(w, "  skipped: %s\n", wrapText(s, 96, "           "))
+	}
+	for _, c := range sc.Compounds {
+		for _, n := range c.Notes {
+			fmt.Fprintf(w, "  %s: %s\n", c.Formula, wrapText(n, 96, "    "))
+		}
+	}
+	for _, n := range sc.Notes {
+		fmt.Fprintf(w, "  note: %s\n", wrapText(n, 96, "        "))
+	}
+}
