@@ -1,3 +1,5 @@
+//go:build unix
+
 package serve
 
 import (
@@ -8,6 +10,7 @@ import (
 	"slices"
 	"strings"
 	"sync"
+	"syscall"
 	"testing"
 	"time"
 )
@@ -17,6 +20,7 @@ type loadFigures struct {
 	median, p99, worst time.Duration
 	heapPerSession     float64 // bytes
 	keystrokes         int
+	cpuPerKey          time.Duration // process CPU (server and client) per keystroke
 }
 
 // runLoad opens sessions concurrent PTY sessions on 127.0.0.1, waits for
@@ -64,6 +68,7 @@ func runLoad(b *testing.B, sessions, keystrokes int, pace time.Duration) loadFig
 		}
 	}()
 
+	cpuBefore := cpuTime()
 	var mu sync.Mutex
 	latencies := make([]time.Duration, 0, sessions*keystrokes)
 	failures := make(chan error, sessions)
@@ -106,6 +111,7 @@ func runLoad(b *testing.B, sessions, keystrokes int, pace time.Duration) loadFig
 		b.Fatal(err)
 	}
 
+	cpu := cpuTime() - cpuBefore
 	runtime.GC()
 	var after runtime.MemStats
 	runtime.ReadMemStats(&after)
@@ -118,6 +124,7 @@ func runLoad(b *testing.B, sessions, keystrokes int, pace time.Duration) loadFig
 		worst:          latencies[len(latencies)-1],
 		heapPerSession: float64(int64(after.HeapAlloc)-int64(before.HeapAlloc)) / float64(sessions),
 		keystrokes:     len(latencies),
+		cpuPerKey:      cpu / time.Duration(len(latencies)),
 	}
 }
 
@@ -149,8 +156,9 @@ func benchLoad(b *testing.B, pace time.Duration) {
 		b.ReportMetric(float64(f.p99.Microseconds())/1000, "p99-ms")
 		b.ReportMetric(float64(f.worst.Microseconds())/1000, "max-ms")
 		b.ReportMetric(f.heapPerSession/(1<<20), "MiB/session")
-		b.Logf("%d keystrokes: median %v, p99 %v, max %v; heap %.2f MiB per session (GOMAXPROCS %d, load average %s)",
-			f.keystrokes, f.median, f.p99, f.worst, f.heapPerSession/(1<<20), runtime.GOMAXPROCS(0), loadAverage())
+		b.ReportMetric(float64(f.cpuPerKey.Microseconds())/1000, "cpu-ms/keystroke")
+		b.Logf("%d keystrokes: median %v, p99 %v, max %v; heap %.2f MiB per session; CPU %v per keystroke (server and client); GOMAXPROCS %d, load average %s",
+			f.keystrokes, f.median, f.p99, f.worst, f.heapPerSession/(1<<20), f.cpuPerKey, runtime.GOMAXPROCS(0), loadAverage())
 	}
 }
 
@@ -166,4 +174,14 @@ func loadAverage() string {
 		return "?"
 	}
 	return fields[0]
+}
+
+// cpuTime is the user and system CPU time this process has used: a cost
+// per keystroke that does not depend on what else the host is running.
+func cpuTime() time.Duration {
+	var u syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &u); err != nil {
+		return 0
+	}
+	return time.Duration(u.Utime.Nano() + u.Stime.Nano())
 }
