@@ -72,20 +72,20 @@ type estimateJSON struct {
 	Model     string          `json:"model"`
 	Citation  string          `json:"model_citation"`
 	// Lattice step as ΔH_L (298.15 K) and as U, negative.
-	LatticeKJ        jsonNumber  `json:"lattice_kj_per_mol"`
-	LatticeEnergyKJ  jsonNumber  `json:"lattice_energy_kj_per_mol"`
-	ModelUncertainty jsonNumber  `json:"model_uncertainty_kj_per_mol"`
-	ModelBasis       string      `json:"model_uncertainty_basis"`
-	Solved           string      `json:"solved"`
-	FormationKJ      *jsonNumber `json:"formation_kj_per_mol,omitempty"`
-	ValueKJ          jsonNumber  `json:"kj_per_mol"`
-	UncertaintyKJ    jsonNumber  `json:"uncertainty_kj_per_mol"`
-	InputUncertainty jsonNumber  `json:"input_uncertainty_kj_per_mol"`
-	MeasuredKJ       *jsonNumber `json:"measured_kj_per_mol,omitempty"`
-	MeasuredSource   string      `json:"measured_source,omitempty"`
-	Steps            []analysisStepJSON  `json:"steps"`
-	Notes            []string    `json:"notes"`
-	Warnings         []string    `json:"warnings,omitempty"`
+	LatticeKJ        jsonNumber         `json:"lattice_kj_per_mol"`
+	LatticeEnergyKJ  jsonNumber         `json:"lattice_energy_kj_per_mol"`
+	ModelUncertainty jsonNumber         `json:"model_uncertainty_kj_per_mol"`
+	ModelBasis       string             `json:"model_uncertainty_basis"`
+	Solved           string             `json:"solved"`
+	FormationKJ      *jsonNumber        `json:"formation_kj_per_mol,omitempty"`
+	ValueKJ          jsonNumber         `json:"kj_per_mol"`
+	UncertaintyKJ    jsonNumber         `json:"uncertainty_kj_per_mol"`
+	InputUncertainty jsonNumber         `json:"input_uncertainty_kj_per_mol"`
+	MeasuredKJ       *jsonNumber        `json:"measured_kj_per_mol,omitempty"`
+	MeasuredSource   string             `json:"measured_source,omitempty"`
+	Steps            []analysisStepJSON `json:"steps"`
+	Notes            []string           `json:"notes"`
+	Warnings         []string           `json:"warnings,omitempty"`
 }
 
 type analysisStepJSON struct {
@@ -163,4 +163,3 @@ func printEstimate(w io.Writer, e *analysis.Estimate) {
 		}
 	}
 }
-
