@@ -5,7 +5,6 @@ import (
 	"math"
 	"sort"
 	"strconv"
-	"strings"
 	"sync"
 
 	"enthalpath/thermo/crystal"
@@ -85,26 +84,34 @@ func (m *Memo) Madelung(st Structure, cation, anion Part, accuracy float64) (Mad
 }
 
 func memoKey(st Structure, cation, anion Part, accuracy float64) string {
-	var b strings.Builder
-	fmt.Fprintf(&b, "%d|%d|%g|", cation.Ion.Charge, anion.Ion.Charge, accuracy)
+	b := make([]byte, 0, 64)
+	b = strconv.AppendInt(b, int64(cation.Ion.Charge), 10)
+	b = append(b, '|')
+	b = strconv.AppendInt(b, int64(anion.Ion.Charge), 10)
+	b = append(b, '|')
+	b = strconv.AppendFloat(b, accuracy, 'g', -1, 64)
+	b = append(b, '|')
 	if st.Cell != nil {
 		cell := st.Cell
-		fmt.Fprintf(&b, "cell|%s|%d|%v|", cell.Name, cell.FormulaUnits, cell.Lattice)
+		b = fmt.Appendf(b, "cell|%s|%d|%v|", cell.Name, cell.FormulaUnits, cell.Lattice)
 		for _, s := range cell.Sites {
-			fmt.Fprintf(&b, "%s,%g,%v;", s.Species, s.Charge, s.Frac)
+			b = fmt.Appendf(b, "%s,%g,%v;", s.Species, s.Charge, s.Frac)
 		}
-		return b.String()
+		return string(b)
 	}
-	b.WriteString(st.Prototype)
+	b = append(b, st.Prototype...)
 	keys := make([]string, 0, len(st.Params))
 	for k := range st.Params {
 		keys = append(keys, k)
 	}
 	sort.Strings(keys)
 	for _, k := range keys {
-		b.WriteString("|" + k + "=" + strconv.FormatFloat(st.Params[k], 'g', -1, 64))
+		b = append(b, '|')
+		b = append(b, k...)
+		b = append(b, '=')
+		b = strconv.AppendFloat(b, st.Params[k], 'g', -1, 64)
 	}
-	return b.String()
+	return string(b)
 }
 
 func sumStructure(st Structure, cation, anion Part, accuracy float64) (MadelungValue, error) {

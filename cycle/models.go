@@ -144,13 +144,61 @@ func Compare(c *Cycle, cycleValue float64) []ModelResult {
 	return gaps(EvaluateModels(c), cycleValue)
 }
 
+// evaluator evaluates the models of one cycle, sharing the radii and the
+// Madelung constant between them.
+type evaluator struct {
+	c       *Cycle
+	radDone [2]bool
+	rad     [2]ModelInputs
+	radErr  [2]error
+	madDone [2]bool
+	mad     [2]MadelungValue
+	madIn   [2]ModelInputs
+	madErr  [2]error
+}
+
+func index(b bool) int {
+	if b {
+		return 1
+	}
+	return 0
+}
+
+// radii sets the radius fields of in (see radiiUncached), once per kind.
+func (e *evaluator) radii(in *ModelInputs, structureFree bool) error {
+	k := index(structureFree)
+	if !e.radDone[k] {
+		e.radErr[k] = e.radiiUncached(&e.rad[k], structureFree)
+		e.radDone[k] = true
+	}
+	if e.radErr[k] != nil {
+		return e.radErr[k]
+	}
+	r := e.rad[k]
+	in.CationRadius, in.AnionRadius, in.CationCN, in.AnionCN, in.RadiusFrom = r.CationRadius, r.AnionRadius, r.CationCN, r.AnionCN, r.RadiusFrom
+	return nil
+}
+
+// madelung sets the Madelung fields of in (see madelungUncached), once per kind.
+func (e *evaluator) madelung(in *ModelInputs, actual bool) (MadelungValue, error) {
+	k := index(actual)
+	if !e.madDone[k] {
+		e.mad[k], e.madErr[k] = e.madelungUncached(&e.madIn[k], actual)
+		e.madDone[k] = true
+	}
+	m := e.madIn[k]
+	in.Madelung, in.MadelungFrom, in.Structure = m.Madelung, m.MadelungFrom, m.Structure
+	return e.mad[k], e.madErr[k]
+}
+
 // EvaluateModels returns every lattice model's value for c, in ModelNames
 // order, without gaps. A model that cannot be evaluated has Err set (and the
 // others are still returned). The Ewald sums go through c's Memo.
 func EvaluateModels(c *Cycle) []ModelResult {
 	out := make([]ModelResult, 0, 5)
+	e := &evaluator{c: c}
 	for _, name := range ModelNames() {
-		m, err := EvaluateModel(c, name)
+		m, err := e.evaluate(name)
 		if err != nil {
 			m = ModelResult{Model: name, Err: err}
 		}
@@ -165,6 +213,11 @@ func VerdictThresholds() string { return lattice.VerdictBasis }
 
 // EvaluateModel returns one model's lattice value for c (no gap).
 func EvaluateModel(c *Cycle, name string) (ModelResult, error) {
+	return (&evaluator{c: c}).evaluate(name)
+}
+
+func (e *evaluator) evaluate(name string) (ModelResult, error) {
+	c := e.c
 	m := ModelResult{Model: name, DefaultUncertainty: true, Gap: math.NaN(), GapPercent: math.NaN()}
 	if c.Cation.Count <= 0 || c.Anion.Count <= 0 {
 		return m, &ModelError{Model: name, Reason: "the cycle has no ions"}
@@ -178,25 +231,25 @@ func EvaluateModel(c *Cycle, name string) (ModelResult, error) {
 	case ModelBornLande:
 		m.Title = "Born–Landé"
 		m.Citation = "M. Born and A. Landé, Verh. Dtsch. Phys. Ges. 20, 210 (1918)"
-		u, err = c.bornModel(&m.Inputs, false, false)
+		u, err = e.bornModel(&m.Inputs, false, false)
 	case ModelBornMayer:
 		m.Title = "Born–Mayer"
 		m.Citation = "M. Born and J. E. Mayer, Z. Phys. 75, 1 (1932)"
-		u, err = c.bornModel(&m.Inputs, true, false)
+		u, err = e.bornModel(&m.Inputs, true, false)
 	case ModelEwald:
 		m.Title = "Born–Mayer with the Ewald Madelung constant of the structure"
 		m.Citation = "P. P. Ewald, Ann. Phys. 369, 253 (1921); Born–Mayer repulsion"
-		u, err = c.bornModel(&m.Inputs, true, true)
+		u, err = e.bornModel(&m.Inputs, true, true)
 	case ModelKapustinskii:
 		m.Title = "Kapustinskii (1956)"
 		m.Citation = "A. F. Kapustinskii, Q. Rev. Chem. Soc. 10, 283 (1956)"
 		rel = ModelUncertaintyKapustinskii
-		u, err = c.kapustinskii(&m.Inputs)
+		u, err = e.kapustinskii(&m.Inputs)
 	case ModelVolume:
 		m.Title = "Jenkins–Glasser volume-based"
 		m.Citation = "H. D. B. Jenkins, H. K. Roobottom, J. Passmore, L. Glasser, Inorg. Chem. 38, 3609 (1999)"
 		rel = ModelUncertaintyVolume
-		u, err = c.volumeModel(&m.Inputs)
+		u, err = e.volumeModel(&m.Inputs)
 	default:
 		return m, &ModelError{Model: name, Reason: "not a lattice model; use one of " + modelList()}
 	}
@@ -315,7 +368,8 @@ func (c *Cycle) coordination(structureFree bool) (int, int) {
 	return cc, ac
 }
 
-func (c *Cycle) radii(in *ModelInputs, structureFree bool) error {
+func (e *evaluator) radiiUncached(in *ModelInputs, structureFree bool) error {
+	c := e.c
 	cc, ac := c.coordination(structureFree)
 	rc, ucc, fc, err := c.radius(c.Cation, cc)
 	if err != nil {
@@ -330,15 +384,17 @@ func (c *Cycle) radii(in *ModelInputs, structureFree bool) error {
 	return nil
 }
 
-func (c *Cycle) kapustinskii(in *ModelInputs) (float64, error) {
-	if err := c.radii(in, true); err != nil {
+func (e *evaluator) kapustinskii(in *ModelInputs) (float64, error) {
+	c := e.c
+	if err := e.radii(in, true); err != nil {
 		return 0, err
 	}
 	in.Nu = c.Cation.Count + c.Anion.Count
 	return lattice.Kapustinskii(in.Nu, c.Cation.Ion.Charge, c.Anion.Ion.Charge, in.CationRadius, in.AnionRadius)
 }
 
-func (c *Cycle) volumeModel(in *ModelInputs) (float64, error) {
+func (e *evaluator) volumeModel(in *ModelInputs) (float64, error) {
+	c := e.c
 	vm, from, err := c.molarVolume()
 	if err != nil {
 		return 0, err
@@ -382,12 +438,13 @@ func (c *Cycle) molarVolume() (float64, string, error) {
 // bornModel evaluates Born–Landé (mayer false) or Born–Mayer (mayer true);
 // with actual true, the Madelung constant and d₀ are the chosen structure's
 // own (the ewald model).
-func (c *Cycle) bornModel(in *ModelInputs, mayer, actual bool) (float64, error) {
-	mad, err := c.madelung(in, actual)
+func (e *evaluator) bornModel(in *ModelInputs, mayer, actual bool) (float64, error) {
+	c := e.c
+	mad, err := e.madelung(in, actual)
 	if err != nil {
 		return 0, err
 	}
-	if err := c.distance(in, actual, mad.NearestDistance); err != nil {
+	if err := e.distance(in, actual, mad.NearestDistance); err != nil {
 		return 0, err
 	}
 	pair := lattice.IonPair{Madelung: in.Madelung, ZCation: c.Cation.Ion.Charge, ZAnion: c.Anion.Ion.Charge, R0: in.D0}
@@ -435,7 +492,8 @@ func (c *Cycle) bornExponent() (float64, error) {
 // distance sets in.D0 by the settings: for the textbook models (actual
 // false) DistanceAuto means the radii sum; for the ewald model the cell's
 // nearest cation–anion distance.
-func (c *Cycle) distance(in *ModelInputs, actual bool, geometric float64) error {
+func (e *evaluator) distance(in *ModelInputs, actual bool, geometric float64) error {
+	c := e.c
 	src := c.Settings.Distance
 	if src == DistanceAuto {
 		src = DistanceRadii
@@ -451,7 +509,7 @@ func (c *Cycle) distance(in *ModelInputs, actual bool, geometric float64) error 
 		in.D0, in.D0From = c.Settings.D0, "set by the user"
 		return nil
 	case DistanceRadii:
-		err := c.radii(in, false)
+		err := e.radii(in, false)
 		if err == nil {
 			in.D0 = in.CationRadius + in.AnionRadius
 			in.D0From = "sum of radii (" + in.RadiusFrom + ")"
@@ -483,7 +541,8 @@ func (c *Cycle) hasMeasuredCell() bool {
 // structure with the compound's ions; with no structure (textbook models
 // only) the prototype the radius-ratio rule suggests, with its default
 // parameters.
-func (c *Cycle) madelung(in *ModelInputs, actual bool) (MadelungValue, error) {
+func (e *evaluator) madelungUncached(in *ModelInputs, actual bool) (MadelungValue, error) {
+	c := e.c
 	st := c.Settings.Structure
 	guessed := false
 	if st.Empty() {
@@ -491,7 +550,7 @@ func (c *Cycle) madelung(in *ModelInputs, actual bool) (MadelungValue, error) {
 			return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: "no structure for " + c.Formula +
 				"; choose a prototype or a CIF file with --structure"}
 		}
-		p, why, err := c.ratioRule()
+		p, why, err := e.ratioRule()
 		if err != nil {
 			return MadelungValue{}, err
 		}
@@ -542,11 +601,12 @@ func formatParams(p map[string]float64) string {
 // ratioRule picks a prototype from the stoichiometry and the radius ratio
 // r₊/r₋ (CN VI radii): the radius-ratio rule of Pauling (common practice,
 // no source for the exact cut-offs 0.414 and 0.732).
-func (c *Cycle) ratioRule() (string, string, error) {
+func (e *evaluator) ratioRule() (string, string, error) {
+	c := e.c
 	a, b := c.Cation.Count, c.Anion.Count
 	var in ModelInputs
 	ratio := math.NaN()
-	if err := c.radii(&in, true); err == nil {
+	if err := e.radii(&in, true); err == nil {
 		ratio = in.CationRadius / in.AnionRadius
 	}
 	pick := ""
