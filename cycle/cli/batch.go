@@ -1,4 +1,156 @@
 package cli
 
-// runBatch is replaced by the real command when its engine lands.
-func runBatch(env Env, args []string) error { return errNotBuilt }
+import (
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+	"time"
+
+	"github.com/mattn/go-isatty"
+
+	"enthalpath/cycle/analysis"
+)
+
+const batchSynopsis = "batch FILE.csv [--out FILE] [--json]"
+
+func runBatch(env Env, args []string) error {
+	fs := newFlagSet("batch", batchSynopsis, env.Stderr)
+	var out string
+	var asJSON bool
+	fs.StringVar(&out, "out", "", "write the results to `FILE` (default standard output); written to a temporary file and renamed when complete")
+	fs.BoolVar(&asJSON, "json", false, "write a JSON array instead of CSV")
+	fs.Usage = func() {
+		fmt.Fprintf(env.Stderr, "usage: enthalpath %s\n\nThe input CSV has a header row; columns (only formula is required): %s, and set:KEY for a step value (e.g. set:attachment-2 with 744±20). FILE - reads standard input.\n\nflags:\n",
+			batchSynopsis, strings.Join(analysis.BatchColumns(), ", "))
+		fs.PrintDefaults()
+	}
+	pos, a, err := analysisSetup(env, fs, args)
+	if err != nil || a == nil {
+		return err
+	}
+	if len(pos) != 1 {
+		return Usagef("give one input file: usage: enthalpath %s", batchSynopsis)
+	}
+	name := pos[0]
+	var in io.Reader = env.Stdin
+	var size int64
+	if name != "-" {
+		f, err := os.Open(name)
+		if err != nil {
+			return Usagef("batch input: %v", err)
+		}
+		defer f.Close()
+		if st, err := f.Stat(); err == nil {
+			size = st.Size()
+		}
+		in = f
+	}
+	counted := &countingReader{r: in}
+	w := env.Stdout
+	var tmp *os.File
+	if out != "" {
+		tmp, err = os.CreateTemp(filepath.Dir(out), "."+filepath.Base(out)+".*")
+		if err != nil {
+			return Usagef("--out %s: %v", out, err)
+		}
+		defer os.Remove(tmp.Name())
+		w = tmp
+	}
+	bar := newProgressBar(env.Stderr, size, counted)
+	sum, err := a.Batch(counted, w, analysis.BatchOptions{JSON: asJSON, Progress: bar.update})
+	bar.finish()
+	if err != nil {
+		if tmp != nil {
+			tmp.Close()
+		}
+		var ce *analysis.CSVError
+		if errors.As(err, &ce) {
+			return Usagef("%s: %v", name, err)
+		}
+		return err
+	}
+	if tmp != nil {
+		if err := tmp.Sync(); err != nil {
+			tmp.Close()
+			return err
+		}
+		if err := tmp.Close(); err != nil {
+			return err
+		}
+		if err := os.Rename(tmp.Name(), out); err != nil {
+			return err
+		}
+	}
+	if sum.Failed > 0 {
+		fmt.Fprintf(env.Stderr, "enthalpath batch: %d of %d rows could not be estimated (see their error column)\n", sum.Failed, sum.Rows)
+	}
+	return nil
+}
+
+type countingReader struct {
+	r io.Reader
+	n int64
+}
+
+func (c *countingReader) Read(p []byte) (int, error) {
+	n, err := c.r.Read(p)
+	c.n += int64(n)
+	return n, err
+}
+
+// progressBar draws a bar on stderr once the batch has run for more than a
+// second, and only when stderr is a terminal; otherwise it does nothing.
+type progressBar struct {
+	w       io.Writer
+	on      bool
+	start   time.Time
+	last    time.Time
+	size    int64
+	read    *countingReader
+	rows    int
+	visible bool
+}
+
+func newProgressBar(w io.Writer, size int64, read *countingReader) *progressBar {
+	b := &progressBar{w: w, size: size, read: read, start: time.Now()}
+	if f, ok := w.(*os.File); ok {
+		b.on = isatty.IsTerminal(f.Fd()) || isatty.IsCygwinTerminal(f.Fd())
+	}
+	return b
+}
+
+func (b *progressBar) update(rows int) {
+	b.rows = rows
+	if !b.on || rows%64 != 0 {
+		return
+	}
+	now := time.Now()
+	if now.Sub(b.start) < time.Second || now.Sub(b.last) < 100*time.Millisecond {
+		return
+	}
+	b.last = now
+	b.draw()
+}
+
+func (b *progressBar) draw() {
+	const width = 30
+	if b.size > 0 {
+		frac := float64(b.read.n) / float64(b.size)
+		frac = min(max(frac, 0), 1)
+		n := int(frac * width)
+		fmt.Fprintf(b.w, "\r[%s%s] %3.0f %%  %d rows", strings.Repeat("#", n), strings.Repeat(".", width-n), 100*frac, b.rows)
+	} else {
+		fmt.Fprintf(b.w, "\r%d rows", b.rows)
+	}
+	b.visible = true
+}
+
+func (b *progressBar) finish() {
+	if b.visible {
+		b.draw()
+		fmt.Fprintln(b.w)
+	}
+}
