@@ -469,7 +469,49 @@ func withoutPrintable(b key.Binding) (key.Binding, bool) {
 
 func (m *Model) fullHelpView() string {
 	st := m.ctx.Styles
-	title := st.Title.Render("Keys on the " + m.screens[m.active].Title() + " screen, then everywhere")
-	note := st.Muted.Render("On the Shelf and while a value is being typed, letters go to the text; use tab, ctrl keys and esc.")
-	return title + "\n\n" + m.help.FullHelpView(m.FullHelp()) + "\n\n" + note + "\n" + st.Muted.Render("? or esc closes this list.")
+	inner := max(20, m.width-6) // the box's border and padding take 4, the margin 2
+	wrap := st.Muted.Width(inner)
+	title := st.Title.Render("Keys on the "+m.screens[m.active].Title()+" screen, then everywhere") + st.Muted.Render(" (esc closes)")
+	note := wrap.Render("While typing (Shelf, values, file names) letters are text: use tab, ctrl keys, f1, esc.")
+	return title + "\n" + m.keyColumns(m.FullHelp(), inner) + "\n" + note
+}
+
+// keyColumns lays the help groups out as columns, starting a new band of
+// columns below when the next would not fit in width, so every key shows.
+func (m *Model) keyColumns(groups [][]key.Binding, width int) string {
+	st := m.ctx.Styles
+	var bands []string
+	var band []string
+	used := 0
+	for _, g := range groups {
+		kw := 0
+		for _, b := range g {
+			if b.Enabled() {
+				kw = max(kw, lipgloss.Width(b.Help().Key))
+			}
+		}
+		var lines []string
+		for _, b := range g {
+			if !b.Enabled() {
+				continue
+			}
+			h := b.Help()
+			lines = append(lines, st.HelpKey.Render(h.Key+strings.Repeat(" ", kw-lipgloss.Width(h.Key)))+" "+st.HelpDesc.Render(h.Desc))
+		}
+		if len(lines) == 0 {
+			continue
+		}
+		col := strings.Join(lines, "\n")
+		w := lipgloss.Width(col) + 3
+		if used > 0 && used+w > width {
+			bands = append(bands, lipgloss.JoinHorizontal(lipgloss.Top, band...))
+			band, used = nil, 0
+		}
+		band = append(band, lipgloss.NewStyle().PaddingRight(3).Render(col))
+		used += w
+	}
+	if len(band) > 0 {
+		bands = append(bands, lipgloss.JoinHorizontal(lipgloss.Top, band...))
+	}
+	return strings.Join(bands, "\n")
 }

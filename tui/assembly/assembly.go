@@ -454,6 +454,9 @@ func multNote(v float64) string {
 	if v == 1 {
 		return ""
 	}
+	if v == 0.5 {
+		return "   (×½ per formula unit)"
+	}
 	return fmt.Sprintf("   (×%g per formula unit)", v)
 }
 
