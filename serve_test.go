@@ -158,6 +158,36 @@ func TestServeEndToEnd(t *testing.T) {
 	}
 	see("unsaved")
 
+	// Names typed into the save prompt cannot leave the user's folder.
+	outside := t.TempDir()
+	folder := filepath.Join(dir, "state", "users", serve.UserFolderName(signer.PublicKey()))
+	if err := os.Symlink(outside, filepath.Join(folder, "door")); err != nil {
+		t.Fatal(err)
+	}
+	for _, name := range []string{"../escape", "../../../escape", filepath.Join(outside, "escape"), "~/escape", "door/escape"} {
+		mark := len(out.String())
+		for _, keys := range []string{"\x13", "\x15", name, "\r"} { // ctrl+s, ctrl+u (clear), the name, enter
+			io.WriteString(stdin, keys)
+			time.Sleep(150 * time.Millisecond)
+		}
+		for deadline := time.Now().Add(10 * time.Second); ; time.Sleep(20 * time.Millisecond) {
+			if strings.Contains(ansi.Strip(out.String()[mark:]), "refused") {
+				break
+			}
+			if time.Now().After(deadline) {
+				t.Fatalf("saving as %q was not refused; screen:\n%s", name, ansi.Strip(out.String()[mark:]))
+			}
+		}
+		io.WriteString(stdin, "\x1b") // esc closes the prompt
+		time.Sleep(150 * time.Millisecond)
+	}
+	if entries, _ := os.ReadDir(outside); len(entries) != 0 {
+		t.Errorf("a file was written outside the user's folder: %v", entries)
+	}
+	if matches, _ := filepath.Glob(filepath.Join(dir, "*escape*")); len(matches) != 0 {
+		t.Errorf("a file was written outside the user's folder: %v", matches)
+	}
+
 	start := time.Now()
 	if err := syscall.Kill(os.Getpid(), syscall.SIGTERM); err != nil {
 		t.Fatal(err)

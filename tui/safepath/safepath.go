@@ -131,7 +131,7 @@ func checkName(name string) error {
 		}
 	}
 	if filepath.IsAbs(name) || strings.HasPrefix(name, "/") || strings.HasPrefix(name, `\`) {
-		return refuse(ErrAbsolute, "type a name relative to your folder, such as cycles/NaCl.cycle")
+		return refuse(ErrAbsolute, "type a name relative to your folder, such as cycles/NaCl")
 	}
 	if strings.HasPrefix(name, "~") {
 		return refuse(ErrHome, "names are already relative to your folder; drop the ~")
