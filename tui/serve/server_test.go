@@ -683,3 +683,24 @@ func TestSessionsLeaveNothingBehind(t *testing.T) {
 		t.Errorf("%d goroutines after 10 sessions ended, %d before:\n%s", n, baseline, buf[:runtime.Stack(buf, true)])
 	}
 }
+
+// TestOldRecoveryFileNotAnnounced: a session that had nothing unsaved does
+// not claim an earlier session's recovery file as its own.
+func TestOldRecoveryFileNotAnnounced(t *testing.T) {
+	ts := startServer(t, func(c *Config) { c.IdleTimeout = 300 * time.Millisecond })
+	folder := filepath.Join(ts.state, "users", UserFolderName(ts.key.PublicKey()))
+	if err := os.MkdirAll(folder, 0o700); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(folder, "recovered.cycle"), []byte("earlier"), 0o600); err != nil {
+		t.Fatal(err)
+	}
+	tm := ts.mustTerm(t, ts.key, termOptions{})
+	tm.mustSee("enthalpath probe screen")
+	if code, err := tm.exit(5 * time.Second); err != nil || code != ExitIdle {
+		t.Fatalf("exit %d, %v; want %d", code, err, ExitIdle)
+	}
+	if msg := tm.stderr.String(); strings.Contains(msg, "unsaved work") {
+		t.Errorf("closing line %q announces the earlier file", msg)
+	}
+}

@@ -150,6 +150,9 @@ func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 	}
 	recovery, release := s.claimRecovery(folder)
 	defer release()
+	// A recovery file left by an earlier session must not be announced as
+	// this one's: remember what was there.
+	before, _ := os.Stat(recovery)
 
 	var dropped atomic.Int64
 	gate := newInputGate(sess, s.cfg.MaxBurst, func(n int) {
@@ -223,7 +226,7 @@ func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 		log.Warn("input dropped in this session", "bytes", n)
 	}
 	saved := ""
-	if _, err := os.Stat(recovery); err == nil {
+	if recoveryWritten(recovery, before) {
 		saved = " Your unsaved work is in " + filepath.Base(recovery) + "."
 	}
 	reason, exit, byServer := ls.stopped()
@@ -245,6 +248,16 @@ func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 		return ExitFailure, "program error"
 	}
 	return ExitOK, "quit"
+}
+
+// recoveryWritten reports whether the recovery file exists and differs
+// from what was there at the start (before is nil if nothing was).
+func recoveryWritten(path string, before os.FileInfo) bool {
+	now, err := os.Stat(path)
+	if err != nil {
+		return false
+	}
+	return before == nil || !now.ModTime().Equal(before.ModTime()) || now.Size() != before.Size() || !os.SameFile(now, before)
 }
 
 // buildModel calls the factory with panics contained.
