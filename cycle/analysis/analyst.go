@@ -53,7 +53,7 @@ type builtEntry struct {
 }
 
 // maxBuilt bounds the remembered cycles; when full the memory is emptied.
-const maxBuilt = 4096
+const maxBuilt = 1024
 
 // build returns a fresh copy of the cycle of formula with the given ions,
 // built once per Analyst: a data lookup of a formula the data do not have

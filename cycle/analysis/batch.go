@@ -8,8 +8,10 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"runtime"
 	"strconv"
 	"strings"
+	"sync"
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
@@ -215,6 +217,11 @@ func (l *lineLimiter) Read(p []byte) (int, error) {
 	return n, err
 }
 
+type batchJob struct {
+	row BatchRow
+	out chan BatchResult
+}
+
 // BatchResult is one output row.
 type BatchResult struct {
 	Line    int    `json:"line"`
@@ -319,16 +326,46 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 		}
 		return bw.Flush()
 	}
-	for {
-		row, err := br.Next()
-		if err == io.EOF {
-			break
+	// Rows are estimated by workers and written in input order: a bounded
+	// queue of per-row result channels keeps at most cap(queue) rows in
+	// flight, so memory does not grow with the file.
+	workers := runtime.GOMAXPROCS(0)
+	queue := make(chan chan BatchResult, 4*workers)
+	jobs := make(chan batchJob, 4*workers)
+	var wg sync.WaitGroup
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for j := range jobs {
+				j.out <- a.Row(j.row)
+			}
+		}()
+	}
+	var readErr error
+	go func() {
+		defer close(queue)
+		defer close(jobs)
+		for {
+			row, err := br.Next()
+			if err == io.EOF {
+				return
+			}
+			if err != nil {
+				readErr = err
+				return
+			}
+			out := make(chan BatchResult, 1)
+			queue <- out
+			jobs <- batchJob{row, out}
 		}
-		if err != nil {
-			finish()
-			return sum, err
+	}()
+	var writeErr error
+	for out := range queue {
+		res := <-out
+		if writeErr != nil {
+			continue // drain
 		}
-		res := a.Row(row)
 		sum.Rows++
 		if res.Error != "" {
 			sum.Failed++
@@ -336,7 +373,8 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 		if opt.JSON {
 			b, err := json.Marshal(res)
 			if err != nil {
-				return sum, err
+				writeErr = err
+				continue
 			}
 			if sum.Rows > 1 {
 				bw.WriteString(",")
@@ -346,12 +384,21 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 		} else {
 			res.fill(rec)
 			if err := cw.Write(rec); err != nil {
-				return sum, err
+				writeErr = err
+				continue
 			}
 		}
 		if opt.Progress != nil {
 			opt.Progress(sum.Rows)
 		}
+	}
+	wg.Wait()
+	if writeErr != nil {
+		return sum, writeErr
+	}
+	if readErr != nil {
+		finish()
+		return sum, readErr
 	}
 	return sum, finish()
 }
