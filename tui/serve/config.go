@@ -29,6 +29,7 @@ const (
 	DefaultMaxInputLen   = 256
 	DefaultMaxBurst      = 4096
 	DefaultShutdownGrace = 7 * time.Second
+	DefaultLoginTimeout  = 20 * time.Second
 )
 
 // SessionSetup is what a session's model is built from.
@@ -72,8 +73,11 @@ type Config struct {
 	// and so on, so concurrent sessions never write over each other.
 	RecoveryFile string
 
-	MaxSessions   int
-	IdleTimeout   time.Duration
+	MaxSessions int
+	IdleTimeout time.Duration
+	// LoginTimeout closes a connection that has not authenticated within
+	// it, so idle or trickling handshakes cannot hold connection places.
+	LoginTimeout  time.Duration
 	MaxInputLen   int
 	MaxBurst      int
 	ShutdownGrace time.Duration
@@ -111,6 +115,9 @@ func (c *Config) withDefaults() (Config, error) {
 	if out.MaxBurst == 0 {
 		out.MaxBurst = DefaultMaxBurst
 	}
+	if out.LoginTimeout == 0 {
+		out.LoginTimeout = DefaultLoginTimeout
+	}
 	if out.ShutdownGrace == 0 {
 		out.ShutdownGrace = DefaultShutdownGrace
 	}
@@ -122,8 +129,8 @@ func (c *Config) withDefaults() (Config, error) {
 		return out, fmt.Errorf("%w: MaxSessions %d must be positive", ErrConfig, out.MaxSessions)
 	case out.IdleTimeout < 0:
 		return out, fmt.Errorf("%w: IdleTimeout %v must be positive", ErrConfig, out.IdleTimeout)
-	case out.MaxInputLen < 0 || out.MaxBurst < 0 || out.ShutdownGrace < 0:
-		return out, fmt.Errorf("%w: MaxInputLen, MaxBurst and ShutdownGrace must be positive", ErrConfig)
+	case out.MaxInputLen < 0 || out.MaxBurst < 0 || out.ShutdownGrace < 0 || out.LoginTimeout < 0:
+		return out, fmt.Errorf("%w: MaxInputLen, MaxBurst, LoginTimeout and ShutdownGrace must be positive", ErrConfig)
 	case out.HostKeyPath == "":
 		return out, fmt.Errorf("%w: HostKeyPath is empty", ErrConfig)
 	case out.StateDir == "":

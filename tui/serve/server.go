@@ -86,10 +86,17 @@ func New(cfg Config) (*Server, error) {
 	s.ssh.ConnectionFailedCallback = func(conn net.Conn, err error) {
 		s.log.Info("connection refused during handshake", "remote", conn.RemoteAddr().String(), "reason", err.Error())
 	}
-	s.ssh.ServerConfigCallback = func(ssh.Context) *gossh.ServerConfig {
+	s.ssh.ServerConfigCallback = func(ctx ssh.Context) *gossh.ServerConfig {
 		return &gossh.ServerConfig{
-			MaxAuthTries:    6,
-			AuthLogCallback: s.onAuthAttempt,
+			MaxAuthTries: 6,
+			AuthLogCallback: func(conn gossh.ConnMetadata, method string, err error) {
+				if err == nil {
+					if cc, ok := ctx.Value(connKey{}).(*countedConn); ok {
+						cc.authenticated.Store(true)
+					}
+				}
+				s.onAuthAttempt(conn, method, err)
+			},
 		}
 	}
 	return s, nil
@@ -175,7 +182,7 @@ func (s *Server) Shutdown(ctx context.Context) error {
 }
 
 // onConnect logs a new TCP connection and bounds their number.
-func (s *Server) onConnect(_ ssh.Context, conn net.Conn) net.Conn {
+func (s *Server) onConnect(ctx ssh.Context, conn net.Conn) net.Conn {
 	remote := conn.RemoteAddr().String()
 	if n := s.conns.Add(1); n > s.maxConns {
 		s.conns.Add(-1)
@@ -183,8 +190,19 @@ func (s *Server) onConnect(_ ssh.Context, conn net.Conn) net.Conn {
 		return nil
 	}
 	s.log.Info("connection", "remote", remote)
-	return &countedConn{Conn: conn, done: func() { s.conns.Add(-1) }}
+	cc := &countedConn{Conn: conn, done: func() { s.conns.Add(-1) }}
+	ctx.SetValue(connKey{}, cc)
+	time.AfterFunc(s.cfg.LoginTimeout, func() {
+		if !cc.authenticated.Load() {
+			s.log.Info("connection closed: no login in time", "remote", remote, "timeout", s.cfg.LoginTimeout.String())
+			cc.Close()
+		}
+	})
+	return cc
 }
+
+// connKey finds a connection's countedConn in its context.
+type connKey struct{}
 
 // onAuthAttempt logs every authentication outcome except the initial
 // "none" probe every client makes and refused keys (checkKey logs those,
@@ -217,11 +235,13 @@ func (s *Server) checkKey(ctx ssh.Context, key ssh.PublicKey) bool {
 	return false
 }
 
-// countedConn calls done once when closed.
+// countedConn calls done once when closed, and knows whether its client
+// has logged in.
 type countedConn struct {
 	net.Conn
-	once sync.Once
-	done func()
+	once          sync.Once
+	done          func()
+	authenticated atomic.Bool
 }
 
 func (c *countedConn) Close() error {

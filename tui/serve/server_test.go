@@ -704,3 +704,32 @@ func TestOldRecoveryFileNotAnnounced(t *testing.T) {
 		t.Errorf("closing line %q announces the earlier file", msg)
 	}
 }
+
+// TestSilentConnectionClosed: a TCP connection that never logs in is closed
+// after the login timeout, and a flood of them cannot hold every place.
+func TestSilentConnectionClosed(t *testing.T) {
+	ts := startServer(t, func(c *Config) { c.LoginTimeout = 300 * time.Millisecond; c.MaxSessions = 1 })
+	var silent []net.Conn
+	for i := 0; i < 40; i++ { // more than the 4×1+16 connection places
+		conn, err := net.Dial("tcp", ts.addr)
+		if err != nil {
+			t.Fatal(err)
+		}
+		defer conn.Close()
+		silent = append(silent, conn)
+	}
+	for _, conn := range silent {
+		conn.SetReadDeadline(time.Now().Add(10 * time.Second))
+		buf := make([]byte, 256)
+		for {
+			if _, err := conn.Read(buf); err != nil {
+				if ne, ok := err.(net.Error); ok && ne.Timeout() {
+					t.Fatal("a silent connection stayed open 10 s")
+				}
+				break
+			}
+		}
+	}
+	tm := ts.mustTerm(t, ts.key, termOptions{})
+	tm.mustSee("enthalpath probe screen")
+}
