@@ -39,21 +39,31 @@ func (c *Crystal) periodicDistance(df Vec3, recip [3]Vec3, skipZero bool) float6
 			best = math.Min(best, a.Norm())
 		}
 	}
-	// Every image closer than best has |df_k + n_k| ≤ best·|b_k|.
-	var lo, hi [3]int
+	// Every image closer than best has |df_k + n_k| ≤ best·|b_k|. The axis
+	// with the widest range is not searched: along it |d|² is a convex
+	// quadratic, so only the two integers around its minimum can win.
+	long := 0
+	var h [3]float64
 	for k := 0; k < 3; k++ {
-		h := best * recip[k].Norm()
-		lo[k] = int(math.Ceil(-df[k] - h))
-		hi[k] = int(math.Floor(-df[k] + h))
+		h[k] = best * recip[k].Norm()
+		if h[k] > h[long] {
+			long = k
+		}
 	}
-	for n0 := lo[0]; n0 <= hi[0]; n0++ {
-		for n1 := lo[1]; n1 <= hi[1]; n1++ {
-			for n2 := lo[2]; n2 <= hi[2]; n2++ {
-				f := Vec3{df[0] + float64(n0), df[1] + float64(n1), df[2] + float64(n2)}
-				if skipZero && n0 == 0 && n1 == 0 && n2 == 0 && df == (Vec3{}) {
+	p, q := (long+1)%3, (long+2)%3
+	aL := c.Lattice[long]
+	aL2 := aL.Dot(aL)
+	for np := int(math.Ceil(-df[p] - h[p])); np <= int(math.Floor(-df[p]+h[p])); np++ {
+		for nq := int(math.Ceil(-df[q] - h[q])); nq <= int(math.Floor(-df[q]+h[q])); nq++ {
+			var f Vec3
+			f[p], f[q], f[long] = df[p]+float64(np), df[q]+float64(nq), df[long]
+			v := c.Cartesian(f)
+			t := math.Floor(-v.Dot(aL) / aL2)
+			for _, m := range [2]float64{t, t + 1} {
+				if skipZero && np == 0 && nq == 0 && df == (Vec3{}) && m == 0 {
 					continue
 				}
-				if d := c.Cartesian(f).Norm(); d < best {
+				if d := v.Add(aL.Scale(m)).Norm(); d < best {
 					best = d
 				}
 			}

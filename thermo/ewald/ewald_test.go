@@ -394,3 +394,37 @@ func TestErrors(t *testing.T) {
 		t.Errorf("value returned beside AccuracyError: A = %.9f", r.MadelungConstant)
 	}
 }
+
+// TestTooLarge: a cell whose sum would not finish (250,000 ions) is refused
+// with ErrTooLarge instead of running for ever; a needle-shaped cell, whose
+// images crowd along one axis, still completes.
+func TestTooLarge(t *testing.T) {
+	c, err := crystal.Build("caesium-chloride", nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	big, err := c.Supercell(50, 50, 50)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := Sum(big, Options{}); !errors.Is(err, ErrTooLarge) {
+		t.Errorf("250,000 ions: got %v, want ErrTooLarge", err)
+	}
+	needle := &crystal.Crystal{
+		Name:    "needle",
+		Lattice: [3]crystal.Vec3{{0.01, 0, 0}, {0, 1e4, 0}, {0, 0, 1e4}},
+		Sites: []crystal.Site{
+			{Species: "M", Charge: 1, Frac: crystal.Vec3{0, 0, 0}},
+			{Species: "X", Charge: -1, Frac: crystal.Vec3{0.5, 0.5, 0.5}},
+		},
+		FormulaUnits: 1,
+	}
+	r, err := Sum(needle, Options{Accuracy: 1e-6})
+	var ae *AccuracyError
+	if err != nil && !errors.Is(err, ErrTooLarge) && !errors.As(err, &ae) {
+		t.Errorf("needle: %v", err)
+	}
+	if err == nil && math.Abs(r.NearestDistance-math.Sqrt(0.005*0.005+2*5e3*5e3)) > 1e-6 {
+		t.Errorf("needle: nearest distance %g", r.NearestDistance)
+	}
+}

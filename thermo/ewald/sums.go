@@ -58,22 +58,43 @@ func forChunks(n int, f func(c int)) {
 	wg.Wait()
 }
 
-// imageSum holds what the real-space sum needs for one pair of sites.
+// imageSum holds what the real-space sum needs for one pair of sites. Its
+// axes are the lattice axes reordered so that the widest index range is
+// the innermost loop, solved as a quadratic.
 type imageSum struct {
 	alpha, rc2 float64
+	perm       [3]int // perm[i] is the lattice axis of loop i
 	a          [3]crystal.Vec3
-	h          [3]float64 // rc·|bₖ|: half-width of the index range per axis
+	h          [3]float64 // rc·|bₖ|: half-width of the index range per loop
 	a2sq       float64
 	box        bool // few images per pair: test every index in the box
 }
 
 func newImageSum(s *system, alpha, rc float64) *imageSum {
-	im := &imageSum{alpha: alpha, rc2: rc * rc, a: s.lat, a2sq: s.lat[2].Dot(s.lat[2])}
+	im := &imageSum{alpha: alpha, rc2: rc * rc, perm: [3]int{0, 1, 2}}
+	var h [3]float64
 	for k := 0; k < 3; k++ {
-		im.h[k] = rc * s.recip[k].Norm()
+		h[k] = rc * s.recip[k].Norm()
 	}
+	// Sort the three axes by h, widest last.
+	for i := 0; i < 3; i++ {
+		for j := i + 1; j < 3; j++ {
+			if h[im.perm[j]] < h[im.perm[i]] {
+				im.perm[i], im.perm[j] = im.perm[j], im.perm[i]
+			}
+		}
+	}
+	for i, k := range im.perm {
+		im.a[i], im.h[i] = s.lat[k], h[k]
+	}
+	im.a2sq = im.a[2].Dot(im.a[2])
 	im.box = im.h[0] < 1 && im.h[1] < 1 && im.h[2] < 1
 	return im
+}
+
+// boxSize bounds the number of images examined per pair.
+func (im *imageSum) boxSize() float64 {
+	return (2*im.h[0] + 2) * (2*im.h[1] + 2) * (2*im.h[2] + 2)
 }
 
 // sum visits every d = base + Σ mₖaₖ with |d| < rc, where base is the
@@ -81,8 +102,9 @@ func newImageSum(s *system, alpha, rc float64) *imageSum {
 // Σ erfc(α|d|)/|d|, the number of terms and the shortest |d|. A |d| below
 // coincident is skipped; unless self (a site and its own images) it also
 // reports an overlap.
-func (im *imageSum) sum(df, base crystal.Vec3, self bool) (sum float64, count int, shortest float64, overlap bool) {
+func (im *imageSum) sum(dfLattice, base crystal.Vec3, self bool) (sum float64, count int, shortest float64, overlap bool) {
 	shortest = math.Inf(1)
+	df := crystal.Vec3{dfLattice[im.perm[0]], dfLattice[im.perm[1]], dfLattice[im.perm[2]]}
 	a0, a1, a2 := im.a[0], im.a[1], im.a[2]
 	lo0, hi0 := int(math.Ceil(-df[0]-im.h[0])), int(math.Floor(-df[0]+im.h[0]))
 	lo1, hi1 := int(math.Ceil(-df[1]-im.h[1])), int(math.Floor(-df[1]+im.h[1]))
