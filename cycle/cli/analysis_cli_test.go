@@ -1,0 +1,152 @@
+package cli
+
+import (
+	"bytes"
+	"encoding/csv"
+	"encoding/json"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+func runAnalysisCmd(t testing.TB, stdin string, name string, args ...string) (stdout, stderr string, code int) {
+	t.Helper()
+	var out, errb bytes.Buffer
+	code = Run(Env{Stdout: &out, Stderr: &errb, Stdin: strings.NewReader(stdin)}, name, args)
+	return out.String(), errb.String(), code
+}
+
+// TestEstimateJSONContract: the keys the issue fixes, flags after the
+// positional, and a hypothetical compound solved.
+func TestEstimateJSONContract(t *testing.T) {
+	out, errs, code := runAnalysisCmd(t, "", "estimate", "MgCl", "--charges", "M=+1,X=-1", "--model", "kapustinskii", "--json")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var j map[string]any
+	if err := json.Unmarshal([]byte(out), &j); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"formation_kj_per_mol", "uncertainty_kj_per_mol", "model_uncertainty_basis", "steps"} {
+		if _, ok := j[k]; !ok {
+			t.Errorf("JSON has no %q", k)
+		}
+	}
+	if f, _ := j["formation_kj_per_mol"].(float64); !(f < 0) {
+		t.Errorf("ΔfH(MgCl) = %v, the textbook estimate is negative (from memory)", j["formation_kj_per_mol"])
+	}
+}
+
+func TestScanJSONContract(t *testing.T) {
+	out, errs, code := runAnalysisCmd(t, "", "scan", "Mg", "Cl", "--max-charge", "3", "--json")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var j struct {
+		Compounds []struct {
+			Formula   string   `json:"formula"`
+			Formation *float64 `json:"formation_kj_per_mol"`
+		} `json:"compounds"`
+		Disproportionations []struct {
+			Reaction string   `json:"reaction"`
+			KJ       *float64 `json:"kj_per_mol"`
+		} `json:"disproportionations"`
+	}
+	if err := json.Unmarshal([]byte(out), &j); err != nil {
+		t.Fatal(err)
+	}
+	if len(j.Compounds) != 3 || j.Compounds[0].Formula != "MgCl" || j.Compounds[0].Formation == nil {
+		t.Errorf("compounds: %+v", j.Compounds)
+	}
+	found := false
+	for _, d := range j.Disproportionations {
+		if d.Reaction == "2 MgCl -> Mg + MgCl2" && d.KJ != nil && *d.KJ < 0 {
+			found = true
+		}
+	}
+	if !found {
+		t.Errorf("no exothermic 2 MgCl -> Mg + MgCl2 in %+v", j.Disproportionations)
+	}
+}
+
+func TestSolutionAndRadiusCommands(t *testing.T) {
+	out, errs, code := runAnalysisCmd(t, "", "solution", "KCl", "--json")
+	if code != ExitOK || !strings.Contains(out, `"hydration_scale": "conventional"`) {
+		t.Fatalf("solution KCl: exit %d %s\n%s", code, errs, out)
+	}
+	out, errs, code = runAnalysisCmd(t, "", "solution", "NaCl", "--solve", "hydration-anion", "--set", "dissolution=3.87", "--scale", "absolute")
+	if code != ExitOK || !strings.Contains(out, "hydration-anion (solved)") {
+		t.Fatalf("solution --solve: exit %d %s\n%s", code, errs, out)
+	}
+	out, errs, code = runAnalysisCmd(t, "", "radius", "KNO3", "--lattice", "685", "--ion", "NO3-", "--json")
+	if code != ExitOK || !strings.Contains(out, "kapustinskii_handbook_radius_angstrom") {
+		t.Fatalf("radius: exit %d %s\n%s", code, errs, out)
+	}
+}
+
+func TestAnalysisUsageErrors(t *testing.T) {
+	cases := []struct {
+		name string
+		args []string
+		want string // in stderr
+	}{
+		{"estimate", nil, "give one formula"},
+		{"estimate", []string{"MgCl", "--charges", "Mg=+x"}, "column 4"},
+		{"estimate", []string{"Qq2"}, "Qq"},
+		{"estimate", []string{"MgCl", "--model", "guess"}, "guess"},
+		{"scan", []string{"Mg"}, "metal and a non-metal"},
+		{"scan", []string{"Mg", "Cl", "--max-charge", "9"}, "--max-charge"},
+		{"solution", []string{"NaCl", "--solve", "heat"}, "heat"},
+		{"radius", []string{"KNO3"}, "--ion"},
+		{"radius", []string{"KNO3", "--ion", "SO4^2-", "--lattice", "685"}, "not an ion of KNO3"},
+		{"batch", []string{"/nonexistent/file.csv"}, "file.csv"},
+		{"estimate", []string{"MgCl", "--bogus"}, "bogus"},
+	}
+	for _, tc := range cases {
+		_, errs, code := runAnalysisCmd(t, "", tc.name, tc.args...)
+		if code != ExitUsage || !strings.Contains(errs, tc.want) {
+			t.Errorf("%s %v: exit %d, stderr %q (want exit 2 naming %q)", tc.name, tc.args, code, errs, tc.want)
+		}
+	}
+}
+
+func TestBatchCommand(t *testing.T) {
+	dir := t.TempDir()
+	in := filepath.Join(dir, "screen.csv")
+	// Invented screening list (demo data).
+	os.WriteFile(in, []byte("formula,charges\nMgCl,\nCaCl,\"Ca=+1,Cl=-1\"\nNaCl,\n"), 0o644)
+	outFile := filepath.Join(dir, "out.csv")
+	_, errs, code := runAnalysisCmd(t, "", "batch", in, "--out", outFile)
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	b, err := os.ReadFile(outFile)
+	if err != nil {
+		t.Fatal(err)
+	}
+	recs, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
+	if err != nil || len(recs) != 4 {
+		t.Fatalf("%v\n%s", err, b)
+	}
+	if strings.Contains(errs, "[") {
+		t.Errorf("progress bar drawn on a non-terminal stderr: %q", errs)
+	}
+	// Standard input, JSON.
+	out, errs, code := runAnalysisCmd(t, "formula\nMgCl\n", "batch", "-", "--json")
+	var rows []map[string]any
+	if code != ExitOK || json.Unmarshal([]byte(out), &rows) != nil || len(rows) != 1 {
+		t.Fatalf("stdin JSON: exit %d %s\n%s", code, errs, out)
+	}
+	// A bad cell names the line and column, exit 2, and --out is not written.
+	bad := filepath.Join(dir, "bad.csv")
+	os.WriteFile(bad, []byte("formula,anion_radius\nNaCl,1.8\nKCl,big\n"), 0o644)
+	badOut := filepath.Join(dir, "bad-out.csv")
+	_, errs, code = runAnalysisCmd(t, "", "batch", bad, "--out", badOut)
+	if code != ExitUsage || !strings.Contains(errs, "line 3") || !strings.Contains(errs, "anion_radius") {
+		t.Errorf("bad cell: exit %d, %q", code, errs)
+	}
+	if _, err := os.Stat(badOut); !os.IsNotExist(err) {
+		t.Errorf("--out written despite the error: %v", err)
+	}
+}
