@@ -33,6 +33,7 @@ type Server struct {
 	// recoveryInUse holds, per user folder, the recovery-file numbers of
 	// that user's running sessions.
 	recoveryInUse map[string]map[int]bool
+	listeners     []net.Listener
 	closing       bool
 	sessWG        sync.WaitGroup
 }
@@ -129,10 +130,21 @@ func (s *Server) Serve(ln net.Listener) error {
 		s.log.Warn("no authorized-keys file: ANY key is accepted, from loopback only; every key gets its own folder",
 			"listen", addr)
 	}
+	s.mu.Lock()
+	if s.closing {
+		s.mu.Unlock()
+		ln.Close()
+		return nil
+	}
+	s.listeners = append(s.listeners, ln)
+	s.mu.Unlock()
 	s.log.Info("listening", "listen", addr, "max_sessions", s.cfg.MaxSessions,
 		"idle_timeout", s.cfg.IdleTimeout.String(), "state_dir", s.cfg.StateDir)
 	err := s.ssh.Serve(ln)
-	if errors.Is(err, ssh.ErrServerClosed) {
+	s.mu.Lock()
+	closing := s.closing
+	s.mu.Unlock()
+	if closing || errors.Is(err, ssh.ErrServerClosed) {
 		return nil
 	}
 	return err
@@ -148,12 +160,18 @@ func (s *Server) Shutdown(ctx context.Context) error {
 	for ls := range s.sessions {
 		live = append(live, ls)
 	}
+	listeners := s.listeners
+	s.listeners = nil
 	s.mu.Unlock()
 
 	ctx, cancel := context.WithTimeout(ctx, s.cfg.ShutdownGrace)
 	defer cancel()
-	// Stop accepting; established connections stay until below.
-	go s.ssh.Shutdown(ctx) //nolint:errcheck // Close below reports
+	// Stop accepting; established connections stay until Close below.
+	// (Closing our listeners rather than calling the ssh server's
+	// Shutdown, whose wait races with a Serve that is just starting.)
+	for _, ln := range listeners {
+		ln.Close()
+	}
 	s.log.Info("shutting down", "sessions", len(live))
 	for _, ls := range live {
 		ls.stop("server shutting down", ExitShutdown)
