@@ -4,7 +4,18 @@ import (
 	"fmt"
 	"math"
 	"strings"
+	"sync"
 )
+
+// ionizationNotes are the two explanations of the ionization convention,
+// built once (they depend only on constants).
+var ionizationNotes = sync.OnceValue(func() map[IonizationConvention]string {
+	h := freeElectronEnthalpy()
+	return map[IonizationConvention]string{
+		Energies0K:    fmt.Sprintf("ionization energies and electron affinities are 0 K values; at 298.15 K each ionization gains 5/2·RT = %.3f kJ/mol and each attachment loses it, but the cations release exactly the electrons the anions take, so the terms cancel and the lattice value is the same in either convention", h),
+		Enthalpies298: fmt.Sprintf("ionization and attachment steps include ±5/2·RT = %.3f kJ/mol per electron (298.15 K enthalpies); for a neutral salt these terms cancel, so the lattice value equals the 0 K-convention one", h),
+	}
+})
 
 func (c *Cycle) handbook(l LatticeValue) *Handbook {
 	v := c.Compound.HandbookLattice
@@ -36,12 +47,7 @@ func (c *Cycle) handbook(l LatticeValue) *Handbook {
 func (c *Cycle) commentary(r *Result) (notes, warnings []string) {
 	conv := c.Conventions
 	notes = append(notes, "values in kJ/mol per reaction as written; conventions: "+conv.String())
-	h := freeElectronEnthalpy()
-	if conv.Ionization == Energies0K {
-		notes = append(notes, fmt.Sprintf("ionization energies and electron affinities are 0 K values; at 298.15 K each ionization gains 5/2·RT = %.3f kJ/mol and each attachment loses it, but the cations release exactly the electrons the anions take, so the terms cancel and the lattice value is the same in either convention", h))
-	} else {
-		notes = append(notes, fmt.Sprintf("ionization and attachment steps include ±5/2·RT = %.3f kJ/mol per electron (298.15 K enthalpies); for a neutral salt these terms cancel, so the lattice value equals the 0 K-convention one", h))
-	}
+	notes = append(notes, ionizationNotes()[conv.Ionization])
 	notes = append(notes, fmt.Sprintf("lattice step (gaseous ions → solid): %.1f kJ/mol as an enthalpy, %.1f kJ/mol as an energy U; they differ by %+.3f kJ/mol (Jenkins 2005: ΔH_L = U + Σ nᵢ(nᵢ/2 − 2)RT for the dissociation, n = 3 monatomic, 5 linear, 6 non-linear ions)",
 		r.Lattice.Enthalpy, r.Lattice.Energy, r.Lattice.Enthalpy-r.Lattice.Energy))
 	notes = append(notes, "attachment steps are attachment enthalpies, the negatives of the electron affinities")

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"enthalpath/thermo/lattice"
@@ -336,9 +337,9 @@ func (c *Cycle) radius(p Part, cn int) (r float64, used int, from string, err er
 	if !v.Known() {
 		return 0, 0, "", fmt.Errorf("no Shannon %s radius for %s", c.Settings.Radius, p.Ion.Symbol)
 	}
-	from = fmt.Sprintf("Shannon %s radius, CN %s", c.Settings.Radius, sr.CN)
+	from = "Shannon " + c.Settings.Radius.String() + " radius, CN " + sr.CN
 	if sr.Coordination != cn {
-		from += fmt.Sprintf(" (CN %d not tabulated)", cn)
+		from += " (CN " + strconv.Itoa(cn) + " not tabulated)"
 	}
 	return v.V, sr.Coordination, from, nil
 }
@@ -380,7 +381,7 @@ func (e *evaluator) radiiUncached(in *ModelInputs, structureFree bool) error {
 		return err
 	}
 	in.CationRadius, in.AnionRadius, in.CationCN, in.AnionCN = rc, ra, ucc, uac
-	in.RadiusFrom = fmt.Sprintf("%s: %s; %s: %s", c.Cation.Ion.Symbol, fc, c.Anion.Ion.Symbol, fa)
+	in.RadiusFrom = c.Cation.Ion.Symbol + ": " + fc + "; " + c.Anion.Ion.Symbol + ": " + fa
 	return nil
 }
 
@@ -407,7 +408,8 @@ func (e *evaluator) volumeModel(in *ModelInputs) (float64, error) {
 	in.IonicStrength = est.IonicStrength
 	in.Fit = est.Form.String()
 	if est.Form == lattice.Form1999 {
-		in.Fit += fmt.Sprintf(", %s fit α = %g kJ·nm/mol, β = %g kJ/mol", est.Fit.Name, est.Fit.Alpha, est.Fit.Beta)
+		in.Fit += ", " + est.Fit.Name + " fit α = " + strconv.FormatFloat(est.Fit.Alpha, 'g', -1, 64) + " kJ·nm/mol, β = " +
+			strconv.FormatFloat(est.Fit.Beta, 'g', -1, 64) + " kJ/mol"
 	}
 	return est.U, nil
 }
@@ -463,8 +465,8 @@ func (e *evaluator) bornModel(in *ModelInputs, mayer, actual bool) (float64, err
 			return 0, &ModelError{Model: ModelBornLande, Reason: "no Born exponent class for " + c.Cation.Ion.Symbol + " or " +
 				c.Anion.Ion.Symbol + "; set n yourself", Err: err}
 		}
-		in.BornExponentFrom = fmt.Sprintf("mean of Pauling's values over the ions (%s ×%d, %s ×%d)",
-			c.Cation.Ion.BornConfig, c.Cation.Count, c.Anion.Ion.BornConfig, c.Anion.Count)
+		in.BornExponentFrom = "mean of Pauling's values over the ions (" + c.Cation.Ion.BornConfig + " ×" + strconv.Itoa(c.Cation.Count) +
+			", " + c.Anion.Ion.BornConfig + " ×" + strconv.Itoa(c.Anion.Count) + ")"
 	}
 	in.BornExponent = n
 	return lattice.BornLande(pair, n)
@@ -593,7 +595,7 @@ func formatParams(p map[string]float64) string {
 	slices.Sort(keys)
 	parts := make([]string, len(keys))
 	for i, k := range keys {
-		parts[i] = fmt.Sprintf("%s=%g", k, p[k])
+		parts[i] = k + "=" + strconv.FormatFloat(p[k], 'g', -1, 64)
 	}
 	return strings.Join(parts, ", ")
 }
