@@ -166,3 +166,23 @@ func TestHelpKeysMeanWhatTheySay(t *testing.T) {
 		}
 	}
 }
+
+// TestFastKeysAreTakenOneByOne: keys typed faster than the terminal is read
+// arrive as one message; each must still act.
+func TestFastKeysAreTakenOneByOne(t *testing.T) {
+	db := loadDB(t)
+	m, u, _ := newRoot(t, db, 100, 30)
+	drive.Run(u, screen.OpenMsg{Formula: "NaCl"})
+	drive.Run(u, tea.KeyMsg{Type: tea.KeyRunes, Runes: []rune("gjjj")})
+	type cursorer interface{ Cursor() int }
+	if got := m.Screen(screen.Bench).(cursorer).Cursor(); got != 3 {
+		t.Errorf("after g j j j in one message the cursor is on row %d, want 3", got)
+	}
+	// "e" starts typing: what follows in the same message is the value.
+	drive.Run(u, tea.KeyMsg{Type: tea.KeyRunes, Runes: []rune("e250")})
+	drive.Run(u, drive.Key("enter"))
+	s := m.Session().Cycle.Steps[3]
+	if s.Value != 250 {
+		t.Errorf("step %s = %v after typing e250 enter fast, want 250", s.Key, s.Value)
+	}
+}

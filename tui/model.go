@@ -218,6 +218,16 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		return nil
 	}
 	cur := m.screens[m.active]
+	if k.Type == tea.KeyRunes && len(k.Runes) > 1 && !k.Paste && !cur.Capturing() {
+		// Keys typed faster than the terminal is read arrive as one message
+		// ("jj"): take them one at a time, as typed, so none is lost and a
+		// key that starts typing (e) hands the rest to the text.
+		cmds := make([]tea.Cmd, 0, len(k.Runes))
+		for _, r := range k.Runes {
+			cmds = append(cmds, m.key(tea.KeyMsg{Type: tea.KeyRunes, Runes: []rune{r}, Alt: k.Alt}))
+		}
+		return tea.Batch(cmds...)
+	}
 	// While the screen is typing, printable keys are text, not commands.
 	global := func(b key.Binding) bool { return key.Matches(k, b) && !(cur.Capturing() && printable(k)) }
 	switch {
