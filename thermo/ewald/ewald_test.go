@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"math/rand"
+	"runtime"
 	"testing"
 
 	"enthalpath/thermo"
@@ -426,5 +427,25 @@ func TestTooLarge(t *testing.T) {
 	}
 	if err == nil && math.Abs(r.NearestDistance-math.Sqrt(0.005*0.005+2*5e3*5e3)) > 1e-6 {
 		t.Errorf("needle: nearest distance %g", r.NearestDistance)
+	}
+}
+
+// TestDeterministicAcrossProcessors: the chunked parallel sums give the same
+// bits with one processor and with several (the reference files and the
+// CLI output must not depend on the machine).
+func TestDeterministicAcrossProcessors(t *testing.T) {
+	c := rockSaltSupercell(t, 3, 0.02)
+	prev := runtime.GOMAXPROCS(1)
+	one := sum(t, c, Options{})
+	runtime.GOMAXPROCS(max(prev, 4))
+	many := sum(t, c, Options{})
+	runtime.GOMAXPROCS(prev)
+	if math.Float64bits(one.EnergyEV) != math.Float64bits(many.EnergyEV) {
+		t.Errorf("energy differs: %.17g with 1 processor, %.17g with several", one.EnergyEV, many.EnergyEV)
+	}
+	for i := range one.SitePotentials {
+		if math.Float64bits(one.SitePotentials[i]) != math.Float64bits(many.SitePotentials[i]) {
+			t.Fatalf("φ[%d] differs: %.17g vs %.17g", i, one.SitePotentials[i], many.SitePotentials[i])
+		}
 	}
 }
