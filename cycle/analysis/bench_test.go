@@ -70,3 +70,15 @@ func BenchmarkBatch10000(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkScanCold: the first scan of a fresh Analyst, which also measures
+// the model spread over the 40 built-in halides and fills the memos.
+func BenchmarkScanCold(b *testing.B) {
+	db := testAnalyst(b).DB()
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := New(db).Scan("Mg", "Cl", ScanOptions{MaxCharge: 4}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

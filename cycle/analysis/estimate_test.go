@@ -282,3 +282,26 @@ func TestNeighbourRadius(t *testing.T) {
 		}
 	}
 }
+
+// FuzzParseCharges: no text makes the charges reader panic, and every
+// error is a *ChargesError with a column inside the text (or just after it).
+func FuzzParseCharges(f *testing.F) {
+	for _, s := range []string{"Mg=+1,Cl=-1", "M=+2,X=-1", "Xe=1+,F=1-", "=,", "Mg==2", "M=+99999"} {
+		f.Add(s, "MgCl2")
+	}
+	f.Fuzz(func(t *testing.T, text, formula string) {
+		ch, err := ParseCharges(text, formula)
+		if err != nil {
+			var ce *ChargesError
+			if !errors.As(err, &ce) || ce.Column < 1 || ce.Column > len(text)+1 {
+				t.Fatalf("%q: %v", text, err)
+			}
+			return
+		}
+		for k, z := range ch {
+			if z == 0 || k == "" {
+				t.Fatalf("%q gave %q=%d", text, k, z)
+			}
+		}
+	})
+}

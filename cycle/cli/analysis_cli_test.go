@@ -8,6 +8,7 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+	"time"
 )
 
 func runAnalysisCmd(t testing.TB, stdin string, name string, args ...string) (stdout, stderr string, code int) {
@@ -148,5 +149,33 @@ func TestBatchCommand(t *testing.T) {
 	}
 	if _, err := os.Stat(badOut); !os.IsNotExist(err) {
 		t.Errorf("--out written despite the error: %v", err)
+	}
+}
+
+// TestProgressBar: nothing before one second or off a terminal; a bar with
+// the share of the file read after it.
+func TestProgressBar(t *testing.T) {
+	var buf bytes.Buffer
+	read := &countingReader{n: 50}
+	b := &progressBar{w: &buf, on: true, start: time.Now(), size: 100, read: read}
+	b.update(64)
+	if buf.Len() != 0 {
+		t.Errorf("drawn before one second: %q", buf.String())
+	}
+	b.start = time.Now().Add(-2 * time.Second)
+	b.update(128)
+	b.finish()
+	if !strings.Contains(buf.String(), " 50 %") || !strings.Contains(buf.String(), "128 rows") {
+		t.Errorf("bar: %q", buf.String())
+	}
+	buf.Reset()
+	off := &progressBar{w: &buf, on: false, start: time.Now().Add(-2 * time.Second), size: 100, read: read}
+	off.update(64)
+	off.finish()
+	if buf.Len() != 0 {
+		t.Errorf("drawn while off: %q", buf.String())
+	}
+	if newProgressBar(&buf, 0, read).on {
+		t.Error("a bytes.Buffer taken for a terminal")
 	}
 }

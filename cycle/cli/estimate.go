@@ -5,6 +5,8 @@ import (
 	"io"
 	"strings"
 
+	"enthalpath/cycle"
+
 	"enthalpath/cycle/analysis"
 	"enthalpath/thermo"
 )
@@ -159,7 +161,21 @@ func printEstimate(w io.Writer, e *analysis.Estimate) {
 	}
 	if e.Result != nil {
 		for _, wn := range e.Result.Warnings {
+			if otherModel(wn, e.Model) {
+				continue // a model the estimate does not use
+			}
 			fmt.Fprintf(w, "  warning: %s\n", wrapText(wn, 96, "           "))
 		}
 	}
+}
+
+// otherModel reports whether warning w is about a lattice model other than
+// the one an estimate used ("model born-lande: …").
+func otherModel(w, used string) bool {
+	for _, m := range cycle.ModelNames() {
+		if m != used && strings.HasPrefix(w, "model "+m+":") {
+			return true
+		}
+	}
+	return false
 }
