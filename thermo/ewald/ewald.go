@@ -98,10 +98,10 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 	hasCation, hasAnion := false, false
 	for i, s := range c.Sites {
 		if math.IsNaN(s.Charge) || math.IsInf(s.Charge, 0) {
-			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: site %d (%s) has charge %g", c.Name, i, s.Species, s.Charge)
+			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: site %d (%s) has charge %g", c.Name, i+1, s.Species, s.Charge)
 		}
 		if bad := !isFinite(s.Frac[0]) || !isFinite(s.Frac[1]) || !isFinite(s.Frac[2]); bad {
-			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: site %d (%s) has position %v", c.Name, i, s.Species, s.Frac)
+			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: site %d (%s) has position %v", c.Name, i+1, s.Species, s.Frac)
 		}
 		hasCation = hasCation || s.Charge > 0
 		hasAnion = hasAnion || s.Charge < 0
@@ -139,6 +139,7 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 	p := math.Sqrt(-math.Log(target / 2))
 	var res Result
 	var parts partialSums
+	var trunc float64
 	for attempt := 0; ; attempt++ {
 		rc, kc := p/alpha, 2*alpha*p
 		if w := s.work(alpha, rc, kc); w > maxTerms {
@@ -148,10 +149,10 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 		parts = s.evaluate(alpha, rc, kc)
 		if i, j := parts.overlap[0], parts.overlap[1]; i >= 0 {
 			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: sites %d (%s) and %d (%s) sit at the same position (closer than %g Å)",
-				c.Name, i, c.Sites[i].Species, j, c.Sites[j].Species, coincident)
+				c.Name, i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, coincident)
 		}
 		res = s.result(parts, alpha, rc, kc, eps, math.Exp(-p*p))
-		trunc := s.truncationError(alpha, rc, kc) / math.Abs(parts.total())
+		trunc = s.truncationError(alpha, rc, kc) / math.Abs(parts.total())
 		if !(trunc > target) || attempt == 3 {
 			break
 		}
@@ -159,8 +160,11 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 	}
 	if !(res.EstimatedError <= eps) {
 		reason := "floating-point rounding limits the sum"
-		if eps < FinestAccuracy {
+		switch {
+		case eps < FinestAccuracy:
 			reason = fmt.Sprintf("float64 arithmetic cannot promise better than %g", FinestAccuracy)
+		case trunc > eps:
+			reason = "the cut-offs could not be widened enough"
 		}
 		return res, &AccuracyError{Crystal: c.Name, Requested: eps, Estimated: res.EstimatedError, Reason: reason}
 	}
