@@ -7,16 +7,24 @@ import (
 
 // Thresholds of the covalent-character verdict, in percent of |model|
 // (common practice, no source).
+//
+// Why 10 %: the point-charge models here carry no dispersion (van der
+// Waals) or zero-point terms, so even for the alkali halides, the textbook
+// ionic solids, they fall 4–9 % short of the cycle value (Born–Mayer with
+// the Ewald Madelung constant over the twenty alkali halides of the built-in
+// data). A gap inside that band says nothing about covalency. The silver and
+// copper(I) halides, the textbook cases of covalent contribution, lie at
+// 15–35 %.
 const (
 	// AdequateBelowPercent: |gap| below this → the ionic model is adequate.
-	AdequateBelowPercent = 3.0
+	AdequateBelowPercent = 10.0
 	// SubstantialAbovePercent: a gap beyond this → substantial covalent
 	// character.
-	SubstantialAbovePercent = 10.0
+	SubstantialAbovePercent = 15.0
 )
 
 // VerdictBasis states where the thresholds come from.
-const VerdictBasis = "thresholds 3 % and 10 % of |model|: common practice, no source"
+const VerdictBasis = "thresholds 10 % and 15 % of |model|: common practice, no source"
 
 // Character classifies the gap between cycle and model.
 type Character int
@@ -24,13 +32,13 @@ type Character int
 const (
 	// Undetermined: no usable numbers (a value that is not negative and finite).
 	Undetermined Character = iota
-	// IonicAdequate: |gap| < 3 %.
+	// IonicAdequate: |gap| < 10 %.
 	IonicAdequate
-	// SomeCovalent: the cycle binds 3–10 % more than the model.
+	// SomeCovalent: the cycle binds 10–15 % more than the model.
 	SomeCovalent
-	// SubstantialCovalent: the cycle binds more than 10 % more than the model.
+	// SubstantialCovalent: the cycle binds more than 15 % more than the model.
 	SubstantialCovalent
-	// ModelOverbinds: the model binds at least 3 % more than the cycle;
+	// ModelOverbinds: the model binds at least 10 % more than the cycle;
 	// that is not covalency — suspect the model's inputs (radii, d₀,
 	// structure) or the cycle's data.
 	ModelOverbinds

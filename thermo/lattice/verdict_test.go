@@ -6,8 +6,8 @@ import (
 	"testing"
 )
 
-// The thresholds 3 % and 10 % are common practice, no source; the rows test
-// that Judge applies them as documented.
+// The thresholds 10 % and 15 % are common practice, no source; the rows test
+// that Judge applies them as documented (on either side of each boundary).
 func TestJudgeThresholds(t *testing.T) {
 	tests := []struct {
 		cycle, model float64
@@ -16,10 +16,12 @@ func TestJudgeThresholds(t *testing.T) {
 	}{
 		{-786, -780, -6, -100 * 6.0 / 780, IonicAdequate},
 		{-780, -786, 6, 100 * 6.0 / 786, IonicAdequate},
-		{-1035, -1000, -35, -3.5, SomeCovalent},
-		{-1100, -1000, -100, -10, SomeCovalent},
-		{-1101, -1000, -101, -10.1, SubstantialCovalent},
-		{-950, -1000, 50, 5, ModelOverbinds},
+		{-1099, -1000, -99, -9.9, IonicAdequate},
+		{-1101, -1000, -101, -10.1, SomeCovalent},
+		{-1150, -1000, -150, -15, SomeCovalent},
+		{-1151, -1000, -151, -15.1, SubstantialCovalent},
+		{-950, -1000, 50, 5, IonicAdequate},
+		{-890, -1000, 110, 11, ModelOverbinds},
 		{-1000, -1000, 0, 0, IonicAdequate},
 	}
 	for _, tc := range tests {
@@ -39,9 +41,9 @@ func TestJudgeThresholds(t *testing.T) {
 			t.Errorf("Judge(%g, %g) = %+v, want Undetermined with NaN gap", bad[0], bad[1], v)
 		}
 	}
-	v := JudgeWith(-1035, -1000, Thresholds{Adequate: 5, Substantial: 15})
-	if v.Character != IonicAdequate || !strings.Contains(v.Basis, "set by the user") {
-		t.Errorf("JudgeWith 5/15: %+v", v)
+	v := JudgeWith(-1035, -1000, Thresholds{Adequate: 3, Substantial: 5})
+	if v.Character != SomeCovalent || !strings.Contains(v.Basis, "set by the user") {
+		t.Errorf("JudgeWith 3/5: %+v", v)
 	}
 	if v := JudgeWith(-1035, -1000, Thresholds{Adequate: 20, Substantial: 10}); v.Character != Undetermined {
 		t.Errorf("JudgeWith inverted thresholds: %v, want Undetermined", v.Character)
@@ -71,8 +73,8 @@ func TestJudgeSilverVersusSodiumChloride(t *testing.T) {
 }
 
 func TestVerdictString(t *testing.T) {
-	s := Judge(-1035, -1000).String()
-	if !strings.Contains(s, "-35.0 kJ/mol") || !strings.Contains(s, "some covalent character") {
+	s := Judge(-1135, -1000).String()
+	if !strings.Contains(s, "-135.0 kJ/mol") || !strings.Contains(s, "some covalent character") {
 		t.Errorf("String() = %q", s)
 	}
 }
