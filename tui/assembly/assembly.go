@@ -187,16 +187,16 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 // model value (for the lattice step when another step is the unknown), or
 // the unknown itself (the lattice step otherwise).
 func (m *Model) proposal(s *cycle.Step) (text string, ok bool) {
-	c := m.sess.Cycle
 	if s.Kind == cycle.KindLattice {
 		if m.unknown == "" {
 			return "solve it by Hess's law from the other steps (the usual unknown)", true
 		}
-		if mr, ok := m.latticeModel(); ok {
+		mr, err := m.latticeModelErr()
+		if err == nil {
 			return fmt.Sprintf("%s %s %s from the %s model (%s is the unknown)", m.ctx.Signed(mr.Value),
 				m.ctx.Uncertainty(mr.Uncertainty), m.ctx.Units, mr.Model, m.unknown), true
 		}
-		return "no model can give it for this compound: type a value", false
+		return "no model can give it (" + err.Error() + "): type a value with e", false
 	}
 	if r := s.Reference; r != nil {
 		return fmt.Sprintf("%s %s %s from %s", m.ctx.Signed(r.Value), m.ctx.Uncertainty(r.Uncertainty), m.ctx.Units, sourceName(r.Source)), true
@@ -204,7 +204,6 @@ func (m *Model) proposal(s *cycle.Step) (text string, ok bool) {
 	if s.Composite && s.Source.Kind == cycle.SourceSum {
 		return fmt.Sprintf("%s %s %s, the sum of its sub-steps", m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units), true
 	}
-	_ = c
 	return "the data have no value: type one (e) or make it the unknown (x)", false
 }
 
@@ -219,13 +218,20 @@ func sourceName(s cycle.Source) string {
 // step is solved: Born–Mayer with the Ewald constant, else Born–Mayer, else
 // Kapustinskii.
 func (m *Model) latticeModel() (cycle.ModelResult, bool) {
+	mr, err := m.latticeModelErr()
+	return mr, err == nil
+}
+
+func (m *Model) latticeModelErr() (cycle.ModelResult, error) {
+	var last error
 	for _, name := range []string{cycle.ModelEwald, cycle.ModelBornMayer, cycle.ModelKapustinkii} {
 		mr, err := cycle.EvaluateModel(m.sess.Cycle, name)
 		if err == nil && mr.OK() {
-			return mr, true
+			return mr, nil
 		}
+		last = err
 	}
-	return cycle.ModelResult{}, false
+	return cycle.ModelResult{}, last
 }
 
 func (m *Model) accept() tea.Cmd {

@@ -63,7 +63,15 @@ func settingsRows() []setting {
 					if err != nil {
 						return err
 					}
-					cell, err := cif.ParseFile(path, cif.Options{})
+					// Charges the file does not state come from the compound's
+					// ions (by element), so a plain structure file works too.
+					charges := map[string]float64{}
+					for _, p := range []cycle.Part{c.Cation, c.Anion} {
+						if !p.Ion.Polyatomic && p.Ion.Core != "" {
+							charges[p.Ion.Core] = float64(p.Ion.Charge)
+						}
+					}
+					cell, err := cif.ParseFile(path, cif.Options{Charges: charges})
 					if err != nil {
 						return err
 					}

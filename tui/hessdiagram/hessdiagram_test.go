@@ -1,0 +1,119 @@
+package hessdiagram
+
+import (
+	"math"
+	"strings"
+	"testing"
+
+	"enthalpath/cycle"
+	"enthalpath/data"
+	"enthalpath/thermo"
+)
+
+func solved(t *testing.T, formula string) *cycle.Result {
+	t.Helper()
+	db, err := data.Load()
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := cycle.Build(db, formula, cycle.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := cycle.Solve(c)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return res
+}
+
+// TestLevelsCloseTheCycle: by Hess's law the path elements → ions → solid
+// ends where the formation arrow ends, so a solved cycle needs no extra
+// level, and each level is the running sum of the steps before it.
+func TestLevelsCloseTheCycle(t *testing.T) {
+	for _, f := range []string{"NaCl", "CaF2", "Al2O3", "MgO", "KBr"} {
+		t.Run(f, func(t *testing.T) {
+			res := solved(t, f)
+			d := Build(f, res.Steps, Options{Units: thermo.KJPerMol, Limit: -1, Solved: true})
+			terms := Terms(res.Steps)
+			if len(d.Levels) != len(terms)+1 {
+				t.Fatalf("%d levels for %d terms: the cycle did not close", len(d.Levels), len(terms))
+			}
+			sum := 0.0
+			for i, idx := range terms {
+				sum += res.Steps[idx].Contribution()
+				if math.Abs(d.Levels[i+1].Energy-sum) > 1e-9 {
+					t.Errorf("level %d = %v, want running sum %v", i+1, d.Levels[i+1].Energy, sum)
+				}
+			}
+			var formation float64
+			for _, s := range res.Steps {
+				if s.Kind == cycle.KindFormation {
+					formation = s.Contribution()
+				}
+			}
+			// Under ΔH_L with 0 K ionization energies the 5/2·RT terms cancel
+			// for a neutral salt (cycle package comment), so the path closes
+			// on ΔfH° within rounding.
+			if math.Abs(sum-formation) > 0.5 {
+				t.Errorf("path ends at %.2f, formation is %.2f", sum, formation)
+			}
+			if d.Arrows[0].Tag != "formation" || d.Arrows[0].To != len(d.Levels)-1 {
+				t.Errorf("the closing arrow %+v does not end on the solid", d.Arrows[0])
+			}
+			unknown := 0
+			for _, a := range d.Arrows {
+				if a.Unknown {
+					unknown++
+					if a.Tag != "lattice" {
+						t.Errorf("unknown arrow %s, want lattice", a.Tag)
+					}
+				}
+			}
+			if unknown != 1 {
+				t.Errorf("%d unknown arrows, want 1", unknown)
+			}
+		})
+	}
+}
+
+func TestLevelNamesFollowTheSpecies(t *testing.T) {
+	res := solved(t, "CaF2")
+	d := Build("CaF2", res.Steps, Options{Units: thermo.KJPerMol, Limit: -1, Solved: true})
+	var labels []string
+	for _, l := range d.Levels {
+		labels = append(labels, l.Label)
+	}
+	all := strings.Join(labels, " | ")
+	for _, want := range []string{"Ca(s) + F₂(g)", "Ca(g) + F₂(g)", "Ca²⁺(g) + F₂(g)", "Ca²⁺(g) + 2 F(g)", "Ca²⁺(g) + 2 F⁻(g)", "CaF₂(s)"} {
+		if !strings.Contains(all, want) {
+			t.Errorf("no level %q in %s", want, all)
+		}
+	}
+}
+
+func TestLimitGrowsOneArrowAtATime(t *testing.T) {
+	res := solved(t, "NaCl")
+	n := len(Terms(res.Steps))
+	for k := 0; k < n; k++ {
+		d := Build("NaCl", res.Steps, Options{Units: thermo.KJPerMol, Limit: k})
+		if len(d.Arrows) != k || len(d.Levels) != k+1 {
+			t.Errorf("limit %d: %d arrows, %d levels", k, len(d.Arrows), len(d.Levels))
+		}
+	}
+}
+
+func TestUnitsScaleTheLevels(t *testing.T) {
+	res := solved(t, "NaCl")
+	kj := Build("NaCl", res.Steps, Options{Units: thermo.KJPerMol, Limit: -1, Solved: true})
+	ev := Build("NaCl", res.Steps, Options{Units: thermo.EVPerFormulaUnit, Limit: -1, Solved: true})
+	for i := range kj.Levels {
+		// 1 eV per formula unit = 96.485 kJ/mol (CODATA 2018 via thermo).
+		if math.Abs(ev.Levels[i].Energy*thermo.KJPerMolPerEV-kj.Levels[i].Energy) > 1e-9 {
+			t.Errorf("level %d: %v eV vs %v kJ/mol", i, ev.Levels[i].Energy, kj.Levels[i].Energy)
+		}
+	}
+	if ev.Unit != "eV" {
+		t.Errorf("unit %q", ev.Unit)
+	}
+}

@@ -1,0 +1,200 @@
+package modelpanel
+
+import (
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"enthalpath/cycle"
+	"enthalpath/tui/internal/drive"
+)
+
+func setup(t *testing.T, formula string) (*drive.Fixture, *Model, drive.Updater) {
+	t.Helper()
+	f := drive.NewFixture(t, t.TempDir())
+	m := New(f.Ctx, f.Session)
+	m.SetSize(120, 37)
+	f.Open(t, m, formula)
+	return f, m, f.Screen(m)
+}
+
+func row(t *testing.T, m *Model, name string) int {
+	t.Helper()
+	for i, n := range m.SettingNames() {
+		if strings.HasPrefix(n, name) {
+			return i
+		}
+	}
+	t.Fatalf("no setting %q in %v", name, m.SettingNames())
+	return 0
+}
+
+func moveTo(t *testing.T, m *Model, u drive.Updater, name string) {
+	t.Helper()
+	for m.Cursor() > 0 {
+		drive.Run(u, drive.Key("k"))
+	}
+	for range row(t, m, name) {
+		drive.Run(u, drive.Key("j"))
+	}
+}
+
+func TestEveryModelBesideTheCycle(t *testing.T) {
+	f, m, _ := setup(t, "NaCl")
+	res := f.Session.Solved()
+	v := m.View()
+	for _, mr := range res.Models {
+		if !strings.Contains(v, mr.Model) {
+			t.Errorf("model %s not listed", mr.Model)
+		}
+		if mr.OK() && !strings.Contains(v, f.Ctx.Signed(mr.Value)) {
+			t.Errorf("model %s value %s not shown", mr.Model, f.Ctx.Signed(mr.Value))
+		}
+		if mr.OK() && !strings.Contains(v, mr.Verdict.Character.String()) {
+			t.Errorf("verdict of %s not shown in words", mr.Model)
+		}
+	}
+	// Rock salt: Madelung constant 1.747565 referred to the nearest
+	// cation–anion distance (Madelung 1918; CRC Handbook table of Madelung
+	// constants, from memory).
+	if !strings.Contains(v, "A = 1.7475") {
+		t.Errorf("Ewald Madelung constant of rock salt not shown:\n%s", v)
+	}
+	if !strings.Contains(v, "common practice") {
+		t.Errorf("the verdict thresholds are not marked as common practice")
+	}
+}
+
+func TestGapBar(t *testing.T) {
+	// 2 % per cell, left for negative gaps, clipped with an arrow (the
+	// drawing rule of this panel; no outside source).
+	cases := []struct {
+		pct  float64
+		half int
+		want string
+	}{
+		{0, 5, "·····│·····"},
+		{-4, 5, "···██│·····"},
+		{6.1, 5, "·····│███··"},
+		{-25, 5, "◀████│·····"},
+		{25, 5, "·····│████▶"},
+		{math.NaN(), 5, "·····│·····"},
+	}
+	for _, c := range cases {
+		if got := bar(c.pct, c.half); got != c.want {
+			t.Errorf("bar(%v) = %q, want %q", c.pct, got, c.want)
+		}
+	}
+}
+
+func TestSettingsEditableInPlace(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	bm := func() float64 {
+		mr, _ := f.Session.Solved().Model(cycle.ModelBornMayer)
+		return mr.Value
+	}
+	before := bm()
+
+	// ρ: a bad value is explained in place and not taken.
+	moveTo(t, m, u, "ρ")
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("abc")...)
+	drive.Run(u, drive.Key("enter"))
+	if editing, err := m.Editing(); !editing || err == nil || !strings.Contains(m.View(), "not accepted") {
+		t.Fatalf("bad ρ: editing=%v err=%v", editing, err)
+	}
+	if f.Session.Cycle.Settings.Rho != 0 {
+		t.Fatal("a refused ρ was stored")
+	}
+	drive.Run(u, drive.Key("esc"))
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("0.30")...)
+	drive.Run(u, drive.Key("enter"))
+	if f.Session.Cycle.Settings.Rho != 0.30 {
+		t.Fatalf("ρ = %v, want 0.30", f.Session.Cycle.Settings.Rho)
+	}
+	// Born–Mayer: U ∝ (1 − ρ/d₀), so a smaller ρ binds more (more negative).
+	if after := bm(); !(after < before) {
+		t.Errorf("Born–Mayer with ρ 0.30 = %.1f, want below %.1f (ρ 0.345)", after, before)
+	}
+	drive.Run(u, drive.Key("r"))
+	if f.Session.Cycle.Settings.Rho != 0 || math.Abs(bm()-before) > 1e-9 {
+		t.Errorf("r did not restore the default ρ")
+	}
+
+	// Radii: ←/→ step through the choices.
+	moveTo(t, m, u, "radii")
+	drive.Run(u, drive.Key("l"))
+	if f.Session.Cycle.Settings.Radius != cycle.RadiusCrystal {
+		t.Errorf("→ on radii gave %v, want crystal", f.Session.Cycle.Settings.Radius)
+	}
+	drive.Run(u, drive.Key("h"))
+	if f.Session.Cycle.Settings.Radius != cycle.RadiusIonic {
+		t.Errorf("← on radii gave %v, want ionic", f.Session.Cycle.Settings.Radius)
+	}
+
+	// Structure: another prototype, then a name that is neither.
+	moveTo(t, m, u, "structure")
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("caesium-chloride")...)
+	drive.Run(u, drive.Key("enter"))
+	if got := f.Session.Cycle.Settings.Structure.Name(); got != "caesium-chloride" {
+		t.Errorf("structure %q", got)
+	}
+	// CsCl type: Madelung constant 1.762675 (referred to the nearest
+	// distance; CRC Handbook, from memory).
+	mr, _ := f.Session.Solved().Model(cycle.ModelEwald)
+	if math.Abs(mr.Inputs.Madelung-1.762675) > 1e-5 {
+		t.Errorf("Madelung constant for caesium-chloride = %.6f, want 1.762675", mr.Inputs.Madelung)
+	}
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("no-such-thing")...)
+	drive.Run(u, drive.Key("enter"))
+	if _, err := m.Editing(); err == nil || !strings.Contains(err.Error(), "prototype") {
+		t.Errorf("bad structure: %v", err)
+	}
+	drive.Run(u, drive.Key("esc"))
+
+	// d₀: a distance of one's own.
+	moveTo(t, m, u, "d₀")
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("2.9")...)
+	drive.Run(u, drive.Key("enter"))
+	if s := f.Session.Cycle.Settings; s.Distance != cycle.DistanceUser || s.D0 != 2.9 {
+		t.Errorf("d₀: %v %v", s.Distance, s.D0)
+	}
+}
+
+func TestStructureFromACIFFile(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	src, err := os.ReadFile("../../testdata/cif/real_NaCl_rocksalt_Fm-3m.cif")
+	if err != nil {
+		entries, _ := filepath.Glob("../../testdata/cif/*.cif")
+		t.Skipf("no rock-salt CIF in testdata/cif (%v): %v", entries, err)
+	}
+	dir := filepath.Dir(must(f.Ctx.ResolvePath("x")))
+	if err := os.WriteFile(filepath.Join(dir, "salt.cif"), src, 0o600); err != nil {
+		t.Fatal(err)
+	}
+	moveTo(t, m, u, "structure")
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("salt.cif")...)
+	drive.Run(u, drive.Key("enter"))
+	if _, err := m.Editing(); err != nil {
+		t.Fatalf("CIF refused: %v", err)
+	}
+	mr, _ := f.Session.Solved().Model(cycle.ModelEwald)
+	// The rock-salt cell read from the file gives rock salt's 1.747565.
+	if math.Abs(mr.Inputs.Madelung-1.747565) > 1e-5 {
+		t.Errorf("Madelung constant from the CIF = %.6f, want 1.747565", mr.Inputs.Madelung)
+	}
+}
+
+func must(s string, err error) string {
+	if err != nil {
+		panic(err)
+	}
+	return s
+}

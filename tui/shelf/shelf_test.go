@@ -1,0 +1,122 @@
+package shelf
+
+import (
+	"strings"
+	"testing"
+
+	tea "github.com/charmbracelet/bubbletea"
+
+	"enthalpath/tui/internal/drive"
+	"enthalpath/tui/screen"
+)
+
+func setup(t *testing.T) (*drive.Fixture, *Model, drive.Updater) {
+	f := drive.NewFixture(t, t.TempDir())
+	m := New(f.Ctx)
+	m.SetSize(80, 21)
+	return f, m, f.Screen(m)
+}
+
+func openOf(msgs []tea.Msg) (screen.OpenMsg, bool) {
+	for _, m := range msgs {
+		if o, ok := m.(screen.OpenMsg); ok {
+			return o, true
+		}
+	}
+	return screen.OpenMsg{}, false
+}
+
+func TestOpensOnTheInventedShortlist(t *testing.T) {
+	f, m, _ := setup(t)
+	got := m.Matches()
+	if len(got) != len(f.DB.Compounds()) {
+		t.Fatalf("%d rows, want every compound (%d)", len(got), len(f.DB.Compounds()))
+	}
+	// The shortlist comes first, in the invented study's order, and says so.
+	for i, want := range Shortlist {
+		if got[i] != want {
+			t.Errorf("row %d = %s, want the shortlist's %s", i, got[i], want)
+		}
+	}
+	v := m.View()
+	if !strings.Contains(v, "invented scenario") || !strings.Contains(v, "★ KCl") {
+		t.Errorf("the demo is not marked invented:\n%s", v)
+	}
+	// ΔfH° of KCl shown from the data, in kJ/mol.
+	kcl, err := f.DB.Compound("KCl")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(v, f.Ctx.Energy(kcl.Formation.V)) {
+		t.Errorf("KCl's formation enthalpy %s not shown", f.Ctx.Energy(kcl.Formation.V))
+	}
+}
+
+func TestFilterAsYouTypeAndOpen(t *testing.T) {
+	_, m, u := setup(t)
+	drive.Run(u, drive.Text("nacl")...)
+	if m.Selected() != "NaCl" {
+		t.Fatalf("typing nacl selects %q (matches %v), want NaCl first", m.Selected(), m.Matches())
+	}
+	for _, f := range m.Matches() {
+		if !strings.Contains(strings.ToLower(f), "nacl") {
+			t.Errorf("filter nacl shows %s", f)
+		}
+	}
+	msgs := drive.Run(u, drive.Key("enter"))
+	o, ok := openOf(msgs)
+	if !ok || o.Formula != "NaCl" || o.Guided {
+		t.Fatalf("enter sent %+v, want to open NaCl solved", o)
+	}
+	msgs = drive.Run(u, drive.Key("ctrl+g"))
+	if o, ok := openOf(msgs); !ok || !o.Guided {
+		t.Errorf("ctrl+g sent %+v, want the guided assembly", o)
+	}
+	// Words filter on name and family too.
+	drive.Run(u, drive.Key("esc"))
+	drive.Run(u, drive.Text("silver halide")...)
+	for _, f := range m.Matches() {
+		if !strings.HasPrefix(f, "Ag") {
+			t.Errorf("silver halide shows %s", f)
+		}
+	}
+	if len(m.Matches()) < 3 {
+		t.Errorf("silver halide shows only %v", m.Matches())
+	}
+}
+
+func TestUnknownFormulaGoesToTheAssembly(t *testing.T) {
+	_, m, u := setup(t)
+	drive.Run(u, drive.Text("MgCl")...)
+	if len(m.Matches()) != 0 {
+		t.Skipf("the data have a compound matching MgCl: %v", m.Matches())
+	}
+	if !strings.Contains(m.View(), "assembles a cycle for \"MgCl\"") {
+		t.Errorf("no hint for a formula the data lack:\n%s", m.View())
+	}
+	o, ok := openOf(drive.Run(u, drive.Key("enter")))
+	if !ok || o.Formula != "MgCl" || !o.Guided {
+		t.Errorf("enter on MgCl sent %+v, want the guided assembly of MgCl", o)
+	}
+}
+
+func TestMovementStaysInRange(t *testing.T) {
+	_, m, u := setup(t)
+	drive.Run(u, drive.Key("up"))
+	if m.Selected() != Shortlist[0] {
+		t.Errorf("up at the top moved to %s", m.Selected())
+	}
+	drive.Run(u, drive.Key("down"), drive.Key("ctrl+n"))
+	if m.Selected() != Shortlist[2] {
+		t.Errorf("two downs: %s, want %s", m.Selected(), Shortlist[2])
+	}
+	for i := 0; i < 100; i++ {
+		drive.Run(u, drive.Key("pgdown"))
+	}
+	if got, all := m.Selected(), m.Matches(); got != all[len(all)-1] {
+		t.Errorf("after many pages: %s, want the last %s", got, all[len(all)-1])
+	}
+	if !strings.Contains(m.View(), "› ") {
+		t.Error("the highlighted row is scrolled out of view")
+	}
+}
