@@ -97,7 +97,7 @@ func Build(db *data.DB, formula string, opt Options) (*Cycle, error) {
 	if c.Cation.Ion.Charge <= 0 || c.Anion.Ion.Charge >= 0 {
 		return nil, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s must be a cation and %s an anion", c.Cation.Ion.Symbol, c.Anion.Ion.Symbol)}
 	}
-	c.MolarMass = molarMass(c.Cation, c.Anion)
+	c.MolarMass = molarMass(db, c.Cation, c.Anion)
 	if c.Settings.Structure.Empty() && c.Compound.Structure != "" && !c.Settings.noStructure {
 		c.Settings.Structure = Structure{Prototype: c.Compound.Structure, Params: cloneParams(c.Compound.Params), FromData: true}
 	}

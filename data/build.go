@@ -27,6 +27,8 @@ func (b *builder) apply(table string, r record) error {
 		return b.source(r)
 	case "elements.csv":
 		return b.element(r)
+	case "atomic_weights.csv":
+		return b.atomicWeight(r)
 	case "ionization.csv":
 		return b.ionization(r)
 	case "affinity.csv":
@@ -195,6 +197,28 @@ func (b *builder) elementFor(r record, field string) (*Element, error) {
 		return nil, r.errorf(field, "element %q is not in the element table (add an element row first)", sym)
 	}
 	return &b.db.elements[i], nil
+}
+
+func (b *builder) atomicWeight(r record) error {
+	e, err := b.elementFor(r, "symbol")
+	if err != nil {
+		return err
+	}
+	v, ok, err := b.value(r, "atomic_weight", "uncertainty", "source", "atomic_weight", "g/mol")
+	if err != nil {
+		return err
+	}
+	if !ok {
+		return r.errorf("atomic_weight", "missing value")
+	}
+	if !(v.V > 0) {
+		return r.errorf("atomic_weight", "atomic weight %g g/mol is not positive", v.V)
+	}
+	if e.AtomicMass.Known() && !b.overlay {
+		return r.errorf("symbol", "atomic weight of %s listed twice", e.Symbol)
+	}
+	b.set(&e.AtomicMass, v)
+	return nil
 }
 
 func (b *builder) ionization(r record) error {

@@ -5,6 +5,7 @@ package data
 var tableColumns = map[string][]string{
 	"sources.csv":           {"key", "citation"},
 	"elements.csv":          {"symbol", "z", "name", "standard_state", "atomization_kj_per_mol", "atomization_uncertainty", "source", "memory", "note"},
+	"atomic_weights.csv":    {"symbol", "atomic_weight", "uncertainty", "source", "memory", "note"},
 	"ionization.csv":        {"symbol", "stage", "energy_ev", "uncertainty_ev", "source", "memory", "note"},
 	"affinity.csv":          {"symbol", "order", "affinity_ev", "affinity_kj_per_mol", "uncertainty_ev", "source", "memory", "derived", "note"},
 	"atomization_steps.csv": {"element", "order", "kind", "reaction", "atoms_produced", "enthalpy_kj_per_mol", "uncertainty", "source", "memory", "note"},
@@ -26,6 +27,7 @@ var tableOrder = []struct {
 }{
 	{"sources.csv", "source", false},
 	{"elements.csv", "element", false},
+	{"atomic_weights.csv", "atomic_weight", true},
 	{"ionization.csv", "ionization", false},
 	{"affinity.csv", "affinity", false},
 	{"atomization_steps.csv", "atomization_step", false},

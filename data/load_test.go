@@ -79,6 +79,7 @@ func forEachValue(db *DB, fn func(where string, v Value)) {
 		}
 		visit(e.Symbol+" EA1", e.ElectronAffinity)
 		visit(e.Symbol+" EA2", e.SecondAffinity)
+		visit(e.Symbol+" atomic weight", e.AtomicMass)
 		for _, s := range db.AtomizationSteps(e.Symbol) {
 			visit(e.Symbol+" step "+s.Reaction, s.Enthalpy)
 		}
@@ -546,5 +547,34 @@ func TestLoadFSWithoutOptionalTables(t *testing.T) {
 	}
 	if _, err := db.Compound("NaCl"); err == nil {
 		t.Error("NaCl found without compounds.csv")
+	}
+}
+
+// Every element but Tc (no stable isotope, so no standard atomic weight)
+// carries a standard atomic weight, and the weights grow with Z except at
+// the known inversions Ar/K, Co/Ni and Te/I (a property of the periodic
+// table, no source needed).
+func TestAtomicWeights(t *testing.T) {
+	db := mustLoad(t)
+	inversions := map[string]bool{"K": true, "Ni": true, "I": true}
+	prev := Element{}
+	for _, e := range db.Elements() {
+		if e.Symbol == "Tc" {
+			if e.AtomicMass.Known() {
+				t.Errorf("Tc has an atomic weight %g; it has no standard atomic weight", e.AtomicMass.V)
+			}
+			continue
+		}
+		if !e.AtomicMass.Known() {
+			t.Errorf("%s: no atomic weight", e.Symbol)
+			continue
+		}
+		if e.AtomicMass.Unit != "g/mol" {
+			t.Errorf("%s: atomic weight unit %q, want g/mol", e.Symbol, e.AtomicMass.Unit)
+		}
+		if prev.AtomicMass.Known() && e.AtomicMass.V <= prev.AtomicMass.V && !inversions[e.Symbol] {
+			t.Errorf("%s (%g) is not heavier than %s (%g)", e.Symbol, e.AtomicMass.V, prev.Symbol, prev.AtomicMass.V)
+		}
+		prev = e
 	}
 }

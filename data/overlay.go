@@ -56,6 +56,7 @@ func LoadWithUserFile(path string) (*DB, error) {
 //
 // The overlay holds arrays of tables named after the data tables, with the
 // same field names as the CSV columns: [[source]], [[element]],
+// [[atomic_weight]],
 // [[ionization]], [[affinity]], [[atomization_step]], [[born_exponent]],
 // [[ion]], [[shannon]], [[ion_value]], [[compound]]. They are applied in
 // that order whatever their order in the file. A value without a source

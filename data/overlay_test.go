@@ -2,6 +2,7 @@ package data
 
 import (
 	"errors"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
@@ -193,5 +194,27 @@ func TestCompoundLookupForms(t *testing.T) {
 		if list[i].Formula != list2[i].Formula {
 			t.Fatal("Compounds() order is not stable")
 		}
+	}
+}
+
+func TestOverlayAtomicWeight(t *testing.T) {
+	db := mustLoad(t)
+	// Invented value for the test, not real data.
+	next, err := db.WithOverlay(strings.NewReader("[[atomic_weight]]\nsymbol = \"Na\"\natomic_weight = 23.5\n"), "weights.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	na, err := next.Element("Na")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !na.AtomicMass.Override || na.AtomicMass.Source != "user" || math.Abs(na.AtomicMass.V-23.5) > 1e-12 {
+		t.Errorf("overlaid Na weight: %+v", na.AtomicMass)
+	}
+	if na.AtomicMass.Replaced == nil || math.Abs(na.AtomicMass.Replaced.V-22.990) > 1e-9 {
+		t.Errorf("overlaid Na weight should keep the built-in 22.990 (IUPAC 2021, from memory) in Replaced: %+v", na.AtomicMass.Replaced)
+	}
+	if _, err := db.WithOverlay(strings.NewReader("[[atomic_weight]]\nsymbol = \"Na\"\natomic_weight = -1\n"), "bad.toml"); err == nil {
+		t.Error("a negative atomic weight was accepted")
 	}
 }

@@ -51,6 +51,9 @@ type Element struct {
 	// SecondAffinity is the second electron affinity in eV for O and S
 	// (negative: X⁻ + e⁻ → X²⁻ absorbs energy); cycle-derived, Derived=true.
 	SecondAffinity Value
+	// AtomicMass is the conventional standard atomic weight in g/mol
+	// (atomic_weights.csv); absent for an element without one (Tc).
+	AtomicMass Value
 }
 
 // AtomizationStep is one sub-step on the way from an element's standard
@@ -111,7 +114,9 @@ type Ion struct {
 	// GasFormation is ΔfH°(ion, g, 298.15 K) in kJ/mol, for polyatomic ions.
 	GasFormation Value
 	// BornConfig is the noble-gas (or pseudo noble-gas) configuration for
-	// Pauling's Born exponent: "He", "Ne", "Ar", "Kr", "Xe" (Cu+ counts as "Kr"? see table).
+	// Pauling's Born exponent, a row of born_exponents.csv: "He", "Ne", "Ar",
+	// "Kr", "Xe", or for the d¹⁰ ions "[Ar]3d10" (Cu⁺, Zn²⁺), "[Kr]4d10"
+	// (Ag⁺, Cd²⁺), "[Xe]4f14 5d10" (Au⁺, Hg²⁺).
 	BornConfig string
 	// Hydration is the standard hydration enthalpy in kJ/mol on the scale
 	// named in HydrationScale.

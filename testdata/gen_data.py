@@ -74,7 +74,9 @@ def elements():
                         "ionic_radius": fixed(radii.get("ionic_radius"), 4),
                     })
         ea = rec.get("Electron affinity")
+        mass = rec.get("Atomic mass")
         out[sym] = {
+            "atomic_mass": fixed(mass, 8) if isinstance(mass, (int, float)) else None,
             "z": rec.get("Atomic no"),
             "ionization_energies_ev": [fixed(v, 8) for v in ies],
             "electron_affinity_ev": fixed(ea, 8) if isinstance(ea, (int, float)) else None,
@@ -114,7 +116,7 @@ def main():
         "generator": "testdata/gen_data.py",
         "from": "pymatgen/core/periodic_table.json",
         "version": version,
-        "units": {"ionization_energies_ev": "eV", "electron_affinity_ev": "eV", "radii": "angstrom"},
+        "units": {"ionization_energies_ev": "eV", "electron_affinity_ev": "eV", "radii": "angstrom", "atomic_mass": "g/mol"},
         "elements": elements(),
     })
     write("pymatgen_formation.json", {
