@@ -236,7 +236,8 @@ func (db *DB) AtomizationSteps(sym string) []AtomizationStep {
 }
 
 // BornExponent returns Pauling's Born exponent for a noble-gas configuration
-// class ("He", "Ne", "Ar", "Kr", "Xe").
+// class ("He", "Ne", "Ar", "Kr", "Xe", and for d¹⁰ ions "[Ar]3d10",
+// "[Kr]4d10", "[Xe]4f14 5d10"), spelled as in born_exponents.csv.
 func (db *DB) BornExponent(config string) (Value, error) {
 	if v, ok := db.born[config]; ok {
 		return v, nil
