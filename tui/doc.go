@@ -9,4 +9,24 @@
 // help line, and handles quitting, saving, opening and recovery. The logic
 // of each screen lives in its package. The same model serves a local
 // terminal and an SSH session: every style is built from Options.Renderer.
+//
+// # Shape
+//
+// A screen (package screen) is a pointer that updates in place: its Update
+// returns only the command, not a new model, so the root never
+// type-asserts a returned value back to its concrete type, and the screens
+// that show one cycle share a *session.Session instead of copies of it.
+// Keys are key.Binding fields of each screen's exported KeyMap; the help
+// line and the key list are generated from the same bindings (ShortHelp,
+// FullHelp), and a test presses every listed key. Every engine call that
+// can take time (solving, the survey of all compounds, the analyses, file
+// I/O) runs inside a tea.Cmd and comes back as a message.
+//
+// # Files
+//
+// Cycle files are written with cycle.Save (atomic). Unsaved work goes to
+// Options.RecoveryPath when the user quits keeping it, on ShutdownMsg, when
+// another compound replaces it, and when Update or View panics (the panic
+// then goes on to Bubble Tea, which restores the terminal). With
+// Options.FileRoot set, every typed name goes through safepath.Join.
 package tui

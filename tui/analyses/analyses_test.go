@@ -4,18 +4,24 @@ import (
 	"strings"
 	"testing"
 
+	"enthalpath/cycle/analysis"
 	"enthalpath/tui/internal/drive"
 )
 
-func TestListsTheAnalyses(t *testing.T) {
+func setup(t *testing.T) (*drive.Fixture, *Model, drive.Updater) {
+	t.Helper()
 	f := drive.NewFixture(t, t.TempDir())
 	m := New(f.Ctx, f.Session)
-	m.SetSize(80, 21)
-	u := f.Screen(m)
+	m.SetSize(120, 37)
+	return f, m, f.Screen(m)
+}
+
+func TestListsTheAnalyses(t *testing.T) {
+	_, m, u := setup(t)
 	v := m.View()
-	for _, a := range list() {
-		if !strings.Contains(v, a.name) {
-			t.Errorf("analysis %s not listed", a.name)
+	for _, k := range kinds() {
+		if !strings.Contains(v, k.name) || !strings.Contains(v, k.example) {
+			t.Errorf("analysis %s not listed with its example", k.name)
 		}
 	}
 	drive.Run(u, drive.Key("j"), drive.Key("j"))
@@ -25,5 +31,93 @@ func TestListsTheAnalyses(t *testing.T) {
 	drive.Run(u, drive.Key("k"), drive.Key("k"), drive.Key("k"))
 	if m.Cursor() != 0 {
 		t.Errorf("cursor %d after three ups from 2", m.Cursor())
+	}
+}
+
+// TestScanOfMagnesiumChlorides: MgCl is unstable with respect to
+// disproportionation into Mg and MgCl₂, and MgCl₃ is strongly endothermic
+// (the standard textbook result; e.g. Greenwood & Earnshaw, Chemistry of
+// the Elements, from memory).
+func TestScanOfMagnesiumChlorides(t *testing.T) {
+	_, m, u := setup(t)
+	drive.Run(u, drive.Key("j")) // scan, with its example Mg Cl 3
+	drive.Run(u, drive.Key("r"))
+	res, err := m.Result(1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := res.(*analysis.Scan)
+	var found bool
+	for _, d := range s.Disproportionations {
+		if strings.HasPrefix(d.Reaction, "2 MgCl ->") {
+			found = true
+			if !d.Favoured || d.Enthalpy >= 0 {
+				t.Errorf("%s: %+.1f kJ/mol, want favoured (exothermic)", d.Reaction, d.Enthalpy)
+			}
+		}
+	}
+	if !found {
+		t.Errorf("no disproportionation of MgCl in %+v", s.Disproportionations)
+	}
+	for _, c := range s.Compounds {
+		if c.Formula == "MgCl3" && c.Formation < 200 {
+			t.Errorf("MgCl3 ΔfH %.0f kJ/mol, want strongly endothermic", c.Formation)
+		}
+	}
+	v := m.View()
+	for _, want := range []string{"MgCl2", "2 MgCl -> Mg + MgCl2", "favoured"} {
+		if !strings.Contains(v, want) {
+			t.Errorf("scan view lacks %q:\n%s", want, v)
+		}
+	}
+}
+
+func TestTypedArgumentsAndTheirErrors(t *testing.T) {
+	_, m, u := setup(t)
+	// estimate: replace the example with a bad model name.
+	drive.Run(u, drive.Key("e"), drive.Key("ctrl+u"))
+	drive.Run(u, drive.Text("MgCl nosuchmodel")...)
+	drive.Run(u, drive.Key("enter"))
+	if _, err := m.Result(0); err == nil || !strings.Contains(err.Error(), "model") {
+		t.Errorf("bad model: %v", err)
+	}
+	if v := m.View(); !strings.Contains(v, "not done") {
+		t.Errorf("the error is not shown:\n%s", v)
+	}
+	drive.Run(u, drive.Key("e"), drive.Key("ctrl+u"))
+	drive.Run(u, drive.Text("CaF2")...)
+	drive.Run(u, drive.Key("enter"))
+	res, err := m.Result(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	e := res.(*analysis.Estimate)
+	// CaF2 is tabulated: the estimate is set beside the data's −1219.6
+	// kJ/mol (NBS tables, as in the data) and a Kapustinskii estimate
+	// should land within its model σ plus 5 %.
+	if e.Measured == nil {
+		t.Fatal("no measured formation enthalpy beside the estimate")
+	}
+	if d := e.Value - e.Measured.Value; d*d > (e.Uncertainty+0.05*1220)*(e.Uncertainty+0.05*1220) {
+		t.Errorf("estimate %.1f vs data %.1f: further than σ %.1f + 5 %%", e.Value, e.Measured.Value, e.Uncertainty)
+	}
+	if !strings.Contains(m.View(), "the data's value") {
+		t.Errorf("the estimate view does not compare with the data:\n%s", m.View())
+	}
+}
+
+func TestSolutionAndRadiusRun(t *testing.T) {
+	_, m, u := setup(t)
+	drive.Run(u, drive.Key("j"), drive.Key("j"), drive.Key("r"))
+	if _, err := m.Result(2); err != nil {
+		t.Errorf("solution NaCl: %v", err)
+	} else if !strings.Contains(m.View(), "hydration scale") {
+		t.Errorf("solution view lacks the hydration scale:\n%s", m.View())
+	}
+	drive.Run(u, drive.Key("j"), drive.Key("r"))
+	if _, err := m.Result(3); err != nil {
+		t.Errorf("radius NH4Cl: %v", err)
+	} else if !strings.Contains(m.View(), "effective Born–Mayer ρ") {
+		t.Errorf("radius view:\n%s", m.View())
 	}
 }

@@ -1,0 +1,138 @@
+package analyses
+
+import (
+	"fmt"
+	"strings"
+
+	"enthalpath/cycle/analysis"
+)
+
+// render lays out a result as lines.
+func (m *Model) render(r any) []string {
+	switch r := r.(type) {
+	case *analysis.Estimate:
+		return m.estimate(r)
+	case *analysis.Scan:
+		return m.scan(r)
+	case *analysis.SolutionCycle:
+		return m.solution(r)
+	case *analysis.DerivedRadius:
+		return m.radius(r)
+	}
+	return []string{fmt.Sprintf("%v", r)}
+}
+
+func (m *Model) pm(v, u float64) string {
+	return m.ctx.Signed(v) + " " + m.ctx.Uncertainty(u) + " " + m.ctx.Units.String()
+}
+
+func (m *Model) notes(notes []string) []string {
+	var out []string
+	for _, n := range notes {
+		out = append(out, m.ctx.Styles.Muted.Render(wrap("· "+n, m.w-2)))
+	}
+	return out
+}
+
+func (m *Model) estimate(e *analysis.Estimate) []string {
+	st := m.ctx.Styles
+	hyp := func(u analysis.IonUse) string {
+		s := fmt.Sprintf("%s (r = %.3f Å, %s)", u.Symbol, u.Radius.Value, u.Radius.From)
+		if u.Hypothetical {
+			s += " — not in the data"
+		}
+		return s
+	}
+	lines := []string{
+		st.Accent.Render(fmt.Sprintf("%s: %s = %s", e.Formula, e.Solved.Label, m.pm(e.Value, e.Uncertainty))) +
+			st.Muted.Render(fmt.Sprintf("   (inputs alone ±%s)", strings.TrimPrefix(m.ctx.Uncertainty(e.InputUncertainty), "±"))),
+		fmt.Sprintf("lattice ΔH_L from %s: %s (U %s)", e.Model, m.pm(e.Lattice, e.ModelUncertainty), m.ctx.Signed(e.LatticeEnergy)),
+		"ions: " + hyp(e.Cation) + ", " + hyp(e.Anion),
+	}
+	if e.Measured != nil {
+		lines = append(lines, fmt.Sprintf("the data's value: %s — estimate − data %s", m.pm(e.Measured.Value, e.Measured.Uncertainty), m.ctx.Signed(e.Value-e.Measured.Value)))
+	}
+	lines = append(lines, st.Muted.Render(wrap("model σ: "+e.Spread.Basis(), m.w)))
+	return append(lines, m.notes(e.Notes)...)
+}
+
+func (m *Model) scan(s *analysis.Scan) []string {
+	st := m.ctx.Styles
+	lines := []string{st.Accent.Render(fmt.Sprintf("%s with %s (%s), lattice from %s", s.Metal, s.NonMetal, s.Anion, s.Model)),
+		st.Title.Render(fmt.Sprintf("  %-8s %6s %22s %14s  %s", "formula", "charge", "ΔfH° per formula", "per metal", "verdict"))}
+	for _, c := range s.Compounds {
+		from := "estimate"
+		if c.FromData {
+			from = "data"
+		}
+		verdict := "stable on enthalpy"
+		switch {
+		case c.LosesNonMetal:
+			verdict = "gives off " + s.NonMetal + " to form " + c.LowerState
+		case !c.Stable:
+			verdict = "disproportionates"
+		}
+		if c.Formula == s.Favoured {
+			verdict += " · favoured"
+		}
+		lines = append(lines, trunc(fmt.Sprintf("  %-8s %6d %22s %14s  %s (%s)", c.Formula, c.Charge, m.pm(c.Formation, c.Uncertainty),
+			m.ctx.Signed(c.PerMetal), verdict, from), m.w))
+	}
+	if len(s.Disproportionations) > 0 {
+		lines = append(lines, st.Title.Render("  disproportionations"))
+	}
+	for _, d := range s.Disproportionations {
+		mark := "not favoured"
+		if d.Favoured {
+			mark = "favoured (exothermic)"
+		}
+		lines = append(lines, trunc(fmt.Sprintf("  %-28s %s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), mark), m.w))
+	}
+	for _, sk := range s.Skipped {
+		lines = append(lines, st.Warn.Render(trunc("  skipped: "+sk, m.w)))
+	}
+	return append(lines, m.notes(s.Notes)...)
+}
+
+func (m *Model) solution(s *analysis.SolutionCycle) []string {
+	st := m.ctx.Styles
+	lines := []string{st.Accent.Render(fmt.Sprintf("%s: %s = %s", s.Formula, s.Solved.Label, m.pm(s.Solved.Value, s.Solved.Uncertainty)))}
+	for _, t := range s.Terms {
+		flag := " "
+		if t.Unknown {
+			flag = "?"
+		}
+		src := t.Source.Kind.String()
+		if t.Source.Key != "" {
+			src += ": " + t.Source.Key
+		}
+		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s ×%-3g %22s  %s", flag, t.Reaction, t.Multiplicity, m.pm(t.Value, t.Uncertainty), src), m.w))
+	}
+	if s.Measured != nil {
+		lines = append(lines, fmt.Sprintf("measured: %s — solved − measured %s", m.pm(s.Measured.Value, s.Measured.Uncertainty), m.ctx.Signed(s.Difference)))
+	}
+	lines = append(lines, st.Muted.Render(wrap("hydration scale: "+s.Scale+" — "+s.ScaleNote, m.w)))
+	return append(lines, m.notes(s.Notes)...)
+}
+
+func (m *Model) radius(r *analysis.DerivedRadius) []string {
+	st := m.ctx.Styles
+	val := func(v float64, err string) string {
+		if err != "" {
+			return "— (" + err + ")"
+		}
+		return fmt.Sprintf("%.3f Å", v)
+	}
+	lines := []string{
+		st.Accent.Render(fmt.Sprintf("%s: radius of %s reproducing U = %s %s (%s)", r.Formula, r.Ion, m.ctx.Signed(r.LatticeEnergy), m.ctx.Units, r.LatticeFrom)),
+		fmt.Sprintf("counter-ion %s at %.3f Å (%s)", r.Counter, r.CounterRadius.Value, r.CounterRadius.From),
+		"Kapustinskii (1956 constants):        " + val(r.Kapustinskii, r.KapustinskiiErr),
+		"Kapustinskii (K = 1214 kJ·Å/mol):     " + val(r.KapustinskiiHandbook, r.KapustinskiiHandbookErr),
+		"volume-based (sphere of its volume):  " + val(r.VolumeRadius, r.VolumeErr),
+		fmt.Sprintf("effective Born–Mayer ρ:               %s (usual %.3f Å; %s, d₀ %.3f Å)", val(r.EffectiveRho, r.RhoErr), r.DefaultRho, r.Structure, r.D0),
+	}
+	if r.Tabulated != nil {
+		lines = append(lines, fmt.Sprintf("the data's radius: %.3f Å (%s)", r.Tabulated.Value, r.Tabulated.From))
+	}
+	return append(lines, m.notes(r.Notes)...)
+}
