@@ -264,3 +264,24 @@ func TestSmallWindowTogglesDrawing(t *testing.T) {
 		}
 	}
 }
+
+func TestDrawingFollowsTheWindow(t *testing.T) {
+	_, m, _ := setup(t, "NaCl")
+	widest := func() int {
+		n := 0
+		for _, l := range strings.Split(m.View(), "\n") {
+			n = max(n, len([]rune(l)))
+		}
+		return n
+	}
+	m.SetSize(80, 21)
+	narrow, narrowLines := widest(), strings.Count(m.View(), "\n")
+	m.SetSize(120, 37)
+	wide, wideLines := widest(), strings.Count(m.View(), "\n")
+	if narrow > 80 || wide > 120 || wide <= narrow {
+		t.Errorf("widest line %d at 80 columns, %d at 120", narrow, wide)
+	}
+	if wideLines <= narrowLines {
+		t.Errorf("%d lines at 37 rows, %d at 21: the drawing did not grow", wideLines, narrowLines)
+	}
+}
