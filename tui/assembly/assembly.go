@@ -370,8 +370,17 @@ func (m *Model) View() string {
 		m.restart()
 	}
 	lines := []string{st.Title.Render(fmt.Sprintf("Assembling the cycle of %s — step %d of %d", c.Formula, min(len(m.decided)+1, len(m.order)), len(m.order)))}
-	// The decided steps, one line each.
+	// The decided steps, one line each; in a small window only the latest,
+	// so the proposal and the drawing keep their room.
+	first := 0
+	if keep := max(3, m.h/3); len(m.decided) > keep {
+		first = len(m.decided) - keep
+		lines = append(lines, st.Muted.Render(fmt.Sprintf(" … %d earlier steps decided", first)))
+	}
 	for i, k := range m.order[:len(m.decided)] {
+		if i < first {
+			continue
+		}
 		s, _ := c.Step(k)
 		val := m.ctx.Signed(s.Value)
 		if s.Unknown {
