@@ -42,7 +42,7 @@ type Styles struct {
 
 // Layout constants of the text rendering.
 const (
-	axisWidth     = 7 // "+1000 ┤"
+	minAxisWidth  = 7 // "+1000 ┤"
 	minSpacing    = 6
 	maxSpacing    = 11
 	minLabelWidth = 14
@@ -114,12 +114,36 @@ type Geometry struct {
 	Rows []int
 	// LabelX is the first column of the level labels.
 	LabelX int
+	// AxisWidth is the width of the energy axis with its tick labels.
+	AxisWidth int
+}
+
+// ticks returns the axis values for a span drawn in h rows.
+func ticks(lo, hi float64, h int) []float64 {
+	step := niceStep((hi - lo) / math.Max(1, float64(h)/4))
+	var out []float64
+	for v := math.Ceil(lo/step) * step; v <= hi+1e-9; v += step {
+		out = append(out, v)
+	}
+	return out
+}
+
+// axisWidthFor is the width the tick labels need, plus " ┤".
+func axisWidthFor(lo, hi float64, h int) int {
+	w := minAxisWidth
+	for _, v := range ticks(lo, hi, h) {
+		w = max(w, len([]rune(FormatTick(v)))+2)
+	}
+	return w
 }
 
 // Layout computes the text geometry for a w×h box.
 func (d Diagram) Layout(w, h int) Geometry {
 	n := len(d.Arrows)
 	g := Geometry{Columns: make([]int, n), Rows: make([]int, len(d.Levels))}
+	lo, hi := d.span()
+	axisWidth := axisWidthFor(lo, hi, h)
+	g.AxisWidth = axisWidth
 	spacing := maxSpacing
 	if n > 0 {
 		spacing = (w - axisWidth - minLabelWidth - 2) / n
@@ -129,7 +153,6 @@ func (d Diagram) Layout(w, h int) Geometry {
 		g.Columns[i] = axisWidth + 2 + i*spacing
 	}
 	g.LabelX = axisWidth + 2 + n*spacing
-	lo, hi := d.span()
 	for i, l := range d.Levels {
 		g.Rows[i] = rowOf(l.Energy, lo, hi, h)
 	}
@@ -163,7 +186,7 @@ func rowOf(e, lo, hi float64, h int) int {
 
 // Render draws the diagram into exactly h lines of at most w cells.
 func (d Diagram) Render(w, h int, st Styles) string {
-	if w < axisWidth+minSpacing+4 || h < 4 {
+	if w < minAxisWidth+minSpacing+4 || h < 4 {
 		return fit("(too small)", w, h)
 	}
 	if len(d.Levels) == 0 {
@@ -172,7 +195,7 @@ func (d Diagram) Render(w, h int, st Styles) string {
 	geo := d.Layout(w, h)
 	g := newGrid(w, h)
 	lo, hi := d.span()
-	d.drawAxis(g, lo, hi)
+	d.drawAxis(g, lo, hi, geo.AxisWidth)
 
 	// Level lines: from the leftmost to the rightmost arrow that touches it.
 	for i := range d.Levels {
@@ -189,7 +212,7 @@ func (d Diagram) Render(w, h int, st Styles) string {
 			}
 		}
 		if left < 0 {
-			left, right = axisWidth+1, axisWidth+3
+			left, right = geo.AxisWidth+1, geo.AxisWidth+3
 		}
 		for x := left - 2; x <= right+2; x++ {
 			if g.free(x, geo.Rows[i]) {
@@ -269,12 +292,11 @@ func (d Diagram) validArrow(ar Arrow) bool {
 	return ar.From >= 0 && ar.To >= 0 && ar.From < len(d.Levels) && ar.To < len(d.Levels)
 }
 
-func (d Diagram) drawAxis(g *grid, lo, hi float64) {
-	step := niceStep((hi - lo) / math.Max(1, float64(g.h)/4))
+func (d Diagram) drawAxis(g *grid, lo, hi float64, axisWidth int) {
 	for y := range g.h {
 		g.set(axisWidth-1, y, '│', clsAxis)
 	}
-	for v := math.Ceil(lo/step) * step; v <= hi+1e-9; v += step {
+	for _, v := range ticks(lo, hi, g.h) {
 		y := rowOf(v, lo, hi, g.h)
 		label := FormatTick(v)
 		g.text(axisWidth-2-len([]rune(label)), y, label, clsAxis)

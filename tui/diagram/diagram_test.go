@@ -133,3 +133,12 @@ func TestNiceStep(t *testing.T) {
 		}
 	}
 }
+
+func TestWideTickLabelsAreWhole(t *testing.T) {
+	d := Diagram{Levels: []Level{{"a", 0}, {"b", 12000}, {"c", -1700}},
+		Arrows: []Arrow{{0, 1, "up", "+12000", false}, {1, 2, "down", "−13700", true}}}
+	out := d.Render(80, 20, Styles{})
+	if !strings.Contains(out, "+10000 ┤") {
+		t.Errorf("tick +10000 cut:\n%s", out)
+	}
+}
