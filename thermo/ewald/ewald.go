@@ -127,7 +127,11 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 	}
 	target := math.Max(eps, FinestAccuracy)
 
-	s := newSystem(c)
+	full := newSystem(c, true)
+	s := full
+	if prim, ok := full.primitive(); ok {
+		s = prim
+	}
 	alpha := opt.alpha
 	if alpha == 0 {
 		alpha = s.balancedAlpha()
@@ -146,12 +150,12 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 			return Result{}, fmt.Errorf("ewald.Sum: crystal %q with %d sites needs about %.3g terms (limit %.3g): %w",
 				c.Name, len(c.Sites), w, float64(maxTerms), ErrTooLarge)
 		}
-		parts = s.evaluate(alpha, rc, kc)
+		parts = full.expand(s, s.evaluate(alpha, rc, kc))
 		if i, j := parts.overlap[0], parts.overlap[1]; i >= 0 {
 			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: sites %d (%s) and %d (%s) sit at the same position (closer than %g Å)",
 				c.Name, i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, coincident)
 		}
-		res = s.result(parts, alpha, rc, kc, eps, math.Exp(-p*p))
+		res = full.result(parts, alpha, rc, kc, eps, math.Exp(-p*p))
 		trunc = s.truncationError(alpha, rc, kc) / math.Abs(parts.total())
 		if !(trunc > target) || attempt == 3 {
 			break
@@ -183,9 +187,21 @@ type system struct {
 	pos    []crystal.Vec3 // Cartesian, Å
 	q      []float64
 	q2     float64 // Σ q²
+
+	// Internal translations (see orbits): rep[i] is the representative of
+	// site i's orbit, reps lists the representatives (nil when g = 1).
+	rep        []int
+	reps       []int
+	g          int
+	generators []crystal.Vec3
+
+	// origin[i] is the index in the caller's crystal of site i (nil: the
+	// same index), for the primitive cell of a larger one.
+	origin []int
 }
 
-func newSystem(c *crystal.Crystal) *system {
+// newSystem wraps c; with detect it also looks for internal translations.
+func newSystem(c *crystal.Crystal, detect bool) *system {
 	s := &system{c: c, lat: c.Lattice, recip: c.Reciprocal(), volume: c.Volume()}
 	n := len(c.Sites)
 	s.frac = make([]crystal.Vec3, n)
@@ -200,6 +216,20 @@ func newSystem(c *crystal.Crystal) *system {
 		s.pos[i] = c.Cartesian(f)
 		s.q[i] = site.Charge
 		s.q2 += site.Charge * site.Charge
+	}
+	s.rep, s.g = make([]int, n), 1
+	for i := range s.rep {
+		s.rep[i] = i
+	}
+	if detect {
+		s.rep, s.g, s.generators = s.orbits()
+	}
+	if s.g > 1 {
+		for i, r := range s.rep {
+			if r == i {
+				s.reps = append(s.reps, i)
+			}
+		}
 	}
 	return s
 }
@@ -267,25 +297,41 @@ type partialSums struct {
 
 func (p partialSums) total() float64 { return p.real + p.recip + p.self }
 
+// expand turns the partial sums of sub, the primitive cell of s (or s
+// itself), into those of s: energies times the number of primitive cells,
+// potentials copied to every site of an orbit, site indices mapped back.
+func (s *system) expand(sub *system, ps partialSums) partialSums {
+	if sub == s {
+		return ps
+	}
+	index := make(map[int]int, len(sub.origin))
+	for k, o := range sub.origin {
+		index[o] = k
+	}
+	f := float64(s.g)
+	out := ps
+	out.real, out.recip, out.self, out.magnitude = f*ps.real, f*ps.recip, f*ps.self, f*ps.magnitude
+	out.phi = make([]float64, len(s.q))
+	for i, r := range s.rep {
+		out.phi[i] = ps.phi[index[r]]
+	}
+	mapPair := func(p [2]int) [2]int {
+		if p[0] < 0 {
+			return p
+		}
+		return [2]int{sub.origin[p[0]], sub.origin[p[1]]}
+	}
+	out.pair, out.overlap = mapPair(ps.pair), mapPair(ps.overlap)
+	return out
+}
+
 func (s *system) evaluate(alpha, rc, kc float64) partialSums {
 	n := len(s.q)
 	ps := partialSums{phi: make([]float64, n), nearest: math.Inf(1), pair: [2]int{-1, -1}}
-	rep, g := s.orbits()
-	var reps []int
-	if g > 1 {
-		for i, r := range rep {
-			if r == i {
-				reps = append(reps, i)
-			}
-		}
-	}
 	phiReal := make([]float64, n)
-	ps.realTerms, ps.nearest, ps.pair, ps.overlap = s.realSpace(alpha, rc, phiReal, reps)
+	ps.realTerms, ps.nearest, ps.pair, ps.overlap = s.realSpace(alpha, rc, phiReal)
 	phiRecip := make([]float64, n)
-	ps.recipTerms = s.reciprocalSpace(alpha, kc, phiRecip, reps)
-	for i, r := range rep {
-		phiReal[i], phiRecip[i] = phiReal[r], phiRecip[r]
-	}
+	ps.recipTerms = s.reciprocalSpace(alpha, kc, phiRecip)
 	selfFactor := 2 * alpha / math.Sqrt(math.Pi)
 	for i, q := range s.q {
 		self := -selfFactor * q

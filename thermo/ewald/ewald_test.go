@@ -396,9 +396,11 @@ func TestErrors(t *testing.T) {
 	}
 }
 
-// TestTooLarge: a cell whose sum would not finish (250,000 ions) is refused
-// with ErrTooLarge instead of running for ever; a needle-shaped cell, whose
-// images crowd along one axis, still completes.
+// TestTooLarge: a cell whose sum would not finish (250,000 ions, one of them
+// displaced so that the cell cannot be reduced to a primitive one) is
+// refused with ErrTooLarge instead of running for ever; a needle-shaped
+// cell, whose images crowd along one axis, still completes. A perfect
+// supercell of the same size is reduced to its primitive cell and summed.
 func TestTooLarge(t *testing.T) {
 	c, err := crystal.Build("caesium-chloride", nil)
 	if err != nil {
@@ -408,6 +410,11 @@ func TestTooLarge(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	r, err := Sum(big, Options{})
+	if err != nil || math.Abs(r.MadelungConstant-1.762675) > 1e-6 { // CsCl, from memory (see TestMadelungCubic)
+		t.Errorf("perfect 50×50×50 supercell: A = %.9f, %v", r.MadelungConstant, err)
+	}
+	big.Sites[7].Frac[0] += 0.001
 	if _, err := Sum(big, Options{}); !errors.Is(err, ErrTooLarge) {
 		t.Errorf("250,000 ions: got %v, want ErrTooLarge", err)
 	}
@@ -420,7 +427,7 @@ func TestTooLarge(t *testing.T) {
 		},
 		FormulaUnits: 1,
 	}
-	r, err := Sum(needle, Options{Accuracy: 1e-6})
+	r, err = Sum(needle, Options{Accuracy: 1e-6})
 	var ae *AccuracyError
 	if err != nil && !errors.Is(err, ErrTooLarge) && !errors.As(err, &ae) {
 		t.Errorf("needle: %v", err)

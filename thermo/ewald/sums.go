@@ -180,8 +180,7 @@ func (p *realPart) pairTerm(s *system, im *imageSum, i, j int) (float64, int) {
 // images within rc (the term j = i, n = 0 left out). It returns the number
 // of pair terms and the shortest cation–anion distance met, with its pair
 // (−1, −1 when none lies within rc), and a pair of coincident sites if any.
-// With reps non-nil only the potentials of the listed sites are computed.
-func (s *system) realSpace(alpha, rc float64, phi []float64, reps []int) (terms int, nearest float64, pair [2]int, overlap [2]int) {
+func (s *system) realSpace(alpha, rc float64, phi []float64) (terms int, nearest float64, pair [2]int, overlap [2]int) {
 	n := len(s.q)
 	im := newImageSum(s, alpha, rc)
 	// Self images: the same for every site.
@@ -193,25 +192,6 @@ func (s *system) realSpace(alpha, rc float64, phi []float64, reps []int) (terms 
 		p := &parts[c]
 		p.nearest, p.pair, p.overlap = math.Inf(1), [2]int{-1, -1}, [2]int{-1, -1}
 		p.phi = make([]float64, n)
-		if reps != nil {
-			// Translation-equivalent sites share one potential: sum from
-			// each representative to every site.
-			for r := c; r < len(reps); r += chunks {
-				i := reps[r]
-				acc := s.q[i] * selfSum
-				p.terms += selfCount
-				for j := 0; j < n; j++ {
-					if j == i {
-						continue
-					}
-					sum, count := p.pairTerm(s, im, i, j)
-					acc += s.q[j] * sum
-					p.terms += count
-				}
-				p.phi[i] += acc
-			}
-			return
-		}
 		for i := c; i < n; i += chunks {
 			qi := s.q[i]
 			acc := qi * selfSum
@@ -248,9 +228,8 @@ func (s *system) realSpace(alpha, rc float64, phi []float64, reps []int) (terms 
 // reciprocalSpace adds to phi[i] the reciprocal-space potential
 // (4π/V)·Σ_{k≠0} exp(−k²/4α²)/k²·Re(S(k)·e^{−ik·rᵢ}), S(k) = Σⱼ qⱼe^{ik·rⱼ},
 // over |k| ≤ kc, and returns the number of ±k pairs used. Each e^{ik·r} is
-// built from per-site powers of e^{2πi·fₐ}, by multiplication only. With
-// reps non-nil only the potentials of the listed sites are computed.
-func (s *system) reciprocalSpace(alpha, kc float64, phi []float64, reps []int) int {
+// built from per-site powers of e^{2πi·fₐ}, by multiplication only.
+func (s *system) reciprocalSpace(alpha, kc float64, phi []float64) int {
 	n := len(s.q)
 	var b [3]crystal.Vec3
 	var mmax [3]int
@@ -358,14 +337,8 @@ func (s *system) reciprocalSpace(alpha, kc float64, phi []float64, reps []int) i
 					}
 					sRe, sIm = w*sRe, w*sIm
 					// Re(S·conj(e_j)) = sRe·eRe + sIm·eIm.
-					if reps == nil {
-						for j := 0; j < n; j++ {
-							out[j] += sRe*eRe[j] + sIm*eIm[j]
-						}
-					} else {
-						for _, j := range reps {
-							out[j] += sRe*eRe[j] + sIm*eIm[j]
-						}
+					for j := 0; j < n; j++ {
+						out[j] += sRe*eRe[j] + sIm*eIm[j]
 					}
 				}
 			}

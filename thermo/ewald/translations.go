@@ -38,17 +38,17 @@ func keyOf(f crystal.Vec3, q float64) positionKey {
 // orbits finds the internal translations of the cell (fractional vectors t
 // that map every site onto a site of equal charge, as in a supercell or a
 // centred cell) and returns, for every site, the index of the first site of
-// its translation orbit, and the number of translations g. Sites of one
-// orbit have equal potentials. With g = 1 every site is its own
-// representative.
-func (s *system) orbits() (rep []int, g int) {
+// its translation orbit, the number of translations g and a set of
+// translations that generates them all. Sites of one orbit have equal
+// potentials. With g = 1 every site is its own representative.
+func (s *system) orbits() (rep []int, g int, generators []crystal.Vec3) {
 	n := len(s.q)
 	rep = make([]int, n)
 	for i := range rep {
 		rep[i] = i
 	}
 	if n < 2 {
-		return rep, 1
+		return rep, 1, nil
 	}
 	index := make(map[positionKey]int, n)
 	for i, f := range s.frac {
@@ -76,7 +76,6 @@ func (s *system) orbits() (rep []int, g int) {
 	zero := crystal.Vec3{}
 	translations := []crystal.Vec3{zero}
 	inGroup := map[positionKey]bool{keyOf(zero, 0): true}
-	var generators []crystal.Vec3
 	for c := 1; c < n; c++ {
 		if s.q[c] != s.q[0] {
 			continue
@@ -105,7 +104,7 @@ func (s *system) orbits() (rep []int, g int) {
 	}
 	translations = translations[1:] // leave out the identity
 	if len(translations) == 0 {
-		return rep, 1
+		return rep, 1, nil
 	}
 	for i := 0; i < n; i++ {
 		if rep[i] != i {
@@ -117,5 +116,5 @@ func (s *system) orbits() (rep []int, g int) {
 			}
 		}
 	}
-	return rep, len(translations) + 1
+	return rep, len(translations) + 1, generators
 }

@@ -1,0 +1,156 @@
+package ewald
+
+import (
+	"math"
+
+	"enthalpath/thermo/crystal"
+)
+
+// primitive returns the system of the primitive cell of s: the lattice
+// spanned by s's lattice vectors and its internal translations, holding one
+// site of each translation orbit (s.reps, in order). The energy of s is g
+// times the energy of that cell and every site of an orbit has the
+// potential of its representative, so summing the small cell is exact. It
+// returns false when s has no internal translations or the basis cannot be
+// found reliably, and the caller sums s itself.
+func (s *system) primitive() (*system, bool) {
+	if s.g < 2 || len(s.generators) == 0 {
+		return nil, false
+	}
+	// Common denominator D of the generators' fractional coordinates: the
+	// order of any translation divides g.
+	den := int64(1)
+	for _, t := range s.generators {
+		d, ok := denominator(t, int64(s.g))
+		if !ok {
+			return nil, false
+		}
+		den = den / gcd(den, d) * d
+	}
+	cols := [][3]int64{{den, 0, 0}, {0, den, 0}, {0, 0, den}}
+	for _, t := range s.generators {
+		var c [3]int64
+		for k := range t {
+			c[k] = int64(math.Round(t[k] * float64(den)))
+		}
+		cols = append(cols, c)
+	}
+	basis, ok := hermiteBasis(cols)
+	if !ok {
+		return nil, false
+	}
+	var lat [3]crystal.Vec3
+	for i := 0; i < 3; i++ {
+		for k := 0; k < 3; k++ {
+			lat[i] = lat[i].Add(s.lat[k].Scale(float64(basis[i][k]) / float64(den)))
+		}
+	}
+	lat = reduceBasis(lat)
+	prim := &crystal.Crystal{Name: s.c.Name + " (primitive)", Lattice: lat, FormulaUnits: 1}
+	if v := prim.Volume(); math.Abs(v*float64(s.g)-s.volume) > 1e-9*s.volume {
+		return nil, false
+	}
+	for _, r := range s.reps {
+		site := s.c.Sites[r]
+		site.Frac = prim.Fractional(s.pos[r])
+		prim.Sites = append(prim.Sites, site)
+	}
+	p := newSystem(prim, false)
+	p.origin = s.reps
+	return p, true
+}
+
+// denominator returns the smallest d ≤ limit with d·t integral.
+func denominator(t crystal.Vec3, limit int64) (int64, bool) {
+	for d := int64(1); d <= limit; d++ {
+		ok := true
+		for k := range t {
+			x := t[k] * float64(d)
+			if math.Abs(x-math.Round(x)) > 1e-6 {
+				ok = false
+				break
+			}
+		}
+		if ok {
+			return d, true
+		}
+	}
+	return 0, false
+}
+
+func gcd(a, b int64) int64 {
+	for b != 0 {
+		a, b = b, a%b
+	}
+	if a < 0 {
+		return -a
+	}
+	return a
+}
+
+// hermiteBasis returns three integer vectors spanning the same lattice as
+// cols (which must have rank 3), by column operations that keep the lattice
+// (Euclid's algorithm on each coordinate in turn: a Hermite normal form).
+func hermiteBasis(cols [][3]int64) ([3][3]int64, bool) {
+	for r := 0; r < 3; r++ {
+		for {
+			best := -1
+			for j := r; j < len(cols); j++ {
+				if cols[j][r] != 0 && (best < 0 || abs64(cols[j][r]) < abs64(cols[best][r])) {
+					best = j
+				}
+			}
+			if best < 0 {
+				return [3][3]int64{}, false
+			}
+			cols[r], cols[best] = cols[best], cols[r]
+			done := true
+			for j := r + 1; j < len(cols); j++ {
+				if q := cols[j][r] / cols[r][r]; q != 0 {
+					for k := 0; k < 3; k++ {
+						cols[j][k] -= q * cols[r][k]
+					}
+				}
+				if cols[j][r] != 0 {
+					done = false
+				}
+			}
+			if done {
+				break
+			}
+		}
+	}
+	return [3][3]int64{cols[0], cols[1], cols[2]}, true
+}
+
+func abs64(x int64) int64 {
+	if x < 0 {
+		return -x
+	}
+	return x
+}
+
+// reduceBasis shortens the lattice vectors by subtracting integer multiples
+// of one another until no such step shortens any (a size reduction that
+// keeps the lattice), so the image searches stay compact.
+func reduceBasis(b [3]crystal.Vec3) [3]crystal.Vec3 {
+	for iter := 0; iter < 100; iter++ {
+		changed := false
+		for i := 0; i < 3; i++ {
+			for j := 0; j < 3; j++ {
+				if i == j {
+					continue
+				}
+				mu := b[i].Dot(b[j]) / b[j].Dot(b[j])
+				if math.Abs(mu) > 0.5+1e-9 {
+					b[i] = b[i].Sub(b[j].Scale(math.Round(mu)))
+					changed = true
+				}
+			}
+		}
+		if !changed {
+			break
+		}
+	}
+	return b
+}
