@@ -120,3 +120,39 @@ func TestMovementStaysInRange(t *testing.T) {
 		t.Error("the highlighted row is scrolled out of view")
 	}
 }
+
+func TestUserCompoundsAreMarked(t *testing.T) {
+	f := drive.NewFixture(t, t.TempDir())
+	// An overlay with one invented compound (a test fixture, not data) and
+	// one override of a built-in value.
+	db, err := f.DB.WithOverlay(strings.NewReader(`
+[[compound]]
+formula = "KBr2"
+name = "invented test compound"
+cation = "K+"
+cation_count = 1
+anion = "Br-"
+anion_count = 2
+
+[[compound]]
+formula = "NaCl"
+formation_kj_per_mol = -411.0
+formation_uncertainty = 0.5
+`), "user.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	f.Ctx.DB = db
+	m := New(f.Ctx)
+	m.SetSize(100, 30)
+	u := f.Screen(m)
+	drive.Run(u, drive.Text("KBr2")...)
+	if m.Selected() != "KBr2" {
+		t.Fatalf("the user's compound is not on the shelf: %v", m.Matches())
+	}
+	drive.Run(u, drive.Key("esc"))
+	drive.Run(u, drive.Text("sodium chloride")...)
+	if v := m.View(); !strings.Contains(v, "›u NaCl") {
+		t.Errorf("an overridden compound lacks its u marker:\n%s", v)
+	}
+}
