@@ -66,6 +66,7 @@ type Model struct {
 	prompt        *prompt.Model
 	quitting      bool
 	recovered     string // path of the recovery file written, for the last frame
+	memo          *cycle.Memo
 }
 
 var _ tea.Model = (*Model)(nil)
@@ -77,7 +78,8 @@ func New(opts Options) tea.Model {
 		opts.MaxInputLen = DefaultMaxInputLen
 	}
 	st := theme.DefaultStyles(opts.Renderer)
-	m := &Model{Keys: DefaultKeyMap(), Confirm: DefaultConfirmKeys(), opts: opts, sess: &session.Session{}}
+	m := &Model{Keys: DefaultKeyMap(), Confirm: DefaultConfirmKeys(), opts: opts, sess: &session.Session{},
+		memo: cycle.NewMemo()} // one Ewald memo for every cycle this session opens
 	m.ctx = &screen.Context{Styles: st, Units: thermo.KJPerMol, DB: opts.DB, MaxInputLen: opts.MaxInputLen,
 		ResolvePath: opts.resolver()}
 	m.help = help.New()
@@ -281,7 +283,7 @@ func (m *Model) switchTo(id screen.ID) tea.Cmd {
 }
 
 func (m *Model) openCmd(req screen.OpenMsg) tea.Cmd {
-	db := m.opts.DB
+	db, memo := m.opts.DB, m.memo
 	resolve := m.ctx.ResolvePath
 	return func() tea.Msg {
 		if db == nil {
@@ -293,9 +295,12 @@ func (m *Model) openCmd(req screen.OpenMsg) tea.Cmd {
 				return openedMsg{err: err}
 			}
 			c, err := cycle.Open(db, path)
+			if c != nil {
+				c.SetMemo(memo)
+			}
 			return openedMsg{c: c, path: path, err: err}
 		}
-		c, err := cycle.Build(db, req.Formula, cycle.Options{})
+		c, err := cycle.Build(db, req.Formula, cycle.Options{Memo: memo})
 		return openedMsg{c: c, guided: req.Guided, err: err}
 	}
 }
