@@ -53,8 +53,9 @@
 // polynomial fits of exp(x²)·erfc(x), relative error below 1e-14). The
 // reciprocal sum builds e^{ik·r} from per-site powers of e^{2πi·f} by
 // multiplication, and the Gaussian factor along each row of k by a
-// multiplicative recurrence. Sites that internal lattice translations map
-// onto each other (centred cells, supercells) are computed once. Large cells
+// multiplicative recurrence. A cell with internal lattice translations (a
+// centred cell, a perfect supercell) is summed on its primitive cell, found
+// from those translations, and the result scaled back. Large cells
 // are summed on several goroutines in a fixed number of chunks reduced in a
 // fixed order, so results do not depend on the number of processors.
 //
