@@ -139,7 +139,7 @@ func TestDataOverlay(t *testing.T) {
 	if code != ExitOK {
 		t.Fatalf("exit %d: %s", code, errs)
 	}
-	if !strings.Contains(out, "108.25 kJ/mol  [user; override of 107.5 ± 0.7 kJ/mol [codata1989]]") {
+	if !strings.Contains(out, "108.25 kJ/mol  [user; override of 107.5 ± 0.7 kJ/mol [nist-webbook]]") {
 		t.Errorf("override not shown:\n%s", out)
 	}
 	code, out, _ = runDataCmd(t, file, "Na", "--json")
