@@ -186,3 +186,30 @@ func TestFastKeysAreTakenOneByOne(t *testing.T) {
 		t.Errorf("step %s = %v after typing e250 enter fast, want 250", s.Key, s.Value)
 	}
 }
+
+// TestConventionKeys: c and t switch the conventions the bench says they
+// switch, and for a neutral salt the lattice value from Hess's law does
+// not depend on the ionization convention (the 5/2·RT terms cancel; see
+// the cycle package comment, after Jenkins, J. Chem. Educ. 82, 950 (2005)).
+func TestConventionKeys(t *testing.T) {
+	db := loadDB(t)
+	m, u, _ := newRoot(t, db, 100, 30)
+	drive.Run(u, screen.OpenMsg{Formula: "KCl"})
+	before := m.Session().Solved().Lattice
+	keys(u, "t")
+	c := m.Session().Cycle
+	if c.Conventions.Ionization.String() != "298K" {
+		t.Fatalf("t: ionization convention %v", c.Conventions.Ionization)
+	}
+	after := m.Session().Solved().Lattice
+	if d := after.Enthalpy - before.Enthalpy; d*d > 1e-12 {
+		t.Errorf("lattice ΔH_L moved by %g kJ/mol with the ionization convention", d)
+	}
+	keys(u, "c")
+	if c.Conventions.Lattice.Symbol() != "U" || !strings.Contains(m.View(), "U, ionization at 298K") {
+		t.Errorf("c: lattice convention %v", c.Conventions.Lattice)
+	}
+	if got := m.Session().Solved().Solved.Value; (got-after.Energy)*(got-after.Energy) > 1e-12 {
+		t.Errorf("under U the solved lattice step is %v, want U = %v", got, after.Energy)
+	}
+}
