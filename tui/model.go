@@ -367,18 +367,18 @@ func (m *Model) View() (out string) {
 	default:
 		body = m.screens[m.active].View()
 	}
-	body = lipgloss.NewStyle().Width(w).Height(h).MaxHeight(h).MaxWidth(w).Render(body)
+	body = m.ctx.Styles.Renderer().NewStyle().Width(w).Height(h).MaxHeight(h).MaxWidth(w).Render(body)
 	return lipgloss.JoinVertical(lipgloss.Left, m.header(), body, m.statusLine(), m.helpLine())
 }
 
 func (m *Model) centre(box string, w, h int) string {
-	return lipgloss.Place(w, h, lipgloss.Center, lipgloss.Center, box)
+	return m.ctx.Styles.Renderer().Place(w, h, lipgloss.Center, lipgloss.Center, box)
 }
 
 func (m *Model) smallView() string {
 	msg := fmt.Sprintf("The window is %d×%d; the workshop needs at least %d×%d.\nEnlarge the window, or press q to quit.",
 		m.width, m.height, MinWidth, MinHeight)
-	return lipgloss.NewStyle().Width(m.width).MaxHeight(m.height).Render(m.ctx.Styles.Warn.Render(msg))
+	return m.ctx.Styles.Renderer().NewStyle().Width(m.width).MaxHeight(m.height).Render(m.ctx.Styles.Warn.Render(msg))
 }
 
 func (m *Model) header() string {
@@ -404,7 +404,7 @@ func (m *Model) header() string {
 	right = st.Header.Render(right)
 	gap := m.width - lipgloss.Width(left) - lipgloss.Width(right)
 	if gap < 1 {
-		return lipgloss.NewStyle().MaxWidth(m.width).Render(left)
+		return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(left)
 	}
 	return left + strings.Repeat(" ", gap) + right
 }
@@ -423,11 +423,11 @@ func (m *Model) statusLine() string {
 	default:
 		out = st.Muted.Render("enthalpath workshop — ? or f1 lists every key")
 	}
-	return lipgloss.NewStyle().MaxWidth(m.width).Render(out)
+	return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(out)
 }
 
 func (m *Model) helpLine() string {
-	return lipgloss.NewStyle().MaxWidth(m.width).Render(m.help.ShortHelpView(m.ShortHelp()))
+	return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(m.help.ShortHelpView(m.ShortHelp()))
 }
 
 // ShortHelp is the always-visible help line: the screen's main keys and
@@ -522,7 +522,7 @@ func (m *Model) keyColumns(groups [][]key.Binding, width int) string {
 			bands = append(bands, lipgloss.JoinHorizontal(lipgloss.Top, band...))
 			band, used = nil, 0
 		}
-		band = append(band, lipgloss.NewStyle().PaddingRight(3).Render(col))
+		band = append(band, m.ctx.Styles.Renderer().NewStyle().PaddingRight(3).Render(col))
 		used += w
 	}
 	if len(band) > 0 {

@@ -225,7 +225,7 @@ func (m *Model) sourceView(h int) string {
 	}
 	src := s.Source
 	w := min(m.w-4, 100)
-	wrap := lipgloss.NewStyle().Width(w - 4)
+	wrap := m.ctx.Styles.Renderer().NewStyle().Width(w - 4)
 	lines := []string{
 		st.Title.Render(s.Label) + st.Muted.Render("  ("+s.Key+")"),
 		"reaction:   " + s.Reaction,
@@ -257,7 +257,7 @@ func (m *Model) sourceView(h int) string {
 	}
 	lines = append(lines, "", st.Muted.Render("any key closes this box"))
 	box := st.Panel.Width(w).Render(strings.Join(lines, "\n"))
-	return lipgloss.NewStyle().MaxHeight(max(h, 1)).Render(box)
+	return m.ctx.Styles.Renderer().NewStyle().MaxHeight(max(h, 1)).Render(box)
 }
 
 func trunc(s string, n int) string {
