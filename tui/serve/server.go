@@ -72,6 +72,10 @@ func New(cfg Config) (*Server, error) {
 		}
 	}
 	s.ssh, err = wish.NewServer(
+		// The host key goes in as an option: wish.NewServer writes a fresh
+		// id_ed25519 into the working directory and serves it as a second
+		// host key when no signer is set by the time the options have run.
+		func(srv *ssh.Server) error { srv.AddHostKey(signer); return nil },
 		wish.WithPublicKeyAuth(s.checkKey),
 		wish.WithMiddleware(func(ssh.Handler) ssh.Handler { return s.handle }),
 		// A backstop for connections that never open a session; sessions
@@ -81,7 +85,6 @@ func New(cfg Config) (*Server, error) {
 	if err != nil {
 		return nil, err
 	}
-	s.ssh.AddHostKey(signer)
 	s.ssh.Version = "enthalpath"
 	s.ssh.ConnCallback = s.onConnect
 	s.ssh.ConnectionFailedCallback = func(conn net.Conn, err error) {
