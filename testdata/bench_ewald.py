@@ -5,7 +5,8 @@ on the machine); run by hand from the repository root or from testdata/:
 
     /usr/bin/python3 testdata/bench_ewald.py [--large] [--pymatgen-acc 12] [--ours-acc 1e-12]
 
-Structures: the built-in prototypes (as built by gen_ewald.py) and displaced
+Structures: the built-in prototypes exactly as the Go package builds them
+(go run ./thermo/ewald/bench -emit-prototypes) and displaced
 rock-salt supercells of 64 and 216 ions (and 1,000 with --large). Both
 codes get exactly the same lattices, positions and charges. Accuracy is
 judged against enthalpath's sum at 1e-13 (itself checked against
@@ -30,14 +31,26 @@ sys.path.insert(0, HERE)
 
 import gen_ewald  # noqa: E402  (same structures as the reference file)
 from pymatgen.analysis.ewald import EwaldSummation  # noqa: E402
-from pymatgen.core import Structure  # noqa: E402
+from pymatgen.core import Lattice, Species, Structure  # noqa: E402
+
+
+def go_prototypes():
+    """The prototypes exactly as the Go package builds them (default
+    parameters), with the slot labels replaced by the example compound's
+    elements from gen_ewald.py."""
+    out = subprocess.run(["go", "run", "./thermo/ewald/bench", "-emit-prototypes"],
+                         cwd=ROOT, capture_output=True, text=True, check=True)
+    ions = {p["name"]: p["ions"] for p in gen_ewald.prototypes()}
+    result = []
+    for r in json.loads(out.stdout):
+        table = ions[r["name"]]
+        species = [Species(table[label][0], q) for label, q in zip(r["species"], r["charges"])]
+        result.append((r["name"], Structure(Lattice(r["lattice"]), species, r["frac"])))
+    return result
 
 
 def structures(large):
-    out = []
-    for p in gen_ewald.prototypes():
-        st = Structure.from_spacegroup(p["group"], p["lattice"], p["species"], p["coords"])
-        out.append((p["key"], st))
+    out = go_prototypes()
     rock = [s for k, s in out if k == "rock-salt"][0]
     rng = random.Random(11)
     for n in ([2, 3, 5] if large else [2, 3]):
@@ -90,8 +103,8 @@ def main():
         records.append({
             "name": name,
             "lattice": st.lattice.matrix.tolist(),
-            "frac": [list(s.frac_coords) for s in st],
-            "charges": [s.specie.oxi_state for s in st],
+            "frac": [[float(x) for x in s.frac_coords] for s in st],
+            "charges": [float(s.specie.oxi_state) for s in st],
             "formula_units": 1,
         })
     ours = run_ours(records, args.ours_acc)

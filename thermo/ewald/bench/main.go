@@ -5,12 +5,16 @@
 // Usage:
 //
 //	go run ./thermo/ewald/bench -in structures.json [-accuracy 1e-12] [-min-time 0.2s]
+//	go run ./thermo/ewald/bench -emit-prototypes
 //
 // The input is a JSON array of objects with "name", "lattice" (three rows,
 // Å), "frac" (fractional positions), "charges" and "formula_units". The
 // output, on stdout, is a JSON array with, per structure, the median wall
 // time of one sum in seconds over several timed batches, the energy in eV
-// per cell and the estimated relative error.
+// per cell and the estimated relative error. With -emit-prototypes it
+// prints every built-in prototype (default parameters) in the input format,
+// with the slot labels in "species", so that the script can hand pymatgen
+// exactly the structures this package builds.
 package main
 
 import (
@@ -28,6 +32,7 @@ import (
 
 type input struct {
 	Name         string        `json:"name"`
+	Species      []string      `json:"species,omitempty"`
 	Lattice      [3][3]float64 `json:"lattice"`
 	Frac         [][3]float64  `json:"frac"`
 	Charges      []float64     `json:"charges"`
@@ -47,7 +52,15 @@ func main() {
 	in := flag.String("in", "", "JSON file of structures")
 	accuracy := flag.Float64("accuracy", 1e-12, "relative accuracy")
 	minTime := flag.Duration("min-time", 200*time.Millisecond, "time per batch; 0 computes without timing")
+	emit := flag.Bool("emit-prototypes", false, "print the built-in prototypes as input records and exit")
 	flag.Parse()
+	if *emit {
+		if err := emitPrototypes(); err != nil {
+			fmt.Fprintln(os.Stderr, "bench:", err)
+			os.Exit(1)
+		}
+		return
+	}
 	if err := run(*in, *accuracy, *minTime); err != nil {
 		fmt.Fprintln(os.Stderr, "bench:", err)
 		os.Exit(1)
@@ -113,5 +126,27 @@ func run(path string, accuracy float64, minTime time.Duration) error {
 	}
 	enc := json.NewEncoder(os.Stdout)
 	enc.SetIndent("", " ")
+	return enc.Encode(out)
+}
+
+func emitPrototypes() error {
+	var out []input
+	for _, p := range crystal.Prototypes() {
+		c, err := crystal.Build(p.Name, nil)
+		if err != nil {
+			return err
+		}
+		rec := input{Name: p.Name, FormulaUnits: c.FormulaUnits}
+		for k := 0; k < 3; k++ {
+			rec.Lattice[k] = c.Lattice[k]
+		}
+		for _, s := range c.Sites {
+			rec.Species = append(rec.Species, s.Species)
+			rec.Frac = append(rec.Frac, s.Frac)
+			rec.Charges = append(rec.Charges, s.Charge)
+		}
+		out = append(out, rec)
+	}
+	enc := json.NewEncoder(os.Stdout)
 	return enc.Encode(out)
 }
