@@ -155,8 +155,10 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: sites %d (%s) and %d (%s) sit at the same position (closer than %g Å)",
 				c.Name, i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, coincident)
 		}
-		res = full.result(parts, alpha, rc, kc, eps, math.Exp(-p*p))
-		trunc = s.truncationError(alpha, rc, kc) / math.Abs(parts.total())
+		// Relative truncation estimate of the cell actually summed (the
+		// primitive one carries 1/g of the energy).
+		trunc = s.truncationError(alpha, rc, kc) * float64(len(s.q)) / float64(len(full.q)) / math.Abs(parts.total())
+		res = full.result(parts, alpha, rc, kc, eps, math.Max(trunc, math.Exp(-p*p)))
 		if !(trunc > target) || attempt == 3 {
 			break
 		}
@@ -344,7 +346,9 @@ func (s *system) evaluate(alpha, rc, kc float64) partialSums {
 	return ps
 }
 
-func (s *system) result(ps partialSums, alpha, rc, kc, eps, tail float64) Result {
+// result converts the partial sums of s into a Result; truncation is the
+// relative truncation error estimated for them.
+func (s *system) result(ps partialSums, alpha, rc, kc, eps, truncation float64) Result {
 	ke := thermo.CoulombEVAngstrom
 	c := s.c
 	r := Result{
@@ -374,6 +378,6 @@ func (s *system) result(ps partialSums, alpha, rc, kc, eps, tail float64) Result
 	total := math.Abs(ps.total())
 	terms := float64(ps.realTerms + ps.recipTerms*len(s.q) + len(s.q))
 	rounding := 4 * 0x1p-53 * math.Sqrt(terms) * ps.magnitude / total
-	r.EstimatedError = math.Max(s.truncationError(alpha, rc, kc)/total, tail) + rounding
+	r.EstimatedError = truncation + rounding
 	return r
 }
