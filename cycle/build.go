@@ -1,7 +1,6 @@
 package cycle
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -66,8 +65,8 @@ func Build(db *data.DB, formula string, opt Options) (*Cycle, error) {
 	if c.memo == nil {
 		c.memo = NewMemo()
 	}
-	comp, cerr := db.Compound(formula)
-	if cerr == nil && opt.Cation == "" && opt.Anion == "" {
+	comp, tabulated := db.FindCompound(formula)
+	if tabulated && opt.Cation == "" && opt.Anion == "" {
 		c.Formula, c.Name, c.Family, c.Tabulated, c.Compound = comp.Formula, comp.Name, comp.Family, true, comp
 		cat, err := db.Ion(comp.Cation)
 		if err != nil {
@@ -83,10 +82,10 @@ func Build(db *data.DB, formula string, opt Options) (*Cycle, error) {
 			return nil, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%d %s and %d %s do not balance", comp.CationCount, cat.Symbol, comp.AnionCount, an.Symbol)}
 		}
 	} else {
-		if err := c.hypothetical(db, formula, opt, cerr); err != nil {
+		if err := c.hypothetical(db, formula, opt); err != nil {
 			return nil, err
 		}
-		if cerr == nil {
+		if tabulated {
 			c.Tabulated, c.Compound, c.Name, c.Family = true, comp, comp.Name, comp.Family
 			if comp.Cation != c.Cation.Ion.Symbol || comp.Anion != c.Anion.Ion.Symbol {
 				// Other ions than the data row's: the row's values do not apply.
@@ -309,15 +308,11 @@ func (b *builder) compoundSteps() {
 
 // hypothetical finds the ions of a formula that is not tabulated (or whose
 // ions the options override).
-func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options, lookupErr error) error {
+func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 	counts, order, err := parseBinary(formula)
-	suggestions := func() []string {
-		var nf *data.NotFoundError
-		if errors.As(lookupErr, &nf) {
-			return nf.Suggestions
-		}
-		return nil
-	}
+	// Suggestions only when an error is returned: building them for every
+	// formula the tables lack would dominate a batch run.
+	suggestions := func() []string { return db.SuggestCompounds(formula) }
 	if err != nil && (opt.Cation == "" || opt.Anion == "") {
 		return &CompoundError{Formula: formula, Reason: "not in the data and not a simple binary formula MₐXᵦ; give its ions with the cation and anion options", Err: err, Suggestions: suggestions()}
 	}
@@ -394,14 +389,13 @@ func gcd(a, b int) int {
 func pickIons(db *data.DB, formula string, order []string, counts map[string]int, opt Options) (data.Ion, data.Ion, error) {
 	first, second := order[0], order[1]
 	var cations, anions []data.Ion
-	for _, in := range db.Ions() {
-		if in.Polyatomic {
-			continue
-		}
-		if in.Core == first && in.Charge > 0 {
+	for _, in := range db.IonsOf(first) {
+		if !in.Polyatomic && in.Charge > 0 {
 			cations = append(cations, in)
 		}
-		if in.Core == second && in.Charge < 0 {
+	}
+	for _, in := range db.IonsOf(second) {
+		if !in.Polyatomic && in.Charge < 0 {
 			anions = append(anions, in)
 		}
 	}

@@ -290,6 +290,18 @@ func (db *DB) IonByCharge(core string, charge int) (Ion, error) {
 	return Ion{}, &NotFoundError{Kind: "ion", Query: q, Suggestions: sugg}
 }
 
+// IonsOf returns copies of the ions whose core is core ("Fe" gives Fe2+
+// and Fe3+; "SO4" gives SO4^2-), in table order, without copying the rest.
+func (db *DB) IonsOf(core string) []Ion {
+	var out []Ion
+	for _, ion := range db.ions {
+		if ion.Core == core {
+			out = append(out, copyIon(ion))
+		}
+	}
+	return out
+}
+
 // Ions returns every ion in table order (monatomic rows first).
 func (db *DB) Ions() []Ion {
 	out := make([]Ion, len(db.ions))
@@ -483,19 +495,36 @@ func (db *DB) ionsWithHydration() []string {
 // with the same composition ("ClNa", "Na Cl", "F2Ca" find NaCl and CaF2;
 // the first tabulated compound wins when polymorphs share a composition).
 func (db *DB) Compound(formula string) (Compound, error) {
+	if c, ok := db.FindCompound(formula); ok {
+		return c, nil
+	}
+	return Compound{}, &NotFoundError{Kind: "compound", Query: formula, Suggestions: db.SuggestCompounds(formula)}
+}
+
+// FindCompound is Compound without the error: it reports whether the
+// tables hold the formula and skips building suggestions, so a miss costs
+// no more than a hit (batch screening looks up thousands of formulas the
+// tables do not hold).
+func (db *DB) FindCompound(formula string) (Compound, bool) {
 	s := strings.TrimSpace(formula)
 	if i, ok := db.compoundIdx[s]; ok {
-		return copyCompound(db.compounds[i]), nil
+		return copyCompound(db.compounds[i]), true
 	}
 	if i, ok := db.compoundFoldIdx[strings.ToLower(s)]; ok {
-		return copyCompound(db.compounds[i]), nil
+		return copyCompound(db.compounds[i]), true
 	}
 	if f, err := ParseFormula(s); err == nil {
 		if i, ok := db.compositionIdx[f.compositionKey()]; ok {
-			return copyCompound(db.compounds[i]), nil
+			return copyCompound(db.compounds[i]), true
 		}
 	}
-	return Compound{}, &NotFoundError{Kind: "compound", Query: formula, Suggestions: db.suggestCompounds(s)}
+	return Compound{}, false
+}
+
+// SuggestCompounds returns up to six tabulated formulas near q: close in
+// spelling, or made of the same elements.
+func (db *DB) SuggestCompounds(q string) []string {
+	return db.suggestCompounds(strings.TrimSpace(q))
 }
 
 // Compounds returns every compound in table order.

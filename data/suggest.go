@@ -107,30 +107,37 @@ func (db *DB) suggestCompounds(q string) []string {
 		cands = append(cands, c.Formula)
 	}
 	out := suggest(q, cands, 4)
-	// Compounds sharing the elements of q.
+	// Compounds sharing the elements of q, compared through the composition
+	// keys built at load: a miss must stay cheap (batch runs look up
+	// thousands of formulas the tables do not hold).
 	if f, err := ParseFormula(q); err == nil {
-		want := f.Composition()
+		want := elementSet(f.compositionKey())
 		for _, c := range db.compounds {
 			if len(out) >= 6 {
 				break
 			}
-			cf, err := ParseFormula(c.Formula)
-			if err != nil {
+			key, ok := db.compKeys[c.Formula]
+			if !ok {
 				continue
 			}
-			comp := cf.Composition()
-			same := len(comp) == len(want)
-			for el := range want {
-				if _, ok := comp[el]; !ok {
-					same = false
-				}
-			}
-			if same {
+			if elementSet(key) == want {
 				out = appendNew(out, c.Formula)
 			}
 		}
 	}
 	return out
+}
+
+// elementSet turns a composition key (a Hill formula) into the list of its
+// elements by dropping the counts: "CaF2" → "CaF". Element symbols start
+// with the only capital letter they hold, so the result is unambiguous.
+func elementSet(hill string) string {
+	return strings.Map(func(r rune) rune {
+		if r >= '0' && r <= '9' {
+			return -1
+		}
+		return r
+	}, hill)
 }
 
 func appendNew(list []string, s string) []string {

@@ -278,8 +278,8 @@ func (a *Analyst) ionSymbol(core string, z int) string {
 // for an anion.
 func (a *Analyst) dataIon(el string, positive bool) (string, error) {
 	var best *data.Ion
-	for _, in := range a.db.Ions() {
-		if in.Polyatomic || in.Core != el || (in.Charge > 0) != positive {
+	for _, in := range a.db.IonsOf(el) {
+		if in.Polyatomic || (in.Charge > 0) != positive {
 			continue
 		}
 		if best == nil || (positive && in.Charge < best.Charge) || (!positive && in.Charge < best.Charge) {
