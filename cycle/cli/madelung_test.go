@@ -6,6 +6,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"enthalpath/thermo"
 )
 
 func runMadelungForTest(t *testing.T, args ...string) (code int, stdout, stderr string) {
@@ -70,15 +72,15 @@ func TestMadelungCommandJSON(t *testing.T) {
 		if len(pots) == 0 || len(pots) != len(sites) {
 			t.Errorf("%v: %d potentials for %d sites", tt.args, len(pots), len(sites))
 		}
-		// E_fu = −A·z₊|z₋|·k/d with k = 14.399645 eV·Å (CODATA 2018,
-		// e²/(4πε₀), from memory): checks the printed numbers agree.
+		// E_fu = −A·z₊|z₋|·e²/(4πε₀d): the printed numbers must imply a
+		// charge product between 1 and 4 (these structures).
 		d, _ := m["nearest_distance_angstrom"].(float64)
 		e, _ := m["energy_ev_per_formula_unit"].(float64)
-		if zz := -e * d / (a * 14.399645); zz < 0.999 || zz > 4.001 {
+		if zz := -e * d / (a * thermo.CoulombEVAngstrom); zz < 0.999 || zz > 4.001 {
 			t.Errorf("%v: energy %.6f eV, d %.6f, A %.6f imply z₊|z₋| = %.4f", tt.args, e, d, a, zz)
 		}
 		kj, _ := m["energy_kj_per_mol"].(float64)
-		if math.Abs(kj/e-96.485332) > 1e-5 { // eV → kJ/mol, CODATA 2018 (from memory)
+		if math.Abs(kj/e-thermo.KJPerMolPerEV) > 1e-9 { // converted through package thermo
 			t.Errorf("%v: kJ/mol %.6f vs eV %.6f", tt.args, kj, e)
 		}
 	}

@@ -10,9 +10,9 @@ import (
 // The Madelung constant of rock salt (published value 1.747565, handbook
 // tables of Madelung constants, from memory) and its energy per formula unit
 // for NaCl's lattice parameter. The expected energy and potential follow
-// from the published A alone: E = −A·N_A·e²/(4πε₀d) = −1.747565 ×
-// 1389.3546 kJ·Å/mol / 2.8201 Å = −861.0 kJ/mol, and φ(Na) = −A·e/(4πε₀d) =
-// −1.747565 × 14.399645 V·Å / 2.8201 Å = −8.9232 V (worked by hand).
+// from the published A alone, worked by hand with the CODATA 2018
+// constants: E = −A·N_A·e²/(4πε₀d) = −861.0 kJ/mol and
+// φ(Na) = −A·e/(4πε₀d) = −8.9232 V for d = a/2 = 2.8201 Å.
 func ExampleSum() {
 	nacl, err := crystal.Build("rock-salt", map[string]float64{"a": 5.6402})
 	if err != nil {
