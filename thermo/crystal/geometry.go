@@ -21,6 +21,44 @@ func (c *Crystal) Fractional(r Vec3) Vec3 {
 	return Vec3{b[0].Dot(r), b[1].Dot(r), b[2].Dot(r)}
 }
 
+// ReduceBasis returns a basis of the same lattice with shorter, more
+// nearly orthogonal vectors: it subtracts integer multiples of one vector
+// from another while that shortens it (pairwise Lagrange–Gauss reduction),
+// then orders the vectors by length. Searches over periodic images need far
+// fewer candidates in a reduced basis.
+func ReduceBasis(b [3]Vec3) [3]Vec3 {
+	for iter := 0; iter < 1000; iter++ {
+		changed := false
+		for i := 0; i < 3; i++ {
+			for j := 0; j < 3; j++ {
+				if i == j {
+					continue
+				}
+				bb := b[j].Dot(b[j])
+				if !(bb > 0) {
+					return b
+				}
+				mu := b[i].Dot(b[j]) / bb
+				if math.Abs(mu) > 0.5+1e-9 && !math.IsInf(mu, 0) {
+					b[i] = b[i].Sub(b[j].Scale(math.Round(mu)))
+					changed = true
+				}
+			}
+		}
+		if !changed {
+			break
+		}
+	}
+	for i := 0; i < 3; i++ {
+		for j := i + 1; j < 3; j++ {
+			if b[j].Norm() < b[i].Norm() {
+				b[i], b[j] = b[j], b[i]
+			}
+		}
+	}
+	return b
+}
+
 // periodicDistance returns the shortest |df + n| over integer vectors n,
 // in Å, where df is a difference of fractional coordinates. With
 // skipZero, the n that makes df + n zero is left out (a site's distance to
@@ -76,6 +114,7 @@ func (c *Crystal) periodicDistance(df Vec3, recip [3]Vec3, skipZero bool) float6
 // sites, or between a site and its own periodic image, with the indices of
 // the pair (i ≤ j). It returns +Inf for a cell without sites.
 func (c *Crystal) ShortestSeparation() (d float64, i, j int) {
+	c = c.reduced()
 	recip := c.Reciprocal()
 	d, i, j = math.Inf(1), -1, -1
 	for p := range c.Sites {
@@ -94,6 +133,7 @@ func (c *Crystal) ShortestSeparation() (d float64, i, j int) {
 // with the indices i (cation) and j (anion). Without a cation or an anion it
 // returns +Inf, −1, −1.
 func (c *Crystal) NearestCationAnion() (d float64, i, j int) {
+	c = c.reduced()
 	recip := c.Reciprocal()
 	d, i, j = math.Inf(1), -1, -1
 	for p, sp := range c.Sites {
@@ -124,6 +164,7 @@ const CoordinationShellTolerance = 0.15
 // distance some published Madelung constants are referred to. Without a
 // cation or an anion it returns NaN.
 func (c *Crystal) MeanCationAnionDistance() float64 {
+	c = c.reduced()
 	recip := c.Reciprocal()
 	sum, n := 0.0, 0
 	for _, sp := range c.Sites {
@@ -179,4 +220,23 @@ func (c *Crystal) shellDistances(df Vec3, recip [3]Vec3) []float64 {
 		}
 	}
 	return out
+}
+
+// reduced returns c described in a reduced basis of its lattice (same
+// sites, same order, fractional coordinates re-expressed and wrapped), for
+// the image searches. A degenerate lattice is returned unchanged.
+func (c *Crystal) reduced() *Crystal {
+	if !(c.Volume() > 0) {
+		return c
+	}
+	r := c.Clone()
+	r.Lattice = ReduceBasis(c.Lattice)
+	for k, s := range c.Sites {
+		f := r.Fractional(c.Cartesian(s.Frac))
+		for d := range f {
+			f[d] -= math.Floor(f[d])
+		}
+		r.Sites[k].Frac = f
+	}
+	return r
 }

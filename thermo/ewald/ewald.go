@@ -204,18 +204,24 @@ type system struct {
 
 // newSystem wraps c; with detect it also looks for internal translations.
 func newSystem(c *crystal.Crystal, detect bool) *system {
-	s := &system{c: c, lat: c.Lattice, recip: c.Reciprocal(), volume: c.Volume()}
+	// Work in a reduced basis of the lattice: the image searches of both
+	// sums are then compact even for a skewed cell.
+	red := &crystal.Crystal{Lattice: crystal.ReduceBasis(c.Lattice)}
+	s := &system{c: c, lat: red.Lattice, recip: red.Reciprocal(), volume: c.Volume()}
 	n := len(c.Sites)
 	s.frac = make([]crystal.Vec3, n)
 	s.pos = make([]crystal.Vec3, n)
 	s.q = make([]float64, n)
 	for i, site := range c.Sites {
-		f := site.Frac
+		f := red.Fractional(c.Cartesian(site.Frac))
 		for k := range f {
 			f[k] -= math.Floor(f[k])
+			if f[k] >= 1 {
+				f[k] = 0
+			}
 		}
 		s.frac[i] = f
-		s.pos[i] = c.Cartesian(f)
+		s.pos[i] = red.Cartesian(f)
 		s.q[i] = site.Charge
 		s.q2 += site.Charge * site.Charge
 	}

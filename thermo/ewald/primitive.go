@@ -45,7 +45,7 @@ func (s *system) primitive() (*system, bool) {
 			lat[i] = lat[i].Add(s.lat[k].Scale(float64(basis[i][k]) / float64(den)))
 		}
 	}
-	lat = reduceBasis(lat)
+	lat = crystal.ReduceBasis(lat)
 	prim := &crystal.Crystal{Name: s.c.Name + " (primitive)", Lattice: lat, FormulaUnits: 1}
 	if v := prim.Volume(); math.Abs(v*float64(s.g)-s.volume) > 1e-9*s.volume {
 		return nil, false
@@ -128,29 +128,4 @@ func abs64(x int64) int64 {
 		return -x
 	}
 	return x
-}
-
-// reduceBasis shortens the lattice vectors by subtracting integer multiples
-// of one another until no such step shortens any (a size reduction that
-// keeps the lattice), so the image searches stay compact.
-func reduceBasis(b [3]crystal.Vec3) [3]crystal.Vec3 {
-	for iter := 0; iter < 100; iter++ {
-		changed := false
-		for i := 0; i < 3; i++ {
-			for j := 0; j < 3; j++ {
-				if i == j {
-					continue
-				}
-				mu := b[i].Dot(b[j]) / b[j].Dot(b[j])
-				if math.Abs(mu) > 0.5+1e-9 {
-					b[i] = b[i].Sub(b[j].Scale(math.Round(mu)))
-					changed = true
-				}
-			}
-		}
-		if !changed {
-			break
-		}
-	}
-	return b
 }
