@@ -120,12 +120,19 @@ func printScan(w io.Writer, sc *analysis.Scan) {
 		if c.FromData {
 			from = "data (" + c.Measured.Source.Key + "); estimate " + energy(c.Estimate, u)
 		}
-		verdict := "stable to disproportionation"
+		var why []string
+		if c.Formation > 0 {
+			why = append(why, "endothermic: unstable with respect to the elements")
+		}
 		if !c.Stable {
-			verdict = "disproportionates"
+			why = append(why, "disproportionates")
 		}
 		if c.LosesNonMetal {
-			verdict += "; releases " + sc.NonMetal + ", forming " + c.LowerState
+			why = append(why, "gives off "+sc.NonMetal+", forming "+c.LowerState)
+		}
+		verdict := "stable (no disproportionation, no loss of " + sc.NonMetal + ")"
+		if len(why) > 0 {
+			verdict = strings.Join(why, "; ")
 		}
 		t.add(c.Formula, fmt.Sprintf("%+d", c.Charge), energyPM(c.Formation, c.Uncertainty, u), energy(c.PerMetal, u), from, verdict)
 	}
