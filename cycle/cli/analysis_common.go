@@ -1,7 +1,6 @@
 package cli
 
 import (
-	"errors"
 	"flag"
 	"strings"
 
@@ -13,12 +12,9 @@ import (
 // analysisSetup parses flags for one of the analysis commands and loads
 // the data. It returns the positionals, or (nil, nil, nil) for --help.
 func analysisSetup(env Env, fs *flag.FlagSet, args []string) ([]string, *analysis.Analyst, error) {
-	pos, err := parseInterleaved(fs, args)
-	if err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return nil, nil, nil
-		}
-		return nil, nil, &UsageError{err}
+	pos, help, err := parseFlags(fs, args)
+	if help || err != nil {
+		return nil, nil, err
 	}
 	db, err := loadData(env)
 	if err != nil {

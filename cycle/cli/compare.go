@@ -80,12 +80,9 @@ func runCompare(env Env, args []string) error {
 	fs.BoolVar(&all, "all", false, "every built-in (and overlay) compound")
 	fs.BoolVar(&asCSV, "csv", false, "print CSV")
 	fs.BoolVar(&asJSON, "json", false, "print JSON")
-	pos, err := parseInterleaved(fs, args)
-	if err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return nil
-		}
-		return &UsageError{err}
+	pos, help, err := parseFlags(fs, args)
+	if help || err != nil {
+		return err
 	}
 	set := map[string]bool{}
 	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })

@@ -1,7 +1,6 @@
 package cli
 
 import (
-	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -201,12 +200,9 @@ func runCycle(env Env, args []string) error {
 	fs.StringVar(&anion, "anion", "", "anion `ION` for a hypothetical compound, e.g. Cl-")
 	fs.BoolVar(&asJSON, "json", false, "print JSON")
 	fs.StringVar(&note, "note", "", "free `TEXT` saved with the cycle file")
-	pos, err := parseInterleaved(fs, args)
-	if err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return nil
-		}
-		return &UsageError{err}
+	pos, help, err := parseFlags(fs, args)
+	if help || err != nil {
+		return err
 	}
 	set := map[string]bool{}
 	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })

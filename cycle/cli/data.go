@@ -2,7 +2,6 @@ package cli
 
 import (
 	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"os"
@@ -26,12 +25,9 @@ func runData(env Env, args []string) error {
 	fs.BoolVar(&asJSON, "json", false, "print JSON")
 	fs.StringVar(&kind, "kind", "", "read QUERY as an `element`, ion or compound (default: an ion if it ends in a charge, else an element, else a compound)")
 	fs.StringVar(&list, "list", "", "list every `TABLE` row key: elements, ions, compounds or sources")
-	pos, err := parseInterleaved(fs, args)
-	if err != nil {
-		if errors.Is(err, flag.ErrHelp) {
-			return nil
-		}
-		return &UsageError{err}
+	pos, help, err := parseFlags(fs, args)
+	if help || err != nil {
+		return err
 	}
 	if list == "" && len(pos) != 1 {
 		return Usagef("give one QUERY (an element symbol, an ion such as Fe3+ or SO4^2-, or a formula): usage: enthalpath %s", dataSynopsis)

@@ -2,6 +2,7 @@ package cli
 
 import (
 	"encoding/json"
+	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -49,6 +50,20 @@ func parseInterleaved(fs *flag.FlagSet, args []string) ([]string, error) {
 		pos = append(pos, rest[0])
 		args = rest[1:]
 	}
+}
+
+// parseFlags is parseInterleaved for a command: a parse error becomes a
+// UsageError, and help=true says --help was asked (the usage is printed;
+// the command returns nil).
+func parseFlags(fs *flag.FlagSet, args []string) (pos []string, help bool, err error) {
+	pos, err = parseInterleaved(fs, args)
+	if errors.Is(err, flag.ErrHelp) {
+		return nil, true, nil
+	}
+	if err != nil {
+		return nil, false, &UsageError{err}
+	}
+	return pos, false, nil
 }
 
 // newFlagSet makes a flag set that reports errors instead of exiting and

@@ -2,7 +2,6 @@ package cli
 
 import (
 	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"math"
@@ -35,12 +34,9 @@ func runMadelung(env Env, args []string) error {
 	accuracy := fs.Float64("accuracy", ewald.DefaultAccuracy, "relative accuracy of the Ewald sum")
 	asJSON := fs.Bool("json", false, "print one JSON object")
 	list := fs.Bool("list", false, "list the built-in prototypes with their parameters")
-	pos, err := parseInterleaved(fs, args)
-	if errors.Is(err, flag.ErrHelp) {
-		return nil
-	}
-	if err != nil {
-		return &UsageError{err}
+	pos, help, err := parseFlags(fs, args)
+	if help || err != nil {
+		return err
 	}
 	if *list {
 		if len(pos) > 0 || len(params) > 0 || len(charges) > 0 || *supercell != "" {
