@@ -45,6 +45,8 @@ func (b *builder) apply(table string, r record) error {
 		return b.ionValue(r)
 	case "compounds.csv":
 		return b.compound(r)
+	case "solution_enthalpies.csv":
+		return b.solutionEnthalpy(r)
 	}
 	return fmt.Errorf("unknown table %q", table)
 }
@@ -681,6 +683,27 @@ func parseParams(r record) (map[string]float64, error) {
 
 // finish sorts the radii, attaches them and the Born exponents to the ions,
 // and builds the lookup indexes.
+func (b *builder) solutionEnthalpy(r record) error {
+	formula := r.str("formula")
+	if _, ok := b.db.compoundIdx[formula]; !ok {
+		return b.problem(r.errorf("formula", "%q is not a compound of the tables (write it as compounds.csv does)", formula))
+	}
+	v, ok, err := b.value(r, "solution_kj_per_mol", "uncertainty", "source", "solution", "kJ/mol")
+	if err != nil {
+		return err
+	}
+	if !ok {
+		return r.errorf("solution_kj_per_mol", "missing value")
+	}
+	if _, dup := b.db.solutions[formula]; dup && !b.overlay {
+		return r.errorf("formula", "enthalpy of solution of %s listed twice", formula)
+	}
+	old := b.db.solutions[formula]
+	b.set(&old, v)
+	b.db.solutions[formula] = old
+	return nil
+}
+
 func (b *builder) finish() {
 	db := b.db
 	for k, list := range db.radii {

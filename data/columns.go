@@ -16,6 +16,7 @@ var tableColumns = map[string][]string{
 	"compounds.csv": {"formula", "name", "family", "cation", "cation_count", "anion", "anion_count",
 		"formation_kj_per_mol", "formation_uncertainty", "formation_source", "structure", "params", "params_source",
 		"density_g_cm3", "density_source", "lattice_kj_per_mol", "lattice_convention", "lattice_source", "memory", "note"},
+	"solution_enthalpies.csv": {"formula", "solution_kj_per_mol", "uncertainty", "source", "memory", "note"},
 }
 
 // tableOrder is the order tables are read in (each may refer to the ones
@@ -36,6 +37,7 @@ var tableOrder = []struct {
 	{"shannon.csv", "shannon", false},
 	{"ion_values.csv", "ion_value", true},
 	{"compounds.csv", "compound", true},
+	{"solution_enthalpies.csv", "solution_enthalpy", true},
 }
 
 // TableFiles lists the table file names in reading order.

@@ -40,6 +40,8 @@ type DB struct {
 	compositionIdx  map[string]int    // normalized composition (first compound)
 	compKeys        map[string]string // formula → composition key
 
+	solutions map[string]Value // tabulated formula → ΔsolH° at infinite dilution
+
 	overlays []string
 	problems []string
 }
@@ -59,6 +61,7 @@ func newDB() *DB {
 		radii:       map[ionKey][]ShannonRadius{},
 		compoundIdx: map[string]int{},
 		compKeys:    map[string]string{},
+		solutions:   map[string]Value{},
 	}
 }
 
@@ -123,6 +126,7 @@ func (db *DB) clone() *DB {
 		compounds:   make([]Compound, len(db.compounds)),
 		compoundIdx: maps.Clone(db.compoundIdx),
 		compKeys:    maps.Clone(db.compKeys),
+		solutions:   maps.Clone(db.solutions),
 		overlays:    slices.Clone(db.overlays),
 		problems:    slices.Clone(db.problems),
 	}
@@ -519,6 +523,22 @@ func (db *DB) FindCompound(formula string) (Compound, bool) {
 		}
 	}
 	return Compound{}, false
+}
+
+// SolutionEnthalpy returns the standard enthalpy of solution at infinite
+// dilution (kJ/mol of the compound, positive when dissolving absorbs heat)
+// of a tabulated compound, from solution_enthalpies.csv or the overlay.
+func (db *DB) SolutionEnthalpy(formula string) (Value, error) {
+	c, ok := db.FindCompound(formula)
+	if !ok {
+		return Value{}, &NotFoundError{Kind: "compound", Query: formula, Suggestions: db.SuggestCompounds(formula)}
+	}
+	v, ok := db.solutions[c.Formula]
+	if !ok {
+		return Value{}, &NotFoundError{Kind: "enthalpy of solution", Query: c.Formula,
+			Detail: "solution_enthalpies.csv has no row for it; add one in your data file as [[solution_enthalpy]]"}
+	}
+	return v, nil
 }
 
 // SuggestCompounds returns up to six tabulated formulas near q: close in

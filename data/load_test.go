@@ -525,11 +525,12 @@ func TestLookupsReturnCopies(t *testing.T) {
 	}
 }
 
-// LoadFS works without the optional tables (compounds.csv, ion_values.csv).
+// LoadFS works without the optional tables (compounds.csv, ion_values.csv,
+// and solution_enthalpies.csv, whose rows name compounds).
 func TestLoadFSWithoutOptionalTables(t *testing.T) {
 	fsys := fstest.MapFS{}
 	for _, name := range TableFiles() {
-		if name == "compounds.csv" || name == "ion_values.csv" {
+		if name == "compounds.csv" || name == "ion_values.csv" || name == "solution_enthalpies.csv" {
 			continue
 		}
 		b, err := embedded.ReadFile("tables/" + name)
@@ -576,5 +577,40 @@ func TestAtomicWeights(t *testing.T) {
 			t.Errorf("%s (%g) is not heavier than %s (%g)", e.Symbol, e.AtomicMass.V, prev.Symbol, prev.AtomicMass.V)
 		}
 		prev = e
+	}
+}
+
+// The tabulated enthalpies of solution load and are found by any spelling
+// of the formula the compound lookup accepts. NaCl: +3.88 kJ/mol (NBS 1982
+// aqueous and crystal values, as solution_enthalpies.csv derives it; CRC
+// "Enthalpy of solution of electrolytes" 3.88, from memory).
+func TestSolutionEnthalpy(t *testing.T) {
+	db := mustLoad(t)
+	for _, q := range []string{"NaCl", "ClNa", "nacl"} {
+		v, err := db.SolutionEnthalpy(q)
+		if err != nil {
+			t.Fatalf("SolutionEnthalpy(%q): %v", q, err)
+		}
+		if math.Abs(v.V-3.88) > 0.05 || v.Unit != "kJ/mol" || v.Source == "" {
+			t.Errorf("SolutionEnthalpy(%q) = %+v, want 3.88 kJ/mol with a source", q, v)
+		}
+	}
+	var nf *NotFoundError
+	if _, err := db.SolutionEnthalpy("MgO"); !errors.As(err, &nf) {
+		t.Errorf("MgO (no row): err = %v, want a NotFoundError", err)
+	}
+	if _, err := db.SolutionEnthalpy("Xx2Q"); !errors.As(err, &nf) {
+		t.Errorf("unknown formula: err = %v, want a NotFoundError", err)
+	}
+	over, err := db.WithOverlay(strings.NewReader("[[solution_enthalpy]]\nformula = \"NaCl\"\nsolution_kj_per_mol = 4.0\n"), "mine.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	v, err := over.SolutionEnthalpy("NaCl")
+	if err != nil || v.V != 4.0 || !v.Override || v.Replaced == nil {
+		t.Errorf("overlay: %+v, %v; want 4.0 marked as an override of the built-in value", v, err)
+	}
+	if v, _ := db.SolutionEnthalpy("NaCl"); v.Override {
+		t.Error("the overlay changed the built-in DB")
 	}
 }
