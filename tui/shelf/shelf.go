@@ -55,7 +55,7 @@ func New(ctx *screen.Context) *Model {
 	}
 	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
 	ti.Prompt = "formula or filter › "
-	ti.Placeholder = "type to filter, or a formula the data lack (e.g. MgCl)"
+	ti.Placeholder = "type to filter; a formula the data lack (e.g. MgCl) + ctrl+g assembles it"
 	ti.Focus()
 	m.input = ti
 	var compounds []data.Compound
@@ -163,6 +163,11 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 }
 
 func (m *Model) open(guided bool) tea.Cmd {
+	// ctrl+g assembles the formula as typed when the data lack it, even if
+	// the filter still shows compounds that contain it (MgCl shows MgCl2).
+	if typed := strings.TrimSpace(m.Filter()); guided && m.lacks(typed) {
+		return func() tea.Msg { return screen.OpenMsg{Formula: typed, Guided: true} }
+	}
 	formula := m.Selected()
 	if formula == "" {
 		formula = m.Filter()
@@ -172,6 +177,22 @@ func (m *Model) open(guided bool) tea.Cmd {
 		return screen.Fail(fmt.Errorf("type a formula first (for example NaCl), or pick one with ↑/↓"))
 	}
 	return func() tea.Msg { return screen.OpenMsg{Formula: formula, Guided: guided} }
+}
+
+// lacks reports whether s is a formula of two or more elements that no
+// compound of the shelf has (the same composition counts as the same).
+func (m *Model) lacks(s string) bool {
+	f, err := data.ParseFormula(s)
+	if err != nil || len(f.Composition()) < 2 {
+		return false
+	}
+	want := f.Hill()
+	for _, r := range m.all {
+		if g, err := data.ParseFormula(r.c.Formula); err == nil && g.Hill() == want {
+			return false
+		}
+	}
+	return true
 }
 
 func (m *Model) move(d int) {
