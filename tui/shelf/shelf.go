@@ -55,7 +55,7 @@ func New(ctx *screen.Context) *Model {
 	}
 	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
 	ti.Prompt = "formula or filter › "
-	ti.Placeholder = "filter; or a new formula (MgCl) then ctrl+g"
+	ti.Placeholder = "filter, or a new formula + ctrl+g"
 	ti.Focus()
 	m.input = ti
 	var compounds []data.Compound
