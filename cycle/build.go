@@ -327,7 +327,7 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 		if !data.IsElementSymbol(core) {
 			return data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("ion %q is not in the data and %q is not an element", sym, core)}
 		}
-		return data.Ion{Symbol: sym, Core: core, Charge: z, Shape: "monatomic", Note: "hypothetical ion, not in the data"}, nil
+		return hypotheticalIon(db, sym, core, z), nil
 	}
 	var cat, an data.Ion
 	switch {
@@ -437,7 +437,38 @@ func pickIons(db *data.DB, formula string, order []string, counts map[string]int
 		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s would need the charge %+d, beyond the ionization energies in the data", first, z)}
 	}
 	sym := fmt.Sprintf("%s%s+", first, countText(z))
-	return data.Ion{Symbol: sym, Core: first, Charge: z, Shape: "monatomic", Note: "hypothetical ion, not in the data"}, an, nil
+	return hypotheticalIon(db, sym, first, z), an, nil
+}
+
+// hypotheticalIon is a monatomic ion the data do not have (Mg⁺ of MgCl).
+// Its radii, for the models, are those of the ion of the same charge of the
+// nearest element by atomic number that has Shannon radii (ties to the
+// lighter element): the neighbour rule, common practice, no source. Each
+// borrowed radius says so in Substituted, which the model inputs print.
+func hypotheticalIon(db *data.DB, sym, core string, z int) data.Ion {
+	in := data.Ion{Symbol: sym, Core: core, Charge: z, Shape: "monatomic", Note: "hypothetical ion, not in the data"}
+	el, err := db.Element(core)
+	if err != nil {
+		return in
+	}
+	var donor string
+	bestD := -1
+	for _, e := range db.Elements() {
+		d := abs(e.Z - el.Z)
+		if d == 0 || (bestD >= 0 && d >= bestD) || len(db.Radii(e.Symbol, z)) == 0 {
+			continue
+		}
+		donor, bestD = e.Symbol, d
+	}
+	if donor == "" {
+		return in
+	}
+	for _, r := range db.Radii(donor, z) {
+		r.Substituted = fmt.Sprintf("no radius for %s in the data: that of %s by the neighbour rule, common practice, no source",
+			sym, ionText(donor, z))
+		in.Radii = append(in.Radii, r)
+	}
+	return in
 }
 
 // parseBinary reads a formula of element symbols with counts ("Al2O3",

@@ -341,6 +341,9 @@ func (c *Cycle) radius(p Part, cn int) (r float64, used int, from string, err er
 	if sr.Coordination != cn {
 		from += " (CN " + strconv.Itoa(cn) + " not tabulated)"
 	}
+	if sr.Substituted != "" {
+		from += " (" + sr.Substituted + ")"
+	}
 	return v.V, sr.Coordination, from, nil
 }
 
