@@ -440,16 +440,15 @@ func pickIons(db *data.DB, formula string, order []string, counts map[string]int
 	return hypotheticalIon(db, sym, first, z), an, nil
 }
 
-// hypotheticalIon is a monatomic ion the data do not have (Mg⁺ of MgCl).
-// Its radii, for the models, are those of the ion of the same charge of the
-// nearest element by atomic number that has Shannon radii (ties to the
-// lighter element): the neighbour rule, common practice, no source. Each
-// borrowed radius says so in Substituted, which the model inputs print.
-func hypotheticalIon(db *data.DB, sym, core string, z int) data.Ion {
-	in := data.Ion{Symbol: sym, Core: core, Charge: z, Shape: "monatomic", Note: "hypothetical ion, not in the data"}
+// NeighbourDonor returns the element whose ion of charge z lends its
+// Shannon radii to an ion of element core that has none (the neighbour
+// rule, common practice, no source): the nearest element by atomic number
+// with radii for that charge, ties going to the lighter one. It returns ""
+// when core is not an element of the data or no element qualifies.
+func NeighbourDonor(db *data.DB, core string, z int) string {
 	el, err := db.Element(core)
 	if err != nil {
-		return in
+		return ""
 	}
 	var donor string
 	bestD := -1
@@ -460,6 +459,17 @@ func hypotheticalIon(db *data.DB, sym, core string, z int) data.Ion {
 		}
 		donor, bestD = e.Symbol, d
 	}
+	return donor
+}
+
+// hypotheticalIon is a monatomic ion the data do not have (Mg⁺ of MgCl).
+// Its radii, for the models, are those of the ion of the same charge of the
+// nearest element by atomic number that has Shannon radii (ties to the
+// lighter element): the neighbour rule, common practice, no source. Each
+// borrowed radius says so in Substituted, which the model inputs print.
+func hypotheticalIon(db *data.DB, sym, core string, z int) data.Ion {
+	in := data.Ion{Symbol: sym, Core: core, Charge: z, Shape: "monatomic", Note: "hypothetical ion, not in the data"}
+	donor := NeighbourDonor(db, core, z)
 	if donor == "" {
 		return in
 	}

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"strings"
 
+	"enthalpath/cycle"
 	"enthalpath/data"
 )
 
@@ -39,32 +40,17 @@ func IonRadius(db *data.DB, ion data.Ion) (Radius, error) {
 		}
 		return Radius{Value: r.Ionic.V, Kind: "shannon", From: from}, nil
 	}
-	el, err := db.Element(ion.Core)
-	if err != nil {
+	if _, err := db.Element(ion.Core); err != nil {
 		return Radius{}, fmt.Errorf("no radius for %s: %q is not an element of the data", ion.Symbol, ion.Core)
 	}
-	best, bestD := data.ShannonRadius{}, -1
-	var bestSym string
-	for _, e := range db.Elements() {
-		d := e.Z - el.Z
-		if d < 0 {
-			d = -d
-		}
-		if d == 0 || (bestD >= 0 && d >= bestD) {
-			continue
-		}
-		r, err := db.Radius(e.Symbol, ion.Charge, "VI", "")
-		if err != nil || !r.Ionic.Known() {
-			continue
-		}
-		best, bestD, bestSym = r, d, e.Symbol
-	}
-	if bestD < 0 {
+	donor := cycle.NeighbourDonor(db, ion.Core, ion.Charge)
+	best, err := db.Radius(donor, ion.Charge, "VI", "")
+	if donor == "" || err != nil || !best.Ionic.Known() {
 		return Radius{}, fmt.Errorf("no radius for %s and no element has a Shannon radius for charge %+d; give one (Å)", ion.Symbol, ion.Charge)
 	}
 	return Radius{Value: best.Ionic.V, Kind: "neighbour",
 		From: fmt.Sprintf("no radius for %s in the data: the Shannon CN %s radius of %s%s used (neighbour rule, common practice, no source)",
-			ion.Symbol, best.CN, bestSym, chargeSuffix(ion.Charge))}, nil
+			ion.Symbol, best.CN, donor, chargeSuffix(ion.Charge))}, nil
 }
 
 func chargeSuffix(z int) string {
