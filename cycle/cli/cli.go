@@ -107,6 +107,3 @@ func Run(env Env, name string, args []string) (code int) {
 	fmt.Fprintf(env.Stderr, "enthalpath: unknown command %q\n", name)
 	return ExitUsage
 }
-
-// errNotBuilt is returned by commands whose engine has not landed yet.
-var errNotBuilt = errors.New("this command is not built yet")
