@@ -17,8 +17,8 @@ import (
 // Scenario is the invented setting of the demo the workshop opens on. The
 // study, its group and its purpose are fictitious; the compounds are real
 // rows of the data, chosen by that invented study.
-const Scenario = "Demo (invented scenario): the fictitious Larchmere Solid-State Group's shortlist of " +
-	"candidate salts for a heat-store trial. The study is made up; the data are real and cited."
+const Scenario = "Demo (invented scenario): ★ marks the shortlist of the fictitious Larchmere group's " +
+	"heat-store study; the compounds and their data are real and cited."
 
 // Shortlist is the invented study's candidate salts, pinned at the top of
 // the shelf (those the data have).
@@ -237,6 +237,16 @@ func (m *Model) refilter() {
 
 func (m *Model) listHeight() int { return max(1, m.h-6) }
 
+// columnWidths gives the name and family columns the room a window wider
+// than 80 columns has: the family first (its longest entries run to about
+// 30 characters), then the name.
+func (m *Model) columnWidths() (name, family int) {
+	extra := max(0, m.w-80)
+	family = 16 + min(extra, 14)
+	name = 22 + min(extra-(family-16), 12)
+	return name, family
+}
+
 func (m *Model) clampScroll() {
 	lh := m.listHeight()
 	if m.cursor < m.top {
@@ -254,7 +264,8 @@ func (m *Model) View() string {
 	lines = append(lines, st.Muted.Render(truncate(Scenario, m.w)))
 	lines = append(lines, m.input.View())
 	unit := m.ctx.Units.String()
-	header := fmt.Sprintf("   %-9s %-22s %-16s %12s  %-12s", "formula", "name", "family", "ΔfH°("+unit+")", "structure")
+	nameW, famW := m.columnWidths()
+	header := fmt.Sprintf("   %-9s %-*s %-*s %12s  %-12s", "formula", nameW, "name", famW, "family", "ΔfH°("+unit+")", "structure")
 	lines = append(lines, st.Title.Render(truncate(header, m.w)))
 	lh := m.listHeight()
 	if len(m.shown) == 0 {
@@ -285,8 +296,8 @@ func (m *Model) View() string {
 		if structure == "" {
 			structure = "—"
 		}
-		text := fmt.Sprintf("%s%s %-9s %-22s %-16s %12s  %-12s", cursor, mark, r.c.Formula, truncate(r.c.Name, 22),
-			truncate(r.c.Family, 16), form, structure)
+		text := fmt.Sprintf("%s%s %-9s %-*s %-*s %12s  %-12s", cursor, mark, r.c.Formula, nameW, truncate(r.c.Name, nameW),
+			famW, truncate(r.c.Family, famW), form, structure)
 		text = truncate(text, m.w)
 		if i == m.cursor {
 			text = st.Selected.Render(text)
