@@ -17,8 +17,8 @@ import (
 // Scenario is the invented setting of the demo the workshop opens on. The
 // study, its group and its purpose are fictitious; the compounds are real
 // rows of the data, chosen by that invented study.
-const Scenario = "Demo (invented scenario): ★ marks the shortlist of the fictitious Larchmere group's " +
-	"heat-store study; the compounds and their data are real and cited."
+const Scenario = "Demo (invented scenario): ★ = shortlist of the fictitious Larchmere group's heat-store study; " +
+	"data real, cited."
 
 // Shortlist is the invented study's candidate salts, pinned at the top of
 // the shelf (those the data have).
