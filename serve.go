@@ -17,7 +17,6 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/cycle/cli"
-	"enthalpath/data"
 	"enthalpath/tui"
 	"enthalpath/tui/serve"
 )
@@ -136,14 +135,9 @@ func runServe(env cli.Env, args []string) int {
 	log := slog.New(handler)
 
 	// The data is loaded once and shared, read-only, by every session.
-	db, err := data.LoadWithUserFile(env.DataFile)
-	if err != nil {
-		if env.DataFile != "" && db != nil {
-			fmt.Fprintf(env.Stderr, "enthalpath serve: --data %s: %v\n", env.DataFile, err)
-			return cli.ExitUsage
-		}
-		fmt.Fprintf(env.Stderr, "enthalpath serve: loading the built-in data: %v\n", err)
-		return cli.ExitInternal
+	db, code := loadUserData(env, "enthalpath serve")
+	if db == nil {
+		return code
 	}
 
 	cfg := f.config
@@ -189,7 +183,7 @@ func runServe(env cli.Env, args []string) int {
 	}
 	ctx, cancel := context.WithTimeout(context.Background(), shutdownDeadline)
 	defer cancel()
-	code := cli.ExitOK
+	code = cli.ExitOK
 	if err := srv.Shutdown(ctx); err != nil {
 		log.Error("shutdown incomplete", "error", err.Error())
 		code = cli.ExitInternal

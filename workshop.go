@@ -29,14 +29,9 @@ func runWorkshop(env cli.Env, args []string) int {
 		}
 		return cli.ExitUsage
 	}
-	db, err := data.LoadWithUserFile(env.DataFile)
-	if err != nil {
-		if env.DataFile != "" && db != nil {
-			fmt.Fprintf(env.Stderr, "enthalpath: --data %s: %v\n", env.DataFile, err)
-			return cli.ExitUsage
-		}
-		fmt.Fprintf(env.Stderr, "enthalpath: loading the built-in data: %v\n", err)
-		return cli.ExitInternal
+	db, code := loadUserData(env, "enthalpath")
+	if db == nil {
+		return code
 	}
 	opts := tui.Options{DB: db, RecoveryPath: recoveryPath()}
 	if len(args) == 1 {
@@ -54,7 +49,7 @@ func runWorkshop(env cli.Env, args []string) int {
 		}
 	}()
 
-	_, err = p.Run()
+	_, err := p.Run()
 	root, _ := model.(*tui.Model)
 	if err != nil {
 		if root != nil && errors.Is(err, tea.ErrProgramPanic) {
@@ -85,4 +80,24 @@ func recoveryPath() string {
 		}
 	}
 	return filepath.Join(dir, "enthalpath", "recovery.hesscycle")
+}
+
+// loadUserData loads the built-in data with the user's overlay (--data FILE,
+// else the default overlay file when it exists). A broken --data file is a
+// usage error; a broken default file is reported and the built-in data are
+// used. On failure it returns a nil DB and the exit code.
+func loadUserData(env cli.Env, who string) (*data.DB, int) {
+	db, err := data.LoadWithUserFile(data.UserDataPath(env.DataFile))
+	switch {
+	case err == nil:
+		return db, cli.ExitOK
+	case db == nil:
+		fmt.Fprintf(env.Stderr, "%s: loading the built-in data: %v\n", who, err)
+		return nil, cli.ExitInternal
+	case env.DataFile != "":
+		fmt.Fprintf(env.Stderr, "%s: --data %s: %v\n", who, env.DataFile, err)
+		return nil, cli.ExitUsage
+	}
+	fmt.Fprintf(env.Stderr, "%s: ignoring the overlay file: %v\n", who, err)
+	return db, cli.ExitOK
 }

@@ -23,6 +23,21 @@ func DefaultOverlayPath() (string, error) {
 	return filepath.Join(dir, "enthalpath", "data.toml"), nil
 }
 
+// UserDataPath is the overlay a program run should read: explicit (the
+// --data FILE of the command line) when given, else the default overlay
+// when that file exists, else "" (the built-in data alone).
+func UserDataPath(explicit string) string {
+	if explicit != "" {
+		return explicit
+	}
+	if p, err := DefaultOverlayPath(); err == nil {
+		if _, err := os.Stat(p); err == nil {
+			return p
+		}
+	}
+	return ""
+}
+
 // LoadWithUserFile loads the embedded tables and, if path is not empty, the
 // overlay file at path on top of them. When the overlay cannot be read or is
 // malformed it returns the built-in DB together with the error, so a caller

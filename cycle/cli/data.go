@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"os"
 	"slices"
 	"strconv"
 	"strings"
@@ -35,7 +34,7 @@ func runData(env Env, args []string) error {
 	if list != "" && len(pos) > 0 {
 		return Usagef("--list takes no QUERY")
 	}
-	db, err := dataWithOverlay(env)
+	db, err := loadData(env)
 	if err != nil {
 		return err
 	}
@@ -75,30 +74,6 @@ func runData(env Env, args []string) error {
 	}
 	dataPrint(env.Stdout, db, rec)
 	return nil
-}
-
-// dataWithOverlay loads the built-in data with the --data file, or else the
-// default overlay file when it exists. A broken default file is reported on
-// stderr and the built-in data are used.
-func dataWithOverlay(env Env) (*data.DB, error) {
-	if env.DataFile != "" {
-		return loadData(env)
-	}
-	path, err := data.DefaultOverlayPath()
-	if err == nil {
-		if _, statErr := os.Stat(path); statErr == nil {
-			db, err := data.LoadWithUserFile(path)
-			if err != nil && db != nil {
-				fmt.Fprintf(env.Stderr, "enthalpath data: ignoring the overlay file: %v\n", err)
-				return db, nil
-			}
-			if err != nil {
-				return nil, fmt.Errorf("loading the built-in data: %w", err)
-			}
-			return db, nil
-		}
-	}
-	return loadData(env)
 }
 
 // dataFindAny resolves a query: an ion when it ends in a charge, then an

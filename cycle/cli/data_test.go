@@ -173,3 +173,20 @@ func TestDataDefaultOverlay(t *testing.T) {
 		t.Errorf("broken default overlay: exit %d, stderr %q", code, errs)
 	}
 }
+
+// Every command, not only data, reads the default overlay: a user value of
+// KCl's formation enthalpy (an invented −430.0 kJ/mol) reaches the cycle.
+func TestDefaultOverlayReachesCycle(t *testing.T) {
+	cfg := t.TempDir()
+	t.Setenv("XDG_CONFIG_HOME", cfg)
+	os.MkdirAll(filepath.Join(cfg, "enthalpath"), 0o700)
+	os.WriteFile(filepath.Join(cfg, "enthalpath", "data.toml"),
+		[]byte("[[compound]]\nformula = \"KCl\"\nformation_kj_per_mol = -430.0\n"), 0o600)
+	var out, errb bytes.Buffer
+	if code := Run(Env{Stdout: &out, Stderr: &errb}, "cycle", []string{"KCl", "--json"}); code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	if !strings.Contains(out.String(), "-430") {
+		t.Errorf("the default overlay's KCl formation enthalpy is not in the cycle:\n%s", out.String())
+	}
+}

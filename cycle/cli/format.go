@@ -15,20 +15,24 @@ import (
 	"enthalpath/thermo"
 )
 
-// loadData loads the built-in tables with the user's --data overlay, if any.
-// A broken overlay is a usage error (the user named the file).
+// loadData loads the built-in tables with the user's overlay: --data FILE,
+// else the default overlay file when it exists (data.UserDataPath). A broken
+// --data file is a usage error (the user named it); a broken default file is
+// reported on stderr and the built-in data are used.
 func loadData(env Env) (*data.DB, error) {
-	if env.DataFile == "" {
-		db, err := data.Load()
-		if err != nil {
-			return nil, fmt.Errorf("loading the built-in data: %w", err)
-		}
+	path := data.UserDataPath(env.DataFile)
+	db, err := data.LoadWithUserFile(path)
+	switch {
+	case err == nil:
 		return db, nil
-	}
-	db, err := data.LoadWithUserFile(env.DataFile)
-	if err != nil {
+	case db == nil:
+		return nil, fmt.Errorf("loading the built-in data: %w", err)
+	case env.DataFile != "":
 		return nil, &UsageError{fmt.Errorf("--data %s: %w", env.DataFile, err)}
 	}
+	// A broken default overlay must not stop the program: say so and go on
+	// with the built-in data.
+	fmt.Fprintf(env.Stderr, "enthalpath: ignoring the overlay file: %v\n", err)
 	return db, nil
 }
 
