@@ -255,7 +255,7 @@ func (a *Analyst) latticeDissociation(c *cycle.Cycle, model string) (float64, fl
 	}
 	v, u, err := cycleLattice(c)
 	if err == nil {
-		return -v, u, cycle.Source{Kind: cycle.SourceSolved, Citation: "Born–Haber cycle of " + c.Formula + " from the data (ΔH_L, 298.15 K)"}, nil
+		return -v, u, cycle.Source{Kind: cycle.SourceSolved, Key: "Born–Haber cycle", Citation: "Born–Haber cycle of " + c.Formula + " from the data (ΔH_L, 298.15 K)"}, nil
 	}
 	if s, ok := c.Step("lattice"); ok && s.Reference != nil {
 		src := s.Reference.Source

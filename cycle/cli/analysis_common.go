@@ -64,6 +64,9 @@ func sourceWords(s cycle.Source) string {
 	case cycle.SourceModel:
 		return "model " + s.Key
 	case cycle.SourceSolved:
+		if s.Key != "" {
+			return "solved by the " + s.Key // a term another cycle gives
+		}
 		return "solved"
 	case cycle.SourceUser:
 		return "user"
