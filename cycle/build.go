@@ -446,20 +446,20 @@ func pickIons(db *data.DB, formula string, order []string, counts map[string]int
 // with radii for that charge, ties going to the lighter one. It returns ""
 // when core is not an element of the data or no element qualifies.
 func NeighbourDonor(db *data.DB, core string, z int) string {
-	el, err := db.Element(core)
-	if err != nil {
+	if _, err := db.Element(core); err != nil {
 		return ""
 	}
-	var donor string
-	bestD := -1
-	for _, e := range db.Elements() {
-		d := abs(e.Z - el.Z)
-		if d == 0 || (bestD >= 0 && d >= bestD) || len(db.Radii(e.Symbol, z)) == 0 {
-			continue
+	// Walk outwards from core's Z, the lighter neighbour first: a batch of
+	// hypothetical compounds calls this for every row, so no table copies.
+	at := data.AtomicNumber(core)
+	for d := 1; d < 119; d++ {
+		for _, zz := range [2]int{at - d, at + d} {
+			if sym := data.SymbolOfZ(zz); sym != "" && len(db.Radii(sym, z)) > 0 {
+				return sym
+			}
 		}
-		donor, bestD = e.Symbol, d
 	}
-	return donor
+	return ""
 }
 
 // hypotheticalIon is a monatomic ion the data do not have (Mg⁺ of MgCl).

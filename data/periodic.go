@@ -28,6 +28,18 @@ func atomicNumber(sym string) int {
 	return 0
 }
 
+// AtomicNumber returns Z for an element symbol (exact case), or 0.
+func AtomicNumber(sym string) int { return atomicNumber(sym) }
+
+// SymbolOfZ returns the symbol of the element with atomic number z, or ""
+// outside 1…118.
+func SymbolOfZ(z int) string {
+	if z < 1 || z > len(periodicSymbols) {
+		return ""
+	}
+	return periodicSymbols[z-1]
+}
+
 // IsElementSymbol reports whether sym is a chemical element symbol (exact case).
 func IsElementSymbol(sym string) bool { return atomicNumber(sym) > 0 }
 
