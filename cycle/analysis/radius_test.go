@@ -3,95 +3,108 @@ package analysis
 import (
 	"math/rand/v2"
 	"os"
+	"slices"
 	"testing"
 
 	"enthalpath/thermo/lattice"
 )
 
-// TestThermochemicalRadiiPublished derives thermochemical radii of
-// polyatomic anions from lattice energies of their potassium salts and
-// compares them with the values of Jenkins, Roobottom, Passmore and Glasser
-// (1999) as the data carry them (data/tables/ion_values.csv, source
-// jenkins1999, entered from memory), within the issue's 0.05 Å.
+// TestThermochemicalRadiiPublished fits thermochemical radii of polyatomic
+// ions over every salt of each ion in the data whose Born–Haber cycle
+// closes, the way such radii are obtained from families of salts, and
+// compares them with published values within the issue's 0.05 Å.
 //
 // Method, as the CRC Handbook section "Lattice energies" (H. D. B. Jenkins
 // and H. K. Roobottom, crc-lattice) states it, read in the stored copy at
-// https://zanotowane.pl/1023/1169: the Kapustinskii equation
-// U_POT = 121.4·z_a·z_b·ν/(r_a + r_b)·(1 − 0.0345/(r_a + r_b)) kJ/mol with
-// radii in nm, "r_a and r_b (in nm) are the thermochemical radii given in
-// Table 2. The r_a for metal ions is taken to be the Goldschmidt radius";
-// and ΔH_L = U_POT + [a(n_M/2 − 2) + b(n_X/2 − 2)]RT with n = 3, 5, 6 for
-// monatomic, linear and non-linear ions (the conversion the cycle applies).
-// So the counter-ion radius is Goldschmidt's, not Shannon's: K⁺ 1.33 Å
-// (Goldschmidt's value, from memory; the section names the set, the copy
-// read does not print it).
+// https://zanotowane.pl/1023/1169: U_POT = 121.4·z_a·z_b·ν/(r_a + r_b)·
+// (1 − 0.0345/(r_a + r_b)) kJ/mol with radii in nm, "r_a and r_b (in nm)
+// are the thermochemical radii given in Table 2. The r_a for metal ions is
+// taken to be the Goldschmidt radius"; and ΔH_L = U_POT + [a(n_M/2 − 2) +
+// b(n_X/2 − 2)]RT, the conversion the cycle applies. So metal counter-ions
+// take Goldschmidt radii (the values below are from memory: the section
+// names the set, the copy read does not print it); anion counter-ions
+// (for NH4+) take the data's radii.
 //
-// Lattice energies: the Born–Haber cycle of the data (ΔH_L converted to
-// U_POT by the rule above), which is how the section's U_POT^BFHC column is
-// obtained; where the data cannot close the cycle, the section's Table 1
-// U_POT as recalled (from memory: the copy read stops before the table).
+// Published values: NH4+ 0.136 nm is read in that stored copy (its worked
+// example); the others are Jenkins, Roobottom, Passmore and Glasser (1999)
+// as data/tables/ion_values.csv carries them (source jenkins1999, entered
+// from memory: the table could not be reached).
 //
-// Which ions: every ion whose thermochemical radius the data cite to
-// jenkins1999 and whose potassium salt is in compounds.csv with a lattice
-// energy from one of those two routes; none is chosen or dropped by its
-// result. The published radii themselves could not be checked (Table 2 of
-// the section is past the part of the copy that was read), so they stay
-// "from memory" in the data.
+// Which ions: every ion with a published radius in the data and at least
+// one salt whose lattice energy the data give; none is chosen or dropped by
+// its result.
 //
-// Status: with the documented constants and the Goldschmidt K⁺ radius the
-// derived radii still come out below the recalled 1999 values for most ions
-// (see the report); the candidates are the recalled radii and the recalled
-// lattice energies. The bound is not loosened. The check is therefore
-// skipped unless ENTHALPATH_KNOWN_FAILURES=1: a known, reported failure
-// (issue 5 stays open on it), not a passing check. Set the variable to see
-// the figures.
+// Status: a known failure, skipped unless ENTHALPATH_KNOWN_FAILURES=1 (issue
+// 5 reports it). The one published radius that could be read, NH4+ 1.36 Å,
+// comes out 1.16 ± 0.04 Å from its six salts, so the published radii do not
+// follow from cycle lattice energies by this method; the lattice energies
+// the authors fitted to (the section's Table 1) could not be reached. The
+// bound is not loosened. Set the variable to see the figures.
 func TestThermochemicalRadiiPublished(t *testing.T) {
 	if os.Getenv("ENTHALPATH_KNOWN_FAILURES") == "" {
-		t.Skip("known failure: derived radii below the recalled Jenkins 1999 values; set ENTHALPATH_KNOWN_FAILURES=1 to run")
+		t.Skip("known failure: fitted radii differ from the published ones (NH4+ 1.16 vs 1.36 Å); set ENTHALPATH_KNOWN_FAILURES=1 to run")
 	}
 	a := testAnalyst(t)
-	// Goldschmidt radius of K⁺ in Å: the set the handbook section prescribes
-	// for metal ions; the value 1.33 Å is from memory.
-	const goldschmidtK = 1.33
-	// U_POT (kJ/mol) of the handbook section's Table 1, from memory; used
-	// only when the data cannot close the salt's cycle.
-	recalledHandbook := map[string]float64{"KClO4": 599}
+	// Goldschmidt radii (Å) of metal ions, from memory: the set the handbook
+	// section prescribes for metal ions.
+	goldschmidt := map[string]float64{
+		"Li+": 0.78, "Na+": 0.98, "K+": 1.33, "Rb+": 1.49, "Cs+": 1.65,
+		"Mg2+": 0.78, "Ca2+": 1.06, "Sr2+": 1.27, "Ba2+": 1.43,
+	}
 	compared := 0
-	for _, c := range a.db.Compounds() {
-		if c.Cation != "K+" {
+	for _, ion := range a.db.Ions() {
+		if !ion.Polyatomic || !ion.ThermochemicalRadius.Known() {
 			continue
 		}
-		ion, err := a.db.Ion(c.Anion)
-		if err != nil || ion.ThermochemicalRadius.Source != "jenkins1999" {
+		src := ion.ThermochemicalRadius.Source
+		if src != "jenkins1999" && src != "crc-lattice" {
 			continue
 		}
-		want := ion.ThermochemicalRadius.V // Å, jenkins1999 as in ion_values.csv (from memory)
-		opt := RadiusOptions{Ion: ion.Symbol, CounterRadius: goldschmidtK}
-		d, err := a.DeriveRadius(c.Formula, opt)
+		counters := countersWithRadii(a, ion.Symbol, goldschmidt)
+		if len(counters) == 0 {
+			t.Logf("%-8s not compared: no salt in the data with a counter-ion of known Goldschmidt radius", ion.Symbol)
+			continue
+		}
+		f, err := a.FitRadius(ion.Symbol, FitOptions{CounterRadii: goldschmidt, Only: counters})
 		if err != nil {
-			u, ok := recalledHandbook[c.Formula]
-			if !ok {
-				t.Logf("%-7s %-7s not compared: the data cannot close the cycle and no handbook value is recalled", c.Formula, ion.Symbol)
-				continue
-			}
-			opt.LatticeEnergy, opt.LatticeSource = u, "CRC Lattice energies, Table 1, from memory"
-			if d, err = a.DeriveRadius(c.Formula, opt); err != nil {
-				t.Errorf("%s: %v", c.Formula, err)
-				continue
-			}
+			t.Logf("%-8s not compared: %v", ion.Symbol, err)
+			continue
 		}
 		compared++
-		got := d.KapustinskiiHandbook
-		t.Logf("%-7s %-7s U = %7.1f (%s), counter %s %.2f Å: r = %.3f Å, published %.2f Å, diff %+.3f",
-			c.Formula, d.Ion, d.LatticeEnergy, d.LatticeFrom, d.Counter, d.CounterRadius.Value, got, want, got-want)
-		if !near(got, want, 0.05) {
-			t.Errorf("%s: thermochemical radius of %s = %.3f Å, Jenkins et al. 1999 (as recalled in the data) %.2f Å: off by %+.3f Å > 0.05 Å",
-				c.Formula, d.Ion, got, want, got-want)
+		want := ion.ThermochemicalRadius.V // Å, as the data carry it (source above)
+		t.Logf("%-8s fitted %.3f Å over %d salts (one-salt %.3f ± %.3f, rms misfit %.1f kJ/mol); published %.2f Å (%s); diff %+.3f",
+			ion.Symbol, f.Radius, len(f.Used()), f.Mean, f.SD, f.RMSResidual, want, src, f.Radius-want)
+		if !near(f.Radius, want, 0.05) {
+			t.Errorf("%s: fitted thermochemical radius %.3f Å, published %.2f Å (%s): off by %+.3f Å > 0.05 Å",
+				ion.Symbol, f.Radius, want, src, f.Radius-want)
 		}
 	}
 	if compared < 5 {
 		t.Errorf("only %d ions compared; the issue asks for at least five", compared)
 	}
+}
+
+// countersWithRadii lists the counter-ions of ion's salts that are either
+// in radii or anions (whose data radius is used): metal counter-ions with
+// no Goldschmidt radius at hand are left out rather than given another set.
+func countersWithRadii(a *Analyst, ion string, radii map[string]float64) []string {
+	var out []string
+	for _, c := range a.db.Compounds() {
+		var other string
+		switch ion {
+		case c.Anion:
+			other = c.Cation
+		case c.Cation:
+			other = c.Anion
+		default:
+			continue
+		}
+		_, ok := radii[other]
+		if (ok || ion == c.Cation) && !slices.Contains(out, other) {
+			out = append(out, other)
+		}
+	}
+	return out
 }
 
 // TestDerivedRadiusRoundTrip: a lattice energy made by Kapustinskii from a

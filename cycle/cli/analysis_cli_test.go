@@ -84,6 +84,31 @@ func TestSolutionAndRadiusCommands(t *testing.T) {
 	if code != ExitOK || !strings.Contains(out, "kapustinskii_handbook_radius_angstrom") {
 		t.Fatalf("radius: exit %d %s\n%s", code, errs, out)
 	}
+	out, errs, code = runAnalysisCmd(t, "", "radius", "--ion", "NO3-", "--all-salts", "--only", "K+,Na+", "--counter-radii", "K+=1.33", "--json")
+	var fit struct {
+		Radius float64 `json:"fitted_radius_angstrom"`
+		Used   int     `json:"salts_used"`
+		Salts  []struct {
+			Compound, CounterFrom string
+			Counter               string  `json:"counter_ion"`
+			CounterRadius         float64 `json:"counter_radius_angstrom"`
+		} `json:"salts"`
+	}
+	if code != ExitOK || json.Unmarshal([]byte(out), &fit) != nil {
+		t.Fatalf("radius --all-salts: exit %d %s\n%s", code, errs, out)
+	}
+	// --only keeps the two salts; --counter-radii replaces K+'s radius only.
+	if fit.Used != 2 || len(fit.Salts) != 2 || !(fit.Radius > 1.5 && fit.Radius < 2.2) {
+		t.Errorf("radius --all-salts --only K+,Na+: %d used of %d, r = %.3f Å\n%s", fit.Used, len(fit.Salts), fit.Radius, out)
+	}
+	for _, s := range fit.Salts {
+		if s.Counter == "K+" && s.CounterRadius != 1.33 {
+			t.Errorf("K+ radius %.3f, want the given 1.33", s.CounterRadius)
+		}
+		if s.Counter == "Na+" && s.CounterRadius == 1.33 {
+			t.Errorf("Na+ took K+'s given radius")
+		}
+	}
 }
 
 func TestAnalysisUsageErrors(t *testing.T) {
@@ -101,6 +126,13 @@ func TestAnalysisUsageErrors(t *testing.T) {
 		{"solution", []string{"NaCl", "--solve", "heat"}, "heat"},
 		{"radius", []string{"KNO3"}, "--ion"},
 		{"radius", []string{"KNO3", "--ion", "SO4^2-", "--lattice", "685"}, "not an ion of KNO3"},
+		{"radius", []string{"KNO3", "--ion", "NO3-", "--all-salts"}, "takes no formula"},
+		{"radius", []string{"--ion", "NO3-", "--all-salts", "--lattice", "685"}, "--lattice goes with one FORMULA"},
+		{"radius", []string{"--ion", "NO3-", "--all-salts", "--counter-radii", "K+=1.33,Na+"}, "column 9"},
+		{"radius", []string{"--ion", "NO3-", "--all-salts", "--counter-radii", "K+=-1"}, "positive"},
+		{"radius", []string{"--ion", "NO3-", "--all-salts", "--only", "Kx+"}, "Kx+"},
+		{"radius", []string{"--ion", "ClO4-", "--all-salts"}, "gaseous ClO4-"},
+		{"radius", []string{"KNO3", "--ion", "NO3-", "--only", "K+"}, "go with --all-salts"},
 		{"batch", []string{"/nonexistent/file.csv"}, "file.csv"},
 		{"estimate", []string{"MgCl", "--bogus"}, "bogus"},
 	}

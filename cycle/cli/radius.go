@@ -7,13 +7,17 @@ import (
 	"enthalpath/cycle/analysis"
 )
 
-const radiusSynopsis = "radius FORMULA --ion ION [--lattice U] [--counter-radius Å] [--json]"
+const radiusSynopsis = "radius FORMULA --ion ION [--lattice U] [--counter-radius Å] [--json]\n       enthalpath radius --ion ION --all-salts [--counter-radii ION=Å,...] [--only ION,...] [--json]"
 
 func runRadius(env Env, args []string) error {
 	fs := newFlagSet("radius", radiusSynopsis, env.Stderr)
 	var ion string
 	var u, rc float64
-	var asJSON bool
+	var asJSON, allSalts bool
+	var counterRadii, only string
+	fs.BoolVar(&allSalts, "all-salts", false, "fit the radius over every salt of the ion in the data (least squares), instead of one FORMULA")
+	fs.StringVar(&counterRadii, "counter-radii", "", "with --all-salts: radii of counter-ions in `ION=Å,...` (e.g. K+=1.33,Na+=0.98) instead of the data's")
+	fs.StringVar(&only, "only", "", "with --all-salts: use only the salts of these counter-ions, `ION,...`")
 	fs.StringVar(&ion, "ion", "", "the `ION` whose radius to derive (the compound's cation or anion, e.g. NO3-)")
 	fs.Float64Var(&u, "lattice", 0, "lattice energy `U` to reproduce, kJ/mol (sign ignored; default: the Born–Haber cycle's, else the data's handbook value)")
 	fs.Float64Var(&rc, "counter-radius", 0, "radius of the other ion in `Å` (default: Shannon CN VI, or its thermochemical radius)")
@@ -22,11 +26,17 @@ func runRadius(env Env, args []string) error {
 	if err != nil || a == nil {
 		return err
 	}
-	if len(pos) != 1 {
-		return Usagef("give one formula: usage: enthalpath %s", radiusSynopsis)
-	}
 	if ion == "" {
 		return Usagef("--ion is required: the ion whose radius to derive (usage: enthalpath %s)", radiusSynopsis)
+	}
+	if allSalts {
+		return runRadiusFit(env, a, pos, ion, counterRadii, only, u, rc, asJSON)
+	}
+	if counterRadii != "" || only != "" {
+		return Usagef("--counter-radii and --only go with --all-salts; for one compound use --counter-radius")
+	}
+	if len(pos) != 1 {
+		return Usagef("give one formula: usage: enthalpath %s", radiusSynopsis)
 	}
 	if rc < 0 {
 		return Usagef("--counter-radius must be positive (Å)")

@@ -1,0 +1,142 @@
+package cli
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+
+	"enthalpath/cycle/analysis"
+)
+
+func runRadiusFit(env Env, a *analysis.Analyst, pos []string, ion, counterRadii, only string, u, rc float64, asJSON bool) error {
+	switch {
+	case len(pos) != 0:
+		return Usagef("--all-salts takes no formula (it uses every salt of %s in the data); got %q", ion, strings.Join(pos, " "))
+	case u != 0:
+		return Usagef("--lattice goes with one FORMULA, not with --all-salts (each salt's lattice energy is its own cycle's)")
+	case rc != 0:
+		return Usagef("--counter-radius goes with one FORMULA; with --all-salts give --counter-radii ION=Å,...")
+	}
+	radii, err := parseRadiusList(counterRadii)
+	if err != nil {
+		return err
+	}
+	var onlyList []string
+	if only != "" {
+		for _, s := range strings.Split(only, ",") {
+			if s = strings.TrimSpace(s); s != "" {
+				onlyList = append(onlyList, s)
+			}
+		}
+	}
+	f, err := a.FitRadius(ion, analysis.FitOptions{CounterRadii: radii, Only: onlyList})
+	if err != nil {
+		return inputError(err)
+	}
+	if asJSON {
+		return writeJSON(env.Stdout, radiusFitJSONOf(f))
+	}
+	printRadiusFit(env.Stdout, f)
+	return nil
+}
+
+// parseRadiusList reads "K+=1.33,Na+=0.98" (Å).
+func parseRadiusList(text string) (map[string]float64, error) {
+	if strings.TrimSpace(text) == "" {
+		return nil, nil
+	}
+	out := map[string]float64{}
+	col := 1
+	for _, part := range strings.Split(text, ",") {
+		p := strings.TrimSpace(part)
+		eq := strings.LastIndexByte(p, '=')
+		if eq <= 0 {
+			return nil, Usagef("--counter-radii %q: %q at column %d is not ION=Å (e.g. K+=1.33)", text, p, col)
+		}
+		sym := strings.TrimSpace(p[:eq])
+		v, err := strconv.ParseFloat(strings.TrimSpace(p[eq+1:]), 64)
+		if err != nil || !(v > 0) || math.IsInf(v, 0) {
+			return nil, Usagef("--counter-radii %q: radius of %s at column %d is %q, not a positive number of Å", text, sym, col+eq+1, strings.TrimSpace(p[eq+1:]))
+		}
+		if _, dup := out[sym]; dup {
+			return nil, Usagef("--counter-radii %q: %s given twice", text, sym)
+		}
+		out[sym] = v
+		col += len(part) + 1
+	}
+	return out, nil
+}
+
+type radiusFitSaltJSON struct {
+	Compound        string      `json:"compound"`
+	Counter         string      `json:"counter_ion"`
+	CounterRadius   *jsonNumber `json:"counter_radius_angstrom,omitempty"`
+	CounterFrom     string      `json:"counter_radius_from,omitempty"`
+	LatticeEnergyKJ *jsonNumber `json:"lattice_energy_kj_per_mol,omitempty"`
+	LatticeFrom     string      `json:"lattice_energy_from,omitempty"`
+	Radius          *jsonNumber `json:"radius_angstrom,omitempty"`
+	ResidualKJ      *jsonNumber `json:"residual_kj_per_mol,omitempty"`
+	Skipped         string      `json:"skipped,omitempty"`
+}
+
+type radiusFitJSON struct {
+	Ion           string              `json:"ion"`
+	Radius        jsonNumber          `json:"fitted_radius_angstrom"`
+	Mean          jsonNumber          `json:"mean_radius_angstrom"`
+	SD            jsonNumber          `json:"sd_angstrom"`
+	SE            jsonNumber          `json:"se_angstrom"`
+	RMSResidual   jsonNumber          `json:"rms_residual_kj_per_mol"`
+	Used          int                 `json:"salts_used"`
+	Tabulated     *jsonNumber         `json:"tabulated_radius_angstrom,omitempty"`
+	TabulatedFrom string              `json:"tabulated_radius_from,omitempty"`
+	Salts         []radiusFitSaltJSON `json:"salts"`
+	Notes         []string            `json:"notes"`
+}
+
+func radiusFitJSONOf(f *analysis.FittedRadius) radiusFitJSON {
+	out := radiusFitJSON{Ion: f.Ion, Radius: jsonNum(f.Radius), Mean: jsonNum(f.Mean), SD: jsonNum(f.SD), SE: jsonNum(f.SE),
+		RMSResidual: jsonNum(f.RMSResidual), Used: len(f.Used()), Notes: f.Notes, Salts: []radiusFitSaltJSON{}}
+	if f.Tabulated != nil {
+		out.Tabulated, out.TabulatedFrom = optNum(f.Tabulated.Value), f.Tabulated.From
+	}
+	for _, s := range f.Salts {
+		j := radiusFitSaltJSON{Compound: s.Formula, Counter: s.Counter, Skipped: s.Skipped}
+		if s.Skipped == "" {
+			j.CounterRadius, j.CounterFrom = optNum(s.CounterRadius.Value), s.CounterRadius.From
+			j.LatticeEnergyKJ, j.LatticeFrom = optNum(s.LatticeEnergy), s.LatticeFrom
+			r, res := jsonNum(s.Radius), jsonNum(s.Residual)
+			j.Radius, j.ResidualKJ = &r, &res
+		}
+		out.Salts = append(out.Salts, j)
+	}
+	return out
+}
+
+func printRadiusFit(w io.Writer, f *analysis.FittedRadius) {
+	used := f.Used()
+	fmt.Fprintf(w, "radius of %s fitted over %d salt(s): %.3f Å (one-salt radii %.3f ± %.3f Å, SE %.3f Å; rms misfit %.1f kJ/mol)\n",
+		f.Ion, len(used), f.Radius, f.Mean, f.SD, f.SE, f.RMSResidual)
+	if f.Tabulated != nil {
+		fmt.Fprintf(w, "  radius in the data: %.3f Å (%s)\n", f.Tabulated.Value, f.Tabulated.From)
+	}
+	fmt.Fprintln(w)
+	t := &table{head: []string{"salt", "counter-ion r/Å", "U/(kJ/mol)", "r alone/Å", "misfit/(kJ/mol)"}}
+	for _, s := range used {
+		t.add(s.Formula, fmt.Sprintf("%s %.3f", s.Counter, s.CounterRadius.Value), fmt.Sprintf("%.1f", s.LatticeEnergy),
+			fmt.Sprintf("%.3f", s.Radius), fmt.Sprintf("%+.1f", s.Residual))
+	}
+	t.write(w, "  ")
+	if n := len(f.Salts) - len(used); n > 0 {
+		fmt.Fprintf(w, "\n  left out (%d):\n", n)
+		for _, s := range f.Salts {
+			if s.Skipped != "" {
+				fmt.Fprintf(w, "    %s: %s\n", s.Formula, wrapText(s.Skipped, 90, "      "))
+			}
+		}
+	}
+	for _, n := range f.Notes {
+		fmt.Fprintf(w, "  note: %s\n", wrapText(n, 96, "        "))
+	}
+}
