@@ -6,6 +6,7 @@ import (
 	"github.com/charmbracelet/bubbles/key"
 	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/lipgloss"
 
 	"enthalpath/tui/screen"
 	"enthalpath/tui/theme"
@@ -24,31 +25,61 @@ func DefaultKeyMap() KeyMap {
 	}
 }
 
+// ShortHelp lists the prompt's keys.
+func (k KeyMap) ShortHelp() []key.Binding { return []key.Binding{k.Submit, k.Cancel} }
+
+// FullHelp lists the prompt's keys as one group.
+func (k KeyMap) FullHelp() [][]key.Binding { return [][]key.Binding{k.ShortHelp()} }
+
 // Accept checks an answer: it returns the command to run for a good one, or
-// an error explaining what is wrong (the prompt stays open).
+// an error explaining what is wrong (the prompt stays open). It must change
+// nothing when it returns an error.
 type Accept func(answer string) (tea.Cmd, error)
+
+// Option adjusts a prompt when it is opened.
+type Option func(*Model)
+
+// WithLabel sets the label in front of the typed text (by default "› ").
+func WithLabel(label string) Option { return func(m *Model) { m.input.Prompt = label } }
+
+// WithPlaceholder sets the muted text shown while nothing is typed.
+func WithPlaceholder(text string) Option { return func(m *Model) { m.input.Placeholder = text } }
+
+// WithAside sets muted text shown after the question, on its line.
+func WithAside(text string) Option { return func(m *Model) { m.Aside = text } }
+
+// WithSubmitHelp sets what the help says Enter does ("accept" by default).
+func WithSubmitHelp(desc string) Option {
+	return func(m *Model) { m.KeyMap.Submit.SetHelp(m.KeyMap.Submit.Help().Key, desc) }
+}
 
 // Model is an open prompt.
 type Model struct {
 	KeyMap KeyMap
-	// Question is shown above the input; Hint under it when there is no error.
-	Question, Hint string
+	// Question is shown above the input (no line when empty), Aside muted
+	// after it; Hint under the input when there is no error.
+	Question, Aside, Hint string
 
 	input  textinput.Model
 	accept Accept
 	err    error
 	done   bool
+	width  int
 	styles *theme.Styles
 }
 
 // New opens a prompt with an initial answer; limit bounds its length.
-func New(st *theme.Styles, question, initial, hint string, limit int, accept Accept) *Model {
+func New(st *theme.Styles, question, initial, hint string, limit int, accept Accept, opts ...Option) *Model {
 	ti := screen.NewInput(st, limit)
 	ti.Prompt = "› "
 	ti.SetValue(initial)
 	ti.CursorEnd()
 	ti.Focus()
-	return &Model{KeyMap: DefaultKeyMap(), Question: question, Hint: hint, input: ti, accept: accept, styles: st}
+	m := &Model{KeyMap: DefaultKeyMap(), Question: question, Hint: hint, input: ti, accept: accept, styles: st}
+	for _, o := range opts {
+		o(m)
+	}
+	return m
 }
 
 // Done reports whether the prompt was answered or cancelled.
@@ -60,10 +91,23 @@ func (m *Model) Err() error { return m.err }
 // Value is the text typed so far.
 func (m *Model) Value() string { return m.input.Value() }
 
-// SetWidth sets the input's width.
-func (m *Model) SetWidth(w int) { m.input.Width = max(8, w-4) }
+// SetWidth sets the width of the prompt's lines: the input fills what its
+// label leaves, and a refusal is wrapped to it. Zero means unbounded.
+func (m *Model) SetWidth(w int) {
+	m.width = max(w, 0)
+	m.input.Width = 0
+	if w > 0 {
+		m.input.Width = max(8, w-lipgloss.Width(m.input.Prompt)-2)
+	}
+}
 
-// Update handles a key.
+// ShortHelp lists the prompt's keys (the help.KeyMap interface).
+func (m *Model) ShortHelp() []key.Binding { return m.KeyMap.ShortHelp() }
+
+// FullHelp lists the prompt's keys (the help.KeyMap interface).
+func (m *Model) FullHelp() [][]key.Binding { return m.KeyMap.FullHelp() }
+
+// Update handles a key; other messages go to the text input.
 func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	if k, ok := msg.(tea.KeyMsg); ok {
 		switch {
@@ -91,12 +135,105 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 
 // View renders the question, the input and the explanation or hint.
 func (m *Model) View() string {
-	lines := []string{m.styles.Title.Render(m.Question), m.input.View()}
+	st := m.styles
+	var lines []string
+	if m.Question != "" {
+		q := st.Title.Render(m.Question)
+		if m.Aside != "" {
+			q += st.Muted.Render(m.Aside)
+		}
+		lines = append(lines, q)
+	}
+	in := m.input
+	if in.Value() == "" && in.Placeholder != "" && in.Width > 0 {
+		// textinput fits the placeholder into Width less the label; give
+		// it the room the label takes, so it fills the line like text.
+		in.Width += lipgloss.Width(in.Prompt)
+	}
+	lines = append(lines, in.View())
 	switch {
 	case m.err != nil:
-		lines = append(lines, m.styles.Error.Render("✗ not accepted: ")+m.styles.Text.Render(m.err.Error()))
+		refusal := st.Error.Render("✗ not accepted: ") + st.Text.Render(m.err.Error())
+		if m.width > 0 {
+			refusal = st.Renderer().NewStyle().Width(m.width).Render(refusal)
+		}
+		lines = append(lines, refusal)
 	case m.Hint != "":
-		lines = append(lines, m.styles.Muted.Render(m.Hint))
+		lines = append(lines, st.Muted.Render(m.Hint))
 	}
 	return strings.Join(lines, "\n")
+}
+
+// Slot is where a screen keeps its prompt while one is open; the zero
+// value is closed. A screen captures the keys exactly while Active.
+type Slot struct {
+	p     *Model
+	width int
+}
+
+// Open shows p, at the width last given to SetWidth.
+func (s *Slot) Open(p *Model) {
+	s.p = p
+	if s.width > 0 {
+		p.SetWidth(s.width)
+	}
+}
+
+// Close drops the open prompt, if any, as if cancelled.
+func (s *Slot) Close() { s.p = nil }
+
+// Active reports whether a prompt is open.
+func (s *Slot) Active() bool { return s.p != nil }
+
+// Err is the open prompt's refusal, or nil.
+func (s *Slot) Err() error {
+	if s.p == nil {
+		return nil
+	}
+	return s.p.Err()
+}
+
+// SetWidth sets the width of the open prompt and of those opened later.
+func (s *Slot) SetWidth(w int) {
+	s.width = w
+	if s.p != nil {
+		s.p.SetWidth(w)
+	}
+}
+
+// Update passes msg to the open prompt and closes it once answered or
+// cancelled. With no prompt open it does nothing.
+func (s *Slot) Update(msg tea.Msg) tea.Cmd {
+	if s.p == nil {
+		return nil
+	}
+	cmd := s.p.Update(msg)
+	if s.p.Done() {
+		s.p = nil
+	}
+	return cmd
+}
+
+// View renders the open prompt, or "".
+func (s *Slot) View() string {
+	if s.p == nil {
+		return ""
+	}
+	return s.p.View()
+}
+
+// ShortHelp lists the open prompt's keys (nil when closed).
+func (s *Slot) ShortHelp() []key.Binding {
+	if s.p == nil {
+		return nil
+	}
+	return s.p.ShortHelp()
+}
+
+// FullHelp lists the open prompt's keys (nil when closed).
+func (s *Slot) FullHelp() [][]key.Binding {
+	if s.p == nil {
+		return nil
+	}
+	return s.p.FullHelp()
 }
