@@ -40,12 +40,16 @@ func (s *Session) Open(c *cycle.Cycle, path string) tea.Cmd {
 }
 
 // Change applies f to the cycle, marks the session dirty and returns the
-// re-solve command. If f fails, nothing is marked and the error is returned.
+// re-solve command. If f fails, the cycle is put back as it was before f
+// (a change is applied whole or not at all), nothing is marked and the
+// error is returned.
 func (s *Session) Change(f func(c *cycle.Cycle) error) (tea.Cmd, error) {
 	if s.Cycle == nil {
 		return nil, fmt.Errorf("no cycle is open: pick a compound on the shelf first")
 	}
+	before := s.Cycle.Clone()
 	if err := f(s.Cycle); err != nil {
+		*s.Cycle = *before // in place: screens hold the pointer
 		return nil, err
 	}
 	s.Dirty = true
