@@ -7,6 +7,7 @@ import (
 	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 	"github.com/charmbracelet/lipgloss"
+	"github.com/charmbracelet/x/ansi"
 
 	"enthalpath/tui/screen"
 	"enthalpath/tui/theme"
@@ -91,8 +92,9 @@ func (m *Model) Err() error { return m.err }
 // Value is the text typed so far.
 func (m *Model) Value() string { return m.input.Value() }
 
-// SetWidth sets the width of the prompt's lines: the input fills what its
-// label leaves, and a refusal is wrapped to it. Zero means unbounded.
+// SetWidth sets the width of the prompt's lines: the question is cut to
+// it, the input fills what its label leaves, and a refusal is wrapped to
+// it. Zero means unbounded.
 func (m *Model) SetWidth(w int) {
 	m.width = max(w, 0)
 	m.input.Width = 0
@@ -141,6 +143,9 @@ func (m *Model) View() string {
 		q := st.Title.Render(m.Question)
 		if m.Aside != "" {
 			q += st.Muted.Render(m.Aside)
+		}
+		if m.width > 0 {
+			q = ansi.Truncate(q, m.width, "…")
 		}
 		lines = append(lines, q)
 	}

@@ -148,23 +148,26 @@ func TestViewFitsItsWidth(t *testing.T) {
 	st := theme.DefaultStyles(drive.Renderer())
 	long := errors.New(strings.Repeat("a long reason ", 12) + "END")
 	cases := []struct {
-		name, label, placeholder string
-		width                    int
-		refuse                   bool
-		want                     []string
+		name, question, aside string
+		label, placeholder    string
+		width                 int
+		refuse                bool
+		want                  []string
 	}{
 		{name: "placeholder whole when it fits", label: "value › ", placeholder: "e.g. -349.0±0.5 (kJ/mol)", width: 36,
 			want: []string{"value › ", "e.g. -349.0±0.5 (kJ/mol)"}},
 		{name: "placeholder cut when it does not", label: "value › ", placeholder: strings.Repeat("p", 80), width: 40,
 			want: []string{"value › ", "…"}},
 		{name: "refusal wrapped", label: "ρ › ", width: 40, refuse: true, want: []string{"not accepted:", "END"}},
+		{name: "question and aside cut", question: "New value for the first ionization energy", aside: " — a long aside",
+			label: "v › ", width: 30, want: []string{"New value for", "…"}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
 			var s Slot
 			s.SetWidth(c.width)
-			s.Open(New(st, "", "", "", 100, func(string) (tea.Cmd, error) { return nil, long },
-				WithLabel(c.label), WithPlaceholder(c.placeholder)))
+			s.Open(New(st, c.question, "", "", 100, func(string) (tea.Cmd, error) { return nil, long },
+				WithLabel(c.label), WithPlaceholder(c.placeholder), WithAside(c.aside)))
 			if c.refuse {
 				s.Update(drive.Key("enter"))
 			}
