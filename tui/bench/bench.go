@@ -7,7 +7,6 @@ import (
 	"path/filepath"
 
 	"github.com/charmbracelet/bubbles/key"
-	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 
 	"enthalpath/cycle"
@@ -26,12 +25,10 @@ type Model struct {
 
 	cursor     int
 	top        int
-	editing    bool
-	input      textinput.Model
-	editErr    error
+	edit       prompt.Slot // a step's new value, while typed
 	showSource bool
-	drawing    bool // in a small window: the drawing instead of the list
-	export     *prompt.Model
+	drawing    bool        // in a small window: the drawing instead of the list
+	export     prompt.Slot // the SVG file name, while typed
 	w, h       int
 }
 
@@ -39,8 +36,7 @@ var _ screen.Screen = (*Model)(nil)
 
 // New returns the bench over the session's cycle.
 func New(ctx *screen.Context, sess *session.Session) *Model {
-	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
-	return &Model{KeyMap: DefaultKeyMap(), ctx: ctx, sess: sess, input: ti}
+	return &Model{KeyMap: DefaultKeyMap(), ctx: ctx, sess: sess}
 }
 
 // Init does nothing.
@@ -50,19 +46,20 @@ func (m *Model) Init() tea.Cmd { return nil }
 func (m *Model) Title() string { return "Bench" }
 
 // Capturing reports whether a value or file name is being typed.
-func (m *Model) Capturing() bool { return m.editing || m.export != nil }
+func (m *Model) Capturing() bool { return m.edit.Active() || m.export.Active() }
 
 // SetSize sets the body size.
 func (m *Model) SetSize(w, h int) {
 	m.w, m.h = w, h
-	m.input.Width = max(10, w-40)
+	m.edit.SetWidth(w)
+	m.export.SetWidth(min(w-6, 80))
 }
 
 // Cursor returns the index of the highlighted step.
 func (m *Model) Cursor() int { return m.cursor }
 
 // Editing reports whether a value is being typed, and the refusal shown.
-func (m *Model) Editing() (bool, error) { return m.editing, m.editErr }
+func (m *Model) Editing() (bool, error) { return m.edit.Active(), m.edit.Err() }
 
 // ShowingSource reports whether the citation box is open.
 func (m *Model) ShowingSource() bool { return m.showSource }
@@ -71,19 +68,32 @@ func (m *Model) ShowingSource() bool { return m.showSource }
 func (m *Model) ShowingDrawing() bool { return m.drawing }
 
 // Exporting reports whether the SVG file name is being asked.
-func (m *Model) Exporting() bool { return m.export != nil }
+func (m *Model) Exporting() bool { return m.export.Active() }
 
-// ShortHelp lists the main keys.
-func (m *Model) ShortHelp() []key.Binding {
-	k := m.KeyMap
-	if m.editing {
-		return []key.Binding{k.Accept, k.Cancel}
+// typing returns the prompt being typed in, if any.
+func (m *Model) typing() *prompt.Slot {
+	if m.export.Active() {
+		return &m.export
 	}
+	return &m.edit
+}
+
+// ShortHelp lists the main keys; while a value or file name is typed, the
+// prompt's.
+func (m *Model) ShortHelp() []key.Binding {
+	if m.Capturing() {
+		return m.typing().ShortHelp()
+	}
+	k := m.KeyMap
 	return []key.Binding{k.Edit, k.Unknown, k.Reset, k.Source}
 }
 
-// FullHelp lists every key.
+// FullHelp lists every key; while a value or file name is typed, the
+// prompt's.
 func (m *Model) FullHelp() [][]key.Binding {
+	if m.Capturing() {
+		return m.typing().FullHelp()
+	}
 	k := m.KeyMap
 	return [][]key.Binding{
 		{k.Up, k.Down, k.Top, k.Bottom},
@@ -115,7 +125,9 @@ func (m *Model) current() *cycle.Step {
 func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	switch msg := msg.(type) {
 	case session.OpenedMsg:
-		m.cursor, m.top, m.editing, m.showSource, m.export = 0, 0, false, false, nil
+		m.cursor, m.top, m.showSource = 0, 0, false
+		m.edit.Close()
+		m.export.Close()
 		if c := m.sess.Cycle; c != nil {
 			for i := range c.Steps {
 				if c.Steps[i].Unknown {
@@ -127,24 +139,12 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	case tea.KeyMsg:
 		return m.key(msg)
 	}
-	if m.editing {
-		var cmd tea.Cmd
-		m.input, cmd = m.input.Update(msg)
-		return cmd
-	}
-	return nil
+	return m.typing().Update(msg)
 }
 
 func (m *Model) key(k tea.KeyMsg) tea.Cmd {
-	if m.export != nil {
-		cmd := m.export.Update(k)
-		if m.export.Done() {
-			m.export = nil
-		}
-		return cmd
-	}
-	if m.editing {
-		return m.editKey(k)
+	if m.Capturing() {
+		return m.typing().Update(k)
 	}
 	if m.showSource {
 		// Any key closes the box; movement keys also move.
@@ -217,59 +217,52 @@ func (m *Model) move(d int) {
 	m.cursor = max(0, min(n-1, m.cursor+d))
 }
 
+// startEdit asks for a new value of the highlighted step.
 func (m *Model) startEdit() tea.Cmd {
 	s := m.current()
 	if s == nil {
 		return nil
 	}
-	m.editing, m.editErr = true, nil
-	m.input.Reset()
-	m.input.Prompt = fmt.Sprintf("%s (%s) › ", s.Key, m.ctx.Units)
 	cur := "no value yet"
 	if s.Source.Kind != cycle.SourceMissing && !s.Unknown {
 		cur = "now " + m.ctx.Signed(s.Value) + " " + m.ctx.Uncertainty(s.Uncertainty)
 	}
-	m.input.Placeholder = cur + "; type e.g. -349.0±0.5"
-	return m.input.Focus()
+	p := prompt.New(m.ctx.Styles, "New value for "+s.Label, "", "", m.ctx.MaxInputLen, m.acceptValue(s.Key),
+		prompt.WithLabel(fmt.Sprintf("%s (%s) › ", s.Key, m.ctx.Units)),
+		prompt.WithPlaceholder(cur+"; type e.g. -349.0±0.5"),
+		prompt.WithAside(" — "+s.Reaction+", per reaction as written; ± uncertainty optional"),
+		prompt.WithSubmitHelp("accept the value"))
+	km := p.KeyMap
+	p.Hint = km.Submit.Help().Key + " accepts · " + km.Cancel.Help().Key + " cancels · without ± the old uncertainty is kept"
+	m.edit.Open(p)
+	return nil
 }
 
-func (m *Model) editKey(k tea.KeyMsg) tea.Cmd {
-	switch {
-	case key.Matches(k, m.KeyMap.Cancel):
-		m.editing, m.editErr = false, nil
-		m.input.Blur()
-		return nil
-	case key.Matches(k, m.KeyMap.Accept):
-		s := m.current()
-		kj, unc, hasUnc, err := screen.ParseEnergy(m.input.Value(), m.ctx.Units)
+// acceptValue checks a value typed for step key (a number, of the sign the
+// step's physics allows) and sets it; without ± the old uncertainty stays.
+func (m *Model) acceptValue(key string) prompt.Accept {
+	return func(text string) (tea.Cmd, error) {
+		s, ok := m.sess.Cycle.Step(key)
+		if !ok {
+			return nil, fmt.Errorf("the cycle has no step %s any more", key)
+		}
+		kj, unc, hasUnc, err := screen.ParseEnergy(text, m.ctx.Units)
 		if err == nil {
 			err = m.plausible(s, kj)
 		}
 		if err != nil {
-			m.editErr = err
-			return nil
+			return nil, err
 		}
 		if !hasUnc {
 			unc = s.Uncertainty
 		}
-		key := s.Key
 		cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return c.Set(key, kj, unc) })
 		if err != nil {
-			m.editErr = err
-			return nil
+			return nil, err
 		}
-		m.editing, m.editErr = false, nil
-		m.input.Blur()
 		return tea.Batch(cmd, screen.Status(fmt.Sprintf("%s set to %s %s %s (your value).", key,
-			m.ctx.Signed(kj), m.ctx.Uncertainty(unc), m.ctx.Units)))
+			m.ctx.Signed(kj), m.ctx.Uncertainty(unc), m.ctx.Units))), nil
 	}
-	before := m.input.Value()
-	var cmd tea.Cmd
-	m.input, cmd = m.input.Update(k)
-	if m.input.Value() != before {
-		m.editErr = nil
-	}
-	return cmd
 }
 
 // plausible refuses values whose sign contradicts the step's physics, with
@@ -295,7 +288,7 @@ func (m *Model) askExport() {
 	c := m.sess.Cycle
 	d := hessdiagram.Build(c.Formula, m.steps(), hessdiagram.Options{Units: m.ctx.Units, Limit: -1, Solved: m.sess.Solved() != nil})
 	name := stem(c.Formula) + "-cycle.svg"
-	m.export = prompt.New(m.ctx.Styles, "Export the drawing as SVG", name, "A file name; esc cancels.", m.ctx.MaxInputLen,
+	m.export.Open(prompt.New(m.ctx.Styles, "Export the drawing as SVG", name, "A file name; esc cancels.", m.ctx.MaxInputLen,
 		func(answer string) (tea.Cmd, error) {
 			if filepath.Ext(answer) != ".svg" {
 				answer += ".svg"
@@ -310,8 +303,7 @@ func (m *Model) askExport() {
 				}
 				return screen.StatusMsg{Text: "Drawing written to " + path + "."}
 			}, nil
-		})
-	m.export.SetWidth(min(m.w-6, 80))
+		}))
 }
 
 // writeSVG writes atomically: a temporary file beside path, then a rename.

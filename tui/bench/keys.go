@@ -9,8 +9,6 @@ type KeyMap struct {
 	Source, Assemble      key.Binding
 	Pane, Export          key.Binding
 	Lattice, Electrons    key.Binding
-	// Accept and Cancel apply while a value is being typed.
-	Accept, Cancel key.Binding
 }
 
 // DefaultKeyMap returns the bench's keys.
@@ -29,7 +27,5 @@ func DefaultKeyMap() KeyMap {
 		Export:    key.NewBinding(key.WithKeys("d"), key.WithHelp("d", "export the drawing as SVG")),
 		Lattice:   key.NewBinding(key.WithKeys("c"), key.WithHelp("c", "lattice ΔH_L ⇄ U")),
 		Electrons: key.NewBinding(key.WithKeys("t"), key.WithHelp("t", "ionization 0 K ⇄ 298 K")),
-		Accept:    key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "accept the value")),
-		Cancel:    key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel")),
 	}
 }

@@ -24,11 +24,8 @@ func (m *Model) View() string {
 			"or type a formula there and press ctrl+g to assemble it step by step.")
 	}
 	top := []string{m.titleLine(), m.solvedLine()}
-	if m.export != nil {
-		top = append(top, m.export.View())
-	}
-	if m.editing {
-		top = append(top, m.editView())
+	if m.Capturing() {
+		top = append(top, m.typing().View())
 	}
 	used := lipgloss.Height(strings.Join(top, "\n"))
 	rest := m.h - used
@@ -200,19 +197,6 @@ func (m *Model) drawingView(h int) string {
 func (m *Model) diagramStyles() diagram.Styles {
 	st := m.ctx.Styles
 	return diagram.Styles{Rule: st.Rule, Arrow: st.Text, Solved: st.Solved, Label: st.Text, Axis: st.Muted}
-}
-
-func (m *Model) editView() string {
-	st := m.ctx.Styles
-	s := m.current()
-	lines := []string{st.Title.Render("New value for "+s.Label) + st.Muted.Render(" — "+s.Reaction+", per reaction as written; ± uncertainty optional"),
-		m.input.View()}
-	if m.editErr != nil {
-		lines = append(lines, st.Error.Render("✗ not accepted: ")+st.Text.Render(trunc(m.editErr.Error(), m.w-17)))
-	} else {
-		lines = append(lines, st.Muted.Render("enter accepts · esc cancels · without ± the old uncertainty is kept"))
-	}
-	return strings.Join(lines, "\n")
 }
 
 func (m *Model) sourceView(h int) string {
