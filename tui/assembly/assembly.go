@@ -6,13 +6,13 @@ import (
 	"strings"
 
 	"github.com/charmbracelet/bubbles/key"
-	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 	"github.com/charmbracelet/lipgloss"
 
 	"enthalpath/cycle"
 	"enthalpath/tui/diagram"
 	"enthalpath/tui/hessdiagram"
+	"enthalpath/tui/prompt"
 	"enthalpath/tui/screen"
 	"enthalpath/tui/session"
 )
@@ -28,9 +28,7 @@ type Model struct {
 	order    []string     // step keys in the order they are proposed
 	decided  []string     // what was done with each decided step
 	unknown  string       // the step chosen as the unknown, or ""
-	editing  bool
-	input    textinput.Model
-	editErr  error
+	edit     prompt.Slot  // a value of one's own for the proposed step, while typed
 	w, h     int
 }
 
@@ -38,9 +36,7 @@ var _ screen.Screen = (*Model)(nil)
 
 // New returns the assembly over the session's cycle.
 func New(ctx *screen.Context, sess *session.Session) *Model {
-	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
-	ti.Prompt = "value › "
-	return &Model{KeyMap: DefaultKeyMap(), ctx: ctx, sess: sess, input: ti}
+	return &Model{KeyMap: DefaultKeyMap(), ctx: ctx, sess: sess}
 }
 
 // Init does nothing.
@@ -50,10 +46,16 @@ func (m *Model) Init() tea.Cmd { return nil }
 func (m *Model) Title() string { return "Assembly" }
 
 // Capturing reports whether a value is being typed.
-func (m *Model) Capturing() bool { return m.editing }
+func (m *Model) Capturing() bool { return m.edit.Active() }
+
+// Editing reports whether a value is being typed, and the refusal shown.
+func (m *Model) Editing() (bool, error) { return m.edit.Active(), m.edit.Err() }
 
 // SetSize sets the body size.
-func (m *Model) SetSize(w, h int) { m.w, m.h = w, h }
+func (m *Model) SetSize(w, h int) {
+	m.w, m.h = w, h
+	m.edit.SetWidth(w - 2) // indented under the proposal
+}
 
 // Position returns how many steps are decided and how many there are.
 func (m *Model) Position() (decided, total int) { return len(m.decided), len(m.order) }
@@ -61,17 +63,20 @@ func (m *Model) Position() (decided, total int) { return len(m.decided), len(m.o
 // Unknown returns the key of the step chosen as the unknown so far.
 func (m *Model) Unknown() string { return m.unknown }
 
-// ShortHelp lists the main keys.
+// ShortHelp lists the main keys; while a value is typed, the prompt's.
 func (m *Model) ShortHelp() []key.Binding {
-	k := m.KeyMap
-	if m.editing {
-		return []key.Binding{k.Submit, k.Cancel}
+	if m.edit.Active() {
+		return m.edit.ShortHelp()
 	}
+	k := m.KeyMap
 	return []key.Binding{k.Accept, k.Type, k.Unknown, k.Back}
 }
 
-// FullHelp lists every key.
+// FullHelp lists every key; while a value is typed, the prompt's.
 func (m *Model) FullHelp() [][]key.Binding {
+	if m.edit.Active() {
+		return m.edit.FullHelp()
+	}
 	k := m.KeyMap
 	return [][]key.Binding{{k.Accept, k.Type, k.Unknown}, {k.Back, k.Bench}}
 }
@@ -81,7 +86,8 @@ func (m *Model) FullHelp() [][]key.Binding {
 // formation step just before it.
 func (m *Model) restart() {
 	c := m.sess.Cycle
-	m.forCycle, m.order, m.decided, m.unknown, m.editing = c, nil, nil, "", false
+	m.forCycle, m.order, m.decided, m.unknown = c, nil, nil, ""
+	m.edit.Close()
 	if c == nil {
 		return
 	}
@@ -121,12 +127,7 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	case tea.KeyMsg:
 		return m.key(msg)
 	}
-	if m.editing {
-		var cmd tea.Cmd
-		m.input, cmd = m.input.Update(msg)
-		return cmd
-	}
-	return nil
+	return m.edit.Update(msg)
 }
 
 func (m *Model) currentKey() string {
@@ -157,8 +158,8 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 	if m.forCycle != m.sess.Cycle {
 		m.restart()
 	}
-	if m.editing {
-		return m.editKey(k)
+	if m.edit.Active() {
+		return m.edit.Update(k)
 	}
 	km := m.KeyMap
 	switch {
@@ -173,10 +174,7 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 	case key.Matches(k, km.Accept):
 		return m.accept()
 	case key.Matches(k, km.Type):
-		m.editing, m.editErr = true, nil
-		m.input.Reset()
-		m.input.Placeholder = "e.g. -349.0±0.5 (" + m.ctx.Units.String() + ")"
-		return m.input.Focus()
+		m.startEdit()
 	case key.Matches(k, km.Unknown):
 		return m.markUnknown()
 	}
@@ -315,18 +313,29 @@ func (m *Model) back() tea.Cmd {
 	return nil
 }
 
-func (m *Model) editKey(k tea.KeyMsg) tea.Cmd {
-	switch {
-	case key.Matches(k, m.KeyMap.Cancel):
-		m.editing, m.editErr = false, nil
-		m.input.Blur()
-		return nil
-	case key.Matches(k, m.KeyMap.Submit):
-		s := m.current()
-		kj, unc, hasUnc, err := screen.ParseEnergy(m.input.Value(), m.ctx.Units)
+// startEdit asks for a value of one's own for the proposed step.
+func (m *Model) startEdit() {
+	s := m.current()
+	if s == nil {
+		return
+	}
+	m.edit.Open(prompt.New(m.ctx.Styles, "", "", "", m.ctx.MaxInputLen, m.acceptValue(s.Key),
+		prompt.WithLabel("value › "),
+		prompt.WithPlaceholder("e.g. -349.0±0.5 ("+m.ctx.Units.String()+")"),
+		prompt.WithSubmitHelp("accept the value")))
+}
+
+// acceptValue checks a value typed for step key and sets it as decided;
+// without ± the data's uncertainty is taken (0 when the data have none).
+func (m *Model) acceptValue(key string) prompt.Accept {
+	return func(text string) (tea.Cmd, error) {
+		s, ok := m.sess.Cycle.Step(key)
+		if !ok {
+			return nil, fmt.Errorf("the cycle has no step %s any more", key)
+		}
+		kj, unc, hasUnc, err := screen.ParseEnergy(text, m.ctx.Units)
 		if err != nil {
-			m.editErr = err
-			return nil
+			return nil, err
 		}
 		if !hasUnc {
 			unc = 0
@@ -334,29 +343,19 @@ func (m *Model) editKey(k tea.KeyMsg) tea.Cmd {
 				unc = s.Reference.Uncertainty
 			}
 		}
-		key := s.Key
+		lattice := s.Kind == cycle.KindLattice
 		cmd, err := m.sess.Change(func(c *cycle.Cycle) error {
-			if s.Kind == cycle.KindLattice {
+			if lattice {
 				c.Settings.LatticeFrom = ""
 			}
 			return c.Set(key, kj, unc)
 		})
 		if err != nil {
-			m.editErr = err
-			return nil
+			return nil, err
 		}
-		m.editing = false
-		m.input.Blur()
 		m.decided = append(m.decided, "your value")
-		return cmd
+		return cmd, nil
 	}
-	before := m.input.Value()
-	var cmd tea.Cmd
-	m.input, cmd = m.input.Update(k)
-	if m.input.Value() != before {
-		m.editErr = nil
-	}
-	return cmd
 }
 
 // View renders the assembly.
@@ -404,11 +403,8 @@ func (m *Model) View() string {
 		} else {
 			lines = append(lines, st.Warn.Render("  "+text))
 		}
-		if m.editing {
-			lines = append(lines, "  "+m.input.View())
-			if m.editErr != nil {
-				lines = append(lines, st.Error.Render("  ✗ not accepted: ")+st.Text.Render(m.editErr.Error()))
-			}
+		if m.edit.Active() {
+			lines = append(lines, indent(m.edit.View(), "  "))
 		}
 	} else {
 		lines = append(lines, "", m.doneLine())
@@ -464,6 +460,8 @@ func (m *Model) doneLine() string {
 	return st.Solved.Render("? solved: ") + st.Accent.Render(fmt.Sprintf("%s = %s %s %s", s.Label, m.ctx.Signed(s.Value),
 		m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units)) + st.Muted.Render("   enter: on to the bench")
 }
+
+func indent(s, by string) string { return by + strings.ReplaceAll(s, "\n", "\n"+by) }
 
 func multNote(v float64) string {
 	if v == 1 {

@@ -157,8 +157,8 @@ func TestTypeAnotherValueAndGoBack(t *testing.T) {
 	drive.Run(u, drive.Key("e"))
 	drive.Run(u, drive.Text("x12")...)
 	drive.Run(u, drive.Key("enter"))
-	if !m.editing || m.editErr == nil || !strings.Contains(m.View(), "not accepted") {
-		t.Fatalf("bad value not refused in place: editing=%v err=%v", m.editing, m.editErr)
+	if editing, err := m.Editing(); !editing || err == nil || !strings.Contains(m.View(), "not accepted") {
+		t.Fatalf("bad value not refused in place: editing=%v err=%v", editing, err)
 	}
 	drive.Run(u, drive.Key("esc"))
 	drive.Run(u, drive.Key("e"))

@@ -5,8 +5,6 @@ import "github.com/charmbracelet/bubbles/key"
 // KeyMap is the assembly's keys.
 type KeyMap struct {
 	Accept, Type, Unknown, Back, Bench key.Binding
-	// Submit and Cancel apply while a value is being typed.
-	Submit, Cancel key.Binding
 }
 
 // DefaultKeyMap returns the assembly's keys.
@@ -17,7 +15,5 @@ func DefaultKeyMap() KeyMap {
 		Unknown: key.NewBinding(key.WithKeys("x"), key.WithHelp("x", "make this the unknown")),
 		Back:    key.NewBinding(key.WithKeys("b", "backspace"), key.WithHelp("b", "back one step")),
 		Bench:   key.NewBinding(key.WithKeys("w"), key.WithHelp("w", "to the bench")),
-		Submit:  key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "accept the value")),
-		Cancel:  key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel")),
 	}
 }
