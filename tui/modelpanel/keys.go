@@ -5,7 +5,6 @@ import "github.com/charmbracelet/bubbles/key"
 // KeyMap is the model panel's keys.
 type KeyMap struct {
 	Up, Down, Edit, Next, Prev, Default key.Binding
-	Accept, Cancel                      key.Binding
 }
 
 // DefaultKeyMap returns the model panel's keys.
@@ -17,7 +16,5 @@ func DefaultKeyMap() KeyMap {
 		Next:    key.NewBinding(key.WithKeys("right", "l"), key.WithHelp("→/l", "next choice")),
 		Prev:    key.NewBinding(key.WithKeys("left", "h"), key.WithHelp("←/h", "previous choice")),
 		Default: key.NewBinding(key.WithKeys("r"), key.WithHelp("r", "back to the default")),
-		Accept:  key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "accept")),
-		Cancel:  key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel")),
 	}
 }

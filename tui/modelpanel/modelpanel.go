@@ -6,10 +6,10 @@ import (
 	"strings"
 
 	"github.com/charmbracelet/bubbles/key"
-	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 
 	"enthalpath/cycle"
+	"enthalpath/tui/prompt"
 	"enthalpath/tui/screen"
 	"enthalpath/tui/session"
 )
@@ -21,20 +21,17 @@ type Model struct {
 	ctx  *screen.Context
 	sess *session.Session
 
-	rows    []setting
-	cursor  int
-	editing bool
-	input   textinput.Model
-	editErr error
-	w, h    int
+	rows   []setting
+	cursor int
+	edit   prompt.Slot // the highlighted setting, while typed
+	w, h   int
 }
 
 var _ screen.Screen = (*Model)(nil)
 
 // New returns the model panel over the session's cycle.
 func New(ctx *screen.Context, sess *session.Session) *Model {
-	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
-	return &Model{KeyMap: DefaultKeyMap(), ctx: ctx, sess: sess, rows: settingsRows(), input: ti}
+	return &Model{KeyMap: DefaultKeyMap(), ctx: ctx, sess: sess, rows: settingsRows()}
 }
 
 // Init does nothing.
@@ -44,15 +41,15 @@ func (m *Model) Init() tea.Cmd { return nil }
 func (m *Model) Title() string { return "Models" }
 
 // Capturing reports whether a setting is being typed.
-func (m *Model) Capturing() bool { return m.editing }
+func (m *Model) Capturing() bool { return m.edit.Active() }
 
 // SetSize sets the body size.
-func (m *Model) SetSize(w, h int) { m.w, m.h = w, h; m.input.Width = max(10, w-30) }
+func (m *Model) SetSize(w, h int) { m.w, m.h = w, h; m.edit.SetWidth(w) }
 
 // Cursor returns the highlighted setting's index; Editing whether it is
 // being typed and the refusal shown.
 func (m *Model) Cursor() int            { return m.cursor }
-func (m *Model) Editing() (bool, error) { return m.editing, m.editErr }
+func (m *Model) Editing() (bool, error) { return m.edit.Active(), m.edit.Err() }
 func (m *Model) SettingNames() (out []string) {
 	for _, r := range m.rows {
 		out = append(out, r.name)
@@ -60,17 +57,20 @@ func (m *Model) SettingNames() (out []string) {
 	return out
 }
 
-// ShortHelp lists the main keys.
+// ShortHelp lists the main keys; while a setting is typed, the prompt's.
 func (m *Model) ShortHelp() []key.Binding {
-	k := m.KeyMap
-	if m.editing {
-		return []key.Binding{k.Accept, k.Cancel}
+	if m.edit.Active() {
+		return m.edit.ShortHelp()
 	}
+	k := m.KeyMap
 	return []key.Binding{k.Down, k.Edit, k.Next, k.Default}
 }
 
-// FullHelp lists every key.
+// FullHelp lists every key; while a setting is typed, the prompt's.
 func (m *Model) FullHelp() [][]key.Binding {
+	if m.edit.Active() {
+		return m.edit.FullHelp()
+	}
 	k := m.KeyMap
 	return [][]key.Binding{{k.Up, k.Down}, {k.Edit, k.Next, k.Prev, k.Default}}
 }
@@ -78,13 +78,8 @@ func (m *Model) FullHelp() [][]key.Binding {
 // Update handles keys.
 func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	k, ok := msg.(tea.KeyMsg)
-	if !ok {
-		if m.editing {
-			var cmd tea.Cmd
-			m.input, cmd = m.input.Update(msg)
-			return cmd
-		}
-		return nil
+	if !ok || m.edit.Active() {
+		return m.edit.Update(msg)
 	}
 	c := m.sess.Cycle
 	if c == nil {
@@ -92,42 +87,14 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	}
 	row := m.rows[m.cursor]
 	km := m.KeyMap
-	if m.editing {
-		switch {
-		case key.Matches(k, km.Cancel):
-			m.editing, m.editErr = false, nil
-			m.input.Blur()
-			return nil
-		case key.Matches(k, km.Accept):
-			text := m.input.Value()
-			cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return row.parse(c, text, m.ctx.ResolvePath) })
-			if err != nil {
-				m.editErr = err
-				return nil
-			}
-			m.editing, m.editErr = false, nil
-			m.input.Blur()
-			return tea.Batch(cmd, screen.Status(row.name+": "+row.show(&c.Settings)+"."))
-		}
-		before := m.input.Value()
-		var cmd tea.Cmd
-		m.input, cmd = m.input.Update(k)
-		if before != m.input.Value() {
-			m.editErr = nil
-		}
-		return cmd
-	}
 	switch {
 	case key.Matches(k, km.Up):
 		m.cursor = max(0, m.cursor-1)
 	case key.Matches(k, km.Down):
 		m.cursor = min(len(m.rows)-1, m.cursor+1)
 	case key.Matches(k, km.Edit):
-		m.editing, m.editErr = true, nil
-		m.input.Reset()
-		m.input.Prompt = row.name + " › "
-		m.input.Placeholder = row.hint
-		return m.input.Focus()
+		m.edit.Open(prompt.New(m.ctx.Styles, "", "", "", m.ctx.MaxInputLen, m.acceptSetting(row),
+			prompt.WithLabel(row.name+" › "), prompt.WithPlaceholder(row.hint)))
 	case key.Matches(k, km.Next), key.Matches(k, km.Prev):
 		d := 1
 		if key.Matches(k, km.Prev) {
@@ -143,6 +110,18 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 		return tea.Batch(cmd, screen.Status(row.name+" back to its default."))
 	}
 	return nil
+}
+
+// acceptSetting applies text typed for row through its parse, which
+// refuses what the setting cannot take; the status line says the result.
+func (m *Model) acceptSetting(row setting) prompt.Accept {
+	return func(text string) (tea.Cmd, error) {
+		cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return row.parse(c, text, m.ctx.ResolvePath) })
+		if err != nil {
+			return nil, err
+		}
+		return tea.Batch(cmd, screen.Status(row.name+": "+row.show(&m.sess.Cycle.Settings)+".")), nil
+	}
 }
 
 // View renders the panel.
@@ -180,11 +159,8 @@ func (m *Model) View() string {
 		}
 		lines = append(lines, text)
 	}
-	if m.editing {
-		lines = append(lines, m.input.View())
-		if m.editErr != nil {
-			lines = append(lines, st.Error.Render("✗ not accepted: ")+trunc(m.editErr.Error(), m.w-17))
-		}
+	if m.edit.Active() {
+		lines = append(lines, strings.Split(m.edit.View(), "\n")...)
 	}
 	if len(lines) > m.h {
 		lines = lines[:m.h]
