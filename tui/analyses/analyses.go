@@ -5,10 +5,10 @@ import (
 	"strings"
 
 	"github.com/charmbracelet/bubbles/key"
-	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 
 	"enthalpath/cycle/analysis"
+	"enthalpath/tui/prompt"
 	"enthalpath/tui/screen"
 	"enthalpath/tui/session"
 )
@@ -20,14 +20,13 @@ type Model struct {
 	ctx     *screen.Context
 	sess    *session.Session
 	kinds   []kind
-	args    []string // the last arguments of each analysis
+	args    []string // the last accepted arguments of each analysis
 	results []any    // the last result of each analysis
 	errs    []error
 	running []bool
 	analyst *analysis.Analyst
 	cursor  int
-	editing bool
-	input   textinput.Model
+	edit    prompt.Slot // the highlighted analysis's arguments, while typed
 	gen     []int
 	w, h    int
 }
@@ -46,7 +45,7 @@ func New(ctx *screen.Context, sess *session.Session) *Model {
 	ks := kinds()
 	m := &Model{KeyMap: DefaultKeyMap(), ctx: ctx, sess: sess, kinds: ks,
 		args: make([]string, len(ks)), results: make([]any, len(ks)), errs: make([]error, len(ks)),
-		running: make([]bool, len(ks)), gen: make([]int, len(ks)), input: screen.NewInput(ctx.Styles, ctx.MaxInputLen)}
+		running: make([]bool, len(ks)), gen: make([]int, len(ks))}
 	for i, k := range ks {
 		m.args[i] = k.example
 	}
@@ -60,26 +59,35 @@ func (m *Model) Init() tea.Cmd { return nil }
 func (m *Model) Title() string { return "Analyses" }
 
 // Capturing reports whether arguments are being typed.
-func (m *Model) Capturing() bool { return m.editing }
+func (m *Model) Capturing() bool { return m.edit.Active() }
+
+// Editing reports whether arguments are being typed, and the refusal shown.
+func (m *Model) Editing() (bool, error) { return m.edit.Active(), m.edit.Err() }
+
+// Args returns the arguments analysis i runs with (the last accepted).
+func (m *Model) Args(i int) string { return m.args[i] }
 
 // SetSize sets the body size.
-func (m *Model) SetSize(w, h int) { m.w, m.h = w, h; m.input.Width = max(10, w-20) }
+func (m *Model) SetSize(w, h int) { m.w, m.h = w, h; m.edit.SetWidth(w) }
 
 // Cursor is the highlighted analysis; Result its last result and error.
 func (m *Model) Cursor() int               { return m.cursor }
 func (m *Model) Result(i int) (any, error) { return m.results[i], m.errs[i] }
 
-// ShortHelp lists the main keys.
+// ShortHelp lists the main keys; while arguments are typed, the prompt's.
 func (m *Model) ShortHelp() []key.Binding {
-	k := m.KeyMap
-	if m.editing {
-		return []key.Binding{k.Accept, k.Cancel}
+	if m.edit.Active() {
+		return m.edit.ShortHelp()
 	}
+	k := m.KeyMap
 	return []key.Binding{k.Down, k.Edit, k.Run}
 }
 
-// FullHelp lists every key.
+// FullHelp lists every key; while arguments are typed, the prompt's.
 func (m *Model) FullHelp() [][]key.Binding {
+	if m.edit.Active() {
+		return m.edit.FullHelp()
+	}
 	k := m.KeyMap
 	return [][]key.Binding{{k.Up, k.Down}, {k.Edit, k.Run}}
 }
@@ -95,65 +103,69 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	case tea.KeyMsg:
 		return m.key(msg)
 	}
-	if m.editing {
-		var cmd tea.Cmd
-		m.input, cmd = m.input.Update(msg)
-		return cmd
-	}
-	return nil
+	return m.edit.Update(msg)
 }
 
 func (m *Model) key(k tea.KeyMsg) tea.Cmd {
-	km := m.KeyMap
-	if m.editing {
-		switch {
-		case key.Matches(k, km.Cancel):
-			m.editing = false
-			m.input.Blur()
-			return nil
-		case key.Matches(k, km.Accept):
-			m.editing = false
-			m.input.Blur()
-			m.args[m.cursor] = strings.TrimSpace(m.input.Value())
-			return m.run(m.cursor)
-		}
-		var cmd tea.Cmd
-		m.input, cmd = m.input.Update(k)
-		return cmd
+	if m.edit.Active() {
+		return m.edit.Update(k)
 	}
+	km := m.KeyMap
 	switch {
 	case key.Matches(k, km.Up):
 		m.cursor = max(0, m.cursor-1)
 	case key.Matches(k, km.Down):
 		m.cursor = min(len(m.kinds)-1, m.cursor+1)
 	case key.Matches(k, km.Edit):
-		m.editing = true
-		m.input.Prompt = m.kinds[m.cursor].name + " › "
-		m.input.Placeholder = m.kinds[m.cursor].syntax
-		m.input.SetValue(m.args[m.cursor])
-		m.input.CursorEnd()
-		return m.input.Focus()
+		i := m.cursor
+		k := m.kinds[i]
+		m.edit.Open(prompt.New(m.ctx.Styles, "", m.args[i], "", m.ctx.MaxInputLen, m.acceptArgs(i),
+			prompt.WithLabel(k.name+" › "), prompt.WithPlaceholder(k.syntax), prompt.WithSubmitHelp("run")))
 	case key.Matches(k, km.Run):
 		return m.run(m.cursor)
 	}
 	return nil
 }
 
-// run starts analysis i with its arguments in a command.
+// acceptArgs checks arguments typed for analysis i; good ones are
+// remembered for it and run.
+func (m *Model) acceptArgs(i int) prompt.Accept {
+	return func(text string) (tea.Cmd, error) {
+		j, err := m.kinds[i].prepare(strings.Fields(text))
+		if err != nil {
+			return nil, err
+		}
+		m.args[i] = text
+		return m.start(i, j), nil
+	}
+}
+
+// run starts analysis i with its remembered arguments.
 func (m *Model) run(i int) tea.Cmd {
+	j, err := m.kinds[i].prepare(strings.Fields(m.args[i]))
+	if err != nil {
+		m.gen[i]++
+		m.results[i], m.errs[i], m.running[i] = nil, err, false
+		return nil
+	}
+	return m.start(i, j)
+}
+
+// start runs j for analysis i in a command.
+func (m *Model) start(i int, j job) tea.Cmd {
 	if m.analyst == nil {
 		m.analyst = analysis.New(m.ctx.DB)
 	}
 	m.gen[i]++
 	m.running[i] = true
-	a, k, gen, args := m.analyst, m.kinds[i], m.gen[i], strings.Fields(m.args[i])
+	a, k, gen := m.analyst, m.kinds[i], m.gen[i]
 	return func() (msg tea.Msg) {
 		defer func() {
 			if r := recover(); r != nil {
 				msg = resultMsg{kind: i, gen: gen, err: fmt.Errorf("%s: internal error: %v", k.name, r)}
 			}
 		}()
-		res, err := k.run(a, args)
+		res, err := j(a)
 		return resultMsg{kind: i, gen: gen, result: res, err: err}
 	}
 }
@@ -175,8 +187,8 @@ func (m *Model) View() string {
 	}
 	k := m.kinds[m.cursor]
 	lines = append(lines, st.Muted.Render(trunc("arguments: "+k.syntax+"   e.g. "+k.example, m.w)))
-	if m.editing {
-		lines = append(lines, m.input.View())
+	if m.edit.Active() {
+		lines = append(lines, strings.Split(m.edit.View(), "\n")...)
 	}
 	lines = append(lines, "")
 	switch {

@@ -74,12 +74,32 @@ func TestScanOfMagnesiumChlorides(t *testing.T) {
 
 func TestTypedArgumentsAndTheirErrors(t *testing.T) {
 	_, m, u := setup(t)
-	// estimate: replace the example with a bad model name.
+	example := m.Args(0)
+	// estimate: replace the example with a bad model name; it is refused
+	// on Enter, in place, and neither remembered nor run.
 	drive.Run(u, drive.Key("e"), drive.Key("ctrl+u"))
 	drive.Run(u, drive.Text("MgCl nosuchmodel")...)
 	drive.Run(u, drive.Key("enter"))
-	if _, err := m.Result(0); err == nil || !strings.Contains(err.Error(), "model") {
-		t.Errorf("bad model: %v", err)
+	if editing, err := m.Editing(); !editing || err == nil || !strings.Contains(err.Error(), "model") {
+		t.Errorf("bad model: editing=%v err=%v, want refused in place", editing, err)
+	}
+	if v := m.View(); !strings.Contains(v, "not accepted") || !strings.Contains(v, "nosuchmodel") {
+		t.Errorf("the refusal is not shown:\n%s", v)
+	}
+	if res, err := m.Result(0); res != nil || err != nil || m.Args(0) != example {
+		t.Errorf("refused arguments were applied: args %q, result %v, %v", m.Args(0), res, err)
+	}
+	drive.Run(u, drive.Key("esc"))
+	if editing, _ := m.Editing(); editing || m.Args(0) != example {
+		t.Errorf("esc: editing=%v, args %q, want closed with %q", editing, m.Args(0), example)
+	}
+	// Well-formed arguments the analysis cannot answer: accepted, run,
+	// and the analysis's error is the result.
+	drive.Run(u, drive.Key("e"), drive.Key("ctrl+u"))
+	drive.Run(u, drive.Text("Zz2Q")...)
+	drive.Run(u, drive.Key("enter"))
+	if _, err := m.Result(0); err == nil || m.Args(0) != "Zz2Q" {
+		t.Errorf("Zz2Q: args %q, err %v, want run and failed", m.Args(0), err)
 	}
 	if v := m.View(); !strings.Contains(v, "not done") {
 		t.Errorf("the error is not shown:\n%s", v)
@@ -103,6 +123,16 @@ func TestTypedArgumentsAndTheirErrors(t *testing.T) {
 	}
 	if !strings.Contains(m.View(), "the data's value") {
 		t.Errorf("the estimate view does not compare with the data:\n%s", m.View())
+	}
+	// Each analysis keeps its own arguments: the scan's are untouched, and
+	// the editor reopens on the estimate's last accepted ones.
+	drive.Run(u, drive.Key("j"), drive.Key("e"))
+	if v := m.View(); !strings.Contains(v, "scan › "+m.Args(1)) || m.Args(1) != kinds()[1].example {
+		t.Errorf("scan's arguments: %q\n%s", m.Args(1), v)
+	}
+	drive.Run(u, drive.Key("esc"), drive.Key("k"), drive.Key("e"))
+	if v := m.View(); !strings.Contains(v, "estimate › CaF2") {
+		t.Errorf("the estimate's editor does not reopen on CaF2:\n%s", v)
 	}
 }
 

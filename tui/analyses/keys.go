@@ -5,18 +5,14 @@ import "github.com/charmbracelet/bubbles/key"
 // KeyMap is the analyses screen's keys.
 type KeyMap struct {
 	Up, Down, Edit, Run key.Binding
-	// Accept and Cancel apply while the arguments are being typed.
-	Accept, Cancel key.Binding
 }
 
 // DefaultKeyMap returns the analyses screen's keys.
 func DefaultKeyMap() KeyMap {
 	return KeyMap{
-		Up:     key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "previous analysis")),
-		Down:   key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "next analysis")),
-		Edit:   key.NewBinding(key.WithKeys("e", "enter"), key.WithHelp("e/enter", "type its arguments")),
-		Run:    key.NewBinding(key.WithKeys("r"), key.WithHelp("r", "run it again")),
-		Accept: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "run")),
-		Cancel: key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel")),
+		Up:   key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "previous analysis")),
+		Down: key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "next analysis")),
+		Edit: key.NewBinding(key.WithKeys("e", "enter"), key.WithHelp("e/enter", "type its arguments")),
+		Run:  key.NewBinding(key.WithKeys("r"), key.WithHelp("r", "run it again")),
 	}
 }

@@ -13,8 +13,13 @@ import (
 // (one line, words separated by spaces) and how to run it.
 type kind struct {
 	name, what, syntax, example string
-	run                         func(a *analysis.Analyst, args []string) (any, error)
+	// prepare reads the arguments and returns the run, or what is wrong
+	// with them; it is quick, so typed arguments are checked on Enter.
+	prepare func(args []string) (job, error)
 }
+
+// job is one run of an analysis with its arguments read.
+type job func(a *analysis.Analyst) (any, error)
 
 func usage(k kind, format string, v ...any) error {
 	return fmt.Errorf("%s: %s; write %s, e.g. %s", k.name, fmt.Sprintf(format, v...), k.syntax, k.example)
@@ -26,7 +31,7 @@ func kinds() []kind {
 		{
 			name: "estimate", what: "formation enthalpy of a hypothetical compound from a model lattice energy",
 			syntax: "FORMULA [CHARGES] [MODEL]", example: "MgCl Mg=+1,Cl=-1 kapustinskii",
-			run: func(a *analysis.Analyst, args []string) (any, error) {
+			prepare: func(args []string) (job, error) {
 				k := ks[0]
 				if len(args) < 1 || len(args) > 3 {
 					return nil, usage(k, "give a formula, then optionally charges and a model")
@@ -47,13 +52,13 @@ func kinds() []kind {
 					}
 					opt.Model = m
 				}
-				return a.Estimate(args[0], opt)
+				return func(a *analysis.Analyst) (any, error) { return a.Estimate(args[0], opt) }, nil
 			},
 		},
 		{
 			name: "scan", what: "formation enthalpies across oxidation states, and their disproportionations",
 			syntax: "METAL NONMETAL [MAX-CHARGE]", example: "Mg Cl 3",
-			run: func(a *analysis.Analyst, args []string) (any, error) {
+			prepare: func(args []string) (job, error) {
 				k := ks[1]
 				if len(args) < 2 || len(args) > 3 {
 					return nil, usage(k, "give a metal and a non-metal")
@@ -66,13 +71,13 @@ func kinds() []kind {
 					}
 					opt.MaxCharge = n
 				}
-				return a.Scan(args[0], args[1], opt)
+				return func(a *analysis.Analyst) (any, error) { return a.Scan(args[0], args[1], opt) }, nil
 			},
 		},
 		{
 			name: "solution", what: "enthalpy of solution from the lattice and the ions' hydration enthalpies",
 			syntax: "FORMULA [UNKNOWN]", example: "NaCl dissolution",
-			run: func(a *analysis.Analyst, args []string) (any, error) {
+			prepare: func(args []string) (job, error) {
 				k := ks[2]
 				if len(args) < 1 || len(args) > 2 {
 					return nil, usage(k, "give a formula and optionally the term to solve")
@@ -88,13 +93,13 @@ func kinds() []kind {
 					}
 					opt.Solve = args[1]
 				}
-				return a.Solution(args[0], opt)
+				return func(a *analysis.Analyst) (any, error) { return a.Solution(args[0], opt) }, nil
 			},
 		},
 		{
 			name: "radius", what: "thermochemical radius of an ion that reproduces the cycle's lattice energy",
 			syntax: "FORMULA [ION]", example: "NH4Cl cation",
-			run: func(a *analysis.Analyst, args []string) (any, error) {
+			prepare: func(args []string) (job, error) {
 				k := ks[3]
 				if len(args) < 1 || len(args) > 2 {
 					return nil, usage(k, "give a formula and optionally the ion (cation, anion or its symbol)")
@@ -103,7 +108,7 @@ func kinds() []kind {
 				if len(args) == 2 {
 					opt.Ion = args[1]
 				}
-				return a.DeriveRadius(args[0], opt)
+				return func(a *analysis.Analyst) (any, error) { return a.DeriveRadius(args[0], opt) }, nil
 			},
 		},
 	}
