@@ -103,7 +103,7 @@ func (m *Model) askSave(thenQuit bool) tea.Cmd {
 	if m.opts.FileRoot != "" {
 		where = "your folder"
 	}
-	m.prompt = prompt.New(m.ctx.Styles, "Save the "+snapshot.Formula+" cycle as", m.defaultFileName(),
+	m.prompt.Open(prompt.New(m.ctx.Styles, "Save the "+snapshot.Formula+" cycle as", m.defaultFileName(),
 		"A name in "+where+"; "+cycle.FileExtension+" is added when missing. esc cancels.", m.opts.MaxInputLen,
 		func(name string) (tea.Cmd, error) {
 			if name != "" && filepath.Ext(name) == "" {
@@ -121,7 +121,7 @@ func (m *Model) askSave(thenQuit bool) tea.Cmd {
 				}
 				return savedMsg{path: path, err: cycle.Save(path, snapshot), thenQuit: thenQuit}
 			}, nil
-		})
+		}))
 	return nil
 }
 
@@ -146,7 +146,7 @@ func (m *Model) askOpen() tea.Cmd {
 			initial = p
 		}
 	}
-	m.prompt = prompt.New(m.ctx.Styles, "Open a cycle file", initial,
+	m.prompt.Open(prompt.New(m.ctx.Styles, "Open a cycle file", initial,
 		"The name of a "+cycle.FileExtension+" file. esc cancels.", m.opts.MaxInputLen,
 		func(name string) (tea.Cmd, error) {
 			path, err := m.ctx.ResolvePath(name)
@@ -157,7 +157,7 @@ func (m *Model) askOpen() tea.Cmd {
 				return nil, fmt.Errorf("%s: no such file", name)
 			}
 			return func() tea.Msg { return screen.OpenMsg{File: name} }, nil
-		})
+		}))
 	return nil
 }
 

@@ -63,7 +63,7 @@ type Model struct {
 	statusErr     bool
 	showHelp      bool
 	confirming    bool
-	prompt        *prompt.Model
+	prompt        prompt.Slot // a file name, asked over the screen
 	quitting      bool
 	recovered     string // path of the recovery file written, for the last frame
 	memo          *cycle.Memo
@@ -203,12 +203,8 @@ func (m *Model) broadcast(msg tea.Msg) tea.Cmd {
 }
 
 func (m *Model) key(k tea.KeyMsg) tea.Cmd {
-	if m.prompt != nil {
-		cmd := m.prompt.Update(k)
-		if m.prompt.Done() {
-			m.prompt = nil
-		}
-		return cmd
+	if m.prompt.Active() {
+		return m.prompt.Update(k)
 	}
 	if m.confirming {
 		return m.confirmKey(k)
@@ -329,6 +325,7 @@ func (m *Model) layout() {
 		s.SetSize(w, h)
 	}
 	m.help.Width = m.width
+	m.prompt.SetWidth(min(w-6, 90))
 }
 
 func (m *Model) bodySize() (int, int) { return max(m.width, 1), max(m.height-3, 1) }
@@ -357,8 +354,7 @@ func (m *Model) View() (out string) {
 	w, h := m.bodySize()
 	var body string
 	switch {
-	case m.prompt != nil:
-		m.prompt.SetWidth(min(w-6, 90))
+	case m.prompt.Active():
 		body = m.centre(st.Overlay.Render(m.prompt.View()), w, h)
 	case m.confirming:
 		body = m.centre(st.Overlay.Render(m.confirmView()), w, h)
@@ -431,8 +427,11 @@ func (m *Model) helpLine() string {
 }
 
 // ShortHelp is the always-visible help line: the screen's main keys and
-// the few global ones.
+// the few global ones; while a file name is asked, the prompt's keys.
 func (m *Model) ShortHelp() []key.Binding {
+	if m.prompt.Active() {
+		return m.prompt.ShortHelp()
+	}
 	b := m.screens[m.active].ShortHelp()
 	if m.screens[m.active].Capturing() {
 		return append(b, m.Keys.ForceQuit)
