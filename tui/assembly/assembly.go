@@ -333,15 +333,13 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 		if !ok {
 			return nil, fmt.Errorf("the cycle has no step %s any more", key)
 		}
-		kj, unc, hasUnc, err := screen.ParseEnergy(text, m.ctx.Units)
+		keep := 0.0 // the data's uncertainty, when the data have the step
+		if s.Reference != nil {
+			keep = s.Reference.Uncertainty
+		}
+		kj, unc, err := m.ctx.ParseValue(text, keep)
 		if err != nil {
 			return nil, err
-		}
-		if !hasUnc {
-			unc = 0
-			if s.Reference != nil {
-				unc = s.Reference.Uncertainty
-			}
 		}
 		lattice := s.Kind == cycle.KindLattice
 		cmd, err := m.sess.Change(func(c *cycle.Cycle) error {

@@ -246,15 +246,12 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 		if !ok {
 			return nil, fmt.Errorf("the cycle has no step %s any more", key)
 		}
-		kj, unc, hasUnc, err := screen.ParseEnergy(text, m.ctx.Units)
+		kj, unc, err := m.ctx.ParseValue(text, s.Uncertainty)
 		if err == nil {
 			err = m.plausible(s, kj)
 		}
 		if err != nil {
 			return nil, err
-		}
-		if !hasUnc {
-			unc = s.Uncertainty
 		}
 		cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return c.Set(key, kj, unc) })
 		if err != nil {

@@ -81,6 +81,16 @@ func ParseEnergy(text string, u thermo.Unit) (kj, uncKJ float64, hasUnc bool, er
 	return thermo.ToKJPerMol(v, u), thermo.ToKJPerMol(unc, u), hasUnc, nil
 }
 
+// ParseValue reads a step value typed in the context's unit, as
+// ParseEnergy does; without "±" the uncertainty is keep (kJ/mol).
+func (c *Context) ParseValue(text string, keep float64) (kj, uncKJ float64, err error) {
+	kj, uncKJ, hasUnc, err := ParseEnergy(text, c.Units)
+	if err == nil && !hasUnc {
+		uncKJ = keep
+	}
+	return kj, uncKJ, err
+}
+
 // firstBad returns the 1-based column of the first character that cannot be
 // part of a number.
 func firstBad(text string, from int) int {

@@ -65,3 +65,36 @@ func TestFormatEnergyRoundTrip(t *testing.T) {
 		t.Errorf("negative zero printed as %q", got)
 	}
 }
+
+// TestParseValueKeepsTheUncertainty: without "±" the uncertainty given is
+// kept; with one it is read (in the context's unit; 1 kcal = 4.184 kJ, the
+// thermochemical calorie, exact by definition).
+func TestParseValueKeepsTheUncertainty(t *testing.T) {
+	cases := []struct {
+		text    string
+		u       thermo.Unit
+		keep    float64
+		kj, unc float64
+		bad     bool
+	}{
+		{"500", thermo.KJPerMol, 3, 500, 3, false},
+		{"500±1", thermo.KJPerMol, 3, 500, 1, false},
+		{"500 ± 0", thermo.KJPerMol, 3, 500, 0, false},
+		{"-100", thermo.KcalPerMol, 2, -418.4, 2, false},
+		{"-100±1", thermo.KcalPerMol, 2, -418.4, 4.184, false},
+		{"abc", thermo.KJPerMol, 3, 0, 0, true},
+	}
+	for _, c := range cases {
+		ctx := &Context{Units: c.u}
+		kj, unc, err := ctx.ParseValue(c.text, c.keep)
+		if c.bad {
+			if err == nil {
+				t.Errorf("ParseValue(%q) accepted %v ± %v", c.text, kj, unc)
+			}
+			continue
+		}
+		if err != nil || math.Abs(kj-c.kj) > 1e-9 || math.Abs(unc-c.unc) > 1e-9 {
+			t.Errorf("ParseValue(%q, keep %v) = %v ± %v, %v; want %v ± %v", c.text, c.keep, kj, unc, err, c.kj, c.unc)
+		}
+	}
+}
