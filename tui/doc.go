@@ -18,7 +18,13 @@
 // that show one cycle share a *session.Session instead of copies of it.
 // Keys are key.Binding fields of each screen's exported KeyMap; the help
 // line and the key list are generated from the same bindings (ShortHelp,
-// FullHelp), and a test presses every listed key. Every engine call that
+// FullHelp), and a test presses every listed key. Every value typed on a
+// screen (a step's value, a model setting, an analysis's arguments, a file
+// name) is a prompt.Model held in a prompt.Slot: checked on Enter by its
+// Accept, refused in place with the reason, cancelled with esc; the screen
+// captures keys exactly while the slot is open and its help is then the
+// prompt's keys. session.Change applies a change whole or not at all.
+// Every engine call that
 // can take time (solving, the survey of all compounds, the analyses, file
 // I/O) runs inside a tea.Cmd and comes back as a message.
 //
