@@ -171,7 +171,7 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 	case key.Matches(k, km.Bottom):
 		m.move(len(c.Steps))
 	case key.Matches(k, km.Edit):
-		return m.startEdit()
+		m.startEdit()
 	case key.Matches(k, km.Unknown):
 		s := m.current()
 		return m.change(func(c *cycle.Cycle) error { return c.SolveFor(s.Key) },
@@ -218,10 +218,10 @@ func (m *Model) move(d int) {
 }
 
 // startEdit asks for a new value of the highlighted step.
-func (m *Model) startEdit() tea.Cmd {
+func (m *Model) startEdit() {
 	s := m.current()
 	if s == nil {
-		return nil
+		return
 	}
 	cur := "no value yet"
 	if s.Source.Kind != cycle.SourceMissing && !s.Unknown {
@@ -235,7 +235,6 @@ func (m *Model) startEdit() tea.Cmd {
 	km := p.KeyMap
 	p.Hint = km.Submit.Help().Key + " accepts · " + km.Cancel.Help().Key + " cancels · without ± the old uncertainty is kept"
 	m.edit.Open(p)
-	return nil
 }
 
 // acceptValue checks a value typed for step key (a number, of the sign the
