@@ -174,12 +174,16 @@ func (m *Model) start(i int, j job) tea.Cmd {
 func (m *Model) View() string {
 	st := m.ctx.Styles
 	lines := []string{st.Title.Render("Analyses beyond one cycle") + st.Muted.Render(" — e types the arguments, enter runs")}
+	nameWidth := 0
+	for _, k := range m.kinds {
+		nameWidth = max(nameWidth, len([]rune(k.name)))
+	}
 	for i, k := range m.kinds {
 		cursor := " "
 		if i == m.cursor {
 			cursor = "›"
 		}
-		text := trunc(fmt.Sprintf("%s %-9s %-34s %s", cursor, k.name, trunc(m.args[i], 34), k.what), m.w)
+		text := trunc(fmt.Sprintf("%s %-*s %-34s %s", cursor, nameWidth+1, k.name, trunc(m.args[i], 34), k.what), m.w)
 		if i == m.cursor {
 			text = st.Selected.Render(text)
 		}

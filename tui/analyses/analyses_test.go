@@ -151,3 +151,34 @@ func TestSolutionAndRadiusRun(t *testing.T) {
 		t.Errorf("radius view:\n%s", m.View())
 	}
 }
+
+// TestRadiusFitRuns: the fit over salts runs on its example, uses the given
+// counter-ion radii, lists every salt it used, and refuses a malformed
+// radius list in place.
+func TestRadiusFitRuns(t *testing.T) {
+	_, m, u := setup(t)
+	drive.Run(u, drive.Key("j"), drive.Key("j"), drive.Key("j"), drive.Key("j"), drive.Key("r"))
+	res, err := m.Result(4)
+	if err != nil {
+		t.Fatalf("radius fit %s: %v", m.Args(4), err)
+	}
+	f := res.(*analysis.FittedRadius)
+	v := m.View()
+	for _, s := range f.Used() {
+		if !strings.Contains(v, s.Formula) {
+			t.Errorf("salt %s used but not shown:\n%s", s.Formula, v)
+		}
+		if s.Counter == "K+" && s.CounterRadius.Value != 1.33 {
+			t.Errorf("K+ at %.3f Å, not the given 1.33", s.CounterRadius.Value)
+		}
+	}
+	if len(f.Used()) < 2 || !strings.Contains(v, "fitted over") {
+		t.Errorf("fit of NO3-: %d salts\n%s", len(f.Used()), v)
+	}
+	drive.Run(u, drive.Key("e"), drive.Key("ctrl+u"))
+	drive.Run(u, drive.Text("NO3- K+=big")...)
+	drive.Run(u, drive.Key("enter"))
+	if editing, err := m.Editing(); !editing || err == nil || !strings.Contains(err.Error(), "K+") {
+		t.Errorf("bad radius list: editing=%v err=%v, want refused naming K+", editing, err)
+	}
+}

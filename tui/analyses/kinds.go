@@ -111,6 +111,45 @@ func kinds() []kind {
 				return func(a *analysis.Analyst) (any, error) { return a.DeriveRadius(args[0], opt) }, nil
 			},
 		},
+		{
+			name: "radius fit", what: "thermochemical radius of an ion fitted over every salt of it whose cycle closes",
+			syntax: "ION [COUNTER=Å,...]", example: "NO3- K+=1.33,Na+=0.98",
+			prepare: func(args []string) (job, error) {
+				k := ks[4]
+				if len(args) < 1 || len(args) > 2 {
+					return nil, usage(k, "give an ion and optionally counter-ion radii")
+				}
+				var opt analysis.FitOptions
+				if len(args) == 2 {
+					radii, err := parseRadii(args[1])
+					if err != nil {
+						return nil, usage(k, "%v", err)
+					}
+					opt.CounterRadii = radii
+				}
+				return func(a *analysis.Analyst) (any, error) { return a.FitRadius(args[0], opt) }, nil
+			},
+		},
 	}
 	return ks
+}
+
+// parseRadii reads "K+=1.33,Na+=0.98" (Å).
+func parseRadii(text string) (map[string]float64, error) {
+	out := map[string]float64{}
+	for _, part := range strings.Split(text, ",") {
+		sym, num, ok := strings.Cut(strings.TrimSpace(part), "=")
+		if !ok || sym == "" {
+			return nil, fmt.Errorf("%q is not ION=Å", part)
+		}
+		v, err := strconv.ParseFloat(num, 64)
+		if err != nil || !(v > 0) || v > 10 {
+			return nil, fmt.Errorf("the radius of %s, %q, is not a number of Å between 0 and 10", sym, num)
+		}
+		if _, dup := out[sym]; dup {
+			return nil, fmt.Errorf("%s is given twice", sym)
+		}
+		out[sym] = v
+	}
+	return out, nil
 }

@@ -18,6 +18,8 @@ func (m *Model) render(r any) []string {
 		return m.solution(r)
 	case *analysis.DerivedRadius:
 		return m.radius(r)
+	case *analysis.FittedRadius:
+		return m.radiusFit(r)
 	}
 	return []string{fmt.Sprintf("%v", r)}
 }
@@ -135,4 +137,31 @@ func (m *Model) radius(r *analysis.DerivedRadius) []string {
 		lines = append(lines, fmt.Sprintf("the data's radius: %.3f Å (%s)", r.Tabulated.Value, r.Tabulated.From))
 	}
 	return append(lines, m.notes(r.Notes)...)
+}
+
+func (m *Model) radiusFit(f *analysis.FittedRadius) []string {
+	st := m.ctx.Styles
+	used := f.Used()
+	lines := []string{
+		st.Accent.Render(fmt.Sprintf("%s: %.3f Å fitted over %d salt(s)", f.Ion, f.Radius, len(used))) +
+			st.Muted.Render(fmt.Sprintf("   one-salt radii %.3f ± %.3f Å, rms misfit %.1f kJ/mol", f.Mean, f.SD, f.RMSResidual)),
+	}
+	if f.Tabulated != nil {
+		lines = append(lines, fmt.Sprintf("the data's radius: %.3f Å (%s)", f.Tabulated.Value, f.Tabulated.From))
+	}
+	lines = append(lines, st.Title.Render(fmt.Sprintf("  %-12s %-14s %12s %10s %10s", "salt", "counter r/Å", "U kJ/mol", "r alone", "misfit")))
+	for _, s := range used {
+		lines = append(lines, trunc(fmt.Sprintf("  %-12s %-14s %12.1f %10.3f %+10.1f", s.Formula,
+			fmt.Sprintf("%s %.2f", s.Counter, s.CounterRadius.Value), s.LatticeEnergy, s.Radius, s.Residual), m.w))
+	}
+	if n := len(f.Salts) - len(used); n > 0 {
+		var names []string
+		for _, s := range f.Salts {
+			if s.Skipped != "" {
+				names = append(names, s.Formula)
+			}
+		}
+		lines = append(lines, st.Warn.Render(wrap(fmt.Sprintf("  left out (no lattice energy): %s", strings.Join(names, ", ")), m.w)))
+	}
+	return append(lines, m.notes(f.Notes)...)
 }
