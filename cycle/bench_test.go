@@ -49,3 +49,26 @@ func BenchmarkBuild(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkBuildHypothetical is Build of MgCl with the ions given (Mg⁺ is
+// not in the data): the path of every oxidation state of a scan.
+func BenchmarkBuildHypothetical(b *testing.B) {
+	db := loadDB(b)
+	memo := NewMemo()
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Build(db, "MgCl", Options{Cation: "Mg+", Anion: "Cl-", Memo: memo}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkClone is one Clone of the NaCl cycle (an Analyst hands out a
+// clone of each cycle it remembers).
+func BenchmarkClone(b *testing.B) {
+	c := build(b, "NaCl", Options{})
+	b.ReportAllocs()
+	for b.Loop() {
+		_ = c.Clone()
+	}
+}

@@ -317,7 +317,7 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 		return &CompoundError{Formula: formula, Reason: "not in the data and not a simple binary formula MₐXᵦ; give its ions with the cation and anion options", Err: err, Suggestions: suggestions()}
 	}
 	ion := func(sym string) (data.Ion, error) {
-		if in, err := db.Ion(sym); err == nil {
+		if in, ok := db.FindIon(sym); ok {
 			return in, nil
 		}
 		core, z, ok := parseIonSymbol(sym)

@@ -258,22 +258,32 @@ func (db *DB) BornExponent(config string) (Value, error) {
 // (capped, so appending copies): do not write to their elements. Ions
 // returns deep copies.
 func (db *DB) Ion(symbol string) (Ion, error) {
+	if in, ok := db.FindIon(symbol); ok {
+		return in, nil
+	}
+	return Ion{}, &NotFoundError{Kind: "ion", Query: symbol, Suggestions: db.suggestIons(strings.TrimSpace(symbol))}
+}
+
+// FindIon is Ion without the error: it reports whether the tables hold the
+// ion and skips building suggestions, so a miss costs no more than a hit
+// (a hypothetical compound looks up ions the tables do not hold).
+func (db *DB) FindIon(symbol string) (Ion, bool) {
 	if i, ok := db.ionIdx[symbol]; ok {
-		return sharedIon(db.ions[i]), nil
+		return sharedIon(db.ions[i]), true
 	}
 	s := strings.TrimSpace(symbol)
 	if i, ok := db.ionIdx[s]; ok {
-		return sharedIon(db.ions[i]), nil
+		return sharedIon(db.ions[i]), true
 	}
 	if i, ok := db.ionFoldIdx[foldIon(s)]; ok {
-		return sharedIon(db.ions[i]), nil
+		return sharedIon(db.ions[i]), true
 	}
 	for _, cand := range ionReadings(s) {
 		if i, ok := db.ionKeyIdx[cand]; ok {
-			return sharedIon(db.ions[i]), nil
+			return sharedIon(db.ions[i]), true
 		}
 	}
-	return Ion{}, &NotFoundError{Kind: "ion", Query: symbol, Suggestions: db.suggestIons(s)}
+	return Ion{}, false
 }
 
 // IonByCharge returns the ion with the given core ("Fe", "SO4") and charge.
@@ -552,6 +562,18 @@ func (db *DB) Compounds() []Compound {
 	out := make([]Compound, len(db.compounds))
 	for i, c := range db.compounds {
 		out[i] = copyCompound(c)
+	}
+	return out
+}
+
+// CompoundsIn returns copies of the compounds of the given families
+// ("alkali halide"), in table order, without copying the rest.
+func (db *DB) CompoundsIn(families ...string) []Compound {
+	var out []Compound
+	for _, c := range db.compounds {
+		if slices.Contains(families, c.Family) {
+			out = append(out, copyCompound(c))
+		}
 	}
 	return out
 }

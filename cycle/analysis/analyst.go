@@ -3,7 +3,6 @@ package analysis
 import (
 	"fmt"
 	"math"
-	"slices"
 	"sync"
 
 	"enthalpath/cycle"
@@ -147,8 +146,8 @@ func (a *Analyst) computeSpread(model string) (Spread, error) {
 	}
 	s := Spread{Model: model}
 	var sum, sumSq float64
-	for _, comp := range a.db.Compounds() {
-		if !slices.Contains(SpreadFamilies(), comp.Family) || !comp.Formation.Known() {
+	for _, comp := range a.db.CompoundsIn(SpreadFamilies()...) {
+		if !comp.Formation.Known() {
 			continue
 		}
 		c, err := cycle.Build(a.db, comp.Formula, cycle.Options{Memo: a.memo})

@@ -1,0 +1,58 @@
+package data
+
+import (
+	"errors"
+	"slices"
+	"testing"
+)
+
+// FindIon finds what Ion finds and reports a miss without an error. Mg+
+// is not a row of ions.csv (the table lists Mg2+ only).
+func TestFindIonAgreesWithIon(t *testing.T) {
+	db := mustLoad(t)
+	for _, in := range []string{"Na+", " Fe3+ ", "Ca+2", "O²⁻", "SO4 2-", "Mg+", "Qq+", ""} {
+		got, ok := db.FindIon(in)
+		want, err := db.Ion(in)
+		if ok != (err == nil) || got.Symbol != want.Symbol || len(got.Radii) != len(want.Radii) {
+			t.Errorf("FindIon(%q) = %q, %v; Ion gives %q, %v", in, got.Symbol, ok, want.Symbol, err)
+		}
+	}
+	if _, ok := db.FindIon("Mg+"); ok {
+		t.Error("FindIon(Mg+) found an ion the table does not list")
+	}
+	var nf *NotFoundError
+	if _, err := db.Ion("Mg+"); !errors.As(err, &nf) || len(nf.Suggestions) == 0 {
+		t.Errorf("Ion(Mg+) lost its suggestions: %v", err)
+	}
+}
+
+// CompoundsIn is Compounds filtered by family, in table order, as copies.
+// compounds.csv holds 20 alkali halides (Li–Cs with F, Cl, Br, I).
+func TestCompoundsIn(t *testing.T) {
+	db := mustLoad(t)
+	got := db.CompoundsIn("alkali halide", "alkaline-earth halide")
+	var want []string
+	for _, c := range db.Compounds() {
+		if c.Family == "alkali halide" || c.Family == "alkaline-earth halide" {
+			want = append(want, c.Formula)
+		}
+	}
+	var names []string
+	for _, c := range got {
+		names = append(names, c.Formula)
+	}
+	if !slices.Equal(names, want) || len(db.CompoundsIn("alkali halide")) != 20 || !slices.Contains(names, "NaCl") {
+		t.Fatalf("CompoundsIn = %v, want %v (20 alkali halides)", names, want)
+	}
+	if len(db.CompoundsIn()) != 0 || len(db.CompoundsIn("no such family")) != 0 {
+		t.Error("CompoundsIn without a matching family returned compounds")
+	}
+	for _, c := range got {
+		if c.Params != nil {
+			c.Params["a"] = -1
+		}
+	}
+	if c, _ := db.Compound("NaCl"); c.Params["a"] == -1 {
+		t.Error("CompoundsIn shares its Params maps with the DB")
+	}
+}
