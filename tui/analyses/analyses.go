@@ -28,6 +28,7 @@ type Model struct {
 	cursor  int
 	edit    prompt.Slot // the highlighted analysis's arguments, while typed
 	gen     []int
+	scroll  int // first result line shown, when the result is taller than the screen
 	w, h    int
 }
 
@@ -89,7 +90,20 @@ func (m *Model) FullHelp() [][]key.Binding {
 		return m.edit.FullHelp()
 	}
 	k := m.KeyMap
-	return [][]key.Binding{{k.Up, k.Down}, {k.Edit, k.Run}}
+	groups := [][]key.Binding{{k.Up, k.Down}, {k.Edit, k.Run}}
+	// The scroll keys are listed only when they would move the result.
+	var scroll []key.Binding
+	top, last := m.scrollRange()
+	if top < last {
+		scroll = append(scroll, k.More)
+	}
+	if top > 0 {
+		scroll = append(scroll, k.Back)
+	}
+	if len(scroll) > 0 {
+		groups = append(groups, scroll)
+	}
+	return groups
 }
 
 // Update handles keys and results.
@@ -98,6 +112,9 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	case resultMsg:
 		if msg.gen == m.gen[msg.kind] {
 			m.results[msg.kind], m.errs[msg.kind], m.running[msg.kind] = msg.result, msg.err, false
+			if msg.kind == m.cursor {
+				m.scroll = 0
+			}
 		}
 		return nil
 	case tea.KeyMsg:
@@ -113,9 +130,15 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 	km := m.KeyMap
 	switch {
 	case key.Matches(k, km.Up):
-		m.cursor = max(0, m.cursor-1)
+		m.cursor, m.scroll = max(0, m.cursor-1), 0
 	case key.Matches(k, km.Down):
-		m.cursor = min(len(m.kinds)-1, m.cursor+1)
+		m.cursor, m.scroll = min(len(m.kinds)-1, m.cursor+1), 0
+	case key.Matches(k, km.More):
+		top, last := m.scrollRange()
+		m.scroll = min(last, top+max(1, m.h/2))
+	case key.Matches(k, km.Back):
+		top, _ := m.scrollRange()
+		m.scroll = max(0, top-max(1, m.h/2))
 	case key.Matches(k, km.Edit):
 		i := m.cursor
 		k := m.kinds[i]
@@ -171,9 +194,16 @@ func (m *Model) start(i int, j job) tea.Cmd {
 }
 
 // View renders the list, the arguments and the last result.
-func (m *Model) View() string {
+func (m *Model) View() string { return m.window(m.parts()) }
+
+// parts returns the screen's fixed head (the list, the arguments, the
+// editor) and the body (the highlighted analysis's result), as entries.
+func (m *Model) parts() ([]string, []string) {
 	st := m.ctx.Styles
-	lines := []string{st.Title.Render("Analyses beyond one cycle") + st.Muted.Render(" — e types the arguments, enter runs")}
+	km := m.KeyMap
+	title := "Analyses beyond one cycle"
+	aside := trunc(fmt.Sprintf(" — %s: arguments · %s: run again", km.Edit.Help().Key, km.Run.Help().Key), max(0, m.w-len([]rune(title))))
+	lines := []string{st.Title.Render(title) + st.Muted.Render(aside)}
 	nameWidth := 0
 	for _, k := range m.kinds {
 		nameWidth = max(nameWidth, len([]rune(k.name)))
@@ -195,20 +225,57 @@ func (m *Model) View() string {
 		lines = append(lines, strings.Split(m.edit.View(), "\n")...)
 	}
 	lines = append(lines, "")
+	var body []string
 	switch {
 	case m.running[m.cursor]:
-		lines = append(lines, st.Muted.Render("running…"))
+		body = append(body, st.Muted.Render("running…"))
 	case m.errs[m.cursor] != nil:
-		lines = append(lines, st.Error.Render("not done: ")+wrap(m.errs[m.cursor].Error(), m.w-10))
+		body = append(body, st.Error.Render("not done: ")+wrap(m.errs[m.cursor].Error(), m.w-10))
 	case m.results[m.cursor] != nil:
-		lines = append(lines, m.render(m.results[m.cursor])...)
+		body = append(body, m.render(m.results[m.cursor])...)
 	default:
-		lines = append(lines, st.Muted.Render("press r to run "+k.name+" on "+m.args[m.cursor]+", or e to change the arguments"))
+		body = append(body, st.Muted.Render(fmt.Sprintf("press %s to run %s on %s, or %s to change the arguments",
+			km.Run.Help().Key, k.name, m.args[m.cursor], km.Edit.Help().Key)))
 	}
-	if len(lines) > m.h {
-		lines = append(lines[:m.h-1], st.Muted.Render("… (enlarge the window for the rest)"))
+	return lines, body
+}
+
+// window joins the fixed head and as much of the result body as fits,
+// from the scroll position, with a line saying where the window is.
+// Lines are counted on screen, not as entries: a wrapped entry holds several.
+func (m *Model) window(headEntries, bodyEntries []string) string {
+	head, rows := m.split(headEntries, bodyEntries)
+	show, last := m.span(len(head), len(rows))
+	if show == len(rows) {
+		return strings.Join(append(head, rows...), "\n")
 	}
-	return strings.Join(lines, "\n")
+	km := m.KeyMap
+	top := min(m.scroll, last)
+	where := m.ctx.Styles.Muted.Render(trunc(fmt.Sprintf("lines %d–%d of %d · %s down · %s up", top+1, top+show, len(rows),
+		km.More.Help().Key, km.Back.Help().Key), m.w))
+	return strings.Join(append(append(head, rows[top:top+show]...), where), "\n")
+}
+
+func (m *Model) split(headEntries, bodyEntries []string) (head, rows []string) {
+	return strings.Split(strings.Join(headEntries, "\n"), "\n"), strings.Split(strings.Join(bodyEntries, "\n"), "\n")
+}
+
+// span returns how many result lines are shown and the last useful scroll
+// position, for a head of h lines and a body of n.
+func (m *Model) span(h, n int) (show, last int) {
+	room := m.h - h
+	if room < 2 || n <= room {
+		return n, 0
+	}
+	return room - 1, n - (room - 1)
+}
+
+// scrollRange returns the current scroll position (clamped) and the last.
+func (m *Model) scrollRange() (top, last int) {
+	head, body := m.parts()
+	h, rows := m.split(head, body)
+	_, last = m.span(len(h), len(rows))
+	return min(m.scroll, last), last
 }
 
 func trunc(s string, n int) string {

@@ -182,3 +182,45 @@ func TestRadiusFitRuns(t *testing.T) {
 		t.Errorf("bad radius list: editing=%v err=%v, want refused naming K+", editing, err)
 	}
 }
+
+// TestTallResultScrolls: a result taller than the screen is shown through a
+// window that says where it is, the scroll keys move it and stop at the
+// ends, and they are offered in the help only when they would move it.
+func TestTallResultScrolls(t *testing.T) {
+	_, m, u := setup(t)
+	m.SetSize(80, 16)
+	drive.Run(u, drive.Key("j"), drive.Key("r")) // the scan: taller than 16 lines
+	first := m.View()
+	if !strings.Contains(first, "lines 1–") || len(strings.Split(first, "\n")) > 16 {
+		t.Fatalf("no window on a tall result, or taller than the screen:\n%s", first)
+	}
+	helpHas := func(k string) bool {
+		for _, g := range m.FullHelp() {
+			for _, b := range g {
+				if b.Help().Key == k {
+					return true
+				}
+			}
+		}
+		return false
+	}
+	if !helpHas(m.KeyMap.More.Help().Key) || helpHas(m.KeyMap.Back.Help().Key) {
+		t.Errorf("at the top the help should offer down only")
+	}
+	for range 20 {
+		drive.Run(u, drive.Key("pgdown"))
+	}
+	bottom := m.View()
+	if bottom == first || !strings.Contains(bottom, "entropy") {
+		t.Errorf("pgdown did not reach the end of the result:\n%s", bottom)
+	}
+	if helpHas(m.KeyMap.More.Help().Key) || !helpHas(m.KeyMap.Back.Help().Key) {
+		t.Errorf("at the bottom the help should offer up only")
+	}
+	for range 20 {
+		drive.Run(u, drive.Key("pgup"))
+	}
+	if m.View() != first {
+		t.Errorf("pgup did not come back to the top:\n%s", m.View())
+	}
+}
