@@ -59,6 +59,38 @@ func TestMagnesiumChlorides(t *testing.T) {
 
 // TestScanReactionsBalance: every disproportionation written by a scan
 // balances in metal and non-metal atoms (a property of the reaction text).
+// TestScanNamesRealCompoundsOfOtherIons: a scan of K with O builds KO2 as
+// a K⁴⁺ oxide, but KO2 is potassium superoxide (K⁺ with O₂⁻, a textbook
+// fact, from memory): the row must say it is a different substance, and
+// its value must be the estimate, not the superoxide's measured ΔfH°. The
+// non-metal is given off as O2.
+func TestScanNamesRealCompoundsOfOtherIons(t *testing.T) {
+	a := testAnalyst(t)
+	sc, err := a.Scan("K", "O", ScanOptions{MaxCharge: 4})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if sc.Released != "O2" {
+		t.Errorf("released %q, want O2", sc.Released)
+	}
+	for _, c := range sc.Compounds {
+		if c.Formula != "KO2" {
+			if c.Formula == "K2O" && len(c.Notes) > 0 {
+				t.Errorf("K2O is the real oxide, yet noted: %v", c.Notes)
+			}
+			continue
+		}
+		if c.FromData {
+			t.Errorf("KO2 as K4+ oxide took the superoxide's measured value %.1f", c.Formation)
+		}
+		if len(c.Notes) == 0 || !strings.Contains(c.Notes[0], "superoxide") || !strings.Contains(c.Notes[0], "K4+") {
+			t.Errorf("KO2 row does not say it is not the superoxide: %v", c.Notes)
+		}
+		return
+	}
+	t.Fatalf("no KO2 row in %+v", sc.Compounds)
+}
+
 func TestScanReactionsBalance(t *testing.T) {
 	a := testAnalyst(t)
 	for _, p := range [][2]string{{"Fe", "O"}, {"Cu", "Cl"}, {"Ti", "Cl"}, {"Na", "S"}} {

@@ -48,8 +48,10 @@ type FittedRadius struct {
 	// with the handbook constants (121.4 kJ·nm/mol, 0.0345 nm).
 	Radius float64
 	// Mean and SD (Å) of the one-salt radii; SE = SD/√n, the uncertainty of
-	// the fitted radius if the salts scatter at random.
+	// the fitted radius if the salts scatter at random. With one salt there
+	// is no spread: SD and SE are 0 and HasSpread is false.
 	Mean, SD, SE float64
+	HasSpread    bool
 	// RMSResidual (kJ/mol) of the fit.
 	RMSResidual float64
 	// Salts holds every salt considered, used or skipped, by formula.
@@ -186,6 +188,7 @@ func (a *Analyst) FitRadius(ion string, opt FitOptions) (*FittedRadius, error) {
 		}
 		f.SD = math.Sqrt(ss / (n - 1))
 		f.SE = f.SD / math.Sqrt(n)
+		f.HasSpread = true
 	}
 	f.Radius = goldenMin(cost, lo, hi, 1e-9)
 	var rss float64

@@ -65,7 +65,7 @@ func TestFitRadiusIsLeastSquares(t *testing.T) {
 				t.Errorf("%s: S(r%+.2f) = %.4g not above S(r) = %.4g", ion, dr, c, c0)
 			}
 		}
-		if f.SD <= 0 || !near(f.SE, f.SD/math.Sqrt(float64(len(used))), 1e-12) {
+		if !f.HasSpread || f.SD <= 0 || !near(f.SE, f.SD/math.Sqrt(float64(len(used))), 1e-12) {
 			t.Errorf("%s: SD %.4f, SE %.4f over %d salts", ion, f.SD, f.SE, len(used))
 		}
 	}
@@ -87,7 +87,7 @@ func TestFitRadiusOneSalt(t *testing.T) {
 	if u := f.Used(); len(u) != 1 || u[0].Formula != "KNO3" || u[0].CounterRadius.Value != 1.33 {
 		t.Fatalf("used %+v, want KNO3 alone with K+ at 1.33 Å", u)
 	}
-	if !near(f.Radius, d.KapustinskiiHandbook, 1e-7) || f.SD != 0 {
+	if !near(f.Radius, d.KapustinskiiHandbook, 1e-7) || f.SD != 0 || f.HasSpread {
 		t.Errorf("fit over KNO3 alone: %.6f Å (SD %.3g), DeriveRadius %.6f Å", f.Radius, f.SD, d.KapustinskiiHandbook)
 	}
 }

@@ -72,10 +72,13 @@ type Disproportionation struct {
 // Scan is the outcome of an oxidation-state scan.
 type Scan struct {
 	Metal, NonMetal, Anion string
-	Model                  string
-	Spread                 Spread
-	Compounds              []ScanCompound
-	Disproportionations    []Disproportionation
+	// Released is the non-metal as it is given off (Cl2, O2, N2, S): the
+	// element in its standard form, for verdicts such as MgCl3 → MgCl2 + ½Cl2.
+	Released            string
+	Model               string
+	Spread              Spread
+	Compounds           []ScanCompound
+	Disproportionations []Disproportionation
 	// Favoured is the formula with the most negative formation enthalpy per
 	// mole of metal (always a stable state): the product of the metal
 	// burning in excess non-metal, on enthalpy alone; "" when every state
@@ -130,7 +133,7 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 	if model == "" {
 		model = DefaultModel
 	}
-	sc := &Scan{Metal: el.Symbol, NonMetal: nonmetal, Anion: an.Symbol, Model: model}
+	sc := &Scan{Metal: el.Symbol, NonMetal: nonmetal, Anion: an.Symbol, Model: model, Released: elementalForm(nonmetal)}
 	w := -an.Charge
 	for z := 1; z <= maxZ; z++ {
 		g := gcdInt(z, w)
@@ -156,6 +159,14 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 		cp.PerMetalUncertainty = cp.Uncertainty / float64(mc)
 		if est.Cation.Radius.Kind == "neighbour" {
 			cp.Notes = append(cp.Notes, est.Cation.Radius.From)
+		}
+		// The same formula may be a real compound of other ions (KO2 is
+		// potassium superoxide, not a K⁴⁺ oxide): say so, lest the row be
+		// read as the real compound's.
+		cation := el.Symbol + chargeSuffix(z)
+		if real, ok := a.db.FindCompound(est.Formula); ok && (real.Cation != cation || real.Anion != an.Symbol) {
+			cp.Notes = append([]string{fmt.Sprintf("%s in the data is %s (%s with %s); this row is the hypothetical compound of %s with %s, a different substance",
+				real.Formula, real.Name, real.Cation, real.Anion, cation, an.Symbol)}, cp.Notes...)
 		}
 		sc.Compounds = append(sc.Compounds, cp)
 	}
@@ -268,4 +279,15 @@ func splitIon(s string) (string, int, bool) {
 	}
 	z, ok := parseCharge(strings.TrimPrefix(s[i:], "^"))
 	return s[:i], z, ok
+}
+
+// elementalForm returns the element as it is given off in its standard
+// state: the diatomic gases and halogens as X2, every other element as its
+// symbol.
+func elementalForm(symbol string) string {
+	switch symbol {
+	case "H", "N", "O", "F", "Cl", "Br", "I":
+		return symbol + "2"
+	}
+	return symbol
 }

@@ -1,6 +1,7 @@
 package analysis
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -146,6 +147,10 @@ func (a *Analyst) Solution(formula string, opt SolutionOptions) (*SolutionCycle,
 		if i == ui {
 			return nil, &InputError{Subject: formula, Field: "--set " + s.Key, Reason: "is the term being solved; solve another one with --solve"}
 		}
+		if s.Key == KeyLatticeDissociation && !(s.Value > 0) {
+			return nil, &InputError{Subject: formula, Field: "--set " + s.Key,
+				Reason: fmt.Sprintf("%g kJ/mol: a lattice dissociation enthalpy is positive (the solid takes up heat to become gaseous ions); the Born–Haber cycle prints the lattice step in the other direction, negative, so give its magnitude", s.Value)}
+		}
 		terms[i].Value, terms[i].Uncertainty = s.Value, s.Uncertainty
 		terms[i].Source = cycle.Source{Kind: cycle.SourceUser, Key: "user", Citation: "entered by the user"}
 		known[s.Key] = true
@@ -165,7 +170,16 @@ func (a *Analyst) Solution(formula string, opt SolutionOptions) (*SolutionCycle,
 	if li := idx[KeyLatticeDissociation]; li != ui && !known[KeyLatticeDissociation] {
 		v, u, src, err := a.latticeDissociation(c, opt.LatticeFrom)
 		if err != nil {
-			return nil, &InputError{Subject: formula, Field: KeyLatticeDissociation, Reason: "no value; give it with --set " + KeyLatticeDissociation + "=VALUE (kJ/mol, positive)", Err: err}
+			// The cycle's own hint (--set of a cycle step) is not an option
+			// of the solution cycle: say what is missing, then what to give.
+			why := err.Error()
+			var miss *cycle.MissingError
+			if errors.As(err, &miss) {
+				why = "the Born–Haber cycle cannot be closed (no " + miss.What + " in the data) and the data have no handbook lattice value"
+				err = nil
+			}
+			return nil, &InputError{Subject: formula, Field: KeyLatticeDissociation,
+				Reason: "no value: " + why + "; give it with --set " + KeyLatticeDissociation + "=VALUE (kJ/mol, positive), or take it from a model with --lattice-from MODEL", Err: err}
 		}
 		terms[li].Value, terms[li].Uncertainty, terms[li].Source = v, u, src
 	}

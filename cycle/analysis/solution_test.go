@@ -131,6 +131,8 @@ func TestSolutionErrors(t *testing.T) {
 		{"set the unknown", "NaCl", SolutionOptions{Sets: []cycle.Setting{{Key: KeyDissolution, Value: 1}}}, "--set dissolution"},
 		{"bad scale", "NaCl", SolutionOptions{Scale: "relative"}, "--scale"},
 		{"no measured value", "RbBr", SolutionOptions{Solve: KeyHydrationAnion}, KeyDissolution},
+		{"lattice sign slip", "NaCl", SolutionOptions{Sets: []cycle.Setting{{Key: KeyLatticeDissociation, Value: -787}}}, "--set lattice-dissociation"},
+		{"cycle cannot close", "Na2SO4", SolutionOptions{}, KeyLatticeDissociation},
 	}
 	for _, tc := range cases {
 		_, err := a.Solution(tc.formula, tc.opt)
@@ -141,6 +143,14 @@ func TestSolutionErrors(t *testing.T) {
 		}
 		if ie.Field != tc.field || !strings.Contains(err.Error(), tc.formula) {
 			t.Errorf("%s: error %q does not name %s and field %s", tc.name, err, tc.formula, tc.field)
+		}
+		// Every hint must be an option of the solution cycle: --set takes
+		// only its terms, so a cycle step's key (formation, ion-formation-…)
+		// must not be suggested.
+		for _, bad := range []string{"--set formation", "--set ion-formation", "--solve ion-formation"} {
+			if strings.Contains(err.Error(), bad) {
+				t.Errorf("%s: %q suggests %q, which the solution cycle refuses", tc.name, err, bad)
+			}
 		}
 	}
 }

@@ -85,8 +85,8 @@ type radiusFitJSON struct {
 	Ion           string              `json:"ion"`
 	Radius        jsonNumber          `json:"fitted_radius_angstrom"`
 	Mean          jsonNumber          `json:"mean_radius_angstrom"`
-	SD            jsonNumber          `json:"sd_angstrom"`
-	SE            jsonNumber          `json:"se_angstrom"`
+	SD            *jsonNumber         `json:"sd_angstrom"`
+	SE            *jsonNumber         `json:"se_angstrom"`
 	RMSResidual   jsonNumber          `json:"rms_residual_kj_per_mol"`
 	Used          int                 `json:"salts_used"`
 	Tabulated     *jsonNumber         `json:"tabulated_radius_angstrom,omitempty"`
@@ -96,8 +96,12 @@ type radiusFitJSON struct {
 }
 
 func radiusFitJSONOf(f *analysis.FittedRadius) radiusFitJSON {
-	out := radiusFitJSON{Ion: f.Ion, Radius: jsonNum(f.Radius), Mean: jsonNum(f.Mean), SD: jsonNum(f.SD), SE: jsonNum(f.SE),
+	out := radiusFitJSON{Ion: f.Ion, Radius: jsonNum(f.Radius), Mean: jsonNum(f.Mean),
 		RMSResidual: jsonNum(f.RMSResidual), Used: len(f.Used()), Notes: f.Notes, Salts: []radiusFitSaltJSON{}}
+	if f.HasSpread { // null with one salt: no spread can be given
+		sd, se := jsonNum(f.SD), jsonNum(f.SE)
+		out.SD, out.SE = &sd, &se
+	}
 	if f.Tabulated != nil {
 		out.Tabulated, out.TabulatedFrom = optNum(f.Tabulated.Value), f.Tabulated.From
 	}
@@ -116,8 +120,11 @@ func radiusFitJSONOf(f *analysis.FittedRadius) radiusFitJSON {
 
 func printRadiusFit(w io.Writer, f *analysis.FittedRadius) {
 	used := f.Used()
-	fmt.Fprintf(w, "radius of %s fitted over %d salt(s): %.3f Å (one-salt radii %.3f ± %.3f Å, SE %.3f Å; rms misfit %.1f kJ/mol)\n",
-		f.Ion, len(used), f.Radius, f.Mean, f.SD, f.SE, f.RMSResidual)
+	spread := "one salt only: no spread"
+	if f.HasSpread {
+		spread = fmt.Sprintf("one-salt radii %.3f ± %.3f Å, SE %.3f Å; rms misfit %.1f kJ/mol", f.Mean, f.SD, f.SE, f.RMSResidual)
+	}
+	fmt.Fprintf(w, "radius of %s fitted over %d salt(s): %.3f Å (%s)\n", f.Ion, len(used), f.Radius, spread)
 	if f.Tabulated != nil {
 		fmt.Fprintf(w, "  radius in the data: %.3f Å (%s)\n", f.Tabulated.Value, f.Tabulated.From)
 	}

@@ -128,7 +128,7 @@ func printScan(w io.Writer, sc *analysis.Scan) {
 			why = append(why, "disproportionates")
 		}
 		if c.LosesNonMetal {
-			why = append(why, "gives off "+sc.NonMetal+", forming "+c.LowerState)
+			why = append(why, "gives off "+sc.Released+", forming "+c.LowerState)
 		}
 		verdict := "stable (no disproportionation, no loss of " + sc.NonMetal + ")"
 		if len(why) > 0 {

@@ -70,7 +70,7 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		verdict := "stable on enthalpy"
 		switch {
 		case c.LosesNonMetal:
-			verdict = "gives off " + s.NonMetal + " to form " + c.LowerState
+			verdict = "gives off " + s.Released + " to form " + c.LowerState
 		case !c.Stable:
 			verdict = "disproportionates"
 		}
@@ -89,6 +89,11 @@ func (m *Model) scan(s *analysis.Scan) []string {
 			mark = "favoured (exothermic)"
 		}
 		lines = append(lines, trunc(fmt.Sprintf("  %-28s %s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), mark), m.w))
+	}
+	for _, c := range s.Compounds {
+		for _, n := range c.Notes {
+			lines = append(lines, st.Muted.Render(wrap("· "+c.Formula+": "+n, m.w-2)))
+		}
 	}
 	for _, sk := range s.Skipped {
 		lines = append(lines, st.Warn.Render(trunc("  skipped: "+sk, m.w)))
@@ -142,9 +147,12 @@ func (m *Model) radius(r *analysis.DerivedRadius) []string {
 func (m *Model) radiusFit(f *analysis.FittedRadius) []string {
 	st := m.ctx.Styles
 	used := f.Used()
+	spread := "one salt only: no spread"
+	if f.HasSpread {
+		spread = fmt.Sprintf("one-salt radii %.3f ± %.3f Å, rms misfit %.1f kJ/mol", f.Mean, f.SD, f.RMSResidual)
+	}
 	lines := []string{
-		st.Accent.Render(fmt.Sprintf("%s: %.3f Å fitted over %d salt(s)", f.Ion, f.Radius, len(used))) +
-			st.Muted.Render(fmt.Sprintf("   one-salt radii %.3f ± %.3f Å, rms misfit %.1f kJ/mol", f.Mean, f.SD, f.RMSResidual)),
+		st.Accent.Render(fmt.Sprintf("%s: %.3f Å fitted over %d salt(s)", f.Ion, f.Radius, len(used))) + st.Muted.Render("   "+spread),
 	}
 	if f.Tabulated != nil {
 		lines = append(lines, fmt.Sprintf("the data's radius: %.3f Å (%s)", f.Tabulated.Value, f.Tabulated.From))
