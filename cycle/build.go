@@ -3,6 +3,7 @@ package cycle
 import (
 	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
 	"enthalpath/data"
@@ -169,7 +170,7 @@ func ordinal(i int) string {
 	if i >= 0 && i < len(ordinals) {
 		return ordinals[i]
 	}
-	return fmt.Sprintf("%dth", i)
+	return strconv.Itoa(i) + "th"
 }
 
 func (b *builder) side(side Side) {
@@ -199,9 +200,9 @@ func (b *builder) side(side Side) {
 	b.atomization(side, suffix, el, count)
 	if side == SideCation {
 		for i := 1; i <= p.Ion.Charge; i++ {
-			s := Step{Key: fmt.Sprintf("ionization-%d", i), Kind: KindIonization, Side: side, Order: i, Multiplicity: count,
-				Label:    fmt.Sprintf("%s ionization energy of %s", ordinal(i), el.Symbol),
-				Reaction: fmt.Sprintf("%s(g) → %s(g) + e⁻", ionText(el.Symbol, i-1), ionText(el.Symbol, i))}
+			s := Step{Key: "ionization-" + strconv.Itoa(i), Kind: KindIonization, Side: side, Order: i, Multiplicity: count,
+				Label:    ordinal(i) + " ionization energy of " + el.Symbol,
+				Reaction: el.Symbol + chargeText(i-1) + "(g) → " + el.Symbol + chargeText(i) + "(g) + e⁻"}
 			var v *data.Value
 			if i <= len(el.Ionization) {
 				v = &el.Ionization[i-1]
@@ -211,9 +212,9 @@ func (b *builder) side(side Side) {
 		return
 	}
 	for j := 1; j <= -p.Ion.Charge; j++ {
-		s := Step{Key: fmt.Sprintf("attachment-%d", j), Kind: KindAttachment, Side: side, Order: j, Multiplicity: count,
-			Label:    fmt.Sprintf("%s electron attachment enthalpy of %s (minus the %s electron affinity)", ordinal(j), el.Symbol, ordinal(j)),
-			Reaction: fmt.Sprintf("%s(g) + e⁻ → %s(g)", ionText(el.Symbol, -(j-1)), ionText(el.Symbol, -j))}
+		s := Step{Key: "attachment-" + strconv.Itoa(j), Kind: KindAttachment, Side: side, Order: j, Multiplicity: count,
+			Label:    ordinal(j) + " electron attachment enthalpy of " + el.Symbol + " (minus the " + ordinal(j) + " electron affinity)",
+			Reaction: el.Symbol + chargeText(-(j - 1)) + "(g) + e⁻ → " + el.Symbol + chargeText(-j) + "(g)"}
 		var v *data.Value
 		def := thermo.EVToKJPerMol(DefaultAffinityUncertaintyEV)
 		switch j {
@@ -239,7 +240,7 @@ func (b *builder) atomization(side Side, suffix string, el data.Element, count f
 	if phase == "(g)" && atoms == 1 {
 		return // a monatomic gas is already gaseous atoms
 	}
-	reaction := fmt.Sprintf("%s%s → %s(g)", coefficient(1/float64(atoms)), subscriptDigits(formula)+phase, el.Symbol)
+	reaction := coefficient(1/float64(atoms)) + subscriptDigits(formula) + phase + " → " + el.Symbol + "(g)"
 	s := Step{Key: "atomization-" + suffix, Kind: KindAtomization, Side: side, Multiplicity: count,
 		Label: "atomization of " + el.Symbol + " (ΔfH° of the gaseous atom)", Reaction: reaction}
 	subs := b.db.AtomizationSteps(el.Symbol)
@@ -259,7 +260,7 @@ func (b *builder) atomization(side Side, suffix string, el data.Element, count f
 	for _, sub := range subs {
 		key := sub.Kind + "-" + suffix
 		if seen[key]++; seen[key] > 1 {
-			key = fmt.Sprintf("%s-%d-%s", sub.Kind, seen[key], suffix)
+			key = sub.Kind + "-" + strconv.Itoa(seen[key]) + "-" + suffix
 		}
 		atomsBy := sub.AtomsProduced
 		if atomsBy <= 0 {
@@ -282,10 +283,11 @@ func (b *builder) atomization(side Side, suffix string, el data.Element, count f
 
 func (b *builder) compoundSteps() {
 	c := b.c
+	solid := subscriptDigits(c.Formula) + "(s)"
 	lat := Step{Key: "lattice", Kind: KindLattice, Side: SideCompound, Multiplicity: 1, Unknown: true,
 		Label: "lattice step of " + c.Formula + " (gaseous ions → solid)",
-		Reaction: fmt.Sprintf("%s%s(g) + %s%s(g) → %s(s)", countPrefix(c.Cation.Count), ionSymbolText(c.Cation.Ion),
-			countPrefix(c.Anion.Count), ionSymbolText(c.Anion.Ion), subscriptDigits(c.Formula))}
+		Reaction: countPrefix(c.Cation.Count) + subscriptDigits(c.Cation.Ion.Core) + chargeText(c.Cation.Ion.Charge) + "(g) + " +
+			countPrefix(c.Anion.Count) + subscriptDigits(c.Anion.Ion.Core) + chargeText(c.Anion.Ion.Charge) + "(g) → " + solid}
 	if h := c.Compound.HandbookLattice; h.Known() && h.V > 0 {
 		e := b.entry(h, DefaultLatticeRelative*h.V)
 		e.Value = -h.V // tabulated for the dissociation; the step is the reverse
@@ -302,14 +304,14 @@ func (b *builder) compoundSteps() {
 	b.steps = append(b.steps, lat)
 	f := Step{Key: "formation", Kind: KindFormation, Side: SideCompound, Multiplicity: 1,
 		Label:    "standard enthalpy of formation of " + c.Formula,
-		Reaction: formationReaction(b.db, c) + " → " + subscriptDigits(c.Formula) + "(s)"}
+		Reaction: formationReaction(b.db, c) + " → " + solid}
 	b.add(f, &c.Compound.Formation, DefaultEnthalpy)
 }
 
 // hypothetical finds the ions of a formula that is not tabulated (or whose
 // ions the options override).
 func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
-	counts, order, err := parseBinary(formula)
+	comp, err := parseBinary(formula)
 	// Suggestions only when an error is returned: building them for every
 	// formula the tables lack would dominate a batch run.
 	suggestions := func() []string { return db.SuggestCompounds(formula) }
@@ -339,10 +341,10 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 			return err
 		}
 	default:
-		if len(order) != 2 {
-			return &CompoundError{Formula: formula, Reason: fmt.Sprintf("not in the data, and %d elements where a binary compound has 2", len(order)), Suggestions: suggestions()}
+		if len(comp) != 2 {
+			return &CompoundError{Formula: formula, Reason: fmt.Sprintf("not in the data, and %d elements where a binary compound has 2", len(comp)), Suggestions: suggestions()}
 		}
-		cat, an, err = pickIons(db, formula, order, counts, opt)
+		cat, an, err = pickIons(db, formula, comp, opt)
 		if err != nil {
 			return err
 		}
@@ -352,8 +354,8 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 	}
 	g := gcd(cat.Charge, -an.Charge)
 	a, bb := -an.Charge/g, cat.Charge/g
-	if counts != nil {
-		ca, cb := counts[cat.Core], counts[an.Core]
+	if comp != nil {
+		ca, cb := comp.of(cat.Core), comp.of(an.Core)
 		if ca == 0 || cb == 0 || ca*cat.Charge+cb*an.Charge != 0 {
 			return &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s and %s cannot make %s (they balance as %s%s%s%s)",
 				cat.Symbol, an.Symbol, formula, cat.Core, countText(a), an.Core, countText(bb))}
@@ -370,7 +372,7 @@ func countText(n int) string {
 	if n == 1 {
 		return ""
 	}
-	return fmt.Sprint(n)
+	return strconv.Itoa(n)
 }
 
 func gcd(a, b int) int {
@@ -386,8 +388,9 @@ func gcd(a, b int) int {
 // pickIons chooses, for a binary formula, the cation and anion of the data
 // whose charges balance its counts; when the data have no balancing cation
 // it makes one with the charge the counts imply (a hypothetical ion).
-func pickIons(db *data.DB, formula string, order []string, counts map[string]int, opt Options) (data.Ion, data.Ion, error) {
-	first, second := order[0], order[1]
+func pickIons(db *data.DB, formula string, comp composition, opt Options) (data.Ion, data.Ion, error) {
+	first, second := comp[0].symbol, comp[1].symbol
+	nFirst, nSecond := comp[0].count, comp[1].count
 	var cations, anions []data.Ion
 	for _, in := range db.IonsOf(first) {
 		if !in.Polyatomic && in.Charge > 0 {
@@ -421,18 +424,18 @@ func pickIons(db *data.DB, formula string, order []string, counts map[string]int
 	}
 	for _, an := range anions {
 		for _, ca := range cations {
-			if counts[first]*ca.Charge+counts[second]*an.Charge == 0 {
+			if nFirst*ca.Charge+nSecond*an.Charge == 0 {
 				return ca, an, nil
 			}
 		}
 	}
 	an := anions[0]
-	num := -counts[second] * an.Charge
-	if num%counts[first] != 0 {
+	num := -nSecond * an.Charge
+	if num%nFirst != 0 {
 		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%d %s ions carry %d negative charges, which %d %s atoms cannot balance with a whole charge each",
-			counts[second], an.Symbol, num, counts[first], first)}
+			nSecond, an.Symbol, num, nFirst, first)}
 	}
-	z := num / counts[first]
+	z := num / nFirst
 	if el, err := db.Element(first); err != nil || len(el.Ionization) < z {
 		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s would need the charge %+d, beyond the ionization energies in the data", first, z)}
 	}
@@ -473,24 +476,52 @@ func hypotheticalIon(db *data.DB, sym, core string, z int) data.Ion {
 	if donor == "" {
 		return in
 	}
+	why := "no radius for " + sym + " in the data: that of " + ionText(donor, z) + " by the neighbour rule, common practice, no source"
 	for _, r := range db.Radii(donor, z) {
-		r.Substituted = fmt.Sprintf("no radius for %s in the data: that of %s by the neighbour rule, common practice, no source",
-			sym, ionText(donor, z))
+		r.Substituted = why
 		in.Radii = append(in.Radii, r)
 	}
 	return in
 }
 
+// composition is a formula's element counts in order of first appearance.
+type composition []elementCount
+
+type elementCount struct {
+	symbol string
+	count  int
+}
+
+// of returns the count of sym, 0 when the formula has none.
+func (c composition) of(sym string) int {
+	for _, t := range c {
+		if t.symbol == sym {
+			return t.count
+		}
+	}
+	return 0
+}
+
+// add returns c with n more atoms of sym.
+func (c composition) add(sym string, n int) composition {
+	for i := range c {
+		if c[i].symbol == sym {
+			c[i].count += n
+			return c
+		}
+	}
+	return append(c, elementCount{sym, n})
+}
+
 // parseBinary reads a formula of element symbols with counts ("Al2O3",
-// "MgCl"), returning the counts and the symbols in order of appearance.
-func parseBinary(f string) (map[string]int, []string, error) {
-	counts := map[string]int{}
-	var order []string
+// "MgCl"), returning the counts in order of appearance.
+func parseBinary(f string) (composition, error) {
+	var comp composition
 	i := 0
 	for i < len(f) {
 		ch := f[i]
 		if !(ch >= 'A' && ch <= 'Z') {
-			return nil, nil, fmt.Errorf("unexpected %q at column %d", rune(ch), i+1)
+			return nil, fmt.Errorf("unexpected %q at column %d", rune(ch), i+1)
 		}
 		j := i + 1
 		for j < len(f) && f[j] >= 'a' && f[j] <= 'z' {
@@ -498,7 +529,7 @@ func parseBinary(f string) (map[string]int, []string, error) {
 		}
 		sym := f[i:j]
 		if !data.IsElementSymbol(sym) {
-			return nil, nil, fmt.Errorf("unknown element %q at column %d", sym, i+1)
+			return nil, fmt.Errorf("unknown element %q at column %d", sym, i+1)
 		}
 		k := j
 		for k < len(f) && f[k] >= '0' && f[k] <= '9' {
@@ -507,20 +538,17 @@ func parseBinary(f string) (map[string]int, []string, error) {
 		n := 1
 		if k > j {
 			if k-j > 3 {
-				return nil, nil, fmt.Errorf("count too large at column %d", j+1)
+				return nil, fmt.Errorf("count too large at column %d", j+1)
 			}
-			fmt.Sscan(f[j:k], &n)
+			scanCount(f[j:k], &n)
 			if n == 0 {
-				return nil, nil, fmt.Errorf("zero count at column %d", j+1)
+				return nil, fmt.Errorf("zero count at column %d", j+1)
 			}
 		}
-		if counts[sym] == 0 {
-			order = append(order, sym)
-		}
-		counts[sym] += n
+		comp = comp.add(sym, n)
 		i = k
 	}
-	return counts, order, nil
+	return comp, nil
 }
 
 // parseIonSymbol reads "Mg+", "Mg2+", "O2-", "Fe+3", "Cl^-".
@@ -560,7 +588,7 @@ func parseIonSymbol(s string) (core string, charge int, ok bool) {
 				return "", 0, false
 			}
 		}
-		fmt.Sscan(digits, &n)
+		scanCount(digits, &n)
 	}
 	if n == 0 {
 		return "", 0, false

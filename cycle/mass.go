@@ -8,17 +8,17 @@ import "enthalpath/data"
 // only the molar volume V_m = M/(ρ·N_A) of the volume-based model, whose
 // own uncertainty is percent-level.
 func coreMass(db *data.DB, core string) float64 {
-	counts, order, err := parseBinary(core)
+	comp, err := parseBinary(core)
 	if err != nil {
 		return 0
 	}
 	m := 0.0
-	for _, s := range order {
-		e, err := db.Element(s)
+	for _, t := range comp {
+		e, err := db.Element(t.symbol)
 		if err != nil || !e.AtomicMass.Known() {
 			return 0
 		}
-		m += e.AtomicMass.V * float64(counts[s])
+		m += e.AtomicMass.V * float64(t.count)
 	}
 	return m
 }

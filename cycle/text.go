@@ -3,6 +3,7 @@ package cycle
 import (
 	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
 	"enthalpath/data"
@@ -26,19 +27,23 @@ func superscript(s string) string {
 	return b.String()
 }
 
+// The charges a cycle meets, written out so that chargeText allocates nothing.
+var (
+	cationCharges = [...]string{"", "⁺", "²⁺", "³⁺", "⁴⁺", "⁵⁺", "⁶⁺", "⁷⁺", "⁸⁺", "⁹⁺"}
+	anionCharges  = [...]string{"", "⁻", "²⁻", "³⁻", "⁴⁻", "⁵⁻", "⁶⁻", "⁷⁻", "⁸⁻", "⁹⁻"}
+)
+
 // chargeText is the charge as a superscript: 2 → "²⁺", −1 → "⁻", 0 → "".
 func chargeText(z int) string {
 	switch {
-	case z == 0:
-		return ""
-	case z == 1:
-		return "⁺"
-	case z == -1:
-		return "⁻"
+	case z >= 0 && z < len(cationCharges):
+		return cationCharges[z]
+	case z < 0 && -z < len(anionCharges):
+		return anionCharges[-z]
 	case z > 0:
-		return superscript(fmt.Sprintf("%d+", z))
+		return superscript(strconv.Itoa(z) + "+")
 	}
-	return superscript(fmt.Sprintf("%d-", -z))
+	return superscript(strconv.Itoa(-z) + "-")
 }
 
 // ionText writes element el with charge z: "Mg²⁺", "O⁻", "Na".
@@ -54,7 +59,7 @@ func countPrefix(n int) string {
 	if n == 1 {
 		return ""
 	}
-	return fmt.Sprintf("%d ", n)
+	return strconv.Itoa(n) + " "
 }
 
 // coefficient writes a stoichiometric coefficient: 1 → "", 0.5 → "½",
@@ -66,9 +71,9 @@ func coefficient(x float64) string {
 	case math.Abs(x-0.5) < 1e-9:
 		return "½"
 	case math.Abs(x-math.Round(x)) < 1e-9:
-		return fmt.Sprintf("%d ", int(math.Round(x)))
+		return strconv.Itoa(int(math.Round(x))) + " "
 	case math.Abs(2*x-math.Round(2*x)) < 1e-9:
-		return fmt.Sprintf("%d/2 ", int(math.Round(2*x)))
+		return strconv.Itoa(int(math.Round(2*x))) + "/2 "
 	}
 	return fmt.Sprintf("%g ", x)
 }
@@ -86,7 +91,7 @@ func splitState(state, symbol string) (formula string, atoms int, phase string) 
 	formula, phase = state[:i], state[i:]
 	atoms = 1
 	if rest := strings.TrimPrefix(formula, symbol); rest != formula && rest != "" {
-		fmt.Sscan(rest, &atoms)
+		scanCount(rest, &atoms)
 		if atoms <= 0 {
 			atoms = 1
 		}
@@ -98,17 +103,22 @@ func splitState(state, symbol string) (formula string, atoms int, phase string) 
 // drops the space after a coefficient: "Cl2(g) → 2 Cl(g)" → "Cl₂(g) → 2Cl(g)".
 func prettyReaction(r string) string {
 	parts := strings.Fields(r)
-	var out []string
+	var b strings.Builder
+	b.Grow(len(r) + 8)
 	for i := 0; i < len(parts); i++ {
+		if i > 0 {
+			b.WriteByte(' ')
+		}
 		p := parts[i]
 		if isInteger(p) && i+1 < len(parts) && parts[i+1] != "→" && parts[i+1] != "+" {
-			out = append(out, p+subscriptDigits(parts[i+1]))
+			b.WriteString(p)
+			subscripts.WriteString(&b, parts[i+1])
 			i++
 			continue
 		}
-		out = append(out, subscriptDigits(p))
+		subscripts.WriteString(&b, p)
 	}
-	return strings.Join(out, " ")
+	return b.String()
 }
 
 func isInteger(s string) bool {
@@ -123,56 +133,68 @@ func isInteger(s string) bool {
 	return true
 }
 
-// elementTerms writes the elements of counts in their standard states with
-// coefficients: {"Na":1,"Cl":1} → "Na(s) + ½Cl₂(g)".
-func elementTerms(db *data.DB, order []string, counts map[string]int) string {
-	var terms []string
-	for _, sym := range order {
-		state := sym + "(s)"
-		if el, err := db.Element(sym); err == nil && el.StandardState != "" {
+// scanCount reads s into n as fmt.Sscan does, through strconv when s is
+// plain digits without a leading zero (which Sscan reads as an octal
+// prefix, so those keep fmt's reading).
+func scanCount(s string, n *int) {
+	if s != "" && s[0] != '0' && len(s) <= 9 && isInteger(s) {
+		*n, _ = strconv.Atoi(s)
+		return
+	}
+	fmt.Sscan(s, n)
+}
+
+// elementTerms writes the elements of comp in their standard states with
+// coefficients: Na 1, Cl 1 → "Na(s) + ½Cl₂(g)".
+func elementTerms(db *data.DB, comp composition) string {
+	var b strings.Builder
+	for i, t := range comp {
+		state := t.symbol + "(s)"
+		if el, err := db.Element(t.symbol); err == nil && el.StandardState != "" {
 			state = el.StandardState
 		}
-		formula, atoms, phase := splitState(state, sym)
-		terms = append(terms, coefficient(float64(counts[sym])/float64(atoms))+subscriptDigits(formula)+phase)
+		formula, atoms, phase := splitState(state, t.symbol)
+		if i > 0 {
+			b.WriteString(" + ")
+		}
+		b.WriteString(coefficient(float64(t.count) / float64(atoms)))
+		subscripts.WriteString(&b, formula)
+		b.WriteString(phase)
 	}
-	return strings.Join(terms, " + ")
+	return b.String()
 }
 
 // formationReaction is the left side of the formation reaction.
 func formationReaction(db *data.DB, c *Cycle) string {
-	counts := map[string]int{}
-	var order []string
+	var comp composition
 	addCore := func(core string, mult int) {
-		cc, o, err := parseBinary(core)
+		cc, err := parseBinary(core)
 		if err != nil {
-			cc, o = map[string]int{core: 1}, []string{core}
+			cc = composition{{core, 1}}
 		}
-		for _, s := range o {
-			if counts[s] == 0 {
-				order = append(order, s)
-			}
-			counts[s] += cc[s] * mult
+		for _, t := range cc {
+			comp = comp.add(t.symbol, t.count*mult)
 		}
 	}
 	addCore(c.Cation.Ion.Core, c.Cation.Count)
 	addCore(c.Anion.Ion.Core, c.Anion.Count)
-	return elementTerms(db, order, counts)
+	return elementTerms(db, comp)
 }
 
 // ionFormationReaction writes the formation of a gaseous polyatomic ion
 // from its elements: "½N₂(g) + 2H₂(g) → NH₄⁺(g) + e⁻".
 func ionFormationReaction(db *data.DB, in data.Ion) string {
-	counts, order, err := parseBinary(in.Core)
+	comp, err := parseBinary(in.Core)
 	left := subscriptDigits(in.Core)
 	if err == nil {
-		left = elementTerms(db, order, counts)
+		left = elementTerms(db, comp)
 	}
 	ion := ionSymbolText(in) + "(g)"
 	switch {
 	case in.Charge > 0:
-		return fmt.Sprintf("%s → %s + %se⁻", left, ion, countPrefix(in.Charge))
+		return left + " → " + ion + " + " + countPrefix(in.Charge) + "e⁻"
 	case in.Charge < 0:
-		return fmt.Sprintf("%s + %se⁻ → %s", left, countPrefix(-in.Charge), ion)
+		return left + " + " + countPrefix(-in.Charge) + "e⁻ → " + ion
 	}
 	return left + " → " + ion
 }
