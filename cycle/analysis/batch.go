@@ -134,7 +134,7 @@ func (br *BatchReader) Next() (BatchRow, error) {
 		return bad(ColFormula, "empty formula", nil)
 	}
 	if s := cell(ColCharges); s != "" {
-		ch, err := ParseCharges(strings.ReplaceAll(s, ";", ","), row.Formula)
+		ch, err := ParseCharges(s, row.Formula)
 		if err != nil {
 			return bad(ColCharges, "cannot read the charges", err)
 		}
@@ -294,9 +294,12 @@ func num(v float64) *float64 {
 func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
 
 // Batch reads rows from r and writes one result per row to w as it goes
-// (CSV, or a JSON array). A row that cannot be estimated gets its error in
-// the error column and the batch goes on; a malformed input row stops the
-// batch with a *CSVError naming its line and column.
+// (CSV, or a JSON array). A row that cannot be estimated, or has a cell
+// that cannot be read (a model, charges, radius or set: value), gets its
+// error in the error column and the batch goes on; only a file that cannot
+// be read as the table its header declares (malformed CSV, a row with the
+// wrong number of columns, an over-long line) stops the batch, with a
+// *CSVError naming its line.
 func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummary, error) {
 	var sum BatchSummary
 	br, err := NewBatchReader(r)
@@ -350,6 +353,14 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 			row, err := br.Next()
 			if err == io.EOF {
 				return
+			}
+			var ce *CSVError
+			if errors.As(err, &ce) && ce.Column != "" {
+				// A cell fault is this row's result, like a failed estimate.
+				out := make(chan BatchResult, 1)
+				out <- BatchResult{Line: row.Line, Formula: row.Formula, Error: oneLine(err.Error())}
+				queue <- out
+				continue
 			}
 			if err != nil {
 				readErr = err

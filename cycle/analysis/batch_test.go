@@ -80,9 +80,13 @@ func TestBatchJSON(t *testing.T) {
 	}
 }
 
+// TestBatchInputErrors: a file that cannot be read as its header's table
+// stops the batch with a *CSVError naming the line (and column); a cell
+// that cannot be read is that row's error, naming its line and column, and
+// the other rows are still estimated.
 func TestBatchInputErrors(t *testing.T) {
 	a := testAnalyst(t)
-	cases := []struct {
+	files := []struct {
 		name, in string
 		line     int
 		column   string
@@ -90,14 +94,10 @@ func TestBatchInputErrors(t *testing.T) {
 		{"empty", "", 1, ""},
 		{"no formula column", "model\nkapustinskii\n", 1, "formula"},
 		{"unknown column", "formula,colour\nNaCl,red\n", 1, "colour"},
-		{"bad radius", "formula,anion_radius\nNaCl,1.8\nKCl,big\n", 3, "anion_radius"},
-		{"bad charges", "formula,charges\nMgCl,Mg=+x\n", 2, "charges"},
-		{"bad set", "formula,set:lattice\nNaCl,-780±\n", 2, "set:lattice"},
-		{"unknown model", "formula,model\nNaCl,guess\n", 2, "model"},
 		{"field count", "formula,model\nNaCl\n", 2, ""},
 		{"bare quote", "formula\n\"NaCl\n", 0, ""},
 	}
-	for _, tc := range cases {
+	for _, tc := range files {
 		_, err := a.Batch(strings.NewReader(tc.in), io.Discard, BatchOptions{})
 		var ce *CSVError
 		if !errors.As(err, &ce) || !errors.Is(err, ErrBadCSV) {
@@ -106,6 +106,38 @@ func TestBatchInputErrors(t *testing.T) {
 		}
 		if (tc.line != 0 && ce.Line != tc.line) || ce.Column != tc.column {
 			t.Errorf("%s: error at line %d column %q (%v), want line %d column %q", tc.name, ce.Line, ce.Column, err, tc.line, tc.column)
+		}
+	}
+	cells := []struct {
+		name, in string
+		line     int
+		column   string
+	}{
+		{"bad radius", "formula,anion_radius\nNaCl,1.8\nKCl,big\n", 3, "anion_radius"},
+		{"bad charges", "formula,charges\nNaCl,\nMgCl,Mg=+x\n", 3, "charges"},
+		{"bad set", "formula,set:lattice\nNaCl,\nKCl,-780±\n", 3, "set:lattice"},
+		{"unknown model", "formula,model\nNaCl,\nKCl,guess\n", 3, "model"},
+	}
+	for _, tc := range cells {
+		var out bytes.Buffer
+		sum, err := a.Batch(strings.NewReader(tc.in), &out, BatchOptions{JSON: true})
+		if err != nil {
+			t.Errorf("%s: the batch stopped: %v", tc.name, err)
+			continue
+		}
+		var rows []BatchResult
+		if err := json.Unmarshal(out.Bytes(), &rows); err != nil || len(rows) != 2 {
+			t.Fatalf("%s: %v\n%s", tc.name, err, out.String())
+		}
+		good, bad := rows[0], rows[1]
+		if good.Error != "" || good.FormationKJPerMol == nil {
+			t.Errorf("%s: the good row was not estimated: %+v", tc.name, good)
+		}
+		if bad.Line != tc.line || !strings.Contains(bad.Error, fmt.Sprintf("line %d", tc.line)) || !strings.Contains(bad.Error, tc.column) {
+			t.Errorf("%s: bad row %+v, want its error to name line %d and column %q", tc.name, bad, tc.line, tc.column)
+		}
+		if sum.Rows != 2 || sum.Failed != 1 {
+			t.Errorf("%s: summary %+v, want 2 rows, 1 failed", tc.name, sum)
 		}
 	}
 }

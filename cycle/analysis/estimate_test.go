@@ -270,6 +270,7 @@ func TestParseCharges(t *testing.T) {
 		{"M=+2, X=-1", "CaCl2", Charges{"Ca": 2, "Cl": -1}},
 		{"Xe=1+,F=1-", "XeF", Charges{"Xe": 1, "F": -1}},
 		{"M=3,X=-", "AlF3", Charges{"Al": 3, "F": -1}},
+		{"Mg=+1;Cl=-1", "MgCl", Charges{"Mg": 1, "Cl": -1}},
 	}
 	for _, tc := range good {
 		got, err := ParseCharges(tc.text, tc.formula)

@@ -80,14 +80,15 @@ func useRadius(ion *data.Ion, r Radius) {
 // charges, as read by ParseCharges.
 type Charges map[string]int
 
-// ParseCharges reads "Mg=+1,Cl=-1" (or "M=+2,X=-1", where M stands for the
-// first element of formula and X for the second). Spaces are allowed; a
+// ParseCharges reads "Mg=+1,Cl=-1" or "Mg=+1;Cl=-1" (or "M=+2,X=-1", where M
+// stands for the first element of formula and X for the second). Spaces are allowed; a
 // charge is a signed integer ("+2", "-1", "2"), or "2+", "1-".
 func ParseCharges(text, formula string) (Charges, error) {
 	out := Charges{}
 	first, second := firstTwoSymbols(formula)
 	col := 1
-	for _, part := range strings.Split(text, ",") {
+	// ";" separates too, so that charges fit in a CSV cell unquoted.
+	for _, part := range strings.Split(strings.ReplaceAll(text, ";", ","), ",") {
 		p := strings.TrimSpace(part)
 		if p == "" {
 			return nil, &ChargesError{Text: text, Column: col, Reason: "empty entry"}

@@ -171,15 +171,26 @@ func TestBatchCommand(t *testing.T) {
 	if code != ExitOK || json.Unmarshal([]byte(out), &rows) != nil || len(rows) != 1 {
 		t.Fatalf("stdin JSON: exit %d %s\n%s", code, errs, out)
 	}
-	// A bad cell names the line and column, exit 2, and --out is not written.
+	// A bad cell is that row's error (naming line and column); the batch
+	// goes on and says on stderr how many rows failed.
 	bad := filepath.Join(dir, "bad.csv")
 	os.WriteFile(bad, []byte("formula,anion_radius\nNaCl,1.8\nKCl,big\n"), 0o644)
 	badOut := filepath.Join(dir, "bad-out.csv")
 	_, errs, code = runAnalysisCmd(t, "", "batch", bad, "--out", badOut)
-	if code != ExitUsage || !strings.Contains(errs, "line 3") || !strings.Contains(errs, "anion_radius") {
-		t.Errorf("bad cell: exit %d, %q", code, errs)
+	got, _ := os.ReadFile(badOut)
+	if code != ExitOK || !strings.Contains(errs, "1 of 2 rows") || !strings.Contains(string(got), "line 3") || !strings.Contains(string(got), "anion_radius") {
+		t.Errorf("bad cell: exit %d, stderr %q, output\n%s", code, errs, got)
 	}
-	if _, err := os.Stat(badOut); !os.IsNotExist(err) {
+	// A file that is not the table its header declares stops the batch
+	// (exit 2, naming the line), and --out is not written.
+	broken := filepath.Join(dir, "broken.csv")
+	os.WriteFile(broken, []byte("formula,model\nNaCl,kapustinskii\nKCl\n"), 0o644)
+	brokenOut := filepath.Join(dir, "broken-out.csv")
+	_, errs, code = runAnalysisCmd(t, "", "batch", broken, "--out", brokenOut)
+	if code != ExitUsage || !strings.Contains(errs, "line 3") {
+		t.Errorf("broken file: exit %d, %q", code, errs)
+	}
+	if _, err := os.Stat(brokenOut); !os.IsNotExist(err) {
 		t.Errorf("--out written despite the error: %v", err)
 	}
 }

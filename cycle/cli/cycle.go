@@ -30,7 +30,7 @@ type modelFlags struct {
 func (m *modelFlags) register(fs *flag.FlagSet) {
 	fs.StringVar(&m.structure, "structure", "", "structure for the Madelung constant: a prototype name ("+strings.Join(crystal.PrototypeNames(), ", ")+") or a CIF file")
 	fs.Var(&m.params, "param", "prototype parameter `KEY=VALUE` (a, c in Å; u, x, z fractional); repeatable")
-	fs.StringVar(&m.units, "units", "kj", "energy unit for output and --set values: kj, kcal or ev")
+	fs.StringVar(&m.units, "units", "kj", "energy unit of printed output and of --set values: kj, kcal or ev (JSON stays in kJ/mol, as its keys say)")
 	fs.Float64Var(&m.rho, "rho", 0, "Born–Mayer range parameter ρ in Å (default 0.345)")
 	fs.Float64Var(&m.bornN, "born-n", 0, "Born exponent n for Born–Landé (default: mean of Pauling's values)")
 	fs.StringVar(&m.radii, "radii", "ionic", "Shannon radius set: ionic or crystal")

@@ -90,16 +90,29 @@ func dataFindAny(db *data.DB, q string) (any, error) {
 		}
 		errs = append(errs, err)
 	} else {
-		if e, err := db.Element(t); err == nil {
+		e, eerr := db.Element(t)
+		if eerr == nil && e.Symbol == t {
 			return e, nil
-		} else {
-			errs = append(errs, err)
 		}
 		c, err := db.Compound(t)
 		if err == nil {
 			return c, nil
 		}
-		errs = append(errs, err)
+		if eerr == nil {
+			// Element lookups ignore case ("na" is Na), but a query that
+			// reads as a formula of several elements ("HF", "CO", "SN")
+			// means that compound, not the element its letters spell.
+			if f, ferr := data.ParseFormula(t); ferr == nil && len(f.Elements()) > 1 {
+				var parts []string
+				for _, g := range f.Groups {
+					parts = append(parts, g.Text)
+				}
+				return nil, Usagef("%q reads as a compound of %s, which is not in the data; for the element %s (%s) ask for %q",
+					q, strings.Join(parts, " and "), e.Symbol, e.Name, e.Symbol)
+			}
+			return e, nil
+		}
+		errs = append(errs, eerr, err)
 	}
 	var sugg []string
 	for _, err := range errs {
@@ -133,14 +146,24 @@ func dataValueText(v data.Value) string {
 }
 
 func dataNumberText(v data.Value) string {
-	s := strconv.FormatFloat(v.V, 'f', -1, 64)
+	s := tableNumber(v, v.V)
 	if v.U > 0 {
-		s += " ± " + strconv.FormatFloat(v.U, 'f', -1, 64)
+		s += " ± " + tableNumber(v, v.U)
 	}
 	if v.Unit != "" && v.Unit != "1" {
 		s += " " + v.Unit
 	}
 	return s
+}
+
+// tableNumber writes x, a number of value v: as entered (every digit the
+// table has) for a tabulated value, to six significant figures for one
+// derived here from others, whose trailing digits are arithmetic, not data.
+func tableNumber(v data.Value, x float64) string {
+	if v.Derived {
+		return strconv.FormatFloat(x, 'g', 6, 64)
+	}
+	return strconv.FormatFloat(x, 'f', -1, 64)
 }
 
 // dataProvenance writes "[source; memory, derived, override of …]".
@@ -226,9 +249,9 @@ func dataPrintElement(w io.Writer, db *data.DB, e data.Element, cite *dataCitati
 		fmt.Fprintln(w, "\nIonization energies (as published, 0 K)")
 		t := table{head: []string{"stage", "ion formed", "eV", "kJ/mol", "source"}, right: map[int]bool{2: true, 3: true}}
 		for i, v := range e.Ionization {
-			ev := strconv.FormatFloat(v.V, 'f', -1, 64)
+			ev := tableNumber(v, v.V)
 			if v.U > 0 {
-				ev += " ± " + strconv.FormatFloat(v.U, 'f', -1, 64)
+				ev += " ± " + tableNumber(v, v.U)
 			}
 			t.add(strconv.Itoa(i+1), e.Symbol+dataChargeText(i+1), ev, strconv.FormatFloat(thermo.EVToKJPerMol(v.V), 'f', 1, 64), dataProvenance(v))
 			cite.add(v)
@@ -245,7 +268,7 @@ func dataPrintElement(w io.Writer, db *data.DB, e data.Element, cite *dataCitati
 		}
 		kj := thermo.EVToKJPerMol(a.v.V)
 		fmt.Fprintf(w, "%s  %s eV = %.1f kJ/mol (attachment enthalpy %+.1f kJ/mol)  %s\n", a.label,
-			strconv.FormatFloat(a.v.V, 'f', -1, 64), kj, -kj, dataProvenance(a.v))
+			tableNumber(a.v, a.v.V), kj, -kj, dataProvenance(a.v))
 		cite.add(a.v)
 	}
 	if !e.ElectronAffinity.Known() {

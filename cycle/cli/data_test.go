@@ -120,6 +120,10 @@ func TestDataUnknownQuery(t *testing.T) {
 		{[]string{}, "give one QUERY"},
 		{[]string{"--kind", "mineral", "NaCl"}, "--kind"},
 		{[]string{"--list", "minerals"}, "--list"},
+		// Hydrogen fluoride is not in the data: HF must not quietly give
+		// hafnium (nor CO cobalt), though element lookups ignore case.
+		{[]string{"HF"}, `ask for "Hf"`},
+		{[]string{"CO"}, "compound of C and O"},
 	}
 	for _, c := range cases {
 		code, _, errs := runDataCmd(t, "", c.args...)
