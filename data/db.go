@@ -231,7 +231,7 @@ func (db *DB) AtomizationSteps(sym string) []AtomizationStep {
 	}
 	return []AtomizationStep{{
 		Kind:          kind,
-		Reaction:      fmt.Sprintf("%s(%s) → %s(g)", sym, phase, sym),
+		Reaction:      sym + "(" + phase + ") → " + sym + "(g)",
 		AtomsProduced: 1,
 		Enthalpy:      e.Atomization,
 		Element:       sym,

@@ -18,15 +18,18 @@ var periodicSymbols = [...]string{
 	"Rg", "Cn", "Nh", "Fl", "Mc", "Lv", "Ts", "Og",
 }
 
-// atomicNumber returns Z for an element symbol, or 0.
-func atomicNumber(sym string) int {
+// atomicNumbers maps each symbol of periodicSymbols to its Z. Filled once
+// when the package starts and only read afterwards.
+var atomicNumbers = func() map[string]int {
+	m := make(map[string]int, len(periodicSymbols))
 	for i, s := range periodicSymbols {
-		if s == sym {
-			return i + 1
-		}
+		m[s] = i + 1
 	}
-	return 0
-}
+	return m
+}()
+
+// atomicNumber returns Z for an element symbol, or 0.
+func atomicNumber(sym string) int { return atomicNumbers[sym] }
 
 // AtomicNumber returns Z for an element symbol (exact case), or 0.
 func AtomicNumber(sym string) int { return atomicNumber(sym) }
