@@ -101,7 +101,11 @@ func Build(db *data.DB, formula string, opt Options) (*Cycle, error) {
 	if c.Settings.Structure.Empty() && c.Compound.Structure != "" && !c.Settings.noStructure {
 		c.Settings.Structure = Structure{Prototype: c.Compound.Structure, Params: cloneParams(c.Compound.Params), FromData: true}
 	}
-	b := builder{db: db, c: c}
+	// Room for each ionization and attachment, an atomization with up to
+	// three sub-steps per side, the lattice and the formation (more only
+	// costs a reallocation).
+	n := 10 + c.Cation.Ion.Charge - c.Anion.Ion.Charge
+	b := builder{db: db, c: c, steps: make([]Step, 0, n), refs: make([]Entry, 0, n)}
 	b.side(SideCation)
 	b.side(SideAnion)
 	b.compoundSteps()
@@ -128,6 +132,16 @@ type builder struct {
 	db    *data.DB
 	c     *Cycle
 	steps []Step
+	// refs holds the steps' reference entries in one allocation. Should it
+	// outgrow its capacity, append moves it and the pointers handed out
+	// before keep the old array: each still points at its own entry.
+	refs []Entry
+}
+
+// ref stores e among the cycle's reference entries and returns its address.
+func (b *builder) ref(e Entry) *Entry {
+	b.refs = append(b.refs, e)
+	return &b.refs[len(b.refs)-1]
 }
 
 func (b *builder) source(v data.Value) Source {
@@ -157,7 +171,7 @@ func (b *builder) add(s Step, v *data.Value, def float64) {
 	if v != nil && v.Known() {
 		e := b.entry(*v, def)
 		s.Value, s.Uncertainty, s.Source = e.Value, e.Uncertainty, e.Source
-		s.Reference = &e
+		s.Reference = b.ref(e)
 	} else if !s.Composite {
 		s.Source = Source{Kind: SourceMissing}
 	}
@@ -252,7 +266,7 @@ func (b *builder) atomization(side Side, suffix string, el data.Element, count f
 	s.Source = Source{Kind: SourceSum, Citation: "sum of its sub-steps"}
 	if el.Atomization.Known() {
 		e := b.entry(el.Atomization, DefaultEnthalpy)
-		s.Reference = &e
+		s.Reference = b.ref(e)
 		s.Value, s.Uncertainty = e.Value, e.Uncertainty
 	}
 	b.steps = append(b.steps, s)
@@ -296,7 +310,7 @@ func (b *builder) compoundSteps() {
 			e.Value -= c.LatticeCorrection()
 		}
 		e.Source.Note = strings.TrimSpace("handbook lattice value (" + c.Compound.LatticeConvention + "), used when another step is solved. " + e.Source.Note)
-		lat.Reference = &e
+		lat.Reference = b.ref(e)
 		lat.Value, lat.Uncertainty, lat.Source = e.Value, e.Uncertainty, e.Source
 	} else {
 		lat.Source = Source{Kind: SourceMissing}

@@ -57,10 +57,17 @@ type Cycle struct {
 func (c *Cycle) Clone() *Cycle {
 	d := *c
 	d.Steps = slices.Clone(c.Steps)
+	n := 0
+	for i := range d.Steps {
+		if d.Steps[i].Reference != nil {
+			n++
+		}
+	}
+	refs := make([]Entry, 0, n) // one allocation for every step's copy
 	for i := range d.Steps {
 		if r := d.Steps[i].Reference; r != nil {
-			rr := *r
-			d.Steps[i].Reference = &rr
+			refs = append(refs, *r)
+			d.Steps[i].Reference = &refs[len(refs)-1]
 		}
 	}
 	d.Cation.Ion.Radii = slices.Clone(c.Cation.Ion.Radii)
