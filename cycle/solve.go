@@ -250,17 +250,18 @@ func Solve(c *Cycle) (*Result, error) {
 // Residual returns Σ sign·m·base over every step that has a value (the
 // amount by which the cycle fails to close, kJ/mol) and its uncertainty.
 // It is what an interactive caller can show when no step is unknown.
+//
+// It reads c without copying it: the composites refreshComposites would
+// set (those summing their sub-steps) are exactly those inSum leaves out,
+// their sub-steps standing for them.
 func Residual(c *Cycle) (residual, uncertainty float64) {
-	w := *c
-	w.Steps = slices.Clone(c.Steps)
-	w.refreshComposites()
 	variance := 0.0
-	for i := range w.Steps {
-		s := &w.Steps[i]
-		if !w.inSum(i) || s.Unknown || s.Source.Kind == SourceMissing {
+	for i := range c.Steps {
+		s := &c.Steps[i]
+		if !c.inSum(i) || s.Unknown || s.Source.Kind == SourceMissing {
 			continue
 		}
-		residual += hessSign(s) * s.Multiplicity * (s.Value - w.shift(s, w.Conventions))
+		residual += hessSign(s) * s.Multiplicity * (s.Value - c.shift(s, c.Conventions))
 		variance += sq(s.Multiplicity * s.Uncertainty)
 	}
 	return residual, math.Sqrt(variance)

@@ -155,7 +155,8 @@ func (a *Analyst) computeSpread(model string) (Spread, error) {
 			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
 			continue
 		}
-		cyc, _, err := cycleLattice(c)
+		// c is this loop's own: close its lattice step in place (no copy).
+		cyc, _, err := closeLattice(c)
 		if err != nil {
 			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
 			continue
@@ -186,7 +187,12 @@ func (a *Analyst) computeSpread(model string) (Spread, error) {
 // convention) closed by Hess's law over the other steps, and its σ, without
 // evaluating any model. Every other step must have a value.
 func cycleLattice(c *cycle.Cycle) (float64, float64, error) {
-	w := c.Clone()
+	return closeLattice(c.Clone())
+}
+
+// closeLattice is cycleLattice on w itself: it makes the lattice step w's
+// only unknown (which a cycle fresh from cycle.Build already has).
+func closeLattice(w *cycle.Cycle) (float64, float64, error) {
 	if err := w.SolveFor("lattice"); err != nil {
 		return 0, 0, err
 	}
