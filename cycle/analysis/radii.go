@@ -2,6 +2,7 @@ package analysis
 
 import (
 	"fmt"
+	"strconv"
 	"strings"
 
 	"enthalpath/cycle"
@@ -74,6 +75,32 @@ func useRadius(ion *data.Ion, r Radius) {
 		return
 	}
 	ion.Radii = []data.ShannonRadius{{CN: "VI", Coordination: 6, Ionic: v, Crystal: v, Core: ion.Core, Charge: ion.Charge}}
+}
+
+// ParseRadii reads ion radii written "K+=1.33,Na+=0.98" (Å; ";" separates
+// too). A radius must be a number above 0 and at most 10 Å; an ion given
+// twice is refused. Errors give the 1-based column of the fault.
+func ParseRadii(text string) (map[string]float64, error) {
+	out := map[string]float64{}
+	col := 1
+	for _, part := range strings.Split(strings.ReplaceAll(text, ";", ","), ",") {
+		p := strings.TrimSpace(part)
+		eq := strings.LastIndexByte(p, '=')
+		if eq <= 0 {
+			return nil, fmt.Errorf("radii %q: %q at column %d is not ION=Å (e.g. K+=1.33)", text, p, col)
+		}
+		sym, num := strings.TrimSpace(p[:eq]), strings.TrimSpace(p[eq+1:])
+		v, err := strconv.ParseFloat(num, 64)
+		if err != nil || !(v > 0) || v > 10 {
+			return nil, fmt.Errorf("radii %q: the radius of %s at column %d is %q, not a positive number of Å (at most 10)", text, sym, col+eq+1, num)
+		}
+		if _, dup := out[sym]; dup {
+			return nil, fmt.Errorf("radii %q: %s is given twice", text, sym)
+		}
+		out[sym] = v
+		col += len(part) + 1
+	}
+	return out, nil
 }
 
 // Charges maps element symbols (or a polyatomic core such as SO4) to ion

@@ -3,8 +3,6 @@ package cli
 import (
 	"fmt"
 	"io"
-	"math"
-	"strconv"
 	"strings"
 
 	"enthalpath/cycle/analysis"
@@ -19,9 +17,12 @@ func runRadiusFit(env Env, a *analysis.Analyst, pos []string, ion, counterRadii,
 	case rc != 0:
 		return Usagef("--counter-radius goes with one FORMULA; with --all-salts give --counter-radii ION=Å,...")
 	}
-	radii, err := parseRadiusList(counterRadii)
-	if err != nil {
-		return err
+	var radii map[string]float64
+	if strings.TrimSpace(counterRadii) != "" {
+		var err error
+		if radii, err = analysis.ParseRadii(counterRadii); err != nil {
+			return Usagef("--counter-radii: %v", err)
+		}
 	}
 	var onlyList []string
 	if only != "" {
@@ -40,33 +41,6 @@ func runRadiusFit(env Env, a *analysis.Analyst, pos []string, ion, counterRadii,
 	}
 	printRadiusFit(env.Stdout, f)
 	return nil
-}
-
-// parseRadiusList reads "K+=1.33,Na+=0.98" (Å).
-func parseRadiusList(text string) (map[string]float64, error) {
-	if strings.TrimSpace(text) == "" {
-		return nil, nil
-	}
-	out := map[string]float64{}
-	col := 1
-	for _, part := range strings.Split(text, ",") {
-		p := strings.TrimSpace(part)
-		eq := strings.LastIndexByte(p, '=')
-		if eq <= 0 {
-			return nil, Usagef("--counter-radii %q: %q at column %d is not ION=Å (e.g. K+=1.33)", text, p, col)
-		}
-		sym := strings.TrimSpace(p[:eq])
-		v, err := strconv.ParseFloat(strings.TrimSpace(p[eq+1:]), 64)
-		if err != nil || !(v > 0) || math.IsInf(v, 0) {
-			return nil, Usagef("--counter-radii %q: radius of %s at column %d is %q, not a positive number of Å", text, sym, col+eq+1, strings.TrimSpace(p[eq+1:]))
-		}
-		if _, dup := out[sym]; dup {
-			return nil, Usagef("--counter-radii %q: %s given twice", text, sym)
-		}
-		out[sym] = v
-		col += len(part) + 1
-	}
-	return out, nil
 }
 
 type radiusFitSaltJSON struct {

@@ -121,7 +121,7 @@ func kinds() []kind {
 				}
 				var opt analysis.FitOptions
 				if len(args) == 2 {
-					radii, err := parseRadii(args[1])
+					radii, err := analysis.ParseRadii(args[1])
 					if err != nil {
 						return nil, usage(k, "%v", err)
 					}
@@ -132,24 +132,4 @@ func kinds() []kind {
 		},
 	}
 	return ks
-}
-
-// parseRadii reads "K+=1.33,Na+=0.98" (Å).
-func parseRadii(text string) (map[string]float64, error) {
-	out := map[string]float64{}
-	for _, part := range strings.Split(text, ",") {
-		sym, num, ok := strings.Cut(strings.TrimSpace(part), "=")
-		if !ok || sym == "" {
-			return nil, fmt.Errorf("%q is not ION=Å", part)
-		}
-		v, err := strconv.ParseFloat(num, 64)
-		if err != nil || !(v > 0) || v > 10 {
-			return nil, fmt.Errorf("the radius of %s, %q, is not a number of Å between 0 and 10", sym, num)
-		}
-		if _, dup := out[sym]; dup {
-			return nil, fmt.Errorf("%s is given twice", sym)
-		}
-		out[sym] = v
-	}
-	return out, nil
 }
