@@ -101,10 +101,10 @@ func Build(db *data.DB, formula string, opt Options) (*Cycle, error) {
 	if c.Settings.Structure.Empty() && c.Compound.Structure != "" && !c.Settings.noStructure {
 		c.Settings.Structure = Structure{Prototype: c.Compound.Structure, Params: cloneParams(c.Compound.Params), FromData: true}
 	}
-	// Room for each ionization and attachment, an atomization with up to
-	// three sub-steps per side, the lattice and the formation (more only
-	// costs a reallocation).
-	n := 10 + c.Cation.Ion.Charge - c.Anion.Ion.Charge
+	// Room for each ionization and attachment, an atomization with one
+	// sub-step per side, the lattice and the formation (more, as for Br₂(l),
+	// only costs a reallocation).
+	n := 6 + c.Cation.Ion.Charge - c.Anion.Ion.Charge
 	b := builder{db: db, c: c, steps: make([]Step, 0, n), refs: make([]Entry, 0, n)}
 	b.side(SideCation)
 	b.side(SideAnion)

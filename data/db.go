@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io/fs"
+	"iter"
 	"maps"
 	"slices"
 	"strconv"
@@ -566,16 +567,17 @@ func (db *DB) Compounds() []Compound {
 	return out
 }
 
-// CompoundsIn returns copies of the compounds of the given families
-// ("alkali halide"), in table order, without copying the rest.
-func (db *DB) CompoundsIn(families ...string) []Compound {
-	var out []Compound
-	for _, c := range db.compounds {
-		if slices.Contains(families, c.Family) {
-			out = append(out, copyCompound(c))
+// CompoundsIn yields copies of the compounds of the given families
+// ("alkali halide"), in table order, one at a time: the other rows are not
+// copied, nor is a slice of them all made.
+func (db *DB) CompoundsIn(families ...string) iter.Seq[Compound] {
+	return func(yield func(Compound) bool) {
+		for i := range db.compounds {
+			if slices.Contains(families, db.compounds[i].Family) && !yield(copyCompound(db.compounds[i])) {
+				return
+			}
 		}
 	}
-	return out
 }
 
 // Source returns the citation with this key.

@@ -146,7 +146,7 @@ func (a *Analyst) computeSpread(model string) (Spread, error) {
 	}
 	s := Spread{Model: model}
 	var sum, sumSq float64
-	for _, comp := range a.db.CompoundsIn(SpreadFamilies()...) {
+	for comp := range a.db.CompoundsIn(SpreadFamilies()...) {
 		if !comp.Formation.Known() {
 			continue
 		}
