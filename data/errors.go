@@ -33,9 +33,9 @@ func (e *NotFoundError) Error() string {
 }
 
 // FormulaError reports a formula that could not be parsed. Column is the
-// offset of the offending character, counted in characters (not bytes) from
-// 0, so that Input's character at Column is the culprit ("Na2Q": column 3 is
-// "Q"); -1 means the error concerns the whole input.
+// position of the offending character, counted in characters (not bytes)
+// from 1 like every column the program reports ("Na2Q": column 4 is "Q");
+// 0 means the error concerns the whole input.
 type FormulaError struct {
 	Input  string
 	Column int
@@ -43,7 +43,7 @@ type FormulaError struct {
 }
 
 func (e *FormulaError) Error() string {
-	if e.Column >= 0 {
+	if e.Column > 0 {
 		return fmt.Sprintf("ParseFormula(%q): %s at column %d", e.Input, e.Msg, e.Column)
 	}
 	return fmt.Sprintf("ParseFormula(%q): %s", e.Input, e.Msg)

@@ -194,9 +194,9 @@ type formulaParser struct {
 }
 
 // fail reports an error at the 1-based character position col (0: the
-// whole input); FormulaError.Column holds it as a 0-based offset.
+// whole input).
 func (p *formulaParser) fail(col int, msg string) error {
-	return &FormulaError{Input: p.input, Column: col - 1, Msg: msg}
+	return &FormulaError{Input: p.input, Column: col, Msg: msg}
 }
 
 func (p *formulaParser) peek() rune {
@@ -423,7 +423,7 @@ func (p *formulaParser) bracket(depth int) (string, map[string]int, error) {
 			}
 			return text.String(), atoms, nil
 		case c == ')' || c == ']' || c == '}':
-			return "", nil, p.fail(col, strconv.QuoteRune(c)+" does not close "+strconv.QuoteRune(open)+" opened at column "+strconv.Itoa(openCol-1))
+			return "", nil, p.fail(col, strconv.QuoteRune(c)+" does not close "+strconv.QuoteRune(open)+" opened at column "+strconv.Itoa(openCol))
 		case isUpper(c):
 			sym, err := p.symbol()
 			if err != nil {

@@ -69,26 +69,28 @@ func TestParseFormula(t *testing.T) {
 }
 
 func TestParseFormulaErrors(t *testing.T) {
+	// Columns count characters from 1, as everywhere in the program; 0 is
+	// the whole input. The positions are read off the inputs themselves.
 	cases := []struct {
 		in     string
 		column int
 		msg    string
 	}{
-		{"Na2Q", 3, `unknown element "Q"`},
-		{"Xy2", 0, `unknown element "Xy"`},
-		{"CuSO4·5H2O", 5, "hydrates are not supported"},
-		{"CuSO4.5H2O", 5, "hydrates are not supported"},
-		{"Mg(OH2", 2, "unclosed '('"},
-		{"Mg(OH]2", 5, "does not close"},
-		{"MgOH)2", 4, "unmatched ')'"},
-		{"nacl", 0, "capital letter"},
-		{"2NaCl", 0, "cannot start with a number"},
-		{"Na0Cl", 2, "count 0"},
-		{"", -1, "empty formula"},
-		{"Na+Cl", 3, "unexpected character"},
-		{"()", 0, "empty brackets"},
-		{"Na$", 2, "unexpected character"},
-		{"SO4^2", 3, "without a sign"},
+		{"Na2Q", 4, `unknown element "Q"`},
+		{"Xy2", 1, `unknown element "Xy"`},
+		{"CuSO4·5H2O", 6, "hydrates are not supported"},
+		{"CuSO4.5H2O", 6, "hydrates are not supported"},
+		{"Mg(OH2", 3, "unclosed '('"},
+		{"Mg(OH]2", 6, "does not close '(' opened at column 3"},
+		{"MgOH)2", 5, "unmatched ')'"},
+		{"nacl", 1, "capital letter"},
+		{"2NaCl", 1, "cannot start with a number"},
+		{"Na0Cl", 3, "count 0"},
+		{"", 0, "empty formula"},
+		{"Na+Cl", 4, "unexpected character"},
+		{"()", 1, "empty brackets"},
+		{"Na$", 3, "unexpected character"},
+		{"SO4^2", 4, "without a sign"},
 	}
 	for _, c := range cases {
 		_, err := ParseFormula(c.in)
@@ -102,7 +104,7 @@ func TestParseFormulaErrors(t *testing.T) {
 		}
 	}
 	_, err := ParseFormula("Na2Q")
-	if got, want := err.Error(), `ParseFormula("Na2Q"): unknown element "Q" at column 3`; got != want {
+	if got, want := err.Error(), `ParseFormula("Na2Q"): unknown element "Q" at column 4`; got != want {
 		t.Errorf("error text %q, want %q", got, want)
 	}
 }
@@ -121,7 +123,7 @@ func FuzzParseFormula(f *testing.F) {
 			if !errors.As(err, &fe) {
 				t.Fatalf("error of type %T", err)
 			}
-			if fe.Column >= len([]rune(s)) {
+			if fe.Column < 0 || fe.Column > len([]rune(s)) {
 				t.Fatalf("column %d beyond input %q", fe.Column, s)
 			}
 			return

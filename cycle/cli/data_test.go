@@ -115,7 +115,7 @@ func TestDataUnknownQuery(t *testing.T) {
 		want string
 	}{
 		{[]string{"Nq"}, "did you mean"},
-		{[]string{"Na2Q"}, `unknown element "Q" at column 3`},
+		{[]string{"Na2Q"}, `unknown element "Q" at column 4`}, // "Q" is the fourth character
 		{[]string{"Fe9+"}, "Fe3+"},
 		{[]string{}, "give one QUERY"},
 		{[]string{"--kind", "mineral", "NaCl"}, "--kind"},

@@ -423,7 +423,7 @@ func Build(name string, params map[string]float64) (*Crystal, error) {
 	c := &Crystal{Name: name, Lattice: lat, Sites: sites, FormulaUnits: p.formulaUnits}
 	if d, i, j := c.ShortestSeparation(); d < MinimumSeparation {
 		return nil, fmt.Errorf("prototype %s: parameters %s put sites %d (%s) and %d (%s) %.3g Å apart (minimum %.2g Å): %w",
-			name, formatParams(p, values), i, sites[i].Species, j, sites[j].Species, d, MinimumSeparation, ErrBadParameter)
+			name, formatParams(p, values), i+1, sites[i].Species, j+1, sites[j].Species, d, MinimumSeparation, ErrBadParameter)
 	}
 	return c, nil
 }

@@ -143,7 +143,9 @@ func TestBuildErrors(t *testing.T) {
 		{"wurtzite", map[string]float64{"u": 1.2}, "u"},
 		{"rutile", map[string]float64{"x": 0}, "x"},
 		{"corundum", map[string]float64{"z_cation": 0.7}, "z_cation"},
-		{"rock-salt", map[string]float64{"a": 0.5}, "apart"}, // ions 0.25 Å apart
+		// Ions 0.25 Å apart: the first M (0,0,0) and the first X (½,0,0),
+		// numbered from 1 as the madelung command's site table numbers them.
+		{"rock-salt", map[string]float64{"a": 0.5}, "sites 1 (M) and 5 (X) 0.25 Å apart"},
 	}
 	for _, tt := range tests {
 		_, err := Build(tt.name, tt.params)

@@ -1,0 +1,27 @@
+package data_test
+
+import (
+	"fmt"
+
+	"enthalpath/data"
+)
+
+func ExampleParseFormula() {
+	f, err := data.ParseFormula("Ca3(PO4)2")
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for _, g := range f.Groups {
+		fmt.Println(g.Text, g.Count, g.Bracketed)
+	}
+	fmt.Println(f.Hill(), f.Atoms())
+
+	_, err = data.ParseFormula("CuSO4·5H2O")
+	fmt.Println(err)
+	// Output:
+	// Ca 3 false
+	// PO4 2 true
+	// Ca3O8P2 13
+	// ParseFormula("CuSO4·5H2O"): hydrates are not supported: enter the anhydrous salt and treat the water separately at column 6
+}
