@@ -2,6 +2,7 @@ package data
 
 import (
 	"fmt"
+	"strconv"
 	"strings"
 )
 
@@ -42,11 +43,20 @@ type FormulaError struct {
 	Msg    string
 }
 
+// Error reads like `formula "Na2Q": unknown element "Q" at column 4`: it
+// names what the user typed, not the function that read it.
 func (e *FormulaError) Error() string {
+	return "formula " + strconv.Quote(e.Input) + ": " + e.Detail()
+}
+
+// Detail is the message without the input: what is wrong and where
+// (`unknown element "Q" at column 4`), for a caller that names the input
+// itself.
+func (e *FormulaError) Detail() string {
 	if e.Column > 0 {
-		return fmt.Sprintf("ParseFormula(%q): %s at column %d", e.Input, e.Msg, e.Column)
+		return e.Msg + " at column " + strconv.Itoa(e.Column)
 	}
-	return fmt.Sprintf("ParseFormula(%q): %s", e.Input, e.Msg)
+	return e.Msg
 }
 
 // TableError reports a bad row in a data table or overlay file: the file, the

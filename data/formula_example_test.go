@@ -23,5 +23,5 @@ func ExampleParseFormula() {
 	// Ca 3 false
 	// PO4 2 true
 	// Ca3O8P2 13
-	// ParseFormula("CuSO4·5H2O"): hydrates are not supported: enter the anhydrous salt and treat the water separately at column 6
+	// formula "CuSO4·5H2O": hydrates are not supported: enter the anhydrous salt and treat the water separately at column 6
 }

@@ -103,8 +103,10 @@ func TestParseFormulaErrors(t *testing.T) {
 			t.Errorf("ParseFormula(%q) = %v; want column %d and %q", c.in, err, c.column, c.msg)
 		}
 	}
+	// The message names what the user typed, not a Go function (no
+	// "ParseFormula(" in text a user reads).
 	_, err := ParseFormula("Na2Q")
-	if got, want := err.Error(), `ParseFormula("Na2Q"): unknown element "Q" at column 4`; got != want {
+	if got, want := err.Error(), `formula "Na2Q": unknown element "Q" at column 4`; got != want {
 		t.Errorf("error text %q, want %q", got, want)
 	}
 }

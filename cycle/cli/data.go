@@ -126,8 +126,9 @@ func dataFindAny(db *data.DB, q string) (any, error) {
 		}
 	}
 	msg := fmt.Sprintf("nothing called %q in the data", q)
-	if _, ferr := data.ParseFormula(t); ferr != nil && !endsInCharge && len(t) > 2 {
-		msg += " (" + ferr.Error() + ")"
+	var fe *data.FormulaError
+	if _, ferr := data.ParseFormula(t); errors.As(ferr, &fe) && !endsInCharge && len(t) > 2 {
+		msg += " (read as a formula: " + fe.Detail() + ")"
 	}
 	if len(sugg) > 0 {
 		msg += "; did you mean " + strings.Join(sugg, ", ") + "?"

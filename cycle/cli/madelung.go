@@ -106,6 +106,9 @@ func (j *madelungJob) crystal() (*crystal.Crystal, error) {
 		}
 		var err error
 		c, err = cif.ParseFile(j.target, cif.Options{Charges: j.charges})
+		if errors.Is(err, cif.ErrMissingCharge) || errors.Is(err, crystal.ErrNotNeutral) {
+			return nil, Usagef("%v (--charges LABEL=Z,...)", err)
+		}
 		if err != nil {
 			return nil, &UsageError{err}
 		}

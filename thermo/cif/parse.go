@@ -467,7 +467,7 @@ func (rd *reader) sites(opt Options) ([]asymSite, error) {
 		}
 		if !s.known {
 			return nil, rd.errf(s.line, "_atom_type_oxidation_number", ErrMissingCharge,
-				"no charge for site %s (type %s): give it in an _atom_type_symbol/_atom_type_oxidation_number loop, as a charged type symbol such as %s2+, or as a charge by label, type symbol or element (Options.Charges; on the command line --charges %s=2,...)", s.label, s.typ, s.element, s.element)
+				"no charge for site %s (type %s): give it in an _atom_type_symbol/_atom_type_oxidation_number loop, as a charged type symbol such as %s2+, or as a charge given by site label, type symbol or element", s.label, s.typ, s.element)
 		}
 		out = append(out, s)
 	}
@@ -668,7 +668,7 @@ func (rd *reader) neutral(c *crystal.Crystal) error {
 		line = rd.b.inLoop[tag].lineOr(rd.b.tagLine[tag])
 	}
 	return rd.errf(line, tag, ErrNotNeutral,
-		"the cell is not neutral: its charges sum to %+.6g e (%s); correct the oxidation numbers, or give charges by label, type symbol or element (Options.Charges; on the command line --charges LABEL=Z,...)", q, strings.Join(parts, ", "))
+		"the cell is not neutral: its charges sum to %+.6g e (%s); correct the oxidation numbers, or give charges by site label, type symbol or element", q, strings.Join(parts, ", "))
 }
 
 // formulaUnits returns Z from _cell_formula_units_Z, or else the greatest

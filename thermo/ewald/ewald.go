@@ -90,28 +90,28 @@ type Result struct {
 // *AccuracyError.
 func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 	if c == nil {
-		return Result{}, fmt.Errorf("ewald.Sum: nil crystal")
+		return Result{}, fmt.Errorf("Ewald sum: no crystal given")
 	}
 	if err := c.Validate(); err != nil {
-		return Result{}, fmt.Errorf("ewald.Sum: %w", err)
+		return Result{}, fmt.Errorf("Ewald sum: %w", err)
 	}
 	hasCation, hasAnion := false, false
 	for i, s := range c.Sites {
 		if math.IsNaN(s.Charge) || math.IsInf(s.Charge, 0) {
-			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: site %d (%s) has charge %g", c.Name, i+1, s.Species, s.Charge)
+			return Result{}, fmt.Errorf("Ewald sum of %q: site %d (%s) has charge %g", c.Name, i+1, s.Species, s.Charge)
 		}
 		if bad := !isFinite(s.Frac[0]) || !isFinite(s.Frac[1]) || !isFinite(s.Frac[2]); bad {
-			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: site %d (%s) has position %v", c.Name, i+1, s.Species, s.Frac)
+			return Result{}, fmt.Errorf("Ewald sum of %q: site %d (%s) has position %v", c.Name, i+1, s.Species, s.Frac)
 		}
 		hasCation = hasCation || s.Charge > 0
 		hasAnion = hasAnion || s.Charge < 0
 	}
 	if !hasCation || !hasAnion {
-		return Result{}, fmt.Errorf("ewald.Sum: crystal %q: %w", c.Name, ErrNoIons)
+		return Result{}, fmt.Errorf("Ewald sum of %q: %w", c.Name, ErrNoIons)
 	}
 	for k, a := range c.Lattice {
 		if !isFinite(a[0]) || !isFinite(a[1]) || !isFinite(a[2]) {
-			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: lattice vector %d is %v", c.Name, k+1, a)
+			return Result{}, fmt.Errorf("Ewald sum of %q: lattice vector %d is %v", c.Name, k+1, a)
 		}
 	}
 	eps := opt.Accuracy
@@ -119,11 +119,11 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 		eps = DefaultAccuracy
 	}
 	if math.IsNaN(eps) || eps < 0 || eps > CoarsestAccuracy {
-		return Result{}, fmt.Errorf("ewald.Sum: accuracy %g must lie between 0 and %g (0 means %g): %w",
+		return Result{}, fmt.Errorf("relative accuracy %g must be greater than 0 and at most %g (default %g): %w",
 			opt.Accuracy, CoarsestAccuracy, DefaultAccuracy, ErrBadOptions)
 	}
 	if math.IsNaN(opt.alpha) || opt.alpha < 0 || math.IsInf(opt.alpha, 0) {
-		return Result{}, fmt.Errorf("ewald.Sum: forced splitting parameter %g: %w", opt.alpha, ErrBadOptions)
+		return Result{}, fmt.Errorf("Ewald sum: forced splitting parameter α = %g: %w", opt.alpha, ErrBadOptions)
 	}
 	target := math.Max(eps, FinestAccuracy)
 
@@ -147,12 +147,12 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 	for attempt := 0; ; attempt++ {
 		rc, kc := p/alpha, 2*alpha*p
 		if w := s.work(alpha, rc, kc); w > maxTerms {
-			return Result{}, fmt.Errorf("ewald.Sum: crystal %q with %d sites needs about %.3g terms (limit %.3g): %w",
+			return Result{}, fmt.Errorf("Ewald sum of %q with %d sites needs about %.3g terms (limit %.3g): %w",
 				c.Name, len(c.Sites), w, float64(maxTerms), ErrTooLarge)
 		}
 		parts = full.expand(s, s.evaluate(alpha, rc, kc))
 		if i, j := parts.overlap[0], parts.overlap[1]; i >= 0 {
-			return Result{}, fmt.Errorf("ewald.Sum: crystal %q: sites %d (%s) and %d (%s) sit at the same position (closer than %g Å)",
+			return Result{}, fmt.Errorf("Ewald sum of %q: sites %d (%s) and %d (%s) sit at the same position (closer than %g Å)",
 				c.Name, i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, coincident)
 		}
 		// Relative truncation estimate of the cell actually summed (the

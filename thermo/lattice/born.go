@@ -152,6 +152,10 @@ var paulingExponents = map[string]float64{
 func PaulingExponent(config string) (float64, error) {
 	key := strings.NewReplacer("[", "", "]", "", " ", "", "\t", "").Replace(strings.ToLower(config))
 	n, ok := paulingExponents[key]
+	if !ok && key == "" {
+		return 0, &ParamError{Func: "PaulingExponent", Param: "config", Err: ErrUnknownName,
+			Hint: `none given (an ion without a noble-gas or d10 core has no Pauling exponent); give n yourself`}
+	}
 	if !ok {
 		return 0, &ParamError{Func: "PaulingExponent", Param: "config", Value: fmt.Sprintf("%q", config), Err: ErrUnknownName,
 			Hint: `use He, Ne, Ar, Kr, Xe, [Ar]3d10, [Kr]4d10 or [Xe]4f14 5d10, or give n yourself`}

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"strconv"
+	"strings"
 )
 
 // Sentinel errors. Every error a function of this package returns wraps one
@@ -41,12 +42,103 @@ type ParamError struct {
 	Err error
 }
 
-// Error reads like `BornMayer: rho = 3.1: must be less than r0 = 2.814 Å`.
+// Error reads like `Born–Mayer range ρ = 3.1: must be less than r0 = 2.814
+// Å`: the quantity in words, its value and what to do. Func and Param, the
+// Go names, stay in the fields for callers; a user reading the message
+// gave a quantity, not a function argument.
 func (e *ParamError) Error() string {
+	what := paramWords(e.Func, e.Param)
 	if e.Value == "" {
-		return fmt.Sprintf("%s: %s: %s", e.Func, e.Param, e.Hint)
+		return fmt.Sprintf("%s: %s", what, e.Hint)
 	}
-	return fmt.Sprintf("%s: %s = %s: %s", e.Func, e.Param, e.Value, e.Hint)
+	return fmt.Sprintf("%s = %s: %s", what, e.Value, e.Hint)
+}
+
+// paramWords names a parameter as a user knows it: "rho" is the Born–Mayer
+// range ρ, "ions[1].Charge" the charge of the second ion kind, "configs[0]"
+// the electron configuration of the first ion. A name without an entry is
+// returned as it is.
+func paramWords(fn, param string) string {
+	if param == "known" { // the other ion(s) of an inverse problem
+		switch fn {
+		case "KapustinskiiRadius":
+			return "radius of the other ion"
+		case "DerivedIonVolume":
+			return "summed volume of the other ions"
+		}
+	}
+	if base, rest, ok := strings.Cut(param, "["); ok {
+		idx, field, _ := strings.Cut(rest, "]")
+		i, err := strconv.Atoi(idx)
+		if err != nil {
+			return param
+		}
+		nth := ordinal(i + 1)
+		switch base + field {
+		case "configs":
+			return "electron configuration of the " + nth + " ion"
+		case "ions.Count":
+			return "count of the " + nth + " ion kind"
+		case "ions.Charge":
+			return "charge of the " + nth + " ion kind"
+		case "ions.Shape":
+			return "shape of the " + nth + " ion kind"
+		}
+		return param
+	}
+	if w, ok := paramNames[param]; ok {
+		return w
+	}
+	return param
+}
+
+var paramNames = map[string]string{
+	"Madelung":      "Madelung constant",
+	"ZCation":       "cation charge",
+	"zCation":       "cation charge",
+	"ZAnion":        "anion charge",
+	"zAnion":        "anion charge",
+	"R0":            "cation–anion distance r₀",
+	"n":             "Born exponent n",
+	"rho":           "Born–Mayer range ρ",
+	"u":             "lattice energy U",
+	"h":             "lattice enthalpy ΔH_L",
+	"t":             "temperature",
+	"config":        "electron configuration",
+	"configs":       "electron configurations",
+	"shape":         "ion shape",
+	"ions":          "ions of the formula unit",
+	"convention":    "lattice convention",
+	"result":        "result",
+	"nu":            "number of ions per formula unit ν",
+	"rCation":       "cation radius",
+	"rAnion":        "anion radius",
+	"K":             "Kapustinskii constant K",
+	"D":             "Kapustinskii constant d",
+	"known":         "known quantity",
+	"vm":            "molar volume V_m",
+	"opt.Form":      "volume-based form",
+	"opt.Fit.Alpha": "fit constant α",
+	"opt.Fit.Beta":  "fit constant β",
+	"molarMass":     "molar mass",
+	"density":       "density",
+	"cellVolume":    "cell volume",
+	"z":             "formula units per cell Z",
+	"unknown":       "ion kind to solve for",
+}
+
+func ordinal(n int) string {
+	switch n {
+	case 1:
+		return "first"
+	case 2:
+		return "second"
+	case 3:
+		return "third"
+	case 4:
+		return "fourth"
+	}
+	return "#" + strconv.Itoa(n)
 }
 
 // Unwrap returns the sentinel.

@@ -21,7 +21,7 @@ func ExampleBornMayer() {
 	fmt.Println(err)
 	// Output:
 	// U(NaCl) = -757.0 kJ/mol
-	// BornMayer: rho = 3: must be less than r0 = 2.814 Å
+	// Born–Mayer range ρ = 3: must be less than r0 = 2.814 Å
 }
 
 // Kapustinskii for MgO with Shannon's six-coordinate radii, and the radius

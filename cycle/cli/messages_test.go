@@ -1,0 +1,47 @@
+package cli
+
+import (
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// TestMessagesNameNoGoCode: what a user reads names what they typed and
+// what to do, never a Go function, parameter or field of the code that
+// refused it (QA report: "ParseFormula(…)", "ewald.Sum:", "BornExponent:
+// configs[0]", "Options.Charges").
+func TestMessagesNameNoGoCode(t *testing.T) {
+	// A rock-salt cell whose sites have no charges.
+	unchargedCIF := filepath.Join(t.TempDir(), "uncharged.cif")
+	os.WriteFile(unchargedCIF, []byte("data_x\n_cell_length_a 5.64\n_cell_length_b 5.64\n_cell_length_c 5.64\n"+
+		"_cell_angle_alpha 90\n_cell_angle_beta 90\n_cell_angle_gamma 90\n"+
+		"loop_\n_atom_site_label\n_atom_site_type_symbol\n_atom_site_fract_x\n_atom_site_fract_y\n_atom_site_fract_z\n"+
+		"Na1 Na 0 0 0\nCl1 Cl 0.5 0.5 0.5\n"), 0o644)
+	cases := []struct {
+		name   string
+		args   []string
+		want   string   // what the message must say
+		banned []string // Go names it must not show
+	}{
+		{"data", []string{"xyz"}, "capital letter", []string{"ParseFormula"}},
+		{"madelung", []string{"rock-salt", "--accuracy", "0.5"}, "--accuracy 0.5", []string{"ewald.Sum", "0 means"}},
+		{"estimate", []string{"MgCl", "--model", "born-lande"}, "electron configuration", []string{"BornExponent:", "configs["}},
+		{"madelung", []string{unchargedCIF}, "--charges", []string{"Options.Charges"}},
+	}
+	for _, c := range cases {
+		_, errs, code := run(t, c.name, c.args...)
+		if code == ExitOK {
+			t.Errorf("%s %v: exit 0, want an error", c.name, c.args)
+			continue
+		}
+		if !strings.Contains(errs, c.want) {
+			t.Errorf("%s %v: stderr %q lacks %q", c.name, c.args, errs, c.want)
+		}
+		for _, b := range c.banned {
+			if strings.Contains(errs, b) {
+				t.Errorf("%s %v: stderr %q shows the Go name %q", c.name, c.args, errs, b)
+			}
+		}
+	}
+}
