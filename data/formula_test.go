@@ -141,3 +141,30 @@ func FuzzParseFormula(f *testing.F) {
 		}
 	})
 }
+
+// TestErrorsQuoteLongInputShortened: a message quotes at most MaxQuoted
+// characters of what was typed, then "…" and the length (QA report: a
+// 100 kB formula came back whole on stderr).
+func TestErrorsQuoteLongInputShortened(t *testing.T) {
+	long := strings.Repeat("Na", 50000) + "q"
+	_, err := ParseFormula(long)
+	if err == nil {
+		t.Fatal("no error")
+	}
+	msg := err.Error()
+	want := `formula "` + strings.Repeat("Na", 20) + `"… (100001 characters): `
+	if !strings.HasPrefix(msg, want) || len(msg) > 200 {
+		t.Errorf("message of %d bytes %.200q; want it to start %q and stay short", len(msg), msg, want)
+	}
+	// Counted in characters, not bytes: 41 "é" are too long, 40 are not.
+	if got := QuoteInput(strings.Repeat("é", 40)); got != strconv.Quote(strings.Repeat("é", 40)) {
+		t.Errorf("40 characters shortened: %s", got)
+	}
+	if got, want := QuoteInput(strings.Repeat("é", 41)), strconv.Quote(strings.Repeat("é", 40))+"… (41 characters)"; got != want {
+		t.Errorf("QuoteInput(41 × é) = %s, want %s", got, want)
+	}
+	nf := &NotFoundError{Kind: "compound", Query: long}
+	if len(nf.Error()) > 200 {
+		t.Errorf("NotFoundError quotes %d bytes", len(nf.Error()))
+	}
+}

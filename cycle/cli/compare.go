@@ -128,7 +128,10 @@ func runCompare(env Env, args []string) error {
 	// cannot close is a result, reported in its row.
 	for _, r := range rows {
 		if errors.Is(r.Err, cycle.ErrUnknownCompound) || errors.Is(r.Err, cycle.ErrChargeBalance) {
-			return &UsageError{fmt.Errorf("%s: %w", r.Formula, r.Err)}
+			if strings.HasPrefix(r.Err.Error(), r.Formula) { // it names the formula already
+				return &UsageError{r.Err}
+			}
+			return &UsageError{fmt.Errorf("%s: %w", data.ShortInput(r.Formula), r.Err)}
 		}
 	}
 	return nil
@@ -165,7 +168,7 @@ func writeCompareText(w io.Writer, rows []CompareRow, u thermoUnit, conv string)
 	if len(failed) > 0 {
 		fmt.Fprintf(w, "\n%d compound(s) whose cycle does not close:\n", len(failed))
 		for _, r := range failed {
-			fmt.Fprintf(w, "  %-10s %s\n", r.Formula, wrapText(r.Err.Error(), 100, strings.Repeat(" ", 13)))
+			fmt.Fprintf(w, "  %-10s %s\n", data.ShortInput(r.Formula), wrapText(r.Err.Error(), 100, strings.Repeat(" ", 13)))
 		}
 	}
 }

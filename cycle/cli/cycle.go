@@ -10,6 +10,7 @@ import (
 	"strings"
 
 	"enthalpath/cycle"
+	"enthalpath/data"
 	"enthalpath/thermo"
 	"enthalpath/thermo/cif"
 	"enthalpath/thermo/crystal"
@@ -212,7 +213,7 @@ func runCycle(env Env, args []string) error {
 	case open == "" && len(pos) == 0:
 		return Usagef("no formula: usage: enthalpath %s", cycleSynopsis)
 	case len(pos) > 1:
-		return Usagef("one formula at a time (got %s); use compare for several", strings.Join(pos, " "))
+		return Usagef("one formula at a time (got %s); use compare for several", data.ShortInput(strings.Join(pos, " ")))
 	}
 	db, err := loadData(env)
 	if err != nil {

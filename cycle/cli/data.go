@@ -107,8 +107,8 @@ func dataFindAny(db *data.DB, q string) (any, error) {
 				for _, g := range f.Groups {
 					parts = append(parts, g.Text)
 				}
-				return nil, Usagef("%q reads as a compound of %s, which is not in the data; for the element %s (%s) ask for %q",
-					q, strings.Join(parts, " and "), e.Symbol, e.Name, e.Symbol)
+				return nil, Usagef("%s reads as a compound of %s, which is not in the data; for the element %s (%s) ask for %q",
+					data.QuoteInput(q), strings.Join(parts, " and "), e.Symbol, e.Name, e.Symbol)
 			}
 			return e, nil
 		}
@@ -125,7 +125,7 @@ func dataFindAny(db *data.DB, q string) (any, error) {
 			}
 		}
 	}
-	msg := fmt.Sprintf("nothing called %q in the data", q)
+	msg := "nothing called " + data.QuoteInput(q) + " in the data"
 	var fe *data.FormulaError
 	if _, ferr := data.ParseFormula(t); errors.As(ferr, &fe) && !endsInCharge && len(t) > 2 {
 		msg += " (read as a formula: " + fe.Detail() + ")"

@@ -45,3 +45,27 @@ func TestMessagesNameNoGoCode(t *testing.T) {
 		}
 	}
 }
+
+// TestLongInputShortenedInMessages: a formula or query quoted in a message
+// of this package is cut to its first characters, "…" and its length (QA
+// report: a 100 kB formula was echoed whole on stderr).
+func TestLongInputShortenedInMessages(t *testing.T) {
+	long := strings.Repeat("Na", 50000) + "q"
+	cases := []struct {
+		name string
+		args []string
+	}{
+		{"data", []string{long}},
+		{"cycle", []string{"NaCl", long}}, // one formula at a time
+		{"radius", []string{"--ion", "Na+", "--all-salts", long}},
+	}
+	for _, c := range cases {
+		_, errs, code := run(t, c.name, c.args...)
+		if code != ExitUsage {
+			t.Errorf("%s: exit %d, want %d: %.300s", c.name, code, ExitUsage, errs)
+		}
+		if len(errs) > 1000 || !strings.Contains(errs, "characters)") {
+			t.Errorf("%s: %d bytes on stderr, want the input shortened: %.300s", c.name, len(errs), errs)
+		}
+	}
+}
