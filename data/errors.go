@@ -40,7 +40,9 @@ func (e *NotFoundError) Error() string {
 type FormulaError struct {
 	Input  string
 	Column int
-	Msg    string
+	// Msg says what is wrong; Hint, when set, what to type instead.
+	Msg  string
+	Hint string
 }
 
 // Error reads like `formula "Na2Q": unknown element "Q" at column 4`: it
@@ -53,10 +55,14 @@ func (e *FormulaError) Error() string {
 // (`unknown element "Q" at column 4`), for a caller that names the input
 // itself.
 func (e *FormulaError) Detail() string {
+	msg := e.Msg
 	if e.Column > 0 {
-		return e.Msg + " at column " + strconv.Itoa(e.Column)
+		msg += " at column " + strconv.Itoa(e.Column)
 	}
-	return e.Msg
+	if e.Hint != "" {
+		msg += "; " + e.Hint
+	}
+	return msg
 }
 
 // MaxQuoted is the number of characters of an input that a message quotes;

@@ -199,6 +199,11 @@ func (p *formulaParser) fail(col int, msg string) error {
 	return &FormulaError{Input: p.input, Column: col, Msg: msg}
 }
 
+// failHint is fail with advice on what to type instead.
+func (p *formulaParser) failHint(col int, msg, hint string) error {
+	return &FormulaError{Input: p.input, Column: col, Msg: msg, Hint: hint}
+}
+
 func (p *formulaParser) peek() rune {
 	if p.pos < len(p.in) {
 		return normalizeRune(p.in[p.pos])
@@ -232,6 +237,64 @@ func superscriptToASCII(r rune) rune {
 		return '-'
 	}
 	return r
+}
+
+// isJoiner reports a character written between the parts of a hydrate or
+// an adduct: "CuSO4·5H2O", "CuSO4.5H2O", "NaCl*NH3" (middle dots, bullets,
+// full stops, the asterisk, their full-width forms).
+func isJoiner(r rune) bool { return strings.ContainsRune("·.*•∙⋅．・＊", r) }
+
+// adduct reports the joiner at the 1-based column col. It names the salt
+// before the joiner only when that part is itself a formula, so that the
+// advice leads somewhere.
+func (p *formulaParser) adduct(col int) error {
+	hint := "enter the salt alone"
+	if head := string(p.in[:col-1]); strings.TrimSpace(head) != "" {
+		if f, err := ParseFormula(head); err == nil {
+			hint += " (" + f.String() + ")"
+		}
+	}
+	return p.failHint(col, "hydrates and adducts are not supported: "+strconv.QuoteRune(p.in[col-1])+" joins two parts",
+		hint+" and treat the water or the other part as a step of its own")
+}
+
+// Full-width forms U+FF01…U+FF5E of the printable ASCII characters (an East
+// Asian keyboard's "Ｃ", "２") lie at a fixed offset from them.
+const (
+	fullWidthFirst  = 0xFF01
+	fullWidthLast   = 0xFF5E
+	fullWidthOffset = 0xFF01 - '!'
+)
+
+func isFullWidth(r rune) bool { return r >= fullWidthFirst && r <= fullWidthLast }
+
+// unexpected reports the character at the 1-based column col, whole (a
+// rune, not a byte), with its code point when it is not ASCII; where says
+// where it was met (" in the charge"). A full-width letter or digit is
+// answered with its ASCII form, and with the whole formula typed in ASCII
+// when that reads.
+func (p *formulaParser) unexpected(col int, where string) error {
+	r := p.in[col-1]
+	if isFullWidth(r) {
+		hint := "type the ASCII " + strconv.QuoteRune(r-fullWidthOffset)
+		ascii := make([]rune, len(p.in))
+		for i, c := range p.in {
+			if isFullWidth(c) {
+				c -= fullWidthOffset
+			}
+			ascii[i] = c
+		}
+		if f, err := ParseFormula(string(ascii)); err == nil {
+			hint += ": " + f.String()
+		}
+		return p.failHint(col, "full-width character "+strconv.QuoteRune(r)+where, hint)
+	}
+	msg := "unexpected character " + strconv.QuoteRune(r)
+	if r > 0x7F {
+		hex := strings.ToUpper(strconv.FormatInt(int64(r), 16))
+		msg += " (U+" + strings.Repeat("0", max(0, 4-len(hex))) + hex + ")"
+	}
+	return p.fail(col, msg+where)
 }
 
 func isUpper(r rune) bool { return r >= 'A' && r <= 'Z' }
@@ -297,14 +360,14 @@ func (p *formulaParser) parse() (Formula, error) {
 				return f, p.fail(col, "a formula cannot start with a number (write \"NaCl\", not \"2NaCl\")")
 			}
 			return f, p.fail(col, "a count must follow an element or a closing bracket")
-		case c == '·' || c == '.' || c == '*' || c == '•' || c == '∙' || c == '⋅':
-			return f, p.fail(col, "hydrates are not supported: enter the anhydrous salt and treat the water separately")
+		case isJoiner(c):
+			return f, p.adduct(col)
 		case c == ')' || c == ']' || c == '}':
 			return f, p.fail(col, "unmatched "+strconv.QuoteRune(c))
 		case isLower(c):
 			return f, p.fail(col, "element symbols start with a capital letter, found "+strconv.QuoteRune(c))
 		default:
-			return f, p.fail(col, "unexpected character "+strconv.QuoteRune(p.in[p.pos]))
+			return f, p.unexpected(col, "")
 		}
 	}
 	if len(f.Groups) == 0 {
@@ -456,8 +519,8 @@ func (p *formulaParser) bracket(depth int) (string, map[string]int, error) {
 			if n != 1 {
 				text.WriteString(strconv.Itoa(n))
 			}
-		case c == '·' || c == '.' || c == '*' || c == '•' || c == '∙' || c == '⋅':
-			return "", nil, p.fail(col, "hydrates are not supported: enter the anhydrous salt and treat the water separately")
+		case isJoiner(c):
+			return "", nil, p.adduct(col)
 		case c == '+' || c == '-' || c == '^':
 			return "", nil, p.fail(col, "a charge goes at the end of the formula, outside brackets")
 		case isDigit(c):
@@ -465,7 +528,7 @@ func (p *formulaParser) bracket(depth int) (string, map[string]int, error) {
 		case isLower(c):
 			return "", nil, p.fail(col, "element symbols start with a capital letter, found "+strconv.QuoteRune(c))
 		default:
-			return "", nil, p.fail(col, "unexpected character "+strconv.QuoteRune(p.in[p.pos]))
+			return "", nil, p.unexpected(col, "")
 		}
 	}
 }
@@ -523,10 +586,10 @@ func (p *formulaParser) charge(f *Formula, lastCountDigits bool) (int, error) {
 				return 0, p.fail(p.pos+1, "nothing may follow the charge")
 			}
 			continue
-		case r == '·' || r == '.' || r == '*' || r == '•' || r == '∙' || r == '⋅':
-			return 0, p.fail(p.pos+1, "hydrates are not supported: enter the anhydrous salt and treat the water separately")
+		case isJoiner(r):
+			return 0, p.adduct(p.pos + 1)
 		default:
-			return 0, p.fail(p.pos+1, "unexpected character "+strconv.QuoteRune(p.in[p.pos])+" in the charge")
+			return 0, p.unexpected(p.pos+1, " in the charge")
 		}
 		p.pos++
 	}

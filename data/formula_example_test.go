@@ -23,5 +23,5 @@ func ExampleParseFormula() {
 	// Ca 3 false
 	// PO4 2 true
 	// Ca3O8P2 13
-	// formula "CuSO4·5H2O": hydrates are not supported: enter the anhydrous salt and treat the water separately at column 6
+	// formula "CuSO4·5H2O": hydrates and adducts are not supported: '·' joins two parts at column 6; enter the salt alone (CuSO4) and treat the water or the other part as a step of its own
 }

@@ -78,8 +78,14 @@ func TestParseFormulaErrors(t *testing.T) {
 	}{
 		{"Na2Q", 4, `unknown element "Q"`},
 		{"Xy2", 1, `unknown element "Xy"`},
-		{"CuSO4·5H2O", 6, "hydrates are not supported"},
-		{"CuSO4.5H2O", 6, "hydrates are not supported"},
+		{"CuSO4·5H2O", 6, "hydrates and adducts are not supported: '·' joins two parts at column 6; enter the salt alone (CuSO4)"},
+		{"CuSO4.5H2O", 6, "hydrates and adducts are not supported: '.' joins two parts at column 6; enter the salt alone (CuSO4)"},
+		{"NaCl·NH3", 5, "enter the salt alone (NaCl)"},
+		{"(Cu·5H2O)SO4", 4, "enter the salt alone and treat"}, // "(Cu" is no formula to suggest
+		// One column per character, however many bytes it takes.
+		{"NaＣl", 3, "full-width character 'Ｃ' at column 3; type the ASCII 'C': NaCl"},
+		{"SO₄²⁻·", 6, "hydrates and adducts"},
+		{"Naé", 3, "unexpected character 'é' (U+00E9)"},
 		{"Mg(OH2", 3, "unclosed '('"},
 		{"Mg(OH]2", 6, "does not close '(' opened at column 3"},
 		{"MgOH)2", 5, "unmatched ')'"},
@@ -99,7 +105,7 @@ func TestParseFormulaErrors(t *testing.T) {
 			t.Errorf("ParseFormula(%q): want *FormulaError, got %v", c.in, err)
 			continue
 		}
-		if fe.Column != c.column || !strings.Contains(fe.Msg, c.msg) || fe.Input != c.in {
+		if fe.Column != c.column || !strings.Contains(fe.Detail(), c.msg) || fe.Input != c.in {
 			t.Errorf("ParseFormula(%q) = %v; want column %d and %q", c.in, err, c.column, c.msg)
 		}
 	}
