@@ -453,7 +453,9 @@ func inputsText(m cycle.ModelResult) string {
 		parts = append(parts, fmt.Sprintf("r₊ = %.3f Å, r₋ = %.3f Å (%s)", in.CationRadius, in.AnionRadius, in.RadiusFrom))
 	}
 	if in.BornExponent > 0 {
-		parts = append(parts, fmt.Sprintf("n = %g (%s)", in.BornExponent, in.BornExponentFrom))
+		// A mean over the ions (25/3 for MgCl₂) is no more exact than
+		// Pauling's integers: three figures.
+		parts = append(parts, fmt.Sprintf("n = %.3g (%s)", in.BornExponent, in.BornExponentFrom))
 	}
 	if in.Rho > 0 {
 		parts = append(parts, fmt.Sprintf("ρ = %g Å", in.Rho))

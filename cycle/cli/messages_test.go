@@ -69,3 +69,18 @@ func TestLongInputShortenedInMessages(t *testing.T) {
 		}
 	}
 }
+
+// TestBornExponentPrintedToThreeFigures: the mean Born exponent of MgCl₂,
+// (7 + 2·9)/3 from Pauling's values for the Ne and Ar cores (Pauling, The
+// Nature of the Chemical Bond, from memory), prints as 8.33, not with the
+// sixteen digits of a float64.
+func TestBornExponentPrintedToThreeFigures(t *testing.T) {
+	out, errs, code := run(t, "cycle", "MgCl2")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	flat := strings.Join(strings.Fields(out), " ")
+	if !strings.Contains(flat, "n = 8.33 (") || strings.Contains(flat, "8.3333") {
+		t.Errorf("model inputs lack \"n = 8.33 (\" or show more digits:\n%s", out)
+	}
+}
