@@ -3,8 +3,10 @@ package cycle
 import (
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strconv"
+	"strings"
 	"sync"
 
 	"enthalpath/thermo/crystal"
@@ -148,4 +150,87 @@ func sumStructure(st Structure, cation, anion Part, accuracy float64) (MadelungV
 	}
 	return MadelungValue{A: r.MadelungConstant, NearestDistance: r.NearestDistance, EnergyKJPerMol: r.EnergyKJPerMol,
 		Volume: cell.Volume(), FormulaUnits: cell.FormulaUnits}, nil
+}
+
+// cellFits checks that a cell read from a file holds the compound's ions:
+// every positive site the cation and every negative site the anion (by
+// element, for a monatomic ion), charges in the ratio of the ions' (the
+// Ewald sum refers A to the nearest pair's charges, so a common scale does
+// not matter), and per formula unit of the cell (Z) as many of each as the
+// compound has. A cell of another compound would give its own Madelung
+// constant, distance and volume to this one. model names the model refused.
+func cellFits(model, name, formula string, cell *crystal.Crystal, cation, anion Part) error {
+	type kind struct {
+		species string
+		charge  float64
+		n       int
+	}
+	var kinds []kind
+	var qPos, qNeg float64
+	nPos, nNeg := 0, 0
+	fits := true
+	for _, s := range cell.Sites {
+		i := slices.IndexFunc(kinds, func(k kind) bool { return k.species == s.Species && k.charge == s.Charge })
+		if i < 0 {
+			kinds = append(kinds, kind{species: s.Species, charge: s.Charge})
+			i = len(kinds) - 1
+		}
+		kinds[i].n++
+		switch {
+		case s.Charge > 0:
+			nPos++
+			if qPos == 0 {
+				qPos = s.Charge
+			}
+			if !sameCharge(s.Charge, qPos) || (!cation.Ion.Polyatomic && s.Species != cation.Ion.Core) {
+				fits = false
+			}
+		case s.Charge < 0:
+			nNeg++
+			if qNeg == 0 {
+				qNeg = s.Charge
+			}
+			if !sameCharge(s.Charge, qNeg) || (!anion.Ion.Polyatomic && s.Species != anion.Ion.Core) {
+				fits = false
+			}
+		default:
+			fits = false // an uncharged site is no ion of the compound
+		}
+	}
+	zc, za := float64(cation.Ion.Charge), float64(anion.Ion.Charge)
+	if fits && (nPos == 0 || nNeg == 0 || !sameCharge(qPos/qNeg, zc/za)) {
+		fits = false
+	}
+	z := cell.FormulaUnits
+	if fits && (z <= 0 || nPos != z*cation.Count || nNeg != z*anion.Count) {
+		fits = false
+	}
+	if fits {
+		return nil
+	}
+	held := make([]string, len(kinds))
+	for i, k := range kinds {
+		q := chargeNumber(k.charge)
+		if k.n%max(z, 1) == 0 && z > 0 {
+			held[i] = fmt.Sprintf("%d %s%s", k.n/z, k.species, q)
+		} else {
+			held[i] = fmt.Sprintf("%d/%d %s%s", k.n, max(z, 1), k.species, q)
+		}
+	}
+	return &ModelError{Model: model, Reason: fmt.Sprintf("the CIF file %s does not fit %s: per formula unit (Z = %d) it holds %s; %s needs %d %s and %d %s",
+		name, formula, z, strings.Join(held, ", "), formula, cation.Count, IonText(cation.Ion), anion.Count, IonText(anion.Ion))}
+}
+
+// sameCharge reports whether two charges (or charge ratios) agree to 1e-6
+// relative (common practice, no source: far below any stated oxidation
+// number's precision, far above rounding).
+func sameCharge(a, b float64) bool { return math.Abs(a-b) <= 1e-6*math.Max(math.Abs(a), math.Abs(b)) }
+
+// chargeNumber writes a site charge as a superscript when it is whole
+// ("⁴⁺"), else as a signed number in parentheses ("(+1.5)").
+func chargeNumber(q float64) string {
+	if q == math.Trunc(q) && math.Abs(q) < 100 {
+		return chargeText(int(q))
+	}
+	return fmt.Sprintf("(%+g)", q)
 }

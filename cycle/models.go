@@ -422,6 +422,9 @@ func (e *evaluator) volumeModel(in *ModelInputs) (float64, error) {
 func (c *Cycle) molarVolume() (float64, string, error) {
 	st := c.Settings.Structure
 	if st.Cell != nil {
+		if err := c.structureFits(st, ModelVolume); err != nil {
+			return 0, "", err
+		}
 		vm, err := lattice.MolarVolumeFromCell(st.Cell.Volume(), st.Cell.FormulaUnits)
 		return vm, "cell volume of " + st.Name() + " / Z", err
 	}
@@ -534,6 +537,16 @@ func (e *evaluator) distance(in *ModelInputs, actual bool, geometric float64) er
 	return nil
 }
 
+// structureFits refuses a cell read from a file that does not hold the
+// compound's ions (see cellFits); a prototype is checked when its ions are
+// placed (Memo.Madelung). model names the model refused.
+func (c *Cycle) structureFits(st Structure, model string) error {
+	if st.Cell == nil {
+		return nil
+	}
+	return cellFits(model, st.Name(), c.Formula, st.Cell, c.Cation, c.Anion)
+}
+
 // hasMeasuredCell reports whether the structure's geometry is measured (a
 // CIF, or prototype parameters from the data or the user) rather than a
 // prototype's defaults.
@@ -562,6 +575,9 @@ func (e *evaluator) madelungUncached(in *ModelInputs, actual bool) (MadelungValu
 		st = Structure{Prototype: p}
 		in.MadelungFrom = why
 		guessed = true
+	}
+	if err := c.structureFits(st, ModelEwald); err != nil {
+		return MadelungValue{}, err
 	}
 	mv, err := c.Memo().Madelung(st, c.Cation, c.Anion, c.Settings.Accuracy)
 	if err != nil {
