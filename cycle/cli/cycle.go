@@ -67,15 +67,17 @@ func (m *modelFlags) apply(c *cycle.Cycle, set map[string]bool, all bool) error 
 			return Usagef("--units: %v", err)
 		}
 	}
-	if given("rho") && m.rho != 0 {
+	// A flag given explicitly is checked even at 0, the value that stands
+	// for "the default" only while the flag is left out.
+	if given("rho") {
 		if !(m.rho > 0 && m.rho < 5) {
-			return Usagef("--rho %g: give the Born–Mayer range in Å, a small positive number such as 0.345", m.rho)
+			return Usagef("--rho %g: give the Born–Mayer range in Å, a small positive number such as 0.345 (leave the flag out for that default)", m.rho)
 		}
 		s.Rho = m.rho
 	}
-	if given("born-n") && m.bornN != 0 {
+	if given("born-n") {
 		if !(m.bornN > 1 && m.bornN < 100) {
-			return Usagef("--born-n %g: the Born exponent must be greater than 1 (Pauling's values are 5 to 12)", m.bornN)
+			return Usagef("--born-n %g: the Born exponent must be greater than 1 (Pauling's values are 5 to 12; leave the flag out for their mean over the ions)", m.bornN)
 		}
 		s.BornExponent = m.bornN
 	}
@@ -89,9 +91,9 @@ func (m *modelFlags) apply(c *cycle.Cycle, set map[string]bool, all bool) error 
 		v    int
 		dst  *int
 	}{{"cn-cation", m.cnCation, &s.CationCN}, {"cn-anion", m.cnAnion, &s.AnionCN}} {
-		if given(cn.name) && cn.v != 0 {
+		if given(cn.name) {
 			if cn.v < 1 || cn.v > 16 {
-				return Usagef("--%s %d: a coordination number is between 1 and 16", cn.name, cn.v)
+				return Usagef("--%s %d: a coordination number is between 1 and 16 (leave the flag out for the structure's)", cn.name, cn.v)
 			}
 			*cn.dst = cn.v
 		}
@@ -101,9 +103,9 @@ func (m *modelFlags) apply(c *cycle.Cycle, set map[string]bool, all bool) error 
 			return Usagef("--d0: %v", err)
 		}
 	}
-	if given("accuracy") && m.accuracy != 0 {
+	if given("accuracy") {
 		if !(m.accuracy > 0 && m.accuracy <= 1e-2) {
-			return Usagef("--accuracy %g: give a relative accuracy between 0 and 0.01", m.accuracy)
+			return Usagef("--accuracy %g: give a relative accuracy greater than 0 and at most 0.01, such as 1e-8 (leave the flag out for that default)", m.accuracy)
 		}
 		s.Accuracy = m.accuracy
 	}

@@ -35,8 +35,14 @@ func runEstimate(env Env, args []string) error {
 		return Usagef("give one formula: usage: enthalpath %s", estimateSynopsis)
 	}
 	opt := analysis.EstimateOptions{Model: model, Structure: structure, CationRadius: rc, AnionRadius: ra, Solve: solve}
-	if rc < 0 || ra < 0 {
-		return Usagef("--cation-radius and --anion-radius must be positive (Å)")
+	given := givenFlags(fs)
+	for _, r := range []struct {
+		name string
+		v    float64
+	}{{"cation-radius", rc}, {"anion-radius", ra}} {
+		if r.v < 0 || given[r.name] && !(r.v > 0) {
+			return Usagef("--%s %g: give the radius in Å, a positive number such as 1.02 (leave the flag out for the data's)", r.name, r.v)
+		}
 	}
 	if charges != "" {
 		if opt.Charges, err = analysis.ParseCharges(charges, pos[0]); err != nil {

@@ -70,6 +70,14 @@ func parseFlags(fs *flag.FlagSet, args []string) (pos []string, help bool, err e
 	return pos, false, nil
 }
 
+// givenFlags returns the names of the flags the command line set, so that a
+// value the user typed (0 too) is told apart from a default left alone.
+func givenFlags(fs *flag.FlagSet) map[string]bool {
+	set := map[string]bool{}
+	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
+	return set
+}
+
 // newFlagSet makes a flag set that reports errors instead of exiting and
 // prints its usage to w.
 func newFlagSet(name, synopsis string, w io.Writer) *flag.FlagSet {

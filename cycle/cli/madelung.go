@@ -44,6 +44,9 @@ func runMadelung(env Env, args []string) error {
 		}
 		return listPrototypes(env.Stdout, *asJSON)
 	}
+	if givenFlags(fs)["accuracy"] && *accuracy == 0 { // 0 would mean the library's default
+		return Usagef("--accuracy 0: give a relative accuracy greater than 0 and at most %g, such as %g (leave the flag out for that default)", ewald.CoarsestAccuracy, ewald.DefaultAccuracy)
+	}
 	if len(pos) != 1 {
 		fs.Usage()
 		return Usagef("madelung: give exactly one prototype name or CIF file (got %d arguments); see --list", len(pos))

@@ -84,3 +84,38 @@ func TestBornExponentPrintedToThreeFigures(t *testing.T) {
 		t.Errorf("model inputs lack \"n = 8.33 (\" or show more digits:\n%s", out)
 	}
 }
+
+// TestExplicitZeroRefused: a flag whose default is written 0 in the code
+// refuses a 0 the user typed, where 0 is no value the quantity can take,
+// and says what it needs (QA report: --rho 0, --born-n 0 and --max-charge 0
+// were accepted and ignored while negative values were refused).
+func TestExplicitZeroRefused(t *testing.T) {
+	cases := []struct {
+		name string
+		args []string
+		want string
+	}{
+		{"cycle", []string{"NaCl", "--rho", "0"}, "--rho 0: give the Born–Mayer range"},
+		{"cycle", []string{"NaCl", "--born-n", "0"}, "--born-n 0: the Born exponent must be greater than 1"},
+		{"cycle", []string{"NaCl", "--cn-cation", "0"}, "--cn-cation 0: a coordination number is between 1 and 16"},
+		{"cycle", []string{"NaCl", "--accuracy", "0"}, "--accuracy 0: give a relative accuracy greater than 0"},
+		{"compare", []string{"NaCl", "--rho", "0"}, "--rho 0"},
+		{"scan", []string{"Mg", "Cl", "--max-charge", "0"}, "--max-charge 0: give the highest metal charge to try, 1 or more"},
+		{"estimate", []string{"MgCl", "--cation-radius", "0"}, "--cation-radius 0: give the radius in Å"},
+		{"radius", []string{"NaNO3", "--ion", "NO3-", "--counter-radius", "0"}, "--counter-radius 0: give the radius in Å"},
+		{"radius", []string{"NaNO3", "--ion", "NO3-", "--lattice", "0"}, "--lattice 0: give the lattice energy"},
+		{"madelung", []string{"rock-salt", "--accuracy", "0"}, "--accuracy 0: give a relative accuracy greater than 0"},
+	}
+	for _, c := range cases {
+		_, errs, code := run(t, c.name, c.args...)
+		if code != ExitUsage || !strings.Contains(errs, c.want) {
+			t.Errorf("%s %v: exit %d, stderr %q; want exit %d and %q", c.name, c.args, code, errs, ExitUsage, c.want)
+		}
+	}
+	// Left out, the same flags still mean their defaults.
+	for _, c := range [][]string{{"cycle", "NaCl"}, {"scan", "Mg", "Cl"}, {"madelung", "rock-salt"}} {
+		if _, errs, code := run(t, c[0], c[1:]...); code != ExitOK {
+			t.Errorf("%v: exit %d: %s", c, code, errs)
+		}
+	}
+}

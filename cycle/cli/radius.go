@@ -29,6 +29,13 @@ func runRadius(env Env, args []string) error {
 	if ion == "" {
 		return Usagef("--ion is required: the ion whose radius to derive (usage: enthalpath %s)", radiusSynopsis)
 	}
+	given := givenFlags(fs)
+	if rc < 0 || given["counter-radius"] && !(rc > 0) {
+		return Usagef("--counter-radius %g: give the radius in Å, a positive number such as 1.81 (leave the flag out for the data's)", rc)
+	}
+	if given["lattice"] && u == 0 {
+		return Usagef("--lattice 0: give the lattice energy to reproduce in kJ/mol, such as -787 (leave the flag out for the cycle's)")
+	}
 	if allSalts {
 		return runRadiusFit(env, a, pos, ion, counterRadii, only, u, rc, asJSON)
 	}
@@ -37,9 +44,6 @@ func runRadius(env Env, args []string) error {
 	}
 	if len(pos) != 1 {
 		return Usagef("give one formula: usage: enthalpath %s", radiusSynopsis)
-	}
-	if rc < 0 {
-		return Usagef("--counter-radius must be positive (Å)")
 	}
 	d, err := a.DeriveRadius(pos[0], analysis.RadiusOptions{Ion: ion, LatticeEnergy: u, CounterRadius: rc, LatticeSource: "--lattice"})
 	if err != nil {

@@ -28,8 +28,8 @@ func runScan(env Env, args []string) error {
 	if len(pos) != 2 {
 		return Usagef("give a metal and a non-metal: usage: enthalpath %s", scanSynopsis)
 	}
-	if maxCharge < 0 {
-		return Usagef("--max-charge must be positive")
+	if maxCharge < 0 || givenFlags(fs)["max-charge"] && maxCharge == 0 {
+		return Usagef("--max-charge %d: give the highest metal charge to try, 1 or more (leave the flag out to go as far as the data's ionization energies)", maxCharge)
 	}
 	sc, err := a.Scan(pos[0], pos[1], analysis.ScanOptions{MaxCharge: maxCharge, Anion: anion, Model: model, Structure: structure})
 	if err != nil {
