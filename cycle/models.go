@@ -528,13 +528,52 @@ func (e *evaluator) distance(in *ModelInputs, actual bool, geometric float64) er
 		}
 		// Automatic choice with a radius missing: fall back to the geometry.
 	}
-	if !(geometric > 0) {
-		return &ModelError{Model: "d₀", Reason: "no measured cell to take d₀ from for " + c.Formula +
-			"; choose a structure with parameters or a CIF file, or give d₀ in Å"}
+	if geometric > 0 {
+		in.D0 = geometric
+		in.D0From = "nearest cation–anion distance of " + in.Structure
+		return nil
 	}
-	in.D0 = geometric
-	in.D0From = "nearest cation–anion distance of " + in.Structure
-	return nil
+	// A prototype with its default parameters gives the shape only (A);
+	// its distance is the template crystal's, not the compound's. Take d₀
+	// from the compound's own measured cell, else (automatic choice) from
+	// the radii, as the textbook models do.
+	shape := ""
+	if in.Structure != "" {
+		shape = "; " + in.Structure + "'s default cell gives the shape (A) only"
+	}
+	if d, own, err := e.ownCellDistance(); err != nil {
+		return err
+	} else if d > 0 {
+		in.D0 = d
+		in.D0From = "nearest cation–anion distance of " + c.Formula + "'s measured cell, " + own + shape
+		return nil
+	}
+	if c.Settings.Distance == DistanceAuto && actual {
+		if err := e.radii(in, false); err != nil {
+			return err
+		}
+		in.D0 = in.CationRadius + in.AnionRadius
+		in.D0From = "sum of radii (" + in.RadiusFrom + ")" + shape
+		return nil
+	}
+	return &ModelError{Model: "d₀", Reason: "no measured cell to take d₀ from for " + c.Formula +
+		"; choose a structure with parameters or a CIF file, or give d₀ in Å"}
+}
+
+// ownCellDistance returns the nearest cation–anion distance of the
+// compound's own structure in the data when the data give its parameters
+// (0 when they do not), with the structure described.
+func (e *evaluator) ownCellDistance() (float64, string, error) {
+	c := e.c
+	if c.Compound.Structure == "" || len(c.Compound.Params) == 0 {
+		return 0, "", nil
+	}
+	own := Structure{Prototype: c.Compound.Structure, Params: c.Compound.Params, FromData: true}
+	mv, err := c.Memo().Madelung(own, c.Cation, c.Anion, c.Settings.Accuracy)
+	if err != nil {
+		return 0, "", err
+	}
+	return mv.NearestDistance, describeStructure(own), nil
 }
 
 // structureFits refuses a cell read from a file that does not hold the
@@ -590,7 +629,7 @@ func (e *evaluator) madelungUncached(in *ModelInputs, actual bool) (MadelungValu
 	} else {
 		in.MadelungFrom += "; A by Ewald sum of its default cell"
 	}
-	if guessed {
+	if guessed || (st.Cell == nil && len(st.Params) == 0) {
 		mv.NearestDistance = 0 // the default cell's distance is not this compound's
 	}
 	return mv, nil

@@ -88,3 +88,54 @@ func TestCIFChecks(t *testing.T) {
 		t.Errorf("NaCl cell with one K⁺: volume model gave %v; want a refusal naming K⁺", err)
 	}
 }
+
+// TestDefaultPrototypeGivesShapeOnly: a prototype with its default
+// parameters lends the Ewald model its Madelung constant (which depends on
+// the shape only) but not its distance, which is the template crystal's
+// (CdCl₂'s Cd–Cl 2.656 Å for MgCl₂ before; CsCl's a = 4.123 Å for NaCl).
+func TestDefaultPrototypeGivesShapeOnly(t *testing.T) {
+	// MgCl₂ has no cell parameters in the data: d₀ is the radii sum,
+	// Mg²⁺ (CN VI) 0.72 Å + Cl⁻ (CN VI) 1.81 Å (R. D. Shannon, Acta Cryst.
+	// A32, 751 (1976), from memory), as the Born–Mayer model takes it.
+	c := build(t, "MgCl2", Options{})
+	if c.Settings.Structure.Prototype != "cadmium-chloride" || len(c.Settings.Structure.Params) != 0 {
+		t.Fatalf("MgCl2's structure in the data changed: %+v", c.Settings.Structure)
+	}
+	ew, err := EvaluateModel(c, ModelEwald)
+	if err != nil {
+		t.Fatal(err)
+	}
+	bm, err := EvaluateModel(c, ModelBornMayer)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !near(ew.Inputs.D0, 0.72+1.81, 1e-9) || !strings.Contains(ew.Inputs.D0From, "sum of radii") || !strings.Contains(ew.Inputs.D0From, "default cell") {
+		t.Errorf("MgCl2 ewald d₀ = %g (%s); want 2.53 Å from the radii", ew.Inputs.D0, ew.Inputs.D0From)
+	}
+	// Same A (the prototype's), same d₀, same ρ: the two models agree.
+	if !near(ew.Inputs.Madelung, bm.Inputs.Madelung, 1e-12) || !near(ew.Energy, bm.Energy, 1e-9) {
+		t.Errorf("MgCl2: ewald A %g U %g, born-mayer A %g U %g; want equal", ew.Inputs.Madelung, ew.Energy, bm.Inputs.Madelung, bm.Energy)
+	}
+	// NaCl in the CsCl shape: A = 1.762675 (the CsCl Madelung constant,
+	// C. Kittel, Introduction to Solid State Physics, ch. 3, from memory);
+	// d₀ from NaCl's own rock-salt cell of the data, a/2.
+	c = build(t, "NaCl", Options{Settings: Settings{Structure: Structure{Prototype: "caesium-chloride"}}})
+	own := loadDB(t)
+	comp, _ := own.FindCompound("NaCl")
+	a := comp.Params["a"]
+	if comp.Structure != "rock-salt" || !(a > 5.6 && a < 5.7) { // 5.6402 Å (data table)
+		t.Fatalf("NaCl's cell in the data changed: %s %v", comp.Structure, comp.Params)
+	}
+	ew, err = EvaluateModel(c, ModelEwald)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !near(ew.Inputs.Madelung, 1.762675, 1e-6) || !near(ew.Inputs.D0, a/2, 1e-9) || !strings.Contains(ew.Inputs.D0From, "measured cell") {
+		t.Errorf("NaCl as caesium-chloride: A = %g, d₀ = %g (%s); want 1.762675 and %g", ew.Inputs.Madelung, ew.Inputs.D0, ew.Inputs.D0From, a/2)
+	}
+	// With parameters the cell is measured: its own distance is used.
+	c = build(t, "NaCl", Options{Settings: Settings{Structure: Structure{Prototype: "caesium-chloride", Params: map[string]float64{"a": 3.3}}}})
+	if ew, err = EvaluateModel(c, ModelEwald); err != nil || !near(ew.Inputs.D0, 3.3*0.8660254037844386, 1e-9) { // √3/2·a, body diagonal
+		t.Errorf("NaCl as caesium-chloride a = 3.3 Å: d₀ = %g, %v; want √3/2·3.3", ew.Inputs.D0, err)
+	}
+}
