@@ -78,11 +78,31 @@ func runMadelung(env Env, args []string) error {
 	case sumErr != nil:
 		return &UsageError{fmt.Errorf("%s: %w", pos[0], sumErr)}
 	}
+	warnings := geometryWarnings(c, res)
+	for _, w := range warnings {
+		fmt.Fprintf(env.Stderr, "enthalpath madelung: warning: %s\n", w)
+	}
 	if *asJSON {
-		return writeJSON(env.Stdout, madelungJSON(job, c, res, sumErr == nil))
+		out := madelungJSON(job, c, res, sumErr == nil)
+		out.Warnings = warnings
+		return writeJSON(env.Stdout, out)
 	}
 	printMadelung(env.Stdout, job, c, res)
 	return nil
+}
+
+// geometryWarnings says when a structure that can be summed is unlike any
+// real solid: its nearest cation and anion closer than crystal.ShortestBond
+// (wurtzite with u = 0.9 puts them 0.52 Å apart). The Madelung constant
+// of such a cell is a number about point charges, not about a crystal.
+func geometryWarnings(c *crystal.Crystal, r ewald.Result) []string {
+	i, j := r.NearestPair[0], r.NearestPair[1]
+	if i < 0 || j < 0 || !(r.NearestDistance < crystal.ShortestBond) {
+		return nil
+	}
+	return []string{fmt.Sprintf("the nearest cation and anion (site %d %s and site %d %s) are %.3g Å apart, below %g Å, shorter than any real bond "+
+		"(threshold: common practice, no source); the Madelung constant refers to that distance; check the parameters or the file",
+		i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, r.NearestDistance, crystal.ShortestBond)}
 }
 
 // madelungJob is what the command line asked for.
@@ -373,6 +393,9 @@ type madelungOutput struct {
 	Boundary          string            `json:"boundary_condition"`
 	Accuracy          madelungAccuracy  `json:"accuracy"`
 	Ewald             madelungEwald     `json:"ewald"`
+	// Warnings say what makes the structure unlike a real solid; absent
+	// when nothing does.
+	Warnings []string `json:"warnings,omitempty"`
 }
 
 func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, reached bool) madelungOutput {

@@ -142,3 +142,31 @@ func TestMadelungCommandUsageErrors(t *testing.T) {
 		}
 	}
 }
+
+// TestMadelungUnphysicalGeometry: wurtzite with u = 0.9 puts each anion
+// (1 − 0.9)·c = 0.52 Å from a cation (geometry of the parameters), below
+// crystal.ShortestBond (1 Å, common practice, no source): the sum is done
+// and warned about on stderr and under "warnings" in the JSON; the default
+// ZnO cell has no warning. A prototype length of 1e5 Å is refused like a
+// CIF cell length of 10000 Å or more.
+func TestMadelungUnphysicalGeometry(t *testing.T) {
+	code, out, errs := runMadelungForTest(t, "wurtzite", "--param", "u=0.9", "--json")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	if !strings.Contains(errs, "warning: the nearest cation and anion") || !strings.Contains(errs, "0.52 Å apart") {
+		t.Errorf("stderr %q lacks the warning with 0.52 Å", errs)
+	}
+	w, ok := decodeMadelung(t, out)["warnings"].([]any)
+	if !ok || len(w) != 1 || !strings.Contains(w[0].(string), "shorter than any real bond") {
+		t.Errorf("JSON warnings = %v, want one about the short bond", w)
+	}
+	code, out, errs = runMadelungForTest(t, "wurtzite", "--json")
+	if _, has := decodeMadelung(t, out)["warnings"]; code != ExitOK || has || errs != "" {
+		t.Errorf("default wurtzite: exit %d, warnings %v, stderr %q; want none", code, has, errs)
+	}
+	code, _, errs = runMadelungForTest(t, "rock-salt", "--param", "a=1e5")
+	if code != ExitUsage || !strings.Contains(errs, "below 10000 Å") {
+		t.Errorf("a=1e5: exit %d, stderr %q; want exit 2 and the 10000 Å cap", code, errs)
+	}
+}

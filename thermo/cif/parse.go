@@ -219,8 +219,8 @@ func (rd *reader) lattice() ([3]crystal.Vec3, error) {
 			return [3]crystal.Vec3{}, err
 		}
 		line := rd.b.tagLine[tag]
-		if i < 3 && !(x > 0 && x < 1e4) {
-			return [3]crystal.Vec3{}, rd.errf(line, tag, ErrBadValue, "cell length %g Å must be positive and below 10000 Å", x)
+		if i < 3 && !(x > 0 && x < crystal.MaxCellLength) {
+			return [3]crystal.Vec3{}, rd.errf(line, tag, ErrBadValue, "cell length %g Å must be positive and below %g Å", x, crystal.MaxCellLength)
 		}
 		if i >= 3 && !(x > 0 && x < 180) {
 			return [3]crystal.Vec3{}, rd.errf(line, tag, ErrBadValue, "cell angle %g° must lie strictly between 0 and 180", x)

@@ -59,6 +59,17 @@ var ErrBadParameter = errors.New("bad prototype parameter")
 // Build accepts; closer ions mean the parameters are unphysical.
 const MinimumSeparation = 0.5
 
+// MaxCellLength is the cell edge in Å that Build's lengths and the CIF
+// reader's cell lengths must stay below, far beyond any real ionic cell
+// (common practice, no source).
+const MaxCellLength = 1e4
+
+// ShortestBond is the cation–anion distance in Å below which a structure is
+// unlike any real solid (real cation–anion bonds are longer): callers warn
+// when the nearest cation–anion pair is closer. 1.0 Å is common practice,
+// no source.
+const ShortestBond = 1.0
+
 const (
 	roleCation = "cation"
 	roleAnion  = "anion"
@@ -385,8 +396,9 @@ func (p Prototype) Defaults() map[string]float64 {
 
 // Build makes the prototype called name with the given parameters. Keys
 // missing from params take their defaults; an unknown key, a non-finite or
-// non-positive length, a fractional parameter outside its range, or
-// parameters that put two ions closer than MinimumSeparation are errors.
+// non-positive length or one of MaxCellLength or more, a fractional
+// parameter outside its range, or parameters that put two ions closer than
+// MinimumSeparation are errors.
 // Sites carry the slot labels as species ("M", "X", …) and the default
 // charges; use WithIons to name them.
 func Build(name string, params map[string]float64) (*Crystal, error) {
@@ -414,6 +426,10 @@ func Build(name string, params map[string]float64) (*Crystal, error) {
 	for _, q := range p.Params {
 		if q.Unit == "Å" && !(values[q.Key] > 0) {
 			return nil, fmt.Errorf("prototype %s: length %s = %g Å must be positive: %w", name, q.Key, values[q.Key], ErrBadParameter)
+		}
+		if q.Unit == "Å" && !(values[q.Key] < MaxCellLength) {
+			return nil, fmt.Errorf("prototype %s: length %s = %g Å must be below %g Å, as a CIF file's cell lengths: %w",
+				name, q.Key, values[q.Key], MaxCellLength, ErrBadParameter)
 		}
 	}
 	lat, sites, err := p.build(values)

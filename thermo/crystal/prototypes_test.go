@@ -140,6 +140,9 @@ func TestBuildErrors(t *testing.T) {
 		{"rock-salt", map[string]float64{"b": 3}, `"b"`},
 		{"rock-salt", map[string]float64{"a": -1}, "positive"},
 		{"rock-salt", map[string]float64{"a": math.NaN()}, "finite"},
+		// The CIF reader's cap on cell lengths holds for prototypes too.
+		{"rock-salt", map[string]float64{"a": 1e5}, "below 10000 Å"},
+		{"wurtzite", map[string]float64{"c": 1e4}, "below 10000 Å"},
 		{"wurtzite", map[string]float64{"u": 1.2}, "u"},
 		{"rutile", map[string]float64{"x": 0}, "x"},
 		{"corundum", map[string]float64{"z_cation": 0.7}, "z_cation"},
