@@ -551,13 +551,15 @@ func parseBinary(f string) (composition, error) {
 		}
 		n := 1
 		if k > j {
-			if k-j > 3 {
+			switch {
+			case f[j] == '0' && k-j == 1:
+				return nil, fmt.Errorf("zero count at column %d", j+1)
+			case f[j] == '0':
+				return nil, fmt.Errorf("count %q at column %d has a leading zero; write %s", f[j:k], j+1, strings.TrimLeft(f[j:k], "0"))
+			case k-j > 3:
 				return nil, fmt.Errorf("count too large at column %d", j+1)
 			}
-			scanCount(f[j:k], &n)
-			if n == 0 {
-				return nil, fmt.Errorf("zero count at column %d", j+1)
-			}
+			n, _ = readCount(f[j:k])
 		}
 		comp = comp.add(sym, n)
 		i = k
@@ -594,18 +596,10 @@ func parseIonSymbol(s string) (core string, charge int, ok bool) {
 	}
 	n := 1
 	if digits != "" {
-		if len(digits) > 2 {
-			return "", 0, false
+		var ok bool
+		if n, ok = readCount(digits); !ok || len(digits) > 2 {
+			return "", 0, false // also a leading zero: "Fe03+"
 		}
-		for _, d := range digits {
-			if d < '0' || d > '9' {
-				return "", 0, false
-			}
-		}
-		scanCount(digits, &n)
-	}
-	if n == 0 {
-		return "", 0, false
 	}
 	return core, sign * n, true
 }

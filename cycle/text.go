@@ -91,9 +91,8 @@ func splitState(state, symbol string) (formula string, atoms int, phase string) 
 	formula, phase = state[:i], state[i:]
 	atoms = 1
 	if rest := strings.TrimPrefix(formula, symbol); rest != formula && rest != "" {
-		scanCount(rest, &atoms)
-		if atoms <= 0 {
-			atoms = 1
+		if n, ok := readCount(rest); ok {
+			atoms = n
 		}
 	}
 	return formula, atoms, phase
@@ -133,15 +132,15 @@ func isInteger(s string) bool {
 	return true
 }
 
-// scanCount reads s into n as fmt.Sscan does, through strconv when s is
-// plain digits without a leading zero (which Sscan reads as an octal
-// prefix, so those keep fmt's reading).
-func scanCount(s string, n *int) {
-	if s != "" && s[0] != '0' && len(s) <= 9 && isInteger(s) {
-		*n, _ = strconv.Atoi(s)
-		return
+// readCount reads a count or charge written in decimal digits: no sign,
+// no leading zero (fmt.Sscan would read "010" as octal 8), at most 9
+// digits. It reports false for anything else.
+func readCount(s string) (int, bool) {
+	if s == "" || s[0] == '0' || len(s) > 9 || !isInteger(s) {
+		return 0, false
 	}
-	fmt.Sscan(s, n)
+	n, err := strconv.Atoi(s)
+	return n, err == nil
 }
 
 // elementTerms writes the elements of comp in their standard states with
