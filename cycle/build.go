@@ -3,6 +3,7 @@ package cycle
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -325,12 +326,16 @@ func (b *builder) compoundSteps() {
 // hypothetical finds the ions of a formula that is not tabulated (or whose
 // ions the options override).
 func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
-	comp, err := parseBinary(formula)
+	comp, parts, err := parseParts(formula)
 	// Suggestions only when an error is returned: building them for every
 	// formula the tables lack would dominate a batch run.
 	suggestions := func() []string { return db.SuggestCompounds(formula) }
-	if err != nil && (opt.Cation == "" || opt.Anion == "") {
-		return &CompoundError{Formula: formula, Reason: "not in the data and not a simple binary formula MₐXᵦ; give its ions with the cation and anion options", Err: err, Suggestions: suggestions()}
+	if err != nil {
+		reason := "not in the data and not a simple binary formula MₐXᵦ; give its ions with the cation and anion options"
+		if opt.Cation != "" && opt.Anion != "" {
+			reason = "cannot read the formula"
+		}
+		return &CompoundError{Formula: formula, Reason: reason, Err: err, Suggestions: suggestions()}
 	}
 	ion := func(sym string) (data.Ion, error) {
 		if in, ok := db.FindIon(sym); ok {
@@ -355,10 +360,17 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 			return err
 		}
 	default:
-		if len(comp) != 2 {
+		bracketed := slices.ContainsFunc(parts, func(p formulaPart) bool { return p.bracketed })
+		switch {
+		case bracketed && len(parts) != 2:
+			return &CompoundError{Formula: formula, Reason: fmt.Sprintf("not in the data, and %d parts where a compound of one cation and one anion has 2", len(parts)), Suggestions: suggestions()}
+		case bracketed:
+		case len(comp) != 2:
 			return &CompoundError{Formula: formula, Reason: fmt.Sprintf("not in the data, and %d elements where a binary compound has 2", len(comp)), Suggestions: suggestions()}
+		default:
+			parts = []formulaPart{{core: comp[0].symbol, count: comp[0].count}, {core: comp[1].symbol, count: comp[1].count}}
 		}
-		cat, an, err = pickIons(db, formula, comp, opt)
+		cat, an, err = pickIons(db, formula, parts[0], parts[1], opt)
 		if err != nil {
 			return err
 		}
@@ -369,10 +381,10 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 	g := gcd(cat.Charge, -an.Charge)
 	a, bb := -an.Charge/g, cat.Charge/g
 	if comp != nil {
-		ca, cb := comp.of(cat.Core), comp.of(an.Core)
-		if ca == 0 || cb == 0 || ca*cat.Charge+cb*an.Charge != 0 {
-			return &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s and %s cannot make %s (they balance as %s%s%s%s)",
-				cat.Symbol, an.Symbol, formula, cat.Core, countText(a), an.Core, countText(bb))}
+		ca, cb, ok := ionCounts(comp, cat.Core, an.Core)
+		if !ok || ca*cat.Charge+cb*an.Charge != 0 {
+			return &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s and %s cannot make %s (they balance as %s%s)",
+				cat.Symbol, an.Symbol, formula, partText(cat.Core, a), partText(an.Core, bb))}
 		}
 		a, bb = ca, cb
 	}
@@ -399,20 +411,22 @@ func gcd(a, b int) int {
 	return a
 }
 
-// pickIons chooses, for a binary formula, the cation and anion of the data
+// pickIons chooses, for a formula of two parts (elements, or a bracketed
+// group for a polyatomic ion: "Ba(N3)2"), the cation and anion of the data
 // whose charges balance its counts; when the data have no balancing cation
-// it makes one with the charge the counts imply (a hypothetical ion).
-func pickIons(db *data.DB, formula string, comp composition, opt Options) (data.Ion, data.Ion, error) {
-	first, second := comp[0].symbol, comp[1].symbol
-	nFirst, nSecond := comp[0].count, comp[1].count
+// of an element it makes one with the charge the counts imply (a
+// hypothetical ion).
+func pickIons(db *data.DB, formula string, p1, p2 formulaPart, opt Options) (data.Ion, data.Ion, error) {
+	first, second := p1.core, p2.core
+	nFirst, nSecond := p1.count, p2.count
 	var cations, anions []data.Ion
 	for _, in := range db.IonsOf(first) {
-		if !in.Polyatomic && in.Charge > 0 {
+		if in.Polyatomic == p1.bracketed && in.Charge > 0 {
 			cations = append(cations, in)
 		}
 	}
 	for _, in := range db.IonsOf(second) {
-		if !in.Polyatomic && in.Charge < 0 {
+		if in.Polyatomic == p2.bracketed && in.Charge < 0 {
 			anions = append(anions, in)
 		}
 	}
@@ -430,6 +444,9 @@ func pickIons(db *data.DB, formula string, comp composition, opt Options) (data.
 		}
 		cations = []data.Ion{a}
 	}
+	if len(anions) == 0 && p2.bracketed {
+		return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("the data have no anion %s; give the ions with their charges", second)}
+	}
 	if len(anions) == 0 {
 		if !data.IsElementSymbol(second) {
 			return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("%q is not an element", second)}
@@ -442,6 +459,9 @@ func pickIons(db *data.DB, formula string, comp composition, opt Options) (data.
 				return ca, an, nil
 			}
 		}
+	}
+	if p1.bracketed {
+		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("no cation %s in the data balances %s; give the ions with their charges", first, anions[0].Symbol)}
 	}
 	an := anions[0]
 	num := -nSecond * an.Charge
@@ -527,44 +547,215 @@ func (c composition) add(sym string, n int) composition {
 	return append(c, elementCount{sym, n})
 }
 
-// parseBinary reads a formula of element symbols with counts ("Al2O3",
-// "MgCl"), returning the counts in order of appearance.
+// parseBinary reads a formula of element symbols with counts and
+// bracketed groups ("Al2O3", "MgCl", "Ba(N3)2"), returning the element
+// counts in order of first appearance.
 func parseBinary(f string) (composition, error) {
-	var comp composition
-	i := 0
-	for i < len(f) {
-		ch := f[i]
-		if !(ch >= 'A' && ch <= 'Z') {
-			return nil, fmt.Errorf("unexpected %q at column %d", rune(ch), i+1)
+	comp, _, err := parseParts(f)
+	return comp, err
+}
+
+// formulaPart is one top-level part of a formula: an element or a
+// bracketed group (core "N3" of "Ba(N3)2"), with its count.
+type formulaPart struct {
+	core      string
+	count     int
+	bracketed bool
+}
+
+// Bounds of parseParts: bracket depth, and atoms of one element (so that
+// nested counts cannot overflow).
+const (
+	maxBracketDepth = 4
+	maxElementAtoms = 100000
+)
+
+// parseParts reads formula f into its element counts and its top-level
+// parts. Counts are decimal, 1 to 999, without a leading zero.
+func parseParts(f string) (composition, []formulaPart, error) {
+	f = strings.Map(func(r rune) rune {
+		if r >= '₀' && r <= '₉' {
+			return '0' + (r - '₀')
 		}
-		j := i + 1
-		for j < len(f) && f[j] >= 'a' && f[j] <= 'z' {
-			j++
-		}
-		sym := f[i:j]
-		if !data.IsElementSymbol(sym) {
-			return nil, fmt.Errorf("unknown element %q at column %d", sym, i+1)
-		}
-		k := j
-		for k < len(f) && f[k] >= '0' && f[k] <= '9' {
-			k++
-		}
-		n := 1
-		if k > j {
-			switch {
-			case f[j] == '0' && k-j == 1:
-				return nil, fmt.Errorf("zero count at column %d", j+1)
-			case f[j] == '0':
-				return nil, fmt.Errorf("count %q at column %d has a leading zero; write %s", f[j:k], j+1, strings.TrimLeft(f[j:k], "0"))
-			case k-j > 3:
-				return nil, fmt.Errorf("count too large at column %d", j+1)
-			}
-			n, _ = readCount(f[j:k])
-		}
-		comp = comp.add(sym, n)
-		i = k
+		return r
+	}, f)
+	p := &binaryParser{f: f}
+	comp, parts, err := p.sequence(0)
+	if err != nil {
+		return nil, nil, err
 	}
-	return comp, nil
+	if p.i < len(f) { // a ')' with no '('
+		return nil, nil, fmt.Errorf("unexpected %q at column %d", rune(f[p.i]), p.i+1)
+	}
+	if len(comp) == 0 {
+		return nil, nil, fmt.Errorf("no element")
+	}
+	return comp, parts, nil
+}
+
+type binaryParser struct {
+	f string
+	i int
+}
+
+// sequence reads parts up to the end or a ')'.
+func (p *binaryParser) sequence(depth int) (composition, []formulaPart, error) {
+	var comp composition
+	var parts []formulaPart
+	f := p.f
+	for p.i < len(f) && f[p.i] != ')' {
+		ch := f[p.i]
+		switch {
+		case ch == '(':
+			open := p.i
+			if depth >= maxBracketDepth {
+				return nil, nil, fmt.Errorf("brackets nested deeper than %d at column %d", maxBracketDepth, open+1)
+			}
+			p.i++
+			inner, _, err := p.sequence(depth + 1)
+			if err != nil {
+				return nil, nil, err
+			}
+			if p.i >= len(f) {
+				return nil, nil, fmt.Errorf("bracket opened at column %d is not closed", open+1)
+			}
+			if len(inner) == 0 {
+				return nil, nil, fmt.Errorf("empty brackets at column %d", open+1)
+			}
+			core := f[open+1 : p.i]
+			p.i++
+			n, err := p.count()
+			if err != nil {
+				return nil, nil, err
+			}
+			for _, t := range inner {
+				if comp, err = comp.addChecked(t.symbol, t.count*n); err != nil {
+					return nil, nil, err
+				}
+			}
+			parts = append(parts, formulaPart{core: core, count: n, bracketed: true})
+		case ch >= 'A' && ch <= 'Z':
+			j := p.i + 1
+			for j < len(f) && f[j] >= 'a' && f[j] <= 'z' {
+				j++
+			}
+			sym := f[p.i:j]
+			if !data.IsElementSymbol(sym) {
+				return nil, nil, fmt.Errorf("unknown element %q at column %d", sym, p.i+1)
+			}
+			p.i = j
+			n, err := p.count()
+			if err != nil {
+				return nil, nil, err
+			}
+			if comp, err = comp.addChecked(sym, n); err != nil {
+				return nil, nil, err
+			}
+			parts = append(parts, formulaPart{core: sym, count: n})
+		default:
+			return nil, nil, fmt.Errorf("unexpected %q at column %d", rune(ch), p.i+1)
+		}
+	}
+	return comp, parts, nil
+}
+
+// count reads the count after a part (1 when none is written).
+func (p *binaryParser) count() (int, error) {
+	f, j := p.f, p.i
+	k := j
+	for k < len(f) && f[k] >= '0' && f[k] <= '9' {
+		k++
+	}
+	p.i = k
+	if k == j {
+		return 1, nil
+	}
+	switch {
+	case f[j] == '0' && k-j == 1:
+		return 0, fmt.Errorf("zero count at column %d", j+1)
+	case f[j] == '0':
+		return 0, fmt.Errorf("count %q at column %d has a leading zero; write %s", f[j:k], j+1, strings.TrimLeft(f[j:k], "0"))
+	case k-j > 3:
+		return 0, fmt.Errorf("count too large at column %d", j+1)
+	}
+	n, _ := readCount(f[j:k])
+	return n, nil
+}
+
+// addChecked is add with a bound on the atoms of one element.
+func (c composition) addChecked(sym string, n int) (composition, error) {
+	c = c.add(sym, n)
+	if c.of(sym) > maxElementAtoms {
+		return c, fmt.Errorf("more than %d atoms of %s", maxElementAtoms, sym)
+	}
+	return c, nil
+}
+
+// coreComposition returns the atoms of one ion core ("N3" → N 3); a core
+// that is no formula counts as one atom of itself.
+func coreComposition(core string) composition {
+	cc, err := parseBinary(core)
+	if err != nil {
+		return composition{{core, 1}}
+	}
+	return cc
+}
+
+// ionCounts finds how many cations a and anions b of the given cores make
+// the formula's element counts comp, a polyatomic ion counting as the
+// atoms of its core (BaO₂ of Ba²⁺ and O₂²⁻ is 1 and 1; Ba(N₃)₂ of Ba²⁺ and
+// N₃⁻ is 1 and 2). It reports false when no whole a, b ≥ 1 do.
+func ionCounts(comp composition, cation, anion string) (a, b int, ok bool) {
+	cc, ac := coreComposition(cation), coreComposition(anion)
+	first := cc[0]
+	for a = 1; a*first.count <= comp.of(first.symbol); a++ {
+		b = 0
+		fits := true
+		for _, t := range comp {
+			rest := t.count - a*cc.of(t.symbol)
+			per := ac.of(t.symbol)
+			switch {
+			case rest < 0, per == 0 && rest != 0, per != 0 && rest%per != 0:
+				fits = false
+			case per != 0:
+				if b == 0 {
+					b = rest / per
+				} else if rest/per != b {
+					fits = false
+				}
+			}
+			if !fits {
+				break
+			}
+		}
+		// Every element of both cores must be in the formula.
+		for _, t := range ac {
+			if comp.of(t.symbol) == 0 {
+				fits = false
+			}
+		}
+		for _, t := range cc {
+			if comp.of(t.symbol) == 0 {
+				fits = false
+			}
+		}
+		if fits && b >= 1 {
+			return a, b, true
+		}
+	}
+	return 0, 0, false
+}
+
+// partText writes count n of an ion core in a formula: "Ba", "Cl2",
+// "(N3)2", "O2" for one peroxide.
+func partText(core string, n int) string {
+	if n != 1 && len(coreComposition(core)) == 1 && coreComposition(core)[0].count == 1 {
+		return core + countText(n)
+	}
+	if n != 1 {
+		return "(" + core + ")" + countText(n)
+	}
+	return core
 }
 
 // parseIonSymbol reads "Mg+", "Mg2+", "O2-", "Fe+3", "Cl^-".

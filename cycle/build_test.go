@@ -48,3 +48,48 @@ func TestFormulaCountsAreDecimal(t *testing.T) {
 		t.Errorf("Build(NaCl10, Na10+): %v; want 10 Cl⁻", err)
 	}
 }
+
+// TestPolyatomicIonInBinaryFormula: a metal with a polyatomic ion, written
+// with or without brackets, counts the ion as the atoms of its core over
+// the atoms in one core (stoichiometry, no source needed): BaO₂ of Ba²⁺
+// and peroxide O₂²⁻ is 1:1, Ba(N₃)₂ and BaN₆ of Ba²⁺ and azide N₃⁻ are
+// 1:2. Before, BaO₂ and KN₃ were "impossible charge balance" and Ba(N₃)₂
+// "unexpected '('".
+func TestPolyatomicIonInBinaryFormula(t *testing.T) {
+	db := loadDB(t)
+	for _, tc := range []struct {
+		formula, cation, anion string
+		a, b                   int
+	}{
+		{"BaO2", "Ba2+", "O2^2-", 1, 1},
+		{"Ba2O2", "Ba+", "O2^2-", 2, 1},
+		{"Ba(O2)2", "Ba4+", "O2^2-", 1, 2},
+		{"KN3", "K+", "N3^-", 1, 1},
+		{"K(N3)2", "K2+", "N3^-", 1, 2},
+		{"Ba(N3)2", "Ba2+", "N3^-", 1, 2},
+		{"BaN6", "Ba2+", "N3^-", 1, 2},
+		{"Ba(N3)2", "", "", 1, 2}, // the bracket names the anion: azide from the data
+	} {
+		c, err := Build(db, tc.formula, Options{Cation: tc.cation, Anion: tc.anion})
+		if err != nil {
+			t.Errorf("Build(%s, %s, %s): %v", tc.formula, tc.cation, tc.anion, err)
+			continue
+		}
+		if c.Cation.Count != tc.a || c.Anion.Count != tc.b || c.Anion.Ion.Charge >= 0 {
+			t.Errorf("Build(%s): %s ×%d, %s ×%d; want ×%d, ×%d", tc.formula, c.Cation.Ion.Symbol, c.Cation.Count, c.Anion.Ion.Symbol, c.Anion.Count, tc.a, tc.b)
+		}
+	}
+	// Ba(N₃)₂ forms from 3 N₂: the formation reaction counts the atoms.
+	c := build(t, "Ba(N3)2", Options{})
+	if f, _ := c.Step("formation"); f == nil || !strings.Contains(f.Reaction, "3 N₂(g)") {
+		t.Errorf("Ba(N3)2 formation reaction %q, want 3 N₂(g)", f.Reaction)
+	}
+	// Three O atoms are no whole number of peroxide ions; Ba(N3)2 with a
+	// stray element is no binary compound.
+	if _, err := Build(db, "BaO3", Options{Cation: "Ba2+", Anion: "O2^2-"}); err == nil {
+		t.Errorf("BaO3 of Ba2+ and O2^2- accepted")
+	}
+	if _, err := Build(db, "Ba(N3)2Cl", Options{}); err == nil {
+		t.Errorf("Ba(N3)2Cl accepted as a binary compound")
+	}
+}
