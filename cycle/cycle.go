@@ -152,6 +152,12 @@ func (c *Cycle) Set(key string, value, uncertainty float64) error {
 	if math.IsNaN(uncertainty) || math.IsInf(uncertainty, 0) || uncertainty < 0 {
 		return &SettingError{Text: key, Column: 1, Reason: "uncertainty must be a finite number ≥ 0"}
 	}
+	if why := checkMagnitude("the value of step "+key, value); why != "" {
+		return &SettingError{Text: key, Column: 1, Reason: why}
+	}
+	if why := checkMagnitude("the uncertainty of step "+key, uncertainty); why != "" {
+		return &SettingError{Text: key, Column: 1, Reason: why}
+	}
 	s := &c.Steps[i]
 	s.Value, s.Uncertainty, s.Unknown = value, uncertainty, false
 	s.Source = Source{Kind: SourceUser, Key: "user", Citation: "entered by the user", Override: s.Reference != nil}

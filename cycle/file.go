@@ -339,6 +339,12 @@ func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
 			if math.IsNaN(s.Uncertainty) || math.IsInf(s.Uncertainty, 0) || s.Uncertainty < 0 {
 				return fail(findTableLine(text, "step", i, "uncertainty"), field+".uncertainty", "must be a finite number ≥ 0", nil)
 			}
+			if why := checkMagnitude("the value of step "+s.Key, s.Value); why != "" {
+				return fail(findTableLine(text, "step", i, "value"), field+".value", why, nil)
+			}
+			if why := checkMagnitude("the uncertainty of step "+s.Key, s.Uncertainty); why != "" {
+				return fail(findTableLine(text, "step", i, "uncertainty"), field+".uncertainty", why, nil)
+			}
 			if err := c.Set(s.Key, s.Value, s.Uncertainty); err != nil {
 				return fail(line, field, "cannot set the value", err)
 			}

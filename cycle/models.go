@@ -261,6 +261,9 @@ func (e *evaluator) evaluate(name string) (ModelResult, error) {
 		}
 		return m, &ModelError{Model: name, Reason: "cannot be evaluated", Err: err}
 	}
+	if math.IsNaN(u) || math.IsInf(u, 0) {
+		return m, &ModelError{Model: name, Reason: "its inputs give no finite lattice energy; check d₀, ρ and n"}
+	}
 	m.Energy = u
 	m.Value = u
 	if c.Conventions.Lattice == LatticeEnthalpy {

@@ -1,6 +1,7 @@
 package cycle
 
 import (
+	"fmt"
 	"math"
 	"strconv"
 	"strings"
@@ -8,6 +9,21 @@ import (
 
 	"enthalpath/thermo"
 )
+
+// MaxStepMagnitude bounds a step value or uncertainty given by the user,
+// in kJ/mol (common practice, no source): a thousand times the lattice
+// enthalpy of a highly charged oxide, and small enough that no sum of a
+// cycle's steps can overflow.
+const MaxStepMagnitude = 1e6
+
+// checkMagnitude refuses a value beyond ±MaxStepMagnitude kJ/mol; what
+// names it ("the value of step lattice").
+func checkMagnitude(what string, kj float64) string {
+	if math.Abs(kj) <= MaxStepMagnitude {
+		return ""
+	}
+	return fmt.Sprintf("%s, %.4g kJ/mol, is beyond the accepted ±%g kJ/mol", what, kj, float64(MaxStepMagnitude))
+}
 
 // Setting is one KEY=VALUE[±UNC] entry, as given to --set.
 type Setting struct {
@@ -76,6 +92,9 @@ func ParseSetting(text string, def thermo.Unit) (Setting, error) {
 		return bad(col0+leading(rest), "value "+strconv.Quote(valText)+" is not a number")
 	}
 	s := Setting{Key: key, Value: thermo.ToKJPerMol(v, unit)}
+	if why := checkMagnitude("the value of step "+key, s.Value); why != "" {
+		return bad(col0+leading(rest), why)
+	}
 	if hasUnc {
 		uncText = strings.TrimSpace(uncText)
 		sep, at := "±", strings.Index(rest, "±")
@@ -95,6 +114,9 @@ func ParseSetting(text string, def thermo.Unit) (Setting, error) {
 			return bad(uc, "uncertainty must not be negative")
 		}
 		s.Uncertainty, s.HasUncertainty = math.Abs(thermo.ToKJPerMol(u, unit)), true
+		if why := checkMagnitude("the uncertainty of step "+key, s.Uncertainty); why != "" {
+			return bad(uc, why)
+		}
 	}
 	return s, nil
 }

@@ -79,3 +79,68 @@ func FuzzParseSetting(f *testing.F) {
 		}
 	})
 }
+
+// TestHugeValuesRefused: a step value or uncertainty beyond
+// ±MaxStepMagnitude (1e6 kJ/mol, common practice, no source) is refused
+// by ParseSetting, Set and a cycle file, with the step key named; before,
+// formation=1e308 printed 300-digit numbers and the JSON writer met +Inf.
+func TestHugeValuesRefused(t *testing.T) {
+	for _, tc := range []struct {
+		in     string
+		errCol int
+	}{
+		{"formation=1e308", 11},
+		{"formation=-1000001", 11},
+		{"lattice=-300000kcal", 9}, // −1.2552e6 kJ/mol after conversion (1 kcal = 4.184 kJ, exact)
+		{"formation=-411±2e6", 16},
+	} {
+		_, err := ParseSetting(tc.in, thermo.KJPerMol)
+		var se *SettingError
+		key, _, _ := strings.Cut(tc.in, "=")
+		if !errors.As(err, &se) || se.Column != tc.errCol || !strings.Contains(se.Reason, "step "+key) || !strings.Contains(se.Reason, "1e+06") {
+			t.Errorf("ParseSetting(%q) = %v; want a refusal naming step %s at column %d", tc.in, err, key, tc.errCol)
+		}
+	}
+	if s, err := ParseSetting("formation=-1e6±1e6", thermo.KJPerMol); err != nil || s.Value != -1e6 {
+		t.Errorf("the bound itself is accepted: %+v, %v", s, err)
+	}
+	c := build(t, "NaCl", Options{})
+	if err := c.Set("formation", 1e308, 0); err == nil || !strings.Contains(err.Error(), "formation") {
+		t.Errorf("Set(formation, 1e308) = %v; want a refusal naming the step", err)
+	}
+	file := "format = \"enthalpath-cycle\"\nversion = 1\ncompound = \"KBr\"\n[[step]]\nkey = \"lattice\"\nsource = \"user\"\nvalue = -1e308\n"
+	_, err := Unmarshal(loadDB(t), []byte(file))
+	var fe *FileError
+	if !errors.As(err, &fe) || !strings.Contains(err.Error(), "step[1].value") || !strings.Contains(err.Error(), "step lattice") {
+		t.Errorf("cycle file with lattice = -1e308: %v; want a refusal of step[1].value", err)
+	}
+	// The largest values accepted still solve to finite numbers.
+	for _, k := range []string{"formation", "atomization-cation", "ionization-1"} {
+		if err := c.Set(k, MaxStepMagnitude, MaxStepMagnitude); err != nil {
+			t.Fatal(err)
+		}
+	}
+	r := solve(t, c)
+	if math.IsInf(r.Solved.Value, 0) || math.IsInf(r.Solved.Uncertainty, 0) {
+		t.Errorf("solved %g ± %g", r.Solved.Value, r.Solved.Uncertainty)
+	}
+}
+
+// TestModelsNeverInfinite: whatever ρ, n and d₀ a cycle file gives, a model
+// returns a finite value or an error (a property, no source needed).
+func TestModelsNeverInfinite(t *testing.T) {
+	for _, set := range []Settings{
+		{Rho: 1e300},
+		{BornExponent: 1e300},
+		{BornExponent: 1e-300},
+		{Distance: DistanceUser, D0: 1e-300},
+		{Distance: DistanceUser, D0: 1e300},
+	} {
+		c := build(t, "NaCl", Options{Settings: set})
+		for _, m := range EvaluateModels(c) {
+			if m.Err == nil && (math.IsInf(m.Value, 0) || math.IsNaN(m.Value) || math.IsInf(m.Uncertainty, 0)) {
+				t.Errorf("%+v: %s gave %g ± %g", set, m.Model, m.Value, m.Uncertainty)
+			}
+		}
+	}
+}

@@ -229,6 +229,9 @@ func Solve(c *Cycle) (*Result, error) {
 	base := -sum / (hessSign(u) * u.Multiplicity)
 	u.Value = base + w.shift(u, w.Conventions)
 	u.Uncertainty = math.Sqrt(variance) / math.Abs(u.Multiplicity)
+	if math.IsNaN(u.Value) || math.IsInf(u.Value, 0) || math.IsNaN(u.Uncertainty) || math.IsInf(u.Uncertainty, 0) {
+		return nil, fmt.Errorf("cycle %s: the steps sum to no finite value for %s; check the values given", c.Formula, u.Key)
+	}
 	u.Source = Source{Kind: SourceSolved, Citation: "Hess's law over the other steps"}
 	w.refreshComposites()
 	res.Solved = *u
