@@ -31,8 +31,9 @@ type Setting struct {
 	Key string
 	// Value and Uncertainty are in kJ/mol (converted from the unit given).
 	Value, Uncertainty float64
-	// HasUncertainty is false when no ±UNC was written; the step then keeps
-	// an uncertainty of 0 (an exact user value).
+	// HasUncertainty is false when no ±UNC was written; Apply then keeps
+	// the step's uncertainty, as the workshop does (write ±0 for an exact
+	// value).
 	HasUncertainty bool
 }
 
@@ -144,5 +145,13 @@ func parseNumber(s string) (float64, error) {
 }
 
 // Apply sets the setting's step on c (see Cycle.Set); without ±UNC the
-// value is taken as exact (uncertainty 0).
-func (s Setting) Apply(c *Cycle) error { return c.Set(s.Key, s.Value, s.Uncertainty) }
+// value replaces the step's and its uncertainty stays (±0 makes it exact).
+func (s Setting) Apply(c *Cycle) error {
+	u := s.Uncertainty
+	if !s.HasUncertainty {
+		if st, ok := c.Step(s.Key); ok {
+			u = st.Uncertainty
+		}
+	}
+	return c.Set(s.Key, s.Value, u)
+}

@@ -144,3 +144,43 @@ func TestModelsNeverInfinite(t *testing.T) {
 		}
 	}
 }
+
+// TestApplyKeepsTheUncertainty: a value without ± replaces the step's value
+// and keeps its uncertainty, as the workshop's prompt does ("without ± the
+// old uncertainty is kept", tui/screen Context.ParseValue); ±0 makes it
+// exact. Before, MgO's lattice went from ±20 to ±1.3 after
+// --set attachment-2=800.
+func TestApplyKeepsTheUncertainty(t *testing.T) {
+	c := build(t, "MgO", Options{})
+	att, _ := c.Step("attachment-2")
+	keep := att.Uncertainty
+	if !(keep > 0) {
+		t.Fatalf("MgO attachment-2 has no uncertainty in the data (%g)", keep)
+	}
+	for _, tc := range []struct {
+		text string
+		unc  float64
+	}{
+		{"attachment-2=800", keep},
+		{"attachment-2=800±5", 5},
+		{"attachment-2=800±0", 0},
+	} {
+		d := c.Clone()
+		s, err := ParseSetting(tc.text, thermo.KJPerMol)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := s.Apply(d); err != nil {
+			t.Fatal(err)
+		}
+		got, _ := d.Step("attachment-2")
+		if got.Value != 800 || got.Uncertainty != tc.unc || got.Source.Kind != SourceUser {
+			t.Errorf("%s: %g ± %g (%v), want 800 ± %g from the user", tc.text, got.Value, got.Uncertainty, got.Source.Kind, tc.unc)
+		}
+	}
+	// An unknown key is still refused.
+	s, _ := ParseSetting("no-such-step=1", thermo.KJPerMol)
+	if err := s.Apply(c.Clone()); err == nil {
+		t.Errorf("Apply accepted an unknown step")
+	}
+}
