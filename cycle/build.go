@@ -331,7 +331,7 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 	// formula the tables lack would dominate a batch run.
 	suggestions := func() []string { return db.SuggestCompounds(formula) }
 	if err != nil {
-		reason := "not in the data and not a simple binary formula MₐXᵦ; give its ions with the cation and anion options"
+		reason := "not in the data and not a simple binary formula MₐXᵦ; give its cation and anion with their charges (for example Mg2+ and Cl-)"
 		if opt.Cation != "" && opt.Anion != "" {
 			reason = "cannot read the formula"
 		}
@@ -451,7 +451,7 @@ func pickIons(db *data.DB, formula string, p1, p2 formulaPart, opt Options) (dat
 		if !data.IsElementSymbol(second) {
 			return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("%q is not an element", second)}
 		}
-		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("the data have no anion of %s; write the metal first and give the ions (for example Anion %s-)", second, second)}
+		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("the data have no anion of %s; write the metal first, or give the cation and the anion with their charges (for example %s-)", second, second)}
 	}
 	for _, an := range anions {
 		for _, ca := range cations {

@@ -93,3 +93,23 @@ func TestPolyatomicIonInBinaryFormula(t *testing.T) {
 		t.Errorf("Ba(N3)2Cl accepted as a binary compound")
 	}
 }
+
+// TestBuildMessagesForUsers: the refusals of a formula name what the user
+// can give (a cation and an anion with charges), not the fields of Options
+// ("for example Anion Au-", "the cation and anion options" before).
+func TestBuildMessagesForUsers(t *testing.T) {
+	db := loadDB(t)
+	for _, f := range []string{"Na2Q", "AuNe", "NaClO4K"} {
+		_, err := Build(db, f, Options{})
+		if err == nil {
+			t.Errorf("Build(%s) accepted", f)
+			continue
+		}
+		msg := err.Error()
+		for _, internal := range []string{"Anion ", "Cation ", "options", "Options"} {
+			if strings.Contains(msg, internal) {
+				t.Errorf("Build(%s): %q says %q", f, msg, internal)
+			}
+		}
+	}
+}
