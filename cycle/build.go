@@ -1,11 +1,13 @@
 package cycle
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"slices"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"enthalpath/data"
 	"enthalpath/thermo"
@@ -331,6 +333,13 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 	// formula the tables lack would dominate a batch run.
 	suggestions := func() []string { return db.SuggestCompounds(formula) }
 	if err != nil {
+		// Not a formula at all (a hydrate, a full-width letter, a stray
+		// character): the formula reader says what and where, with its
+		// hint, and no tabulated compound is a useful suggestion.
+		var fe *data.FormulaError
+		if _, ferr := data.ParseFormula(formula); errors.As(ferr, &fe) {
+			return &CompoundError{Formula: formula, Reason: "not a formula: " + fe.Detail()}
+		}
 		reason := "not in the data and not a simple binary formula MₐXᵦ; give its cation and anion with their charges (for example Mg2+ and Cl-)"
 		if opt.Cation != "" && opt.Anion != "" {
 			reason = "cannot read the formula"
@@ -585,7 +594,7 @@ func parseParts(f string) (composition, []formulaPart, error) {
 		return nil, nil, err
 	}
 	if p.i < len(f) { // a ')' with no '('
-		return nil, nil, fmt.Errorf("unexpected %q at column %d", rune(f[p.i]), p.i+1)
+		return nil, nil, p.unexpected()
 	}
 	if len(comp) == 0 {
 		return nil, nil, fmt.Errorf("no element")
@@ -653,10 +662,17 @@ func (p *binaryParser) sequence(depth int) (composition, []formulaPart, error) {
 			}
 			parts = append(parts, formulaPart{core: sym, count: n})
 		default:
-			return nil, nil, fmt.Errorf("unexpected %q at column %d", rune(ch), p.i+1)
+			return nil, nil, p.unexpected()
 		}
 	}
 	return comp, parts, nil
+}
+
+// unexpected reports the character at p.i, whole (not its first byte), at
+// its 1-based column in characters.
+func (p *binaryParser) unexpected() error {
+	r, _ := utf8.DecodeRuneInString(p.f[p.i:])
+	return fmt.Errorf("unexpected %q at column %d", r, utf8.RuneCountInString(p.f[:p.i])+1)
 }
 
 // count reads the count after a part (1 when none is written).

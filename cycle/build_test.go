@@ -113,3 +113,25 @@ func TestBuildMessagesForUsers(t *testing.T) {
 		}
 	}
 }
+
+// TestUnreadableFormulaMessages: a formula that is not one is refused with
+// the reader's own account (whole characters, hydrates named), no byte of a
+// multi-byte character is quoted, and a huge input is quoted shortened.
+func TestUnreadableFormulaMessages(t *testing.T) {
+	db := loadDB(t)
+	cases := []struct{ formula, want string }{
+		{"CuSO4·5H2O", "hydrates"},
+		{"NaＣl", "'Ｃ'"},
+		{"Ba(N3", "'('"},
+	}
+	for _, tc := range cases {
+		_, err := Build(db, tc.formula, Options{})
+		if err == nil || !strings.Contains(err.Error(), tc.want) || strings.ContainsAny(err.Error(), "Âï") {
+			t.Errorf("Build(%q): %v; want it to say %s, with no stray byte", tc.formula, err, tc.want)
+		}
+	}
+	long := strings.Repeat("Na", 5000)
+	if _, err := Build(db, long, Options{}); err == nil || len(err.Error()) > 400 {
+		t.Errorf("Build(10,000-character formula): error of %d bytes; want it quoted shortened", len(err.Error()))
+	}
+}

@@ -1,6 +1,7 @@
 package cycle
 
 import (
+	"enthalpath/data"
 	"errors"
 	"fmt"
 	"strings"
@@ -85,7 +86,7 @@ type ChargeError struct {
 }
 
 func (e *ChargeError) Error() string {
-	return fmt.Sprintf("%s: impossible charge balance: %s", e.Formula, e.Detail)
+	return fmt.Sprintf("%s: impossible charge balance: %s", data.ShortInput(e.Formula), e.Detail)
 }
 
 func (e *ChargeError) Unwrap() error { return ErrChargeBalance }
@@ -101,7 +102,7 @@ type CompoundError struct {
 }
 
 func (e *CompoundError) Error() string {
-	msg := fmt.Sprintf("%s: %s", e.Formula, e.Reason)
+	msg := fmt.Sprintf("%s: %s", data.ShortInput(e.Formula), e.Reason)
 	if e.Err != nil {
 		msg += ": " + e.Err.Error()
 	}
@@ -153,8 +154,8 @@ type SettingError struct {
 }
 
 func (e *SettingError) Error() string {
-	return fmt.Sprintf("setting %q: %s at column %d (write KEY=VALUE or KEY=VALUE±UNC, e.g. attachment-2=744±20)",
-		e.Text, e.Reason, e.Column)
+	return fmt.Sprintf("setting %s: %s at column %d (write KEY=VALUE or KEY=VALUE±UNC, e.g. attachment-2=744±20)",
+		data.QuoteInput(e.Text), e.Reason, e.Column)
 }
 
 func (e *SettingError) Unwrap() error { return ErrBadSetting }

@@ -471,8 +471,8 @@ func (e *evaluator) bornModel(in *ModelInputs, mayer, actual bool) (float64, err
 	if n == 0 {
 		n, err = c.bornExponent()
 		if err != nil {
-			return 0, &ModelError{Model: ModelBornLande, Reason: "no Born exponent class for " + c.Cation.Ion.Symbol + " or " +
-				c.Anion.Ion.Symbol + "; set n yourself", Err: err}
+			return 0, &ModelError{Model: ModelBornLande, Reason: "no Pauling Born exponent for " + c.Cation.Ion.Symbol + " with " +
+				c.Anion.Ion.Symbol + " (cycle --born-n, or the Models screen, takes n as given)", Err: err}
 		}
 		in.BornExponentFrom = "mean of Pauling's values over the ions (" + c.Cation.Ion.BornConfig + " ×" + strconv.Itoa(c.Cation.Count) +
 			", " + c.Anion.Ion.BornConfig + " ×" + strconv.Itoa(c.Anion.Count) + ")"

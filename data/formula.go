@@ -450,7 +450,7 @@ func (p *formulaParser) count() (n int, written bool, err error) {
 	}
 	n, _ = strconv.Atoi(digits.String())
 	if n == 0 {
-		return 0, true, p.fail(start+1, "count 0")
+		return 0, true, p.fail(start+1, "zero count")
 	}
 	if p.in[start] == '0' || normalizeRune(p.in[start]) == '0' {
 		return 0, true, p.fail(start+1, "count with a leading zero")

@@ -91,7 +91,7 @@ func TestParseFormulaErrors(t *testing.T) {
 		{"MgOH)2", 5, "unmatched ')'"},
 		{"nacl", 1, "capital letter"},
 		{"2NaCl", 1, "cannot start with a number"},
-		{"Na0Cl", 3, "count 0"},
+		{"Na0Cl", 3, "zero count"},
 		{"", 0, "empty formula"},
 		{"Na+Cl", 4, "unexpected character"},
 		{"()", 1, "empty brackets"},
