@@ -139,6 +139,17 @@ func (a *Analyst) Solution(formula string, opt SolutionOptions) (*SolutionCycle,
 		return nil, &InputError{Subject: formula, Field: "--solve " + solve, Reason: "not a term of the solution cycle; the terms are " + strings.Join(SolutionKeys(), ", ")}
 	}
 	terms[ui].Unknown = true
+	// Measured enthalpy of solution.
+	measured := opt.Measured
+	if measured == nil {
+		if tab, ok := any(a.db).(solutionTable); ok {
+			if v, err := tab.SolutionEnthalpy(c.Formula); err == nil && v.Known() {
+				e := a.entry(v, 1.0)
+				measured = &e
+			}
+		}
+	}
+	sc.Measured = measured
 	for _, s := range opt.Sets {
 		i, ok := idx[s.Key]
 		if !ok {
@@ -151,21 +162,16 @@ func (a *Analyst) Solution(formula string, opt SolutionOptions) (*SolutionCycle,
 			return nil, &InputError{Subject: formula, Field: "--set " + s.Key,
 				Reason: fmt.Sprintf("%g kJ/mol: a lattice dissociation enthalpy is positive (the solid takes up heat to become gaseous ions); the Born–Haber cycle prints the lattice step in the other direction, negative, so give its magnitude", s.Value)}
 		}
-		terms[i].Value, terms[i].Uncertainty = s.Value, s.Uncertainty
+		u := s.Uncertainty
+		if !s.HasUncertainty {
+			// As for a cycle step: a value without ± keeps the uncertainty
+			// the term has from the data (none when the data have none).
+			u = a.solutionDataUncertainty(c, s.Key, cat, an, scale, opt.LatticeFrom, measured)
+		}
+		terms[i].Value, terms[i].Uncertainty = s.Value, u
 		terms[i].Source = cycle.Source{Kind: cycle.SourceUser, Key: "user", Citation: "entered by the user"}
 		known[s.Key] = true
 	}
-	// Measured enthalpy of solution.
-	measured := opt.Measured
-	if measured == nil {
-		if tab, ok := any(a.db).(solutionTable); ok {
-			if v, err := tab.SolutionEnthalpy(c.Formula); err == nil && v.Known() {
-				e := a.entry(v, 1.0)
-				measured = &e
-			}
-		}
-	}
-	sc.Measured = measured
 	// Lattice dissociation.
 	if li := idx[KeyLatticeDissociation]; li != ui && !known[KeyLatticeDissociation] {
 		v, u, src, err := a.latticeDissociation(c, opt.LatticeFrom)
@@ -250,6 +256,30 @@ func (a *Analyst) entry(v data.Value, def float64) cycle.Entry {
 		e.Uncertainty, e.Source.DefaultUncertainty = def, true
 	}
 	return e
+}
+
+// solutionDataUncertainty returns the uncertainty the data give term key of
+// the solution cycle of c, or 0 when the data have no value for it.
+func (a *Analyst) solutionDataUncertainty(c *cycle.Cycle, key string, cat, an data.Ion, scale, latticeFrom string, measured *cycle.Entry) float64 {
+	switch key {
+	case KeyLatticeDissociation:
+		if _, u, _, err := a.latticeDissociation(c, latticeFrom); err == nil {
+			return u
+		}
+	case KeyHydrationCation, KeyHydrationAnion:
+		ion := cat
+		if key == KeyHydrationAnion {
+			ion = an
+		}
+		if v, err := a.db.HydrationOnScale(ion.Symbol, scale); err == nil {
+			return a.entry(v, defaultHydrationUncertainty).Uncertainty
+		}
+	case KeyDissolution:
+		if measured != nil {
+			return measured.Uncertainty
+		}
+	}
+	return 0
 }
 
 // latticeDissociation returns ΔH_L (positive) of c: from the Born–Haber

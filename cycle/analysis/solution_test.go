@@ -9,6 +9,7 @@ import (
 	"testing"
 
 	"enthalpath/cycle"
+	"enthalpath/thermo"
 )
 
 // handbookSolutions reads data/tables/solution_enthalpies.csv: enthalpies of
@@ -150,6 +151,44 @@ func TestSolutionErrors(t *testing.T) {
 		for _, bad := range []string{"--set formation", "--set ion-formation", "--solve ion-formation"} {
 			if strings.Contains(err.Error(), bad) {
 				t.Errorf("%s: %q suggests %q, which the solution cycle refuses", tc.name, err, bad)
+			}
+		}
+	}
+}
+
+// TestSolutionSetKeepsUncertainty: as for a cycle step, a value set
+// without ± keeps the uncertainty the data give the term, and ±0 makes it
+// exact (the convention of cycle.Setting.Apply and the workshop).
+func TestSolutionSetKeepsUncertainty(t *testing.T) {
+	a := testAnalyst(t)
+	base, err := a.Solution("NaCl", SolutionOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var dataU float64
+	for _, tm := range base.Terms {
+		if tm.Key == KeyLatticeDissociation {
+			dataU = tm.Uncertainty
+		}
+	}
+	if dataU <= 0 {
+		t.Fatalf("the data's lattice term has no uncertainty (%v)", dataU)
+	}
+	for _, tc := range []struct {
+		text string
+		want float64
+	}{{"lattice-dissociation=790", dataU}, {"lattice-dissociation=790±0", 0}, {"lattice-dissociation=790±3", 3}} {
+		st, err := cycle.ParseSetting(tc.text, thermo.KJPerMol)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sc, err := a.Solution("NaCl", SolutionOptions{Sets: []cycle.Setting{st}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, tm := range sc.Terms {
+			if tm.Key == KeyLatticeDissociation && (tm.Value != 790 || !near(tm.Uncertainty, tc.want, 1e-9)) {
+				t.Errorf("%s: %.1f ± %.3f, want 790 ± %.3f", tc.text, tm.Value, tm.Uncertainty, tc.want)
 			}
 		}
 	}
