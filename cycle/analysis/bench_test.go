@@ -82,3 +82,15 @@ func BenchmarkScanCold(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkFitRadiusNitrate: the radius of NO3- fitted over its salts in
+// the data (a dozen cycles, each closed, and the least-squares search).
+func BenchmarkFitRadiusNitrate(b *testing.B) {
+	a := testAnalyst(b)
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := a.FitRadius("NO3-", FitOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

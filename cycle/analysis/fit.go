@@ -125,7 +125,7 @@ func (a *Analyst) FitRadius(ion string, opt FitOptions) (*FittedRadius, error) {
 			continue
 		}
 		s := SaltRadius{Formula: c.Formula, Counter: counter}
-		ro := RadiusOptions{Ion: in.Symbol, CounterRadius: radii[counter]}
+		ro := RadiusOptions{Ion: in.Symbol, CounterRadius: radii[counter], kapustinskiiOnly: true}
 		d, err := a.DeriveRadius(c.Formula, ro)
 		switch {
 		case err != nil:

@@ -22,6 +22,10 @@ type RadiusOptions struct {
 	LatticeSource string
 	// CounterRadius (Å), when positive, replaces the other ion's radius.
 	CounterRadius float64
+
+	// kapustinskiiOnly stops after the Kapustinskii radii (a fit over
+	// salts needs no volume or ρ, and ρ costs a Madelung sum per salt).
+	kapustinskiiOnly bool
 }
 
 // DerivedRadius is the radius that makes the models reproduce a lattice
@@ -141,6 +145,9 @@ func (a *Analyst) DeriveRadius(formula string, opt RadiusOptions) (*DerivedRadiu
 		d.KapustinskiiHandbook = r
 	} else {
 		d.KapustinskiiHandbookErr = err.Error()
+	}
+	if opt.kapustinskiiOnly {
+		return d, nil
 	}
 	// Volume-based: ion volumes add up (Jenkins et al. 1999).
 	ions := []lattice.IonKind{ionKind(c.Cation), ionKind(c.Anion)}
