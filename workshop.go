@@ -38,10 +38,13 @@ func runWorkshop(env cli.Env, args []string) int {
 		opts.Initial = args[0]
 	}
 	model := tui.New(opts)
-	p := tea.NewProgram(model, tea.WithAltScreen())
+	// Bubble Tea's own handler turns SIGTERM into a plain quit, which would
+	// drop unsaved work: the workshop takes the signals itself and shuts
+	// down the way it does on SIGHUP, keeping the work in the recovery file.
+	p := tea.NewProgram(model, tea.WithAltScreen(), tea.WithoutSignalHandler())
 
 	sig := make(chan os.Signal, 1)
-	signal.Notify(sig, syscall.SIGTERM, syscall.SIGHUP)
+	signal.Notify(sig, syscall.SIGTERM, syscall.SIGHUP, syscall.SIGINT)
 	defer signal.Stop(sig)
 	go func() {
 		for s := range sig {
