@@ -19,6 +19,7 @@ const (
 	ExitNoTerminal = 2  // no PTY was requested, or a command was given
 	ExitIdle       = 3  // closed after the idle timeout
 	ExitShutdown   = 4  // the server is shutting down
+	ExitLost       = 5  // the connection was lost (no client hears it; it tells the log a drop from a failure)
 	ExitBusy       = 75 // every session place is taken; try later (EX_TEMPFAIL of sysexits.h)
 )
 

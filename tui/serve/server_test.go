@@ -733,3 +733,15 @@ func TestSilentConnectionClosed(t *testing.T) {
 	tm := ts.mustTerm(t, ts.key, termOptions{})
 	tm.mustSee("enthalpath probe screen")
 }
+
+// TestBusyLine: the refusal reads right for one place and for several.
+func TestBusyLine(t *testing.T) {
+	for _, tc := range []struct {
+		n    int
+		want string
+	}{{1, "the one place on this server is taken"}, {3, "all 3 places on this server are taken"}} {
+		if got := busyLine(tc.n); !strings.HasPrefix(got, tc.want) {
+			t.Errorf("busyLine(%d) = %q, want it to start %q", tc.n, got, tc.want)
+		}
+	}
+}

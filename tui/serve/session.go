@@ -140,7 +140,7 @@ func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 		defer func() { <-s.slots }()
 	default:
 		return refuse(sess, log, ExitBusy, "session limit reached",
-			fmt.Sprintf("all %d places on this server are taken; please try again in a few minutes", s.cfg.MaxSessions))
+			busyLine(s.cfg.MaxSessions))
 	}
 	folder, err := s.userFolder(sess.PublicKey())
 	if err != nil {
@@ -250,6 +250,14 @@ func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 	return ExitOK, "quit"
 }
 
+// busyLine is what a client is told when every session place is taken.
+func busyLine(places int) string {
+	if places == 1 {
+		return "the one place on this server is taken; please try again in a few minutes"
+	}
+	return fmt.Sprintf("all %d places on this server are taken; please try again in a few minutes", places)
+}
+
 // recoveryWritten reports whether the recovery file exists and differs
 // from what was there at the start (before is nil if nothing was).
 func recoveryWritten(path string, before os.FileInfo) bool {
@@ -301,10 +309,10 @@ func (s *Server) watch(ls *liveSession, gate *inputGate, sess ssh.Session, done 
 		case <-done:
 			return
 		case <-sess.Context().Done():
-			ls.stop("connection lost", ExitFailure)
+			ls.stop("connection lost", ExitLost)
 			return
 		case <-gate.gone:
-			ls.stop("connection lost", ExitFailure)
+			ls.stop("connection lost", ExitLost)
 			return
 		case now := <-tick.C:
 			if gate.idleFor(now) >= s.cfg.IdleTimeout {
