@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
+	"slices"
+	"strconv"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/key"
@@ -18,52 +20,105 @@ import (
 // quit asks before losing unsaved changes.
 func (m *Model) quit() tea.Cmd {
 	if m.sess.Dirty && m.sess.Cycle != nil {
-		m.confirming = true
-		m.showHelp = false
-		return nil
+		return m.ask(nil)
 	}
 	m.quitting = true
 	return tea.Quit
 }
 
+// ask puts the unsaved-changes question, about quitting (open nil) or
+// about opening open in place of the cycle.
+func (m *Model) ask(open *screen.OpenMsg) tea.Cmd {
+	m.confirming, m.pending = true, open
+	m.showHelp = false
+	return nil
+}
+
+// then finishes what the question was about: quit, or open the request.
+func (m *Model) then(open *screen.OpenMsg) tea.Cmd {
+	if open == nil {
+		m.quitting = true
+		return tea.Quit
+	}
+	return m.openCmd(*open)
+}
+
+// pendingName is what the question's keys do after their part: "quit", or
+// "open MgO".
+func (m *Model) pendingName() string {
+	switch {
+	case m.pending == nil:
+		return "quit"
+	case m.pending.File != "":
+		return "open " + m.pending.File
+	case m.pending.Guided:
+		return "assemble " + m.pending.Formula
+	}
+	return "open " + m.pending.Formula
+}
+
+// confirmBindings are the question's keys with help that says what
+// follows (quitting or the open asked for); the keep key only with a
+// recovery file to keep.
+func (m *Model) confirmBindings() []key.Binding {
+	c := m.Confirm
+	then := m.pendingName()
+	with := func(b key.Binding, desc string) key.Binding {
+		b.SetHelp(b.Help().Key, desc)
+		return b
+	}
+	out := []key.Binding{with(c.Save, c.Save.Help().Desc+", then "+then)}
+	if m.opts.RecoveryPath != "" {
+		out = append(out, with(c.Keep, c.Keep.Help().Desc+", then "+then))
+	}
+	return append(out, with(c.Discard, c.Discard.Help().Desc+", then "+then), c.Back)
+}
+
 func (m *Model) confirmKey(k tea.KeyMsg) tea.Cmd {
 	c := m.Confirm
+	open := m.pending
 	switch {
 	case key.Matches(k, c.Back):
-		m.confirming = false
+		m.confirming, m.pending = false, nil
 	case key.Matches(k, c.Save):
-		m.confirming = false
-		return m.askSave(true)
+		m.confirming, m.pending = false, nil
+		return m.askSave(open == nil, open)
 	case key.Matches(k, c.Keep) && m.opts.RecoveryPath != "":
+		m.confirming, m.pending = false, nil
+		formula := m.sess.Cycle.Formula
 		p, err := m.writeRecovery()
 		if err != nil {
-			m.confirming = false
 			m.status, m.statusErr = "could not keep a recovery file: "+err.Error(), true
 			return nil
 		}
-		m.recovered, m.quitting = p, true
-		return tea.Quit
+		if open == nil {
+			m.recovered = p
+		} else {
+			m.status, m.statusErr = "The unsaved "+formula+" cycle was kept in "+p+".", false
+		}
+		return m.then(open)
 	case key.Matches(k, c.Discard):
-		m.quitting = true
-		return tea.Quit
+		m.confirming, m.pending = false, nil
+		return m.then(open)
 	}
 	return nil
 }
 
 func (m *Model) confirmView() string {
 	st := m.ctx.Styles
-	c := m.Confirm
-	lines := []string{
-		st.Title.Render("The " + m.sess.Cycle.Formula + " cycle has unsaved changes."),
-		"",
-		st.HelpKey.Render(c.Save.Help().Key) + "  " + c.Save.Help().Desc,
+	title := "The " + m.sess.Cycle.Formula + " cycle has unsaved changes."
+	lines := []string{st.Title.Render(title)}
+	if m.pending != nil {
+		lines = append(lines, st.Muted.Render("To "+m.pendingName()+", it must close first."))
 	}
-	if m.opts.RecoveryPath != "" {
-		lines = append(lines, st.HelpKey.Render(c.Keep.Help().Key)+"  "+c.Keep.Help().Desc+" ("+m.opts.RecoveryPath+")")
+	lines = append(lines, "")
+	for _, b := range m.confirmBindings() {
+		line := st.HelpKey.Render(b.Help().Key) + "  " + b.Help().Desc
+		if slices.Equal(b.Keys(), m.Confirm.Keep.Keys()) {
+			line += " (" + m.recoveryTarget() + ")"
+		}
+		lines = append(lines, line)
 	}
-	lines = append(lines,
-		st.HelpKey.Render(c.Discard.Help().Key)+"  "+c.Discard.Help().Desc,
-		st.HelpKey.Render(c.Back.Help().Key)+"  "+c.Back.Help().Desc)
 	return strings.Join(lines, "\n")
 }
 
@@ -94,7 +149,8 @@ func safeStem(s string) string {
 	return b.String()
 }
 
-func (m *Model) askSave(thenQuit bool) tea.Cmd {
+// askSave asks for a file name and saves; then quits or opens thenOpen.
+func (m *Model) askSave(thenQuit bool, thenOpen *screen.OpenMsg) tea.Cmd {
 	if m.sess.Cycle == nil {
 		return screen.Fail(errors.New("nothing to save yet: open a compound from the shelf first"))
 	}
@@ -119,7 +175,7 @@ func (m *Model) askSave(thenQuit bool) tea.Cmd {
 						return savedMsg{err: err}
 					}
 				}
-				return savedMsg{path: path, err: cycle.Save(path, snapshot), thenQuit: thenQuit}
+				return savedMsg{path: path, err: cycle.Save(path, snapshot), thenQuit: thenQuit, thenOpen: thenOpen}
 			}, nil
 		}))
 	return nil
@@ -135,6 +191,9 @@ func (m *Model) saved(msg savedMsg) tea.Cmd {
 	if msg.thenQuit {
 		m.quitting = true
 		return tea.Quit
+	}
+	if msg.thenOpen != nil {
+		return m.openCmd(*msg.thenOpen)
 	}
 	return nil
 }
@@ -161,13 +220,15 @@ func (m *Model) askOpen() tea.Cmd {
 	return nil
 }
 
-// writeRecovery writes the unsaved cycle to Options.RecoveryPath and
-// returns the path ("" when there was nothing to write).
+// writeRecovery writes the unsaved cycle to Options.RecoveryPath, or when
+// a file is there already to the first free numbered name beside it
+// (recovery-2.hesscycle, …), so an earlier recovery file is never
+// replaced; it returns the path ("" when there was nothing to write).
 func (m *Model) writeRecovery() (string, error) {
-	p := m.opts.RecoveryPath
-	if p == "" || m.sess.Cycle == nil || !m.sess.Dirty {
+	if m.opts.RecoveryPath == "" || m.sess.Cycle == nil || !m.sess.Dirty {
 		return "", nil
 	}
+	p := m.recoveryTarget()
 	if err := os.MkdirAll(filepath.Dir(p), 0o700); err != nil {
 		return "", err
 	}
@@ -175,6 +236,20 @@ func (m *Model) writeRecovery() (string, error) {
 		return "", err
 	}
 	return p, nil
+}
+
+// recoveryTarget is the path the next recovery file goes to: RecoveryPath
+// while no file is there, else the first free numbered name beside it.
+func (m *Model) recoveryTarget() string {
+	p := m.opts.RecoveryPath
+	ext := filepath.Ext(p)
+	stem := strings.TrimSuffix(p, ext)
+	for i := 2; ; i++ {
+		if _, err := os.Lstat(p); errors.Is(err, os.ErrNotExist) || i > 10000 {
+			return p
+		}
+		p = stem + "-" + strconv.Itoa(i) + ext
+	}
 }
 
 // WriteRecovery writes unsaved work to the recovery file, if any; the

@@ -158,3 +158,76 @@ func TestTooSmallWindowSaysSo(t *testing.T) {
 		t.Errorf("%d lines at 80×24", n)
 	}
 }
+
+// TestOpeningAnotherAsksFirst: opening another compound over unsaved work
+// (from the shelf or with ctrl+o) puts the quit key's question, and each
+// answer does what it says before the switch.
+func TestOpeningAnotherAsksFirst(t *testing.T) {
+	db := loadDB(t)
+	m, u, dir := newRoot(t, db, 80, 24)
+	openEdited(t, u)
+	keys(u, "1")
+	drive.Run(u, drive.Text("MgO")...)
+	keys(u, "enter")
+	if c := m.Session().Cycle; c.Formula != "NaCl" || !m.Session().Dirty {
+		t.Fatalf("enter on MgO over unsaved NaCl opened %s without asking", c.Formula)
+	}
+	v := m.View()
+	if !strings.Contains(v, "The NaCl cycle has unsaved changes") || !strings.Contains(v, "then open MgO") {
+		t.Fatalf("no question before opening MgO:\n%s", v)
+	}
+	if _, err := os.Stat(filepath.Join(dir, "recovery.hesscycle")); err == nil {
+		t.Fatal("a recovery file was written before the question was answered")
+	}
+	keys(u, "esc")
+	if c := m.Session().Cycle; c.Formula != "NaCl" || !m.Session().Dirty {
+		t.Fatalf("esc: the session holds %s (dirty %v), want the unsaved NaCl", c.Formula, m.Session().Dirty)
+	}
+	// k keeps the work, then opens MgO.
+	keys(u, "enter", "k")
+	if c := m.Session().Cycle; c.Formula != "MgO" || m.Session().Dirty {
+		t.Fatalf("k: the session holds %s (dirty %v), want a clean MgO", c.Formula, m.Session().Dirty)
+	}
+	// Edit MgO and keep it the same way: the first recovery file stays.
+	keys(u, "g", "j", "e")
+	drive.Run(u, drive.Text("600")...)
+	keys(u, "enter", "1", "ctrl+u")
+	drive.Run(u, drive.Text("KCl")...)
+	keys(u, "enter", "k")
+	first, err := cycle.Open(db, filepath.Join(dir, "recovery.hesscycle"))
+	if err != nil || first.Formula != "NaCl" {
+		t.Fatalf("first recovery file: %v, %v; want the NaCl kept first", first, err)
+	}
+	second, err := cycle.Open(db, filepath.Join(dir, "recovery-2.hesscycle"))
+	if err != nil || second.Formula != "MgO" {
+		t.Fatalf("second recovery file: %v, %v; want the MgO kept second", second, err)
+	}
+	// ctrl+o over unsaved work asks too; s saves, then opens.
+	keys(u, "g", "j", "e")
+	drive.Run(u, drive.Text("450")...)
+	keys(u, "enter", "ctrl+o", "ctrl+u")
+	drive.Run(u, drive.Text("recovery.hesscycle")...)
+	keys(u, "enter")
+	if v := m.View(); m.Session().Cycle.Formula != "KCl" || !strings.Contains(v, "then open recovery.hesscycle") {
+		t.Fatalf("ctrl+o over unsaved KCl did not ask:\n%s", v)
+	}
+	keys(u, "s", "enter")
+	if _, err := cycle.Open(db, filepath.Join(dir, "KCl"+cycle.FileExtension)); err != nil {
+		t.Fatalf("s did not save KCl: %v", err)
+	}
+	if c := m.Session().Cycle; c.Formula != "NaCl" {
+		t.Fatalf("after saving, %s is open; want the NaCl of recovery.hesscycle", c.Formula)
+	}
+	// x discards and opens.
+	keys(u, "g", "j", "e")
+	drive.Run(u, drive.Text("510")...)
+	keys(u, "enter", "1", "ctrl+u")
+	drive.Run(u, drive.Text("MgO")...)
+	keys(u, "enter", "x")
+	if c := m.Session().Cycle; c.Formula != "MgO" || m.Session().Dirty {
+		t.Fatalf("x: the session holds %s (dirty %v), want a clean MgO", c.Formula, m.Session().Dirty)
+	}
+	if _, err := os.Stat(filepath.Join(dir, "recovery-3.hesscycle")); err == nil {
+		t.Error("x wrote a recovery file")
+	}
+}

@@ -26,7 +26,9 @@ func DefaultKeyMap() KeyMap {
 	}
 }
 
-// ConfirmKeys are the keys of the unsaved-changes question.
+// ConfirmKeys are the keys of the unsaved-changes question, asked before
+// quitting or opening another cycle; the question adds to each what
+// follows ("…, then quit", "…, then open MgO").
 type ConfirmKeys struct {
 	Save, Keep, Discard, Back key.Binding
 }
@@ -34,9 +36,9 @@ type ConfirmKeys struct {
 // DefaultConfirmKeys returns the keys of the unsaved-changes question.
 func DefaultConfirmKeys() ConfirmKeys {
 	return ConfirmKeys{
-		Save:    key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "save, then quit")),
-		Keep:    key.NewBinding(key.WithKeys("k"), key.WithHelp("k", "keep a recovery file, then quit")),
-		Discard: key.NewBinding(key.WithKeys("x"), key.WithHelp("x", "discard the changes and quit")),
+		Save:    key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "save")),
+		Keep:    key.NewBinding(key.WithKeys("k"), key.WithHelp("k", "keep a recovery file")),
+		Discard: key.NewBinding(key.WithKeys("x"), key.WithHelp("x", "discard the changes")),
 		Back:    key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "back to work")),
 	}
 }

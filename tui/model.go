@@ -43,6 +43,7 @@ type savedMsg struct {
 	path     string
 	err      error
 	thenQuit bool
+	thenOpen *screen.OpenMsg // opened once saved
 }
 
 // Model is the root model of the workshop.
@@ -63,7 +64,8 @@ type Model struct {
 	statusErr     bool
 	showHelp      bool
 	confirming    bool
-	prompt        prompt.Slot // a file name, asked over the screen
+	pending       *screen.OpenMsg // what the question is about: nil to quit, else this open
+	prompt        prompt.Slot     // a file name, asked over the screen
 	quitting      bool
 	recovered     string // path of the recovery file written, for the last frame
 	memo          *cycle.Memo
@@ -173,10 +175,9 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 		return m.switchTo(msg.To)
 	case screen.OpenMsg:
 		if m.sess.Dirty && m.sess.Cycle != nil {
-			// Opening another compound replaces the cycle: keep the old one.
-			if p, err := m.writeRecovery(); err == nil && p != "" {
-				m.status = "The unsaved " + m.sess.Cycle.Formula + " cycle was kept in " + p + "."
-			}
+			// Opening another compound replaces the cycle: ask first, with
+			// the question the quit key asks.
+			return m.ask(&msg)
 		}
 		return m.openCmd(msg)
 	case openedMsg:
@@ -239,7 +240,7 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 	case global(m.Keys.PrevScreen):
 		return m.switchTo((m.active + screen.ID(len(m.screens)) - 1) % screen.ID(len(m.screens)))
 	case global(m.Keys.Save):
-		return m.askSave(false)
+		return m.askSave(false, nil)
 	case global(m.Keys.Open):
 		return m.askOpen()
 	case global(m.Keys.Help):
