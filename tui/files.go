@@ -155,6 +155,7 @@ func (m *Model) askSave(thenQuit bool, thenOpen *screen.OpenMsg) tea.Cmd {
 		return screen.Fail(errors.New("nothing to save yet: open a compound from the shelf first"))
 	}
 	snapshot := m.sess.Cycle.Clone()
+	replace := "" // an existing file the user said to replace
 	where := "the current folder"
 	if m.opts.FileRoot != "" {
 		where = "your folder"
@@ -169,6 +170,13 @@ func (m *Model) askSave(thenQuit bool, thenOpen *screen.OpenMsg) tea.Cmd {
 			if err != nil {
 				return nil, err
 			}
+			if path != replace && path != m.sess.Path {
+				if held, exists := m.holds(path); exists {
+					// Asked in place: enter again on the same name replaces it.
+					replace = path
+					return nil, fmt.Errorf("%s already exists and holds %s; press enter again to replace it, or type another name", name, held)
+				}
+			}
 			return func() tea.Msg {
 				if dir := filepath.Dir(path); dir != "" {
 					if err := os.MkdirAll(dir, 0o755); err != nil {
@@ -179,6 +187,24 @@ func (m *Model) askSave(thenQuit bool, thenOpen *screen.OpenMsg) tea.Cmd {
 			}, nil
 		}))
 	return nil
+}
+
+// holds reports whether a file is at path and says what it holds: "the
+// MgO cycle", or that it is not a cycle file this program reads.
+func (m *Model) holds(path string) (string, bool) {
+	st, err := os.Stat(path)
+	if errors.Is(err, os.ErrNotExist) {
+		return "", false
+	}
+	if err == nil && st.IsDir() {
+		return "a folder", true
+	}
+	if m.opts.DB != nil {
+		if c, err := cycle.Open(m.opts.DB, path); err == nil {
+			return "the " + c.Formula + " cycle", true
+		}
+	}
+	return "something that is not a cycle file this program reads", true
 }
 
 func (m *Model) saved(msg savedMsg) tea.Cmd {

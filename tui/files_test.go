@@ -231,3 +231,35 @@ func TestOpeningAnotherAsksFirst(t *testing.T) {
 		t.Error("x wrote a recovery file")
 	}
 }
+
+// TestSaveAsksBeforeReplacingAFile: saving under the name of an existing
+// file says what the file holds and replaces it only on a second enter.
+func TestSaveAsksBeforeReplacingAFile(t *testing.T) {
+	db := loadDB(t)
+	m, u, dir := newRoot(t, db, 80, 24)
+	openEdited(t, u)
+	keys(u, "ctrl+s", "enter") // NaCl.hesscycle, a new file: no question
+	nacl := filepath.Join(dir, "NaCl"+cycle.FileExtension)
+	if _, err := os.Stat(nacl); err != nil {
+		t.Fatalf("NaCl not saved: %v", err)
+	}
+	drive.Run(u, screen.OpenMsg{Formula: "MgO"})
+	keys(u, "ctrl+s", "ctrl+u")
+	drive.Run(u, drive.Text("NaCl")...)
+	keys(u, "enter")
+	if c, err := cycle.Open(db, nacl); err != nil || c.Formula != "NaCl" {
+		t.Fatalf("after one enter NaCl.hesscycle holds %v (%v); it was replaced without asking", c, err)
+	}
+	if v := m.View(); !strings.Contains(v, "holds the NaCl cycle") || !strings.Contains(v, "enter again") {
+		t.Fatalf("no question naming what the file holds:\n%s", v)
+	}
+	keys(u, "enter")
+	if c, err := cycle.Open(db, nacl); err != nil || c.Formula != "MgO" {
+		t.Fatalf("after a second enter NaCl.hesscycle holds %v (%v), want MgO", c, err)
+	}
+	// Saving again to the file the cycle is in does not ask.
+	keys(u, "ctrl+s", "enter")
+	if v := m.View(); strings.Contains(v, "already exists") {
+		t.Errorf("saving to the cycle's own file asked:\n%s", v)
+	}
+}
