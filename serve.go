@@ -18,6 +18,7 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/cycle/cli"
 	"enthalpath/tui"
+	"enthalpath/tui/screen"
 	"enthalpath/tui/serve"
 )
 
@@ -154,6 +155,7 @@ func runServe(env cli.Env, args []string) int {
 		})
 	}
 	cfg.ShutdownMsg = func(reason string) tea.Msg { return tui.ShutdownMsg{Reason: reason} }
+	cfg.NoticeMsg = func(text string) tea.Msg { return screen.StatusMsg{Text: text, Err: true} }
 	if err := os.MkdirAll(cfg.StateDir, 0o700); err != nil {
 		fmt.Fprintf(env.Stderr, "enthalpath serve: --state-dir %s: %v\n", cfg.StateDir, err)
 		return cli.ExitUsage

@@ -88,6 +88,9 @@ type Config struct {
 	// ShutdownMsg makes the message that tells a model to save its unsaved
 	// work to its recovery file and quit.
 	ShutdownMsg func(reason string) tea.Msg
+	// NoticeMsg, when set, makes the message that shows the member a
+	// one-line notice (input dropped for being too long, for one).
+	NoticeMsg func(text string) tea.Msg
 
 	// Logger receives structured logs; nil logs nothing.
 	Logger *slog.Logger

@@ -29,6 +29,10 @@ import (
 // probeShutdown is the test's shutdown message.
 type probeShutdown struct{ reason string }
 
+// probeNotice is the probe's notice message (Config.NoticeMsg); it shows
+// the text on its note line.
+type probeNotice struct{ text string }
+
 // probe is a small stand-in for the workshop: it shows what was typed, the
 // window size, and saves through safepath on ">NAME<Enter>". '!' panics in
 // Update, '@' in a command, '#' in View. On the shutdown message it writes
@@ -66,6 +70,8 @@ func (p *probe) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 			}
 		}
 		return p, tea.Quit
+	case probeNotice:
+		p.note = msg.text
 	case tea.WindowSizeMsg:
 		p.w, p.h = msg.Width, msg.Height
 	case tea.KeyMsg:
@@ -185,6 +191,7 @@ func startServer(t testing.TB, edit func(*Config)) *testServer {
 		IdleTimeout:        time.Minute,
 		NewModel:           newProbe(nil),
 		ShutdownMsg:        func(reason string) tea.Msg { return probeShutdown{reason} },
+		NoticeMsg:          func(text string) tea.Msg { return probeNotice{text} },
 		Logger:             slog.New(slog.NewJSONHandler(ts.logs, &slog.HandlerOptions{Level: slog.LevelDebug})),
 	}
 	if edit != nil {

@@ -22,7 +22,8 @@ type inputGate struct {
 	gone     chan struct{} // closed when the channel itself ends
 	once     sync.Once
 	maxBurst int
-	onDrop   func(bytes int)
+	// onDrop is told of each dropped read, and whether it starts a burst.
+	onDrop func(bytes int, burstStart bool)
 
 	lastInput atomic.Int64 // UnixNano of the last accepted read
 
@@ -31,7 +32,7 @@ type inputGate struct {
 	deadline time.Time
 }
 
-func newInputGate(src io.Reader, maxBurst int, onDrop func(bytes int)) *inputGate {
+func newInputGate(src io.Reader, maxBurst int, onDrop func(bytes int, burstStart bool)) *inputGate {
 	g := &inputGate{
 		chunks:   make(chan []byte, 4),
 		closed:   make(chan struct{}),
@@ -56,9 +57,10 @@ func (g *inputGate) pump(src io.Reader) {
 		if n > 0 {
 			now := time.Now()
 			if n > g.maxBurst || (!droppedAt.IsZero() && now.Sub(droppedAt) < burstQuiet) {
+				first := droppedAt.IsZero() || now.Sub(droppedAt) >= burstQuiet
 				droppedAt = now
 				if g.onDrop != nil {
-					g.onDrop(n)
+					g.onDrop(n, first)
 				}
 			} else {
 				droppedAt = time.Time{}

@@ -379,6 +379,8 @@ func TestBurstDropped(t *testing.T) {
 	if !strings.Contains(ts.logs.String(), "input burst dropped") {
 		t.Error("the dropped burst is not in the log")
 	}
+	// The member is told on screen, not only the log.
+	tm.mustSee("note: a paste of more than 1024 bytes at once was dropped")
 }
 
 // TestPathEscapesThroughServer types file names into a session: names that

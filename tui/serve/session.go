@@ -155,9 +155,15 @@ func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 	before, _ := os.Stat(recovery)
 
 	var dropped atomic.Int64
-	gate := newInputGate(sess, s.cfg.MaxBurst, func(n int) {
+	// The gate reads before the program runs; a drop is told to the
+	// member only once there is a program to tell.
+	var progRef atomic.Pointer[tea.Program]
+	gate := newInputGate(sess, s.cfg.MaxBurst, func(n int, burstStart bool) {
 		if dropped.Add(int64(n)) == int64(n) {
 			log.Warn("input burst dropped", "bytes", n, "limit", s.cfg.MaxBurst)
+		}
+		if p := progRef.Load(); burstStart && p != nil && s.cfg.NoticeMsg != nil {
+			p.Send(s.cfg.NoticeMsg(fmt.Sprintf("a paste of more than %d bytes at once was dropped (this server's limit); type or paste less at a time", s.cfg.MaxBurst)))
 		}
 	})
 	defer gate.Close()
@@ -195,6 +201,7 @@ func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 		tea.WithFPS(frameRate),
 	)
 	g.send = prog.Send
+	progRef.Store(prog)
 
 	ls := &liveSession{prog: prog, shutdown: s.cfg.ShutdownMsg, log: log}
 	s.mu.Lock()
