@@ -28,12 +28,16 @@ var Shortlist = [...]string{"KCl", "MgO", "CaF2", "AgBr", "CsI", "LiF"}
 type Model struct {
 	KeyMap KeyMap
 
-	ctx      *screen.Context
-	input    textinput.Model
-	all      []row
-	shown    []int // indices into all
-	cursor   int
-	top      int
+	ctx    *screen.Context
+	input  textinput.Model
+	all    []row
+	shown  []int // indices into all
+	cursor int
+	top    int
+	// typedNew is the filter when it is a whole formula the data lack: enter
+	// then assembles it, and no row is highlighted until ↑/↓ picks one.
+	typedNew string
+	picked   bool
 	w, h     int
 	shortSet map[string]bool
 }
@@ -112,9 +116,11 @@ func (m *Model) FullHelp() [][]key.Binding {
 // Filter returns the text typed so far.
 func (m *Model) Filter() string { return strings.TrimSpace(m.input.Value()) }
 
-// Selected returns the highlighted compound's formula, or "".
+// Selected returns the highlighted compound's formula, or "" when no row
+// is highlighted (none matches, or the filter is a formula the data lack
+// and no row was picked with ↑/↓).
 func (m *Model) Selected() string {
-	if len(m.shown) == 0 {
+	if len(m.shown) == 0 || m.typedNew != "" && !m.picked {
 		return ""
 	}
 	return m.all[m.shown[m.cursor]].c.Formula
@@ -163,9 +169,10 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 }
 
 func (m *Model) open(guided bool) tea.Cmd {
-	// ctrl+g assembles the formula as typed when the data lack it, even if
-	// the filter still shows compounds that contain it (MgCl shows MgCl2).
-	if typed := strings.TrimSpace(m.Filter()); guided && m.lacks(typed) {
+	// A whole formula the data lack is assembled as typed, even if the
+	// filter still shows compounds that contain it (MgCl shows MgCl2):
+	// always by ctrl+g, by enter unless a row was picked with ↑/↓.
+	if typed := m.typedNew; typed != "" && (guided || !m.picked) {
 		return func() tea.Msg { return screen.OpenMsg{Formula: typed, Guided: true} }
 	}
 	formula := m.Selected()
@@ -198,6 +205,11 @@ func (m *Model) lacks(s string) bool {
 func (m *Model) move(d int) {
 	if len(m.shown) == 0 {
 		return
+	}
+	if m.typedNew != "" && !m.picked {
+		// The first move picks the first row rather than passing it.
+		m.picked = true
+		d = max(0, d-1)
 	}
 	m.cursor = max(0, min(len(m.shown)-1, m.cursor+d))
 	m.clampScroll()
@@ -233,6 +245,10 @@ func (m *Model) refilter() {
 		m.shown[0] = e
 	}
 	m.cursor, m.top = 0, 0
+	m.typedNew, m.picked = "", false
+	if typed := m.Filter(); m.lacks(typed) {
+		m.typedNew = typed
+	}
 }
 
 func (m *Model) listHeight() int { return max(1, m.h-6) }
@@ -268,6 +284,13 @@ func (m *Model) View() string {
 	header := fmt.Sprintf("   %-9s %-*s %-*s %12s  %-12s", "formula", nameW, "name", famW, "family", "ΔfH°("+unit+")", "structure")
 	lines = append(lines, st.Title.Render(truncate(header, m.w)))
 	lh := m.listHeight()
+	if m.typedNew != "" && len(m.shown) > 0 {
+		msg := fmt.Sprintf("%s is not in the data: enter assembles it step by step · ↓ picks a row below", m.typedNew)
+		if m.picked {
+			msg = fmt.Sprintf("enter opens the highlighted row · ctrl+g assembles %s (not in the data)", m.typedNew)
+		}
+		lines = append(lines, st.Accent.Render(truncate(msg, m.w)))
+	}
 	if len(m.shown) == 0 {
 		msg := "No compound of the data matches."
 		if f := m.Filter(); f != "" {
@@ -285,7 +308,8 @@ func (m *Model) View() string {
 			mark = "u"
 		}
 		cursor := " "
-		if i == m.cursor {
+		highlighted := i == m.cursor && (m.typedNew == "" || m.picked)
+		if highlighted {
 			cursor = "›"
 		}
 		form := "—"
@@ -299,7 +323,7 @@ func (m *Model) View() string {
 		text := fmt.Sprintf("%s%s %-9s %-*s %-*s %12s  %-12s", cursor, mark, r.c.Formula, nameW, truncate(r.c.Name, nameW),
 			famW, truncate(r.c.Family, famW), form, structure)
 		text = truncate(text, m.w)
-		if i == m.cursor {
+		if highlighted {
 			text = st.Selected.Render(text)
 		}
 		lines = append(lines, text)

@@ -86,9 +86,12 @@ func TestFilterAsYouTypeAndOpen(t *testing.T) {
 }
 
 // A formula the data lack: with nothing on the shelf matching (SrAt: no
-// compound of Sr and At), enter goes to the guided assembly of it; when the
-// filter still shows compounds containing it (MgCl shows MgCl2), enter
-// opens the highlighted one and ctrl+g assembles the formula as typed.
+// compound of Sr and At), enter goes to the guided assembly of it. So it
+// does when the filter still shows compounds containing it (MgCl shows
+// MgCl2), as README's Shelf row promises ("a formula the data lack goes to
+// the guided build"): no row is highlighted and a line says what enter
+// does, until ↓ picks a row, which enter then opens; ctrl+g always
+// assembles the formula as typed.
 func TestUnknownFormulaGoesToTheAssembly(t *testing.T) {
 	_, m, u := setup(t)
 	drive.Run(u, drive.Text("SrAt")...)
@@ -105,11 +108,25 @@ func TestUnknownFormulaGoesToTheAssembly(t *testing.T) {
 
 	_, m, u = setup(t)
 	drive.Run(u, drive.Text("MgCl")...)
+	if got := m.Matches(); len(got) == 0 || got[0] != "MgCl2" {
+		t.Fatalf("MgCl shows %v, want MgCl2 (the data's magnesium chloride) among the rows", got)
+	}
+	v := m.View()
+	if m.Selected() != "" || strings.Contains(v, "\n›") {
+		t.Errorf("MgCl highlights %q; no row should be, enter assembles MgCl:\n%s", m.Selected(), v)
+	}
+	if !strings.Contains(v, "MgCl is not in the data: enter assembles it") {
+		t.Errorf("the view does not say what enter does:\n%s", v)
+	}
+	if o, ok := openOf(drive.Run(u, drive.Key("enter"))); !ok || o.Formula != "MgCl" || !o.Guided {
+		t.Errorf("enter on the typed MgCl sent %+v, want the guided assembly of MgCl", o)
+	}
+	drive.Run(u, drive.Key("down"))
 	if m.Selected() != "MgCl2" {
-		t.Fatalf("MgCl highlights %q, want MgCl2 (the data's magnesium chloride)", m.Selected())
+		t.Fatalf("↓ after MgCl highlights %q, want the first row MgCl2", m.Selected())
 	}
 	if o, ok := openOf(drive.Run(u, drive.Key("enter"))); !ok || o.Formula != "MgCl2" || o.Guided {
-		t.Errorf("enter with MgCl2 highlighted sent %+v, want MgCl2 opened", o)
+		t.Errorf("enter with MgCl2 picked sent %+v, want MgCl2 opened", o)
 	}
 	if o, ok := openOf(drive.Run(u, drive.Key("ctrl+g"))); !ok || o.Formula != "MgCl" || !o.Guided {
 		t.Errorf("ctrl+g on the typed MgCl sent %+v, want the guided assembly of MgCl", o)
