@@ -213,3 +213,18 @@ func TestConventionKeys(t *testing.T) {
 		t.Errorf("under U the solved lattice step is %v, want U = %v", got, after.Energy)
 	}
 }
+
+// TestStatusNamesOnlyHelpKeysThatWork: the idle status line names the keys
+// that open the key list, and on the Shelf, where ? is text, only f1.
+func TestStatusNamesOnlyHelpKeysThatWork(t *testing.T) {
+	db := loadDB(t)
+	m, u, _ := newRoot(t, db, 100, 30)
+	v := m.View()
+	if strings.Contains(v, "? or f1") || !strings.Contains(v, "f1 lists every key") {
+		t.Errorf("the Shelf's status names ? (text there) or no help key:\n%s", v)
+	}
+	keys(u, "tab")
+	if v := m.View(); !strings.Contains(v, "? or f1 lists every key") {
+		t.Errorf("the Bench's status does not name ? and f1:\n%s", v)
+	}
+}

@@ -418,7 +418,7 @@ func (m *Model) statusLine() string {
 	case m.sess.Path != "":
 		out = st.Muted.Render("file: " + m.sess.Path)
 	default:
-		out = st.Muted.Render("enthalpath workshop — ? or f1 lists every key")
+		out = st.Muted.Render("enthalpath workshop — " + m.helpKeys() + " lists every key")
 	}
 	return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(out)
 }
@@ -435,6 +435,9 @@ func (m *Model) ShortHelp() []key.Binding {
 	}
 	b := m.screens[m.active].ShortHelp()
 	if m.screens[m.active].Capturing() {
+		if h, ok := withoutPrintable(m.Keys.Help); ok {
+			b = append(b, h)
+		}
 		return append(b, m.Keys.ForceQuit)
 	}
 	return append(b, m.Keys.Help, m.Keys.Quit)
@@ -459,6 +462,16 @@ func (m *Model) FullHelp() [][]key.Binding {
 		}
 	}
 	return append(groups, globals...)
+}
+
+// helpKeys names the keys that open the key list on the screen shown ("?
+// or f1"; "f1" while the screen is typing, when ? is text).
+func (m *Model) helpKeys() string {
+	b := m.Keys.Help
+	if m.screens[m.active].Capturing() {
+		b, _ = withoutPrintable(b)
+	}
+	return strings.Join(b.Keys(), " or ")
 }
 
 // printable reports whether k is text (a character or space).
