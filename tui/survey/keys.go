@@ -5,6 +5,7 @@ import "github.com/charmbracelet/bubbles/key"
 // KeyMap is the survey's keys.
 type KeyMap struct {
 	Up, Down, PageUp, PageDown key.Binding
+	First, Last                key.Binding
 	Filter, Sort, Reverse      key.Binding
 	Model, View, Open          key.Binding
 	Done, Clear                key.Binding
@@ -17,6 +18,8 @@ func DefaultKeyMap() KeyMap {
 		Down:     key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "next compound")),
 		PageUp:   key.NewBinding(key.WithKeys("pgup"), key.WithHelp("pgup", "page up")),
 		PageDown: key.NewBinding(key.WithKeys("pgdown"), key.WithHelp("pgdn", "page down")),
+		First:    key.NewBinding(key.WithKeys("home", "g"), key.WithHelp("home/g", "first row")),
+		Last:     key.NewBinding(key.WithKeys("end", "G"), key.WithHelp("end/G", "last row")),
 		Filter:   key.NewBinding(key.WithKeys("/"), key.WithHelp("/", "filter")),
 		Sort:     key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "sort by the next column")),
 		Reverse:  key.NewBinding(key.WithKeys("S"), key.WithHelp("S", "reverse the order")),

@@ -97,7 +97,7 @@ func (m *Model) ShortHelp() []key.Binding {
 // FullHelp lists every key.
 func (m *Model) FullHelp() [][]key.Binding {
 	k := m.KeyMap
-	return [][]key.Binding{{k.Up, k.Down, k.PageUp, k.PageDown}, {k.Filter, k.Sort, k.Reverse}, {k.Model, k.View, k.Open}}
+	return [][]key.Binding{{k.Up, k.Down, k.PageUp, k.PageDown, k.First, k.Last}, {k.Filter, k.Sort, k.Reverse}, {k.Model, k.View, k.Open}}
 }
 
 // Update handles keys and the computed rows.
@@ -153,6 +153,10 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		m.move(-m.tableRows())
 	case key.Matches(k, km.PageDown):
 		m.move(m.tableRows())
+	case key.Matches(k, km.First):
+		m.move(-len(m.shown))
+	case key.Matches(k, km.Last):
+		m.move(len(m.shown))
 	case key.Matches(k, km.Filter):
 		m.filtering = true
 		return m.filter.Focus()
@@ -161,13 +165,17 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		m.refresh()
 	case key.Matches(k, km.Sort):
 		m.sortBy = (m.sortBy + 1) % len(sortNames)
-		m.refresh()
+		m.resort()
 	case key.Matches(k, km.Reverse):
 		m.reverse = !m.reverse
-		m.refresh()
+		m.resort()
 	case key.Matches(k, km.Model):
 		m.model = (m.model + 1) % len(cycle.ModelNames())
-		m.refresh()
+		if m.sortByModel() {
+			m.resort() // the order changes with the model
+		} else {
+			m.refresh()
+		}
 	case key.Matches(k, km.View):
 		m.view = (m.view + 1) % viewCount
 	case key.Matches(k, km.Open):
@@ -184,6 +192,21 @@ func (m *Model) move(d int) {
 	if len(m.shown) > 0 {
 		m.cursor = max(0, min(len(m.shown)-1, m.cursor+d))
 	}
+}
+
+// resort re-sorts and puts the cursor and the view on the first row.
+func (m *Model) resort() {
+	m.refresh()
+	m.cursor, m.top = 0, 0
+}
+
+// sortByModel reports whether the sort column depends on the gap model.
+func (m *Model) sortByModel() bool {
+	switch sortNames[m.sortBy] {
+	case "model", "gap", "gap %":
+		return true
+	}
+	return false
 }
 
 // refresh re-filters and re-sorts, keeping the highlighted compound.
@@ -327,8 +350,31 @@ func (m *Model) table(h int) []string {
 		}
 		out = append(out, text)
 	}
-	out = append(out, st.Muted.Render(trunc("gap = cycle − model; negative: the cycle binds more than the ionic model", m.w)))
+	note := "gap = cycle − model; negative: the cycle binds more than the ionic model"
+	if pos := m.position(rows); pos != "" {
+		note = pos + " · " + note
+	}
+	out = append(out, st.Muted.Render(trunc(note, m.w)))
 	return out
+}
+
+// position says which rows the window shows when some are above or below
+// it ("rows 21–38 of 277, more above and below"), else "".
+func (m *Model) position(rows int) string {
+	n := len(m.shown)
+	last := min(n, m.top+rows)
+	above, below := m.top > 0, last < n
+	if !above && !below {
+		return ""
+	}
+	more := "↑ more above"
+	switch {
+	case above && below:
+		more = "↑↓ more above and below"
+	case below:
+		more = "↓ more below"
+	}
+	return fmt.Sprintf("rows %d–%d of %d, %s", m.top+1, last, n, more)
 }
 
 func (m *Model) num(kj float64) string {

@@ -169,3 +169,37 @@ func TestChartsFitAndNameTheirGroups(t *testing.T) {
 		}
 	}
 }
+
+// TestSortShowsTheFirstRow: after a sort the cursor and the view are on the
+// first row of the new order, the window says when rows lie above or below
+// it, and g/G (home/end) go to the first and last rows.
+func TestSortShowsTheFirstRow(t *testing.T) {
+	_, m, u := setup(t)
+	m.SetSize(80, 21)
+	drive.Run(u, screen.ShownMsg{})
+	for i := 0; i < 40; i++ {
+		drive.Run(u, drive.Key("j"))
+	}
+	for i := 0; i < 3; i++ {
+		drive.Run(u, drive.Key("s"))
+		first := m.Shown()[0]
+		if m.Cursor() != 0 {
+			t.Errorf("after sorting by %v the cursor is on row %d, want the first", sortNames[m.sortBy], m.Cursor())
+		}
+		if v := m.View(); !strings.Contains(v, "› "+first) {
+			t.Errorf("sorted by %v: the first row %s is not shown highlighted:\n%s", sortNames[m.sortBy], first, v)
+		}
+	}
+	if v := m.View(); !strings.Contains(v, "rows 1–") || !strings.Contains(v, "more below") {
+		t.Errorf("no position indicator with rows below the window:\n%s", v)
+	}
+	drive.Run(u, drive.Key("G"))
+	n := len(m.Shown())
+	if m.Cursor() != n-1 || !strings.Contains(m.View(), "more above") {
+		t.Errorf("G: cursor %d of %d rows, or no 'more above':\n%s", m.Cursor(), n, m.View())
+	}
+	drive.Run(u, drive.Key("home"))
+	if m.Cursor() != 0 {
+		t.Errorf("home: cursor %d, want 0", m.Cursor())
+	}
+}
