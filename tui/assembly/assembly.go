@@ -30,6 +30,8 @@ type Model struct {
 	unknown  string       // the step chosen as the unknown, or ""
 	edit     prompt.Slot  // a value of one's own for the proposed step, while typed
 	w, h     int
+
+	magnitudes session.Magnitudes // the data's largest step values, on the first value typed
 }
 
 var _ screen.Screen = (*Model)(nil)
@@ -321,13 +323,15 @@ func (m *Model) startEdit() {
 	}
 	m.edit.Open(prompt.New(m.ctx.Styles, "", "", "", m.ctx.MaxInputLen, m.acceptValue(s.Key),
 		prompt.WithLabel("value › "),
-		prompt.WithPlaceholder("e.g. -349.0±0.5 ("+m.ctx.Units.String()+")"),
+		prompt.WithPlaceholder("e.g. "+session.Example(m.ctx, s)+" ("+m.ctx.Units.String()+")"),
 		prompt.WithSubmitHelp("accept the value")))
 }
 
 // acceptValue checks a value typed for step key and sets it as decided;
 // without ± the data's uncertainty is taken (0 when the data have none).
+// An implausibly large value is questioned once, as on the bench.
 func (m *Model) acceptValue(key string) prompt.Accept {
+	confirmed := ""
 	return func(text string) (tea.Cmd, error) {
 		s, ok := m.sess.Cycle.Step(key)
 		if !ok {
@@ -339,6 +343,13 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 		}
 		kj, unc, err := m.ctx.ParseValue(text, keep)
 		if err != nil {
+			return nil, err
+		}
+		if m.magnitudes == nil {
+			m.magnitudes = session.DataMagnitudes(m.ctx.DB)
+		}
+		if err := m.magnitudes.Check(m.ctx, s.Kind, text, kj); err != nil && confirmed != text {
+			confirmed = text
 			return nil, err
 		}
 		lattice := s.Kind == cycle.KindLattice

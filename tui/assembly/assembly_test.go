@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"enthalpath/cycle"
+	"enthalpath/thermo"
 	"enthalpath/tui/internal/drive"
 	"enthalpath/tui/screen"
 )
@@ -174,5 +175,32 @@ func TestTypeAnotherValueAndGoBack(t *testing.T) {
 	drive.Run(u, drive.Key("b"))
 	if d, _ := m.Position(); d != 0 || m.currentKey() != "atomization-cation" {
 		t.Errorf("b did not go back: %d decided, at %s", d, m.currentKey())
+	}
+}
+
+// TestValuePromptInTheDisplayUnit: the example of the value prompt is the
+// step's data value in the display unit, and a value far beyond any of its
+// kind in the data (5000 eV for the atomization of Na, 1.1 eV in the data)
+// is questioned in place before it is set.
+func TestValuePromptInTheDisplayUnit(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	f.Ctx.Units = thermo.EVPerFormulaUnit
+	s := m.current()
+	drive.Run(u, drive.Key("e"))
+	want := "e.g. " + strings.ReplaceAll(screen.FormatEnergy(s.Reference.Value, thermo.EVPerFormulaUnit), "−", "-")
+	if v := m.View(); !strings.Contains(v, want) {
+		t.Errorf("the example is not %s's data value in eV (%q):\n%s", s.Key, want, v)
+	}
+	drive.Run(u, drive.Text("5000")...)
+	drive.Run(u, drive.Key("enter"))
+	if editing, err := m.Editing(); !editing || err == nil || !strings.Contains(err.Error(), "enter again") {
+		t.Fatalf("5000 eV for an atomization was not questioned (editing %v, %v)", editing, err)
+	}
+	if d, _ := m.Position(); d != 0 {
+		t.Fatal("the questioned value was taken")
+	}
+	drive.Run(u, drive.Key("enter"))
+	if d, _ := m.Position(); d != 1 {
+		t.Error("enter again did not take the value")
 	}
 }

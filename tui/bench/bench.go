@@ -30,6 +30,10 @@ type Model struct {
 	drawing    bool        // in a small window: the drawing instead of the list
 	export     prompt.Slot // the SVG file name, while typed
 	w, h       int
+
+	// magnitudes are the data's largest step values by kind, computed on
+	// the first value typed (for the implausible-value question).
+	magnitudes session.Magnitudes
 }
 
 var _ screen.Screen = (*Model)(nil)
@@ -229,7 +233,7 @@ func (m *Model) startEdit() {
 	}
 	p := prompt.New(m.ctx.Styles, "New value for "+s.Label, "", "", m.ctx.MaxInputLen, m.acceptValue(s.Key),
 		prompt.WithLabel(fmt.Sprintf("%s (%s) › ", s.Key, m.ctx.Units)),
-		prompt.WithPlaceholder(cur+"; type e.g. -349.0±0.5"),
+		prompt.WithPlaceholder(cur+"; type e.g. "+session.Example(m.ctx, s)),
 		prompt.WithAside(" — "+s.Reaction+", per reaction as written; ± uncertainty optional"),
 		prompt.WithSubmitHelp("accept the value"))
 	km := p.KeyMap
@@ -238,8 +242,12 @@ func (m *Model) startEdit() {
 }
 
 // acceptValue checks a value typed for step key (a number, of the sign the
-// step's physics allows) and sets it; without ± the old uncertainty stays.
+// step's physics allows, of a plausible size) and sets it; without ± the
+// old uncertainty stays. A value beyond session.PlausibleFactor times the
+// largest of its kind in the data is refused once with that said; enter
+// again on the same text sets it.
 func (m *Model) acceptValue(key string) prompt.Accept {
+	confirmed := ""
 	return func(text string) (tea.Cmd, error) {
 		s, ok := m.sess.Cycle.Step(key)
 		if !ok {
@@ -250,6 +258,13 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 			err = m.plausible(s, kj)
 		}
 		if err != nil {
+			return nil, err
+		}
+		if m.magnitudes == nil {
+			m.magnitudes = session.DataMagnitudes(m.ctx.DB)
+		}
+		if err := m.magnitudes.Check(m.ctx, s.Kind, text, kj); err != nil && confirmed != text {
+			confirmed = text
 			return nil, err
 		}
 		cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return c.Set(key, kj, unc) })

@@ -6,6 +6,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -283,5 +284,41 @@ func TestDrawingFollowsTheWindow(t *testing.T) {
 	}
 	if wideLines <= narrowLines {
 		t.Errorf("%d lines at 37 rows, %d at 21: the drawing did not grow", wideLines, narrowLines)
+	}
+}
+
+// TestValuePromptInTheDisplayUnit: in eV the prompt's example is the step's
+// value in eV, and a value far beyond any of its kind in the data (−349 eV
+// for the attachment of Cl, whose electron affinity is 3.61 eV — from
+// memory) is questioned in place before it is set; enter again sets it.
+func TestValuePromptInTheDisplayUnit(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	f.Ctx.Units = thermo.EVPerFormulaUnit
+	moveTo(t, m, u, "attachment-1")
+	s, _ := m.sess.Cycle.Step("attachment-1")
+	drive.Run(u, drive.Key("e"))
+	ev := thermo.FromKJPerMol(s.Value, thermo.EVPerFormulaUnit)
+	if v := m.View(); strings.Contains(v, "-349.0") || !strings.Contains(v, "e.g. "+strings.TrimSuffix(strings.TrimRight(strconv.FormatFloat(ev, 'f', 3, 64), "0"), ".")) {
+		t.Errorf("the example is not the current %.3f eV:\n%s", ev, v)
+	}
+	drive.Run(u, drive.Text("-349.0±0.5")...)
+	drive.Run(u, drive.Key("enter"))
+	editing, err := m.Editing()
+	if !editing || err == nil || !strings.Contains(err.Error(), "enter again") {
+		t.Fatalf("−349 eV for an attachment was not questioned (editing %v, %v)", editing, err)
+	}
+	if got, _ := m.sess.Cycle.Step("attachment-1"); got.Value != s.Value {
+		t.Fatalf("the questioned value was set: %v", got.Value)
+	}
+	drive.Run(u, drive.Key("enter"))
+	if got, _ := m.sess.Cycle.Step("attachment-1"); math.Abs(got.Value-thermo.ToKJPerMol(-349, thermo.EVPerFormulaUnit)) > 1e-6 {
+		t.Errorf("enter again did not set the value: %v", got.Value)
+	}
+	// A plausible value in eV is set at once.
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("-3.6")...)
+	drive.Run(u, drive.Key("enter"))
+	if editing, err := m.Editing(); editing {
+		t.Errorf("−3.6 eV was questioned: %v", err)
 	}
 }

@@ -1,0 +1,102 @@
+package session
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"enthalpath/cycle"
+	"enthalpath/data"
+	"enthalpath/thermo"
+	"enthalpath/tui/screen"
+)
+
+// PlausibleFactor is how many times the largest magnitude of a step kind
+// in the data a typed value may reach before the workshop asks whether it
+// is meant (common practice, no source: a guard against a value typed in
+// the wrong unit, such as −349 in eV for an attachment of −3.6 eV).
+const PlausibleFactor = 10
+
+// Magnitudes holds the largest |value| in kJ/mol of each step kind over
+// the cycles of every compound of the data: each step's data value, and
+// the lattice step as Hess's law solves it.
+type Magnitudes map[cycle.StepKind]float64
+
+// DataMagnitudes builds and solves the cycle of every compound of db and
+// records the largest magnitude of each step kind. Compounds whose cycle
+// cannot be built or solved are left out.
+func DataMagnitudes(db *data.DB) Magnitudes {
+	out := Magnitudes{}
+	if db == nil {
+		return out
+	}
+	note := func(s *cycle.Step) {
+		switch s.Source.Kind {
+		case cycle.SourceData, cycle.SourceSum, cycle.SourceSolved:
+		default:
+			return
+		}
+		if v := math.Abs(s.Value); !math.IsNaN(v) && !math.IsInf(v, 0) && v > out[s.Kind] {
+			out[s.Kind] = v
+		}
+	}
+	for _, comp := range db.Compounds() {
+		c, err := cycle.Build(db, comp.Formula, cycle.Options{})
+		if err != nil {
+			continue
+		}
+		steps := c.Steps
+		if res, err := cycle.Solve(c); err == nil {
+			steps = res.Steps
+		}
+		for i := range steps {
+			note(&steps[i])
+		}
+	}
+	return out
+}
+
+// Implausible returns a warning when |kj| is beyond PlausibleFactor times
+// the largest magnitude of kind in the data (nil when it is not, or when
+// the data have no step of that kind). largest is that magnitude.
+func (m Magnitudes) Implausible(kind cycle.StepKind, kj float64) (largest float64, beyond bool) {
+	largest, ok := m[kind]
+	if !ok || largest == 0 {
+		return 0, false
+	}
+	return largest, math.Abs(kj) > PlausibleFactor*largest
+}
+
+// Check returns the question to put, in place, before a value kj typed as
+// text for a step of kind is set when it is implausible (nil otherwise):
+// the value in kJ/mol, the data's largest of its kind, and what to do.
+func (m Magnitudes) Check(ctx *screen.Context, kind cycle.StepKind, text string, kj float64) error {
+	largest, beyond := m.Implausible(kind, kj)
+	if !beyond {
+		return nil
+	}
+	return fmt.Errorf("%s %s is %s kJ/mol, over %d× the largest %s step of the data (%s %s): "+
+		"check the unit; press enter again to set it anyway, or type another value",
+		strings.TrimSpace(text), ctx.Units, screen.FormatEnergy(kj, thermo.KJPerMol), PlausibleFactor,
+		kind, ctx.Energy(largest), ctx.Units)
+}
+
+// Example is a value to type for step s in the display unit: its current
+// value and uncertainty (or the data's), as typed, with an ASCII minus.
+func Example(ctx *screen.Context, s *cycle.Step) string {
+	v, unc := s.Value, s.Uncertainty
+	if s.Source.Kind == cycle.SourceMissing || s.Unknown {
+		if r := s.Reference; r != nil {
+			v, unc = r.Value, r.Uncertainty
+		} else if s.Kind == cycle.KindLattice {
+			v, unc = -700, 10 // a round lattice value of the usual size
+		} else {
+			v, unc = 100, 5
+		}
+	}
+	ex := ctx.Energy(v)
+	if unc > 0 {
+		ex += "±" + screen.FormatEnergy(unc, ctx.Units)
+	}
+	return strings.ReplaceAll(ex, "−", "-")
+}
