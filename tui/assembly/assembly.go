@@ -183,13 +183,19 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 	return nil
 }
 
-// proposal returns what the workshop proposes for step s: a data value, a
-// model value (for the lattice step when another step is the unknown), or
-// the unknown itself (the lattice step otherwise).
+// proposal returns what the workshop proposes for step s: a data value, for
+// the lattice step when another step is the unknown the data's handbook
+// value (what the Bench keeps there: the step's Reference, to which
+// cycle.Reset returns) or else a model value, or the unknown itself (the
+// lattice step otherwise).
 func (m *Model) proposal(s *cycle.Step) (text string, ok bool) {
 	if s.Kind == cycle.KindLattice {
 		if m.unknown == "" {
 			return "solve it by Hess's law from the other steps (the usual unknown)", true
+		}
+		if r := s.Reference; r != nil {
+			return fmt.Sprintf("%s %s %s, the data's handbook value from %s (%s is the unknown)", m.ctx.Signed(r.Value),
+				m.ctx.Uncertainty(r.Uncertainty), m.ctx.Units, sourceName(r.Source), m.unknown), true
 		}
 		mr, err := m.latticeModelErr()
 		if err == nil {
@@ -215,8 +221,8 @@ func sourceName(s cycle.Source) string {
 }
 
 // latticeModel picks the model that fills the lattice step when another
-// step is solved: Born–Mayer with the Ewald constant, else Born–Mayer, else
-// Kapustinskii.
+// step is solved and the data have no handbook value for it: Born–Mayer
+// with the Ewald constant, else Born–Mayer, else Kapustinskii.
 func (m *Model) latticeModel() (cycle.ModelResult, bool) {
 	mr, err := m.latticeModelErr()
 	return mr, err == nil
@@ -249,6 +255,10 @@ func (m *Model) accept() tea.Cmd {
 	case s.Kind == cycle.KindLattice && m.unknown == "":
 		f = func(c *cycle.Cycle) error { c.Settings.LatticeFrom = ""; return c.SolveFor(key) }
 		note, m.unknown = "unknown", key
+	case s.Kind == cycle.KindLattice && s.Reference != nil:
+		// The handbook value, as the Bench has it when another step is solved.
+		f = func(c *cycle.Cycle) error { c.Settings.LatticeFrom = ""; return c.Reset(key) }
+		note = "data (handbook)"
 	case s.Kind == cycle.KindLattice:
 		mr, _ := m.latticeModel()
 		f = func(c *cycle.Cycle) error {
