@@ -304,7 +304,7 @@ func (m *Model) openCmd(req screen.OpenMsg) tea.Cmd {
 
 func (m *Model) opened(msg openedMsg) tea.Cmd {
 	if msg.err != nil {
-		m.status, m.statusErr = msg.err.Error(), true
+		m.status, m.statusErr = session.Message(msg.err), true
 		return nil
 	}
 	solve := m.sess.Open(msg.c, msg.path)

@@ -202,7 +202,7 @@ func (m *Model) proposal(s *cycle.Step) (text string, ok bool) {
 			return fmt.Sprintf("%s %s %s from the %s model (%s is the unknown)", m.ctx.Signed(mr.Value),
 				m.ctx.Uncertainty(mr.Uncertainty), m.ctx.Units, mr.Model, m.unknown), true
 		}
-		return "no model can give it (" + err.Error() + "): type a value with e", false
+		return "no model can give it (" + session.Message(err) + "): type a value with e", false
 	}
 	if r := s.Reference; r != nil {
 		return fmt.Sprintf("%s %s %s from %s", m.ctx.Signed(r.Value), m.ctx.Uncertainty(r.Uncertainty), m.ctx.Units, sourceName(r.Source)), true
@@ -370,7 +370,7 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 			return c.Set(key, kj, unc)
 		})
 		if err != nil {
-			return nil, err
+			return nil, session.ValueError(text, err)
 		}
 		m.decided = append(m.decided, "your value")
 		return cmd, nil

@@ -253,3 +253,24 @@ func TestLatticeFromTheHandbookWhenAnotherStepIsUnknown(t *testing.T) {
 		t.Errorf("the lattice step's source is %v, want the data", s.Source.Kind)
 	}
 }
+
+// TestRefusalsSpeakOfTheScreen: a value the engine refuses is explained
+// with the text typed and what to type, not the command line's KEY=VALUE.
+func TestRefusalsSpeakOfTheScreen(t *testing.T) {
+	_, m, u := setup(t, "NaCl")
+	for m.currentKey() != "lattice" {
+		drive.Run(u, drive.Key("y"))
+	}
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("-915±1e9")...)
+	drive.Run(u, drive.Key("enter"))
+	editing, err := m.Editing()
+	if !editing || err == nil {
+		t.Fatalf("±1e9 kJ/mol was accepted (editing %v)", editing)
+	}
+	msg := err.Error()
+	if strings.Contains(msg, "KEY=VALUE") || strings.Contains(msg, "setting ") || strings.Contains(msg, "column") ||
+		!strings.Contains(msg, `"-915±1e9"`) || !strings.Contains(msg, "type a number") {
+		t.Errorf("refusal in command-line terms or without the text typed: %s", msg)
+	}
+}

@@ -269,7 +269,7 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 		}
 		cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return c.Set(key, kj, unc) })
 		if err != nil {
-			return nil, err
+			return nil, session.ValueError(text, err)
 		}
 		return tea.Batch(cmd, screen.Status(fmt.Sprintf("%s set to %s %s %s (your value).", key,
 			m.ctx.Signed(kj), m.ctx.Uncertainty(unc), m.ctx.Units))), nil

@@ -192,7 +192,7 @@ func (m *Model) modelTable(res *cycle.Result) []string {
 	}
 	for _, mr := range models {
 		if !mr.OK() {
-			out = append(out, trunc(fmt.Sprintf("%-*s %10s  %s", nameW, mr.Model, "—", "not available: "+mr.Err.Error()), m.w))
+			out = append(out, trunc(fmt.Sprintf("%-*s %10s  %s", nameW, mr.Model, "—", "not available: "+session.Message(mr.Err)), m.w))
 			continue
 		}
 		line := fmt.Sprintf("%-*s %10s %9s %8s %s %s", nameW, mr.Model, m.ctx.Signed(mr.Value), m.ctx.Signed(mr.Gap), pct(mr.GapPercent),

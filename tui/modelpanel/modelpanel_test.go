@@ -198,3 +198,19 @@ func must(s string, err error) string {
 	}
 	return s
 }
+
+// TestModelRowsSpeakOfTheScreen: a model that cannot be evaluated says why
+// and where to fix it on the screen, not with command-line options
+// (CaCl2 has no structure in the data, RbOH no cell and no density).
+func TestModelRowsSpeakOfTheScreen(t *testing.T) {
+	for _, formula := range []string{"CaCl2", "RbOH"} {
+		_, m, _ := setup(t, formula)
+		v := m.View()
+		if !strings.Contains(v, "not available") {
+			t.Fatalf("%s: no model is unavailable:\n%s", formula, v)
+		}
+		if strings.Contains(v, "--") || !strings.Contains(v, "on the Models") {
+			t.Errorf("%s: a model row speaks of options or not of the screen:\n%s", formula, v)
+		}
+	}
+}

@@ -15,6 +15,7 @@ import (
 	"enthalpath/thermo"
 	"enthalpath/tui/plot"
 	"enthalpath/tui/screen"
+	"enthalpath/tui/session"
 )
 
 // The columns the table sorts by, in the order s steps through them.
@@ -339,7 +340,7 @@ func (m *Model) table(h int) []string {
 		}
 		verdict := ""
 		if r.Err != nil {
-			verdict = "no cycle: " + r.Err.Error()
+			verdict = "no cycle: " + session.Message(r.Err)
 		} else {
 			verdict = r.Verdicts[m.model]
 		}
