@@ -228,3 +228,47 @@ func TestStatusNamesOnlyHelpKeysThatWork(t *testing.T) {
 		t.Errorf("the Bench's status does not name ? and f1:\n%s", v)
 	}
 }
+
+// lastLine is the help line of a view.
+func lastLine(v string) string {
+	lines := strings.Split(strings.TrimRight(v, "\n"), "\n")
+	return lines[len(lines)-1]
+}
+
+// TestFooterFollowsWhatIsShown: the help line lists the question's keys
+// while it is asked, no screen key that has nothing to act on before a
+// cycle is open, and an error in the status line goes with the next key.
+func TestFooterFollowsWhatIsShown(t *testing.T) {
+	db := loadDB(t)
+	m, u, _ := newRoot(t, db, 120, 40)
+	for _, id := range []screen.ID{screen.Bench, screen.Assembly, screen.Models} {
+		keys(u, "tab") // from the Shelf, where digits are text
+		if m.Active() != id {
+			t.Fatalf("tab: screen %d, want %d", m.Active(), id)
+		}
+		for _, b := range m.Screen(id).ShortHelp() {
+			t.Errorf("screen %s with no cycle lists %s (%s)", m.Screen(id).Title(), b.Help().Key, b.Help().Desc)
+		}
+		if foot := lastLine(m.View()); !strings.Contains(foot, "go to screen") {
+			t.Errorf("screen %s with no cycle: help line %q, want the screen keys that work", m.Screen(id).Title(), foot)
+		}
+	}
+	keys(u, "ctrl+s")
+	if v := m.View(); !strings.Contains(v, "error: nothing to save") {
+		t.Fatalf("no error for ctrl+s without a cycle:\n%s", v)
+	}
+	keys(u, "tab")
+	if v := m.View(); strings.Contains(v, "nothing to save") {
+		t.Errorf("the error stayed after the next key:\n%s", v)
+	}
+	openEdited(t, u)
+	keys(u, "q")
+	foot := lastLine(m.View())
+	if !strings.Contains(foot, "save, then quit") || strings.Contains(foot, "type a value") {
+		t.Errorf("the quit question's help line is %q, want its own keys", foot)
+	}
+	keys(u, "s")
+	if foot := lastLine(m.View()); !strings.Contains(foot, "esc") || strings.Contains(foot, "type a value") {
+		t.Errorf("the save prompt's help line is %q, want its keys", foot)
+	}
+}

@@ -204,6 +204,10 @@ func (m *Model) broadcast(msg tea.Msg) tea.Cmd {
 }
 
 func (m *Model) key(k tea.KeyMsg) tea.Cmd {
+	if m.statusErr && m.opts.Validate() == nil {
+		// An error is answered by the next key: it does not stay on.
+		m.status, m.statusErr = "", false
+	}
 	if m.prompt.Active() {
 		return m.prompt.Update(k)
 	}
@@ -276,6 +280,9 @@ func (m *Model) switchTo(id screen.ID) tea.Cmd {
 	}
 	m.active = id
 	m.showHelp = false
+	if m.statusErr && m.opts.Validate() == nil {
+		m.status, m.statusErr = "", false // the error was about the screen left
+	}
 	return m.screens[id].Update(screen.ShownMsg{})
 }
 
@@ -433,7 +440,13 @@ func (m *Model) ShortHelp() []key.Binding {
 	if m.prompt.Active() {
 		return m.prompt.ShortHelp()
 	}
+	if m.confirming {
+		return m.confirmBindings()
+	}
 	b := m.screens[m.active].ShortHelp()
+	if len(b) == 0 && !m.screens[m.active].Capturing() {
+		b = []key.Binding{m.Keys.GoTo} // a screen with nothing to act on yet
+	}
 	if m.screens[m.active].Capturing() {
 		if h, ok := withoutPrintable(m.Keys.Help); ok {
 			b = append(b, h)

@@ -70,6 +70,9 @@ func (m *Model) ShortHelp() []key.Binding {
 	if m.edit.Active() {
 		return m.edit.ShortHelp()
 	}
+	if m.sess.Cycle == nil {
+		return nil // nothing to assemble: no key of this screen works
+	}
 	k := m.KeyMap
 	return []key.Binding{k.Accept, k.Type, k.Unknown, k.Back}
 }
@@ -78,6 +81,9 @@ func (m *Model) ShortHelp() []key.Binding {
 func (m *Model) FullHelp() [][]key.Binding {
 	if m.edit.Active() {
 		return m.edit.FullHelp()
+	}
+	if m.sess.Cycle == nil {
+		return nil
 	}
 	k := m.KeyMap
 	return [][]key.Binding{{k.Accept, k.Type, k.Unknown}, {k.Back, k.Bench}}

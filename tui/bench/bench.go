@@ -88,6 +88,9 @@ func (m *Model) ShortHelp() []key.Binding {
 	if m.Capturing() {
 		return m.typing().ShortHelp()
 	}
+	if m.sess.Cycle == nil {
+		return nil // no key of the bench works before a cycle is open
+	}
 	k := m.KeyMap
 	return []key.Binding{k.Edit, k.Unknown, k.Reset, k.Source}
 }
@@ -97,6 +100,9 @@ func (m *Model) ShortHelp() []key.Binding {
 func (m *Model) FullHelp() [][]key.Binding {
 	if m.Capturing() {
 		return m.typing().FullHelp()
+	}
+	if m.sess.Cycle == nil {
+		return nil
 	}
 	k := m.KeyMap
 	return [][]key.Binding{

@@ -62,6 +62,9 @@ func (m *Model) ShortHelp() []key.Binding {
 	if m.edit.Active() {
 		return m.edit.ShortHelp()
 	}
+	if m.sess.Cycle == nil {
+		return nil // no setting to change before a cycle is open
+	}
 	k := m.KeyMap
 	return []key.Binding{k.Down, k.Edit, k.Next, k.Default}
 }
@@ -70,6 +73,9 @@ func (m *Model) ShortHelp() []key.Binding {
 func (m *Model) FullHelp() [][]key.Binding {
 	if m.edit.Active() {
 		return m.edit.FullHelp()
+	}
+	if m.sess.Cycle == nil {
+		return nil
 	}
 	k := m.KeyMap
 	return [][]key.Binding{{k.Up, k.Down}, {k.Edit, k.Next, k.Prev, k.Default}}
