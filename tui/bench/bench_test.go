@@ -322,3 +322,42 @@ func TestValuePromptInTheDisplayUnit(t *testing.T) {
 		t.Errorf("−3.6 eV was questioned: %v", err)
 	}
 }
+
+// TestRowsSumUnderU: with the lattice step shown as U (c), a row carries
+// ΔH_L − U, +RT for NaCl (Jenkins, J. Chem. Educ. 82, 950 (2005): ΔH_L =
+// U + [a(n_M/2 − 2) + b(n_X/2 − 2)]RT for the dissociation, −RT for a 1:1
+// salt of monatomic ions), so the values shown still sum by Hess's law to
+// the formation step.
+func TestRowsSumUnderU(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	drive.Run(u, drive.Key("c"))
+	res := f.Session.Solved()
+	if res == nil || f.Session.Cycle.Conventions.Lattice != cycle.LatticeEnergy {
+		t.Fatalf("c did not show U (solved %v)", res)
+	}
+	rt := thermo.RT(thermo.StandardTemperature)
+	v := m.View()
+	row := ""
+	for _, l := range strings.Split(v, "\n") {
+		if strings.Contains(l, "ΔH_L − U") {
+			row = l
+		}
+	}
+	if row == "" || !strings.Contains(row, f.Ctx.Signed(rt)) {
+		t.Fatalf("no correction row of %s (+RT) under U:\n%s", f.Ctx.Signed(rt), v)
+	}
+	// The rows shown (the terms of the sum, the correction row) add up to
+	// the formation step.
+	sum, formation := rt, 0.0
+	for _, s := range res.Steps {
+		switch {
+		case s.Kind == cycle.KindFormation:
+			formation = s.Value
+		case s.Parent == "": // a sub-step is in its composite's value
+			sum += s.Multiplicity * s.Value
+		}
+	}
+	if math.Abs(sum-formation) > 1e-6 {
+		t.Errorf("under U the rows sum to %.3f, the formation step is %.3f", sum, formation)
+	}
+}

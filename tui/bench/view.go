@@ -35,8 +35,8 @@ func (m *Model) View() string {
 		parts = append(parts, m.sourceView(rest))
 	case m.drawing:
 		parts = append(parts, m.drawingView(rest))
-	case rest-(len(c.Steps)+2) >= minDrawing:
-		listH := len(c.Steps) + 2
+	case rest-(m.rowCount()+2) >= minDrawing:
+		listH := m.rowCount() + 2
 		parts = append(parts, m.listView(listH), m.drawingView(rest-listH))
 	default:
 		parts = append(parts, m.listView(rest))
@@ -110,14 +110,32 @@ func (m *Model) listView(h int) string {
 	header := fmt.Sprintf("%-*s%-*s %*s %*s %*s %-*s", colFlag, "", colReaction, "reaction", colMult, "×",
 		colValue, m.ctx.Units.String(), colUnc, "±", colSource, "source")
 	lines := []string{st.Title.Render(trunc(header, m.w))}
+	// The rows: the steps, and under U the correction row after the
+	// lattice step (-1), so that the values shown sum by Hess's law.
+	order := make([]int, 0, len(steps)+1)
+	at := 0 // the cursor's row
+	for i := range steps {
+		if i == m.cursor {
+			at = len(order)
+		}
+		order = append(order, i)
+		if steps[i].Kind == cycle.KindLattice && m.showCorrection() {
+			order = append(order, -1)
+		}
+	}
 	rows := h - 2
-	if m.cursor < m.top {
-		m.top = m.cursor
+	if at < m.top {
+		m.top = at
 	}
-	if m.cursor >= m.top+rows {
-		m.top = m.cursor - rows + 1
+	if at >= m.top+rows {
+		m.top = at - rows + 1
 	}
-	for i := m.top; i < len(steps) && i < m.top+rows; i++ {
+	for r := m.top; r < len(order) && r < m.top+rows; r++ {
+		i := order[r]
+		if i < 0 {
+			lines = append(lines, st.Muted.Render(trunc(m.correctionRow(colReaction, colSource), m.w)))
+			continue
+		}
 		s := &steps[i]
 		cursor := " "
 		if i == m.cursor {
@@ -158,6 +176,33 @@ func (m *Model) listView(h int) string {
 	}
 	lines = append(lines, st.Muted.Render(trunc("? the unknown (solved)  ! no value in the data  * your value  └ sub-step", m.w)))
 	return strings.Join(lines, "\n")
+}
+
+// showCorrection reports whether the lattice step is shown as U, which
+// then needs the correction row to keep the rows summing to the formation.
+func (m *Model) showCorrection() bool {
+	c := m.sess.Cycle
+	return c != nil && c.Conventions.Lattice == cycle.LatticeEnergy
+}
+
+// rowCount is the number of rows of the step list.
+func (m *Model) rowCount() int {
+	n := len(m.steps())
+	if m.showCorrection() {
+		n++
+	}
+	return n
+}
+
+// correctionRow is ΔH_L − U of the lattice step (gaseous ions → solid),
+// the −LatticeCorrection of Jenkins' rule (−RT for the dissociation of a
+// 1:1 salt of monatomic ions, so +RT here): with the lattice step shown as
+// U, it is the term that makes the rows add up to the formation enthalpy.
+func (m *Model) correctionRow(colReaction, colSource int) string {
+	corr := -m.sess.Cycle.LatticeCorrection()
+	return fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", " ", " ", colReaction, trunc("└ ΔH_L − U (nRT)", colReaction),
+		colMult, "", colValue, m.ctx.Signed(corr), colUnc, m.ctx.Uncertainty(0), colSource,
+		trunc("U → ΔH_L, Jenkins' rule", colSource))
 }
 
 func mult(v float64) string {
