@@ -11,6 +11,7 @@ import (
 
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/x/ansi"
 
 	"enthalpath/cycle"
 	"enthalpath/tui/prompt"
@@ -94,7 +95,7 @@ func (m *Model) confirmKey(k tea.KeyMsg) tea.Cmd {
 		if open == nil {
 			m.recovered = p
 		} else {
-			m.status, m.statusErr = "The unsaved "+formula+" cycle was kept in "+p+".", false
+			m.kept = "The unsaved " + formula + " cycle was kept in " + p + "." // said once the open is done
 		}
 		return m.then(open)
 	case key.Matches(k, c.Discard):
@@ -106,18 +107,24 @@ func (m *Model) confirmKey(k tea.KeyMsg) tea.Cmd {
 
 func (m *Model) confirmView() string {
 	st := m.ctx.Styles
+	inner := max(20, m.width-6) // the box's border and padding take 4, the margin 2
+	fit := func(s string) string { return ansi.Truncate(s, inner, "…") }
 	title := "The " + m.sess.Cycle.Formula + " cycle has unsaved changes."
-	lines := []string{st.Title.Render(title)}
+	lines := []string{fit(st.Title.Render(title))}
 	if m.pending != nil {
-		lines = append(lines, st.Muted.Render("To "+m.pendingName()+", it must close first."))
+		lines = append(lines, fit(st.Muted.Render("To "+m.pendingName()+", it must close first.")))
 	}
 	lines = append(lines, "")
 	for _, b := range m.confirmBindings() {
-		line := st.HelpKey.Render(b.Help().Key) + "  " + b.Help().Desc
+		lines = append(lines, fit(st.HelpKey.Render(b.Help().Key)+"  "+b.Help().Desc))
 		if slices.Equal(b.Keys(), m.Confirm.Keep.Keys()) {
-			line += " (" + m.recoveryTarget() + ")"
+			// The path on a line of its own, its start cut when too long.
+			p := m.recoveryTarget()
+			if r := []rune(p); len(r) > inner-5 {
+				p = "…" + string(r[len(r)-(inner-6):])
+			}
+			lines = append(lines, "   "+st.Muted.Render(p))
 		}
-		lines = append(lines, line)
 	}
 	return strings.Join(lines, "\n")
 }

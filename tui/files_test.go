@@ -179,6 +179,12 @@ func TestOpeningAnotherAsksFirst(t *testing.T) {
 	if _, err := os.Stat(filepath.Join(dir, "recovery.hesscycle")); err == nil {
 		t.Fatal("a recovery file was written before the question was answered")
 	}
+	// At 80 columns every line of the question stays inside its box.
+	for _, l := range strings.Split(v, "\n") {
+		if strings.Contains(l, "║") && strings.Count(l, "║") != 2 {
+			t.Errorf("a line of the question is cut or wrapped at 80 columns: %q", l)
+		}
+	}
 	keys(u, "esc")
 	if c := m.Session().Cycle; c.Formula != "NaCl" || !m.Session().Dirty {
 		t.Fatalf("esc: the session holds %s (dirty %v), want the unsaved NaCl", c.Formula, m.Session().Dirty)
@@ -187,6 +193,9 @@ func TestOpeningAnotherAsksFirst(t *testing.T) {
 	keys(u, "enter", "k")
 	if c := m.Session().Cycle; c.Formula != "MgO" || m.Session().Dirty {
 		t.Fatalf("k: the session holds %s (dirty %v), want a clean MgO", c.Formula, m.Session().Dirty)
+	}
+	if v := m.View(); !strings.Contains(v, "The unsaved NaCl cycle was kept in") {
+		t.Errorf("k: the status does not say where the work went:\n%s", v)
 	}
 	// Edit MgO and keep it the same way: the first recovery file stays.
 	keys(u, "g", "j", "e")

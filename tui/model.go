@@ -68,6 +68,7 @@ type Model struct {
 	prompt        prompt.Slot     // a file name, asked over the screen
 	quitting      bool
 	recovered     string // path of the recovery file written, for the last frame
+	kept          string // where the work was kept before an open, said when it is done
 	memo          *cycle.Memo
 }
 
@@ -311,13 +312,18 @@ func (m *Model) openCmd(req screen.OpenMsg) tea.Cmd {
 
 func (m *Model) opened(msg openedMsg) tea.Cmd {
 	if msg.err != nil {
-		m.status, m.statusErr = session.Message(msg.err), true
+		m.status, m.statusErr = strings.TrimSpace(m.kept+" "+session.Message(msg.err)), true
+		m.kept = ""
 		return nil
 	}
 	solve := m.sess.Open(msg.c, msg.path)
 	m.status, m.statusErr = "", false
 	if msg.path != "" {
 		m.status = "Opened " + msg.path + "."
+	}
+	if m.kept != "" {
+		m.status = strings.TrimSpace(m.kept + " " + m.status)
+		m.kept = ""
 	}
 	target := screen.Bench
 	if msg.guided {
