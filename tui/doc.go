@@ -32,10 +32,11 @@
 //
 // Cycle files are written with cycle.Save (atomic). Quitting or opening
 // another cycle over unsaved work asks first (save, keep, discard, back).
-// Unsaved work goes to Options.RecoveryPath when the user answers keep, on
-// ShutdownMsg, and when Update or View panics (the panic then goes on to
-// Bubble Tea, which restores the terminal); when a recovery file is there
-// already, the next goes beside it numbered (recovery-2.hesscycle), never
-// over it. With Options.FileRoot set, every typed name goes through
+// Unsaved work goes to Options.RecoveryPath when the user answers keep
+// (when a recovery file is there already, beside it numbered,
+// recovery-2.hesscycle, never over it), and on ShutdownMsg and when Update
+// or View panics (there to RecoveryPath itself, where the SSH server looks
+// for it; the panic then goes on to Bubble Tea, which restores the
+// terminal). With Options.FileRoot set, every typed name goes through
 // safepath.Join.
 package tui

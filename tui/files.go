@@ -1,6 +1,7 @@
 package tui
 
 import (
+	"cmp"
 	"errors"
 	"fmt"
 	"os"
@@ -87,7 +88,7 @@ func (m *Model) confirmKey(k tea.KeyMsg) tea.Cmd {
 	case key.Matches(k, c.Keep) && m.opts.RecoveryPath != "":
 		m.confirming, m.pending = false, nil
 		formula := m.sess.Cycle.Formula
-		p, err := m.writeRecovery()
+		p, err := m.keepRecovery()
 		if err != nil {
 			m.status, m.statusErr = "could not keep a recovery file: "+err.Error(), true
 			return nil
@@ -233,10 +234,8 @@ func (m *Model) saved(msg savedMsg) tea.Cmd {
 
 func (m *Model) askOpen() tea.Cmd {
 	initial := ""
-	if p := m.opts.RecoveryPath; p != "" {
-		if _, err := os.Stat(p); err == nil && m.opts.FileRoot == "" {
-			initial = p
-		}
+	if files := recoveryFiles(m.opts.RecoveryPath); len(files) > 0 && m.opts.FileRoot == "" {
+		initial = files[0]
 	}
 	m.prompt.Open(prompt.New(m.ctx.Styles, "Open a cycle file", initial,
 		"The name of a "+cycle.FileExtension+" file. esc cancels.", m.opts.MaxInputLen,
@@ -253,15 +252,62 @@ func (m *Model) askOpen() tea.Cmd {
 	return nil
 }
 
-// writeRecovery writes the unsaved cycle to Options.RecoveryPath, or when
-// a file is there already to the first free numbered name beside it
-// (recovery-2.hesscycle, …), so an earlier recovery file is never
-// replaced; it returns the path ("" when there was nothing to write).
+// writeRecovery writes the unsaved cycle to Options.RecoveryPath (on
+// shutdown and on a panic, where the SSH server looks for it there) and
+// returns the path ("" when there was nothing to write).
 func (m *Model) writeRecovery() (string, error) {
-	if m.opts.RecoveryPath == "" || m.sess.Cycle == nil || !m.sess.Dirty {
+	return m.saveRecovery(m.opts.RecoveryPath)
+}
+
+// keepRecovery writes the unsaved cycle when the user answers keep: to
+// Options.RecoveryPath, or when a file is there already to the first free
+// numbered name beside it (recovery-2.hesscycle, …), so that an earlier
+// recovery file is never replaced.
+func (m *Model) keepRecovery() (string, error) {
+	return m.saveRecovery(m.recoveryTarget())
+}
+
+// recoveryFiles returns the recovery files there are for path p (p itself
+// and its numbered neighbours p-2, p-3, …), the newest first.
+func recoveryFiles(p string) []string {
+	if p == "" {
+		return nil
+	}
+	ext := filepath.Ext(p)
+	stem := strings.TrimSuffix(p, ext)
+	type file struct {
+		path string
+		mod  int64
+	}
+	var found []file
+	names, _ := filepath.Glob(globEscape(stem) + "-*" + globEscape(ext))
+	for _, n := range append([]string{p}, names...) {
+		if n != p {
+			if _, err := strconv.Atoi(strings.TrimSuffix(strings.TrimPrefix(n, stem+"-"), ext)); err != nil {
+				continue
+			}
+		}
+		if st, err := os.Stat(n); err == nil && st.Mode().IsRegular() {
+			found = append(found, file{n, st.ModTime().UnixNano()})
+		}
+	}
+	slices.SortStableFunc(found, func(a, b file) int { return cmp.Compare(b.mod, a.mod) })
+	out := make([]string, len(found))
+	for i, f := range found {
+		out[i] = f.path
+	}
+	return out
+}
+
+// globEscape quotes the pattern characters of a path for filepath.Glob.
+func globEscape(s string) string {
+	return strings.NewReplacer(`\`, `\\`, "*", `\*`, "?", `\?`, "[", `\[`).Replace(s)
+}
+
+func (m *Model) saveRecovery(p string) (string, error) {
+	if p == "" || m.sess.Cycle == nil || !m.sess.Dirty {
 		return "", nil
 	}
-	p := m.recoveryTarget()
 	if err := os.MkdirAll(filepath.Dir(p), 0o700); err != nil {
 		return "", err
 	}
@@ -275,6 +321,9 @@ func (m *Model) writeRecovery() (string, error) {
 // while no file is there, else the first free numbered name beside it.
 func (m *Model) recoveryTarget() string {
 	p := m.opts.RecoveryPath
+	if p == "" {
+		return ""
+	}
 	ext := filepath.Ext(p)
 	stem := strings.TrimSuffix(p, ext)
 	for i := 2; ; i++ {

@@ -6,6 +6,7 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+	"time"
 
 	tea "github.com/charmbracelet/bubbletea"
 
@@ -270,5 +271,36 @@ func TestSaveAsksBeforeReplacingAFile(t *testing.T) {
 	keys(u, "ctrl+s", "enter")
 	if v := m.View(); strings.Contains(v, "already exists") {
 		t.Errorf("saving to the cycle's own file asked:\n%s", v)
+	}
+}
+
+// TestEveryRecoveryFileIsAnnounced: with numbered recovery files beside the
+// first, the start says how many there are and names the newest.
+func TestEveryRecoveryFileIsAnnounced(t *testing.T) {
+	db := loadDB(t)
+	dir := t.TempDir()
+	for i, f := range []string{"NaCl", "MgO"} {
+		c, err := cycle.Build(db, f, cycle.Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		name := filepath.Join(dir, "recovery.hesscycle")
+		if i > 0 {
+			name = filepath.Join(dir, "recovery-2.hesscycle")
+		}
+		if err := cycle.Save(name, c); err != nil {
+			t.Fatal(err)
+		}
+		when := time.Now().Add(time.Duration(i-2) * time.Hour)
+		if err := os.Chtimes(name, when, when); err != nil {
+			t.Fatal(err)
+		}
+	}
+	m := tui.New(tui.Options{Renderer: drive.Renderer(), DB: db, FileRoot: dir, RecoveryPath: dir + "/recovery.hesscycle"}).(*tui.Model)
+	u := drive.Model(m)
+	drive.Run(u, tea.WindowSizeMsg{Width: 120, Height: 40})
+	drive.RunCmd(u, m.Init())
+	if v := m.View(); !strings.Contains(v, "2 recovery files") || !strings.Contains(v, "recovery-2.hesscycle") {
+		t.Errorf("the start does not announce both recovery files and the newest:\n%s", v)
 	}
 }

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"os"
+	"path/filepath"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/help"
@@ -147,10 +148,15 @@ func (m *Model) checkRecovery() tea.Cmd {
 		return nil
 	}
 	return func() tea.Msg {
-		if _, err := os.Stat(p); err == nil {
-			return screen.StatusMsg{Text: "A recovery file from an earlier session is kept at " + p + " (ctrl+o opens it)."}
+		files := recoveryFiles(p)
+		switch len(files) {
+		case 0:
+			return nil
+		case 1:
+			return screen.StatusMsg{Text: "A recovery file from an earlier session is kept at " + files[0] + " (ctrl+o opens it)."}
 		}
-		return nil
+		return screen.StatusMsg{Text: fmt.Sprintf("%d recovery files from earlier sessions are kept, the newest %s beside %s (ctrl+o opens them).",
+			len(files), filepath.Base(files[0]), filepath.Base(p))}
 	}
 }
 
