@@ -97,23 +97,31 @@ func TestSecondAffinityOfOxygenFromMgO(t *testing.T) {
 	if s, _ := res.Step("lattice"); f.Session.Cycle.Settings.LatticeFrom != "" || s.Source.Kind != cycle.SourceData {
 		t.Fatalf("the lattice step came from %q (%v), want the data's handbook value", f.Session.Cycle.Settings.LatticeFrom, s.Source.Kind)
 	}
-	// O⁻(g) + e⁻ → O²⁻(g) from MgO with the handbook lattice energy (CRC's
-	// U = 3795 kJ/mol, recalled): the O²⁻(g) it implies, ½D(O₂) + the two
-	// attachments, lies in the 825…864 kJ/mol that the note on MgO's row of
-	// data/tables/compounds.csv gives for the four alkaline-earth oxides'
-	// handbook values with these element data. (Before, the lattice came
-	// from Born–Mayer and the test took textbooks' +750…+850 for the
-	// attachment, from memory; the handbook route gives 747.)
+	// The assembly must reach what the engine gives for the same cycle
+	// (the command line's `cycle MgO --solve attachment-2`); whether that
+	// number is right is the engine's tests' business. The one physical
+	// check here: O⁻(g) + e⁻ → O²⁻(g) is endothermic, the textbook fact
+	// that O²⁻ exists in the solid only because the lattice pays for it
+	// (e.g. Greenwood & Earnshaw, from memory).
 	if res.Solved.Key != "attachment-2" {
 		t.Fatalf("solved %s, want attachment-2", res.Solved.Key)
 	}
-	o2 := 0.0
-	for _, k := range []string{"atomization-anion", "attachment-1", "attachment-2"} {
-		s, _ := res.Step(k)
-		o2 += s.Multiplicity * s.Value
+	c, err := cycle.Build(f.Ctx.DB, "MgO", cycle.Options{})
+	if err != nil {
+		t.Fatal(err)
 	}
-	if o2 < 825 || o2 > 864 {
-		t.Errorf("ΔfH°(O²⁻, g) = %.1f kJ/mol from the solved attachment-2 %.1f, want 825…864", o2, res.Solved.Value)
+	if err := c.SolveFor("attachment-2"); err != nil {
+		t.Fatal(err)
+	}
+	want, err := cycle.Solve(c)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := res.Solved.Value - want.Solved.Value; d > 1e-9 || d < -1e-9 || res.Solved.Uncertainty != want.Solved.Uncertainty {
+		t.Errorf("assembly: attachment-2 = %.3f ± %.3f, engine %.3f ± %.3f", res.Solved.Value, res.Solved.Uncertainty, want.Solved.Value, want.Solved.Uncertainty)
+	}
+	if !(res.Solved.Value > 0) {
+		t.Errorf("attachment-2 = %.1f kJ/mol; the second attachment to O is endothermic", res.Solved.Value)
 	}
 }
 
