@@ -399,16 +399,6 @@ func (m *Model) smallView() string {
 
 func (m *Model) header() string {
 	st := m.ctx.Styles
-	var tabs []string
-	for i, s := range m.screens {
-		label := fmt.Sprintf("%d %s", i+1, s.Title())
-		if screen.ID(i) == m.active {
-			tabs = append(tabs, st.ActiveTab.Render("["+label+"]"))
-		} else {
-			tabs = append(tabs, st.Tab.Render(" "+label+" "))
-		}
-	}
-	left := strings.Join(tabs, "")
 	right := m.ctx.Units.String()
 	if c := m.sess.Cycle; c != nil {
 		name := c.Formula
@@ -418,11 +408,45 @@ func (m *Model) header() string {
 		right = name + " · " + right
 	}
 	right = st.Header.Render(right)
+	// The compound, the unsaved marker and the unit always show: when the
+	// tabs with their names leave no room, the tabs close up, and then the
+	// screens not shown keep only their numbers (the active one its name).
+	var left string
+	for level := range 3 {
+		left = m.tabs(level)
+		if lipgloss.Width(left)+lipgloss.Width(right)+1 <= m.width {
+			break
+		}
+	}
 	gap := m.width - lipgloss.Width(left) - lipgloss.Width(right)
 	if gap < 1 {
-		return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(left)
+		return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(right)
 	}
 	return left + strings.Repeat(" ", gap) + right
+}
+
+// tabs draws the screen tabs: at level 0 spaced with every name, at 1
+// closed up, at 2 closed up with the active screen's name and the other
+// screens' numbers.
+func (m *Model) tabs(level int) string {
+	st := m.ctx.Styles
+	tab, active := st.Tab, st.ActiveTab
+	if level > 0 {
+		tab, active = tab.UnsetPadding(), active.UnsetPadding()
+	}
+	var tabs []string
+	for i, s := range m.screens {
+		label := fmt.Sprintf("%d %s", i+1, s.Title())
+		if screen.ID(i) == m.active {
+			tabs = append(tabs, active.Render("["+label+"]"))
+			continue
+		}
+		if level == 2 {
+			label = fmt.Sprint(i + 1)
+		}
+		tabs = append(tabs, tab.Render(" "+label+" "))
+	}
+	return strings.Join(tabs, "")
 }
 
 func (m *Model) statusLine() string {
