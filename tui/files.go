@@ -76,6 +76,17 @@ func (m *Model) confirmBindings() []key.Binding {
 	return append(out, with(c.Discard, c.Discard.Help().Desc+", then "+then), c.Back)
 }
 
+// confirmKeys are the question's keys as declared (the keep key only with
+// a recovery file to keep).
+func (m *Model) confirmKeys() []key.Binding {
+	c := m.Confirm
+	out := []key.Binding{c.Save}
+	if m.opts.RecoveryPath != "" {
+		out = append(out, c.Keep)
+	}
+	return append(out, c.Discard, c.Back)
+}
+
 func (m *Model) confirmKey(k tea.KeyMsg) tea.Cmd {
 	c := m.Confirm
 	open := m.pending

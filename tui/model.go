@@ -467,7 +467,15 @@ func (m *Model) statusLine() string {
 }
 
 func (m *Model) helpLine() string {
-	return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(m.help.ShortHelpView(m.ShortHelp()))
+	line := m.help.ShortHelpView(m.ShortHelp())
+	wide := m.help
+	wide.Width = 0 // unbounded, to see whether it all fits
+	if m.confirming && lipgloss.Width(wide.ShortHelpView(m.ShortHelp())) > m.width {
+		// The question's box says what follows each answer; the line
+		// keeps every key with its bare name rather than lose the last.
+		line = m.help.ShortHelpView(m.confirmKeys())
+	}
+	return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(line)
 }
 
 // ShortHelp is the always-visible help line: the screen's main keys and
