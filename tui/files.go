@@ -16,6 +16,7 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/tui/prompt"
+	"enthalpath/tui/safepath"
 	"enthalpath/tui/screen"
 )
 
@@ -107,7 +108,7 @@ func (m *Model) confirmKey(k tea.KeyMsg) tea.Cmd {
 		if open == nil {
 			m.recovered = p
 		} else {
-			m.kept = "The unsaved " + formula + " cycle was kept in " + p + "." // said once the open is done
+			m.kept = "The unsaved " + formula + " cycle was kept in " + m.name(p) + "." // said once the open is done
 		}
 		return m.then(open)
 	case key.Matches(k, c.Discard):
@@ -131,7 +132,7 @@ func (m *Model) confirmView() string {
 		lines = append(lines, fit(st.HelpKey.Render(b.Help().Key)+"  "+b.Help().Desc))
 		if slices.Equal(b.Keys(), m.Confirm.Keep.Keys()) {
 			// The path on a line of its own, its start cut when too long.
-			p := m.recoveryTarget()
+			p := m.name(m.recoveryTarget())
 			if r := []rune(p); len(r) > inner-5 {
 				p = "…" + string(r[len(r)-(inner-6):])
 			}
@@ -141,15 +142,44 @@ func (m *Model) confirmView() string {
 	return strings.Join(lines, "\n")
 }
 
+// name is how a path is shown and pre-filled: inside a confined folder
+// (Options.FileRoot) relative to it, the name the user types; else as is.
+func (m *Model) name(path string) string {
+	if m.opts.FileRoot == "" {
+		return path
+	}
+	rel, _ := safepath.Rel(m.opts.FileRoot, path)
+	return rel
+}
+
+// shown takes the confined folder's own path out of a text (an error of
+// the file system names the whole path), leaving the names the user types.
+func (m *Model) shown(text string) string {
+	root := m.opts.FileRoot
+	if root == "" {
+		return text
+	}
+	roots := []string{filepath.Clean(root)}
+	if abs, err := filepath.Abs(root); err == nil {
+		roots = append(roots, abs)
+	}
+	if real, err := filepath.EvalSymlinks(root); err == nil {
+		if abs, err := filepath.Abs(real); err == nil {
+			roots = append(roots, abs)
+		}
+	}
+	for _, r := range roots {
+		if r != string(filepath.Separator) && r != "." {
+			text = strings.ReplaceAll(text, r+string(filepath.Separator), "")
+		}
+	}
+	return text
+}
+
 // defaultFileName proposes a cycle file name for the session's compound.
 func (m *Model) defaultFileName() string {
 	if m.sess.Path != "" {
-		if m.opts.FileRoot != "" {
-			if rel, err := filepath.Rel(m.opts.FileRoot, m.sess.Path); err == nil {
-				return rel
-			}
-		}
-		return m.sess.Path
+		return m.name(m.sess.Path)
 	}
 	return safeStem(m.sess.Cycle.Formula) + cycle.FileExtension
 }
@@ -232,7 +262,7 @@ func (m *Model) saved(msg savedMsg) tea.Cmd {
 		return nil
 	}
 	m.sess.Clean(msg.path)
-	m.status, m.statusErr = "Saved "+msg.path+".", false
+	m.status, m.statusErr = "Saved "+m.name(msg.path)+".", false
 	if msg.thenQuit {
 		m.quitting = true
 		return tea.Quit
@@ -245,8 +275,8 @@ func (m *Model) saved(msg savedMsg) tea.Cmd {
 
 func (m *Model) askOpen() tea.Cmd {
 	initial := ""
-	if files := recoveryFiles(m.opts.RecoveryPath); len(files) > 0 && m.opts.FileRoot == "" {
-		initial = files[0]
+	if files := recoveryFiles(m.opts.RecoveryPath); len(files) > 0 {
+		initial = m.name(files[0]) // in a confined folder, the name to type
 	}
 	m.prompt.Open(prompt.New(m.ctx.Styles, "Open a cycle file", initial,
 		"The name of a "+cycle.FileExtension+" file. esc cancels.", m.opts.MaxInputLen,

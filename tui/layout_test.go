@@ -5,7 +5,10 @@ import (
 	"strings"
 	"testing"
 
+	tea "github.com/charmbracelet/bubbletea"
+
 	"enthalpath/cycle"
+	"enthalpath/tui"
 	"enthalpath/tui/internal/drive"
 
 	"github.com/charmbracelet/lipgloss"
@@ -64,5 +67,68 @@ func TestQuestionHelpLineFitsAt80(t *testing.T) {
 			}
 			keys(u, "esc")
 		}
+	}
+}
+
+// TestConfinedFolderShowsTypableNames: in a confined folder (the SSH
+// server's per-member folder) every file the workshop names is shown
+// relative to the folder, the name the member can type (absolute paths are
+// refused there); ctrl+o proposes the recovery file by that name, and a
+// status line too long for the window ends in "…" rather than being cut.
+func TestConfinedFolderShowsTypableNames(t *testing.T) {
+	db := loadDB(t)
+	dir := t.TempDir()
+	old, err := cycle.Build(db, "MgO", cycle.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := cycle.Save(filepath.Join(dir, "recovery.hesscycle"), old); err != nil {
+		t.Fatal(err)
+	}
+	m := tui.New(tui.Options{Renderer: drive.Renderer(), DB: db, FileRoot: dir, RecoveryPath: dir + "/recovery.hesscycle"}).(*tui.Model)
+	u := drive.Model(m)
+	drive.Run(u, tea.WindowSizeMsg{Width: 80, Height: 24})
+	drive.RunCmd(u, m.Init())
+	noDir := func(when string) string {
+		t.Helper()
+		v := m.View()
+		if strings.Contains(v, dir) {
+			t.Errorf("%s: the screen shows the server's path %s:\n%s", when, dir, v)
+		}
+		return v
+	}
+	if v := noDir("start"); !strings.Contains(v, "kept at recovery.hesscycle") {
+		t.Errorf("start: the recovery file is not named as typed:\n%s", v)
+	}
+	keys(u, "ctrl+o")
+	if v := noDir("ctrl+o"); !strings.Contains(v, "recovery.hesscycle") {
+		t.Errorf("ctrl+o does not propose the recovery file:\n%s", v)
+	}
+	keys(u, "enter")
+	if c := m.Session().Cycle; c == nil || c.Formula != "MgO" {
+		t.Fatalf("enter on the proposed name did not open the recovery file's MgO: %v", c)
+	}
+	if v := noDir("opened"); !strings.Contains(v, "Opened recovery.hesscycle.") {
+		t.Errorf("the open is not reported by the typed name:\n%s", v)
+	}
+	keys(u, "g", "j", "e")
+	drive.Run(u, drive.Text("600")...)
+	keys(u, "enter", "ctrl+s", "ctrl+u")
+	drive.Run(u, drive.Text("cycles/mgo-with-my-ionization-energy-and-a-name-long-enough-to-be-cut.hesscycle")...)
+	keys(u, "enter")
+	v := noDir("saved")
+	status := strings.Split(v, "\n")[22]
+	if !strings.HasPrefix(status, "Saved cycles/mgo-") || !strings.HasSuffix(strings.TrimRight(status, " "), "…") {
+		t.Errorf("the status of a long save is %q, want the typed name cut with …", status)
+	}
+	keys(u, "g", "j", "e")
+	drive.Run(u, drive.Text("610")...)
+	keys(u, "enter", "q")
+	if v := noDir("question"); !strings.Contains(v, "recovery-2.hesscycle") {
+		t.Errorf("the question does not name the recovery file:\n%s", v)
+	}
+	keys(u, "k")
+	if v := noDir("kept"); !strings.Contains(v, "Unsaved work kept in recovery-2.hesscycle") {
+		t.Errorf("the last frame does not name the recovery file as typed:\n%s", v)
 	}
 }

@@ -11,6 +11,7 @@ import (
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
 	"github.com/charmbracelet/lipgloss"
+	"github.com/charmbracelet/x/ansi"
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
@@ -153,7 +154,7 @@ func (m *Model) checkRecovery() tea.Cmd {
 		case 0:
 			return nil
 		case 1:
-			return screen.StatusMsg{Text: "A recovery file from an earlier session is kept at " + files[0] + " (ctrl+o opens it)."}
+			return screen.StatusMsg{Text: "A recovery file from an earlier session is kept at " + m.name(files[0]) + " (ctrl+o opens it)."}
 		}
 		return screen.StatusMsg{Text: fmt.Sprintf("%d recovery files from earlier sessions are kept, the newest %s beside %s (ctrl+o opens them).",
 			len(files), filepath.Base(files[0]), filepath.Base(p))}
@@ -325,7 +326,7 @@ func (m *Model) opened(msg openedMsg) tea.Cmd {
 	solve := m.sess.Open(msg.c, msg.path)
 	m.status, m.statusErr = "", false
 	if msg.path != "" {
-		m.status = "Opened " + msg.path + "."
+		m.status = "Opened " + m.name(msg.path) + "."
 	}
 	if m.kept != "" {
 		m.status = strings.TrimSpace(m.kept + " " + m.status)
@@ -360,7 +361,7 @@ func (m *Model) View() (out string) {
 	defer m.recoverAndRepanic()
 	if m.quitting {
 		if m.recovered != "" {
-			return "Unsaved work kept in " + m.recovered + "\n"
+			return "Unsaved work kept in " + m.name(m.recovered) + "\n"
 		}
 		return ""
 	}
@@ -451,7 +452,7 @@ func (m *Model) tabs(level int) string {
 
 func (m *Model) statusLine() string {
 	st := m.ctx.Styles
-	text := m.status
+	text := m.shown(m.status)
 	var out string
 	switch {
 	case text != "" && m.statusErr:
@@ -459,11 +460,11 @@ func (m *Model) statusLine() string {
 	case text != "":
 		out = st.Text.Render(text)
 	case m.sess.Path != "":
-		out = st.Muted.Render("file: " + m.sess.Path)
+		out = st.Muted.Render("file: " + m.name(m.sess.Path))
 	default:
 		out = st.Muted.Render("enthalpath workshop — " + m.helpKeys() + " lists every key")
 	}
-	return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(out)
+	return ansi.Truncate(out, m.width, "…") // a cut shows
 }
 
 func (m *Model) helpLine() string {

@@ -178,3 +178,27 @@ func within(root, path string) bool {
 	}
 	return rel == "." || (rel != ".." && !strings.HasPrefix(rel, ".."+string(filepath.Separator)))
 }
+
+// Rel returns path as a name relative to root, the name a user confined to
+// root types for it, and true; or path and false when it does not lie
+// inside root. root may be given as configured or with its links resolved
+// (Join returns resolved paths).
+func Rel(root, path string) (string, bool) {
+	if root == "" || path == "" {
+		return path, false
+	}
+	roots := []string{filepath.Clean(root)}
+	if abs, err := filepath.Abs(root); err == nil {
+		roots = append(roots, abs)
+	}
+	if real, err := resolveRoot(root); err == nil {
+		roots = append(roots, real)
+	}
+	for _, r := range roots {
+		if rel, err := filepath.Rel(r, path); err == nil && within(r, filepath.Join(r, rel)) && rel != "." &&
+			filepath.IsAbs(path) == filepath.IsAbs(r) {
+			return rel, true
+		}
+	}
+	return path, false
+}

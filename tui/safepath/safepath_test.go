@@ -179,3 +179,25 @@ func TestJoinNeverLeaves(t *testing.T) {
 		t.Fatalf("only %d names tried", len(names))
 	}
 }
+
+// TestRelGivesTheTypedName: a path Join returned is shown back as the name
+// typed, also when the folder was configured through a link; a path
+// outside the folder (or the folder itself) is not made relative.
+func TestRelGivesTheTypedName(t *testing.T) {
+	base, root := layout(t)
+	link := filepath.Join(base, "rootlink")
+	for _, r := range []string{root, link} {
+		p, err := Join(r, "sub/new.hesscycle")
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got, ok := Rel(r, p); !ok || got != filepath.Join("sub", "new.hesscycle") {
+			t.Errorf("Rel(%s, %s) = %q, %v; want sub/new.hesscycle, true", r, p, got, ok)
+		}
+		for _, out := range []string{filepath.Join(base, "outside", "secret"), r, "/etc/passwd"} {
+			if got, ok := Rel(r, out); ok || got != out {
+				t.Errorf("Rel(%s, %s) = %q, %v; want the path unchanged and false", r, out, got, ok)
+			}
+		}
+	}
+}
