@@ -139,10 +139,19 @@ func (m *Model) View() string {
 	}
 	var lines []string
 	res := m.sess.Solved()
-	cycleValue := math.NaN()
+	ref := c.Settings.LatticeFrom // the model the lattice step comes from, "" for the cycle
 	switch {
+	case res != nil && ref != "":
+		// The lattice step is a model's: the reference is named for what
+		// it is, and the gaps below are one model against another.
+		head := fmt.Sprintf("%s: lattice from the %s model %s = %s %s %s", c.Formula, ref, c.Conventions.Lattice.Symbol(),
+			m.ctx.Signed(res.Lattice.In(c.Conventions.Lattice)), m.ctx.Uncertainty(res.Lattice.Uncertainty), m.ctx.Units)
+		if more := " · " + res.Solved.Key + " solved from it"; len([]rune(head+more)) <= m.w {
+			head += more
+		}
+		lines = append(lines, st.Title.Render(trunc(head, m.w)))
 	case res != nil:
-		cycleValue = res.Lattice.In(c.Conventions.Lattice)
+		cycleValue := res.Lattice.In(c.Conventions.Lattice)
 		lines = append(lines, st.Title.Render(fmt.Sprintf("%s: cycle lattice %s = %s %s %s", c.Formula, c.Conventions.Lattice.Symbol(),
 			m.ctx.Signed(cycleValue), m.ctx.Uncertainty(res.Lattice.Uncertainty), m.ctx.Units)))
 	case !m.sess.Fresh():
@@ -150,8 +159,12 @@ func (m *Model) View() string {
 	default:
 		lines = append(lines, st.Error.Render("The cycle is not solved: ")+trunc(session.Explain(m.sess.SolveErr), m.w-26))
 	}
-	lines = append(lines, m.modelTable(res)...)
-	lines = append(lines, st.Muted.Render(trunc("gap = cycle − model (█ left of │: the cycle binds more); verdict "+cycle.VerdictThresholds(), m.w)))
+	lines = append(lines, m.modelTable(res, ref)...)
+	if ref != "" {
+		lines = append(lines, st.Muted.Render(trunc("gap = "+ref+" − model: model–model differences, no covalency verdict", m.w)))
+	} else {
+		lines = append(lines, st.Muted.Render(trunc("gap = cycle − model (█ left of │: the cycle binds more); verdict "+cycle.VerdictThresholds(), m.w)))
+	}
 	lines = append(lines, m.madelungLine(res))
 	lines = append(lines, "", st.Title.Render("Settings")+st.Muted.Render(" (↑/↓ choose · e type · ←/→ step · r default)"))
 	for i, r := range m.rows {
@@ -177,7 +190,10 @@ func (m *Model) View() string {
 // barCell is the percent one cell of the gap bar stands for.
 const barCell = 2.0
 
-func (m *Model) modelTable(res *cycle.Result) []string {
+// modelTable lists the models against the lattice value; ref names the
+// model that value comes from ("" for the cycle), whose gaps are then
+// model–model differences and carry no verdict.
+func (m *Model) modelTable(res *cycle.Result, ref string) []string {
 	st := m.ctx.Styles
 	var models []cycle.ModelResult
 	if res != nil {
@@ -191,7 +207,11 @@ func (m *Model) modelTable(res *cycle.Result) []string {
 	scale := fmt.Sprintf("−%g%%", barCell*float64(half))
 	scale = scale + strings.Repeat(" ", max(1, 2*half+1-2*len([]rune(scale))-1)) + "0" + strings.Replace(scale, "−", "+", 1)
 	verdictW := max(10, m.w-nameW-10-9-8-(2*half+1)-6)
-	head := fmt.Sprintf("%-*s %10s %9s %8s %-*s %s", nameW, "model", m.ctx.Units.String(), "gap", "gap %", 2*half+1, trunc(scale, 2*half+1), "verdict")
+	verdictHead := "verdict"
+	if ref != "" {
+		verdictHead = "no verdict"
+	}
+	head := fmt.Sprintf("%-*s %10s %9s %8s %-*s %s", nameW, "model", m.ctx.Units.String(), "gap", "gap %", 2*half+1, trunc(scale, 2*half+1), verdictHead)
 	out := []string{st.Title.Render(trunc(head, m.w))}
 	if len(models) == 0 {
 		return append(out, st.Muted.Render("  (the models appear once the cycle is solved)"))
@@ -201,8 +221,15 @@ func (m *Model) modelTable(res *cycle.Result) []string {
 			out = append(out, trunc(fmt.Sprintf("%-*s %10s  %s", nameW, mr.Model, "—", "not available: "+session.Message(mr.Err)), m.w))
 			continue
 		}
+		verdict := mr.Verdict.Character.String()
+		switch {
+		case ref == mr.Model:
+			verdict = "reference"
+		case ref != "":
+			verdict = "model–model"
+		}
 		line := fmt.Sprintf("%-*s %10s %9s %8s %s %s", nameW, mr.Model, m.ctx.Signed(mr.Value), m.ctx.Signed(mr.Gap), pct(mr.GapPercent),
-			bar(mr.GapPercent, half), trunc(mr.Verdict.Character.String(), verdictW))
+			bar(mr.GapPercent, half), trunc(verdict, verdictW))
 		out = append(out, trunc(line, m.w))
 	}
 	if hb := res.Handbook; hb != nil {

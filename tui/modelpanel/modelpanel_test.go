@@ -214,3 +214,38 @@ func TestModelRowsSpeakOfTheScreen(t *testing.T) {
 		}
 	}
 }
+
+// TestReferenceIsNamedWhenTheLatticeIsAModel: with the lattice step taken
+// from the Born–Landé model (and the attachment solved from it), the panel
+// names that model as the reference instead of "cycle", and gives no
+// covalency verdict: a gap between two point-charge models says nothing
+// about covalency (the verdict compares a measured cycle with a model;
+// common practice, no source).
+func TestReferenceIsNamedWhenTheLatticeIsAModel(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	cmd, err := f.Session.Change(func(c *cycle.Cycle) error {
+		c.Settings.LatticeFrom = cycle.ModelBornLande
+		return c.MarkUnknown("attachment-1")
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	drive.Run(u, cmd())
+	res := f.Session.Solved()
+	if res == nil {
+		t.Fatalf("not solved: %v", f.Session.SolveErr)
+	}
+	v := m.View()
+	head := strings.Split(v, "\n")[0]
+	if strings.Contains(head, "cycle") || !strings.Contains(head, "lattice from the born-lande model") {
+		t.Errorf("the header does not name the model the lattice comes from: %q", head)
+	}
+	for _, mr := range res.Models {
+		if mr.OK() && strings.Contains(v, mr.Verdict.Character.String()) {
+			t.Errorf("a covalency verdict %q is given against a model value:\n%s", mr.Verdict.Character, v)
+		}
+	}
+	if !strings.Contains(v, "born-lande − model") || !strings.Contains(v, "model–model") {
+		t.Errorf("the gaps are not said to be model–model differences:\n%s", v)
+	}
+}
