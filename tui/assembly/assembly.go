@@ -411,13 +411,14 @@ func (m *Model) View() string {
 			val = "?"
 		}
 		if s.Kind == cycle.KindLattice && c.Settings.LatticeFrom != "" {
-			val = "model"
+			val = m.modelValue(c)
 		}
 		marker := "✓"
 		if m.decided[i] == "unknown" {
 			marker = "?"
 		}
-		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s %10s  %s", marker, s.Reaction, val, m.decided[i]), m.w))
+		// The multiplicity the value enters the sum with (×½ for Cl₂ → 2Cl).
+		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s %3s %10s  %s", marker, s.Reaction, mult(s.Multiplicity), val, m.decided[i]), m.w))
 	}
 	if s := m.current(); s != nil {
 		text, ok := m.proposal(s)
@@ -442,6 +443,20 @@ func (m *Model) View() string {
 		top += "\n" + d.Render(m.w, rest, diagram.Styles{Rule: st.Rule, Arrow: st.Text, Solved: st.Solved, Label: st.Text, Axis: st.Muted})
 	}
 	return top
+}
+
+// modelValue is the lattice step's value when a model fills it: the
+// solve's, or the model's own while the solve runs.
+func (m *Model) modelValue(c *cycle.Cycle) string {
+	if res := m.sess.Solved(); res != nil {
+		if s, ok := res.Step("lattice"); ok {
+			return m.ctx.Signed(s.Value)
+		}
+	}
+	if mr, err := cycle.EvaluateModel(c, c.Settings.LatticeFrom); err == nil && mr.OK() {
+		return m.ctx.Signed(mr.Value)
+	}
+	return "—"
 }
 
 func (m *Model) drawSteps() []cycle.Step {
@@ -487,6 +502,19 @@ func (m *Model) doneLine() string {
 }
 
 func indent(s, by string) string { return by + strings.ReplaceAll(s, "\n", "\n"+by) }
+
+// mult is a multiplicity as a table cell: "" for 1, ×½, ×2, ….
+func mult(v float64) string {
+	switch {
+	case v == 1:
+		return ""
+	case v == 0.5:
+		return "×½"
+	case v == float64(int(v)):
+		return fmt.Sprintf("×%d", int(v))
+	}
+	return fmt.Sprintf("×%g", v)
+}
 
 func multNote(v float64) string {
 	if v == 1 {

@@ -282,3 +282,46 @@ func TestRefusalsSpeakOfTheScreen(t *testing.T) {
 		t.Errorf("refusal in command-line terms or without the text typed: %s", msg)
 	}
 }
+
+// TestDecidedRowsShowMultiplicityAndValue: every decided row shows the
+// multiplicity its value enters the sum with and the value accepted, the
+// lattice step filled from a model included. Na₂O: 2 Na atomized, ½ O₂
+// dissociated (the formula's stoichiometry); the data have no handbook
+// lattice value for it, so with the attachment unknown the lattice step
+// comes from a model.
+func TestDecidedRowsShowMultiplicityAndValue(t *testing.T) {
+	f, m, u := setup(t, "Na2O")
+	for !m.Done() {
+		if m.currentKey() == "attachment-1" {
+			drive.Run(u, drive.Key("x"))
+			continue
+		}
+		drive.Run(u, drive.Key("y"))
+	}
+	res := f.Session.Solved()
+	if res == nil || f.Session.Cycle.Settings.LatticeFrom == "" {
+		t.Fatalf("not solved with the lattice from a model: %v (lattice from %q)", f.Session.SolveErr, f.Session.Cycle.Settings.LatticeFrom)
+	}
+	v := m.View()
+	rows := map[string]string{}
+	for _, l := range strings.Split(v, "\n") {
+		for _, k := range m.order {
+			s, _ := f.Session.Cycle.Step(k)
+			if strings.HasPrefix(l, " ✓ "+s.Reaction+" ") || strings.HasPrefix(l, " ? "+s.Reaction+" ") {
+				rows[k] = l
+			}
+		}
+	}
+	lat, _ := res.Step("lattice")
+	for k, want := range map[string][]string{
+		"atomization-cation": {"×2"},
+		"dissociation-anion": {"×½"},
+		"lattice":            {f.Ctx.Signed(lat.Value), f.Session.Cycle.Settings.LatticeFrom},
+	} {
+		for _, w := range want {
+			if !strings.Contains(rows[k], w) {
+				t.Errorf("the row of %s is %q, want %q in it:\n%s", k, rows[k], w, v)
+			}
+		}
+	}
+}
