@@ -439,7 +439,7 @@ func (m *Model) View() string {
 	rest := m.h - lipgloss.Height(top) - 1
 	if rest >= 6 {
 		limit := m.drawnTerms()
-		d := hessdiagram.Build(c.Formula, m.drawSteps(), hessdiagram.Options{Units: m.ctx.Units, Limit: limit, Solved: m.Done() && m.sess.Solved() != nil})
+		d := hessdiagram.Build(c.Formula, m.drawSteps(), hessdiagram.ForCycle(c, hessdiagram.Options{Units: m.ctx.Units, Limit: limit, Solved: m.Done() && m.sess.Solved() != nil}))
 		top += "\n" + d.Render(m.w, rest, diagram.Styles{Rule: st.Rule, Arrow: st.Text, Solved: st.Solved, Label: st.Text, Axis: st.Muted})
 	}
 	return top

@@ -12,6 +12,7 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
+	"enthalpath/tui/hessdiagram"
 	"enthalpath/tui/internal/drive"
 	"enthalpath/tui/screen"
 )
@@ -359,5 +360,31 @@ func TestRowsSumUnderU(t *testing.T) {
 	}
 	if math.Abs(sum-formation) > 1e-6 {
 		t.Errorf("under U the rows sum to %.3f, the formation step is %.3f", sum, formation)
+	}
+}
+
+// TestDrawingClosesUnderU: with the lattice step shown as U (c), the
+// drawing still closes on the formation enthalpy (Hess's law over ΔH_L;
+// ΔH_L − U = +RT for NaCl, Jenkins, J. Chem. Educ. 82, 950 (2005)): the
+// lattice arrow is drawn as ΔH_L and labelled with U beside it, and no
+// level of its own is added for the formation step.
+func TestDrawingClosesUnderU(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	drive.Run(u, drive.Key("c"))
+	res := f.Session.Solved()
+	if res == nil {
+		t.Fatal("not solved under U")
+	}
+	d := hessdiagram.Build("NaCl", res.Steps, hessdiagram.ForCycle(f.Session.Cycle, hessdiagram.Options{Units: thermo.KJPerMol, Limit: -1, Solved: true}))
+	if n := len(hessdiagram.Terms(res.Steps)); len(d.Levels) != n+1 {
+		t.Errorf("%d levels for %d terms: under U the drawing does not close", len(d.Levels), n)
+	}
+	v := m.View()
+	lat, _ := res.Step("lattice")
+	corr := -f.Session.Cycle.LatticeCorrection()
+	want := "lattice arrow ΔH_L " + f.Ctx.Signed(lat.Value+corr) + " = U " + f.Ctx.Signed(lat.Value)
+	arrow := "?" + strings.ReplaceAll(strconv.FormatFloat(math.Round(lat.Value+corr), 'f', 0, 64), "-", "−")
+	if strings.Contains(v, "from ΔfH°") || !strings.Contains(v, want) || !strings.Contains(v, arrow) {
+		t.Errorf("the drawing under U lacks %q or the arrow %q, or adds a formation level:\n%s", want, arrow, v)
 	}
 }

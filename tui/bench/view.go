@@ -234,9 +234,27 @@ func (m *Model) drawingView(h int) string {
 	if h < 6 {
 		return st.Muted.Render("(no room for the drawing; press v, or enlarge the window)")
 	}
-	d := hessdiagram.Build(m.sess.Cycle.Formula, m.steps(), hessdiagram.Options{Units: m.ctx.Units, Limit: -1, Solved: m.sess.Solved() != nil})
-	title := st.Title.Render("Drawn to scale") + st.Muted.Render(trunc(" · "+m.ctx.Units.String()+" per formula unit · ? marks the solved step · d exports SVG", m.w-14))
+	d := hessdiagram.Build(m.sess.Cycle.Formula, m.steps(), hessdiagram.ForCycle(m.sess.Cycle, hessdiagram.Options{Units: m.ctx.Units, Limit: -1, Solved: m.sess.Solved() != nil}))
+	note := " · " + m.ctx.Units.String() + " per formula unit · ? marks the solved step · d exports SVG"
+	if lat, ok := latticeOf(m.steps(), m.sess.Solved() != nil); ok && m.showCorrection() {
+		// The drawing closes by Hess's law over ΔH_L: its lattice arrow is
+		// ΔH_L, the table's U plus the correction row.
+		corr := -m.sess.Cycle.LatticeCorrection()
+		note = fmt.Sprintf(" · lattice arrow ΔH_L %s = U %s %s · d exports SVG", m.ctx.Signed(lat.Value+corr), m.ctx.Signed(lat.Value), m.ctx.Signed(corr))
+	}
+	title := st.Title.Render("Drawn to scale") + st.Muted.Render(trunc(note, m.w-14))
 	return title + "\n" + d.Render(m.w, h-1, m.diagramStyles())
+}
+
+// latticeOf returns the lattice step of steps, when it has a value
+// (solved is whether steps are a solved result's).
+func latticeOf(steps []cycle.Step, solved bool) (*cycle.Step, bool) {
+	for i := range steps {
+		if s := &steps[i]; s.Kind == cycle.KindLattice {
+			return s, s.Source.Kind != cycle.SourceMissing && (solved || !s.Unknown)
+		}
+	}
+	return nil, false
 }
 
 func (m *Model) diagramStyles() diagram.Styles {

@@ -51,6 +51,20 @@ type Options struct {
 	Limit int
 	// Solved marks the values as a solved result (the unknown has a value).
 	Solved bool
+	// LatticeAsU says the lattice step's value is the lattice energy U and
+	// LatticeCorrection is ΔH_L − U (kJ/mol): the arrow is then drawn as
+	// ΔH_L, so the path still closes on the formation enthalpy, and the
+	// title names both. See ForCycle.
+	LatticeAsU        bool
+	LatticeCorrection float64
+}
+
+// ForCycle sets the lattice fields of opt from the cycle's conventions.
+func ForCycle(c *cycle.Cycle, opt Options) Options {
+	if c != nil && c.Conventions.Lattice == cycle.LatticeEnergy {
+		opt.LatticeAsU, opt.LatticeCorrection = true, -c.LatticeCorrection()
+	}
+	return opt
 }
 
 // Build makes the diagram of a cycle's steps (the result's steps when
@@ -78,8 +92,17 @@ func Build(formula string, steps []cycle.Step, opt Options) diagram.Diagram {
 	for _, i := range terms[:limit] {
 		s := &steps[i]
 		known := hasValue(s, opt.Solved)
+		value := arrowValue(s, known, opt.Units)
 		if known {
-			energy += thermo.FromKJPerMol(s.Contribution(), opt.Units)
+			contribution := s.Contribution()
+			if s.Kind == cycle.KindLattice && opt.LatticeAsU {
+				u := *s
+				u.Value += opt.LatticeCorrection // U → ΔH_L
+				contribution = u.Contribution()
+				value = arrowValue(&u, true, opt.Units)
+				d.Title += " (lattice arrow ΔH_L " + value + "; U " + arrowValue(s, true, opt.Units) + ")"
+			}
+			energy += thermo.FromKJPerMol(contribution, opt.Units)
 		}
 		species := product(s)
 		switch {
@@ -93,7 +116,7 @@ func Build(formula string, steps []cycle.Step, opt Options) diagram.Diagram {
 		d.Levels = append(d.Levels, diagram.Level{Label: join(cation, anion), Energy: energy})
 		d.Arrows = append(d.Arrows, diagram.Arrow{
 			From: len(d.Levels) - 2, To: len(d.Levels) - 1, Tag: s.Key,
-			Value: arrowValue(s, known, opt.Units), Unknown: s.Unknown,
+			Value: value, Unknown: s.Unknown,
 		})
 	}
 	if formation != nil && limit == len(terms) {

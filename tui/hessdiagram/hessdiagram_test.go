@@ -117,3 +117,33 @@ func TestUnitsScaleTheLevels(t *testing.T) {
 		t.Errorf("unit %q", ev.Unit)
 	}
 }
+
+// TestClosesUnderU: with the lattice step in U, ForCycle draws the lattice
+// arrow as ΔH_L (U plus Jenkins' correction, +RT for NaCl: J. Chem. Educ.
+// 82, 950 (2005)), so the path ends on the formation level by Hess's law
+// and no extra level is needed; the title names both values (NaCl:
+// ΔH_L ≈ −787 kJ/mol, U ≈ −790, textbook values, from memory).
+func TestClosesUnderU(t *testing.T) {
+	db, err := data.Load()
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := cycle.Build(db, "NaCl", cycle.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	conv := c.Conventions
+	conv.Lattice = cycle.LatticeEnergy
+	c.SetConventions(conv)
+	res, err := cycle.Solve(c)
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := Build("NaCl", res.Steps, ForCycle(c, Options{Units: thermo.KJPerMol, Limit: -1, Solved: true}))
+	if n := len(Terms(res.Steps)); len(d.Levels) != n+1 {
+		t.Errorf("%d levels for %d terms: the drawing under U does not close", len(d.Levels), n)
+	}
+	if !strings.Contains(d.Title, "ΔH_L −787") || !strings.Contains(d.Title, "U −790") {
+		t.Errorf("title %q does not name ΔH_L and U", d.Title)
+	}
+}
