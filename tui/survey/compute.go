@@ -7,6 +7,7 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/data"
+	"enthalpath/thermo/lattice"
 )
 
 // Row is one compound of the survey. Energies are kJ/mol, lattice steps
@@ -20,8 +21,8 @@ type Row struct {
 	// Models[i] is the value of cycle.ModelNames()[i] (NaN when not
 	// available); Gaps[i] and GapPercents[i] its gap to the cycle.
 	Models, Gaps, GapPercents []float64
-	// Verdicts[i] is model i's verdict in words ("" when not available).
-	Verdicts []string
+	// Verdicts[i] is model i's verdict (Undetermined when not available).
+	Verdicts []lattice.Character
 }
 
 // ComputedMsg carries the survey's rows.
@@ -45,7 +46,7 @@ func computeRows(db *data.DB) []Row {
 		r.Models = nanSlice(len(names))
 		r.Gaps = nanSlice(len(names))
 		r.GapPercents = nanSlice(len(names))
-		r.Verdicts = make([]string, len(names))
+		r.Verdicts = make([]lattice.Character, len(names))
 		res, err := solveOne(db, comp.Formula, memo)
 		if err != nil {
 			r.Err = err
@@ -56,7 +57,7 @@ func computeRows(db *data.DB) []Row {
 		for i, name := range names {
 			if mr, ok := res.Model(name); ok && mr.OK() {
 				r.Models[i], r.Gaps[i], r.GapPercents[i] = mr.Value, mr.Gap, mr.GapPercent
-				r.Verdicts[i] = mr.Verdict.Character.String()
+				r.Verdicts[i] = mr.Verdict.Character
 			}
 		}
 		rows = append(rows, r)

@@ -10,9 +10,11 @@ import (
 	"github.com/charmbracelet/bubbles/key"
 	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/lipgloss"
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
+	"enthalpath/thermo/lattice"
 	"enthalpath/tui/plot"
 	"enthalpath/tui/screen"
 	"enthalpath/tui/session"
@@ -306,7 +308,7 @@ func (m *Model) table(h int) []string {
 	names := cycle.ModelNames()
 	wide := m.w >= 110
 	var b strings.Builder
-	fmt.Fprintf(&b, "  %-9s %-17s %9s", "formula", "family", "cycle")
+	fmt.Fprintf(&b, "  %-9s %-15s %9s", "formula", "family", "cycle")
 	if wide {
 		for _, n := range names {
 			fmt.Fprintf(&b, " %10s", trunc(n, 10))
@@ -314,9 +316,25 @@ func (m *Model) table(h int) []string {
 	} else {
 		fmt.Fprintf(&b, " %12s", trunc(m.ModelName(), 12))
 	}
-	fmt.Fprintf(&b, " %9s %7s  %s", "gap", "gap %", "verdict")
+	fmt.Fprintf(&b, " %9s %7s  ", "gap", "gap %")
+	// The verdict column takes what the line leaves; too narrow for the
+	// verdicts' words it shows their codes, which a legend explains.
+	verdictW := max(screen.VerdictCodeWidth, m.w-lipgloss.Width(b.String()))
+	b.WriteString("verdict")
 	out := []string{st.Title.Render(trunc(b.String(), m.w))}
-	rows := h - 2
+	note := "gap = cycle − model; negative: the cycle binds more than the ionic model"
+	if _, code := screen.Verdict(lattice.SubstantialCovalent, verdictW); code {
+		note = "gap = cycle − model · " + screen.VerdictLegend
+	}
+	footer := func(rows int) []string {
+		text := note
+		if pos := m.position(rows); pos != "" {
+			text = pos + " · " + text
+		}
+		return screen.Wrap(text, m.w, "  ")
+	}
+	rows := h - 1 - len(footer(h-2))
+	rows = h - 1 - len(footer(rows))
 	if m.cursor < m.top {
 		m.top = m.cursor
 	}
@@ -330,7 +348,7 @@ func (m *Model) table(h int) []string {
 		if i == m.cursor {
 			cursor = "›"
 		}
-		fmt.Fprintf(&line, "%s %-9s %-17s %9s", cursor, trunc(r.Formula, 9), trunc(r.Family, 17), m.num(r.Cycle))
+		fmt.Fprintf(&line, "%s %-9s %-15s %9s", cursor, trunc(r.Formula, 9), trunc(r.Family, 15), m.num(r.Cycle))
 		if wide {
 			for j := range names {
 				fmt.Fprintf(&line, " %10s", m.num(r.Models[j]))
@@ -338,11 +356,17 @@ func (m *Model) table(h int) []string {
 		} else {
 			fmt.Fprintf(&line, " %12s", m.num(r.Models[m.model]))
 		}
-		verdict := ""
-		if r.Err != nil {
-			verdict = "no cycle: " + session.Message(r.Err)
-		} else {
-			verdict = r.Verdicts[m.model]
+		verdict := "—"
+		switch {
+		case r.Err != nil:
+			if verdictW >= len("no cycle") {
+				verdict = "no cycle"
+			}
+			if full := "no cycle: " + session.Message(r.Err); len([]rune(full)) <= verdictW {
+				verdict = full
+			}
+		case !math.IsNaN(r.Models[m.model]):
+			verdict, _ = screen.Verdict(r.Verdicts[m.model], verdictW)
 		}
 		fmt.Fprintf(&line, " %9s %7s  %s", m.num(r.Gaps[m.model]), pct(r.GapPercents[m.model]), verdict)
 		text := trunc(line.String(), m.w)
@@ -351,11 +375,9 @@ func (m *Model) table(h int) []string {
 		}
 		out = append(out, text)
 	}
-	note := "gap = cycle − model; negative: the cycle binds more than the ionic model"
-	if pos := m.position(rows); pos != "" {
-		note = pos + " · " + note
+	for _, l := range footer(rows) {
+		out = append(out, st.Muted.Render(l))
 	}
-	out = append(out, st.Muted.Render(trunc(note, m.w)))
 	return out
 }
 

@@ -203,3 +203,36 @@ func TestSortShowsTheFirstRow(t *testing.T) {
 		t.Errorf("home: cursor %d, want 0", m.Cursor())
 	}
 }
+
+// TestVerdictsFitTheirColumn: at the sizes the workshop supports, every
+// row's verdict is shown whole (words that fit, or a code the legend under
+// the table explains), never cut with "…" as "ionic m…" was at 80 columns.
+func TestVerdictsFitTheirColumn(t *testing.T) {
+	for _, size := range [][2]int{{80, 21}, {100, 27}, {120, 37}} {
+		_, m, u := setup(t)
+		m.SetSize(size[0], size[1])
+		drive.Run(u, screen.ShownMsg{})
+		seen := map[string]bool{}
+		for i := 0; i < len(m.Shown()); i++ {
+			v := m.View()
+			for _, l := range strings.Split(v, "\n") {
+				if !strings.HasPrefix(l, "› ") {
+					continue
+				}
+				l = strings.TrimRight(l, " ")
+				if strings.HasSuffix(l, "…") {
+					t.Fatalf("%d columns: the verdict is cut: %q", size[0], l)
+				}
+				f := strings.Fields(l)
+				seen[f[len(f)-1]] = true
+			}
+			if (seen["cov+"] || seen["cov++"] || seen["model+"]) && !strings.Contains(strings.Join(strings.Fields(v), " "), screen.VerdictLegend) {
+				t.Fatalf("%d columns: codes shown without the legend:\n%s", size[0], v)
+			}
+			drive.Run(u, drive.Key("j"))
+		}
+		if len(seen) < 2 {
+			t.Errorf("%d columns: only %v seen as verdicts", size[0], seen)
+		}
+	}
+}

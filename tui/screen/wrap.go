@@ -1,0 +1,55 @@
+package screen
+
+import (
+	"strings"
+
+	"github.com/charmbracelet/x/ansi"
+)
+
+// Wrap breaks a plain explanatory text into lines of at most width cells,
+// at spaces (a word wider than the line is broken), so that nothing is
+// cut off; indent starts every line after the first. Style the lines
+// after wrapping.
+func Wrap(text string, width int, indent string) []string {
+	if width < 1 {
+		return []string{text}
+	}
+	var lines []string
+	line, lw := "", 0
+	limit := width
+	flush := func() {
+		lines = append(lines, line)
+		line, lw = indent, ansi.StringWidth(indent)
+		limit = width
+	}
+	for _, word := range strings.Fields(text) {
+		ww := ansi.StringWidth(word)
+		sep := 0
+		if lw > 0 && strings.TrimSpace(line) != "" {
+			sep = 1
+		}
+		if lw+sep+ww > limit && strings.TrimSpace(line) != "" {
+			flush()
+			sep = 0
+		}
+		for lw+sep+ww > limit { // a word wider than a whole line
+			room := limit - lw - sep
+			if room < 1 {
+				flush()
+				continue
+			}
+			head := ansi.Truncate(word, room, "")
+			line += strings.Repeat(" ", sep) + head
+			word = strings.TrimPrefix(word, head)
+			ww = ansi.StringWidth(word)
+			flush()
+			sep = 0
+		}
+		line += strings.Repeat(" ", sep) + word
+		lw += sep + ww
+	}
+	if strings.TrimSpace(line) != "" || len(lines) == 0 {
+		lines = append(lines, line)
+	}
+	return lines
+}
