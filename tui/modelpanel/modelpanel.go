@@ -157,17 +157,43 @@ func (m *Model) View() string {
 	case !m.sess.Fresh():
 		lines = append(lines, st.Muted.Render("solving…"))
 	default:
-		lines = append(lines, st.Error.Render("The cycle is not solved: ")+trunc(session.Explain(m.sess.SolveErr), m.w-26))
+		wrapped := screen.Wrap("The cycle is not solved: "+session.Explain(m.sess.SolveErr), m.w, "  ")
+		for _, l := range wrapped {
+			lines = append(lines, st.Error.Render(l))
+		}
 	}
 	lines = append(lines, m.modelTable(res, ref)...)
+	// The explanations wrap rather than lose their end.
+	note := "gap = cycle − model (█ left of │: the cycle binds more); verdict " + cycle.VerdictThresholds()
 	if ref != "" {
-		lines = append(lines, st.Muted.Render(trunc("gap = "+ref+" − model: model–model differences, no covalency verdict", m.w)))
-	} else {
-		lines = append(lines, st.Muted.Render(trunc("gap = cycle − model (█ left of │: the cycle binds more); verdict "+cycle.VerdictThresholds(), m.w)))
+		note = "gap = " + ref + " − model: model–model differences, no covalency verdict"
 	}
-	lines = append(lines, m.madelungLine(res))
-	lines = append(lines, "", st.Title.Render("Settings")+st.Muted.Render(" (↑/↓ choose · e type · ←/→ step · r default)"))
-	for i, r := range m.rows {
+	for _, l := range screen.Wrap(note, m.w, "  ") {
+		lines = append(lines, st.Muted.Render(l))
+	}
+	lines = append(lines, m.madelungLines(res)...)
+	// The settings take the rows left; when too few, the list scrolls with
+	// the cursor and its title says which rows are shown.
+	var edit []string
+	if m.edit.Active() {
+		edit = strings.Split(m.edit.View(), "\n")
+	}
+	room := m.h - len(lines) - 2 - len(edit)
+	if room < len(m.rows) {
+		room++ // the blank line goes first
+	} else {
+		lines = append(lines, "")
+	}
+	room = max(room, 1)
+	first := min(max(0, m.cursor-room+1), max(0, len(m.rows)-room))
+	last := min(len(m.rows), first+room)
+	title := " (↑/↓ choose · e type · ←/→ step · r default)"
+	if first > 0 || last < len(m.rows) {
+		title = fmt.Sprintf(" %d–%d of %d, ↑/↓ for more · e type · ←/→ step · r default", first+1, last, len(m.rows))
+	}
+	lines = append(lines, st.Title.Render("Settings")+st.Muted.Render(trunc(title, m.w-8)))
+	for i, r := range m.rows[first:last] {
+		i += first
 		cursor := " "
 		if i == m.cursor {
 			cursor = "›"
@@ -178,9 +204,7 @@ func (m *Model) View() string {
 		}
 		lines = append(lines, text)
 	}
-	if m.edit.Active() {
-		lines = append(lines, strings.Split(m.edit.View(), "\n")...)
-	}
+	lines = append(lines, edit...)
 	if len(lines) > m.h {
 		lines = lines[:m.h]
 	}
@@ -218,10 +242,16 @@ func (m *Model) modelTable(res *cycle.Result, ref string) []string {
 	}
 	for _, mr := range models {
 		if !mr.OK() {
-			out = append(out, trunc(fmt.Sprintf("%-*s %10s  %s", nameW, mr.Model, "—", "not available: "+session.Message(mr.Err)), m.w))
+			lead := fmt.Sprintf("%-*s %10s  ", nameW, mr.Model, "—")
+			for i, l := range screen.Wrap("not available: "+session.Message(mr.Err), m.w-len([]rune(lead)), "") {
+				if i > 0 {
+					lead = strings.Repeat(" ", len([]rune(lead)))
+				}
+				out = append(out, lead+l)
+			}
 			continue
 		}
-		verdict := mr.Verdict.Character.String()
+		verdict, _ := screen.Verdict(mr.Verdict.Character, verdictW)
 		switch {
 		case ref == mr.Model:
 			verdict = "reference"
@@ -229,7 +259,7 @@ func (m *Model) modelTable(res *cycle.Result, ref string) []string {
 			verdict = "model–model"
 		}
 		line := fmt.Sprintf("%-*s %10s %9s %8s %s %s", nameW, mr.Model, m.ctx.Signed(mr.Value), m.ctx.Signed(mr.Gap), pct(mr.GapPercent),
-			bar(mr.GapPercent, half), trunc(verdict, verdictW))
+			bar(mr.GapPercent, half), verdict)
 		out = append(out, trunc(line, m.w))
 	}
 	if hb := res.Handbook; hb != nil {
@@ -273,18 +303,18 @@ func bar(pct float64, barHalf int) string {
 	return string(cells)
 }
 
-func (m *Model) madelungLine(res *cycle.Result) string {
+func (m *Model) madelungLines(res *cycle.Result) []string {
 	st := m.ctx.Styles
 	if res == nil {
-		return ""
+		return []string{""}
 	}
 	mr, ok := res.Model(cycle.ModelEwald)
 	if !ok || !mr.OK() || mr.Inputs.Madelung == 0 {
-		return st.Muted.Render("Ewald Madelung constant: not available for this structure")
+		return []string{st.Muted.Render("Ewald Madelung constant: not available for this structure")}
 	}
 	in := mr.Inputs
-	return trunc(fmt.Sprintf("Ewald Madelung constant A = %.6f for %s, referred to d₀ = %.4f Å (%s; tin-foil boundary)",
-		in.Madelung, in.Structure, in.D0, in.MadelungFrom), m.w)
+	return screen.Wrap(fmt.Sprintf("Ewald Madelung constant A = %.6f for %s, referred to d₀ = %.4f Å (%s; tin-foil boundary)",
+		in.Madelung, in.Structure, in.D0, in.MadelungFrom), m.w, "  ")
 }
 
 func trunc(s string, n int) string {

@@ -9,6 +9,7 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/tui/internal/drive"
+	"enthalpath/tui/session"
 )
 
 func setup(t *testing.T, formula string) (*drive.Fixture, *Model, drive.Updater) {
@@ -247,5 +248,42 @@ func TestReferenceIsNamedWhenTheLatticeIsAModel(t *testing.T) {
 	}
 	if !strings.Contains(v, "born-lande − model") || !strings.Contains(v, "model–model") {
 		t.Errorf("the gaps are not said to be model–model differences:\n%s", v)
+	}
+}
+
+// TestExplanationsAreNotCut: at the widths the workshop supports, the
+// panel's explanations (the verdict thresholds, the Madelung constant's
+// provenance, why a model is not available) wrap instead of ending in
+// "…", and every setting stays reachable in the rows left.
+func TestExplanationsAreNotCut(t *testing.T) {
+	for _, formula := range []string{"NaCl", "MgO", "MgCl", "CaF2"} {
+		for _, size := range [][2]int{{80, 21}, {100, 27}, {120, 37}} {
+			f, m, u := setup(t, formula)
+			m.SetSize(size[0], size[1])
+			res := f.Session.Solved()
+			v := m.View()
+			for _, l := range strings.Split(v, "\n") {
+				if strings.HasSuffix(strings.TrimRight(l, " "), "…") {
+					t.Errorf("%s at %d columns: a line is cut: %q", formula, size[0], l)
+				}
+			}
+			flat := strings.Join(strings.Fields(v), " ")
+			if res != nil && !strings.Contains(flat, cycle.VerdictThresholds()) {
+				t.Errorf("%s at %d columns: the thresholds are not shown whole:\n%s", formula, size[0], v)
+			}
+			if res != nil {
+				for _, mr := range res.Models {
+					if !mr.OK() && !strings.Contains(flat, strings.Join(strings.Fields(session.Message(mr.Err)), " ")) {
+						t.Errorf("%s at %d columns: why %s is not available is not shown whole:\n%s", formula, size[0], mr.Model, v)
+					}
+				}
+			}
+			for _, name := range m.SettingNames() {
+				moveTo(t, m, u, name)
+				if !strings.Contains(m.View(), "› "+name) {
+					t.Errorf("%s at %d×%d: the setting %s is not shown when chosen:\n%s", formula, size[0], size[1], name, m.View())
+				}
+			}
+		}
 	}
 }
