@@ -10,6 +10,7 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/tui"
 	"enthalpath/tui/internal/drive"
+	"enthalpath/tui/screen"
 
 	"github.com/charmbracelet/lipgloss"
 )
@@ -130,5 +131,23 @@ func TestConfinedFolderShowsTypableNames(t *testing.T) {
 	keys(u, "k")
 	if v := noDir("kept"); !strings.Contains(v, "Unsaved work kept in recovery-2.hesscycle") {
 		t.Errorf("the last frame does not name the recovery file as typed:\n%s", v)
+	}
+}
+
+// TestValuePromptIsNotCut: the Bench's value prompt, whose question and
+// reaction are longer than 80 columns for an attachment step, wraps them
+// instead of cutting ("… Cl(g) + e⁻ → Cl⁻(g), per r…" before).
+func TestValuePromptIsNotCut(t *testing.T) {
+	db := loadDB(t)
+	for _, size := range [][2]int{{80, 24}, {100, 30}, {120, 40}} {
+		m, u, _ := newRoot(t, db, size[0], size[1])
+		drive.Run(u, screen.OpenMsg{Formula: "NaCl"})
+		keys(u, "g", "j", "j", "j", "j", "e")
+		flat := strings.Join(strings.Fields(m.View()), " ")
+		for _, want := range []string{"(minus the first electron affinity)", "Cl(g) + e⁻ → Cl⁻(g), per reaction as written; ± uncertainty optional"} {
+			if !strings.Contains(flat, want) {
+				t.Errorf("%d×%d: the value prompt lacks %q:\n%s", size[0], size[1], want, m.View())
+			}
+		}
 	}
 }

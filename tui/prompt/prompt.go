@@ -92,8 +92,8 @@ func (m *Model) Err() error { return m.err }
 // Value is the text typed so far.
 func (m *Model) Value() string { return m.input.Value() }
 
-// SetWidth sets the width of the prompt's lines: the question is cut to
-// it, the input fills what its label leaves, and a refusal is wrapped to
+// SetWidth sets the width of the prompt's lines: the question is wrapped
+// to it, the input fills what its label leaves, and a refusal is wrapped to
 // it. Zero means unbounded.
 func (m *Model) SetWidth(w int) {
 	m.width = max(w, 0)
@@ -139,15 +139,22 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 func (m *Model) View() string {
 	st := m.styles
 	var lines []string
-	if m.Question != "" {
-		q := st.Title.Render(m.Question)
-		if m.Aside != "" {
-			q += st.Muted.Render(m.Aside)
+	switch {
+	case m.Question == "":
+	case m.width == 0 || ansi.StringWidth(m.Question+m.Aside) <= m.width:
+		lines = append(lines, st.Title.Render(m.Question)+st.Muted.Render(m.Aside))
+	default:
+		// Too long for one line: the question wraps, and the aside goes
+		// on lines of its own below it, so that nothing is cut.
+		for _, l := range screen.Wrap(m.Question, m.width, "  ") {
+			lines = append(lines, st.Title.Render(l))
 		}
-		if m.width > 0 {
-			q = ansi.Truncate(q, m.width, "…")
+		aside := strings.TrimPrefix(strings.TrimSpace(m.Aside), "— ")
+		if aside != "" {
+			for _, l := range screen.Wrap(aside, m.width-2, "") {
+				lines = append(lines, st.Muted.Render("  "+l))
+			}
 		}
-		lines = append(lines, q)
 	}
 	in := m.input
 	if in.Value() == "" && in.Placeholder != "" && in.Width > 0 {

@@ -159,8 +159,9 @@ func TestViewFitsItsWidth(t *testing.T) {
 		{name: "placeholder cut when it does not", label: "value › ", placeholder: strings.Repeat("p", 80), width: 40,
 			want: []string{"value › ", "…"}},
 		{name: "refusal wrapped", label: "ρ › ", width: 40, refuse: true, want: []string{"not accepted:", "END"}},
-		{name: "question and aside cut", question: "New value for the first ionization energy", aside: " — a long aside",
-			label: "v › ", width: 30, want: []string{"New value for", "…"}},
+		// Wrapped, not cut: the end of the question and the whole aside show.
+		{name: "question and aside wrapped", question: "New value for the first ionization energy", aside: " — a long aside",
+			label: "v › ", width: 30, want: []string{"New value for", "ionization energy", "a long aside"}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
