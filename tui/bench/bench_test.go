@@ -388,3 +388,34 @@ func TestDrawingClosesUnderU(t *testing.T) {
 		t.Errorf("the drawing under U lacks %q or the arrow %q, or adds a formation level:\n%s", want, arrow, v)
 	}
 }
+
+// TestSolvedLineIsNotCut: with another step than the lattice solved, the
+// solved line keeps the lattice value and shows the step's long name only
+// when it fits whole (at 120 columns it was cut: "… electron affini…").
+func TestSolvedLineIsNotCut(t *testing.T) {
+	for _, w := range []int{80, 100, 120, 160} {
+		f, m, u := setup(t, "NaCl")
+		m.SetSize(w, 21)
+		drive.Run(u, drive.Key("g"))
+		for m.current().Key != "attachment-1" {
+			drive.Run(u, drive.Key("j"))
+		}
+		drive.Run(u, drive.Key("x"))
+		res := f.Session.Solved()
+		if res == nil || res.Solved.Key != "attachment-1" {
+			t.Fatalf("attachment-1 not solved: %v", f.Session.SolveErr)
+		}
+		var line string
+		for _, l := range strings.Split(m.View(), "\n") {
+			if strings.HasPrefix(l, "? solved:") {
+				line = strings.TrimRight(l, " ")
+			}
+		}
+		if strings.HasSuffix(line, "…") || !strings.Contains(line, "lattice ΔH_L "+f.Ctx.Signed(res.Lattice.Enthalpy)) {
+			t.Errorf("%d columns: solved line %q is cut or lacks the lattice value", w, line)
+		}
+		if w == 160 && !strings.Contains(line, res.Solved.Label) {
+			t.Errorf("%d columns: the step's name is left out where it fits: %q", w, line)
+		}
+	}
+}

@@ -73,12 +73,18 @@ func (m *Model) solvedLine() string {
 	s := res.Solved
 	line := fmt.Sprintf("%s = %s %s %s", s.Key, m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units)
 	extra := ""
+	room := max(0, m.w-len([]rune(line))-10)
 	if s.Kind == cycle.KindLattice {
 		extra = fmt.Sprintf(" · ΔH_L %s · U %s", m.ctx.Signed(res.Lattice.Enthalpy), m.ctx.Signed(res.Lattice.Energy))
 	} else {
-		extra = fmt.Sprintf(" · %s · lattice ΔH_L %s", s.Label, m.ctx.Signed(res.Lattice.Enthalpy))
+		// The lattice value first; the step's name (in the list and the
+		// source box too) only when it fits whole.
+		extra = fmt.Sprintf(" · lattice ΔH_L %s", m.ctx.Signed(res.Lattice.Enthalpy))
+		if more := " · " + s.Label; len([]rune(extra+more)) <= room {
+			extra += more
+		}
 	}
-	return st.Solved.Render("? solved: ") + st.Accent.Render(line) + st.Muted.Render(trunc(extra, max(0, m.w-len([]rune(line))-10)))
+	return st.Solved.Render("? solved: ") + st.Accent.Render(line) + st.Muted.Render(trunc(extra, room))
 }
 
 func explainShort(err error, w int) string { return trunc(session.Explain(err), w) }
