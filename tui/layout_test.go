@@ -98,7 +98,7 @@ func TestConfinedFolderShowsTypableNames(t *testing.T) {
 		}
 		return v
 	}
-	if v := noDir("start"); !strings.Contains(v, "kept at recovery.hesscycle") {
+	if v := noDir("start"); !strings.Contains(v, "A recovery file from an earlier session (ctrl+o opens it): recovery.hesscycle") {
 		t.Errorf("start: the recovery file is not named as typed:\n%s", v)
 	}
 	keys(u, "ctrl+o")

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"os"
-	"path/filepath"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/help"
@@ -154,10 +153,12 @@ func (m *Model) checkRecovery() tea.Cmd {
 		case 0:
 			return nil
 		case 1:
-			return screen.StatusMsg{Text: "A recovery file from an earlier session is kept at " + m.name(files[0]) + " (ctrl+o opens it)."}
+			// The key first and the name last: a long local path cut at
+			// the window's edge is whole in the ctrl+o prompt.
+			return screen.StatusMsg{Text: "A recovery file from an earlier session (ctrl+o opens it): " + m.name(files[0])}
 		}
-		return screen.StatusMsg{Text: fmt.Sprintf("%d recovery files from earlier sessions are kept, the newest %s beside %s (ctrl+o opens them).",
-			len(files), filepath.Base(files[0]), filepath.Base(p))}
+		return screen.StatusMsg{Text: fmt.Sprintf("%d recovery files from earlier sessions (ctrl+o opens the newest): %s",
+			len(files), m.name(files[0]))}
 	}
 }
 
