@@ -6,6 +6,7 @@ import (
 
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/x/ansi"
 
 	"enthalpath/cycle/analysis"
 	"enthalpath/tui/prompt"
@@ -220,7 +221,16 @@ func (m *Model) parts() ([]string, []string) {
 		lines = append(lines, text)
 	}
 	k := m.kinds[m.cursor]
-	lines = append(lines, st.Muted.Render(trunc("arguments: "+k.syntax+"   e.g. "+k.example, m.w)))
+	// The list cuts the descriptions to its width; the highlighted one
+	// reads whole here, with its arguments.
+	if ansi.StringWidth(fmt.Sprintf("  %-*s %-34s %s", nameWidth+1, k.name, "", k.what)) > m.w {
+		for _, l := range screen.Wrap(k.name+": "+k.what, m.w, "  ") {
+			lines = append(lines, st.Muted.Render(l))
+		}
+	}
+	for _, l := range screen.WrapRow("arguments: "+k.syntax+"   e.g. "+k.example, m.w, "  ") {
+		lines = append(lines, st.Muted.Render(l))
+	}
 	if m.edit.Active() {
 		lines = append(lines, strings.Split(m.edit.View(), "\n")...)
 	}

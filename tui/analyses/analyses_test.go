@@ -224,3 +224,37 @@ func TestTallResultScrolls(t *testing.T) {
 		t.Errorf("pgup did not come back to the top:\n%s", m.View())
 	}
 }
+
+// TestResultsAreNotCut: at the widths the workshop supports, every
+// analysis, run on its example, shows its result rows whole (what does not
+// fit continues below: the result scrolls), and the highlighted
+// analysis's description reads whole though the list cuts it.
+func TestResultsAreNotCut(t *testing.T) {
+	for _, w := range []int{80, 100, 120} {
+		_, m, u := setup(t)
+		m.SetSize(w, 200) // tall enough to show every line at once
+		for i, k := range kinds() {
+			drive.Run(u, drive.Key("r"))
+			v := m.View()
+			if !strings.Contains(strings.Join(strings.Fields(v), " "), k.name+": "+k.what) &&
+				!strings.Contains(v, k.what) {
+				t.Errorf("%d columns: the description of %s is not shown whole:\n%s", w, k.name, v)
+			}
+			for _, l := range strings.Split(v, "\n") {
+				l = strings.TrimRight(l, " ")
+				listRow := false
+				for _, kk := range kinds() {
+					if strings.HasPrefix(l, "  "+kk.name+" ") || strings.HasPrefix(l, "› "+kk.name+" ") {
+						listRow = true
+					}
+				}
+				if !listRow && strings.HasSuffix(l, "…") {
+					t.Errorf("%d columns, %s: a line is cut: %q", w, k.name, l)
+				}
+			}
+			if i < len(kinds())-1 {
+				drive.Run(u, drive.Key("j"))
+			}
+		}
+	}
+}

@@ -5,6 +5,7 @@ import (
 	"strings"
 
 	"enthalpath/cycle/analysis"
+	"enthalpath/tui/screen"
 )
 
 // render lays out a result as lines.
@@ -77,8 +78,8 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		if c.Formula == s.Favoured {
 			verdict += " · favoured"
 		}
-		lines = append(lines, trunc(fmt.Sprintf("  %-8s %6d %22s %14s  %s (%s)", c.Formula, c.Charge, m.pm(c.Formation, c.Uncertainty),
-			m.ctx.Signed(c.PerMetal), verdict, from), m.w))
+		lines = append(lines, m.row(fmt.Sprintf("  %-8s %6d %22s %14s  %s (%s)", c.Formula, c.Charge, m.pm(c.Formation, c.Uncertainty),
+			m.ctx.Signed(c.PerMetal), verdict, from)))
 	}
 	if len(s.Disproportionations) > 0 {
 		lines = append(lines, st.Title.Render("  disproportionations"))
@@ -88,7 +89,7 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		if d.Favoured {
 			mark = "favoured (exothermic)"
 		}
-		lines = append(lines, trunc(fmt.Sprintf("  %-28s %s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), mark), m.w))
+		lines = append(lines, m.row(fmt.Sprintf("  %-28s %s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), mark)))
 	}
 	for _, c := range s.Compounds {
 		for _, n := range c.Notes {
@@ -96,7 +97,7 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		}
 	}
 	for _, sk := range s.Skipped {
-		lines = append(lines, st.Warn.Render(trunc("  skipped: "+sk, m.w)))
+		lines = append(lines, st.Warn.Render(m.row("  skipped: "+sk)))
 	}
 	return append(lines, m.notes(s.Notes)...)
 }
@@ -113,7 +114,7 @@ func (m *Model) solution(s *analysis.SolutionCycle) []string {
 		if t.Source.Key != "" {
 			src += ": " + t.Source.Key
 		}
-		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s ×%-3g %22s  %s", flag, t.Reaction, t.Multiplicity, m.pm(t.Value, t.Uncertainty), src), m.w))
+		lines = append(lines, m.row(fmt.Sprintf(" %s %-34s ×%-3g %22s  %s", flag, t.Reaction, t.Multiplicity, m.pm(t.Value, t.Uncertainty), src)))
 	}
 	if s.Measured != nil {
 		lines = append(lines, fmt.Sprintf("measured: %s — solved − measured %s", m.pm(s.Measured.Value, s.Measured.Uncertainty), m.ctx.Signed(s.Difference)))
@@ -159,8 +160,8 @@ func (m *Model) radiusFit(f *analysis.FittedRadius) []string {
 	}
 	lines = append(lines, st.Title.Render(fmt.Sprintf("  %-12s %-14s %12s %10s %10s", "salt", "counter r/Å", "U kJ/mol", "r alone", "misfit")))
 	for _, s := range used {
-		lines = append(lines, trunc(fmt.Sprintf("  %-12s %-14s %12.1f %10.3f %+10.1f", s.Formula,
-			fmt.Sprintf("%s %.2f", s.Counter, s.CounterRadius.Value), s.LatticeEnergy, s.Radius, s.Residual), m.w))
+		lines = append(lines, m.row(fmt.Sprintf("  %-12s %-14s %12.1f %10.3f %+10.1f", s.Formula,
+			fmt.Sprintf("%s %.2f", s.Counter, s.CounterRadius.Value), s.LatticeEnergy, s.Radius, s.Residual)))
 	}
 	if n := len(f.Salts) - len(used); n > 0 {
 		var names []string
@@ -173,3 +174,8 @@ func (m *Model) radiusFit(f *analysis.FittedRadius) []string {
 	}
 	return append(lines, m.notes(f.Notes)...)
 }
+
+// row fits a result row to the width: the columns as laid out, and what
+// does not fit on indented lines below rather than cut (the result
+// scrolls, so it may take more lines).
+func (m *Model) row(s string) string { return strings.Join(screen.WrapRow(s, m.w, "      "), "\n") }

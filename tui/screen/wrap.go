@@ -53,3 +53,22 @@ func Wrap(text string, width int, indent string) []string {
 	}
 	return lines
 }
+
+// WrapRow fits a table row of width cells or more to width without losing
+// its end: the row's columns stay as laid out up to the last space that
+// fits, and the rest continues on indented lines below (wrapped as text).
+func WrapRow(row string, width int, indent string) []string {
+	if width < 1 || ansi.StringWidth(row) <= width {
+		return []string{row}
+	}
+	head := ansi.Truncate(row, width, "")
+	cut := strings.LastIndex(strings.TrimRight(head, " "), " ")
+	if cut <= len(indent) || strings.TrimSpace(head[:cut]) == "" {
+		cut = len(head) // no space to break at: break the word
+	}
+	out := []string{strings.TrimRight(row[:cut], " ")}
+	for _, l := range Wrap(strings.TrimSpace(row[cut:]), max(1, width-ansi.StringWidth(indent)), "") {
+		out = append(out, indent+l)
+	}
+	return out
+}

@@ -36,3 +36,17 @@ func TestWrapBreaksAWordWiderThanTheLine(t *testing.T) {
 		t.Errorf("Wrap = %q, want %q", got, want)
 	}
 }
+
+// TestWrapRowKeepsTheColumns: a row too wide keeps its first line's
+// spacing (the columns) and continues, indented, with the rest.
+func TestWrapRowKeepsTheColumns(t *testing.T) {
+	row := "  MgCl          1     −86.2 ±50.3 kJ/mol   disproportionates (estimate)"
+	got := WrapRow(row, 50, "      ")
+	want := []string{"  MgCl          1     −86.2 ±50.3 kJ/mol", "      disproportionates (estimate)"}
+	if strings.Join(got, "|") != strings.Join(want, "|") {
+		t.Errorf("WrapRow = %q, want %q", got, want)
+	}
+	if got := WrapRow("short  row", 50, "  "); len(got) != 1 || got[0] != "short  row" {
+		t.Errorf("a row that fits changed: %q", got)
+	}
+}
