@@ -14,6 +14,9 @@ func Wrap(text string, width int, indent string) []string {
 	if width < 1 {
 		return []string{text}
 	}
+	if ansi.StringWidth(indent) >= width {
+		indent = "" // no room to indent
+	}
 	var lines []string
 	line, lw := "", 0
 	limit := width
@@ -39,6 +42,9 @@ func Wrap(text string, width int, indent string) []string {
 				continue
 			}
 			head := ansi.Truncate(word, room, "")
+			if head == "" { // a character wider than the room: it goes alone
+				head = string([]rune(word)[:1])
+			}
 			line += strings.Repeat(" ", sep) + head
 			word = strings.TrimPrefix(word, head)
 			ww = ansi.StringWidth(word)

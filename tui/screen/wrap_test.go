@@ -50,3 +50,16 @@ func TestWrapRowKeepsTheColumns(t *testing.T) {
 		t.Errorf("a row that fits changed: %q", got)
 	}
 }
+
+// TestWrapAtTinyWidths: a width narrower than the indent or than one wide
+// character still ends, and each line fits (a screen is sized 1×1 before
+// the terminal says its size; this hung).
+func TestWrapAtTinyWidths(t *testing.T) {
+	for _, w := range []int{1, 2, 3} {
+		for _, l := range Wrap("★★ a wide-character text", w, "    ") {
+			if ansi.StringWidth(l) > max(w, 1) {
+				t.Errorf("width %d: line %q is wider", w, l)
+			}
+		}
+	}
+}
