@@ -251,7 +251,11 @@ func (m *Model) refilter() {
 	}
 }
 
-func (m *Model) listHeight() int { return max(1, m.h-6) }
+func (m *Model) listHeight() int { return max(1, m.h-5-len(m.scenarioLines())) }
+
+// scenarioLines is the demo's note, wrapped to the width (it says what is
+// invented and that the data are real, so none of it is cut).
+func (m *Model) scenarioLines() []string { return screen.Wrap(Scenario, m.w, "  ") }
 
 // columnWidths gives the name and family columns the room a window wider
 // than 80 columns has: the family first (its longest entries run to about
@@ -277,7 +281,9 @@ func (m *Model) clampScroll() {
 func (m *Model) View() string {
 	st := m.ctx.Styles
 	var lines []string
-	lines = append(lines, st.Muted.Render(truncate(Scenario, m.w)))
+	for _, l := range m.scenarioLines() {
+		lines = append(lines, st.Muted.Render(l))
+	}
 	lines = append(lines, m.input.View())
 	unit := m.ctx.Units.String()
 	nameW, famW := m.columnWidths()

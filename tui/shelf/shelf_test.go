@@ -189,3 +189,20 @@ formation_uncertainty = 0.5
 		t.Errorf("an overridden compound lacks its u marker:\n%s", v)
 	}
 }
+
+// TestScenarioNoteIsWhole: the note that says what is invented and that
+// the data are real reads whole at every supported width (at 80 it was cut
+// before "data real, cited"), and the view keeps to the screen's height.
+func TestScenarioNoteIsWhole(t *testing.T) {
+	for _, size := range [][2]int{{80, 21}, {100, 27}, {120, 37}} {
+		_, m, _ := setup(t)
+		m.SetSize(size[0], size[1])
+		v := m.View()
+		if !strings.Contains(strings.Join(strings.Fields(v), " "), Scenario) {
+			t.Errorf("%d columns: the scenario note is not whole:\n%s", size[0], v)
+		}
+		if n := len(strings.Split(v, "\n")); n > size[1] {
+			t.Errorf("%d×%d: the view has %d lines", size[0], size[1], n)
+		}
+	}
+}
