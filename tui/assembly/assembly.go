@@ -30,8 +30,6 @@ type Model struct {
 	unknown  string       // the step chosen as the unknown, or ""
 	edit     prompt.Slot  // a value of one's own for the proposed step, while typed
 	w, h     int
-
-	magnitudes session.Magnitudes // the data's largest step values, on the first value typed
 }
 
 var _ screen.Screen = (*Model)(nil)
@@ -347,7 +345,7 @@ func (m *Model) startEdit() {
 // without ± the data's uncertainty is taken (0 when the data have none).
 // An implausibly large value is questioned once, as on the bench.
 func (m *Model) acceptValue(key string) prompt.Accept {
-	confirmed := ""
+	var confirm session.Confirmer
 	return func(text string) (tea.Cmd, error) {
 		s, ok := m.sess.Cycle.Step(key)
 		if !ok {
@@ -361,11 +359,7 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 		if err != nil {
 			return nil, err
 		}
-		if m.magnitudes == nil {
-			m.magnitudes = session.DataMagnitudes(m.ctx.DB)
-		}
-		if err := m.magnitudes.Check(m.ctx, s.Kind, text, kj); err != nil && confirmed != text {
-			confirmed = text
+		if err := confirm.Ask(text, m.sess.Question(m.ctx, s.Kind, text, kj)); err != nil {
 			return nil, err
 		}
 		lattice := s.Kind == cycle.KindLattice
@@ -418,7 +412,7 @@ func (m *Model) View() string {
 			marker = "?"
 		}
 		// The multiplicity the value enters the sum with (×½ for Cl₂ → 2Cl).
-		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s %3s %10s  %s", marker, s.Reaction, mult(s.Multiplicity), val, m.decided[i]), m.w))
+		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s %3s %10s  %s", marker, s.Reaction, screen.Multiplicity(s.Multiplicity), val, m.decided[i]), m.w))
 	}
 	if s := m.current(); s != nil {
 		text, ok := m.proposal(s)
@@ -502,19 +496,6 @@ func (m *Model) doneLine() string {
 }
 
 func indent(s, by string) string { return by + strings.ReplaceAll(s, "\n", "\n"+by) }
-
-// mult is a multiplicity as a table cell: "" for 1, ×½, ×2, ….
-func mult(v float64) string {
-	switch {
-	case v == 1:
-		return ""
-	case v == 0.5:
-		return "×½"
-	case v == float64(int(v)):
-		return fmt.Sprintf("×%d", int(v))
-	}
-	return fmt.Sprintf("×%g", v)
-}
 
 func multNote(v float64) string {
 	if v == 1 {

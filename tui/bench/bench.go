@@ -30,10 +30,6 @@ type Model struct {
 	drawing    bool        // in a small window: the drawing instead of the list
 	export     prompt.Slot // the SVG file name, while typed
 	w, h       int
-
-	// magnitudes are the data's largest step values by kind, computed on
-	// the first value typed (for the implausible-value question).
-	magnitudes session.Magnitudes
 }
 
 var _ screen.Screen = (*Model)(nil)
@@ -253,7 +249,7 @@ func (m *Model) startEdit() {
 // largest of its kind in the data is refused once with that said; enter
 // again on the same text sets it.
 func (m *Model) acceptValue(key string) prompt.Accept {
-	confirmed := ""
+	var confirm session.Confirmer
 	return func(text string) (tea.Cmd, error) {
 		s, ok := m.sess.Cycle.Step(key)
 		if !ok {
@@ -266,11 +262,7 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 		if err != nil {
 			return nil, err
 		}
-		if m.magnitudes == nil {
-			m.magnitudes = session.DataMagnitudes(m.ctx.DB)
-		}
-		if err := m.magnitudes.Check(m.ctx, s.Kind, text, kj); err != nil && confirmed != text {
-			confirmed = text
+		if err := confirm.Ask(text, m.sess.Question(m.ctx, s.Kind, text, kj)); err != nil {
 			return nil, err
 		}
 		cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return c.Set(key, kj, unc) })

@@ -9,6 +9,7 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/tui/diagram"
 	"enthalpath/tui/hessdiagram"
+	"enthalpath/tui/screen"
 	"enthalpath/tui/session"
 )
 
@@ -168,7 +169,7 @@ func (m *Model) listView(h int) string {
 			value, unc = "missing", ""
 		}
 		text := fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", cursor, flag, colReaction, trunc(reaction, colReaction),
-			colMult, mult(s.Multiplicity), colValue, value, colUnc, unc, colSource, trunc(sourceText(s), colSource))
+			colMult, screen.Multiplicity(s.Multiplicity), colValue, value, colUnc, unc, colSource, trunc(sourceText(s), colSource))
 		text = trunc(text, m.w)
 		switch {
 		case i == m.cursor:
@@ -209,18 +210,6 @@ func (m *Model) correctionRow(colReaction, colSource int) string {
 	return fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", " ", " ", colReaction, trunc("└ ΔH_L − U (nRT)", colReaction),
 		colMult, "", colValue, m.ctx.Signed(corr), colUnc, m.ctx.Uncertainty(0), colSource,
 		trunc("U → ΔH_L, Jenkins' rule", colSource))
-}
-
-func mult(v float64) string {
-	switch {
-	case v == 1:
-		return ""
-	case v == 0.5:
-		return "×½"
-	case v == float64(int(v)):
-		return fmt.Sprintf("×%d", int(v))
-	}
-	return fmt.Sprintf("×%g", v)
 }
 
 func sourceText(s *cycle.Step) string {

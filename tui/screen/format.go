@@ -1,6 +1,7 @@
 package screen
 
 import (
+	"fmt"
 	"math"
 	"strconv"
 	"strings"
@@ -114,4 +115,18 @@ type InputError struct {
 
 func (e *InputError) Error() string {
 	return strconv.Quote(e.Text) + ": " + e.Reason + " (column " + strconv.Itoa(e.Column) + ")"
+}
+
+// Multiplicity is a step's multiplicity as a table cell: "" for 1, ×½ for
+// one half, ×2, ×3 … for whole numbers, else ×0.333….
+func Multiplicity(v float64) string {
+	switch {
+	case v == 1:
+		return ""
+	case v == 0.5:
+		return "×½"
+	case v == float64(int(v)):
+		return fmt.Sprintf("×%d", int(v))
+	}
+	return fmt.Sprintf("×%g", v)
 }

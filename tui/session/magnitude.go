@@ -81,6 +81,31 @@ func (m Magnitudes) Check(ctx *screen.Context, kind cycle.StepKind, text string,
 		kind, ctx.Energy(largest), ctx.Units)
 }
 
+// Question returns the plausibility question for a value kj typed as text
+// for a step of kind (nil when the value is plausible). The data's
+// magnitudes are computed once per session, on the first value typed, and
+// shared by every screen that takes values.
+func (s *Session) Question(ctx *screen.Context, kind cycle.StepKind, text string, kj float64) error {
+	if s.magnitudes == nil {
+		s.magnitudes = DataMagnitudes(ctx.DB)
+	}
+	return s.magnitudes.Check(ctx, kind, text, kj)
+}
+
+// Confirmer lets a questioned value through when it is typed again: Ask
+// returns the question the first time a text draws it, nil for the same
+// text after that (and nil when there is no question).
+type Confirmer struct{ asked string }
+
+// Ask returns question unless text was already asked about.
+func (c *Confirmer) Ask(text string, question error) error {
+	if question == nil || c.asked == text {
+		return nil
+	}
+	c.asked = text
+	return question
+}
+
 // Example is a value to type for step s in the display unit: its current
 // value and uncertainty (or the data's), as typed, with an ASCII minus.
 func Example(ctx *screen.Context, s *cycle.Step) string {

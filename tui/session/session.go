@@ -22,6 +22,9 @@ type Session struct {
 	Path string
 
 	gen, resultGen int
+	// magnitudes are the data's largest step values by kind, for the
+	// plausibility question; computed on the first value typed.
+	magnitudes Magnitudes
 }
 
 // SolvedMsg carries the answer of a solve started by Solve.
