@@ -135,3 +135,26 @@ func TestUnreadableFormulaMessages(t *testing.T) {
 		t.Errorf("Build(10,000-character formula): error of %d bytes; want it quoted shortened", len(err.Error()))
 	}
 }
+
+// FuzzBuildFormula: any text given as a formula is either refused with an
+// error or built into a cycle with both ions present in positive counts;
+// it never panics (the formula reader takes brackets, nesting, subscripts
+// and polyatomic cores, each a place for an index slip).
+func FuzzBuildFormula(f *testing.F) {
+	for _, s := range []string{"NaCl", "MgCl", "Ba(N3)2", "BaO2", "K(N3)", "Ca3(PO4)2", "((Na))Cl", "Na₂O", "NaCl010", "Ba(N3", "CuSO4·5H2O", "NaＣl", ")(", "Mg(OH)2", "Al2O3", ""} {
+		f.Add(s)
+	}
+	db := loadDB(f)
+	f.Fuzz(func(t *testing.T, formula string) {
+		if len(formula) > 200 {
+			return
+		}
+		c, err := Build(db, formula, Options{})
+		if err != nil {
+			return
+		}
+		if c.Formula == "" || c.Cation.Count <= 0 || c.Anion.Count <= 0 || c.Cation.Ion.Charge <= 0 || c.Anion.Ion.Charge >= 0 {
+			t.Fatalf("Build(%q) = %q with %d %s and %d %s", formula, c.Formula, c.Cation.Count, c.Cation.Ion.Symbol, c.Anion.Count, c.Anion.Ion.Symbol)
+		}
+	})
+}
