@@ -3,6 +3,7 @@ package cif
 import (
 	"fmt"
 	"strings"
+	"unicode/utf8"
 )
 
 // tokenKind says what a token is in the CIF 1.1 grammar.
@@ -125,7 +126,7 @@ func tokenize(src string, file string) ([]token, error) {
 				j++
 			}
 			toks = append(toks, token{kind: tokValue, text: src[i+1 : j], line: line, col: col, quoted: true})
-			col += j + 1 - i
+			col += utf8.RuneCountInString(src[i : j+1]) // columns count characters, not bytes
 			i = j + 1
 			atLineStart = false
 			continue
@@ -162,7 +163,7 @@ func tokenize(src string, file string) ([]token, error) {
 			t.kind = tokValue
 		}
 		toks = append(toks, t)
-		col += j - i
+		col += utf8.RuneCountInString(word)
 		i = j
 		atLineStart = false
 	}

@@ -83,6 +83,9 @@ func TestTokenizeErrors(t *testing.T) {
 		{"unclosed text field", "data_x\n_a\n;text\nmore\n", 3, "never closed"},
 		{"empty block name", "data_\n_a 1\n", 1, "needs a block name"},
 		{"reserved bracket", "data_x\n_a [1,2]\n", 2, "reserves"},
+		// Columns count characters: "_ö 'é' [" puts the bracket at column
+		// 8 (bytes would say 10).
+		{"column in characters", "data_x\n_ö 'é' [1]\n", 2, "at column 8"},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
