@@ -589,14 +589,6 @@ func (c *Cycle) structureFits(st Structure, model string) error {
 	return cellFits(model, st.Name(), c.Formula, st.Cell, c.Cation, c.Anion)
 }
 
-// hasMeasuredCell reports whether the structure's geometry is measured (a
-// CIF, or prototype parameters from the data or the user) rather than a
-// prototype's defaults.
-func (c *Cycle) hasMeasuredCell() bool {
-	st := c.Settings.Structure
-	return st.Cell != nil || (st.Prototype != "" && len(st.Params) > 0)
-}
-
 // madelung finds the Madelung constant: the Ewald sum of the chosen
 // structure with the compound's ions; with no structure (textbook models
 // only) the prototype the radius-ratio rule suggests, with its default

@@ -189,6 +189,11 @@ type Structure struct {
 // Empty reports whether no structure is chosen.
 func (s Structure) Empty() bool { return s.Prototype == "" && s.Cell == nil && s.CIF == "" }
 
+// Measured reports whether the structure's geometry is the compound's own
+// (a CIF, or prototype parameters from the data or the user) rather than a
+// prototype's default cell, which gives the shape only.
+func (s Structure) Measured() bool { return s.Cell != nil || (s.Prototype != "" && len(s.Params) > 0) }
+
 // Name returns the prototype name, the CIF path, or "".
 func (s Structure) Name() string {
 	if s.Cell != nil {

@@ -79,18 +79,6 @@ func (r record) float(field string) (v float64, ok bool, err error) {
 	return v, true, nil
 }
 
-// requiredFloat reads a number that must be present.
-func (r record) requiredFloat(field string) (float64, error) {
-	v, ok, err := r.float(field)
-	if err != nil {
-		return 0, err
-	}
-	if !ok {
-		return 0, r.errorf(field, "missing value")
-	}
-	return v, nil
-}
-
 // integer reads a whole number; ok is false when the cell is empty.
 func (r record) integer(field string) (v int, ok bool, err error) {
 	s := r.str(field)

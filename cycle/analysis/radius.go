@@ -180,7 +180,7 @@ func (d *DerivedRadius) effectiveRho(c *cycle.Cycle, target *cycle.Part, u float
 	// ρ = 0.345 Å by construction. Use the measured cell, else the data's
 	// own radii of both ions.
 	model := cycle.ModelBornMayer
-	if c.Settings.Structure.Cell != nil || (c.Settings.Structure.Prototype != "" && len(c.Settings.Structure.Params) > 0) {
+	if c.Settings.Structure.Measured() {
 		model = cycle.ModelEwald
 	} else if d.Tabulated == nil {
 		d.RhoErr = "no d₀ independent of the derived radius (no measured cell and no tabulated radius of " + target.Ion.Symbol + ")"
