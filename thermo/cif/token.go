@@ -10,14 +10,14 @@ import (
 type tokenKind int
 
 const (
-	tokData   tokenKind = iota // data_NAME block header
-	tokLoop                    // loop_
-	tokTag                     // _data_name
-	tokValue                   // a value: unquoted, quoted or text field
-	tokSave                    // save_ or save_NAME (frames belong to dictionaries)
-	tokGlobal                  // global_ (STAR, not allowed in CIF)
-	tokStop                    // stop_ (STAR, not allowed in CIF)
-	tokSkipped                 // values of a loop the reader does not use, counted but not kept
+	tokData    tokenKind = iota // data_NAME block header
+	tokLoop                     // loop_
+	tokTag                      // _data_name
+	tokValue                    // a value: unquoted, quoted or text field
+	tokSave                     // save_ or save_NAME (frames belong to dictionaries)
+	tokGlobal                   // global_ (STAR, not allowed in CIF)
+	tokStop                     // stop_ (STAR, not allowed in CIF)
+	tokSkipped                  // values of a loop the reader does not use, counted but not kept
 )
 
 // token is one lexical element of a CIF file.
