@@ -51,6 +51,11 @@ func (m Method) String() string {
 	return "unknown"
 }
 
+// Key is a short name of the method for machine-readable output.
+func (m Method) Key() string {
+	return [...]string{"given", "charge-balance", "charge-balance-ranked", "bond-valence", "mixed-valence", "poor-fit"}[m]
+}
+
 // Group is a set of sites of one element that received one charge.
 type Group struct {
 	Element string
@@ -146,7 +151,7 @@ func Assign(c *crystal.Crystal, cand Candidates, p Params) (*crystal.Crystal, As
 		for i, s := range sp {
 			plain[i] = species{site: s.site, element: s.element, occ: s.occ, role: role[s.element]}
 		}
-		sums = speciesSums(c, plain, p)
+		sums = speciesSums(c, plain, p, standard)
 	} else {
 		for i := range sums {
 			sums[i] = math.NaN()

@@ -9,9 +9,13 @@ import (
 // B is the bond-valence softness b in Å (Brown and Altermatt 1985).
 const B = 0.37
 
-// cutoffExtra is how far beyond R_ij a bond still counts: b·ln 1000, so a
-// bond left out has a valence below 0.001.
-var cutoffExtra = B * math.Log(1000)
+// softness is the b and cut-off of one computation of sums: bonds count
+// up to R_ij + extra.
+type softness struct{ b, extra float64 }
+
+// standard is B with a cut-off of b·ln 1000 beyond R_ij, so a bond left
+// out has a valence below 0.001.
+var standard = softness{B, B * math.Log(1000)}
 
 // MaxSumSites bounds the cells whose bond-valence sums are computed: the
 // pair search grows as the square of the sites.
@@ -59,7 +63,7 @@ func occupantsOf(c *crystal.Crystal, role func(el string) int) []species {
 
 // speciesSums returns the bond-valence sum of each species (NaN where an
 // element has no parameters or the species is neither cation nor anion).
-func speciesSums(c *crystal.Crystal, sp []species, p Params) []float64 {
+func speciesSums(c *crystal.Crystal, sp []species, p Params, soft softness) []float64 {
 	sums := make([]float64, len(sp))
 	red := &crystal.Crystal{Lattice: crystal.ReduceBasis(c.Lattice)}
 	recip := red.Reciprocal()
@@ -90,7 +94,7 @@ func speciesSums(c *crystal.Crystal, sp []species, p Params) []float64 {
 				continue
 			}
 			r0 := PairR(pa, p[sp[b].element])
-			rc := r0 + cutoffExtra
+			rc := r0 + soft.extra
 			df := frac[sp[b].site].Sub(frac[sp[a].site])
 			v := 0.0
 			var lo, hi [3]int
@@ -103,7 +107,7 @@ func speciesSums(c *crystal.Crystal, sp []species, p Params) []float64 {
 					for n2 := lo[2]; n2 <= hi[2]; n2++ {
 						d := red.Cartesian(crystal.Vec3{df[0] + float64(n0), df[1] + float64(n1), df[2] + float64(n2)}).Norm()
 						if d < rc && d > 0 {
-							v += math.Exp((r0 - d) / B)
+							v += math.Exp((r0 - d) / soft.b)
 						}
 					}
 				}
@@ -121,7 +125,9 @@ func speciesSums(c *crystal.Crystal, sp []species, p Params) []float64 {
 // positive, an anion where negative; NaN marks a site with an element
 // missing from p, a site of zero charge, and every site of a cell larger
 // than MaxSumSites.
-func Sums(c *crystal.Crystal, p Params) []float64 {
+func Sums(c *crystal.Crystal, p Params) []float64 { return sums(c, p, standard) }
+
+func sums(c *crystal.Crystal, p Params, soft softness) []float64 {
 	out := make([]float64, len(c.Sites))
 	if len(c.Sites) > MaxSumSites {
 		for i := range out {
@@ -140,10 +146,10 @@ func Sums(c *crystal.Crystal, p Params) []float64 {
 			sp = append(sp, species{site: i, element: o.Element, occ: o.Occupancy, role: sign(o.Charge)})
 		}
 	}
-	sums := speciesSums(c, sp, p)
+	bvs := speciesSums(c, sp, p, soft)
 	w := make([]float64, len(c.Sites))
 	for a, s := range sp {
-		out[s.site] += s.occ * sums[a]
+		out[s.site] += s.occ * bvs[a]
 		w[s.site] += s.occ
 	}
 	for i := range out {
