@@ -172,3 +172,22 @@ func FormulaOf(c *crystal.Crystal) string {
 	}
 	return b.String()
 }
+
+// Structure returns the file's cell as a cycle's structure, recorded under
+// name (the path as the user gave it).
+func (sf *StructureFile) Structure(name string) Structure {
+	return Structure{CIF: name, Cell: sf.Cell, BondValenceSums: sf.BondValenceSums}
+}
+
+// LoadStructureFile reads the CIF file at path for c, charges the file
+// does not give assigned from the compound's ions only (so a file of
+// another compound is refused), and makes it c's structure, recorded under
+// name. A cycle file names its CIF by path only; this reads it.
+func (c *Cycle) LoadStructureFile(path, name string) error {
+	sf, err := OpenStructureFile(nil, path, nil, []Part{c.Cation, c.Anion})
+	if err != nil {
+		return err
+	}
+	c.Settings.Structure = sf.Structure(name)
+	return nil
+}
