@@ -1,6 +1,7 @@
 package cycle
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"math"
@@ -55,6 +56,16 @@ func (e *AssignmentError) Error() string {
 }
 
 func (e *AssignmentError) Unwrap() error { return e.Err }
+
+// ForeignElementError reports a structure file, read for a compound, that
+// holds an element without a charge in the file and not in the compound.
+type ForeignElementError struct {
+	File, Element, Compound string
+}
+
+func (e *ForeignElementError) Error() string {
+	return fmt.Sprintf("%s holds %s, which is not an element of %s, and gives it no charge; choose a structure file of %s", e.File, e.Element, e.Compound, e.Compound)
+}
 
 // OpenStructureFile reads the CIF file at path; see ReadStructureFile.
 func OpenStructureFile(db *data.DB, path string, charges map[string]float64, ions []Part) (*StructureFile, error) {
@@ -185,6 +196,10 @@ func (sf *StructureFile) Structure(name string) Structure {
 // name. A cycle file names its CIF by path only; this reads it.
 func (c *Cycle) LoadStructureFile(path, name string) error {
 	sf, err := OpenStructureFile(nil, path, nil, []Part{c.Cation, c.Anion})
+	var ns *valence.NoStatesError
+	if errors.As(err, &ns) {
+		return &ForeignElementError{File: name, Element: ns.Element, Compound: c.Formula}
+	}
 	if err != nil {
 		return err
 	}

@@ -60,7 +60,11 @@ func runBatch(env Env, args []string) error {
 		w = tmp
 	}
 	bar := newProgressBar(env.Stderr, size, counted)
-	sum, err := a.Batch(counted, w, analysis.BatchOptions{JSON: asJSON, Progress: bar.update})
+	dir := "."
+	if name != "-" {
+		dir = filepath.Dir(name)
+	}
+	sum, err := a.Batch(counted, w, analysis.BatchOptions{JSON: asJSON, Progress: bar.update, Dir: dir})
 	bar.finish()
 	if err != nil {
 		if tmp != nil {
