@@ -9,4 +9,6 @@ import (
 
 func mkfifo(path string) error { return syscall.Mkfifo(path, 0o600) }
 
-func lockForTest(f *os.File) error { return syscall.Flock(int(f.Fd()), syscall.LOCK_EX|syscall.LOCK_NB) }
+func lockForTest(f *os.File) error {
+	return syscall.Flock(int(f.Fd()), syscall.LOCK_EX|syscall.LOCK_NB)
+}

@@ -69,6 +69,17 @@ func WriteAtomic(path string, perm fs.FileMode, write func(io.Writer) error) (er
 	return err
 }
 
+// CheckReplaceable reports, with a *NotRegularError, whether something
+// that WriteAtomic would refuse to replace is at path (nil when nothing is
+// there, or a regular file), so a front end can ask for another name first.
+func CheckReplaceable(path string) error {
+	_, err := keptPerm(path, 0)
+	if errors.Is(err, fs.ErrNotExist) {
+		return nil
+	}
+	return err
+}
+
 // keptPerm returns the permission bits of the regular file at path, perm
 // when nothing is there, or a *NotRegularError.
 func keptPerm(path string, perm fs.FileMode) (fs.FileMode, error) {
