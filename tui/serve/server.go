@@ -52,6 +52,13 @@ func New(cfg Config) (*Server, error) {
 		// exhaust the host.
 		maxConns: int64(4*cfg.MaxSessions + 16),
 	}
+	// The key file first: a server that cannot start must not leave a new
+	// host key behind.
+	if cfg.AuthorizedKeysPath != "" {
+		if s.keys, err = loadAuthorizedKeys(cfg.AuthorizedKeysPath, s.log); err != nil {
+			return nil, err
+		}
+	}
 	signer, created, err := LoadOrCreateHostKey(cfg.HostKeyPath)
 	if err != nil {
 		return nil, err
@@ -61,11 +68,6 @@ func New(cfg Config) (*Server, error) {
 		s.log.Info("host key created", "path", cfg.HostKeyPath, "fingerprint", gossh.FingerprintSHA256(signer.PublicKey()))
 	} else {
 		s.log.Info("host key loaded", "path", cfg.HostKeyPath, "fingerprint", gossh.FingerprintSHA256(signer.PublicKey()))
-	}
-	if cfg.AuthorizedKeysPath != "" {
-		if s.keys, err = loadAuthorizedKeys(cfg.AuthorizedKeysPath, s.log); err != nil {
-			return nil, err
-		}
 	}
 	s.ssh, err = wish.NewServer(
 		// The host key goes in as an option: wish.NewServer writes a fresh
