@@ -81,7 +81,7 @@ func newReaction(kind string, reactants, products []Term, t, p float64) Reaction
 	if !r.EntropyKnown {
 		r.Gibbs, r.GibbsUncertainty = math.NaN(), math.NaN()
 		r.Verdict = r.EnthalpyVerdict
-		r.NoCrossing = "no entropy for every species"
+		r.NoCrossing = "a standard entropy is missing"
 		return r
 	}
 	r.Gibbs, r.GibbsUncertainty = r.Standard.Gibbs(t, p)

@@ -22,11 +22,21 @@ type Quantity struct {
 // Known reports whether the quantity was obtained.
 func (q Quantity) Known() bool { return q.Basis != "" }
 
-func measured(v data.Value, what string) Quantity {
+func measured(v data.Value) Quantity {
 	if !v.Known() {
 		return Quantity{}
 	}
-	return Quantity{Value: v.V, Uncertainty: v.U, Measured: true, Basis: what + " (" + v.Source + ")"}
+	return Quantity{Value: v.V, Uncertainty: v.U, Measured: true, Basis: "measured (" + v.Source + ")"}
+}
+
+// measuredEnergy is measured for an enthalpy or Gibbs energy: one without
+// a stated σ takes the cycle's default for tabulated enthalpies.
+func measuredEnergy(v data.Value) Quantity {
+	q := measured(v)
+	if q.Known() && q.Uncertainty == 0 {
+		q.Uncertainty = cycle.DefaultEnthalpy
+	}
+	return q
 }
 
 // EntropyRelativeUncertainty is the relative standard uncertainty given to
@@ -109,7 +119,7 @@ func (a *Analyst) complete(t *Thermo) {
 	case t.Gibbs.Measured && t.Formation.Measured:
 		t.FormationEntropy = Quantity{Value: (t.Formation.Value - t.Gibbs.Value) / thermo.StandardTemperature * 1000,
 			Uncertainty: math.Hypot(t.Formation.Uncertainty, t.Gibbs.Uncertainty) / thermo.StandardTemperature * 1000,
-			Measured: true, Basis: "(ΔfH° − ΔfG°)/298.15 K"}
+			Measured:    true, Basis: "(ΔfH° − ΔfG°)/298.15 K"}
 	}
 	if !t.Gibbs.Known() && t.FormationEntropy.Known() && t.Formation.Known() {
 		g, u := t.GibbsAt(thermo.StandardTemperature)
@@ -124,9 +134,9 @@ func (a *Analyst) knownThermo(formula string) (Thermo, bool) {
 		return Thermo{}, false
 	}
 	t := Thermo{Formula: st.Formula, Name: st.Name, State: st.State, Known: true, Molecular: st.Molecular,
-		Formation: measured(st.Formation, "measured ΔfH°"),
-		Entropy:   measured(st.Entropy, "measured S°"),
-		Gibbs:     measured(st.Gibbs, "measured ΔfG°")}
+		Formation: measuredEnergy(st.Formation),
+		Entropy:   measured(st.Entropy),
+		Gibbs:     measuredEnergy(st.Gibbs)}
 	a.complete(&t)
 	return t, true
 }
@@ -138,9 +148,9 @@ func (a *Analyst) gasThermo(formula string) (Thermo, bool) {
 		return Thermo{}, false
 	}
 	t := Thermo{Formula: st.Formula, Name: st.Name, State: "g", Known: true,
-		Formation: measured(st.Formation, "measured ΔfH°"),
-		Entropy:   measured(st.Entropy, "measured S°"),
-		Gibbs:     measured(st.Gibbs, "measured ΔfG°")}
+		Formation: measuredEnergy(st.Formation),
+		Entropy:   measured(st.Entropy),
+		Gibbs:     measuredEnergy(st.Gibbs)}
 	a.complete(&t)
 	return t, true
 }
@@ -148,11 +158,11 @@ func (a *Analyst) gasThermo(formula string) (Thermo, bool) {
 // elementThermo is an element in its standard state: ΔfH° = ΔfG° = 0.
 func (a *Analyst) elementThermo(symbol string, atoms int) Thermo {
 	t := Thermo{Formula: elementalForm(symbol), State: "std", Known: true,
-		Formation: Quantity{Measured: true, Basis: "element in its standard state"},
-		Gibbs:     Quantity{Measured: true, Basis: "element in its standard state"},
+		Formation:        Quantity{Measured: true, Basis: "element in its standard state"},
+		Gibbs:            Quantity{Measured: true, Basis: "element in its standard state"},
 		FormationEntropy: Quantity{Measured: true, Basis: "element in its standard state"}}
 	if v, ok := a.standards.ElementEntropy(symbol); ok && v.Known() {
-		t.Entropy = Quantity{Value: float64(atoms) * v.V, Uncertainty: float64(atoms) * v.U, Measured: true, Basis: "measured S° (" + v.Source + ")"}
+		t.Entropy = Quantity{Value: float64(atoms) * v.V, Uncertainty: float64(atoms) * v.U, Measured: true, Basis: "measured (" + v.Source + ")"}
 	}
 	return t
 }
