@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"sort"
 	"strconv"
 	"strings"
@@ -67,14 +66,14 @@ func (e *ForeignElementError) Error() string {
 	return fmt.Sprintf("%s holds %s, which is not an element of %s, and gives it no charge; choose a structure file of %s", e.File, e.Element, e.Compound, e.Compound)
 }
 
-// OpenStructureFile reads the CIF file at path; see ReadStructureFile.
+// OpenStructureFile reads the CIF file at path (a regular file within
+// cif.MaxFileSize); see ReadStructureFile.
 func OpenStructureFile(db *data.DB, path string, charges map[string]float64, ions []Part) (*StructureFile, error) {
-	f, err := os.Open(path)
+	cell, err := cif.ReadFile(path, cif.Options{Charges: charges})
 	if err != nil {
 		return nil, err
 	}
-	defer f.Close()
-	return ReadStructureFile(db, f, path, charges, ions)
+	return settleCharges(db, cell, path, ions)
 }
 
 // ReadStructureFile reads a CIF file from r (name for messages). charges
@@ -87,6 +86,11 @@ func ReadStructureFile(db *data.DB, r io.Reader, name string, charges map[string
 	if err != nil {
 		return nil, err
 	}
+	return settleCharges(db, cell, name, ions)
+}
+
+// settleCharges assigns the charges a cell read from a file lacks.
+func settleCharges(db *data.DB, cell *crystal.Crystal, name string, ions []Part) (*StructureFile, error) {
 	sf := &StructureFile{Candidates: valence.Candidates{}, From: map[string]string{}}
 	for _, p := range ions {
 		if !p.Ion.Polyatomic && p.Ion.Core != "" {
