@@ -77,7 +77,8 @@ type Group struct {
 	// Given marks a charge that came with the structure or the caller.
 	Given bool
 
-	members []int // indices of the group's species
+	members []int           // indices of the group's species
+	labeled map[string]bool // Labels as a set, while the group is built
 }
 
 // Mixed reports a group holding two oxidation states.
@@ -293,6 +294,7 @@ func makeGroups(sp []occupant, sums []float64) []Group {
 	for gi := range groups {
 		g := &groups[gi]
 		g.Sum /= g.Atoms
+		g.labeled = nil
 	}
 	return groups
 }
@@ -312,7 +314,11 @@ func newGroup(sp []occupant, sums []float64, i int, given bool) Group {
 // makeGroups divides by Atoms.
 func (g *Group) add(sp []occupant, sums []float64, i int) {
 	s := sp[i]
-	if !slices.Contains(g.Labels, s.label) {
+	if g.labeled == nil {
+		g.labeled = map[string]bool{}
+	}
+	if !g.labeled[s.label] {
+		g.labeled[s.label] = true
 		g.Labels = append(g.Labels, s.label)
 	}
 	if n := len(g.Sites); n == 0 || g.Sites[n-1] != s.site {
