@@ -323,7 +323,7 @@ func printCharges(w io.Writer, sf *cycle.StructureFile, nSites int) {
 		if len(g.Labels) > 6 {
 			labels = strings.Join(g.Labels[:6], " ") + fmt.Sprintf(" … (%d)", len(g.Labels))
 		}
-		t.add(g.Element, fmt.Sprintf("%.4g", g.Atoms), labels, groupCharge(g), sum, dev, from)
+		t.add(g.Element, strconv.FormatFloat(math.Round(g.Atoms*1e4)/1e4, 'f', -1, 64), labels, groupCharge(g), sum, dev, from)
 	}
 	t.write(w, "  ")
 	fmt.Fprintf(w, "  bond-valence sums: exp((R − d)/%.2f Å) over cation–anion bonds, R from %s\n", valence.B, data.BondValenceSource)
