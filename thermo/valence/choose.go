@@ -212,6 +212,10 @@ func balance(groups []Group, free []int, fixed float64, states map[string][]int,
 	return Assignment{Method: method, Alternatives: len(found)}, true, nil
 }
 
+// maxStates bounds the running charges one step of neutral keeps; a cell
+// with more choices than that is not settled by that step.
+const maxStates = 200000
+
 // neutral picks one option per free group so that the cell is neutral at
 // the least cost, by dynamic programming over the running charge (in units
 // of 1e-6 e). Ties go to the first option listed.
@@ -235,6 +239,9 @@ func neutral(groups []Group, free []int, fixed float64, opts [][]option) ([]int,
 			qs = append(qs, q)
 		}
 		slices.Sort(qs)
+		if len(qs)*len(opts[k]) > maxStates*10 {
+			return nil, false
+		}
 		for _, q := range qs {
 			e := layers[k][q]
 			for j, o := range opts[k] {
@@ -248,6 +255,9 @@ func neutral(groups []Group, free []int, fixed float64, opts [][]option) ([]int,
 					next[nq] = entry{c: c, choice: j, prev: q}
 				}
 			}
+		}
+		if len(next) > maxStates {
+			return nil, false
 		}
 		layers[k+1] = next
 	}
