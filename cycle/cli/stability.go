@@ -157,7 +157,6 @@ func stateName(s string) string {
 }
 
 func printStability(w io.Writer, st *analysis.Stability) {
-	u := thermo.KJPerMol
 	fmt.Fprintf(w, "stability of %s at %s K, gases given off at %g bar\n\n", st.Formula, kelvin(st.Temperature), st.Pressure)
 	thermoLines(w, "compound", st.Compound)
 	if st.Estimate != nil && (st.Compound.Known || st.Compound.Formula != st.Estimate.Formula) {
@@ -166,6 +165,15 @@ func printStability(w io.Writer, st *analysis.Stability) {
 		fmt.Fprintf(w, "  no ionic estimate: %s\n", wrapText(st.EstimateError.Error(), 96, "    "))
 	}
 	fmt.Fprintln(w)
+	printReactions(w, st)
+	for _, n := range st.Notes {
+		fmt.Fprintf(w, "  note: %s\n", wrapText(n, 96, "        "))
+	}
+}
+
+// printReactions writes the reactions of a stability analysis as a table.
+func printReactions(w io.Writer, st *analysis.Stability) {
+	u := thermo.KJPerMol
 	if len(st.Reactions) > 0 {
 		t := &table{head: []string{"reaction", "ΔrH° kJ/mol", "ΔrS° J/(mol·K)", "ΔrG(" + kelvin(st.Temperature) + " K) kJ/mol", "verdict", "ΔrG = 0 at"},
 			right: map[int]bool{1: true, 2: true, 3: true}}
@@ -183,9 +191,6 @@ func printStability(w io.Writer, st *analysis.Stability) {
 		}
 		t.write(w, "  ")
 		fmt.Fprintln(w)
-	}
-	for _, n := range st.Notes {
-		fmt.Fprintf(w, "  note: %s\n", wrapText(n, 96, "        "))
 	}
 }
 
