@@ -142,6 +142,9 @@ func thermoLines(w io.Writer, label string, t analysis.Thermo) {
 	tb := &table{head: []string{"quantity", "value", "from"}, right: map[int]bool{1: true}}
 	tb.add("ΔfH°", quantityText(t.Formation, "kJ/mol"), t.Formation.Basis)
 	tb.add("S°", quantityText(t.Entropy, "J/(mol·K)"), t.Entropy.Basis)
+	if t.AdditiveEntropy.Known() {
+		tb.add("S°, additive", quantityText(t.AdditiveEntropy, "J/(mol·K)"), t.AdditiveEntropy.Basis)
+	}
 	tb.add("ΔfG°(298.15 K)", quantityText(t.Gibbs, "kJ/mol"), t.Gibbs.Basis)
 	tb.write(w, "    ")
 }
@@ -219,12 +222,13 @@ type thermoJSON struct {
 	GibbsKJ        *quantityJSON `json:"gibbs_formation_298_kj_per_mol"`
 	FormationEntJK *quantityJSON `json:"formation_entropy_j_per_mol_k"`
 	VolumeNM3      *quantityJSON `json:"formula_unit_volume_nm3,omitempty"`
+	AdditiveJK     *quantityJSON `json:"additive_entropy_j_per_mol_k,omitempty"`
 }
 
 func thermoJSONOf(t analysis.Thermo) *thermoJSON {
 	return &thermoJSON{Formula: t.Formula, Name: t.Name, State: t.State, Known: t.Known, Molecular: t.Molecular,
 		FormationKJ: quantityJSONOf(t.Formation), EntropyJK: quantityJSONOf(t.Entropy), GibbsKJ: quantityJSONOf(t.Gibbs),
-		FormationEntJK: quantityJSONOf(t.FormationEntropy), VolumeNM3: quantityJSONOf(t.Volume)}
+		FormationEntJK: quantityJSONOf(t.FormationEntropy), VolumeNM3: quantityJSONOf(t.Volume), AdditiveJK: quantityJSONOf(t.AdditiveEntropy)}
 }
 
 type pointJSON struct {
