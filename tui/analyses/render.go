@@ -79,7 +79,10 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		case c.Undecided:
 			verdict = "undecided within the data"
 		}
-		if c.Formula == s.Favoured {
+		switch {
+		case c.Formula == s.Favoured && s.FavouredTie != "":
+			verdict += " · lowest, within 2σ of " + s.FavouredTie
+		case c.Formula == s.Favoured:
 			verdict += " · favoured"
 		}
 		lines = append(lines, m.row(fmt.Sprintf("  %-8s %6d %22s %14s  %s (%s)", c.Formula, c.Charge, m.pm(c.Formation, c.Uncertainty),
