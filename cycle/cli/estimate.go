@@ -78,6 +78,10 @@ func runEstimate(env Env, args []string) error {
 		}
 		return writeJSON(env.Stdout, j)
 	}
+	if st != nil && st.Compound.Known && st.Compound.Molecular {
+		fmt.Fprintf(env.Stdout, "%s is a molecular %s in the data, not an ionic solid: what follows is the estimate of a hypothetical ionic %s, not of the real compound\n\n",
+			st.Compound.Formula, stateName(st.Compound.State), est.Formula)
+	}
 	printEstimate(env.Stdout, est)
 	switch {
 	case st != nil:
