@@ -40,12 +40,12 @@ func measuredEnergy(v data.Value) Quantity {
 }
 
 // EntropyRelativeUncertainty is the relative standard uncertainty given to
-// a volume-based entropy estimate: the scatter of the Jenkins–Glasser salt
-// line against the data's measured S°, rounded up. TestEntropyEstimateRMS
-// measures that scatter over the data and fails when it exceeds this
-// figure; before the data had entropies it was the paper's "about 10 %"
-// (Jenkins & Glasser 2003, as the issue quotes it).
-const EntropyRelativeUncertainty = 0.10
+// a volume-based entropy estimate: the RMS relative error of the
+// Jenkins–Glasser salt line against the data's measured S°, rounded up
+// (23.6 % over 166 salts when written, median 13.6 %; the paper's own
+// scatter is about 10 %). TestEntropyScatterCovered fails when the data's
+// RMS exceeds it.
+const EntropyRelativeUncertainty = 0.25
 
 // PackingFraction is Σ(4π/3)r³ of a salt's ions (Shannon CN VI radii,
 // thermochemical radii of polyatomic ions) over its formula-unit volume,
