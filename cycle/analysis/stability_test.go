@@ -241,3 +241,26 @@ func TestAdditiveEntropyBeside(t *testing.T) {
 	}
 	t.Logf("additive S°(CaCO3) = %.1f ± %.1f J/(mol·K): %s", q.Value, q.Uncertainty, q.Basis)
 }
+
+// A compound with a measured ΔfH° but no S° (BaO₂: NBS 1982 gives ΔfH°
+// −634.3 kJ/mol and no S°, line 10042 of the pinned copy) keeps its
+// measured ΔfH° and takes S° from the volume-based line, so its loss of
+// O₂ has a crossing; the reaction is marked as using estimates.
+func TestMeasuredEnthalpyEstimatedEntropy(t *testing.T) {
+	a := testAnalyst(t)
+	st, err := a.Stability("BaO2", StabilityOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := st.Compound
+	if !c.Formation.Measured || !near(c.Formation.Value, -634.3, 1e-9) {
+		t.Errorf("ΔfH° %+v", c.Formation)
+	}
+	if !c.Entropy.Known() || c.Entropy.Measured || !strings.Contains(c.Entropy.Basis, "volume-based") {
+		t.Errorf("S° %+v", c.Entropy)
+	}
+	if len(st.Reactions) != 1 || st.Reactions[0].Crossing == nil || !st.Reactions[0].Estimated {
+		t.Fatalf("reactions %+v", st.Reactions)
+	}
+	t.Logf("%s: ΔrG = 0 at %.0f ± %.0f K", st.Reactions[0].Equation, st.Reactions[0].Crossing.Temperature, st.Reactions[0].Crossing.Uncertainty)
+}
