@@ -11,6 +11,7 @@ import (
 
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/lipgloss"
 	"github.com/charmbracelet/x/ansi"
 
 	"enthalpath/cycle"
@@ -114,6 +115,31 @@ func (m *Model) confirmKey(k tea.KeyMsg) tea.Cmd {
 	case key.Matches(k, c.Discard):
 		m.confirming, m.pending = false, nil
 		return m.then(open)
+	}
+	return nil
+}
+
+// smallQuestion is the unsaved-changes question as a window smaller than
+// 80×24 draws it: whole when it fits, else a line per key, else nothing.
+// The question's keys act only when it is drawn (esc, back to work, always
+// does): a key must never discard work the user could not see asked about.
+func (m *Model) smallQuestion() []string {
+	long := []string{"The " + m.sess.Cycle.Formula + " cycle has unsaved changes."}
+	for _, b := range m.confirmBindings() {
+		long = append(long, b.Help().Key+"  "+b.Help().Desc)
+	}
+	short := []string{"Unsaved changes:"}
+	for _, b := range m.confirmKeys() {
+		short = append(short, b.Help().Key+" "+b.Help().Desc)
+	}
+	for _, lines := range [][]string{long, short} {
+		fits := len(lines) <= m.height
+		for _, l := range lines {
+			fits = fits && lipgloss.Width(l) <= m.width
+		}
+		if fits {
+			return lines
+		}
 	}
 	return nil
 }
