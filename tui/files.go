@@ -245,8 +245,12 @@ func (m *Model) askSave(thenQuit bool, thenOpen *screen.OpenMsg) tea.Cmd {
 			if err != nil {
 				return nil, err
 			}
-			if err := fileio.CheckReplaceable(path); err != nil {
-				return nil, err
+			var notRegular *fileio.NotRegularError
+			if err := fileio.CheckReplaceable(path); errors.As(err, &notRegular) {
+				// Worded with the name typed: the path may be the server's.
+				return nil, fmt.Errorf("%s is %s, not a regular file; it is not replaced: choose another name", name, notRegular.Kind)
+			} else if err != nil {
+				return nil, errors.New(m.shown(err.Error()))
 			}
 			if path != replace && path != m.sess.Path {
 				if held, exists := m.holds(path); exists {
