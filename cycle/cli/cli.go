@@ -55,6 +55,7 @@ func commands() []command {
 		{"compare", "cycle lattice value against the ionic models, one row per compound", runCompare},
 		{"estimate", "formation enthalpy of a hypothetical compound from a model lattice energy", runEstimate},
 		{"scan", "formation enthalpies across oxidation states and their disproportionations", runScan},
+		{"stability", "decompositions with ΔrG(T), verdicts beyond 2σ, temperatures of gas loss", runStability},
 		{"solution", "enthalpy of solution cycle", runSolution},
 		{"radius", "thermochemical radius derived from a cycle lattice energy", runRadius},
 		{"batch", "solve many formulas from a CSV file", runBatch},
