@@ -113,3 +113,38 @@ func TestScanTemperatureFlag(t *testing.T) {
 		t.Errorf("--pressure -1: exit %d", code)
 	}
 }
+
+// stability CaCO3 --json on the built-in data: the decomposition to CaO and
+// CO₂ crosses zero at ΔrH°/ΔrS° = 178.32/0.16059 = 1110 K at 1 bar (NBS 1982
+// values of the three species, as the data hold them), and at 0.1 bar lower.
+func TestStabilityCalciteJSON(t *testing.T) {
+	zero := func(args ...string) float64 {
+		out, errs, code := runAnalysisCmd(t, "", "stability", append([]string{"CaCO3", "--json"}, args...)...)
+		if code != ExitOK {
+			t.Fatalf("exit %d: %s", code, errs)
+		}
+		var j struct {
+			Compound struct {
+				Known bool `json:"in_data"`
+			} `json:"compound"`
+			Reactions []struct {
+				Reaction string   `json:"reaction"`
+				Zero     *float64 `json:"gibbs_zero_k"`
+				Above    *bool    `json:"goes_above_zero_temperature"`
+			} `json:"reactions"`
+		}
+		if err := json.Unmarshal([]byte(out), &j); err != nil {
+			t.Fatal(err)
+		}
+		if !j.Compound.Known || len(j.Reactions) != 1 || j.Reactions[0].Reaction != "CaCO3 -> CaO + CO2(g)" || j.Reactions[0].Zero == nil || !*j.Reactions[0].Above {
+			t.Fatalf("JSON %s", out)
+		}
+		return *j.Reactions[0].Zero
+	}
+	if t1 := zero(); t1 < 1105 || t1 > 1115 {
+		t.Errorf("ΔrG = 0 at %.1f K at 1 bar, want 1110", t1)
+	}
+	if t01 := zero("--pressure", "0.1"); !(t01 < 1100) {
+		t.Errorf("at 0.1 bar CO2: %.1f K, want below the 1 bar value", t01)
+	}
+}
