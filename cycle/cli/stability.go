@@ -148,7 +148,7 @@ func thermoLines(w io.Writer, label string, t analysis.Thermo) {
 	}
 	name := ""
 	if t.Name != "" {
-		name = " (" + t.Name + ")"
+		name = " — " + t.Name
 	}
 	fmt.Fprintf(w, "  %s %s%s: %s\n", label, t.Formula, name, what)
 	tb := &table{head: []string{"quantity", "value", "from"}, right: map[int]bool{1: true}}
