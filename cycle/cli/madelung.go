@@ -78,16 +78,17 @@ func runMadelung(env Env, args []string) error {
 	case sumErr != nil:
 		return &UsageError{fmt.Errorf("%s: %w", pos[0], sumErr)}
 	}
-	warnings := geometryWarnings(c, res)
+	mean, meanErr := c.MeanCationAnionDistance()
+	warnings := geometryWarnings(c, res, meanErr)
 	for _, w := range warnings {
 		fmt.Fprintf(env.Stderr, "enthalpath madelung: warning: %s\n", w)
 	}
 	if *asJSON {
-		out := madelungJSON(job, c, res, sumErr == nil)
+		out := madelungJSON(job, c, res, mean, sumErr == nil)
 		out.Warnings = warnings
 		return writeJSON(env.Stdout, out)
 	}
-	printMadelung(env.Stdout, job, c, res)
+	printMadelung(env.Stdout, job, c, res, mean)
 	return nil
 }
 
@@ -95,14 +96,18 @@ func runMadelung(env Env, args []string) error {
 // real solid: its nearest cation and anion closer than crystal.ShortestBond
 // (wurtzite with u = 0.9 puts them 0.52 Å apart). The Madelung constant
 // of such a cell is a number about point charges, not about a crystal.
-func geometryWarnings(c *crystal.Crystal, r ewald.Result) []string {
+func geometryWarnings(c *crystal.Crystal, r ewald.Result, meanErr error) []string {
+	var out []string
+	if meanErr != nil {
+		out = append(out, meanErr.Error()+"; no mean bond length is given")
+	}
 	i, j := r.NearestPair[0], r.NearestPair[1]
 	if i < 0 || j < 0 || !(r.NearestDistance < crystal.ShortestBond) {
-		return nil
+		return out
 	}
-	return []string{fmt.Sprintf("the nearest cation and anion (site %d %s and site %d %s) are %.3g Å apart, below %g Å, shorter than any real bond "+
+	return append(out, fmt.Sprintf("the nearest cation and anion (site %d %s and site %d %s) are %.3g Å apart, below %g Å, shorter than any real bond "+
 		"(threshold: common practice, no source); the Madelung constant refers to that distance; check the parameters or the file",
-		i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, r.NearestDistance, crystal.ShortestBond)}
+		i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, r.NearestDistance, crystal.ShortestBond))
 }
 
 // madelungJob is what the command line asked for.
@@ -235,7 +240,7 @@ func parseSupercell(s string) ([3]int, error) {
 
 func minus(s string) string { return strings.Replace(s, "-", "−", 1) }
 
-func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Result) {
+func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Result, mean float64) {
 	if p := job.prototype; p != nil {
 		fmt.Fprintf(w, "structure   %s: %s (example %s)\n", p.Name, p.Description, p.Example)
 		var ps []string
@@ -255,7 +260,7 @@ func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Res
 	i, j := r.NearestPair[0], r.NearestPair[1]
 	fmt.Fprintf(w, "shortest cation–anion distance  d = %.6f Å  (site %d %s and site %d %s)\n",
 		r.NearestDistance, i+1, c.Sites[i].Species, j+1, c.Sites[j].Species)
-	if mean := c.MeanCationAnionDistance(); !math.IsNaN(mean) {
+	if !math.IsNaN(mean) {
 		fmt.Fprintf(w, "mean cation–anion bond length      %.6f Å\n", mean)
 	}
 	fmt.Fprintf(w, "Madelung constant               A = %.10f\n", r.MadelungConstant)
@@ -398,7 +403,9 @@ type madelungOutput struct {
 	Warnings []string `json:"warnings,omitempty"`
 }
 
-func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, reached bool) madelungOutput {
+// madelungJSON builds the output; mean is NaN (JSON null) when there is no
+// mean bond length (the warnings say why).
+func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, mean float64, reached bool) madelungOutput {
 	abc, ang := cellParameters(c)
 	st := madelungStructure{
 		Name: c.Name, Source: "cif", Supercell: job.supercell,
@@ -419,7 +426,7 @@ func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, reached b
 		Convention:        r.Convention,
 		NearestDistance:   r.NearestDistance,
 		NearestPair:       [2]int{r.NearestPair[0] + 1, r.NearestPair[1] + 1},
-		MeanDistance:      jsonNumber(c.MeanCationAnionDistance()),
+		MeanDistance:      jsonNumber(mean),
 		EnergyCell:        r.EnergyEV,
 		EnergyFormulaUnit: r.EnergyPerFormulaUnitEV,
 		EnergyKJPerMol:    r.EnergyKJPerMol,

@@ -154,7 +154,10 @@ func TestMadelungNonCubic(t *testing.T) {
 		r := sum(t, c, Options{})
 		d := r.NearestDistance
 		if tt.d == mean {
-			d = c.MeanCationAnionDistance()
+			var err error
+			if d, err = c.MeanCationAnionDistance(); err != nil {
+				t.Fatal(err)
+			}
 		}
 		zz := c.Sites[r.NearestPair[0]].Charge * -c.Sites[r.NearestPair[1]].Charge
 		want := -tt.want * zz * thermo.CoulombEVAngstrom / d
