@@ -26,8 +26,8 @@ const DefaultMaxEnumerated = 5e6
 // DefaultSweeps is the default number of annealing sweeps (M attempted
 // swaps each) per restart; DefaultRestarts the number of restarts.
 const (
-	DefaultSweeps   = 2000
-	DefaultRestarts = 4
+	DefaultSweeps   = 1000
+	DefaultRestarts = 16
 	DefaultKeep     = 10
 )
 
