@@ -8,6 +8,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"path/filepath"
 	"runtime"
 	"strconv"
 	"strings"
@@ -277,6 +278,9 @@ type BatchOptions struct {
 	// Workers is the number of rows estimated at once (0: one per
 	// processor, runtime.GOMAXPROCS). The output does not depend on it.
 	Workers int
+	// Dir is the folder a relative CIF path in the structure column is
+	// read from (the batch file's); "" is the working directory.
+	Dir string
 }
 
 // BatchSummary counts the rows.
@@ -402,6 +406,9 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 				readErr = err
 				break
 			} else {
+				if st := row.Options.Structure; isCIFPath(st) && !filepath.IsAbs(st) {
+					row.Options.Structure = filepath.Join(opt.Dir, st)
+				}
 				blk.rows = append(blk.rows, row)
 				blk.results = append(blk.results, BatchResult{})
 			}
