@@ -112,6 +112,9 @@ func choose(groups []Group, free []int, fixed float64, cand Candidates, role map
 		}
 		return Assignment{Method: method}, nil
 	}
+	if a, ok := elementMean(groups, free, fixed, states); ok {
+		return a, nil
+	}
 	var st []string
 	for _, el := range elements {
 		var qs []string
@@ -121,6 +124,50 @@ func choose(groups []Group, free []int, fixed float64, cand Candidates, role map
 		st = append(st, el+" "+strings.Join(qs, ", "))
 	}
 	return Assignment{}, &NoNeutralError{States: st, Fixed: fixed}
+}
+
+// elementMean is the last step: when exactly one element has several
+// states, its atoms share the charge the rest of the cell leaves, if that
+// mean lies between its lowest and highest state.
+func elementMean(groups []Group, free []int, fixed float64, states map[string][]int) (Assignment, bool) {
+	multi := ""
+	for el, st := range states {
+		if len(st) > 1 {
+			if multi != "" {
+				return Assignment{}, false
+			}
+			multi = el
+		}
+	}
+	if multi == "" {
+		return Assignment{}, false
+	}
+	st := states[multi]
+	rest, atoms := fixed, 0.0
+	for _, gi := range free {
+		g := groups[gi]
+		if g.Element == multi {
+			atoms += g.Atoms
+			continue
+		}
+		rest += g.Atoms * float64(states[g.Element][0])
+	}
+	q := -rest / atoms
+	lo, hi := st[0], st[len(st)-1]
+	if !(atoms > 0) || q < float64(lo)-1e-9 || q > float64(hi)+1e-9 {
+		return Assignment{}, false
+	}
+	for _, gi := range free {
+		g := &groups[gi]
+		if g.Element == multi {
+			g.Charge, g.Low, g.High = q, lo, hi
+			g.HighFraction = (q - float64(lo)) / float64(hi-lo)
+			continue
+		}
+		g.Charge = float64(states[g.Element][0])
+		g.Low, g.High = states[g.Element][0], states[g.Element][0]
+	}
+	return Assignment{Method: ElementMean}, true
 }
 
 func anyMixed(groups []Group) bool {
