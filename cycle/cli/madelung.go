@@ -313,7 +313,7 @@ func printCharges(w io.Writer, sf *cycle.StructureFile, nSites int) {
 	if sf.Averaged > 0 {
 		fmt.Fprintf(w, "averaged    %d of %d sites carry a mean charge (shared or partly vacant sites, or two oxidation states on one site): the averaged crystal, not an ordered one\n", sf.Averaged, nSites)
 	}
-	t := table{head: []string{"element", "sites", "labels", "charge", "bond-valence sum", "|sum − |charge||", "from"}, right: map[int]bool{1: true, 4: true, 5: true}}
+	t := table{head: []string{"element", "atoms", "labels", "charge", "bond-valence sum", "|sum − |charge||", "from"}, right: map[int]bool{1: true, 4: true, 5: true}}
 	for _, g := range a.Groups {
 		from := "assigned"
 		if g.Given {
