@@ -6,6 +6,7 @@ import (
 	"slices"
 
 	"enthalpath/thermo"
+	"enthalpath/thermo/lattice"
 )
 
 // freeElectronEnthalpy is 5/2·RT at 298.15 K in kJ/mol: the heat content
@@ -46,7 +47,7 @@ func (c *Cycle) shift(s *Step, conv Conventions) float64 {
 		}
 	case KindAttachment:
 		if conv.Ionization == Energies0K {
-			return h
+			return h * s.electrons()
 		}
 	case KindIonFormation:
 		if conv.Ionization == Energies0K {
@@ -134,6 +135,10 @@ type Result struct {
 	// Warnings are things the user should look at (cycle-derived inputs,
 	// values from memory, default uncertainties, models that failed).
 	Warnings []string
+	// Circular lists the family-fitted ion values the cycle uses that were
+	// fitted to this very compound: the comparison with the models is then
+	// not independent, and every model's verdict is left Undetermined.
+	Circular []Circularity
 }
 
 // Step returns the result's step with key.
@@ -246,6 +251,11 @@ func Solve(c *Cycle) (*Result, error) {
 		models = EvaluateModels(c)
 	}
 	res.Models = gaps(models, res.Lattice.In(w.Conventions.Lattice))
+	if res.Circular = w.circularity(); len(res.Circular) > 0 {
+		for i := range res.Models {
+			res.Models[i].Verdict.Character = lattice.Undetermined
+		}
+	}
 	res.Notes, res.Warnings = w.commentary(res)
 	return res, nil
 }

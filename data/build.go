@@ -47,6 +47,8 @@ func (b *builder) apply(table string, r record) error {
 		return b.compound(r)
 	case "solution_enthalpies.csv":
 		return b.solutionEnthalpy(r)
+	case DerivedIonsFile:
+		return b.derivedIon(r)
 	}
 	return fmt.Errorf("unknown table %q", table)
 }

@@ -17,6 +17,7 @@ var tableColumns = map[string][]string{
 		"formation_kj_per_mol", "formation_uncertainty", "formation_source", "structure", "params", "params_source",
 		"density_g_cm3", "density_source", "lattice_kj_per_mol", "lattice_convention", "lattice_source", "memory", "note"},
 	"solution_enthalpies.csv": {"formula", "solution_kj_per_mol", "uncertainty", "source", "memory", "note"},
+	DerivedIonsFile:           {"ion", "gas_formation_kj_per_mol", "standard_error", "model", "salts", "outside_2sigma", "skipped", "derived", "note"},
 }
 
 // tableOrder is the order tables are read in (each may refer to the ones
@@ -38,6 +39,7 @@ var tableOrder = []struct {
 	{"ion_values.csv", "ion_value", true},
 	{"compounds.csv", "compound", true},
 	{"solution_enthalpies.csv", "solution_enthalpy", true},
+	{DerivedIonsFile, "derived_ion", true},
 }
 
 // TableFiles lists the table file names in reading order.

@@ -41,7 +41,8 @@ type DB struct {
 	compositionIdx  map[string]int    // normalized composition (first compound)
 	compKeys        map[string]string // formula → composition key
 
-	solutions map[string]Value // tabulated formula → ΔsolH° at infinite dilution
+	solutions map[string]Value      // tabulated formula → ΔsolH° at infinite dilution
+	derived   map[string]DerivedIon // ion symbol → family-fitted gas-phase enthalpy (derived.go)
 
 	overlays []string
 	problems []string
@@ -128,6 +129,7 @@ func (db *DB) clone() *DB {
 		compoundIdx: maps.Clone(db.compoundIdx),
 		compKeys:    maps.Clone(db.compKeys),
 		solutions:   maps.Clone(db.solutions),
+		derived:     maps.Clone(db.derived),
 		overlays:    slices.Clone(db.overlays),
 		problems:    slices.Clone(db.problems),
 	}
@@ -587,6 +589,9 @@ func (db *DB) Source(key string) (Source, error) {
 	}
 	if key == userSource {
 		return Source{Key: userSource, Citation: "value from the user's overlay file"}, nil
+	}
+	if key == FamilyFitSource {
+		return Source{Key: FamilyFitSource, Citation: familyFitCitation}, nil
 	}
 	return Source{}, &NotFoundError{Kind: "source", Query: key, Suggestions: suggest(key, db.sourceKeys(), 3)}
 }
