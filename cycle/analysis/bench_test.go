@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"io"
 	"testing"
+
+	"enthalpath/data"
 )
 
 // BenchmarkScanMgCl: one metal–non-metal scan up to charge 4 (the issue
@@ -90,6 +92,27 @@ func BenchmarkFitRadiusNitrate(b *testing.B) {
 	b.ReportAllocs()
 	for b.Loop() {
 		if _, err := a.FitRadius("NO3-", FitOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkFitIon fits O²⁻ over all 40 built-in oxides (volume-based or
+// Kapustinskii per salt) on a warm Analyst: the in-process cost of one ion
+// fit over a family of 30 or more salts.
+func BenchmarkFitIon(b *testing.B) {
+	db, err := data.LoadWithoutDerived()
+	if err != nil {
+		b.Fatal(err)
+	}
+	a := New(db)
+	f, err := a.FitIon("O2-", IonFitOptions{})
+	if err != nil || len(f.Used()) < 30 {
+		b.Fatalf("%v, %d salts", err, len(f.Used()))
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := a.FitIon("O2-", IonFitOptions{}); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -196,7 +196,7 @@ func (a *Analyst) FitIon(ion string, opt IonFitOptions) (*IonFit, error) {
 		return f, &InputError{Subject: in.Symbol, Field: "salts", Reason: why}
 	}
 	f.combine()
-	f.Notes = append(f.Notes, fmt.Sprintf("weighted least squares over %d of %d salts, weights 1/σ² (σ: the model's stated scatter and every other step's uncertainty)", len(used), len(f.Salts)))
+	f.Notes = append(f.Notes, fmt.Sprintf("weighted least squares over %d of %d salts, weights 1/σ²; σ holds every other step's uncertainty and the lattice step's: for a model its RMS gap to the cycle over the built-in alkali and alkaline-earth halides (measured from the data), for a handbook value the data's", len(used), len(f.Salts)))
 	if n := len(f.Salts) - len(used); n > 0 {
 		var names []string
 		for _, s := range f.Salts {
@@ -247,7 +247,21 @@ func (a *Analyst) saltIonValue(s *SaltIonValue, side cycle.Side, from string) {
 			return
 		}
 	} else {
-		c.Settings.LatticeFrom = model
+		m, err := cycle.EvaluateModel(c, model)
+		if err != nil {
+			s.Skipped = err.Error()
+			return
+		}
+		// The model's measured scatter (Analyst.ModelSpread), else its
+		// stated default, is the lattice step's uncertainty.
+		u := m.Uncertainty
+		if sp, err := a.ModelSpread(model); err == nil && sp.Relative() > 0 {
+			u = sp.Relative() * math.Abs(m.Value)
+		}
+		if err := c.Set("lattice", m.Value, u); err != nil {
+			s.Skipped = err.Error()
+			return
+		}
 	}
 	r, err := cycle.Solve(c)
 	if err != nil {
