@@ -602,8 +602,8 @@ func (b *builder) compound(r record) error {
 			if *side.dstCount, err = r.requiredInt(side.count); err != nil {
 				return err
 			}
-			if *side.dstCount < 1 {
-				return r.errorf(side.count, "count %d must be at least 1", *side.dstCount)
+			if *side.dstCount < 1 || *side.dstCount > maxCount {
+				return r.errorf(side.count, "count %d must be between 1 and %d, as in a formula", *side.dstCount, maxCount)
 			}
 		}
 	}

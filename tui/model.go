@@ -70,7 +70,12 @@ type Model struct {
 	quitting      bool
 	recovered     string // path of the recovery file written, for the last frame
 	kept          string // where the work was kept before an open, said when it is done
-	memo          *cycle.Memo
+	// lastKept is the recovery file keepWork wrote last and what it holds.
+	lastKept struct {
+		path    string
+		content []byte
+	}
+	memo *cycle.Memo
 }
 
 var _ tea.Model = (*Model)(nil)

@@ -12,8 +12,9 @@ import (
 // Analyst runs the analyses over one data set. Make one with New and share
 // it: it is safe for concurrent use.
 type Analyst struct {
-	db   *data.DB
-	memo *cycle.Memo
+	db        *data.DB
+	memo      *cycle.Memo
+	standards Standards
 
 	mu      sync.Mutex
 	spreads map[string]spreadEntry
@@ -83,9 +84,20 @@ type spreadEntry struct {
 	err error
 }
 
+// Option changes how New makes an Analyst.
+type Option func(*Analyst)
+
+// WithStandards makes the Analyst read measured standard data (ΔfH°, ΔfG°,
+// S° of compounds, gases and elements) from s instead of from the data set.
+func WithStandards(s Standards) Option { return func(a *Analyst) { a.standards = s } }
+
 // New returns an Analyst over db (which it only reads).
-func New(db *data.DB) *Analyst {
-	return &Analyst{db: db, memo: cycle.NewMemo(), spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[string]radiusEntry{}}
+func New(db *data.DB, opts ...Option) *Analyst {
+	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[string]radiusEntry{}}
+	for _, o := range opts {
+		o(a)
+	}
+	return a
 }
 
 // DB returns the data the Analyst reads.

@@ -12,6 +12,8 @@ import (
 	"strconv"
 	"strings"
 	"sync"
+	"unicode"
+	"unicode/utf8"
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
@@ -128,6 +130,14 @@ func (br *BatchReader) Next() (BatchRow, error) {
 	}
 	bad := func(name, reason string, err error) (BatchRow, error) {
 		return row, &CSVError{Line: line, Column: name, Reason: reason, Err: err}
+	}
+	for i, v := range rec {
+		// A control character (a NUL, for one) would be copied into the
+		// output's formula cell: the row is refused before it is echoed.
+		if j := strings.IndexFunc(v, func(r rune) bool { return unicode.IsControl(r) && r != '\t' }); j >= 0 {
+			r, _ := utf8.DecodeRuneInString(v[j:])
+			return bad(br.header[i], fmt.Sprintf("control character U+%04X in the cell; remove it", r), nil)
+		}
 	}
 	row.Formula = cell(ColFormula)
 	if row.Formula == "" {

@@ -97,15 +97,22 @@ func (a *Analyst) Estimate(formula string, opt EstimateOptions) (*Estimate, erro
 // quickFormation is Estimate's answer without the model comparison: the
 // solved value and σ (for scans and batches, where speed matters).
 func (a *Analyst) quickEstimate(formula string, opt EstimateOptions) (*Estimate, error) {
+	est, _, err := a.quickEstimateCycle(formula, opt)
+	return est, err
+}
+
+// quickEstimateCycle is quickEstimate with the cycle it solved.
+func (a *Analyst) quickEstimateCycle(formula string, opt EstimateOptions) (*Estimate, *cycle.Cycle, error) {
 	c, est, err := a.prepare(formula, opt)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	if est.Solved.Key != "formation" {
-		return a.Estimate(formula, opt)
+		est, err := a.Estimate(formula, opt)
+		return est, c, err
 	}
 	if err := missingStep(c); err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	r, u := cycle.Residual(c)
 	est.Value, est.Uncertainty = r, u
@@ -115,7 +122,7 @@ func (a *Analyst) quickEstimate(formula string, opt EstimateOptions) (*Estimate,
 		est.Solved.Value, est.Solved.Uncertainty = r, u
 		est.Solved.Source = cycle.Source{Kind: cycle.SourceSolved, Citation: "Hess's law over the other steps"}
 	}
-	return est, nil
+	return est, c, nil
 }
 
 func sq(x float64) float64 { return x * x }

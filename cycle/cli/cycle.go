@@ -318,7 +318,7 @@ func runCycle(env Env, args []string) error {
 			}
 		}
 		if err := cycle.Save(save, toSave); err != nil {
-			return err
+			return outputFileError("--save", save, err)
 		}
 	}
 	r, err := cycle.Solve(c)

@@ -1,16 +1,17 @@
 package cif
 
 import (
+	"bytes"
 	"errors"
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
 	"sort"
 	"strings"
 
 	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/fileio"
 )
 
 // Options adjust how a CIF file becomes a crystal.
@@ -46,14 +47,26 @@ const (
 	maxImages = 1000000
 )
 
-// ParseFile reads the CIF file at path; see Parse.
+// MaxFileSize bounds the CIF files ParseFile reads, in bytes (4 MiB: a
+// cell of 50,000 sites takes about 2 MiB; a file that also carries its
+// structure factors may need them taken out first).
+const MaxFileSize = 4 << 20
+
+// ParseFile reads the CIF file at path; see Parse. It reads regular files
+// only (not a device, pipe or folder) of at most MaxFileSize bytes.
 func ParseFile(path string, opt Options) (*crystal.Crystal, error) {
-	f, err := os.Open(path)
-	if err != nil {
+	b, err := fileio.ReadFile(path, MaxFileSize)
+	var tooLarge *fileio.TooLargeError
+	var notRegular *fileio.NotRegularError
+	switch {
+	case errors.As(err, &tooLarge):
+		return nil, &Error{File: path, Msg: fmt.Sprintf("the file is larger than the %s a CIF file may have here; remove loops the structure does not need (structure factors, for one)", fileio.Size(MaxFileSize)), Err: err}
+	case errors.As(err, &notRegular):
+		return nil, &Error{File: path, Msg: "it is " + notRegular.Kind + ", not a regular file; give a CIF file", Err: err}
+	case err != nil:
 		return nil, err
 	}
-	defer f.Close()
-	return Parse(f, path, opt)
+	return Parse(bytes.NewReader(b), path, opt)
 }
 
 // Parse reads a CIF 1.1 file from r and returns the full unit cell as a

@@ -133,6 +133,7 @@ func kinds() []kind {
 		},
 		ionFitKind(),
 	}
+	ks = append(ks, stabilityKind(func() kind { return ks[len(ks)-1] }))
 	return ks
 }
 

@@ -23,6 +23,8 @@ func (m *Model) render(r any) []string {
 		return m.radiusFit(r)
 	case *analysis.IonFit:
 		return m.ionFit(r)
+	case *analysis.Stability:
+		return m.stability(r)
 	}
 	return []string{fmt.Sprintf("%v", r)}
 }
@@ -70,12 +72,14 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		if c.FromData {
 			from = "data"
 		}
-		verdict := "stable on enthalpy"
+		verdict := "no reaction favoured beyond 2σ"
 		switch {
 		case c.LosesNonMetal:
 			verdict = "gives off " + s.Released + " to form " + c.LowerState
 		case !c.Stable:
 			verdict = "disproportionates"
+		case c.Undecided:
+			verdict = "undecided within the data"
 		}
 		if c.Formula == s.Favoured {
 			verdict += " · favoured"
@@ -87,11 +91,7 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		lines = append(lines, st.Title.Render("  disproportionations"))
 	}
 	for _, d := range s.Disproportionations {
-		mark := "not favoured"
-		if d.Favoured {
-			mark = "favoured (exothermic)"
-		}
-		lines = append(lines, m.row(fmt.Sprintf("  %-28s %s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), mark)))
+		lines = append(lines, m.row(fmt.Sprintf("  %-28s %s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), d.Energies.Verdict)))
 	}
 	for _, c := range s.Compounds {
 		for _, n := range c.Notes {
