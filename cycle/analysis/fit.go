@@ -63,10 +63,15 @@ type FittedRadius struct {
 
 // Used returns the salts in the fit.
 func (f *FittedRadius) Used() []SaltRadius {
-	var out []SaltRadius
-	for _, s := range f.Salts {
-		if s.Skipped == "" {
-			out = append(out, s)
+	return kept(f.Salts, func(s SaltRadius) string { return s.Skipped })
+}
+
+// kept returns the items whose skipped reason is empty, in order.
+func kept[T any](items []T, skipped func(T) string) []T {
+	var out []T
+	for _, it := range items {
+		if skipped(it) == "" {
+			out = append(out, it)
 		}
 	}
 	return out

@@ -88,13 +88,7 @@ type IonFit struct {
 
 // Used returns the salts in the fit.
 func (f *IonFit) Used() []SaltIonValue {
-	var out []SaltIonValue
-	for _, s := range f.Salts {
-		if s.Skipped == "" {
-			out = append(out, s)
-		}
-	}
-	return out
+	return kept(f.Salts, func(s SaltIonValue) string { return s.Skipped })
 }
 
 // Outside returns the formulas of the used salts more than 2σ from the fit.

@@ -37,6 +37,22 @@ func overlaid(t *testing.T, toml string) *Analyst {
 	return New(db)
 }
 
+// tl2so4 is an overlay adding an invented thallium(I) sulfate (invented
+// test values, not data) with the formation lines given.
+func tl2so4(formation string) string {
+	return `
+[[compound]]
+formula = "Tl2SO4"
+name = "thallium(I) sulfate (invented test values)"
+family = "sulfate"
+cation = "Tl+"
+cation_count = 2
+anion = "SO4^2-"
+anion_count = 1
+density_g_cm3 = 6.77
+` + formation + "\n"
+}
+
 // A fit over one salt is that salt's own cycle: ΔfH°(O²⁻, g) =
 // ΔfH°(MgO) − ΔfH°(Mg²⁺, g) − ΔH_L(model), summed here by hand from the
 // data's values (eV converted once with thermo's factor) and the model's
@@ -79,19 +95,7 @@ func TestFitIonHugeUncertaintyCarriesNoWeight(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	a := overlaid(t, `
-[[compound]]
-formula = "Tl2SO4"
-name = "thallium(I) sulfate (invented test values)"
-family = "sulfate"
-cation = "Tl+"
-cation_count = 2
-anion = "SO4^2-"
-anion_count = 1
-formation_kj_per_mol = -930
-formation_uncertainty = 100000
-density_g_cm3 = 6.77
-`)
+	a := overlaid(t, tl2so4("formation_kj_per_mol = -930\nformation_uncertainty = 100000"))
 	f, err := a.FitIon("SO4^2-", IonFitOptions{})
 	if err != nil {
 		t.Fatal(err)
@@ -111,17 +115,7 @@ func TestFitIonFitsOverTheRest(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	a := overlaid(t, `
-[[compound]]
-formula = "Tl2SO4"
-name = "thallium(I) sulfate (invented test row without a formation enthalpy)"
-family = "sulfate"
-cation = "Tl+"
-cation_count = 2
-anion = "SO4^2-"
-anion_count = 1
-density_g_cm3 = 6.77
-`)
+	a := overlaid(t, tl2so4(""))
 	f, err := a.FitIon("SO4^2-", IonFitOptions{})
 	if err != nil {
 		t.Fatal(err)
