@@ -180,14 +180,7 @@ func (a *Analyst) FitIon(ion string, opt IonFitOptions) (*IonFit, error) {
 	}
 	used := f.Used()
 	if len(used) == 0 {
-		why := "no compound of the data contains it"
-		if len(only) > 0 {
-			why = "no compound of the data pairs it with " + strings.Join(only, ", ")
-		}
-		if len(f.Salts) > 0 {
-			why = fmt.Sprintf("none of its %d salts has every other step (first: %s: %s)", len(f.Salts), f.Salts[0].Formula, f.Salts[0].Skipped)
-		}
-		return f, &InputError{Subject: in.Symbol, Field: "salts", Reason: why}
+		return f, noSalts(in.Symbol, only, f.Salts, "salts has every other step", func(s SaltIonValue) (string, string) { return s.Formula, s.Skipped })
 	}
 	f.combine()
 	f.Notes = append(f.Notes, fmt.Sprintf("weighted least squares over %d of %d salts, weights 1/σ²; σ holds every other step's uncertainty and the lattice step's: for a model its RMS gap to the cycle over the built-in alkali and alkaline-earth halides (measured from the data), for a handbook value the data's", len(used), len(f.Salts)))
