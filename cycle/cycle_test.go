@@ -98,15 +98,9 @@ func TestMgOSecondAttachmentFromBornMayer(t *testing.T) {
 // (the cycle's and the handbook's where it states one), or 2 % of the
 // handbook value, whichever is larger.
 var handbookExceptions = map[string]string{
-	// The O⁻ → O²⁻ attachment enthalpy is not measurable; the data carry a
-	// conventional cycle-derived +844 kJ/mol (Shriver & Atkins), while the
-	// handbook lattice energies (CRC, Jenkins & Roobottom) rest on their own
-	// cycle with a different choice, so the two disagree by about the
-	// difference of conventions (~ 100 kJ/mol), not by an error.
-	"MgO": "O²⁻ attachment enthalpy is a cycle-derived convention that differs from the handbook's",
-	"CaO": "O²⁻ attachment enthalpy is a cycle-derived convention that differs from the handbook's",
-	"SrO": "O²⁻ attachment enthalpy is a cycle-derived convention that differs from the handbook's",
-	"BaO": "O²⁻ attachment enthalpy is a cycle-derived convention that differs from the handbook's",
+	// Empty since the O²⁻ value is fitted over the s-block oxides
+	// (derived_ions.csv): with the textbook +844 kJ/mol for O⁻ → O²⁻,
+	// MgO, CaO, SrO and BaO were exceptions, 2.6–4 % off the handbook.
 }
 
 // For every built-in compound with a handbook lattice energy whose cycle
