@@ -37,8 +37,19 @@ func ParseAnionValue(s string) (AnionValue, error) {
 	case string(AnionTextbook):
 		return AnionTextbook, nil
 	}
-	return "", &SettingError{Text: s, Column: 1, Reason: "the anion value is fitted or textbook"}
+	return "", &AnionValueError{Text: s}
 }
+
+// AnionValueError reports a choice of anion value that is neither
+// AnionFitted nor AnionTextbook.
+type AnionValueError struct{ Text string }
+
+func (e *AnionValueError) Error() string {
+	return fmt.Sprintf("anion value %q: the choices are %s", e.Text, strings.Join(AnionValueNames(), " and "))
+}
+
+// Unwrap makes errors.Is(err, ErrBadSetting) hold.
+func (e *AnionValueError) Unwrap() error { return ErrBadSetting }
 
 // attachmentKey names the attachment step that adds electrons from..to
 // ("attachment-2"; "attachment-1-3" for N(g) + 3e⁻ → N³⁻(g)).

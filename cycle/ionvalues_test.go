@@ -1,6 +1,7 @@
 package cycle
 
 import (
+	"errors"
 	"math"
 	"strings"
 	"testing"
@@ -159,5 +160,17 @@ func TestWithoutDerivedTable(t *testing.T) {
 	}
 	if s, ok := c.Step("attachment-1-3"); !ok || !s.Missing() || s.Electrons != 3 {
 		t.Errorf("Li3N without the table: %+v", s)
+	}
+}
+
+func TestParseAnionValue(t *testing.T) {
+	for in, want := range map[string]AnionValue{"": AnionFitted, "fitted": AnionFitted, " Textbook ": AnionTextbook} {
+		if got, err := ParseAnionValue(in); err != nil || got != want {
+			t.Errorf("%q: %q %v, want %q", in, got, err, want)
+		}
+	}
+	var ae *AnionValueError
+	if _, err := ParseAnionValue("book"); !errors.As(err, &ae) || !errors.Is(err, ErrBadSetting) || !strings.Contains(err.Error(), "textbook") {
+		t.Errorf("book: %v", err)
 	}
 }

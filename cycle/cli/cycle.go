@@ -17,7 +17,7 @@ import (
 )
 
 const cycleSynopsis = `cycle FORMULA [--solve KEY] [--set KEY=VALUE[±UNC]]... [--lattice-from MODEL]
-                  [--structure NAME|FILE.cif] [--units kj|kcal|ev] [--save FILE] [--json]
+                  [--structure NAME|FILE.cif] [--units kj|kcal|ev] [--anion-value fitted|textbook] [--save FILE] [--json]
        enthalpath cycle --open FILE [flags]`
 
 // modelFlags are the settings shared by cycle and compare.
