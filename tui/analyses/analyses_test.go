@@ -166,6 +166,8 @@ func TestRadiusFitRuns(t *testing.T) {
 	}
 	f := res.(*analysis.FittedRadius)
 	v := m.View()
+	drive.Run(u, drive.Key("f")) // the list is longer than the screen: page down once
+	v += m.View()
 	for _, s := range f.Used() {
 		if !strings.Contains(v, s.Formula) {
 			t.Errorf("salt %s used but not shown:\n%s", s.Formula, v)
@@ -285,13 +287,17 @@ func TestIonFitRunsOffTheUpdatePath(t *testing.T) {
 	}
 	f := res.(*analysis.IonFit)
 	v := m.View()
-	want := []string{"ΔfH°(SO4^2-, g)", fmt.Sprintf("over %d of %d salts", len(f.Used()), len(f.Salts)), "lattice enthalpies from"}
-	for _, o := range f.Outside() {
-		want = append(want, o+" ")
-	}
-	for _, w := range want {
+	for _, w := range []string{"ΔfH°(SO4^2-, g)", fmt.Sprintf("over %d of %d salts", len(f.Used()), len(f.Salts)), "lattice enthalpies from"} {
 		if !strings.Contains(v, w) {
 			t.Errorf("ion fit view lacks %q:\n%s", w, v)
+		}
+	}
+	if out := f.Outside(); len(out) > 0 {
+		for range 40 {
+			drive.Run(u, drive.Key("pgdown"))
+		}
+		if v := m.View(); !strings.Contains(v, "outside 2σ: "+strings.Join(out, ", ")) {
+			t.Errorf("the end of the result does not name the salts outside 2σ (%v):\n%s", out, v)
 		}
 	}
 }

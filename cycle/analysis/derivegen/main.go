@@ -10,8 +10,11 @@
 //	go run ./cycle/analysis/derivegen [-out data/tables/derived_ions.csv] [-choices FILE]
 //
 // The lattice source of each ion is "auto" (volume-based where a salt has a
-// measured density or cell, Kapustinskii otherwise) unless choices.csv, kept
-// by hand beside this file with a reason per line, names another. The output
+// measured density or cell, Kapustinskii otherwise), over the salts of the
+// ionic counter-ions (analysis.IonicCounterIons: the s-block cations and
+// NH₄⁺ for an anion, the halides for a cation; every salt when there is
+// none), unless choices.csv, kept by hand beside this file with a reason
+// per line, names another. The output
 // is byte-for-byte reproducible; .ci/run regenerates it and fails on any
 // difference.
 package main
@@ -146,8 +149,9 @@ func generate(w io.Writer, db *data.DB, choiceText []byte) error {
 	fmt.Fprintln(w, "# go run ./cycle/analysis/derivegen (do not edit: .ci/run regenerates and compares).")
 	fmt.Fprintln(w, "# gas_formation_kj_per_mol: dfH(ion, g, 298.15 K), thermal-electron convention of the NBS tables;")
 	fmt.Fprintln(w, "# standard_error: the fit's (internal SE times the Birge ratio when that exceeds 1); model: the")
-	fmt.Fprintln(w, "# lattice source per salt; salts: those fitted; outside_2sigma: fitted salts more than 2 sigma off;")
-	fmt.Fprintln(w, "# skipped: salts of the ion left out for a missing input. Every value here is derived, none measured.")
+	fmt.Fprintln(w, "# lattice source per salt; salts: those fitted (by default those of the s-block cations and NH4+, or of the")
+	fmt.Fprintln(w, "# halides for a cation); outside_2sigma: fitted salts more than 2 sigma off; skipped: salts of those")
+	fmt.Fprintln(w, "# counter-ions left out for a missing input. Every value here is derived, none measured.")
 	if err := cw.Write([]string{"ion", "gas_formation_kj_per_mol", "standard_error", "model", "salts", "outside_2sigma", "skipped", "derived", "note"}); err != nil {
 		return err
 	}
@@ -155,10 +159,10 @@ func generate(w io.Writer, db *data.DB, choiceText []byte) error {
 	for _, in := range Ions(db) {
 		ch, ok := choices[in.Symbol]
 		if !ok {
-			ch = choice{from: analysis.FitAuto, reason: "the default rule"}
+			ch = choice{from: analysis.FitAuto, reason: "the default rule: auto over the ionic salts"}
 		}
 		used[in.Symbol] = true
-		f, err := a.FitIon(in.Symbol, analysis.IonFitOptions{From: ch.from, Only: ch.only})
+		f, err := a.FitIon(in.Symbol, analysis.IonFitOptions{From: ch.from, Only: ch.only, Ionic: true})
 		if err != nil {
 			log.Printf("%s: no value: %v", in.Symbol, err)
 			continue
@@ -174,6 +178,8 @@ func generate(w io.Writer, db *data.DB, choiceText []byte) error {
 		src := ch.from
 		if len(ch.only) > 0 {
 			src += " over the salts of " + strings.Join(ch.only, " ")
+		} else {
+			src += " over the ionic salts"
 		}
 		note := fmt.Sprintf("lattice source %s (%s); weighted least squares over %d salts, effective %.1f, chi2 %.2f, Birge ratio %s, internal SE %.1f kJ/mol",
 			src, ch.reason, len(salts), f.EffectiveSalts, f.ChiSquared, birge(f), f.InternalSE)
