@@ -10,12 +10,13 @@ import (
 	"enthalpath/cycle/analysis"
 )
 
-const ionfitSynopsis = "ionfit ION [--from auto|handbook|MODEL] [--only ION,...] [--exclude FORMULA,...] [--json | --csv]"
+const ionfitSynopsis = "ionfit ION [--from auto|handbook|MODEL] [--ionic-salts | --only ION,...] [--exclude FORMULA,...] [--json | --csv]"
 
 func runIonfit(env Env, args []string) error {
 	fs := newFlagSet("ionfit", ionfitSynopsis, env.Stderr)
 	var from, only, exclude string
-	var asJSON, asCSV bool
+	var asJSON, asCSV, ionic bool
+	fs.BoolVar(&ionic, "ionic-salts", false, "use only the salts the ionic models describe: of the s-block cations and NH4+ for an anion, of the halides for a cation (every salt when there are none); the rule of the built-in derived values")
 	fs.StringVar(&from, "from", analysis.FitAuto, "where each salt's lattice enthalpy comes from: `SOURCE` "+strings.Join(analysis.IonFitSources(), ", ")+
 		" (auto: volume-based where the salt has a measured density or cell, Kapustinskii otherwise; handbook: the data's handbook lattice energies)")
 	fs.StringVar(&only, "only", "", "use only the salts of these counter-ions, `ION,...`")
@@ -32,7 +33,10 @@ func runIonfit(env Env, args []string) error {
 	if asJSON && asCSV {
 		return Usagef("--json and --csv exclude each other; give one")
 	}
-	f, err := a.FitIon(pos[0], analysis.IonFitOptions{From: from, Only: splitComma(only), Exclude: splitComma(exclude)})
+	if ionic && only != "" {
+		return Usagef("--ionic-salts and --only both choose the counter-ions; give one")
+	}
+	f, err := a.FitIon(pos[0], analysis.IonFitOptions{From: from, Only: splitComma(only), Exclude: splitComma(exclude), Ionic: ionic})
 	if err != nil {
 		return inputError(err)
 	}

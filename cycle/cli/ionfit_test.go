@@ -37,6 +37,17 @@ func TestIonfitCommand(t *testing.T) {
 	if j.Ion != "O2-" || j.Used != 4 || !(j.SE > 0) || j.Out == nil || len(j.Salts) <= 4 {
 		t.Errorf("JSON: %+v", j)
 	}
+	// --ionic-salts reproduces the built-in derived value (derived_ions.csv,
+	// the generator's rule) when the fit starts from the same data: here the
+	// data include it, and the fit does not use the ion's own value.
+	out, errs, code = runAnalysisCmd(t, "", "ionfit", "SO4^2-", "--ionic-salts", "--json")
+	var k struct {
+		Value   float64 `json:"gas_formation_kj_per_mol"`
+		Builtin float64 `json:"builtin_kj_per_mol"`
+	}
+	if err := json.Unmarshal([]byte(out), &k); code != ExitOK || err != nil || k.Value-k.Builtin > 0.05 || k.Builtin-k.Value > 0.05 {
+		t.Errorf("--ionic-salts: exit %d %v %s: %+v", code, err, errs, k)
+	}
 	out, errs, code = runAnalysisCmd(t, "", "ionfit", "NO3-", "--csv", "--only", "Na+,K+")
 	if code != ExitOK {
 		t.Fatalf("exit %d: %s", code, errs)
@@ -53,6 +64,7 @@ func TestIonfitCommand(t *testing.T) {
 		{[]string{"Qq-"}, "not an ion"},
 		{[]string{"SO4^2-", "--from", "quantum"}, "quantum"},
 		{[]string{"SO4^2-", "--json", "--csv"}, "exclude"},
+		{[]string{"SO4^2-", "--ionic-salts", "--only", "K+"}, "give one"},
 	} {
 		_, errs, code := runAnalysisCmd(t, "", "ionfit", tc.args...)
 		if code != ExitUsage || !strings.Contains(errs, tc.want) {

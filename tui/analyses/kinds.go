@@ -140,7 +140,7 @@ func kinds() []kind {
 // ionFitKind fits an ion's gas-phase enthalpy over its salts.
 func ionFitKind() kind {
 	k := kind{name: "ion fit", what: "gas-phase enthalpy of an ion fitted over every salt of it (weighted least squares)",
-		syntax: "ION [SOURCE] [COUNTER,...]", example: "SO4^2- auto"}
+		syntax: "ION [SOURCE] [ionic | COUNTER,...]", example: "SO4^2- auto ionic"}
 	k.prepare = func(args []string) (job, error) {
 		if len(args) < 1 || len(args) > 3 {
 			return nil, usage(k, "give an ion, optionally the lattice source (%s) and counter-ions", strings.Join(analysis.IonFitSources(), ", "))
@@ -150,10 +150,12 @@ func ionFitKind() kind {
 			switch {
 			case slices.Contains(analysis.IonFitSources(), strings.ToLower(w)):
 				opt.From = w
+			case strings.EqualFold(w, "ionic"):
+				opt.Ionic = true
 			case strings.ContainsAny(w, "+-"):
 				opt.Only = append(opt.Only, strings.Split(w, ",")...)
 			default:
-				return nil, usage(k, "%q is neither a lattice source (%s) nor counter-ions (K+,Na+)", w, strings.Join(analysis.IonFitSources(), ", "))
+				return nil, usage(k, "%q is neither a lattice source (%s), ionic, nor counter-ions (K+,Na+)", w, strings.Join(analysis.IonFitSources(), ", "))
 			}
 		}
 		return func(a *analysis.Analyst) (any, error) { return a.FitIon(args[0], opt) }, nil
