@@ -293,7 +293,7 @@ func (a *Analyst) saltIonValue(s *SaltIonValue, side cycle.Side, from string) {
 			return
 		}
 	}
-	r, err := cycle.Solve(c)
+	r, err := cycle.SolveHess(c)
 	if err != nil {
 		var me *cycle.MissingError
 		if errors.As(err, &me) {
