@@ -111,13 +111,13 @@ func BenchmarkFitIon(b *testing.B) {
 	if err != nil || len(f.Used()) < 30 {
 		b.Fatalf("%v, %d salts", err, len(f.Used()))
 	}
-	b.ReportMetric(float64(len(f.Used())), "salts")
 	b.ReportAllocs()
 	for b.Loop() {
 		if _, err := a.FitIon("O2-", IonFitOptions{}); err != nil {
 			b.Fatal(err)
 		}
 	}
+	b.ReportMetric(float64(len(f.Used())), "salts")
 }
 
 // BenchmarkScanGibbsTiCl: a scan over four oxidation states with Gibbs

@@ -175,7 +175,7 @@ func (a *Analyst) FitIon(ion string, opt IonFitOptions) (*IonFit, error) {
 	if opt.Ionic && len(only) == 0 {
 		only = IonicCounterIons(in.Charge < 0)
 		has := false
-		for _, comp := range a.db.Compounds() {
+		for _, comp := range a.compoundsOf(in.Symbol) {
 			has = has || comp.Anion == in.Symbol && slices.Contains(only, comp.Cation) || comp.Cation == in.Symbol && slices.Contains(only, comp.Anion)
 		}
 		if !has {
@@ -194,7 +194,7 @@ func (a *Analyst) FitIon(ion string, opt IonFitOptions) (*IonFit, error) {
 		f.Builtin = &d
 	}
 	others := 0
-	for _, comp := range a.db.Compounds() {
+	for _, comp := range a.compoundsOf(in.Symbol) {
 		if (comp.Molecular || comp.State != "" && comp.State != "cr") && (comp.Anion == in.Symbol || comp.Cation == in.Symbol) {
 			others++ // not an ionic solid: no lattice to model
 			continue
@@ -246,6 +246,22 @@ func (a *Analyst) FitIon(ion string, opt IonFitOptions) (*IonFit, error) {
 		}
 	}
 	return f, nil
+}
+
+// compoundsOf returns the data's compounds that hold ion, indexed once per
+// Analyst (a family fit would otherwise copy every compound of the data).
+// The records are shared: read only.
+func (a *Analyst) compoundsOf(ion string) []data.Compound {
+	a.saltsOnce.Do(func() {
+		a.saltsOf = map[string][]data.Compound{}
+		for _, c := range a.db.Compounds() {
+			a.saltsOf[c.Cation] = append(a.saltsOf[c.Cation], c)
+			if c.Anion != c.Cation {
+				a.saltsOf[c.Anion] = append(a.saltsOf[c.Anion], c)
+			}
+		}
+	})
+	return a.saltsOf[ion]
 }
 
 // saltIonValue solves one salt for the ion's step.
