@@ -133,7 +133,8 @@ func kinds() []kind {
 		},
 		ionFitKind(),
 	}
-	ks = append(ks, stabilityKind(func() kind { return ks[len(ks)-1] }))
+	at := len(ks)
+	ks = append(ks, stabilityKind(func() kind { return ks[at] }))
 	return ks
 }
 
