@@ -66,7 +66,7 @@ func main() {
 		log.Fatal(err)
 	}
 	var buf bytes.Buffer
-	if err := generate(&buf, db, choices); err != nil {
+	if err := generate(&buf, db, choices, log.Printf); err != nil {
 		log.Fatal(err)
 	}
 	if err := os.WriteFile(*out, buf.Bytes(), 0o644); err != nil {
@@ -138,7 +138,9 @@ func Ions(db *data.DB) []data.Ion {
 	return out
 }
 
-func generate(w io.Writer, db *data.DB, choiceText []byte) error {
+// generate writes the table to w; logf hears of each ion left without a
+// value and why.
+func generate(w io.Writer, db *data.DB, choiceText []byte, logf func(format string, args ...any)) error {
 	choices, err := readChoices(choiceText)
 	if err != nil {
 		return err
@@ -164,7 +166,7 @@ func generate(w io.Writer, db *data.DB, choiceText []byte) error {
 		used[in.Symbol] = true
 		f, err := a.FitIon(in.Symbol, analysis.IonFitOptions{From: ch.from, Only: ch.only, Ionic: true})
 		if err != nil {
-			log.Printf("%s: no value: %v", in.Symbol, err)
+			logf("%s: no value: %v", in.Symbol, err)
 			continue
 		}
 		var salts, skipped []string

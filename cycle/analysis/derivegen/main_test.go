@@ -16,7 +16,7 @@ func TestCommittedTableIsCurrent(t *testing.T) {
 		t.Fatal(err)
 	}
 	var buf bytes.Buffer
-	if err := generate(&buf, db, builtinChoices); err != nil {
+	if err := generate(&buf, db, builtinChoices, t.Logf); err != nil {
 		t.Fatal(err)
 	}
 	committed, err := os.ReadFile("../../../data/tables/" + data.DerivedIonsFile)
@@ -38,7 +38,7 @@ func TestChoicesRefused(t *testing.T) {
 		"ion,from,only,reason\nO2-,kapustinskii,,\n",  // no reason
 		"ion,from,only,reason\nCl-,volume,,because\n", // Cl⁻ is measured
 	} {
-		if err := generate(&bytes.Buffer{}, db, []byte(bad)); err == nil {
+		if err := generate(&bytes.Buffer{}, db, []byte(bad), t.Logf); err == nil {
 			t.Errorf("choices %q accepted", bad)
 		}
 	}
@@ -51,7 +51,7 @@ func BenchmarkGenerate(b *testing.B) {
 		b.Fatal(err)
 	}
 	for b.Loop() {
-		if err := generate(&bytes.Buffer{}, db, builtinChoices); err != nil {
+		if err := generate(&bytes.Buffer{}, db, builtinChoices, func(string, ...any) {}); err != nil {
 			b.Fatal(err)
 		}
 	}
