@@ -30,6 +30,9 @@ type MadelungValue struct {
 	// Cell volume in Å³ and formula units per cell.
 	Volume       float64
 	FormulaUnits int
+	// SitePotentials are the Madelung potentials in volt at the cell's
+	// sites, in their order (see ewald.Result).
+	SitePotentials []float64
 }
 
 // Memo remembers Ewald sums keyed by everything they depend on (structure,
@@ -83,6 +86,19 @@ func (m *Memo) Madelung(st Structure, cation, anion Part, accuracy float64) (Mad
 	m.m[key] = memoEntry{v, err}
 	m.mu.Unlock()
 	return v, err
+}
+
+// Remembered returns the sum Madelung would return if it has been
+// computed already, without computing it (for a screen that must not wait).
+func (m *Memo) Remembered(st Structure, cation, anion Part, accuracy float64) (MadelungValue, bool) {
+	if accuracy == 0 {
+		accuracy = DefaultAccuracy
+	}
+	key := memoKey(st, cation, anion, accuracy)
+	m.mu.Lock()
+	e, ok := m.m[key]
+	m.mu.Unlock()
+	return e.v, ok && e.err == nil
 }
 
 func memoKey(st Structure, cation, anion Part, accuracy float64) string {
@@ -149,7 +165,7 @@ func sumStructure(st Structure, cation, anion Part, accuracy float64) (MadelungV
 		return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: fmt.Sprintf("the structure gives A = %g, not a binding arrangement", r.MadelungConstant)}
 	}
 	return MadelungValue{A: r.MadelungConstant, NearestDistance: r.NearestDistance, EnergyKJPerMol: r.EnergyKJPerMol,
-		Volume: cell.Volume(), FormulaUnits: cell.FormulaUnits}, nil
+		Volume: cell.Volume(), FormulaUnits: cell.FormulaUnits, SitePotentials: r.SitePotentials}, nil
 }
 
 // cellFits checks that a cell read from a file holds the compound's ions:

@@ -7,6 +7,7 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/data"
+	"enthalpath/thermo/entropy"
 )
 
 // Analyst runs the analyses over one data set. Make one with New and share
@@ -15,6 +16,10 @@ type Analyst struct {
 	db        *data.DB
 	memo      *cycle.Memo
 	standards Standards
+
+	additiveOnce sync.Once
+	additiveFit  *entropy.Additive
+	additiveErr  error
 
 	mu      sync.Mutex
 	spreads map[string]spreadEntry

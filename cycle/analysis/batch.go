@@ -8,6 +8,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"path/filepath"
 	"runtime"
 	"strconv"
 	"strings"
@@ -264,6 +265,9 @@ type BatchOptions struct {
 	JSON bool
 	// Progress, when set, is called after each row with the rows done.
 	Progress func(rows int)
+	// Dir is the folder a relative CIF path in the structure column is
+	// read from (the batch file's); "" is the working directory.
+	Dir string
 }
 
 // BatchSummary counts the rows.
@@ -375,6 +379,9 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 			if err != nil {
 				readErr = err
 				return
+			}
+			if st := row.Options.Structure; isCIFPath(st) && !filepath.IsAbs(st) {
+				row.Options.Structure = filepath.Join(opt.Dir, st)
 			}
 			out := make(chan BatchResult, 1)
 			queue <- out

@@ -27,7 +27,9 @@ type EstimateOptions struct {
 	// Model is one of EstimateModels; "" means DefaultModel.
 	Model string
 	// Structure is a prototype of thermo/crystal for the Born models
-	// ("rock-salt"); "" keeps the compound's own, or the radius-ratio rule.
+	// ("rock-salt") or the path of a CIF file (charges it does not give
+	// come from the compound's ions); "" keeps the compound's own, or the
+	// radius-ratio rule.
 	Structure string
 	// CationRadius and AnionRadius (Å), when positive, replace the radii.
 	CationRadius, AnionRadius float64
@@ -127,6 +129,10 @@ func (a *Analyst) quickEstimateCycle(formula string, opt EstimateOptions) (*Esti
 
 func sq(x float64) float64 { return x * x }
 
+// isCIFPath reports a structure given as a CIF file rather than a
+// prototype name.
+func isCIFPath(s string) bool { return strings.HasSuffix(strings.ToLower(s), ".cif") }
+
 // prepare builds the cycle with the model's lattice step and the unknown.
 func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *Estimate, error) {
 	model := opt.Model
@@ -149,11 +155,17 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 		return nil, nil, err
 	}
 	est := &Estimate{Formula: c.Formula, Tabulated: c.Tabulated, Model: model}
-	if opt.Structure != "" {
+	switch {
+	case isCIFPath(opt.Structure):
+		// A measured cell: d₀ from its geometry.
+		if err := c.LoadStructureFile(opt.Structure, opt.Structure); err != nil {
+			return nil, nil, &InputError{Subject: formula, Field: "structure", Reason: "cannot use the CIF file", Err: err}
+		}
+	case opt.Structure != "":
 		c.Settings.Structure = cycle.Structure{Prototype: opt.Structure}
 		c.Settings.Distance = cycle.DistanceRadii
 	}
-	if !c.Tabulated || c.Settings.Structure.Empty() || !c.Settings.Structure.FromData {
+	if c.Settings.Structure.Cell == nil && (!c.Tabulated || c.Settings.Structure.Empty() || !c.Settings.Structure.FromData) {
 		// No measured cell of this compound: d₀ from the radii.
 		c.Settings.Distance = cycle.DistanceRadii
 	}

@@ -137,6 +137,11 @@ func (a *Analyst) Stability(formula string, opt StabilityOptions) (*Stability, e
 	default:
 		return nil, estErr
 	}
+	add := a.additiveEntropy(c)
+	st.Compound.AdditiveEntropy = add
+	if st.Estimate != nil {
+		st.Estimate.AdditiveEntropy = add
+	}
 	a.gasReleases(st, c, opt.Estimate)
 	if !c.Anion.Ion.Polyatomic && !c.Cation.Ion.Polyatomic {
 		a.stateReactions(st, c, opt)

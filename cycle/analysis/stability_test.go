@@ -212,3 +212,22 @@ func TestCarbonateTemperaturesFromEstimate(t *testing.T) {
 		}
 	}
 }
+
+// The additive estimate beside the volume-based one: over the NBS fixture's
+// oxides and carbonates the single-ion contributions reproduce calcite's
+// S° = 92.9 J/(mol·K) (NBS line 9555) within twice their RMS residual.
+func TestAdditiveEntropyBeside(t *testing.T) {
+	a := nbsAnalyst(t)
+	st, err := a.Stability("CaCO3", StabilityOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	q := st.Compound.AdditiveEntropy
+	if !q.Known() || q.Measured {
+		t.Fatalf("no additive estimate: %+v", q)
+	}
+	if math.Abs(q.Value-92.9) > 2*q.Uncertainty+1e-9 {
+		t.Errorf("additive S°(CaCO3) %.1f ± %.1f, NBS 92.9", q.Value, q.Uncertainty)
+	}
+	t.Logf("additive S°(CaCO3) = %.1f ± %.1f J/(mol·K): %s", q.Value, q.Uncertainty, q.Basis)
+}

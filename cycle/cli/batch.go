@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"path/filepath"
 	"strings"
 	"time"
 
@@ -50,10 +51,14 @@ func runBatch(env Env, args []string) error {
 	}
 	counted := &countingReader{r: in}
 	bar := newProgressBar(env.Stderr, size, counted)
+	dir := "."
+	if name != "-" {
+		dir = filepath.Dir(name)
+	}
 	var sum analysis.BatchSummary
 	run := func(w io.Writer) error {
 		var err error
-		sum, err = a.Batch(counted, w, analysis.BatchOptions{JSON: asJSON, Progress: bar.update})
+		sum, err = a.Batch(counted, w, analysis.BatchOptions{JSON: asJSON, Progress: bar.update, Dir: dir})
 		return err
 	}
 	if out == "" {

@@ -142,6 +142,9 @@ func thermoLines(w io.Writer, label string, t analysis.Thermo) {
 	tb := &table{head: []string{"quantity", "value", "from"}, right: map[int]bool{1: true}}
 	tb.add("ΔfH°", quantityText(t.Formation, "kJ/mol"), t.Formation.Basis)
 	tb.add("S°", quantityText(t.Entropy, "J/(mol·K)"), t.Entropy.Basis)
+	if t.AdditiveEntropy.Known() {
+		tb.add("S°, additive", quantityText(t.AdditiveEntropy, "J/(mol·K)"), t.AdditiveEntropy.Basis)
+	}
 	tb.add("ΔfG°(298.15 K)", quantityText(t.Gibbs, "kJ/mol"), t.Gibbs.Basis)
 	tb.write(w, "    ")
 }
@@ -157,7 +160,6 @@ func stateName(s string) string {
 }
 
 func printStability(w io.Writer, st *analysis.Stability) {
-	u := thermo.KJPerMol
 	fmt.Fprintf(w, "stability of %s at %s K, gases given off at %g bar\n\n", st.Formula, kelvin(st.Temperature), st.Pressure)
 	thermoLines(w, "compound", st.Compound)
 	if st.Estimate != nil && (st.Compound.Known || st.Compound.Formula != st.Estimate.Formula) {
@@ -166,6 +168,15 @@ func printStability(w io.Writer, st *analysis.Stability) {
 		fmt.Fprintf(w, "  no ionic estimate: %s\n", wrapText(st.EstimateError.Error(), 96, "    "))
 	}
 	fmt.Fprintln(w)
+	printReactions(w, st)
+	for _, n := range st.Notes {
+		fmt.Fprintf(w, "  note: %s\n", wrapText(n, 96, "        "))
+	}
+}
+
+// printReactions writes the reactions of a stability analysis as a table.
+func printReactions(w io.Writer, st *analysis.Stability) {
+	u := thermo.KJPerMol
 	if len(st.Reactions) > 0 {
 		t := &table{head: []string{"reaction", "ΔrH° kJ/mol", "ΔrS° J/(mol·K)", "ΔrG(" + kelvin(st.Temperature) + " K) kJ/mol", "verdict", "ΔrG = 0 at"},
 			right: map[int]bool{1: true, 2: true, 3: true}}
@@ -183,9 +194,6 @@ func printStability(w io.Writer, st *analysis.Stability) {
 		}
 		t.write(w, "  ")
 		fmt.Fprintln(w)
-	}
-	for _, n := range st.Notes {
-		fmt.Fprintf(w, "  note: %s\n", wrapText(n, 96, "        "))
 	}
 }
 
@@ -214,12 +222,13 @@ type thermoJSON struct {
 	GibbsKJ        *quantityJSON `json:"gibbs_formation_298_kj_per_mol"`
 	FormationEntJK *quantityJSON `json:"formation_entropy_j_per_mol_k"`
 	VolumeNM3      *quantityJSON `json:"formula_unit_volume_nm3,omitempty"`
+	AdditiveJK     *quantityJSON `json:"additive_entropy_j_per_mol_k,omitempty"`
 }
 
 func thermoJSONOf(t analysis.Thermo) *thermoJSON {
 	return &thermoJSON{Formula: t.Formula, Name: t.Name, State: t.State, Known: t.Known, Molecular: t.Molecular,
 		FormationKJ: quantityJSONOf(t.Formation), EntropyJK: quantityJSONOf(t.Entropy), GibbsKJ: quantityJSONOf(t.Gibbs),
-		FormationEntJK: quantityJSONOf(t.FormationEntropy), VolumeNM3: quantityJSONOf(t.Volume)}
+		FormationEntJK: quantityJSONOf(t.FormationEntropy), VolumeNM3: quantityJSONOf(t.Volume), AdditiveJK: quantityJSONOf(t.AdditiveEntropy)}
 }
 
 type pointJSON struct {

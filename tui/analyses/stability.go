@@ -50,7 +50,7 @@ func (m *Model) stability(s *analysis.Stability) []string {
 	lines = append(lines, m.row(fmt.Sprintf("  %s (%s): ΔfH° %s · S° %s J/(mol·K) · ΔfG°(298 K) %s", c.Formula, what,
 		quantityPM(m, c.Formation), entropyPM(c.Entropy), quantityPM(m, c.Gibbs))))
 	if len(s.Reactions) > 0 {
-		lines = append(lines, st.Title.Render(fmt.Sprintf("  %-30s %18s %18s  %s", "reaction", "ΔrH°", fmt.Sprintf("ΔrG(%g K)", s.Temperature), "verdict")))
+		lines = append(lines, st.Title.Render(fmt.Sprintf("  %-30s %24s %24s  %s", "reaction", "ΔrH°", fmt.Sprintf("ΔrG(%g K)", s.Temperature), "verdict")))
 	}
 	var pts []plot.Point
 	var groups []string
@@ -67,7 +67,7 @@ func (m *Model) stability(s *analysis.Stability) []string {
 			verdict += " (estimate)"
 		}
 		eq := strings.ReplaceAll(r.Equation, "->", "→")
-		lines = append(lines, m.row(fmt.Sprintf("  %c %-28s %18s %18s  %s", plot.Glyph(i), eq, m.pm(r.Standard.Enthalpy, r.Standard.EnthalpyUncertainty), g, verdict)))
+		lines = append(lines, m.row(fmt.Sprintf("  %c %-28s %24s %24s  %s", plot.Glyph(i), eq, m.pm(r.Standard.Enthalpy, r.Standard.EnthalpyUncertainty), g, verdict)))
 		for _, p := range s.Curves[i] {
 			pts = append(pts, plot.Point{X: p.Temperature, Y: p.Gibbs, Group: i})
 		}
