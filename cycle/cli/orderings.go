@@ -23,7 +23,9 @@ const orderingsSynopsis = `orderings NAME|FILE.cif --site SEL=OCCUPANTS [--site 
 Ranks the orderings of ions and vacancies over mixed sites by their Ewald
 (electrostatic) energy, conducting boundary conditions. The structure is a
 built-in prototype (see madelung --list) or a CIF file, repeated by
---supercell; each --site chooses the sites whose label or species is SEL and
+--supercell. A CIF file's partly occupied and shared sites are mixed with
+the occupancies and charges it gives (or that are assigned, as for
+madelung); each --site chooses the sites whose label or species is SEL and
 gives their occupants as SPECIES:CHARGE:FRACTION, comma-separated, with
 "vac:FRACTION" for vacancies; one occupant without a fraction replaces the
 ion. Example, Li/vacancy on the cation sites of rock salt:
@@ -55,9 +57,6 @@ func runOrderings(env Env, args []string) error {
 	if len(pos) != 1 {
 		fs.Usage()
 		return Usagef("orderings: give exactly one prototype name or CIF file (got %d arguments)", len(pos))
-	}
-	if len(sites) == 0 {
-		return Usagef("orderings: give the mixed sites with --site, e.g. --site M=Li:+1:0.5,vac:0.5")
 	}
 	if *keep < 1 || *sweeps < 1 || *restarts < 1 {
 		return Usagef("--keep, --sweeps and --restarts must be positive")
@@ -92,9 +91,18 @@ func runOrderings(env Env, args []string) error {
 		return err
 	}
 	job := madelungJob{target: pos[0], params: paramMap, charges: chargeMap, supercell: n}
+	if isCIFPath(pos[0]) {
+		if job.db, err = loadData(env); err != nil {
+			return err
+		}
+	}
 	c, err := job.crystal()
 	if err != nil {
 		return err
+	}
+	specs = append(specs, ordering.OccupancySpecs(c, specs)...)
+	if len(specs) == 0 {
+		return Usagef("orderings: %s has no partly occupied or shared site; give the mixed sites with --site, e.g. --site M=Li:+1:0.5,vac:0.5", pos[0])
 	}
 	p, err := ordering.NewProblem(c, specs, ordering.Options{Accuracy: *accuracy})
 	if err != nil {
