@@ -6,6 +6,7 @@ import (
 	"math"
 	"strings"
 	"testing"
+	"time"
 
 	"enthalpath/thermo/cif"
 	"enthalpath/thermo/ewald"
@@ -13,9 +14,7 @@ import (
 
 func runOrderingsForTest(t *testing.T, args ...string) (code int, stdout, stderr string) {
 	t.Helper()
-	var out, errb bytes.Buffer
-	code = Run(Env{Stdout: &out, Stderr: &errb, Stdin: strings.NewReader("")}, "orderings", args)
-	return code, out.String(), errb.String()
+	return runForTest(t, "orderings", args...)
 }
 
 // TestOrderingsCommand: the Li/vacancy case of 16 rock-salt cation sites
@@ -114,5 +113,18 @@ func TestOrderingsFromCIFOccupancy(t *testing.T) {
 	gap := file.Orderings[1].EnergyEV - file.Orderings[0].EnergyEV
 	if want := 4 * (-47.35847311324 + 47.51109652717); math.Abs(gap-want) > 1e-8*618 {
 		t.Errorf("first gap %.10f eV, 4× pymatgen's Li/vacancy gap %.10f eV", gap, want)
+	}
+}
+
+// TestProgressWithStatus: a bar fed by a status function shows its share
+// and text once it has run a second on a terminal.
+func TestProgressWithStatus(t *testing.T) {
+	var buf bytes.Buffer
+	b := &progressBar{w: &buf, on: true, start: time.Now().Add(-2 * time.Second)}
+	b.status = func() (float64, string) { return 0.25, "250 of 1e+03" }
+	b.tick()
+	b.finish()
+	if !strings.Contains(buf.String(), " 25 %  250 of 1e+03") {
+		t.Errorf("bar: %q", buf.String())
 	}
 }
