@@ -210,14 +210,16 @@ type system struct {
 func newSystem(c *crystal.Crystal, detect bool) *system {
 	// Work in a reduced basis of the lattice: the image searches of both
 	// sums are then compact even for a skewed cell.
-	red := &crystal.Crystal{Lattice: crystal.ReduceBasis(c.Lattice)}
-	s := &system{c: c, lat: red.Lattice, recip: red.Reciprocal(), volume: c.Volume()}
+	lat := crystal.ReduceBasis(c.Lattice)
+	red := crystal.Crystal{Lattice: lat}
+	s := &system{c: c, lat: lat, recip: red.Reciprocal(), volume: c.Volume()}
 	n := len(c.Sites)
-	s.frac = make([]crystal.Vec3, n)
-	s.pos = make([]crystal.Vec3, n)
+	vecs := make([]crystal.Vec3, 2*n) // one allocation for both lists
+	s.frac, s.pos = vecs[:n:n], vecs[n:]
 	s.q = make([]float64, n)
 	for i, site := range c.Sites {
-		f := red.Fractional(c.Cartesian(site.Frac))
+		r := c.Cartesian(site.Frac)
+		f := crystal.Vec3{s.recip[0].Dot(r), s.recip[1].Dot(r), s.recip[2].Dot(r)}
 		for k := range f {
 			f[k] -= math.Floor(f[k])
 			if f[k] >= 1 {
@@ -225,18 +227,20 @@ func newSystem(c *crystal.Crystal, detect bool) *system {
 			}
 		}
 		s.frac[i] = f
-		s.pos[i] = red.Cartesian(f)
+		s.pos[i] = lat[0].Scale(f[0]).Add(lat[1].Scale(f[1])).Add(lat[2].Scale(f[2]))
 		s.q[i] = site.Charge
 		s.q2 += site.Charge * site.Charge
 	}
-	s.rep, s.g = make([]int, n), 1
-	for i := range s.rep {
-		s.rep[i] = i
-	}
 	if detect {
 		s.rep, s.g, s.generators = s.orbits()
+	} else {
+		s.rep, s.g = make([]int, n), 1
+		for i := range s.rep {
+			s.rep[i] = i
+		}
 	}
 	if s.g > 1 {
+		s.reps = make([]int, 0, n/s.g)
 		for i, r := range s.rep {
 			if r == i {
 				s.reps = append(s.reps, i)
@@ -323,16 +327,17 @@ func (s *system) expand(sub *system, ps partialSums) partialSums {
 	if sub == s {
 		return ps
 	}
-	index := make(map[int]int, len(sub.origin))
-	for k, o := range sub.origin {
-		index[o] = k
-	}
 	f := float64(s.g)
 	out := ps
 	out.real, out.recip, out.self, out.magnitude = f*ps.real, f*ps.recip, f*ps.self, f*ps.magnitude
+	// place[o] is the index in the primitive cell of representative o.
+	place := make([]int, len(s.q))
+	for k, o := range sub.origin {
+		place[o] = k
+	}
 	out.phi = make([]float64, len(s.q))
 	for i, r := range s.rep {
-		out.phi[i] = ps.phi[index[r]]
+		out.phi[i] = ps.phi[place[r]]
 	}
 	mapPair := func(p [2]int) [2]int {
 		if p[0] < 0 {

@@ -79,7 +79,8 @@ func PairPotentials(c *crystal.Crystal, rows []int, opt Options) (*Pairs, error)
 	}
 	out := &Pairs{Rows: append([]int(nil), rows...), Sites: n, Phi: make([]float64, len(rows)*n),
 		Alpha: alpha, RealCutoff: rc, RecipCutoff: kc}
-	im := newImageSum(s, alpha, rc)
+	imv := newImageSum(s, alpha, rc)
+	im := &imv
 	selfSum, _, _, _ := im.sum(crystal.Vec3{}, crystal.Vec3{}, true)
 	self := selfSum - 2*alpha/math.Sqrt(math.Pi)
 	for r, i := range rows {
