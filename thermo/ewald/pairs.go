@@ -66,11 +66,11 @@ func PairPotentials(c *crystal.Crystal, rows []int, opt Options) (*Pairs, error)
 		s.q[i] = 1 // unit charges: the Kolafa–Perram estimate with Q = N
 	}
 	s.q2 = float64(len(s.q))
+	p := math.Sqrt(-math.Log(math.Max(eps, FinestAccuracy) / 2))
 	alpha := opt.alpha
 	if alpha == 0 {
-		alpha = s.balancedAlpha()
+		alpha = s.chooseAlpha(p)
 	}
-	p := math.Sqrt(-math.Log(math.Max(eps, FinestAccuracy) / 2))
 	rc, kc := p/alpha, 2*alpha*p
 	n := len(s.q)
 	if w := s.work(alpha, rc, kc) * float64(len(rows)+1) / float64(n+1); w > maxTerms {
