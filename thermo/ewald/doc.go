@@ -67,7 +67,8 @@
 // found by rounding the fractional difference, with no image search; below
 // that, the images of each pair are searched in the box the cut-off
 // bounds. The splitting parameter is set from measured costs
-// (BenchmarkTermCost, see balancedAlpha). The translation search that
+// (BenchmarkTermCost, see balancedAlpha), and raised a little when that
+// brings the cut-off under half the plane spacings (chooseAlpha). The translation search that
 // finds the primitive cell scans the sites of a small cell and bisects a
 // sorted list in a large one; no hash map is built. Set-up and sums
 // allocate a few slices per call (about 40 allocations for the 8-ion rock
