@@ -1,7 +1,7 @@
 package cycle
 
 import (
-	"enthalpath/data"
+	"enthalpath/thermo/notation"
 	"errors"
 	"fmt"
 	"strings"
@@ -86,7 +86,7 @@ type ChargeError struct {
 }
 
 func (e *ChargeError) Error() string {
-	return fmt.Sprintf("%s: impossible charge balance: %s", data.ShortInput(e.Formula), e.Detail)
+	return fmt.Sprintf("%s: impossible charge balance: %s", notation.ShortInput(e.Formula), e.Detail)
 }
 
 func (e *ChargeError) Unwrap() error { return ErrChargeBalance }
@@ -104,7 +104,7 @@ type CompoundError struct {
 func (e *CompoundError) Error() string {
 	msg := e.Reason
 	if e.Formula != "" {
-		msg = fmt.Sprintf("%s: %s", data.ShortInput(e.Formula), e.Reason)
+		msg = fmt.Sprintf("%s: %s", notation.ShortInput(e.Formula), e.Reason)
 	}
 	if e.Err != nil {
 		msg += ": " + e.Err.Error()
@@ -158,7 +158,7 @@ type SettingError struct {
 
 func (e *SettingError) Error() string {
 	return fmt.Sprintf("setting %s: %s at column %d (write KEY=VALUE or KEY=VALUE±UNC, e.g. attachment-2=744±20)",
-		data.QuoteInput(e.Text), e.Reason, e.Column)
+		notation.QuoteInput(e.Text), e.Reason, e.Column)
 }
 
 func (e *SettingError) Unwrap() error { return ErrBadSetting }

@@ -1,6 +1,7 @@
 package analysis
 
 import (
+	"enthalpath/thermo/notation"
 	"errors"
 	"fmt"
 	"math"
@@ -289,7 +290,7 @@ func (a *Analyst) ionSymbol(core string, z int) string {
 	if in, err := a.db.IonByCharge(core, z); err == nil {
 		return in.Symbol
 	}
-	return core + chargeSuffix(z)
+	return core + notation.ChargeSuffix(z, false)
 }
 
 // dataIon returns the symbol of the data's monatomic ion of element el with

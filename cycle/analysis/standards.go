@@ -1,6 +1,7 @@
 package analysis
 
 import (
+	"enthalpath/thermo/notation"
 	"strings"
 
 	"enthalpath/data"
@@ -71,7 +72,7 @@ func (s dbStandards) ElementEntropy(symbol string) (data.Value, bool) {
 		return data.Value{}, false
 	}
 	v := el.StandardEntropy
-	if f, err := data.ParseFormula(strings.SplitN(el.StandardState, "(", 2)[0]); err == nil {
+	if f, err := notation.ParseFormula(strings.SplitN(el.StandardState, "(", 2)[0]); err == nil {
 		if n := f.Composition()[el.Symbol]; n > 1 {
 			v.V /= float64(n)
 			v.U /= float64(n)

@@ -1,6 +1,7 @@
 package analysis
 
 import (
+	"enthalpath/thermo/notation"
 	"fmt"
 	"math"
 
@@ -98,7 +99,7 @@ func (t Thermo) GibbsAt(temp float64) (float64, float64) {
 // elementsEntropy returns ΣS°(elements) of formula per mole (J/(mol·K)) with
 // its σ; ok false when an element lacks a standard entropy.
 func (a *Analyst) elementsEntropy(formula string) (float64, float64, bool) {
-	f, err := data.ParseFormula(formula)
+	f, err := notation.ParseFormula(formula)
 	if err != nil {
 		return 0, 0, false
 	}

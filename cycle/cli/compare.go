@@ -2,6 +2,7 @@ package cli
 
 import (
 	"encoding/csv"
+	"enthalpath/thermo/notation"
 	"errors"
 	"flag"
 	"fmt"
@@ -134,7 +135,7 @@ func runCompare(env Env, args []string) error {
 			if strings.HasPrefix(r.Err.Error(), r.Formula) { // it names the formula already
 				return &UsageError{r.Err}
 			}
-			return &UsageError{fmt.Errorf("%s: %w", data.ShortInput(r.Formula), r.Err)}
+			return &UsageError{fmt.Errorf("%s: %w", notation.ShortInput(r.Formula), r.Err)}
 		}
 	}
 	return nil
@@ -171,7 +172,7 @@ func writeCompareText(w io.Writer, rows []CompareRow, u thermoUnit, conv string)
 	if len(failed) > 0 {
 		fmt.Fprintf(w, "\n%d compound(s) whose cycle does not close:\n", len(failed))
 		for _, r := range failed {
-			fmt.Fprintf(w, "  %-10s %s\n", data.ShortInput(r.Formula), wrapText(r.Err.Error(), 100, strings.Repeat(" ", 13)))
+			fmt.Fprintf(w, "  %-10s %s\n", notation.ShortInput(r.Formula), wrapText(r.Err.Error(), 100, strings.Repeat(" ", 13)))
 		}
 	}
 }

@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"enthalpath/thermo/notation"
 	"flag"
 	"fmt"
 	"io"
@@ -10,7 +11,6 @@ import (
 	"strings"
 
 	"enthalpath/cycle"
-	"enthalpath/data"
 	"enthalpath/thermo"
 	"enthalpath/thermo/crystal"
 )
@@ -213,7 +213,7 @@ func runCycle(env Env, args []string) error {
 	case open == "" && len(pos) == 0:
 		return Usagef("no formula: usage: enthalpath %s", cycleSynopsis)
 	case len(pos) > 1:
-		return Usagef("one formula at a time (got %s); use compare for several", data.ShortInput(strings.Join(pos, " ")))
+		return Usagef("one formula at a time (got %s); use compare for several", notation.ShortInput(strings.Join(pos, " ")))
 	}
 	db, err := loadData(env)
 	if err != nil {

@@ -1,14 +1,13 @@
 package main
 
 import (
+	"enthalpath/thermo/notation"
 	"fmt"
 	"math"
 	"path/filepath"
 	"slices"
 	"strconv"
 	"strings"
-
-	"enthalpath/data"
 )
 
 // Source keys of sources.csv the generator cites.
@@ -234,7 +233,7 @@ func atctComposition(f string) (map[string]float64, int, bool) {
 
 // composition parses a formula into element counts.
 func composition(f string) (map[string]float64, int, bool) {
-	p, err := data.ParseFormula(f)
+	p, err := notation.ParseFormula(f)
 	if err != nil {
 		return nil, 0, false
 	}
