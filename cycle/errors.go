@@ -163,6 +163,39 @@ func (e *SettingError) Error() string {
 
 func (e *SettingError) Unwrap() error { return ErrBadSetting }
 
+// ValueError reports an energy typed as VALUE[±UNC][UNIT] that cannot be
+// read (see ParseQuantity); Column is the 1-based column (in characters)
+// of the fault. Part and Problem say what is wrong for a front end that
+// words it itself; Reason is the engine's own account.
+type ValueError struct {
+	Text   string
+	Column int
+	// Part is "value" or "uncertainty"; "" for the text as a whole.
+	Part    string
+	Problem ValueProblem
+	Reason  string
+}
+
+// ValueProblem is what is wrong with a typed energy.
+type ValueProblem int
+
+const (
+	// ValueNotUTF8: the text is not valid UTF-8.
+	ValueNotUTF8 ValueProblem = iota + 1
+	// ValueMissing: no number where one is needed.
+	ValueMissing
+	// ValueNotANumber: the part is no finite decimal number.
+	ValueNotANumber
+	// ValueNegative: a negative uncertainty.
+	ValueNegative
+	// ValueTooLarge: beyond ±MaxStepMagnitude kJ/mol.
+	ValueTooLarge
+)
+
+func (e *ValueError) Error() string {
+	return fmt.Sprintf("value %s: %s at column %d", notation.QuoteInput(e.Text), e.Reason, e.Column)
+}
+
 // FileError reports a fault in a cycle file, with the line and field.
 type FileError struct {
 	// Path is the file name, or "" for bytes given to Unmarshal.

@@ -357,7 +357,7 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 		}
 		kj, unc, err := m.ctx.ParseValue(text, keep)
 		if err != nil {
-			return nil, err
+			return nil, session.ValueError(text, err)
 		}
 		if err := confirm.Ask(text, m.sess.Question(m.ctx, s.Kind, text, kj)); err != nil {
 			return nil, err

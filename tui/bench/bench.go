@@ -260,7 +260,7 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 			err = m.plausible(s, kj)
 		}
 		if err != nil {
-			return nil, err
+			return nil, session.ValueError(text, err)
 		}
 		if err := confirm.Ask(text, m.sess.Question(m.ctx, s.Kind, text, kj)); err != nil {
 			return nil, err
