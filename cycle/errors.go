@@ -1,10 +1,11 @@
 package cycle
 
 import (
-	"enthalpath/thermo/notation"
 	"errors"
 	"fmt"
 	"strings"
+
+	"enthalpath/thermo/notation"
 )
 
 // Sentinel errors; the typed errors below wrap them so errors.Is works.

@@ -1,7 +1,6 @@
 package data
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"math"
 	"slices"
@@ -10,6 +9,7 @@ import (
 	"strings"
 
 	"enthalpath/thermo"
+	"enthalpath/thermo/notation"
 )
 
 // builder applies table rows to a DB under construction. With overlay set,

@@ -13,7 +13,6 @@ package data
 import (
 	"encoding/csv"
 	"encoding/json"
-	"enthalpath/thermo/notation"
 	"fmt"
 	"io"
 	"math"
@@ -27,6 +26,7 @@ import (
 
 	"enthalpath/thermo"
 	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/notation"
 )
 
 func loadTables(t *testing.T) *DB {

@@ -3,7 +3,6 @@ package data
 import (
 	"bytes"
 	"embed"
-	"enthalpath/thermo/notation"
 	"errors"
 	"fmt"
 	"io/fs"
@@ -13,6 +12,8 @@ import (
 	"strconv"
 	"strings"
 	"sync"
+
+	"enthalpath/thermo/notation"
 )
 
 //go:embed tables/*.csv

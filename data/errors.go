@@ -1,9 +1,10 @@
 package data
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"strings"
+
+	"enthalpath/thermo/notation"
 )
 
 // NotFoundError is returned by a lookup that found nothing. Suggestions holds

@@ -1,7 +1,6 @@
 package data
 
 import (
-	"enthalpath/thermo/notation"
 	"errors"
 	"fmt"
 	"math"
@@ -11,6 +10,7 @@ import (
 	"testing/fstest"
 
 	"enthalpath/thermo"
+	"enthalpath/thermo/notation"
 )
 
 func mustLoad(t testing.TB) *DB {

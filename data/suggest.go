@@ -1,9 +1,10 @@
 package data
 
 import (
-	"enthalpath/thermo/notation"
 	"sort"
 	"strings"
+
+	"enthalpath/thermo/notation"
 )
 
 // suggest returns up to n candidates closest to q by edit distance (case

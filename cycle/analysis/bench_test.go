@@ -2,12 +2,12 @@ package analysis
 
 import (
 	"bytes"
-	"enthalpath/thermo/notation"
 	"fmt"
 	"io"
 	"testing"
 
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // BenchmarkScanMgCl: one metal–non-metal scan up to charge 4 (the issue

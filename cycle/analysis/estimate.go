@@ -1,7 +1,6 @@
 package analysis
 
 import (
-	"enthalpath/thermo/notation"
 	"errors"
 	"fmt"
 	"math"
@@ -9,6 +8,7 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // DefaultModel is the lattice model of an estimate unless another is asked.

@@ -1,13 +1,13 @@
 package analysis
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"strconv"
 	"strings"
 
 	"enthalpath/cycle"
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // Radius is the radius an analysis used for one ion, with where it came from.

@@ -1,7 +1,6 @@
 package analysis
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"math"
 	"strconv"
@@ -10,6 +9,7 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/thermo"
 	"enthalpath/thermo/gibbs"
+	"enthalpath/thermo/notation"
 )
 
 // ScanOptions choose the oxidation states and the model of a scan.

@@ -1,13 +1,13 @@
 package analysis
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"math"
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
 	"enthalpath/thermo/gibbs"
+	"enthalpath/thermo/notation"
 )
 
 // StabilityOptions choose a stability analysis.

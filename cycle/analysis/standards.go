@@ -1,10 +1,10 @@
 package analysis
 
 import (
-	"enthalpath/thermo/notation"
 	"strings"
 
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // Standard is a species' measured standard data at 298.15 K and 1 bar.

@@ -1,7 +1,6 @@
 package analysis
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"math"
 
@@ -9,6 +8,7 @@ import (
 	"enthalpath/data"
 	"enthalpath/thermo"
 	"enthalpath/thermo/entropy"
+	"enthalpath/thermo/notation"
 )
 
 // Quantity is a number with its standard uncertainty and provenance.

@@ -1,7 +1,6 @@
 package cli
 
 import (
-	"enthalpath/thermo/notation"
 	"errors"
 	"flag"
 	"fmt"
@@ -14,6 +13,7 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/thermo"
 	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/notation"
 )
 
 const cycleSynopsis = `cycle FORMULA [--solve KEY] [--set KEY=VALUE[±UNC]]... [--lattice-from MODEL]

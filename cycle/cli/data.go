@@ -2,7 +2,6 @@ package cli
 
 import (
 	"cmp"
-	"enthalpath/thermo/notation"
 	"errors"
 	"fmt"
 	"io"
@@ -13,6 +12,7 @@ import (
 
 	"enthalpath/data"
 	"enthalpath/thermo"
+	"enthalpath/thermo/notation"
 )
 
 const dataSynopsis = `data QUERY [--kind element|ion|compound] [--json]

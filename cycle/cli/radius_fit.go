@@ -1,12 +1,12 @@
 package cli
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"io"
 	"strings"
 
 	"enthalpath/cycle/analysis"
+	"enthalpath/thermo/notation"
 )
 
 func runRadiusFit(env Env, a *analysis.Analyst, pos []string, ion, counterRadii, only string, u, rc float64, asJSON bool) error {

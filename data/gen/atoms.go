@@ -1,11 +1,12 @@
 package main
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"math"
 	"strconv"
 	"strings"
+
+	"enthalpath/thermo/notation"
 )
 
 // elements writes elements.csv: ΔfH°(X, g, 298.15 K) and S° of the

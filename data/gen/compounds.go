@@ -1,12 +1,13 @@
 package main
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"math"
 	"slices"
 	"strconv"
 	"strings"
+
+	"enthalpath/thermo/notation"
 )
 
 // ionDef is a row of data/tables/ions.csv (hand-kept: symbols, charges).

@@ -1,13 +1,14 @@
 package main
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"math"
 	"path/filepath"
 	"slices"
 	"strconv"
 	"strings"
+
+	"enthalpath/thermo/notation"
 )
 
 // Source keys of sources.csv the generator cites.

@@ -2,7 +2,6 @@ package cif
 
 import (
 	"bytes"
-	"enthalpath/thermo/notation"
 	"errors"
 	"fmt"
 	"io"
@@ -14,6 +13,7 @@ import (
 
 	"enthalpath/thermo/crystal"
 	"enthalpath/thermo/fileio"
+	"enthalpath/thermo/notation"
 )
 
 // Options adjust how a CIF file becomes a crystal.

@@ -1,11 +1,11 @@
 package lattice
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"math"
 
 	"enthalpath/thermo"
+	"enthalpath/thermo/notation"
 )
 
 // SI prefixes used to move between Å³, nm³ and cm³ (exact by definition).

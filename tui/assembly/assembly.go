@@ -181,6 +181,7 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		return m.accept()
 	case key.Matches(k, km.Type):
 		m.startEdit()
+		return m.sess.WarmMagnitudes(m.ctx.DB) // ready by the time the value is typed
 	case key.Matches(k, km.Unknown):
 		return m.markUnknown()
 	}

@@ -1,7 +1,6 @@
 package shelf
 
 import (
-	"enthalpath/thermo/notation"
 	"fmt"
 	"slices"
 	"strings"
@@ -12,6 +11,7 @@ import (
 	"github.com/charmbracelet/lipgloss"
 
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 	"enthalpath/tui/screen"
 )
 
