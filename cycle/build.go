@@ -65,7 +65,7 @@ func Build(db *data.DB, formula string, opt Options) (*Cycle, error) {
 	if formula == "" {
 		return nil, &CompoundError{Formula: formula, Reason: "empty formula"}
 	}
-	c := &Cycle{memo: opt.Memo, Settings: opt.Settings.clone()}
+	c := &Cycle{memo: opt.Memo, Settings: opt.Settings.clone(), db: db}
 	if c.memo == nil {
 		c.memo = NewMemo()
 	}

@@ -40,91 +40,113 @@ type PairShell struct {
 	Count    float64 // pairs per formula unit
 }
 
-// PairShells returns the pair shells of c out to cutoff Å, shortest
-// first, and for each kind the pair density beyond the cutoff: Density[k]
-// is the number of pairs of kind k per formula unit per Å³ of separation
-// space, so that a continuum tail ∫_cutoff^∞ φ(r)·Density·4πr²dr completes a
-// sum of a fast-decaying φ (the r⁻⁶ and r⁻⁸ dispersion sums). Distances
-// that agree to 1e-6 Å form one shell. Sites of zero charge are skipped.
-func (c *Crystal) PairShells(cutoff float64) (shells []PairShell, density [3]float64, err error) {
+// PairSums are the lattice sums of a structure that a pair potential
+// needs, per formula unit (each unordered pair once).
+type PairSums struct {
+	// Short are the pair shells out to the short cutoff, shortest first.
+	Short []PairShell
+	// InvPow6 and InvPow8 are Σ count/r⁶ (Å⁻⁶) and Σ count/r⁸ (Å⁻⁸) per
+	// kind over every pair out to the cutoff, completed by the continuum
+	// tail ∫_cutoff^∞ r⁻ᵖ·n·4πr²dr, n the pair density of the kind.
+	InvPow6, InvPow8 [3]float64
+}
+
+// PairSums returns the r⁻⁶ and r⁻⁸ sums of c out to cutoff Å (with their
+// tails) and the shells out to short Å. Distances that agree to 1e-6 Å
+// form one shell. Sites of zero charge are skipped.
+func (c *Crystal) PairSums(cutoff, short float64) (PairSums, error) {
+	var out PairSums
 	if err := c.Validate(); err != nil {
-		return nil, density, err
+		return out, err
 	}
-	if !(cutoff > 0) || math.IsInf(cutoff, 0) {
-		return nil, density, fmt.Errorf("crystal %q: pair cutoff %g Å must be a positive distance", c.Name, cutoff)
+	if !(cutoff > 0) || math.IsInf(cutoff, 0) || !(short >= 0) || short > cutoff {
+		return out, fmt.Errorf("crystal %q: pair cutoffs %g and %g Å must be positive, the short one not beyond the other", c.Name, cutoff, short)
 	}
 	r := c.reduced()
 	recip := r.Reciprocal()
-	// Images n with |df + n| ≤ cutoff have |df_k + n_k| ≤ cutoff·|b_k|.
 	var span [3]int
 	for k := range span {
 		span[k] = int(math.Ceil(cutoff*recip[k].Norm())) + 1
 	}
+	type site struct {
+		pos  Vec3
+		sign int
+	}
+	sites := make([]site, 0, len(r.Sites))
+	var nPos, nNeg float64
+	for _, s := range r.Sites {
+		switch {
+		case s.Charge > 0:
+			sites = append(sites, site{r.Cartesian(s.Frac), 1})
+			nPos++
+		case s.Charge < 0:
+			sites = append(sites, site{r.Cartesian(s.Frac), -1})
+			nNeg++
+		}
+	}
+	var shifts []Vec3
+	for n0 := -span[0]; n0 <= span[0]; n0++ {
+		for n1 := -span[1]; n1 <= span[1]; n1++ {
+			for n2 := -span[2]; n2 <= span[2]; n2++ {
+				shifts = append(shifts, r.Cartesian(Vec3{float64(n0), float64(n1), float64(n2)}))
+			}
+		}
+	}
 	z := float64(c.FormulaUnits)
+	w := 0.5 / z // each unordered pair is met twice in the ordered sum
+	cut2, short2 := cutoff*cutoff, short*short
+	const grain = 1e6 // shells: distances rounded to 1e-6 Å
 	type key struct {
 		kind PairKind
 		d    int64
 	}
 	acc := map[key]float64{}
-	var nPos, nNeg float64
-	for _, s := range r.Sites {
-		switch {
-		case s.Charge > 0:
-			nPos++
-		case s.Charge < 0:
-			nNeg++
-		}
-	}
-	const grain = 1e6 // distances rounded to 1e-6 Å
-	for i, si := range r.Sites {
-		if si.Charge == 0 {
-			continue
-		}
-		for j, sj := range r.Sites {
-			if sj.Charge == 0 {
-				continue
-			}
+	for _, si := range sites {
+		for _, sj := range sites {
 			kind := CationAnion
 			switch {
-			case si.Charge > 0 && sj.Charge > 0:
+			case si.sign > 0 && sj.sign > 0:
 				kind = CationCation
-			case si.Charge < 0 && sj.Charge < 0:
+			case si.sign < 0 && sj.sign < 0:
 				kind = AnionAnion
 			}
-			df := sj.Frac.Sub(si.Frac)
-			for n0 := -span[0]; n0 <= span[0]; n0++ {
-				for n1 := -span[1]; n1 <= span[1]; n1++ {
-					for n2 := -span[2]; n2 <= span[2]; n2++ {
-						if i == j && n0 == 0 && n1 == 0 && n2 == 0 {
-							continue
-						}
-						f := Vec3{df[0] + float64(n0), df[1] + float64(n1), df[2] + float64(n2)}
-						d := r.Cartesian(f).Norm()
-						if d > cutoff || d < 1e-9 {
-							continue
-						}
-						// Each unordered pair is met twice in this ordered sum.
-						acc[key{kind, int64(math.Round(d * grain))}] += 0.5 / z
-					}
+			d0 := sj.pos.Sub(si.pos)
+			var s6, s8 float64
+			for _, t := range shifts {
+				x, y, zz := d0[0]+t[0], d0[1]+t[1], d0[2]+t[2]
+				d2 := x*x + y*y + zz*zz
+				if d2 > cut2 || d2 < 1e-18 {
+					continue
+				}
+				inv2 := 1 / d2
+				inv6 := inv2 * inv2 * inv2
+				s6 += inv6
+				s8 += inv6 * inv2
+				if d2 <= short2 {
+					acc[key{kind, int64(math.Round(math.Sqrt(d2) * grain))}] += w
 				}
 			}
+			out.InvPow6[kind] += w * s6
+			out.InvPow8[kind] += w * s8
 		}
 	}
-	shells = make([]PairShell, 0, len(acc))
+	out.Short = make([]PairShell, 0, len(acc))
 	for k, n := range acc {
-		shells = append(shells, PairShell{Kind: k.kind, Distance: float64(k.d) / grain, Count: n})
+		out.Short = append(out.Short, PairShell{Kind: k.kind, Distance: float64(k.d) / grain, Count: n})
 	}
-	sort.Slice(shells, func(a, b int) bool {
-		if shells[a].Distance != shells[b].Distance {
-			return shells[a].Distance < shells[b].Distance
+	sort.Slice(out.Short, func(a, b int) bool {
+		if out.Short[a].Distance != out.Short[b].Distance {
+			return out.Short[a].Distance < out.Short[b].Distance
 		}
-		return shells[a].Kind < shells[b].Kind
+		return out.Short[a].Kind < out.Short[b].Kind
 	})
+	// Pairs per formula unit per Å³: (centres per cell)·(partners per Å³)/Z,
+	// halved for like pairs, which the sum over centres counts twice.
 	v := c.Volume()
-	// Pairs per formula unit: (centres per cell)·(partners per Å³)/Z, halved
-	// for like pairs, which the sum over centres counts twice.
-	density[CationCation] = 0.5 * nPos * nPos / v / z
-	density[CationAnion] = nPos * nNeg / v / z
-	density[AnionAnion] = 0.5 * nNeg * nNeg / v / z
-	return shells, density, nil
+	density := [3]float64{0.5 * nPos * nPos / v / z, nPos * nNeg / v / z, 0.5 * nNeg * nNeg / v / z}
+	for k := range density {
+		out.InvPow6[k] += 4 * math.Pi * density[k] / (3 * cutoff * cutoff * cutoff)
+		out.InvPow8[k] += 4 * math.Pi * density[k] / (5 * math.Pow(cutoff, 5))
+	}
+	return out, nil
 }

@@ -29,6 +29,10 @@ import (
 // cation–anion distance, and a continuum tail completes them.
 const ExtendedCutoff = 4.0
 
+// ExtendedShortReach is how far beyond the nearest distance the repulsion
+// is summed: 12ρ, where exp(−r/ρ) has fallen to 6e-6 of its contact value.
+func ExtendedShortReach(rho float64) float64 { return 12 * rho }
+
 // Repulsion describes the short-range term.
 type Repulsion struct {
 	// Rho is the range ρ in Å.
@@ -60,11 +64,9 @@ type ExtendedInput struct {
 	// D0 is the nearest cation–anion distance (Å) the Shells were taken at,
 	// and VolumePerFormulaUnit the cell volume over Z there (Å³).
 	D0, VolumePerFormulaUnit float64
-	// Shells and Density are crystal.PairShells of the structure at D0,
-	// with cutoff Cutoff (Å).
-	Shells  []crystal.PairShell
-	Density [3]float64
-	Cutoff  float64
+	// Sums are crystal.PairSums of the structure at D0; Short must reach
+	// at least ExtendedShortReach(ρ) beyond D0 for the repulsion.
+	Sums crystal.PairSums
 	// C6 and C8 are the dispersion coefficients per pair kind, kJ/mol·Å⁶
 	// and kJ/mol·Å⁸ (positive: attraction −C/r⁶ − D/r⁸).
 	C6, C8    [3]float64
@@ -167,50 +169,35 @@ func Extended(in ExtendedInput) (ExtendedResult, error) {
 	if in.Ions <= 0 {
 		return res, paramErr(fn, "Ions", float64(in.Ions), ErrNotPositive, "give the number of ions per formula unit")
 	}
-	if !(in.Cutoff > in.D0) {
-		return res, paramErr(fn, "Cutoff", in.Cutoff, ErrOutOfRange, "the pair shells must reach beyond the nearest distance")
-	}
 	c := &extendedCurve{rho: in.Repulsion.Rho, d0: in.D0, input: &in,
 		coul: -thermo.CoulombKJPerMolAngstrom * in.Madelung * float64(abs(in.ZCation)*abs(in.ZAnion)) / in.D0}
-	var s6, s8 [3]float64
-	for _, sh := range in.Shells {
-		if sh.Kind < 0 || sh.Kind > 2 || !(sh.Distance > 0) {
-			continue
-		}
-		s6[sh.Kind] += sh.Count / math.Pow(sh.Distance, 6)
-		s8[sh.Kind] += sh.Count / math.Pow(sh.Distance, 8)
-	}
 	for k := range 3 {
-		s6[k] += 4 * math.Pi * in.Density[k] / (3 * math.Pow(in.Cutoff, 3))
-		s8[k] += 4 * math.Pi * in.Density[k] / (5 * math.Pow(in.Cutoff, 5))
 		if in.C6[k] < 0 || in.C8[k] < 0 {
 			return res, paramErr(fn, "C6", math.Min(in.C6[k], in.C8[k]), ErrOutOfRange, "dispersion coefficients are positive (the term is −C/r⁶)")
 		}
-		c.w6 += in.C6[k] * s6[k]
-		c.w8 += in.C8[k] * s8[k]
+		c.w6 += in.C6[k] * in.Sums.InvPow6[k]
+		c.w8 += in.C8[k] * in.Sums.InvPow8[k]
 	}
-	// Repulsion reaches only a few ρ beyond contact: shells within 12ρ of
-	// the nearest distance carry it to better than 1e-5 relative.
-	reach := in.D0 + 12*in.Repulsion.Rho
+	reach := in.D0 + ExtendedShortReach(in.Repulsion.Rho)
 	if in.Repulsion.Fitted {
-		num := -c.coul/in.D0 - 6*c.w6/in.D0 - 8*c.w8/in.D0 // −dU/dd of the other terms at D0 (kJ/mol/Å)
+		num := (-c.coul + 6*c.w6 + 8*c.w8) / in.D0 // dU/dd of the attractive terms at D0 (kJ/mol/Å)
 		den := 0.0
-		for _, sh := range in.Shells {
+		for _, sh := range in.Sums.Short {
 			if sh.Kind == crystal.CationAnion && sh.Distance <= reach {
 				den += sh.Count * sh.Distance / (in.Repulsion.Rho * in.D0) * math.Exp(-sh.Distance/in.Repulsion.Rho)
 			}
 		}
 		if !(den > 0) || !(num > 0) {
-			return res, paramErr(fn, "Shells", float64(len(in.Shells)), ErrNoSolution, "no cation–anion pairs to carry the fitted repulsion")
+			return res, paramErr(fn, "Sums", float64(len(in.Sums.Short)), ErrNoSolution, "no cation–anion pairs to carry the fitted repulsion")
 		}
 		res.FittedPrefactor = num / den
-		for _, sh := range in.Shells {
+		for _, sh := range in.Sums.Short {
 			if sh.Kind == crystal.CationAnion && sh.Distance <= reach {
 				c.reps = append(c.reps, repShell{b: sh.Count * res.FittedPrefactor, r: sh.Distance})
 			}
 		}
 	} else {
-		for _, sh := range in.Shells {
+		for _, sh := range in.Sums.Short {
 			if b := in.Repulsion.Prefactor[sh.Kind]; b > 0 && sh.Distance <= reach {
 				c.reps = append(c.reps, repShell{b: sh.Count * b, r: sh.Distance})
 			}
@@ -219,16 +206,16 @@ func Extended(in ExtendedInput) (ExtendedResult, error) {
 			return res, paramErr(fn, "Prefactor", 0, ErrNotPositive, "give the repulsion prefactors (kJ/mol)")
 		}
 	}
-	s, err := c.minimum()
-	if err != nil {
-		return res, err
+	s := 1.0 // a fitted repulsion is least at D0 by construction
+	if !in.Repulsion.Fitted {
+		var err error
+		if s, err = c.minimum(); err != nil {
+			return res, err
+		}
 	}
 	res.ZeroPointFrom = c.zeroPointFrom()
 	res.Minimum = c.withZeroPoint(s)
 	res.AtD0 = c.withZeroPoint(1)
-	if in.Repulsion.Fitted {
-		res.Minimum = res.AtD0 // stationary at D0 by construction
-	}
 	for _, t := range []ExtendedTerms{res.Minimum, res.AtD0} {
 		if _, err := finiteResult(fn, t.Total()); err != nil {
 			return res, err

@@ -40,8 +40,9 @@ func DataMagnitudes(db *data.DB) Magnitudes {
 			out[s.Kind] = v
 		}
 	}
+	memo := cycle.NewMemo() // one memo: the models' validation is computed once
 	for _, comp := range db.Compounds() {
-		c, err := cycle.Build(db, comp.Formula, cycle.Options{})
+		c, err := cycle.Build(db, comp.Formula, cycle.Options{Memo: memo})
 		if err != nil {
 			continue
 		}
