@@ -137,7 +137,7 @@ func (e *evaluator) extended(in *ModelInputs) (float64, error) {
 		Ions: c.Cation.Count + c.Anion.Count, D0: in.D0,
 		VolumePerFormulaUnit: cell.Volume() * scale * scale * scale / float64(cell.FormulaUnits),
 		Sums:                 sums,
-		ZeroPoint: lattice.ZeroPoint{MolarMass: c.MolarMass},
+		ZeroPoint:            lattice.ZeroPoint{MolarMass: c.MolarMass},
 	}
 	cite := func(name string, v data.Value) {
 		src, _ := params.Source(v.Source)

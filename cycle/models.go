@@ -177,6 +177,23 @@ func ReferenceModel(c *Cycle, ms []ModelResult) (string, string) {
 	return "", "no model could be evaluated"
 }
 
+// ModelAuto asks for the default model of an estimate: the model c's
+// verdict would be read against (ReferenceModel).
+const ModelAuto = "auto"
+
+// DefaultModel evaluates the model an estimate of c takes its lattice step
+// from when none is asked: the one its verdict is read against, with its σ
+// from the validation. It returns the model and why it was chosen.
+func DefaultModel(c *Cycle) (ModelResult, string, error) {
+	ms := EvaluateModels(c)
+	name, why := ReferenceModel(c, ms)
+	m := findModel(ms, name)
+	if m == nil {
+		return ModelResult{}, why, &ModelError{Model: ModelAuto, Reason: "no lattice model can be evaluated for " + c.Formula}
+	}
+	return *m, why, nil
+}
+
 // calibrate sets m's uncertainty from the validation of c's data: the
 // model's RMS gap over c's family, or over the ionic family (see
 // Validation.Sigma); without it the model keeps its default.
@@ -259,9 +276,11 @@ func EvaluateModels(c *Cycle) []ModelResult {
 	return out
 }
 
-// VerdictThresholds returns the verdict's thresholds in words, marked as
-// common practice.
-func VerdictThresholds() string { return lattice.VerdictBasis }
+// VerdictThresholds says in words how the verdict's thresholds are set.
+func VerdictThresholds() string {
+	return fmt.Sprintf("thresholds %g σ and %g σ of the reference model, σ its RMS gap over the built-in %s (validation of the built-in data); without the built-in data, %s",
+		AdequateSigmas, SubstantialSigmas, IonicFamily, lattice.VerdictBasis)
+}
 
 // EvaluateModel returns one model's lattice value for c (no gap).
 func EvaluateModel(c *Cycle, name string) (ModelResult, error) {

@@ -142,17 +142,26 @@ func (v *Validation) Model(name string) *ModelValidation {
 // ionic family (0 when the model was never evaluated there), and what it
 // was computed over.
 func (v *Validation) Sigma(model, family string) (float64, string) {
-	m := v.Model(model)
-	if m == nil {
+	f := v.SigmaStats(model, family)
+	if f.N == 0 {
 		return 0, ""
 	}
+	return f.RMSPercent / 100, fmt.Sprintf("RMS gap of the %s model over %d built-in %s (mean %+.1f %%, largest %.1f %% for %s; validation of the built-in data)",
+		model, f.N, f.Family, f.MeanPercent, f.MaxPercent, f.Worst)
+}
+
+// SigmaStats returns the family statistics Sigma takes the model's σ from:
+// the family's when it has at least five compounds, else the ionic
+// family's (N = 0 when the model was evaluated for neither).
+func (v *Validation) SigmaStats(model, family string) FamilyStats {
+	m := v.Model(model)
+	if m == nil {
+		return FamilyStats{Family: family}
+	}
 	if f := m.Family(family); f.N >= minFamily {
-		return f.RMSPercent / 100, fmt.Sprintf("RMS gap of the %s model over %d built-in %s", model, f.N, family)
+		return f
 	}
-	if f := m.Family(IonicFamily); f.N > 0 {
-		return f.RMSPercent / 100, fmt.Sprintf("RMS gap of the %s model over %d built-in %s", model, f.N, IonicFamily)
-	}
-	return 0, ""
+	return m.Family(IonicFamily)
 }
 
 // Thresholds returns the verdict's thresholds for a model: 3σ and 6σ of
@@ -279,10 +288,11 @@ func (c *Cycle) Validation() *Validation {
 	if c.db == nil {
 		return nil
 	}
-	return c.Memo().validation(c.db)
+	return c.Memo().Validation(c.db)
 }
 
-func (m *Memo) validation(db *data.DB) *Validation {
+// Validation returns Validate(db, m), computed once per memo and data set.
+func (m *Memo) Validation(db *data.DB) *Validation {
 	m.vals.mu.Lock()
 	if m.vals.m == nil {
 		m.vals.m = map[*data.DB]*validationOnce{}

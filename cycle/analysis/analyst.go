@@ -2,7 +2,6 @@ package analysis
 
 import (
 	"fmt"
-	"math"
 	"sync"
 
 	"enthalpath/cycle"
@@ -15,10 +14,9 @@ type Analyst struct {
 	db   *data.DB
 	memo *cycle.Memo
 
-	mu      sync.Mutex
-	spreads map[string]spreadEntry
-	built   map[string]builtEntry
-	radii   map[string]radiusEntry
+	mu    sync.Mutex
+	built map[string]builtEntry
+	radii map[string]radiusEntry
 }
 
 type radiusEntry struct {
@@ -78,14 +76,9 @@ func (a *Analyst) build(formula, cation, anion string) (*cycle.Cycle, error) {
 	return e.c.Clone(), nil
 }
 
-type spreadEntry struct {
-	s   Spread
-	err error
-}
-
 // New returns an Analyst over db (which it only reads).
 func New(db *data.DB) *Analyst {
-	return &Analyst{db: db, memo: cycle.NewMemo(), spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[string]radiusEntry{}}
+	return &Analyst{db: db, memo: cycle.NewMemo(), built: map[string]builtEntry{}, radii: map[string]radiusEntry{}}
 }
 
 // DB returns the data the Analyst reads.
@@ -94,20 +87,16 @@ func (a *Analyst) DB() *data.DB { return a.db }
 // Memo returns the Madelung memo the Analyst's cycles share.
 func (a *Analyst) Memo() *cycle.Memo { return a.memo }
 
-// SpreadFamilies are the compound families over which Spread measures a
-// model against the cycle: the salts for which the ionic models were made.
-func SpreadFamilies() []string { return []string{"alkali halide", "alkaline-earth halide"} }
-
 // Spread is how far one lattice model strays from the Born–Haber cycle over
-// the built-in alkali and alkaline-earth halides: the basis of the model
-// uncertainty of an estimate.
+// one family of the built-in compounds (cycle.Validation): the basis of the
+// model uncertainty of an estimate.
 type Spread struct {
 	// Model is the model name (cycle.ModelNames).
 	Model string
-	// Compounds is how many salts entered; Skipped lists those the model or
-	// the cycle could not evaluate, with the reason.
+	// Family is the validation family the spread is over and Compounds how
+	// many of its compounds entered.
+	Family    string
 	Compounds int
-	Skipped   []string
 	// MeanPercent is the mean of 100·(cycle − model)/|model| (negative when
 	// the cycle binds more), RMSPercent its root mean square and
 	// MaxPercent the largest |gap| %, reached for Worst.
@@ -120,66 +109,36 @@ func (s Spread) Relative() float64 { return s.RMSPercent / 100 }
 
 // Basis describes the spread in words, for output.
 func (s Spread) Basis() string {
-	return fmt.Sprintf("%s model σ = %.1f %% of its value: RMS gap to the cycle over %d built-in alkali and alkaline-earth halides (mean %+.1f %%, largest %.1f %% for %s), computed from the data",
-		s.Model, s.RMSPercent, s.Compounds, s.MeanPercent, s.MaxPercent, s.Worst)
+	return fmt.Sprintf("%s model σ = %.1f %% of its value: RMS gap to the cycle over %d built-in %s (mean %+.1f %%, largest %.1f %% for %s; validation of the built-in data)",
+		s.Model, s.RMSPercent, s.Compounds, s.Family, s.MeanPercent, s.MaxPercent, s.Worst)
 }
 
-// ModelSpread computes (once per Analyst and model, then remembers) the
-// Spread of model with the same options an estimate uses by default.
-func (a *Analyst) ModelSpread(model string) (Spread, error) {
-	a.mu.Lock()
-	e, ok := a.spreads[model]
-	a.mu.Unlock()
-	if ok {
-		return e.s, e.err
+// spreadOf returns the spread model's σ for c is taken from: its
+// validation over c's family, or over the ionic family (cycle.Validation.SigmaStats).
+func spreadOf(c *cycle.Cycle, model string) Spread {
+	v := c.Validation()
+	if v == nil {
+		return Spread{Model: model}
 	}
-	s, err := a.computeSpread(model)
-	a.mu.Lock()
-	a.spreads[model] = spreadEntry{s, err}
-	a.mu.Unlock()
-	return s, err
+	return spreadFrom(v.SigmaStats(model, cycle.ValidationFamily(c)), model)
 }
 
-func (a *Analyst) computeSpread(model string) (Spread, error) {
+func spreadFrom(f cycle.FamilyStats, model string) Spread {
+	return Spread{Model: model, Family: f.Family, Compounds: f.N, MeanPercent: f.MeanPercent, RMSPercent: f.RMSPercent,
+		MaxPercent: f.MaxPercent, Worst: f.Worst}
+}
+
+// ModelSpread returns the model's spread over the ionic family (the alkali
+// halides) from the validation of the Analyst's data.
+func (a *Analyst) ModelSpread(model string) (Spread, error) {
 	if _, err := cycle.ParseModel(model); err != nil {
 		return Spread{}, err
 	}
-	s := Spread{Model: model}
-	var sum, sumSq float64
-	for comp := range a.db.CompoundsIn(SpreadFamilies()...) {
-		if !comp.Formation.Known() {
-			continue
-		}
-		c, err := cycle.Build(a.db, comp.Formula, cycle.Options{Memo: a.memo})
-		if err != nil {
-			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
-			continue
-		}
-		// c is this loop's own: close its lattice step in place (no copy).
-		cyc, _, err := closeLattice(c)
-		if err != nil {
-			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
-			continue
-		}
-		m, err := cycle.EvaluateModel(c, model)
-		if err != nil {
-			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
-			continue
-		}
-		g := 100 * (cyc - m.Value) / math.Abs(m.Value)
-		sum += g
-		sumSq += g * g
-		s.Compounds++
-		if math.Abs(g) > s.MaxPercent {
-			s.MaxPercent, s.Worst = math.Abs(g), comp.Formula
-		}
-	}
+	v := a.memo.Validation(a.db)
+	s := spreadFrom(v.SigmaStats(model, cycle.IonicFamily), model)
 	if s.Compounds < 3 {
-		return s, &InputError{Subject: model, Reason: fmt.Sprintf("only %d built-in halides can be evaluated with this model, too few to measure its spread", s.Compounds)}
+		return s, &InputError{Subject: model, Reason: fmt.Sprintf("only %d built-in %s can be evaluated with this model, too few to measure its spread", s.Compounds, cycle.IonicFamily)}
 	}
-	n := float64(s.Compounds)
-	s.MeanPercent = sum / n
-	s.RMSPercent = math.Sqrt(sumSq / n)
 	return s, nil
 }
 

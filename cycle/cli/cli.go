@@ -58,6 +58,7 @@ func commands() []command {
 		{"solution", "enthalpy of solution cycle", runSolution},
 		{"radius", "thermochemical radius derived from a cycle lattice energy", runRadius},
 		{"batch", "solve many formulas from a CSV file", runBatch},
+		{"trust", "how far each lattice model can be trusted: its gaps to the cycles of the built-in compounds, by family", runTrust},
 	}
 }
 

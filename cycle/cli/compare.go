@@ -27,6 +27,8 @@ type CompareRow struct {
 	// convention (NaN when absent).
 	Handbook float64
 	Models   []cycle.ModelResult
+	// Reference is the model the verdict is read against (cycle.Result).
+	Reference string
 	// Err is why the cycle could not be solved (the row has no numbers).
 	Err error
 }
@@ -63,7 +65,7 @@ func compareRows(db *data.DB, formulas []string, mf *modelFlags, set map[string]
 			rows = append(rows, row)
 			continue
 		}
-		row.Lattice, row.Uncertainty, row.Models = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models
+		row.Lattice, row.Uncertainty, row.Models, row.Reference = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models, r.Reference
 		if r.Handbook != nil {
 			row.Handbook = r.Handbook.Value
 		}
@@ -147,7 +149,7 @@ func writeCompareText(w io.Writer, rows []CompareRow, u thermoUnit, conv string)
 	for _, m := range cycle.ModelNames() {
 		head = append(head, m)
 	}
-	head = append(head, "verdict (ewald, else born-mayer)")
+	head = append(head, "verdict (read against)")
 	t := table{head: head, right: map[int]bool{2: true, 3: true, 4: true, 5: true, 6: true, 7: true}}
 	var failed []CompareRow
 	for _, r := range rows {
@@ -159,7 +161,7 @@ func writeCompareText(w io.Writer, rows []CompareRow, u thermoUnit, conv string)
 		for _, name := range cycle.ModelNames() {
 			cells = append(cells, modelCell(r.Models, name))
 		}
-		cells = append(cells, headlineVerdict(r.Models))
+		cells = append(cells, headlineVerdict(r))
 		t.add(cells...)
 	}
 	fmt.Fprintf(w, "cycle lattice step (%s, %s) against the ionic models: each model column is the gap cycle − model in percent of |model|\n\n", conv, u)
@@ -185,14 +187,11 @@ func modelCell(ms []cycle.ModelResult, name string) string {
 	return "—"
 }
 
-// headlineVerdict is the verdict of the structure-specific model, or of
-// Born–Mayer when there is no structure.
-func headlineVerdict(ms []cycle.ModelResult) string {
-	for _, name := range []string{cycle.ModelEwald, cycle.ModelBornMayer, cycle.ModelKapustinskii} {
-		for _, m := range ms {
-			if m.Model == name && m.Err == nil {
-				return m.Verdict.Character.String() + " (" + name + ")"
-			}
+// headlineVerdict is the verdict of the row's reference model.
+func headlineVerdict(r CompareRow) string {
+	for _, m := range r.Models {
+		if m.Model == r.Reference && m.Err == nil {
+			return m.Verdict.Character.String() + " (" + m.Model + ")"
 		}
 	}
 	return "no model available"
