@@ -3,6 +3,7 @@ package cycle
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strings"
 
 	"enthalpath/data"
@@ -75,6 +76,57 @@ type Term struct {
 	Value float64
 }
 
+// structureSums are a structure's pair sums with the compound's ions, at
+// the cell's own size.
+type structureSums struct {
+	sums        crystal.PairSums
+	dCell       float64 // nearest cation–anion distance, Å
+	volumePerFU float64 // Å³
+}
+
+// pairSums returns the pair sums of st out to lattice.ExtendedCutoff times
+// the nearest distance, and the shells out to 6 Å beyond it (the repulsion
+// needs those within 12ρ of contact: ρ up to 0.5 Å, beyond every tabulated
+// range), remembered per structure and charges.
+func (m *Memo) pairSums(st Structure, cation, anion Part) (structureSums, error) {
+	key := memoKey(st, cation, anion, 0)
+	m.mu.Lock()
+	e, ok := m.sums[key]
+	m.mu.Unlock()
+	if ok {
+		return e.v, e.err
+	}
+	v, err := computePairSums(st, cation, anion)
+	m.mu.Lock()
+	if m.sums == nil || len(m.sums) >= maxMemo {
+		m.sums = map[string]sumsEntry{}
+	}
+	m.sums[key] = sumsEntry{v, err}
+	m.mu.Unlock()
+	return v, err
+}
+
+type sumsEntry struct {
+	v   structureSums
+	err error
+}
+
+func computePairSums(st Structure, cation, anion Part) (structureSums, error) {
+	cell, err := buildCell(st, cation, anion)
+	if err != nil {
+		return structureSums{}, err
+	}
+	d, _, _ := cell.NearestCationAnion()
+	if !(d > 0) {
+		return structureSums{}, &ModelError{Model: ModelExtended, Reason: "the structure has no cation–anion pair"}
+	}
+	sums, err := cell.PairSums(lattice.ExtendedCutoff*d, min(lattice.ExtendedCutoff*d, d+lattice.ExtendedShortReach(0.5)))
+	if err != nil {
+		return structureSums{}, &ModelError{Model: ModelExtended, Reason: "cannot sum the pairs of the structure", Err: err}
+	}
+	return structureSums{sums: sums, dCell: d, volumePerFU: cell.Volume() / float64(cell.FormulaUnits)}, nil
+}
+
 // extended evaluates the extended model into in (see ModelExtended).
 func (e *evaluator) extended(in *ModelInputs) (float64, error) {
 	c := e.c
@@ -103,27 +155,14 @@ func (e *evaluator) extended(in *ModelInputs) (float64, error) {
 		}
 		st = Structure{Prototype: p}
 	}
-	cell, err := buildCell(st, c.Cation, c.Anion)
+	ps, err := c.Memo().pairSums(st, c.Cation, c.Anion)
 	if err != nil {
 		return 0, err
 	}
-	dCell, _, _ := cell.NearestCationAnion()
-	if !(dCell > 0) {
-		return fail("the structure has no cation–anion pair", nil)
-	}
 	// Lattice sums of the cell, scaled to the reference distance in.D0.
-	scale := in.D0 / dCell
-	rho := c.Settings.Rho
-	if rho == 0 {
-		rho = lattice.DefaultRho
-	}
-	if salt, ok := params.Salt(c.Formula); ok && salt.Rho.Known() {
-		rho = max(rho, salt.Rho.V)
-	}
-	sums, err := cell.PairSums(lattice.ExtendedCutoff*dCell, dCell+lattice.ExtendedShortReach(rho)/scale)
-	if err != nil {
-		return fail("cannot sum the pairs of the structure", err)
-	}
+	scale := in.D0 / ps.dCell
+	sums := ps.sums
+	sums.Short = slices.Clone(sums.Short)
 	for i := range sums.Short {
 		sums.Short[i].Distance *= scale
 	}
@@ -135,7 +174,7 @@ func (e *evaluator) extended(in *ModelInputs) (float64, error) {
 	input := lattice.ExtendedInput{
 		Madelung: in.Madelung, ZCation: c.Cation.Ion.Charge, ZAnion: c.Anion.Ion.Charge,
 		Ions: c.Cation.Count + c.Anion.Count, D0: in.D0,
-		VolumePerFormulaUnit: cell.Volume() * scale * scale * scale / float64(cell.FormulaUnits),
+		VolumePerFormulaUnit: ps.volumePerFU * scale * scale * scale,
 		Sums:                 sums,
 		ZeroPoint:            lattice.ZeroPoint{MolarMass: c.MolarMass},
 	}

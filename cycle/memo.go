@@ -40,6 +40,8 @@ type MadelungValue struct {
 type Memo struct {
 	mu sync.Mutex
 	m  map[string]memoEntry
+	// sums holds the extended model's pair sums per structure (extended.go).
+	sums map[string]sumsEntry
 	// vals holds the models' validation per data set (validation.go).
 	vals validations
 }

@@ -27,7 +27,7 @@ import (
 
 // Dispersion sums run over pairs out to ExtendedCutoff times the nearest
 // cation–anion distance, and a continuum tail completes them.
-const ExtendedCutoff = 4.0
+const ExtendedCutoff = 6.0
 
 // ExtendedShortReach is how far beyond the nearest distance the repulsion
 // is summed: 12ρ, where exp(−r/ρ) has fallen to 6e-6 of its contact value.
