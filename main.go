@@ -16,6 +16,7 @@ package main
 import (
 	"fmt"
 	"os"
+	"strings"
 
 	"enthalpath/cycle/cli"
 )
@@ -26,10 +27,12 @@ func main() {
 
 func run(args []string) int {
 	env := cli.Env{Stdout: os.Stdout, Stderr: os.Stderr, Stdin: os.Stdin}
-	for len(args) >= 2 && (args[0] == "--data" || args[0] == "-data") {
-		env.DataFile = args[1]
-		args = args[2:]
+	args, file, err := dataFlag(args)
+	if err != nil {
+		fmt.Fprintf(os.Stderr, "enthalpath: %v\n", err)
+		return cli.ExitUsage
 	}
+	env.DataFile = file
 	if len(args) == 0 {
 		return runWorkshop(env, nil)
 	}
@@ -48,6 +51,28 @@ func run(args []string) int {
 		usage(os.Stderr)
 		return cli.ExitUsage
 	}
+}
+
+// dataFlag takes the --data FILE (or --data=FILE) options before the
+// command off args: the last one given wins.
+func dataFlag(args []string) (rest []string, file string, err error) {
+	for len(args) > 0 {
+		name, value, hasValue := strings.Cut(args[0], "=")
+		if name != "--data" && name != "-data" {
+			break
+		}
+		if !hasValue {
+			if len(args) < 2 || args[1] == "" {
+				return nil, "", fmt.Errorf("%s needs a file name: enthalpath --data FILE [COMMAND]", name)
+			}
+			value, args = args[1], args[1:]
+		}
+		if value == "" {
+			return nil, "", fmt.Errorf("%s needs a file name: enthalpath --data FILE [COMMAND]", name)
+		}
+		file, args = value, args[1:]
+	}
+	return args, file, nil
 }
 
 func usage(w *os.File) {

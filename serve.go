@@ -156,6 +156,13 @@ func runServe(env cli.Env, args []string) int {
 	}
 	cfg.ShutdownMsg = func(reason string) tea.Msg { return tui.ShutdownMsg{Reason: reason} }
 	cfg.NoticeMsg = func(text string) tea.Msg { return screen.StatusMsg{Text: text, Err: true} }
+	if cfg.AuthorizedKeysPath != "" {
+		// Checked before anything is created in the state folder.
+		if _, err := os.Stat(cfg.AuthorizedKeysPath); err != nil {
+			fmt.Fprintf(env.Stderr, "enthalpath serve: --authorized-keys %s: %v\n", cfg.AuthorizedKeysPath, err)
+			return cli.ExitUsage
+		}
+	}
 	if err := os.MkdirAll(cfg.StateDir, 0o700); err != nil {
 		fmt.Fprintf(env.Stderr, "enthalpath serve: --state-dir %s: %v\n", cfg.StateDir, err)
 		return cli.ExitUsage

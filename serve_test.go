@@ -74,6 +74,25 @@ func TestServeUsage(t *testing.T) {
 	}
 }
 
+// TestServeMissingKeysCreatesNothing: serve with an authorized-keys file
+// that is not there fails before it creates a host key (it once left a new
+// key behind).
+func TestServeMissingKeysCreatesNothing(t *testing.T) {
+	state := filepath.Join(t.TempDir(), "state")
+	var stderr lockedBuffer
+	code := runServe(cli.Env{Stdout: io.Discard, Stderr: &stderr},
+		[]string{"--state-dir", state, "--authorized-keys", filepath.Join(state, "absent.keys")})
+	if code != cli.ExitUsage {
+		t.Errorf("exit %d, want %d: %s", code, cli.ExitUsage, stderr.String())
+	}
+	if _, err := os.Stat(filepath.Join(state, "host_ed25519")); err == nil {
+		t.Error("a host key was created")
+	}
+	if _, err := os.Stat(state); err == nil {
+		t.Error("the state folder was created")
+	}
+}
+
 func TestServeDefaults(t *testing.T) {
 	f, err := parseServeFlags([]string{"--state-dir", "/srv/ep"}, io.Discard)
 	if err != nil {

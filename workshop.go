@@ -1,7 +1,6 @@
 package main
 
 import (
-	"errors"
 	"fmt"
 	"os"
 	"os/signal"
@@ -9,6 +8,7 @@ import (
 	"syscall"
 
 	tea "github.com/charmbracelet/bubbletea"
+	"github.com/mattn/go-isatty"
 
 	"enthalpath/cycle"
 	"enthalpath/cycle/cli"
@@ -27,6 +27,11 @@ func runWorkshop(env cli.Env, args []string) int {
 		if len(args) == 1 {
 			return cli.ExitOK
 		}
+		return cli.ExitUsage
+	}
+	if !isTerminal(env.Stdin) || !isTerminal(env.Stdout) {
+		fmt.Fprintln(env.Stderr, "enthalpath: the workshop needs a terminal, and standard input or output is not one;"+
+			" run it in a terminal, or use a command such as enthalpath cycle FORMULA (enthalpath help lists them)")
 		return cli.ExitUsage
 	}
 	db, code := loadUserData(env, "enthalpath")
@@ -55,8 +60,12 @@ func runWorkshop(env cli.Env, args []string) int {
 	_, err := p.Run()
 	root, _ := model.(*tui.Model)
 	if err != nil {
-		if root != nil && errors.Is(err, tea.ErrProgramPanic) {
-			if path, werr := root.WriteRecovery(); werr == nil && path != "" {
+		// A failure, or a terminal gone from under the program: whatever
+		// it was, unsaved work goes to a recovery file of its own.
+		if root != nil {
+			if path, werr := root.WriteRecovery(); werr != nil {
+				fmt.Fprintf(env.Stderr, "enthalpath: could not keep the unsaved work: %v\n", werr)
+			} else if path != "" {
 				fmt.Fprintf(env.Stderr, "enthalpath: unsaved work kept in %s\n", path)
 			}
 		}
@@ -69,6 +78,12 @@ func runWorkshop(env cli.Env, args []string) int {
 		}
 	}
 	return cli.ExitOK
+}
+
+// isTerminal reports whether a stream is a terminal.
+func isTerminal(stream any) bool {
+	f, ok := stream.(*os.File)
+	return ok && (isatty.IsTerminal(f.Fd()) || isatty.IsCygwinTerminal(f.Fd()))
 }
 
 // recoveryPath is $XDG_STATE_HOME/enthalpath/recovery.hesscycle, or under

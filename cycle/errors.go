@@ -102,7 +102,10 @@ type CompoundError struct {
 }
 
 func (e *CompoundError) Error() string {
-	msg := fmt.Sprintf("%s: %s", data.ShortInput(e.Formula), e.Reason)
+	msg := e.Reason
+	if e.Formula != "" {
+		msg = fmt.Sprintf("%s: %s", data.ShortInput(e.Formula), e.Reason)
+	}
 	if e.Err != nil {
 		msg += ": " + e.Err.Error()
 	}

@@ -6,8 +6,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
-	"path/filepath"
 	"regexp"
 	"slices"
 	"strconv"
@@ -18,6 +16,7 @@ import (
 	"enthalpath/data"
 	"enthalpath/thermo"
 	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/fileio"
 )
 
 // FileFormat is the name written in every cycle file, FileVersion its
@@ -497,62 +496,35 @@ func keyOfLine(t string) string {
 	return strings.Trim(strings.TrimSpace(k), `"`)
 }
 
-// Save writes c to path atomically: a temporary file in the same folder,
-// synced, then renamed over path, so a crash never leaves a truncated file.
+// Save writes c to path atomically (fileio.WriteAtomic): a synced
+// temporary file in the same folder renamed over path, so a crash never
+// leaves a truncated file. A file replaced keeps its permission bits; a new
+// one is 0644. Anything at path that is not a regular file (a symbolic
+// link, a device, a folder) is refused and left alone.
 func Save(path string, c *Cycle) error {
 	b, err := Marshal(c)
 	if err != nil {
 		return err
 	}
-	return WriteFileAtomic(path, b)
+	return fileio.WriteAtomic(path, 0o644, func(w io.Writer) error {
+		_, err := w.Write(b)
+		return err
+	})
 }
 
-// WriteFileAtomic writes b to path through a synced temporary file in the
-// same folder and a rename.
-func WriteFileAtomic(path string, b []byte) (err error) {
-	dir := filepath.Dir(path)
-	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp-*")
-	if err != nil {
-		return fmt.Errorf("saving %s: %w", path, err)
-	}
-	defer func() {
-		if err != nil {
-			tmp.Close()
-			os.Remove(tmp.Name())
-		}
-	}()
-	if _, err = tmp.Write(b); err != nil {
-		return fmt.Errorf("saving %s: %w", path, err)
-	}
-	if err = tmp.Sync(); err != nil {
-		return fmt.Errorf("saving %s: %w", path, err)
-	}
-	if err = tmp.Close(); err != nil {
-		return fmt.Errorf("saving %s: %w", path, err)
-	}
-	if err = os.Chmod(tmp.Name(), 0o644); err != nil {
-		return fmt.Errorf("saving %s: %w", path, err)
-	}
-	if err = os.Rename(tmp.Name(), path); err != nil {
-		return fmt.Errorf("saving %s: %w", path, err)
-	}
-	if d, derr := os.Open(dir); derr == nil {
-		d.Sync()
-		d.Close()
-	}
-	return nil
-}
-
-// Open reads the cycle file at path (see Unmarshal).
+// Open reads the cycle file at path (see Unmarshal). It reads regular files
+// only, and at most MaxFileSize bytes of them.
 func Open(db *data.DB, path string) (*Cycle, error) {
-	f, err := os.Open(path)
-	if err != nil {
+	b, err := fileio.ReadFile(path, MaxFileSize)
+	var tooLarge *fileio.TooLargeError
+	var notRegular *fileio.NotRegularError
+	switch {
+	case errors.As(err, &tooLarge):
+		return nil, &FileError{Path: path, Reason: fmt.Sprintf("the file is larger than the %s a cycle file may have", fileio.Size(MaxFileSize))}
+	case errors.As(err, &notRegular):
+		return nil, &FileError{Path: path, Reason: "cannot open: it is " + notRegular.Kind + ", not a regular file"}
+	case err != nil:
 		return nil, &FileError{Path: path, Reason: "cannot open", Err: err}
 	}
-	defer f.Close()
-	var buf bytes.Buffer
-	if _, err := buf.ReadFrom(io.LimitReader(f, MaxFileSize+1)); err != nil {
-		return nil, &FileError{Path: path, Reason: "cannot read", Err: err}
-	}
-	return unmarshal(db, buf.Bytes(), path)
+	return unmarshal(db, b, path)
 }

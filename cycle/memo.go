@@ -30,6 +30,9 @@ type MadelungValue struct {
 	// Cell volume in Å³ and formula units per cell.
 	Volume       float64
 	FormulaUnits int
+	// SitePotentials are the Madelung potentials in volt at the cell's
+	// sites, in their order (see ewald.Result).
+	SitePotentials []float64
 }
 
 // Memo remembers Ewald sums keyed by everything they depend on (structure,
@@ -89,6 +92,19 @@ func (m *Memo) Madelung(st Structure, cation, anion Part, accuracy float64) (Mad
 	return v, err
 }
 
+// Remembered returns the sum Madelung would return if it has been
+// computed already, without computing it (for a screen that must not wait).
+func (m *Memo) Remembered(st Structure, cation, anion Part, accuracy float64) (MadelungValue, bool) {
+	if accuracy == 0 {
+		accuracy = DefaultAccuracy
+	}
+	key := memoKey(st, cation, anion, accuracy)
+	m.mu.Lock()
+	e, ok := m.m[key]
+	m.mu.Unlock()
+	return e.v, ok && e.err == nil
+}
+
 func memoKey(st Structure, cation, anion Part, accuracy float64) string {
 	b := make([]byte, 0, 64)
 	b = strconv.AppendInt(b, int64(cation.Ion.Charge), 10)
@@ -133,7 +149,7 @@ func sumStructure(st Structure, cation, anion Part, accuracy float64) (MadelungV
 		return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: fmt.Sprintf("the structure gives A = %g, not a binding arrangement", r.MadelungConstant)}
 	}
 	return MadelungValue{A: r.MadelungConstant, NearestDistance: r.NearestDistance, EnergyKJPerMol: r.EnergyKJPerMol,
-		Volume: cell.Volume(), FormulaUnits: cell.FormulaUnits}, nil
+		Volume: cell.Volume(), FormulaUnits: cell.FormulaUnits, SitePotentials: r.SitePotentials}, nil
 }
 
 // buildCell returns the cell of st with the compound's ions on the

@@ -25,6 +25,21 @@ func checkMagnitude(what string, kj float64) string {
 	return fmt.Sprintf("%s, %.4g kJ/mol, is beyond the accepted ±%g kJ/mol", what, kj, float64(MaxStepMagnitude))
 }
 
+// checkTyped is checkMagnitude for a number typed in unit u: the message
+// quotes it as typed, since its conversion may not be finite (1e307 eV is
+// beyond any float in kJ/mol).
+func checkTyped(what string, typed float64, u thermo.Unit) string {
+	kj := thermo.ToKJPerMol(typed, u)
+	if math.Abs(kj) <= MaxStepMagnitude {
+		return ""
+	}
+	if u == thermo.KJPerMol {
+		return checkMagnitude(what, kj)
+	}
+	return fmt.Sprintf("%s, %.4g %s, is beyond the accepted ±%g kJ/mol (±%.4g %s)", what, typed, u,
+		float64(MaxStepMagnitude), thermo.FromKJPerMol(MaxStepMagnitude, u), u)
+}
+
 // Setting is one KEY=VALUE[±UNC] entry, as given to --set.
 type Setting struct {
 	// Key is the step key.
@@ -93,7 +108,7 @@ func ParseSetting(text string, def thermo.Unit) (Setting, error) {
 		return bad(col0+leading(rest), "value "+strconv.Quote(valText)+" is not a number")
 	}
 	s := Setting{Key: key, Value: thermo.ToKJPerMol(v, unit)}
-	if why := checkMagnitude("the value of step "+key, s.Value); why != "" {
+	if why := checkTyped("the value of step "+key, v, unit); why != "" {
 		return bad(col0+leading(rest), why)
 	}
 	if hasUnc {
@@ -115,7 +130,7 @@ func ParseSetting(text string, def thermo.Unit) (Setting, error) {
 			return bad(uc, "uncertainty must not be negative")
 		}
 		s.Uncertainty, s.HasUncertainty = math.Abs(thermo.ToKJPerMol(u, unit)), true
-		if why := checkMagnitude("the uncertainty of step "+key, s.Uncertainty); why != "" {
+		if why := checkTyped("the uncertainty of step "+key, u, unit); why != "" {
 			return bad(uc, why)
 		}
 	}

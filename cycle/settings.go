@@ -182,6 +182,9 @@ type Structure struct {
 	// Prototype. The caller parses the file (see thermo/cif) so this package
 	// reads no files. Nil for a prototype.
 	Cell *crystal.Crystal
+	// BondValenceSums are the bond-valence sums of Cell's sites (from
+	// StructureFile), or nil.
+	BondValenceSums []float64
 	// FromData marks the compound's own structure from the data.
 	FromData bool
 }

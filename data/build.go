@@ -47,6 +47,10 @@ func (b *builder) apply(table string, r record) error {
 		return b.compound(r)
 	case "solution_enthalpies.csv":
 		return b.solutionEnthalpy(r)
+	case "species.csv":
+		return b.species(r)
+	case "alternatives.csv":
+		return b.alternative(r)
 	}
 	return fmt.Errorf("unknown table %q", table)
 }
@@ -69,7 +73,7 @@ func (b *builder) value(r record, field, uncField, srcField, memName, unit strin
 	if err != nil || !ok {
 		return Value{}, false, err
 	}
-	v = Value{V: x, Unit: unit, Note: r.str("note")}
+	v = Value{V: x, Unit: unit, Note: r.str("note"), Locator: r.str("locator")}
 	if uncField != "" {
 		u, ok, err := r.float(uncField)
 		if err != nil {
@@ -185,6 +189,14 @@ func (b *builder) element(r record) error {
 		b.set(&e.Atomization, v)
 	} else if !exists && !b.overlay {
 		return r.errorf("atomization_kj_per_mol", "missing value")
+	}
+	s, ok, err := b.value(r, "standard_entropy_j_per_mol_k", "", "entropy_source", "entropy", "J/(mol·K)")
+	if err != nil {
+		return err
+	}
+	if ok {
+		s.Locator = r.str("entropy_locator")
+		b.set(&e.StandardEntropy, s)
 	}
 	return nil
 }
@@ -576,7 +588,8 @@ func (b *builder) compound(r record) error {
 		i = len(b.db.compounds) - 1
 	}
 	c := &b.db.compounds[i]
-	for field, dst := range map[string]*string{"name": &c.Name, "family": &c.Family, "structure": &c.Structure, "note": &c.Note} {
+	for field, dst := range map[string]*string{"name": &c.Name, "family": &c.Family, "structure": &c.Structure, "note": &c.Note,
+		"state": &c.State, "polymorph": &c.Polymorph} {
 		if r.has(field) {
 			*dst = r.str(field)
 		}
@@ -600,8 +613,8 @@ func (b *builder) compound(r record) error {
 			if *side.dstCount, err = r.requiredInt(side.count); err != nil {
 				return err
 			}
-			if *side.dstCount < 1 {
-				return r.errorf(side.count, "count %d must be at least 1", *side.dstCount)
+			if *side.dstCount < 1 || *side.dstCount > maxCount {
+				return r.errorf(side.count, "count %d must be between 1 and %d, as in a formula", *side.dstCount, maxCount)
 			}
 		}
 	}
@@ -609,6 +622,27 @@ func (b *builder) compound(r record) error {
 		return err
 	} else if ok {
 		b.set(&c.Formation, v)
+	}
+	if c.State != "" && !contains(compoundStates, c.State) {
+		return r.errorf("state", "%q is not one of %s", c.State, strings.Join(compoundStates, ", "))
+	}
+	if r.has("molecular") {
+		if c.Molecular, err = r.flag("molecular"); err != nil {
+			return err
+		}
+	}
+	if v, ok, err := b.value(r, "gibbs_kj_per_mol", "", "formation_source", "gibbs", "kJ/mol"); err != nil {
+		return err
+	} else if ok {
+		b.set(&c.GibbsFormation, v)
+	}
+	if v, ok, err := b.value(r, "entropy_j_per_mol_k", "", "formation_source", "entropy", "J/(mol·K)"); err != nil {
+		return err
+	} else if ok {
+		if v.V < 0 {
+			return r.errorf("entropy_j_per_mol_k", "entropy %g of a pure substance is negative", v.V)
+		}
+		b.set(&c.Entropy, v)
 	}
 	if v, ok, err := b.value(r, "density_g_cm3", "", "density_source", "density", "g/cm3"); err != nil {
 		return err
@@ -703,6 +737,115 @@ func (b *builder) solutionEnthalpy(r record) error {
 	b.db.solutions[formula] = old
 	return nil
 }
+
+// species reads one row of species.csv: a substance with its state in the
+// formula ("CO2(g)").
+func (b *builder) species(r record) error {
+	formula, err := r.requiredStr("formula")
+	if err != nil {
+		return err
+	}
+	if _, _, ok := splitState(formula); !ok {
+		return r.errorf("formula", "%q: write the state in parentheses after the formula, as CO2(g), H2O(l) or NaCl(cr)", formula)
+	}
+	sp, exists := b.db.species[formula]
+	if exists && !b.overlay {
+		return r.errorf("formula", "species %s listed twice", formula)
+	}
+	sp.Formula = formula
+	if r.has("name") {
+		sp.Name = r.str("name")
+	}
+	v, ok, err := b.value(r, "formation_kj_per_mol", "formation_uncertainty", "source", "formation", "kJ/mol")
+	if err != nil {
+		return err
+	}
+	if ok {
+		b.set(&sp.Formation, v)
+	} else if !exists {
+		return r.errorf("formation_kj_per_mol", "missing value")
+	}
+	if v, ok, err := b.value(r, "gibbs_kj_per_mol", "", "source", "gibbs", "kJ/mol"); err != nil {
+		return err
+	} else if ok {
+		b.set(&sp.GibbsFormation, v)
+	}
+	if v, ok, err := b.value(r, "entropy_j_per_mol_k", "", "source", "entropy", "J/(mol·K)"); err != nil {
+		return err
+	} else if ok {
+		b.set(&sp.Entropy, v)
+	}
+	b.db.species[formula] = sp
+	return nil
+}
+
+// alternativeKinds are the values alternatives.csv can give other
+// compilations' figures for, with the unit each is stored in.
+var alternativeKinds = map[string]string{
+	"compound_formation": "kJ/mol", // key: a formula of compounds.csv
+	"atomization":        "kJ/mol", // key: an element symbol
+	"ion_gas_formation":  "kJ/mol", // key: an ion symbol of ions.csv
+	"species_formation":  "kJ/mol", // key: a formula of species.csv
+}
+
+// alternative reads one row of alternatives.csv: another compilation's
+// value of a tabulated quantity, kept beside the preferred one.
+func (b *builder) alternative(r record) error {
+	kind, err := r.requiredStr("kind")
+	if err != nil {
+		return err
+	}
+	unit, ok := alternativeKinds[kind]
+	if !ok {
+		return r.errorf("kind", "%q is not one of %s", kind, strings.Join(sortedKeys(alternativeKinds), ", "))
+	}
+	key, err := r.requiredStr("key")
+	if err != nil {
+		return err
+	}
+	v, ok, err := b.value(r, "value", "uncertainty", "source", "value", unit)
+	if err != nil {
+		return err
+	}
+	if !ok {
+		return r.errorf("value", "missing value")
+	}
+	if b.overlay {
+		v.Override = true
+	}
+	missing := func() error { return b.problem(r.errorf("key", "%s %q is not in its table", kind, key)) }
+	switch kind {
+	case "compound_formation":
+		i, ok := b.db.compoundIdx[key]
+		if !ok {
+			return missing()
+		}
+		b.db.compounds[i].Alternatives = append(b.db.compounds[i].Alternatives, v)
+	case "atomization":
+		i, ok := b.db.elementIdx[key]
+		if !ok {
+			return missing()
+		}
+		b.db.elements[i].AtomizationAlternatives = append(b.db.elements[i].AtomizationAlternatives, v)
+	case "ion_gas_formation":
+		i, ok := b.db.ionIdx[key]
+		if !ok {
+			return missing()
+		}
+		b.db.ions[i].GasFormationAlternatives = append(b.db.ions[i].GasFormationAlternatives, v)
+	case "species_formation":
+		sp, ok := b.db.species[key]
+		if !ok {
+			return missing()
+		}
+		sp.Alternatives = append(sp.Alternatives, v)
+		b.db.species[key] = sp
+	}
+	return nil
+}
+
+// compoundStates are the phases a compound row may refer to.
+var compoundStates = []string{"cr", "l", "g"}
 
 func (b *builder) finish() {
 	db := b.db

@@ -3,20 +3,26 @@ package data
 // Table files and their columns, as agreed in data/README.md. The overlay's
 // [[table]] names map to the same columns.
 var tableColumns = map[string][]string{
-	"sources.csv":           {"key", "citation"},
-	"elements.csv":          {"symbol", "z", "name", "standard_state", "atomization_kj_per_mol", "atomization_uncertainty", "source", "memory", "note"},
-	"atomic_weights.csv":    {"symbol", "atomic_weight", "uncertainty", "source", "memory", "note"},
-	"ionization.csv":        {"symbol", "stage", "energy_ev", "uncertainty_ev", "source", "memory", "note"},
-	"affinity.csv":          {"symbol", "order", "affinity_ev", "affinity_kj_per_mol", "uncertainty_ev", "source", "memory", "derived", "note"},
-	"atomization_steps.csv": {"element", "order", "kind", "reaction", "atoms_produced", "enthalpy_kj_per_mol", "uncertainty", "source", "memory", "note"},
-	"shannon.csv":           {"core", "charge", "cn", "spin", "crystal_radius", "ionic_radius", "source", "memory", "note"},
+	"sources.csv": {"key", "citation"},
+	"elements.csv": {"symbol", "z", "name", "standard_state", "atomization_kj_per_mol", "atomization_uncertainty", "source", "locator",
+		"standard_entropy_j_per_mol_k", "entropy_source", "entropy_locator", "memory", "note"},
+	"atomic_weights.csv":    {"symbol", "atomic_weight", "uncertainty", "source", "locator", "memory", "note"},
+	"ionization.csv":        {"symbol", "stage", "energy_ev", "uncertainty_ev", "source", "locator", "memory", "note"},
+	"affinity.csv":          {"symbol", "order", "affinity_ev", "affinity_kj_per_mol", "uncertainty_ev", "source", "locator", "memory", "derived", "note"},
+	"atomization_steps.csv": {"element", "order", "kind", "reaction", "atoms_produced", "enthalpy_kj_per_mol", "uncertainty", "source", "locator", "memory", "note"},
+	"shannon.csv":           {"core", "charge", "cn", "spin", "crystal_radius", "ionic_radius", "source", "locator", "memory", "note"},
 	"born_exponents.csv":    {"config", "exponent", "source", "memory", "note"},
 	"ions.csv":              {"symbol", "core", "charge", "polyatomic", "shape", "born_config", "note"},
-	"ion_values.csv":        {"ion", "property", "value", "uncertainty", "unit", "scale", "source", "memory", "derived", "note"},
+	"ion_values.csv":        {"ion", "property", "value", "uncertainty", "unit", "scale", "source", "locator", "memory", "derived", "note"},
 	"compounds.csv": {"formula", "name", "family", "cation", "cation_count", "anion", "anion_count",
-		"formation_kj_per_mol", "formation_uncertainty", "formation_source", "structure", "params", "params_source",
+		"state", "polymorph", "molecular",
+		"formation_kj_per_mol", "formation_uncertainty", "formation_source", "locator",
+		"gibbs_kj_per_mol", "entropy_j_per_mol_k", "structure", "params", "params_source",
 		"density_g_cm3", "density_source", "lattice_kj_per_mol", "lattice_convention", "lattice_source", "memory", "note"},
-	"solution_enthalpies.csv": {"formula", "solution_kj_per_mol", "uncertainty", "source", "memory", "note"},
+	"solution_enthalpies.csv": {"formula", "solution_kj_per_mol", "uncertainty", "source", "locator", "memory", "note"},
+	"species.csv": {"formula", "name", "formation_kj_per_mol", "formation_uncertainty", "gibbs_kj_per_mol",
+		"entropy_j_per_mol_k", "source", "locator", "memory", "note"},
+	"alternatives.csv": {"kind", "key", "value", "uncertainty", "unit", "source", "locator", "note"},
 }
 
 // tableOrder is the order tables are read in (each may refer to the ones
@@ -38,6 +44,8 @@ var tableOrder = []struct {
 	{"ion_values.csv", "ion_value", true},
 	{"compounds.csv", "compound", true},
 	{"solution_enthalpies.csv", "solution_enthalpy", true},
+	{"species.csv", "species", true},
+	{"alternatives.csv", "alternative", true},
 }
 
 // TableFiles lists the table file names in reading order.

@@ -43,6 +43,8 @@ type DB struct {
 
 	solutions map[string]Value // tabulated formula → ΔsolH° at infinite dilution
 
+	species map[string]Species // "CO2(g)" → species
+
 	overlays []string
 	problems []string
 }
@@ -63,6 +65,7 @@ func newDB() *DB {
 		compoundIdx: map[string]int{},
 		compKeys:    map[string]string{},
 		solutions:   map[string]Value{},
+		species:     map[string]Species{},
 	}
 }
 
@@ -128,6 +131,7 @@ func (db *DB) clone() *DB {
 		compoundIdx: maps.Clone(db.compoundIdx),
 		compKeys:    maps.Clone(db.compKeys),
 		solutions:   maps.Clone(db.solutions),
+		species:     make(map[string]Species, len(db.species)),
 		overlays:    slices.Clone(db.overlays),
 		problems:    slices.Clone(db.problems),
 	}
@@ -146,22 +150,29 @@ func (db *DB) clone() *DB {
 	for i, cp := range db.compounds {
 		c.compounds[i] = copyCompound(cp)
 	}
+	for k, sp := range db.species {
+		sp.Alternatives = slices.Clone(sp.Alternatives)
+		c.species[k] = sp
+	}
 	return c
 }
 
 func sharedElement(e Element) Element {
 	e.Ionization = e.Ionization[:len(e.Ionization):len(e.Ionization)]
+	e.AtomizationAlternatives = e.AtomizationAlternatives[:len(e.AtomizationAlternatives):len(e.AtomizationAlternatives)]
 	return e
 }
 
 func copyElement(e Element) Element {
 	e.Ionization = slices.Clone(e.Ionization)
+	e.AtomizationAlternatives = slices.Clone(e.AtomizationAlternatives)
 	return e
 }
 
 func copyIon(ion Ion) Ion {
 	ion.Radii = slices.Clone(ion.Radii)
 	ion.Hydrations = slices.Clone(ion.Hydrations)
+	ion.GasFormationAlternatives = slices.Clone(ion.GasFormationAlternatives)
 	return ion
 }
 
@@ -171,11 +182,13 @@ func copyIon(ion Ion) Ion {
 func sharedIon(ion Ion) Ion {
 	ion.Radii = ion.Radii[:len(ion.Radii):len(ion.Radii)]
 	ion.Hydrations = ion.Hydrations[:len(ion.Hydrations):len(ion.Hydrations)]
+	ion.GasFormationAlternatives = ion.GasFormationAlternatives[:len(ion.GasFormationAlternatives):len(ion.GasFormationAlternatives)]
 	return ion
 }
 
 func copyCompound(c Compound) Compound {
 	c.Params = maps.Clone(c.Params)
+	c.Alternatives = slices.Clone(c.Alternatives)
 	return c
 }
 
@@ -600,4 +613,48 @@ func (db *DB) sourceKeys() []string {
 		out[i] = s.Key
 	}
 	return out
+}
+
+// Species returns a substance of the thermochemical tables by its formula
+// with the state in parentheses: "CO2(g)", "O2(g)", "H2O(l)", "Cl2(g)".
+// Spaces are ignored and "(s)" is read as "(cr)". Its Alternatives are
+// shared with the DB: do not write to them.
+func (db *DB) Species(formulaWithState string) (Species, bool) {
+	key := strings.ReplaceAll(strings.TrimSpace(formulaWithState), " ", "")
+	if f, st, ok := splitState(key); ok && st == "s" {
+		key = f + "(cr)"
+	}
+	sp, ok := db.species[key]
+	if ok {
+		sp.Alternatives = sp.Alternatives[:len(sp.Alternatives):len(sp.Alternatives)]
+	}
+	return sp, ok
+}
+
+// SpeciesList returns every species, sorted by formula.
+func (db *DB) SpeciesList() []Species {
+	out := make([]Species, 0, len(db.species))
+	for _, k := range slices.Sorted(maps.Keys(db.species)) {
+		sp := db.species[k]
+		sp.Alternatives = slices.Clone(sp.Alternatives)
+		out = append(out, sp)
+	}
+	return out
+}
+
+// splitState splits "CO2(g)" into "CO2" and "g"; ok is false when the
+// formula does not end in a parenthesised state.
+func splitState(s string) (formula, state string, ok bool) {
+	if !strings.HasSuffix(s, ")") {
+		return "", "", false
+	}
+	i := strings.LastIndex(s, "(")
+	if i <= 0 {
+		return "", "", false
+	}
+	state = s[i+1 : len(s)-1]
+	if state == "" || strings.ContainsAny(state, "()") {
+		return "", "", false
+	}
+	return s[:i], state, true
 }

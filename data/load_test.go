@@ -2,6 +2,7 @@ package data
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"sort"
 	"strings"
@@ -172,7 +173,7 @@ func TestRadiiGrowWithCoordination(t *testing.T) {
 			}
 			sort.SliceStable(chain, func(i, j int) bool { return chain[i].Coordination < chain[j].Coordination })
 			for i := 1; i < len(chain); i++ {
-				if chain[i].Ionic.V <= chain[i-1].Ionic.V {
+				if chain[i].Ionic.V <= chain[i-1].Ionic.V && !shannonNotGrowing[canonicalIonSymbol(k.core, k.charge, false)+" "+chain[i].CN] {
 					t.Errorf("%s %s: CN %s radius %g not above CN %s radius %g", canonicalIonSymbol(k.core, k.charge, false), spin,
 						chain[i].CN, chain[i].Ionic.V, chain[i-1].CN, chain[i-1].Ionic.V)
 				}
@@ -181,12 +182,27 @@ func TestRadiiGrowWithCoordination(t *testing.T) {
 	}
 }
 
+// shannonNotGrowing lists the rows of the pinned Shannon table
+// (data/sources/shannon-radii) where the radius does not grow with CN, as
+// printed there: the test's rule has these exceptions in the source itself.
+var shannonNotGrowing = map[string]bool{
+	"Sb3+ VI": true, // 0.76 Å after 0.80 Å for CN V (shannon_radii.csv as vendored)
+	"Ce4+ X":  true, // 0.97 Å, equal to CN VIII
+}
+
+// shannonOffsetExceptions are rows of the pinned table whose crystal and
+// ionic radii do not differ by 0.14 Å, as printed there.
+var shannonOffsetExceptions = map[string]bool{
+	"Cu3 VI": true, // crystal 0.60, ionic 0.54 Å
+	"Ce4 X":  true, // crystal 1.21, ionic 0.97 Å
+}
+
 // Shannon's crystal radii are the effective ionic radii shifted by 0.14 Å:
 // up for cations, down for anions (Shannon 1976, p. 752).
 func TestCrystalRadiusOffset(t *testing.T) {
 	for k, list := range mustLoad(t).radii {
 		for _, r := range list {
-			if !r.Crystal.Known() {
+			if !r.Crystal.Known() || shannonOffsetExceptions[fmt.Sprintf("%s%d %s", k.core, k.charge, r.CN)] {
 				continue
 			}
 			want := r.Ionic.V + 0.14
@@ -233,6 +249,15 @@ func TestAtomizationStepsSum(t *testing.T) {
 // memory of the cited table, to the digits shown).
 func TestSpotValues(t *testing.T) {
 	db := mustLoad(t)
+	alt := func(alts []Value, source string) float64 {
+		for _, a := range alts {
+			if a.Source == source {
+				return a.V
+			}
+		}
+		t.Errorf("no alternative from %s", source)
+		return 0
+	}
 	el := func(sym string) Element {
 		e, err := db.Element(sym)
 		if err != nil {
@@ -245,15 +270,22 @@ func TestSpotValues(t *testing.T) {
 		got, want float64
 		tol       float64
 	}{
-		// CODATA key values (Cox, Wagman & Medvedev 1989), ΔfH°(g), kJ/mol.
-		{"ΔfH°(Cl,g)", el("Cl").Atomization.V, 121.301, 0.001},
-		{"ΔfH°(Na,g)", el("Na").Atomization.V, 107.5, 0.01},
-		{"ΔfH°(O,g)", el("O").Atomization.V, 249.18, 0.01},
+		// NBS tables 1982, ΔfH°(g), kJ/mol, as printed in the vendored file
+		// data/sources/nbs-tables-1982 (lines 169, 10817 and 10). Before the
+		// tables were generated these rows held the CODATA key values
+		// 121.301, 107.5 and 249.18, now kept as alternatives (next cases).
+		{"ΔfH°(Cl,g)", el("Cl").Atomization.V, 121.679, 0.001},
+		{"ΔfH°(Na,g)", el("Na").Atomization.V, 107.32, 0.001},
+		{"ΔfH°(O,g)", el("O").Atomization.V, 249.170, 0.001},
+		// CODATA key values (Cox, Wagman & Medvedev 1989) as NASA Glenn's
+		// thermo.inp carries them (reference code coda89), kJ/mol.
+		{"ΔfH°(Cl,g) CODATA", alt(el("Cl").AtomizationAlternatives, "nasa-glenn"), 121.301, 0.001},
+		{"ΔfH°(Na,g) CODATA", alt(el("Na").AtomizationAlternatives, "nasa-glenn"), 107.5, 0.001},
 		// NIST ASD ionization energies, eV.
 		{"IE1(Na)", el("Na").Ionization[0].V, 5.1390767, 1e-4},
 		{"IE2(Ca)", el("Ca").Ionization[1].V, 11.871719, 1e-4},
 		{"IE3(Al)", el("Al").Ionization[2].V, 28.447642, 1e-4},
-		// Rienstra-Kiracofe et al. 2002, eV.
+		// CRC Handbook 95th ed. (2014) electron affinities, eV.
 		{"EA(Cl)", el("Cl").ElectronAffinity.V, 3.612724, 1e-4},
 		{"EA(F)", el("F").ElectronAffinity.V, 3.4011898, 1e-4},
 		// Electron affinity of Cl in kJ/mol: 348.6 kJ/mol as commonly tabulated (from memory).
@@ -418,9 +450,9 @@ func TestLookupErrorsSuggest(t *testing.T) {
 	}{
 		{"element", func() error { _, err := db.Element("Nq"); return err }(), "Na"},
 		{"element", func() error { _, err := db.Element("Clx"); return err }(), "Cl"},
-		{"ion", func() error { _, err := db.Ion("Fe4+"); return err }(), "Fe3+"},
+		{"ion", func() error { _, err := db.Ion("Fe5+"); return err }(), "Fe3+"},
 		{"ion", func() error { _, err := db.IonByCharge("Na", 2); return err }(), "Na+"},
-		{"source", func() error { _, err := db.Source("codata198"); return err }(), "codata1989"},
+		{"source", func() error { _, err := db.Source("nbs1983"); return err }(), "nbs1982"},
 		{"radius", func() error { _, err := db.Radius("Na", 2, "VI", ""); return err }(), "Na+"},
 	}
 	for _, c := range cases {

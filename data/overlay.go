@@ -1,6 +1,7 @@
 package data
 
 import (
+	"bytes"
 	"errors"
 	"fmt"
 	"io"
@@ -11,6 +12,8 @@ import (
 	"strings"
 
 	"github.com/BurntSushi/toml"
+
+	"enthalpath/thermo/fileio"
 )
 
 // DefaultOverlayPath returns where the user's overlay file lives by
@@ -38,6 +41,10 @@ func UserDataPath(explicit string) string {
 	return ""
 }
 
+// MaxOverlaySize bounds a user data file, in bytes (1 MiB: some ten
+// thousand rows, more than the built-in tables hold together).
+const MaxOverlaySize = 1 << 20
+
 // LoadWithUserFile loads the embedded tables and, if path is not empty, the
 // overlay file at path on top of them. When the overlay cannot be read or is
 // malformed it returns the built-in DB together with the error, so a caller
@@ -50,12 +57,15 @@ func LoadWithUserFile(path string) (*DB, error) {
 	if path == "" {
 		return db, nil
 	}
-	f, err := os.Open(path)
+	raw, err := fileio.ReadFile(path, MaxOverlaySize)
+	var tooLarge *fileio.TooLargeError
+	if errors.As(err, &tooLarge) {
+		return db, &TableError{File: path, Err: fmt.Errorf("the file is larger than the %s a data file may have", fileio.Size(MaxOverlaySize))}
+	}
 	if err != nil {
 		return db, &TableError{File: path, Err: err}
 	}
-	defer f.Close()
-	withUser, err := db.WithOverlay(f, path)
+	withUser, err := db.WithOverlay(bytes.NewReader(raw), path)
 	if err != nil {
 		return db, err
 	}
@@ -77,9 +87,12 @@ func LoadWithUserFile(path string) (*DB, error) {
 // that order whatever their order in the file. A value without a source
 // gets the source "user".
 func (db *DB) WithOverlay(r io.Reader, name string) (*DB, error) {
-	raw, err := io.ReadAll(r)
+	raw, err := io.ReadAll(io.LimitReader(r, MaxOverlaySize+1))
 	if err != nil {
 		return nil, &TableError{File: name, Err: err}
+	}
+	if len(raw) > MaxOverlaySize {
+		return nil, &TableError{File: name, Err: fmt.Errorf("the file is larger than the %s a data file may have", fileio.Size(MaxOverlaySize))}
 	}
 	var doc map[string]any
 	if _, err := toml.Decode(string(raw), &doc); err != nil {

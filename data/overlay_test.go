@@ -23,8 +23,8 @@ source = "lab-notebook-7"
 
 [[ionization]]
 symbol = "Na"
-stage = 5
-energy_ev = 138.4
+stage = 9
+energy_ev = 299.8
 
 [[shannon]]
 core = "Na"
@@ -47,13 +47,13 @@ func TestOverlayAddsAndOverrides(t *testing.T) {
 		t.Fatal(err)
 	}
 	na, _ := db.Element("Na")
-	if na.Atomization.V != 108.0 || !na.Atomization.Override || na.Atomization.Replaced == nil || na.Atomization.Replaced.V != 107.5 {
+	if na.Atomization.V != 108.0 || !na.Atomization.Override || na.Atomization.Replaced == nil || na.Atomization.Replaced.V != 107.32 {
 		t.Errorf("Na atomization after overlay: %+v", na.Atomization)
 	}
 	if na.Atomization.Source != "lab-notebook-7" {
 		t.Errorf("source %q", na.Atomization.Source)
 	}
-	if len(na.Ionization) != 5 || na.Ionization[4].Source != "user" || !na.Ionization[4].Override {
+	if len(na.Ionization) != 9 || na.Ionization[8].Source != "user" || !na.Ionization[8].Override {
 		t.Errorf("added fifth IE: %+v", na.Ionization)
 	}
 	r, err := db.Radius("Na", 1, "VI", "")
@@ -66,7 +66,7 @@ func TestOverlayAddsAndOverrides(t *testing.T) {
 	// The receiver is unchanged.
 	na0, _ := base.Element("Na")
 	r0, _ := base.Radius("Na", 1, "VI", "")
-	if na0.Atomization.V != 107.5 || na0.Atomization.Override || len(na0.Ionization) != 4 || r0.Ionic.V != 1.02 {
+	if na0.Atomization.V != 107.32 || na0.Atomization.Override || len(na0.Ionization) != 8 || r0.Ionic.V != 1.02 {
 		t.Errorf("the built-in DB changed: %+v %+v", na0.Atomization, r0.Ionic)
 	}
 	if got := db.Overlays(); len(got) != 1 || got[0] != "test.toml" {
@@ -90,7 +90,7 @@ func TestOverlayErrorsNameLineAndField(t *testing.T) {
 		{"unknown element", "\n[[ionization]]\nsymbol = \"Qx\"\nstage = 1\nenergy_ev = 5\n", 3, "symbol", "not in the element table"},
 		{"unknown source", "[[element]]\nsymbol = \"K\"\natomization_kj_per_mol = 89\nsource = \"nowhere\"\n", 4, "source", "unknown source key"},
 		{"second entry", "[[element]]\nsymbol = \"K\"\n\n[[element]]\nsymbol = \"Na\"\natomization_kj_per_mol = -5\n", 6, "atomization_kj_per_mol", "negative"},
-		{"gap in stages", "[[ionization]]\nsymbol = \"Na\"\nstage = 9\nenergy_ev = 300\n", 3, "stage", "in order"},
+		{"gap in stages", "[[ionization]]\nsymbol = \"Na\"\nstage = 11\nenergy_ev = 300\n", 3, "stage", "in order"},
 		{"compound with missing ion", "[[compound]]\nformula = \"NaQ\"\n", 2, "formula", "unknown element"},
 	}
 	for _, c := range cases {
@@ -129,7 +129,7 @@ func TestLoadWithUserFile(t *testing.T) {
 	if err == nil || db == nil {
 		t.Fatalf("malformed overlay: db %v err %v; want the built-in DB and an error", db, err)
 	}
-	if na, _ := db.Element("Na"); na.Atomization.V != 107.5 {
+	if na, _ := db.Element("Na"); na.Atomization.V != 107.32 {
 		t.Errorf("built-in DB not returned: %+v", na.Atomization)
 	}
 	if _, err := LoadWithUserFile(filepath.Join(dir, "absent.toml")); err == nil {

@@ -26,6 +26,10 @@ type Value struct {
 	Replaced *Value
 	// Note is free text from the row.
 	Note string
+	// Locator points into the cited source: a vendored file and line
+	// ("nbs-tables-1982/NBS_Tables_with_ErratumValues.csv:10843") or the
+	// species' name there. Empty for values with no machine-readable source.
+	Locator string
 }
 
 // Known reports whether the value was given (a zero Value is "absent").
@@ -54,6 +58,12 @@ type Element struct {
 	// AtomicMass is the conventional standard atomic weight in g/mol
 	// (atomic_weights.csv); absent for an element without one (Tc).
 	AtomicMass Value
+	// StandardEntropy is S°(298.15 K) of the element in its standard state,
+	// J/(mol·K).
+	StandardEntropy Value
+	// AtomizationAlternatives are other compilations' values of
+	// Atomization (kJ/mol), each with its own source and locator.
+	AtomizationAlternatives []Value
 }
 
 // AtomizationStep is one sub-step on the way from an element's standard
@@ -111,8 +121,12 @@ type Ion struct {
 	Radii []ShannonRadius
 	// ThermochemicalRadius in Å (polyatomic ions; Jenkins et al.).
 	ThermochemicalRadius Value
-	// GasFormation is ΔfH°(ion, g, 298.15 K) in kJ/mol, for polyatomic ions.
+	// GasFormation is ΔfH°(ion, g, 298.15 K) in kJ/mol (thermal-electron
+	// convention of the NBS tables; see data/README.md).
 	GasFormation Value
+	// GasFormationAlternatives are other compilations' values of
+	// GasFormation, converted to the same convention.
+	GasFormationAlternatives []Value
 	// BornConfig is the noble-gas (or pseudo noble-gas) configuration for
 	// Pauling's Born exponent, a row of born_exponents.csv: "He", "Ne", "Ar",
 	// "Kr", "Xe", or for the d¹⁰ ions "[Ar]3d10" (Cu⁺, Zn²⁺), "[Kr]4d10"
@@ -152,8 +166,25 @@ type Compound struct {
 	CationCount int
 	Anion       string
 	AnionCount  int
-	// Formation is ΔfH°(298.15 K) of the solid in kJ/mol.
+	// Formation is ΔfH°(298.15 K) of the compound in State, kJ/mol.
 	Formation Value
+	// GibbsFormation is ΔfG°(298.15 K) in kJ/mol; Entropy is S°(298.15 K)
+	// in J/(mol·K). Absent where the source gives none.
+	GibbsFormation Value
+	Entropy        Value
+	// Alternatives are other compilations' values of Formation (kJ/mol),
+	// each with its source and locator.
+	Alternatives []Value
+	// State is the phase the values refer to: "cr" (crystal), "l" or "g".
+	// Empty in rows written before states were recorded: read it as "cr".
+	State string
+	// Polymorph names the crystal form where the source distinguishes
+	// several ("calcite", "rutile", "alpha"); empty otherwise.
+	Polymorph string
+	// Molecular marks a known non-ionic (molecular) compound: TiCl4(l),
+	// SF6(g), PCl5(cr). Its Cation and Anion are the formal ions of its
+	// composition; a Born–Haber cycle through them describes no real solid.
+	Molecular bool
 	// Structure is a prototype name of thermo/crystal, or "" when none fits.
 	Structure string
 	// Params are the prototype's parameters (a, c, u, x ... in Å or fractional).
@@ -175,6 +206,21 @@ type Compound struct {
 	ParamsOverride bool
 	// Note is free text from the compound row.
 	Note string
+}
+
+// Species is a substance in a given state from the thermochemical tables:
+// gases such as CO2(g), O2(g), H2O(g), liquids, and elements in their
+// standard states. Formula carries the state: "CO2(g)", "H2O(l)".
+type Species struct {
+	Formula string
+	Name    string
+	// Formation is ΔfH°(298.15 K), GibbsFormation ΔfG°(298.15 K), both
+	// kJ/mol; Entropy is S°(298.15 K) in J/(mol·K).
+	Formation      Value
+	GibbsFormation Value
+	Entropy        Value
+	// Alternatives are other compilations' values of Formation.
+	Alternatives []Value
 }
 
 // Source is one citation.

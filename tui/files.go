@@ -1,13 +1,12 @@
 package tui
 
 import (
-	"cmp"
+	"bytes"
 	"errors"
 	"fmt"
 	"os"
 	"path/filepath"
 	"slices"
-	"strconv"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/key"
@@ -15,6 +14,7 @@ import (
 	"github.com/charmbracelet/x/ansi"
 
 	"enthalpath/cycle"
+	"enthalpath/thermo/fileio"
 	"enthalpath/tui/prompt"
 	"enthalpath/tui/safepath"
 	"enthalpath/tui/screen"
@@ -100,7 +100,7 @@ func (m *Model) confirmKey(k tea.KeyMsg) tea.Cmd {
 	case key.Matches(k, c.Keep) && m.opts.RecoveryPath != "":
 		m.confirming, m.pending = false, nil
 		formula := m.sess.Cycle.Formula
-		p, err := m.keepRecovery()
+		p, err := m.keepWork()
 		if err != nil {
 			m.status, m.statusErr = "could not keep a recovery file: "+err.Error(), true
 			return nil
@@ -219,6 +219,9 @@ func (m *Model) askSave(thenQuit bool, thenOpen *screen.OpenMsg) tea.Cmd {
 			if err != nil {
 				return nil, err
 			}
+			if err := fileio.CheckReplaceable(path); err != nil {
+				return nil, err
+			}
 			if path != replace && path != m.sess.Path {
 				if held, exists := m.holds(path); exists {
 					// Asked in place: enter again on the same name replaces it.
@@ -293,94 +296,62 @@ func (m *Model) askOpen() tea.Cmd {
 	return nil
 }
 
-// writeRecovery writes the unsaved cycle to Options.RecoveryPath (on
-// shutdown and on a panic, where the SSH server looks for it there) and
-// returns the path ("" when there was nothing to write).
-func (m *Model) writeRecovery() (string, error) {
-	return m.saveRecovery(m.opts.RecoveryPath)
-}
-
-// keepRecovery writes the unsaved cycle when the user answers keep: to
-// Options.RecoveryPath, or when a file is there already to the first free
-// numbered name beside it (recovery-2.hesscycle, …), so that an earlier
-// recovery file is never replaced.
-func (m *Model) keepRecovery() (string, error) {
-	return m.saveRecovery(m.recoveryTarget())
-}
-
-// recoveryFiles returns the recovery files there are for path p (p itself
-// and its numbered neighbours p-2, p-3, …), the newest first.
-func recoveryFiles(p string) []string {
-	if p == "" {
-		return nil
-	}
-	ext := filepath.Ext(p)
-	stem := strings.TrimSuffix(p, ext)
-	type file struct {
-		path string
-		mod  int64
-	}
-	var found []file
-	names, _ := filepath.Glob(globEscape(stem) + "-*" + globEscape(ext))
-	for _, n := range append([]string{p}, names...) {
-		if n != p {
-			if _, err := strconv.Atoi(strings.TrimSuffix(strings.TrimPrefix(n, stem+"-"), ext)); err != nil {
-				continue
-			}
-		}
-		if st, err := os.Stat(n); err == nil && st.Mode().IsRegular() {
-			found = append(found, file{n, st.ModTime().UnixNano()})
-		}
-	}
-	slices.SortStableFunc(found, func(a, b file) int { return cmp.Compare(b.mod, a.mod) })
-	out := make([]string, len(found))
-	for i, f := range found {
-		out[i] = f.path
-	}
-	return out
-}
-
-// globEscape quotes the pattern characters of a path for filepath.Glob.
-func globEscape(s string) string {
-	return strings.NewReplacer(`\`, `\\`, "*", `\*`, "?", `\?`, "[", `\[`).Replace(s)
-}
-
-func (m *Model) saveRecovery(p string) (string, error) {
+// keepWork is the one writer of recovery files, for every way a session
+// ends with unsaved work (the keep answer, a signal, a closed terminal or
+// dropped connection, a server shutdown, a failure): it writes the unsaved
+// cycle to Options.RecoveryPath, or when any file is there to the first
+// free name of its series (recovery-2.hesscycle, …), never over an earlier
+// file (fileio.WriteNew). Asked again with the same unsaved work (a failure
+// saves once in the model and once more from its runner) it returns the
+// file already written. It returns "" when there is nothing to keep.
+func (m *Model) keepWork() (string, error) {
+	p := m.opts.RecoveryPath
 	if p == "" || m.sess.Cycle == nil || !m.sess.Dirty {
 		return "", nil
+	}
+	b, err := cycle.Marshal(m.sess.Cycle)
+	if err != nil {
+		return "", err
+	}
+	if m.lastKept.path != "" && bytes.Equal(b, m.lastKept.content) {
+		return m.lastKept.path, nil
 	}
 	if err := os.MkdirAll(filepath.Dir(p), 0o700); err != nil {
 		return "", err
 	}
-	if err := cycle.Save(p, m.sess.Cycle); err != nil {
+	written, err := fileio.WriteNew(p, 0o600, b)
+	if err != nil {
 		return "", err
 	}
-	return p, nil
+	m.lastKept.path, m.lastKept.content = written, b
+	return written, nil
 }
 
-// recoveryTarget is the path the next recovery file goes to: RecoveryPath
-// while no file is there, else the first free numbered name beside it.
+// recoveryFiles returns the recovery files there are for path p (p itself
+// and its numbered neighbours p-2, p-3, …), the newest first.
+func recoveryFiles(p string) []string { return fileio.Series(p) }
+
+// recoveryTarget is the file the keep answer would write now.
 func (m *Model) recoveryTarget() string {
-	p := m.opts.RecoveryPath
-	if p == "" {
+	if m.opts.RecoveryPath == "" {
 		return ""
 	}
-	ext := filepath.Ext(p)
-	stem := strings.TrimSuffix(p, ext)
-	for i := 2; ; i++ {
-		if _, err := os.Lstat(p); errors.Is(err, os.ErrNotExist) || i > 10000 {
-			return p
-		}
-		p = stem + "-" + strconv.Itoa(i) + ext
-	}
+	return fileio.NextFree(m.opts.RecoveryPath)
 }
 
-// WriteRecovery writes unsaved work to the recovery file, if any; the
-// program's runner calls it when the program ends abnormally.
-func (m *Model) WriteRecovery() (string, error) { return m.writeRecovery() }
+// WriteRecovery keeps unsaved work in a recovery file, if there is any
+// (see keepWork); the program's runner calls it when the program ends
+// abnormally. Once the program has stopped it is safe to call.
+func (m *Model) WriteRecovery() (string, error) {
+	p, err := m.keepWork()
+	if p != "" {
+		m.recovered = p
+	}
+	return p, err
+}
 
 func (m *Model) shutdown(reason string) tea.Cmd {
-	p, err := m.writeRecovery()
+	p, err := m.keepWork()
 	m.quitting = true
 	if err != nil {
 		m.status = "shutdown (" + reason + "): could not write the recovery file: " + err.Error()
@@ -394,13 +365,16 @@ func (m *Model) shutdown(reason string) tea.Cmd {
 // and reports it.
 func (m *Model) recoverAndRepanic() {
 	if r := recover(); r != nil {
-		if p, err := m.writeRecovery(); err == nil && p != "" {
-			fmt.Fprintf(os.Stderr, "enthalpath: unsaved work kept in %s\n", p)
+		// The runner says where (it asks RecoveredTo, or WriteRecovery,
+		// which returns this same file).
+		if p, err := m.keepWork(); err == nil && p != "" {
+			m.recovered = p
 		}
 		panic(r)
 	}
 }
 
-// RecoveredTo returns the recovery file written when the session ended
-// (quit keeping the work, or shutdown), or "".
+// RecoveredTo returns the recovery file that holds the work as the session
+// ended (quit keeping it, shutdown, a failure), or "". The SSH server asks
+// it rather than guessing from the folder.
 func (m *Model) RecoveredTo() string { return m.recovered }

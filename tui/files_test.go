@@ -84,6 +84,47 @@ func TestShutdownWritesRecovery(t *testing.T) {
 	}
 }
 
+// TestSuccessiveShutdownsKeepEveryFile: open NaCl, edit, shut down; then a
+// new session with the same recovery path opens KBr, edits, shuts down:
+// both files are there (the second once wrote over the first), and each
+// session reports its own.
+func TestSuccessiveShutdownsKeepEveryFile(t *testing.T) {
+	db := loadDB(t)
+	dir := t.TempDir()
+	var got []string
+	for _, formula := range []string{"NaCl", "KBr"} {
+		m := tui.New(tui.Options{Renderer: drive.Renderer(), DB: db, FileRoot: dir, RecoveryPath: filepath.Join(dir, "recovery.hesscycle")}).(*tui.Model)
+		u := drive.Model(m)
+		drive.Run(u, tea.WindowSizeMsg{Width: 80, Height: 24})
+		drive.Run(u, screen.OpenMsg{Formula: formula})
+		keys(u, "g", "j", "e")
+		drive.Run(u, drive.Text("500±1")...)
+		keys(u, "enter")
+		if !drive.Quit(drive.Run(u, tui.ShutdownMsg{Reason: "SIGTERM"})) {
+			t.Fatal("ShutdownMsg did not quit")
+		}
+		// Asked again (the runner after a failure) it names the same file.
+		again, err := m.WriteRecovery()
+		if err != nil || again != m.RecoveredTo() {
+			t.Errorf("%s: WriteRecovery again = %q, %v; want %q", formula, again, err, m.RecoveredTo())
+		}
+		got = append(got, m.RecoveredTo())
+	}
+	want := []string{filepath.Join(dir, "recovery.hesscycle"), filepath.Join(dir, "recovery-2.hesscycle")}
+	for i, formula := range []string{"NaCl", "KBr"} {
+		if got[i] != want[i] {
+			t.Errorf("session %d kept its work in %q, want %q", i+1, got[i], want[i])
+		}
+		c, err := cycle.Open(db, want[i])
+		if err != nil || c.Formula != formula {
+			t.Errorf("%s: %v, %v; want the %s cycle", want[i], c, err, formula)
+		}
+	}
+	if entries, _ := os.ReadDir(dir); len(entries) != 2 {
+		t.Errorf("folder holds %d entries, want the 2 recovery files", len(entries))
+	}
+}
+
 func TestSaveThenOpen(t *testing.T) {
 	db := loadDB(t)
 	m, u, dir := newRoot(t, db, 80, 24)

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"os"
+	"path/filepath"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/help"
@@ -70,7 +71,12 @@ type Model struct {
 	quitting      bool
 	recovered     string // path of the recovery file written, for the last frame
 	kept          string // where the work was kept before an open, said when it is done
-	memo          *cycle.Memo
+	// lastKept is the recovery file keepWork wrote last and what it holds.
+	lastKept struct {
+		path    string
+		content []byte
+	}
+	memo *cycle.Memo
 }
 
 var _ tea.Model = (*Model)(nil)
@@ -310,6 +316,13 @@ func (m *Model) openCmd(req screen.OpenMsg) tea.Cmd {
 			c, err := cycle.Open(db, path)
 			if c != nil {
 				c.SetMemo(memo)
+				// A structure file the cycle file names is read beside it.
+				if st := c.Settings.Structure; err == nil && st.CIF != "" && st.Cell == nil {
+					var p string
+					if p, err = resolve(filepath.Join(filepath.Dir(req.File), st.CIF)); err == nil {
+						err = c.LoadStructureFile(p, st.CIF)
+					}
+				}
 			}
 			return openedMsg{c: c, path: path, err: err}
 		}

@@ -68,6 +68,9 @@ func (o Options) resolver() func(string) (string, error) {
 		if root != "" {
 			return safepath.Join(root, name)
 		}
+		if err := safepath.CheckCharacters(name); err != nil {
+			return "", err
+		}
 		return filepath.Clean(name), nil
 	}
 }

@@ -6,13 +6,19 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/data"
+	"enthalpath/thermo/entropy"
 )
 
 // Analyst runs the analyses over one data set. Make one with New and share
 // it: it is safe for concurrent use.
 type Analyst struct {
-	db   *data.DB
-	memo *cycle.Memo
+	db        *data.DB
+	memo      *cycle.Memo
+	standards Standards
+
+	additiveOnce sync.Once
+	additiveFit  *entropy.Additive
+	additiveErr  error
 
 	mu    sync.Mutex
 	built map[string]builtEntry
@@ -76,9 +82,20 @@ func (a *Analyst) build(formula, cation, anion string) (*cycle.Cycle, error) {
 	return e.c.Clone(), nil
 }
 
+// Option changes how New makes an Analyst.
+type Option func(*Analyst)
+
+// WithStandards makes the Analyst read measured standard data (ΔfH°, ΔfG°,
+// S° of compounds, gases and elements) from s instead of from the data set.
+func WithStandards(s Standards) Option { return func(a *Analyst) { a.standards = s } }
+
 // New returns an Analyst over db (which it only reads).
-func New(db *data.DB) *Analyst {
-	return &Analyst{db: db, memo: cycle.NewMemo(), built: map[string]builtEntry{}, radii: map[string]radiusEntry{}}
+func New(db *data.DB, opts ...Option) *Analyst {
+	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, built: map[string]builtEntry{}, radii: map[string]radiusEntry{}}
+	for _, o := range opts {
+		o(a)
+	}
+	return a
 }
 
 // DB returns the data the Analyst reads.

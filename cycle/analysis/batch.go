@@ -8,10 +8,13 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"path/filepath"
 	"runtime"
 	"strconv"
 	"strings"
 	"sync"
+	"unicode"
+	"unicode/utf8"
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
@@ -128,6 +131,14 @@ func (br *BatchReader) Next() (BatchRow, error) {
 	}
 	bad := func(name, reason string, err error) (BatchRow, error) {
 		return row, &CSVError{Line: line, Column: name, Reason: reason, Err: err}
+	}
+	for i, v := range rec {
+		// A control character (a NUL, for one) would be copied into the
+		// output's formula cell: the row is refused before it is echoed.
+		if j := strings.IndexFunc(v, func(r rune) bool { return unicode.IsControl(r) && r != '\t' }); j >= 0 {
+			r, _ := utf8.DecodeRuneInString(v[j:])
+			return bad(br.header[i], fmt.Sprintf("control character U+%04X in the cell; remove it", r), nil)
+		}
 	}
 	row.Formula = cell(ColFormula)
 	if row.Formula == "" {
@@ -254,6 +265,9 @@ type BatchOptions struct {
 	JSON bool
 	// Progress, when set, is called after each row with the rows done.
 	Progress func(rows int)
+	// Dir is the folder a relative CIF path in the structure column is
+	// read from (the batch file's); "" is the working directory.
+	Dir string
 }
 
 // BatchSummary counts the rows.
@@ -365,6 +379,9 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 			if err != nil {
 				readErr = err
 				return
+			}
+			if st := row.Options.Structure; isCIFPath(st) && !filepath.IsAbs(st) {
+				row.Options.Structure = filepath.Join(opt.Dir, st)
 			}
 			out := make(chan BatchResult, 1)
 			queue <- out

@@ -94,3 +94,43 @@ func BenchmarkFitRadiusNitrate(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkScanGibbsTiCl: a scan over four oxidation states with Gibbs
+// energies (measured ΔfG°, S° of TiCl2–TiCl4 and the elements from the NBS
+// fixture, TiCl estimated with its volume-based entropy), warm.
+func BenchmarkScanGibbsTiCl(b *testing.B) {
+	a := nbsAnalyst(b)
+	sc, err := a.Scan("Ti", "Cl", ScanOptions{MaxCharge: 4, Temperature: 800})
+	if err != nil || !sc.Gibbs || len(sc.Compounds) != 4 {
+		b.Fatalf("scan %v, Gibbs %v", err, sc != nil && sc.Gibbs)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := a.Scan("Ti", "Cl", ScanOptions{MaxCharge: 4, Temperature: 800}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkScanGibbsCold is the same scan on a fresh Analyst (model spread
+// measured, memos empty).
+func BenchmarkScanGibbsCold(b *testing.B) {
+	db := testAnalyst(b).DB()
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := New(db, WithStandards(nbsFixture{})).Scan("Ti", "Cl", ScanOptions{MaxCharge: 4, Temperature: 800}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkStabilityCaCO3: the decomposition of calcite with its curve.
+func BenchmarkStabilityCaCO3(b *testing.B) {
+	a := nbsAnalyst(b)
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := a.Stability("CaCO3", StabilityOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -3,7 +3,8 @@
 // (Estimate), which oxidation state of a metal wins against a non-metal
 // (Scan), how much heat a salt gives when it dissolves (Solution), what
 // radius a complex ion behaves as (DeriveRadius), and all of that for many
-// formulas at once (Batch).
+// formulas at once (Batch), and whether a compound survives its
+// decompositions and up to what temperature (Stability).
 //
 // Every analysis is a cycle of package enthalpath/cycle solved in a
 // particular direction; this package only chooses the direction, fills the
@@ -43,9 +44,18 @@
 // 10.7 %; volume-based 6.4 % over 37 salts with a density (go test
 // -run TestModelSpreadComputed -v prints the current figure).
 //
-// # Entropy
+// # Entropy and Gibbs energies
 //
-// Every comparison here is of enthalpies. Free energies decide stability;
-// for salts of the same metal the entropy terms largely cancel, but not
-// always, and the output says so.
+// Stability is decided by Gibbs energies. A compound's standard data come
+// from a Standards (measured ΔfH°, ΔfG°, S° of compounds, gases and
+// elements; New reads the data set's): a known compound, ionic or
+// molecular, enters with its measured values and is named as such; a
+// hypothetical one gets its estimated ΔfH° and a volume-based S°
+// (thermo/entropy; V_m from its cell or density, else from its ions' sphere
+// volumes over PackingFraction), with an additive single-ion estimate
+// beside it where its ions have contributions. Reactions (disproportionations,
+// losses of the non-metal, gas-releasing decompositions) sum ΔrH° and ΔrS°
+// and are judged by thermo/gibbs: ΔrG(T) with the heat capacities
+// neglected, a verdict only beyond 2σ of zero, and the temperature at which
+// ΔrG crosses zero at the pressure of the gas given off.
 package analysis

@@ -38,9 +38,13 @@ type InputError struct {
 }
 
 func (e *InputError) Error() string {
+	// An empty subject is said, not printed as nothing before a colon.
 	msg := e.Subject
+	if msg == "" {
+		msg = "(empty)"
+	}
 	if e.Field != "" {
-		msg += ": " + e.Field
+		msg = e.Field + " " + msg
 	}
 	msg += ": " + e.Reason
 	if e.Err != nil {

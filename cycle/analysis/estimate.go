@@ -28,7 +28,9 @@ type EstimateOptions struct {
 	// Model is one of EstimateModels; "" means DefaultModel.
 	Model string
 	// Structure is a prototype of thermo/crystal for the Born models
-	// ("rock-salt"); "" keeps the compound's own, or the radius-ratio rule.
+	// ("rock-salt") or the path of a CIF file (charges it does not give
+	// come from the compound's ions); "" keeps the compound's own, or the
+	// radius-ratio rule.
 	Structure string
 	// CationRadius and AnionRadius (Å), when positive, replace the radii.
 	CationRadius, AnionRadius float64
@@ -98,15 +100,22 @@ func (a *Analyst) Estimate(formula string, opt EstimateOptions) (*Estimate, erro
 // quickFormation is Estimate's answer without the model comparison: the
 // solved value and σ (for scans and batches, where speed matters).
 func (a *Analyst) quickEstimate(formula string, opt EstimateOptions) (*Estimate, error) {
+	est, _, err := a.quickEstimateCycle(formula, opt)
+	return est, err
+}
+
+// quickEstimateCycle is quickEstimate with the cycle it solved.
+func (a *Analyst) quickEstimateCycle(formula string, opt EstimateOptions) (*Estimate, *cycle.Cycle, error) {
 	c, est, err := a.prepare(formula, opt)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	if est.Solved.Key != "formation" {
-		return a.Estimate(formula, opt)
+		est, err := a.Estimate(formula, opt)
+		return est, c, err
 	}
 	if err := missingStep(c); err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	r, u := cycle.Residual(c)
 	est.Value, est.Uncertainty = r, u
@@ -116,10 +125,14 @@ func (a *Analyst) quickEstimate(formula string, opt EstimateOptions) (*Estimate,
 		est.Solved.Value, est.Solved.Uncertainty = r, u
 		est.Solved.Source = cycle.Source{Kind: cycle.SourceSolved, Citation: "Hess's law over the other steps"}
 	}
-	return est, nil
+	return est, c, nil
 }
 
 func sq(x float64) float64 { return x * x }
+
+// isCIFPath reports a structure given as a CIF file rather than a
+// prototype name.
+func isCIFPath(s string) bool { return strings.HasSuffix(strings.ToLower(s), ".cif") }
 
 // prepare builds the cycle with the model's lattice step and the unknown.
 func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *Estimate, error) {
@@ -145,11 +158,17 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 		return nil, nil, err
 	}
 	est := &Estimate{Formula: c.Formula, Tabulated: c.Tabulated, Model: model}
-	if opt.Structure != "" {
+	switch {
+	case isCIFPath(opt.Structure):
+		// A measured cell: d₀ from its geometry.
+		if err := c.LoadStructureFile(opt.Structure, opt.Structure); err != nil {
+			return nil, nil, &InputError{Subject: formula, Field: "structure", Reason: "cannot use the CIF file", Err: err}
+		}
+	case opt.Structure != "":
 		c.Settings.Structure = cycle.Structure{Prototype: opt.Structure}
 		c.Settings.Distance = cycle.DistanceRadii
 	}
-	if !c.Tabulated || c.Settings.Structure.Empty() || !c.Settings.Structure.FromData {
+	if c.Settings.Structure.Cell == nil && (!c.Tabulated || c.Settings.Structure.Empty() || !c.Settings.Structure.FromData) {
 		// No measured cell of this compound: d₀ from the radii.
 		c.Settings.Distance = cycle.DistanceRadii
 	}

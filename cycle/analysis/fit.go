@@ -112,6 +112,9 @@ func (a *Analyst) FitRadius(ion string, opt FitOptions) (*FittedRadius, error) {
 	}
 	hb := lattice.KapustinskiiConstants{K: lattice.KapustinskiiKHandbook, D: lattice.KapustinskiiD}
 	for _, c := range a.db.Compounds() {
+		if c.Molecular {
+			continue // a molecular compound's cycle describes no ionic solid
+		}
 		var counter string
 		switch in.Symbol {
 		case c.Cation:

@@ -12,6 +12,7 @@ import (
 	"github.com/mattn/go-isatty"
 
 	"enthalpath/cycle/analysis"
+	"enthalpath/thermo/fileio"
 )
 
 const batchSynopsis = "batch FILE.csv [--out FILE] [--json]"
@@ -49,40 +50,32 @@ func runBatch(env Env, args []string) error {
 		in = f
 	}
 	counted := &countingReader{r: in}
-	w := env.Stdout
-	var tmp *os.File
-	if out != "" {
-		tmp, err = os.CreateTemp(filepath.Dir(out), "."+filepath.Base(out)+".*")
-		if err != nil {
-			return Usagef("--out %s: %v", out, err)
-		}
-		defer os.Remove(tmp.Name())
-		w = tmp
-	}
 	bar := newProgressBar(env.Stderr, size, counted)
-	sum, err := a.Batch(counted, w, analysis.BatchOptions{JSON: asJSON, Progress: bar.update})
-	bar.finish()
-	if err != nil {
-		if tmp != nil {
-			tmp.Close()
-		}
-		var ce *analysis.CSVError
-		if errors.As(err, &ce) {
-			return Usagef("%s: %v", name, err)
-		}
+	dir := "."
+	if name != "-" {
+		dir = filepath.Dir(name)
+	}
+	var sum analysis.BatchSummary
+	run := func(w io.Writer) error {
+		var err error
+		sum, err = a.Batch(counted, w, analysis.BatchOptions{JSON: asJSON, Progress: bar.update, Dir: dir})
 		return err
 	}
-	if tmp != nil {
-		if err := tmp.Sync(); err != nil {
-			tmp.Close()
-			return err
-		}
-		if err := tmp.Close(); err != nil {
-			return err
-		}
-		if err := os.Rename(tmp.Name(), out); err != nil {
-			return err
-		}
+	if out == "" {
+		err = run(env.Stdout)
+	} else {
+		// Written whole or not at all: a temporary file renamed when complete.
+		err = fileio.WriteAtomic(out, 0o644, run)
+	}
+	bar.finish()
+	var ce *analysis.CSVError
+	switch {
+	case errors.As(err, &ce):
+		return Usagef("%s: %v", name, err)
+	case err != nil && out != "":
+		return outputFileError("--out", out, err)
+	case err != nil:
+		return err
 	}
 	if sum.Failed > 0 {
 		fmt.Fprintf(env.Stderr, "enthalpath batch: %d of %d rows could not be estimated (see their error column)\n", sum.Failed, sum.Rows)

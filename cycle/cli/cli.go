@@ -55,6 +55,7 @@ func commands() []command {
 		{"compare", "cycle lattice value against the ionic models, one row per compound", runCompare},
 		{"estimate", "formation enthalpy of a hypothetical compound from a model lattice energy", runEstimate},
 		{"scan", "formation enthalpies across oxidation states and their disproportionations", runScan},
+		{"stability", "decompositions with ΔrG(T), verdicts beyond 2σ, temperatures of gas loss", runStability},
 		{"solution", "enthalpy of solution cycle", runSolution},
 		{"radius", "thermochemical radius derived from a cycle lattice energy", runRadius},
 		{"batch", "solve many formulas from a CSV file", runBatch},
@@ -94,7 +95,14 @@ func Run(env Env, name string, args []string) (code int) {
 		if c.name != name {
 			continue
 		}
+		out := &checkedWriter{w: env.Stdout}
+		env.Stdout = out
 		err := c.run(env, args)
+		if err == nil && out.err != nil {
+			// Text output is printed as it goes: a full disk or a closed
+			// pipe is found here, once, for every command.
+			err = fmt.Errorf("writing the output: %w", out.err)
+		}
 		if err == nil {
 			return ExitOK
 		}
@@ -107,4 +115,24 @@ func Run(env Env, name string, args []string) (code int) {
 	}
 	fmt.Fprintf(env.Stderr, "enthalpath: unknown command %q\n", name)
 	return ExitUsage
+}
+
+// checkedWriter keeps the first error of its writer and refuses every
+// later write, so a command's output stops at the first failure and Run
+// can report it.
+type checkedWriter struct {
+	w   io.Writer
+	err error
+}
+
+func (c *checkedWriter) Write(p []byte) (int, error) {
+	if c.err != nil {
+		return 0, c.err
+	}
+	n, err := c.w.Write(p)
+	if err == nil && n < len(p) {
+		err = io.ErrShortWrite
+	}
+	c.err = err
+	return n, err
 }

@@ -12,7 +12,6 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/data"
 	"enthalpath/thermo"
-	"enthalpath/thermo/cif"
 	"enthalpath/thermo/crystal"
 )
 
@@ -174,17 +173,14 @@ func (m *modelFlags) structureFor(c *cycle.Cycle) (cycle.Structure, error) {
 	return st, nil
 }
 
-// readCIF parses a CIF file with the cycle's ion charges on its elements.
+// readCIF reads a CIF file for cycle c: charges the file does not give
+// are assigned with the compound's ions as the only candidates.
 func readCIF(path string, c *cycle.Cycle) (cycle.Structure, error) {
-	charges := map[string]float64{
-		c.Cation.Ion.Core: float64(c.Cation.Ion.Charge),
-		c.Anion.Ion.Core:  float64(c.Anion.Ion.Charge),
-	}
-	cell, err := cif.ParseFile(path, cif.Options{Charges: charges})
+	sf, err := cycle.OpenStructureFile(nil, path, nil, []cycle.Part{c.Cation, c.Anion})
 	if err != nil {
 		return cycle.Structure{}, Usagef("--structure %s: %v", path, err)
 	}
-	return cycle.Structure{CIF: path, Cell: cell}, nil
+	return sf.Structure(path), nil
 }
 
 func runCycle(env Env, args []string) error {
@@ -312,7 +308,7 @@ func runCycle(env Env, args []string) error {
 			}
 		}
 		if err := cycle.Save(save, toSave); err != nil {
-			return err
+			return outputFileError("--save", save, err)
 		}
 	}
 	r, err := cycle.Solve(c)

@@ -84,7 +84,7 @@ func TestCycleCommandLine(t *testing.T) {
 		t.Errorf("--set: exit %d\n%s", code, out)
 	}
 	out, _, code = run(t, "cycle", "NaCl", "--units", "ev")
-	if code != ExitOK || !strings.Contains(out, "value (eV)") || !strings.Contains(out, "−8.15") {
+	if code != ExitOK || !strings.Contains(out, "value (eV)") || !strings.Contains(out, "−8.16") {
 		t.Errorf("--units ev (NaCl lattice ≈ −8.16 eV): exit %d\n%s", code, out)
 	}
 	for _, tc := range []struct {

@@ -3,6 +3,7 @@ package cli
 import (
 	"fmt"
 	"io"
+	"math"
 	"strings"
 
 	"enthalpath/cycle"
@@ -11,14 +12,16 @@ import (
 	"enthalpath/thermo"
 )
 
-const estimateSynopsis = "estimate FORMULA [--charges M=+2,X=-1] [--model MODEL] [--structure PROTOTYPE] [--cation-radius Å] [--anion-radius Å] [--set KEY=VALUE] [--solve KEY] [--json]"
+const estimateSynopsis = "estimate FORMULA [--charges M=+2,X=-1] [--model MODEL] [--structure PROTOTYPE] [--cation-radius Å] [--anion-radius Å] [--set KEY=VALUE] [--solve KEY] [--temperature K] [--pressure BAR] [--json]"
 
 func runEstimate(env Env, args []string) error {
 	fs := newFlagSet("estimate", estimateSynopsis, env.Stderr)
 	var charges, model, structure, solve string
-	var rc, ra float64
+	var rc, ra, temp, pres float64
 	var sets listFlag
 	var asJSON bool
+	fs.Float64Var(&temp, "temperature", thermo.StandardTemperature, "temperature of the stability verdicts in `K`")
+	fs.Float64Var(&pres, "pressure", 1, "partial pressure in `BAR` of a gas given off")
 	fs.StringVar(&charges, "charges", "", "ion charges by element, `M=+2,X=-1` or Mg=+1,Cl=-1 (M: first element of the formula, X: second)")
 	fs.StringVar(&model, "model", analysis.DefaultModel, "lattice `MODEL`: "+strings.Join(analysis.EstimateModels(), ", "))
 	fs.StringVar(&structure, "structure", "", "`PROTOTYPE` for the Born models (rock-salt, fluorite, …); default: the compound's own or the radius-ratio rule")
@@ -44,6 +47,14 @@ func runEstimate(env Env, args []string) error {
 			return Usagef("--%s %g: give the radius in Å, a positive number such as 1.02 (leave the flag out for the data's)", r.name, r.v)
 		}
 	}
+	for _, f := range []struct {
+		name string
+		v    float64
+	}{{"temperature", temp}, {"pressure", pres}} {
+		if !(f.v > 0) || math.IsInf(f.v, 0) {
+			return Usagef("--%s %g: give a positive number", f.name, f.v)
+		}
+	}
 	if charges != "" {
 		if opt.Charges, err = analysis.ParseCharges(charges, pos[0]); err != nil {
 			return inputError(err)
@@ -56,10 +67,34 @@ func runEstimate(env Env, args []string) error {
 	if err != nil {
 		return inputError(err)
 	}
+	// The compound's decompositions; an estimate that solves another step
+	// than the formation has none to offer.
+	var st *analysis.Stability
+	var stErr error
+	if est.Solved.Key == "formation" {
+		st, stErr = a.Stability(pos[0], analysis.StabilityOptions{Estimate: opt, Temperature: temp, Pressure: pres})
+	}
 	if asJSON {
-		return writeJSON(env.Stdout, estimateJSONOf(est))
+		j := estimateJSONOf(est)
+		if st != nil {
+			sj := stabilityJSONOf(st)
+			j.Stability = &sj
+		} else if stErr != nil {
+			j.StabilityError = stErr.Error()
+		}
+		return writeJSON(env.Stdout, j)
 	}
 	printEstimate(env.Stdout, est)
+	switch {
+	case st != nil:
+		fmt.Fprintf(env.Stdout, "\n  stability at %s K, gases given off at %g bar:\n", kelvin(st.Temperature), st.Pressure)
+		printReactions(env.Stdout, st)
+		for _, n := range st.Notes {
+			fmt.Fprintf(env.Stdout, "  note: %s\n", wrapText(n, 96, "        "))
+		}
+	case stErr != nil:
+		fmt.Fprintf(env.Stdout, "\n  stability: %s\n", wrapText(stErr.Error(), 96, "    "))
+	}
 	return nil
 }
 
@@ -94,6 +129,8 @@ type estimateJSON struct {
 	Steps            []analysisStepJSON `json:"steps"`
 	Notes            []string           `json:"notes"`
 	Warnings         []string           `json:"warnings,omitempty"`
+	Stability        *stabilityJSON     `json:"stability,omitempty"`
+	StabilityError   string             `json:"stability_error,omitempty"`
 }
 
 type analysisStepJSON struct {

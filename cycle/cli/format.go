@@ -6,13 +6,17 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"io/fs"
 	"math"
+	"path/filepath"
 	"strconv"
 	"strings"
+	"syscall"
 	"unicode/utf8"
 
 	"enthalpath/data"
 	"enthalpath/thermo"
+	"enthalpath/thermo/fileio"
 )
 
 // loadData loads the built-in tables with the user's overlay: --data FILE,
@@ -34,6 +38,28 @@ func loadData(env Env) (*data.DB, error) {
 	// with the built-in data.
 	fmt.Fprintf(env.Stderr, "enthalpath: ignoring the overlay file: %v\n", err)
 	return db, nil
+}
+
+// outputFileError words a failure to write the file a flag names: what the
+// user can fix (a folder that does not exist, a name taken by a folder, a
+// link or a device, a name too long, no permission) is a usage error naming
+// the flag; anything else (a full disk) stays an internal error.
+func outputFileError(flag, path string, err error) error {
+	var notRegular *fileio.NotRegularError
+	var name *fileio.NameError
+	switch {
+	case errors.As(err, &notRegular):
+		return Usagef("%s %s: it is %s, not a regular file; it is not replaced: give another file name", flag, path, notRegular.Kind)
+	case errors.As(err, &name):
+		return Usagef("%s %s: %v", flag, path, err)
+	case errors.Is(err, fs.ErrNotExist):
+		return Usagef("%s %s: the folder %s does not exist; create it first or give another path", flag, path, filepath.Dir(path))
+	case errors.Is(err, fs.ErrPermission):
+		return Usagef("%s %s: permission denied; give a path you may write", flag, path)
+	case errors.Is(err, syscall.ENOTDIR):
+		return Usagef("%s %s: a part of the path is a file, not a folder; give another path", flag, path)
+	}
+	return fmt.Errorf("%s %s: %w", flag, path, err)
 }
 
 // parseInterleaved parses flags that may come before, between or after the

@@ -9,9 +9,11 @@ import (
 	"strconv"
 	"strings"
 
-	"enthalpath/thermo/cif"
+	"enthalpath/cycle"
+	"enthalpath/data"
 	"enthalpath/thermo/crystal"
 	"enthalpath/thermo/ewald"
+	"enthalpath/thermo/valence"
 )
 
 const madelungSynopsis = `madelung NAME|FILE.cif [flags]
@@ -19,7 +21,12 @@ const madelungSynopsis = `madelung NAME|FILE.cif [flags]
 
 Computes the Madelung constant, the Ewald energy and the site potentials of a
 built-in prototype (see --list) or of the structure in a CIF file. Flags may
-come before or after the structure.`
+come before or after the structure.
+
+A CIF file without charges gets them assigned (charge balance with the data's
+oxidation states, then bond-valence sums); --charges overrides. Partly
+occupied sites carry their mean charge; a charged cell is summed with a
+neutralising background.`
 
 // maxListedSites is the largest cell whose site potentials the text output
 // lists one by one; larger cells get one line per species (--json has all).
@@ -64,11 +71,16 @@ func runMadelung(env Env, args []string) error {
 		return err
 	}
 	job := madelungJob{target: pos[0], params: paramMap, charges: chargeMap, supercell: n}
+	if isCIFPath(pos[0]) {
+		if job.db, err = loadData(env); err != nil {
+			return err
+		}
+	}
 	c, err := job.crystal()
 	if err != nil {
 		return err
 	}
-	res, sumErr := ewald.Sum(c, ewald.Options{Accuracy: *accuracy})
+	res, bg, sumErr := ewald.SumCharged(c, ewald.Options{Accuracy: *accuracy})
 	var accErr *ewald.AccuracyError
 	switch {
 	case errors.As(sumErr, &accErr):
@@ -79,15 +91,21 @@ func runMadelung(env Env, args []string) error {
 		return &UsageError{fmt.Errorf("%s: %w", pos[0], sumErr)}
 	}
 	warnings := geometryWarnings(c, res)
+	if bg.NetCharge != 0 {
+		warnings = append(warnings, fmt.Sprintf("%s (net charge %+.6g e per cell, background term %.6g eV)", ewald.BackgroundConvention, bg.NetCharge, bg.EnergyEV))
+	}
+	if sf := job.file; sf != nil && sf.Assignment.Method == valence.PoorFit {
+		warnings = append(warnings, "the assigned charges fit the bond-valence sums poorly; check them or give --charges")
+	}
 	for _, w := range warnings {
 		fmt.Fprintf(env.Stderr, "enthalpath madelung: warning: %s\n", w)
 	}
 	if *asJSON {
-		out := madelungJSON(job, c, res, sumErr == nil)
+		out := madelungJSON(job, c, res, bg, sumErr == nil)
 		out.Warnings = warnings
 		return writeJSON(env.Stdout, out)
 	}
-	printMadelung(env.Stdout, job, c, res)
+	printMadelung(env.Stdout, job, c, res, bg)
 	return nil
 }
 
@@ -111,8 +129,10 @@ type madelungJob struct {
 	params    map[string]float64
 	charges   map[string]float64
 	supercell [3]int
+	db        *data.DB
 	prototype *crystal.Prototype // nil for a CIF file
 	values    map[string]float64 // the prototype parameters used
+	file      *cycle.StructureFile
 }
 
 func isCIFPath(s string) bool {
@@ -127,14 +147,15 @@ func (j *madelungJob) crystal() (*crystal.Crystal, error) {
 		if len(j.params) > 0 {
 			return nil, Usagef("%s: --param applies to prototypes only; a CIF file gives its own geometry", j.target)
 		}
-		var err error
-		c, err = cif.ParseFile(j.target, cif.Options{Charges: j.charges})
-		if errors.Is(err, cif.ErrMissingCharge) || errors.Is(err, crystal.ErrNotNeutral) {
-			return nil, Usagef("%v (--charges LABEL=Z,...)", err)
+		sf, err := cycle.OpenStructureFile(j.db, j.target, j.charges, nil)
+		var ae *cycle.AssignmentError
+		if errors.As(err, &ae) {
+			return nil, Usagef("%v (give them with --charges LABEL=Z,...)", err)
 		}
 		if err != nil {
 			return nil, &UsageError{err}
 		}
+		j.file, c = sf, sf.Cell
 	} else {
 		p, err := crystal.LookupPrototype(j.target)
 		if err != nil {
@@ -235,7 +256,80 @@ func parseSupercell(s string) ([3]int, error) {
 
 func minus(s string) string { return strings.Replace(s, "-", "−", 1) }
 
-func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Result) {
+// siteSums returns the bond-valence sum of every site of c (a supercell
+// repeats the file's cell), or nil for a prototype.
+func (j *madelungJob) siteSums(c *crystal.Crystal) []float64 {
+	if j.file == nil {
+		return nil
+	}
+	n := len(j.file.BondValenceSums)
+	out := make([]float64, len(c.Sites))
+	for i := range out {
+		out[i] = j.file.BondValenceSums[i%n]
+	}
+	return out
+}
+
+// groupCharge writes a group's charge, with the two states of a mixed one.
+func groupCharge(g valence.Group) string {
+	q := minus(fmt.Sprintf("%+.4g", g.Charge))
+	if g.Mixed() {
+		lo, hi := 1-g.HighFraction, g.HighFraction
+		q += fmt.Sprintf(" (%s%+d : %s%+d = %.4g : %.4g)", g.Element, g.Low, g.Element, g.High, lo, hi)
+	}
+	return q
+}
+
+// printCharges says how a CIF file's charges were settled, group by group,
+// with the bond-valence sums and the averaging.
+func printCharges(w io.Writer, sf *cycle.StructureFile, nSites int) {
+	fmt.Fprintf(w, "formula     %s per formula unit (from the occupancies)\n", sf.Formula)
+	a := sf.Assignment
+	fmt.Fprintf(w, "charges     %s\n", a.Method)
+	if a.Method == valence.ChargeBalanceRanked {
+		fmt.Fprintf(w, "            %d neutral combinations; the one fitting the bond-valence sums best is used\n", a.Alternatives)
+	}
+	if a.Method != valence.Given {
+		var offered []string
+		els := make([]string, 0, len(sf.Candidates))
+		for el := range sf.Candidates {
+			els = append(els, el)
+		}
+		sort.Strings(els)
+		for _, el := range els {
+			var qs []string
+			for _, q := range sf.Candidates[el] {
+				qs = append(qs, minus(fmt.Sprintf("%+d", q)))
+			}
+			offered = append(offered, fmt.Sprintf("%s %s (%s)", el, strings.Join(qs, " "), sf.From[el]))
+		}
+		fmt.Fprintf(w, "            oxidation states offered: %s; --charges overrides\n", strings.Join(offered, ", "))
+	}
+	if sf.Averaged > 0 {
+		fmt.Fprintf(w, "averaged    %d of %d sites carry a mean charge (shared or partly vacant sites, or two oxidation states on one site): the averaged crystal, not an ordered one\n", sf.Averaged, nSites)
+	}
+	t := table{head: []string{"element", "sites", "labels", "charge", "bond-valence sum", "|sum − |charge||", "from"}, right: map[int]bool{1: true, 4: true, 5: true}}
+	for _, g := range a.Groups {
+		from := "assigned"
+		if g.Given {
+			from = "given"
+		}
+		sum, dev := "—", "—"
+		if !math.IsNaN(g.Sum) {
+			sum = fmt.Sprintf("%.3f", g.Sum)
+			dev = fmt.Sprintf("%.3f", math.Abs(g.Sum-math.Abs(g.Charge)))
+		}
+		labels := strings.Join(g.Labels, " ")
+		if len(g.Labels) > 6 {
+			labels = strings.Join(g.Labels[:6], " ") + fmt.Sprintf(" … (%d)", len(g.Labels))
+		}
+		t.add(g.Element, fmt.Sprintf("%.4g", g.Atoms), labels, groupCharge(g), sum, dev, from)
+	}
+	t.write(w, "  ")
+	fmt.Fprintf(w, "  bond-valence sums: exp((R − d)/%.2f Å) over cation–anion bonds, R from %s\n", valence.B, data.BondValenceSource)
+}
+
+func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Result, bg ewald.Background) {
 	if p := job.prototype; p != nil {
 		fmt.Fprintf(w, "structure   %s: %s (example %s)\n", p.Name, p.Description, p.Example)
 		var ps []string
@@ -250,7 +344,11 @@ func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Res
 	fmt.Fprintf(w, "cell        a = %.5f, b = %.5f, c = %.5f Å; α = %.3f°, β = %.3f°, γ = %.3f°\n",
 		abc[0], abc[1], abc[2], ang[0], ang[1], ang[2])
 	fmt.Fprintf(w, "            V = %.4f Å³, %d sites, Z = %d formula units\n", c.Volume(), len(c.Sites), c.FormulaUnits)
-	fmt.Fprintf(w, "ions        %s\n\n", ionSummary(c))
+	fmt.Fprintf(w, "ions        %s\n", ionSummary(c))
+	if job.file != nil {
+		printCharges(w, job.file, len(job.file.Cell.Sites))
+	}
+	fmt.Fprintln(w)
 
 	i, j := r.NearestPair[0], r.NearestPair[1]
 	fmt.Fprintf(w, "shortest cation–anion distance  d = %.6f Å  (site %d %s and site %d %s)\n",
@@ -266,26 +364,43 @@ func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Res
 	t.add("per formula unit", minus(fmt.Sprintf("%.8f", r.EnergyPerFormulaUnitEV)), minus(fmt.Sprintf("%.4f", r.EnergyKJPerMol)))
 	t.write(w, "")
 	fmt.Fprintf(w, "  boundary condition: %s\n", r.Boundary)
+	if bg.NetCharge != 0 {
+		fmt.Fprintf(w, "  charged cell: net charge %s e; neutralising background term %s eV per cell, included above\n",
+			minus(fmt.Sprintf("%+.6g", bg.NetCharge)), minus(fmt.Sprintf("%.8f", bg.EnergyEV)))
+		fmt.Fprintf(w, "  warning: %s\n", ewald.BackgroundConvention)
+	}
 	fmt.Fprintf(w, "  accuracy: requested %.3g, estimated %.2g (α = %.4f Å⁻¹, real cut-off %.3f Å, reciprocal cut-off %.3f Å⁻¹, %d + %d terms)\n\n",
 		r.Accuracy, r.EstimatedError, r.Alpha, r.RealCutoff, r.RecipCutoff, r.RealTerms, r.RecipTerms)
 
+	sums := job.siteSums(c)
 	if len(c.Sites) <= maxListedSites {
-		st := table{head: []string{"site", "species", "charge", "x", "y", "z", "potential / V"}, right: map[int]bool{0: true, 2: true, 3: true, 4: true, 5: true, 6: true}}
+		st := table{head: []string{"site", "species", "charge", "x", "y", "z", "potential / V"}, right: map[int]bool{0: true, 2: true, 3: true, 4: true, 5: true, 6: true, 7: true}}
+		if sums != nil {
+			st.head = append(st.head, "bond-valence sum")
+		}
 		for k, s := range c.Sites {
-			st.add(strconv.Itoa(k+1), s.Species, minus(fmt.Sprintf("%+g", s.Charge)),
+			row := []string{strconv.Itoa(k + 1), s.Species, minus(fmt.Sprintf("%+.4g", s.Charge)),
 				fmt.Sprintf("%.5f", s.Frac[0]), fmt.Sprintf("%.5f", s.Frac[1]), fmt.Sprintf("%.5f", s.Frac[2]),
-				minus(fmt.Sprintf("%.6f", r.SitePotentials[k])))
+				minus(fmt.Sprintf("%.6f", r.SitePotentials[k]))}
+			if sums != nil {
+				row = append(row, bvsText(sums[k]))
+			}
+			st.add(row...)
 		}
 		fmt.Fprintln(w, "site potentials (Madelung potential at each ion from all other ions)")
 		st.write(w, "  ")
 		return
 	}
-	st := table{head: []string{"species", "charge", "sites", "lowest / V", "highest / V"}, right: map[int]bool{1: true, 2: true, 3: true, 4: true}}
+	st := table{head: []string{"species", "charge", "sites", "lowest / V", "highest / V"}, right: map[int]bool{1: true, 2: true, 3: true, 4: true, 5: true}}
+	if sums != nil {
+		st.head = append(st.head, "bond-valence sums")
+	}
 	type group struct {
-		charge   float64
-		n        int
-		lo, hi   float64
-		position int
+		charge       float64
+		n            int
+		lo, hi       float64
+		sumLo, sumHi float64
+		position     int
 	}
 	groups := map[string]*group{}
 	var order []string
@@ -293,22 +408,40 @@ func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Res
 		key := s.Species + "|" + strconv.FormatFloat(s.Charge, 'g', -1, 64)
 		g, ok := groups[key]
 		if !ok {
-			g = &group{charge: s.Charge, lo: math.Inf(1), hi: math.Inf(-1), position: k}
+			g = &group{charge: s.Charge, lo: math.Inf(1), hi: math.Inf(-1), sumLo: math.Inf(1), sumHi: math.Inf(-1), position: k}
 			groups[key] = g
 			order = append(order, key)
 		}
 		g.n++
 		g.lo = math.Min(g.lo, r.SitePotentials[k])
 		g.hi = math.Max(g.hi, r.SitePotentials[k])
+		if sums != nil && !math.IsNaN(sums[k]) {
+			g.sumLo, g.sumHi = math.Min(g.sumLo, sums[k]), math.Max(g.sumHi, sums[k])
+		}
 	}
 	sort.SliceStable(order, func(a, b int) bool { return groups[order[a]].position < groups[order[b]].position })
 	for _, key := range order {
 		g := groups[key]
 		sp, _, _ := strings.Cut(key, "|")
-		st.add(sp, minus(fmt.Sprintf("%+g", g.charge)), strconv.Itoa(g.n), minus(fmt.Sprintf("%.6f", g.lo)), minus(fmt.Sprintf("%.6f", g.hi)))
+		row := []string{sp, minus(fmt.Sprintf("%+.4g", g.charge)), strconv.Itoa(g.n), minus(fmt.Sprintf("%.6f", g.lo)), minus(fmt.Sprintf("%.6f", g.hi))}
+		if sums != nil {
+			row = append(row, "—")
+			if g.sumLo <= g.sumHi {
+				row[len(row)-1] = fmt.Sprintf("%.3f–%.3f", g.sumLo, g.sumHi)
+			}
+		}
+		st.add(row...)
 	}
 	fmt.Fprintf(w, "site potentials by species (%d sites; --json lists every site)\n", len(c.Sites))
 	st.write(w, "  ")
+}
+
+// bvsText writes a bond-valence sum, or a dash where there is none.
+func bvsText(x float64) string {
+	if math.IsNaN(x) {
+		return "—"
+	}
+	return fmt.Sprintf("%.3f", x)
 }
 
 func cellParameters(c *crystal.Crystal) (abc, angles [3]float64) {
@@ -348,6 +481,48 @@ type madelungSite struct {
 	Charge    float64    `json:"charge"`
 	Frac      [3]float64 `json:"fractional"`
 	Potential float64    `json:"potential_volt"`
+	// BondValenceSum is set for a CIF file (null where none is defined).
+	BondValenceSum *jsonNumber `json:"bond_valence_sum,omitempty"`
+	// Occupants list the species of a shared or partly vacant site.
+	Occupants []madelungOccupant `json:"occupants,omitempty"`
+}
+
+type madelungOccupant struct {
+	Element   string  `json:"element"`
+	Label     string  `json:"label"`
+	Occupancy float64 `json:"occupancy"`
+	Charge    float64 `json:"charge"`
+}
+
+type madelungGroup struct {
+	Element        string     `json:"element"`
+	Labels         []string   `json:"labels"`
+	Sites          []int      `json:"sites"`
+	Atoms          float64    `json:"atoms"`
+	Charge         float64    `json:"charge"`
+	States         [2]int     `json:"oxidation_states"`
+	HighFraction   float64    `json:"fraction_higher_state"`
+	BondValenceSum jsonNumber `json:"bond_valence_sum"`
+	Given          bool       `json:"given"`
+}
+
+type madelungCharges struct {
+	Method         string            `json:"method"`
+	Description    string            `json:"description"`
+	Alternatives   int               `json:"neutral_combinations,omitempty"`
+	Offered        map[string][]int  `json:"oxidation_states_offered,omitempty"`
+	OfferedFrom    map[string]string `json:"oxidation_states_from,omitempty"`
+	Groups         []madelungGroup   `json:"groups"`
+	Formula        string            `json:"formula"`
+	AveragedSites  int               `json:"averaged_sites"`
+	BondValenceFit string            `json:"bond_valence_parameters"`
+}
+
+type madelungBackground struct {
+	NetCharge      float64 `json:"net_charge"`
+	EnergyEV       float64 `json:"energy_ev_per_cell"`
+	PotentialShift float64 `json:"potential_shift_volt"`
+	Convention     string  `json:"convention"`
 }
 
 type madelungStructure struct {
@@ -393,12 +568,16 @@ type madelungOutput struct {
 	Boundary          string            `json:"boundary_condition"`
 	Accuracy          madelungAccuracy  `json:"accuracy"`
 	Ewald             madelungEwald     `json:"ewald"`
+	// Charges say how a CIF file's charges were settled.
+	Charges *madelungCharges `json:"charges,omitempty"`
+	// Background is set for a charged cell.
+	Background *madelungBackground `json:"background,omitempty"`
 	// Warnings say what makes the structure unlike a real solid; absent
 	// when nothing does.
 	Warnings []string `json:"warnings,omitempty"`
 }
 
-func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, reached bool) madelungOutput {
+func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, bg ewald.Background, reached bool) madelungOutput {
 	abc, ang := cellParameters(c)
 	st := madelungStructure{
 		Name: c.Name, Source: "cif", Supercell: job.supercell,
@@ -410,10 +589,21 @@ func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, reached b
 	for k := 0; k < 3; k++ {
 		st.Lattice[k] = c.Lattice[k]
 	}
+	sums := job.siteSums(c)
 	for k, s := range c.Sites {
-		st.Sites = append(st.Sites, madelungSite{Species: s.Species, Label: s.Label, Charge: s.Charge, Frac: s.Frac, Potential: r.SitePotentials[k]})
+		ms := madelungSite{Species: s.Species, Label: s.Label, Charge: s.Charge, Frac: s.Frac, Potential: r.SitePotentials[k]}
+		if sums != nil {
+			v := jsonNumber(sums[k])
+			ms.BondValenceSum = &v
+		}
+		if s.Averaged() {
+			for _, o := range s.Occupants {
+				ms.Occupants = append(ms.Occupants, madelungOccupant{o.Element, o.Label, o.Occupancy, o.Charge})
+			}
+		}
+		st.Sites = append(st.Sites, ms)
 	}
-	return madelungOutput{
+	out := madelungOutput{
 		Structure:         st,
 		MadelungConstant:  r.MadelungConstant,
 		Convention:        r.Convention,
@@ -430,6 +620,27 @@ func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, reached b
 		Ewald: madelungEwald{Alpha: r.Alpha, RealCutoff: r.RealCutoff, RecipCutoff: r.RecipCutoff,
 			RealTerms: r.RealTerms, RecipTerms: r.RecipTerms},
 	}
+	if bg.NetCharge != 0 {
+		out.Background = &madelungBackground{bg.NetCharge, bg.EnergyEV, bg.PotentialShiftV, ewald.BackgroundConvention}
+	}
+	if sf := job.file; sf != nil {
+		ch := &madelungCharges{Method: sf.Assignment.Method.Key(), Description: sf.Assignment.Method.String(),
+			Alternatives: sf.Assignment.Alternatives, Formula: sf.Formula, AveragedSites: sf.Averaged,
+			BondValenceFit: fmt.Sprintf("exp((R - d)/%.2f), R from %s", valence.B, data.BondValenceSource)}
+		if sf.Assignment.Method != valence.Given {
+			ch.Offered, ch.OfferedFrom = sf.Candidates, sf.From
+		}
+		for _, g := range sf.Assignment.Groups {
+			sites := make([]int, len(g.Sites))
+			for i, k := range g.Sites {
+				sites[i] = k + 1
+			}
+			ch.Groups = append(ch.Groups, madelungGroup{Element: g.Element, Labels: g.Labels, Sites: sites, Atoms: g.Atoms,
+				Charge: g.Charge, States: [2]int{g.Low, g.High}, HighFraction: g.HighFraction, BondValenceSum: jsonNumber(g.Sum), Given: g.Given})
+		}
+		out.Charges = ch
+	}
+	return out
 }
 
 type prototypeParamJSON struct {

@@ -12,12 +12,14 @@ import (
 // refused it (QA report: "ParseFormula(…)", "ewald.Sum:", "BornExponent:
 // configs[0]", "Options.Charges").
 func TestMessagesNameNoGoCode(t *testing.T) {
-	// A rock-salt cell whose sites have no charges.
+	// A rock-salt cell whose sites have no charges, one of them of an
+	// element the data give no oxidation states for (Xe), so no charge can
+	// be assigned.
 	unchargedCIF := filepath.Join(t.TempDir(), "uncharged.cif")
 	os.WriteFile(unchargedCIF, []byte("data_x\n_cell_length_a 5.64\n_cell_length_b 5.64\n_cell_length_c 5.64\n"+
 		"_cell_angle_alpha 90\n_cell_angle_beta 90\n_cell_angle_gamma 90\n"+
 		"loop_\n_atom_site_label\n_atom_site_type_symbol\n_atom_site_fract_x\n_atom_site_fract_y\n_atom_site_fract_z\n"+
-		"Na1 Na 0 0 0\nCl1 Cl 0.5 0.5 0.5\n"), 0o644)
+		"Na1 Na 0 0 0\nXe1 Xe 0.5 0.5 0.5\n"), 0o644)
 	cases := []struct {
 		name   string
 		args   []string

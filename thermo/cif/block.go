@@ -96,7 +96,7 @@ func parseBlocks(toks []token, file string) ([]*block, error) {
 			v := toks[i+1]
 			cur.items[normalizeTag(t.text)] = value{text: v.text, line: v.line, quoted: v.quoted}
 			i += 2
-		case tokValue:
+		case tokValue, tokSkipped:
 			return nil, syntaxErr(t.line, "", "value %q at column %d belongs to no data name", clip(t.text), t.col)
 		case tokLoop:
 			lp := &loop{line: t.line}
@@ -112,17 +112,23 @@ func parseBlocks(toks []token, file string) ([]*block, error) {
 				return nil, &Error{File: file, Line: t.line, Msg: "loop_ is not followed by any data name", Err: ErrMalformedLoop}
 			}
 			var vals []value
-			for i < len(toks) && toks[i].kind == tokValue {
-				vals = append(vals, value{text: toks[i].text, line: toks[i].line, quoted: toks[i].quoted})
+			skipped, last := 0, 0
+			for i < len(toks) && (toks[i].kind == tokValue || toks[i].kind == tokSkipped) {
+				if toks[i].kind == tokSkipped {
+					skipped += toks[i].count
+				} else {
+					vals = append(vals, value{text: toks[i].text, line: toks[i].line, quoted: toks[i].quoted})
+				}
+				last = toks[i].line
 				i++
 			}
-			if len(vals) == 0 {
-				return nil, &Error{File: file, Line: t.line, Tag: lp.tags[0], Msg: "loop_ has data names but no values", Err: ErrMalformedLoop}
-			}
-			if len(vals)%len(lp.tags) != 0 {
+			if n := len(vals) + skipped; n > 0 && n%len(lp.tags) != 0 {
 				return nil, &Error{File: file, Line: t.line, Tag: lp.tags[0], Err: ErrMalformedLoop,
 					Msg: fmt.Sprintf("loop_ has %d data names but %d values, not a multiple of %d (%d full rows and %d left over, the last on line %d); check for a missing value or an unquoted value with spaces",
-						len(lp.tags), len(vals), len(lp.tags), len(vals)/len(lp.tags), len(vals)%len(lp.tags), vals[len(vals)-1].line)}
+						len(lp.tags), n, len(lp.tags), n/len(lp.tags), n%len(lp.tags), last)}
+			}
+			if len(vals)+skipped == 0 {
+				return nil, &Error{File: file, Line: t.line, Tag: lp.tags[0], Msg: "loop_ has data names but no values", Err: ErrMalformedLoop}
 			}
 			for r := 0; r < len(vals); r += len(lp.tags) {
 				lp.rows = append(lp.rows, vals[r:r+len(lp.tags)])

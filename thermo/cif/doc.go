@@ -50,7 +50,17 @@
 // that carries it ("Na1+", "O2-", also "Fe+3"), from the
 // _atom_type_oxidation_number of its type symbol, and from
 // Options.Charges, looked up by the site's label, then its type symbol,
-// then its element. A site with no charge from any of these is an error.
+// then its element. For Parse a site with no charge from any of these is an
+// error; Read returns it with its occupants' ChargeKnown false, for package
+// valence to assign.
+//
+// # Partial occupancy
+//
+// A site with _atom_site_occupancy below 1, alone or shared with other
+// rows at the same position (occupancies summing to at most 1), becomes
+// one site of the averaged crystal: its Occupants list the species and
+// occupancies, its Charge is Σ occupancy·charge and its Species names the
+// mixture ("Na0.5K0.5", "Fe0.9"). A vacancy contributes no charge.
 // Every site is one atom: a molecular ion (OH⁻, SO₄²⁻) must be listed atom
 // by atom, each with its own (formal or partial) charge.
 //
@@ -68,10 +78,11 @@
 // names (ErrMalformedLoop); missing or unknown cell data (ErrMissingCell);
 // an unreadable number or symmetry operation; a type symbol or label that
 // names no element of the embedded table H…Og (ErrUnknownElement); an
-// occupancy other than 1 (ErrPartialOccupancy: a point-charge lattice sum
-// needs one whole ion per site, so a disordered structure must be ordered
-// in a supercell first); a site without a charge (ErrMissingCharge); a cell
+// occupancy not in (0, 1]; in Parse, a site without a charge (ErrMissingCharge) and a cell
 // whose charges do not sum to zero (ErrNotNeutral, the message gives the
-// sum and the charges per site). No input makes the reader panic; the
-// fuzz targets FuzzParse and FuzzParseSymop check that.
+// sum and the charges per site); an atom-site loop of more than 50,000 rows,
+// refused while the file is tokenised, and more than 50,000 sites after
+// expansion. Values of loops the reader does not use (reflections,
+// anisotropic displacements) are counted but not kept. No input makes the
+// reader panic; the fuzz targets FuzzParse and FuzzParseSymop check that.
 package cif

@@ -59,8 +59,6 @@ var (
 	ErrBadSymop = errors.New("unreadable symmetry operation")
 	// ErrUnknownElement is a type symbol or label that names no element.
 	ErrUnknownElement = errors.New("unknown element")
-	// ErrPartialOccupancy is a site with occupancy other than 1.
-	ErrPartialOccupancy = errors.New("partial occupancy is not supported")
 	// ErrMissingCharge is a site whose charge is given nowhere.
 	ErrMissingCharge = errors.New("missing charge")
 	// ErrNoSites is a block without atom sites.

@@ -1,16 +1,18 @@
 package cif
 
 import (
+	"bytes"
 	"errors"
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"path/filepath"
+	"slices"
 	"sort"
 	"strings"
 
 	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/fileio"
 )
 
 // Options adjust how a CIF file becomes a crystal.
@@ -46,48 +48,107 @@ const (
 	maxImages = 1000000
 )
 
-// ParseFile reads the CIF file at path; see Parse.
+// MaxFileSize bounds the CIF files ParseFile reads, in bytes (4 MiB: a
+// cell of 50,000 sites takes about 2 MiB; a file that also carries its
+// structure factors may need them taken out first).
+const MaxFileSize = 4 << 20
+
+// ParseFile reads the CIF file at path; see Parse. It reads regular files
+// only (not a device, pipe or folder) of at most MaxFileSize bytes.
 func ParseFile(path string, opt Options) (*crystal.Crystal, error) {
-	f, err := os.Open(path)
+	b, err := readFile(path)
 	if err != nil {
 		return nil, err
 	}
-	defer f.Close()
-	return Parse(f, path, opt)
+	return Parse(bytes.NewReader(b), path, opt)
+}
+
+// ReadFile reads the CIF file at path, as ParseFile does; see Read.
+func ReadFile(path string, opt Options) (*crystal.Crystal, error) {
+	b, err := readFile(path)
+	if err != nil {
+		return nil, err
+	}
+	return Read(bytes.NewReader(b), path, opt)
+}
+
+// readFile reads a regular file of at most MaxFileSize bytes.
+func readFile(path string) ([]byte, error) {
+	b, err := fileio.ReadFile(path, MaxFileSize)
+	var tooLarge *fileio.TooLargeError
+	var notRegular *fileio.NotRegularError
+	switch {
+	case errors.As(err, &tooLarge):
+		return nil, &Error{File: path, Msg: fmt.Sprintf("the file is larger than the %s a CIF file may have here; remove loops the structure does not need (structure factors, for one)", fileio.Size(MaxFileSize)), Err: err}
+	case errors.As(err, &notRegular):
+		return nil, &Error{File: path, Msg: "it is " + notRegular.Kind + ", not a regular file; give a CIF file", Err: err}
+	case err != nil:
+		return nil, err
+	}
+	return b, nil
 }
 
 // Parse reads a CIF 1.1 file from r and returns the full unit cell as a
 // point-charge crystal: the cell from the _cell_ items, the atom sites
 // expanded by the symmetry operations, wrapped into [0,1) and merged within
 // the tolerance, each with its charge. name is used in error messages and
-// (its last path element) as the crystal's name. Every problem is returned as *Error; see the
-// package documentation for what is read and what is refused.
+// (its last path element) as the crystal's name. Every site must have a
+// charge and the cell must be neutral. Every problem is returned as *Error;
+// see the package documentation for what is read and what is refused.
 func Parse(r io.Reader, name string, opt Options) (*crystal.Crystal, error) {
+	rd, c, err := read(r, name, opt)
+	if err != nil {
+		return nil, err
+	}
+	if err := rd.chargesGiven(c); err != nil {
+		return nil, err
+	}
+	if err := rd.neutral(c); err != nil {
+		return nil, err
+	}
+	if err := c.Validate(); err != nil {
+		return nil, rd.errf(0, "", errors.Unwrap(err), "%s", err.Error())
+	}
+	return c, nil
+}
+
+// Read is Parse without the last two demands: a site whose charge the file
+// (and opt.Charges) does not give is returned with Charge 0 and its
+// occupants' ChargeKnown false, and a cell whose charges do not sum to zero
+// is returned as it is. Every site carries its Occupants. Package valence
+// assigns the missing charges.
+func Read(r io.Reader, name string, opt Options) (*crystal.Crystal, error) {
+	_, c, err := read(r, name, opt)
+	return c, err
+}
+
+func read(r io.Reader, name string, opt Options) (*reader, *crystal.Crystal, error) {
 	src, err := io.ReadAll(r)
 	if err != nil {
-		return nil, &Error{File: name, Msg: "cannot read: " + err.Error(), Err: err}
+		return nil, nil, &Error{File: name, Msg: "cannot read: " + err.Error(), Err: err}
 	}
 	toks, err := tokenize(string(src), name)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	blocks, err := parseBlocks(toks, name)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	b, err := chooseBlock(blocks, name, opt.Block)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	tol := opt.MergeTolerance
 	if tol == 0 {
 		tol = DefaultMergeTolerance
 	}
 	if !(tol > 0 && tol <= MaxMergeTolerance) {
-		return nil, &Error{File: name, Msg: fmt.Sprintf("merge tolerance %g Å is outside (0, %g] Å", tol, MaxMergeTolerance), Err: ErrBadValue}
+		return nil, nil, &Error{File: name, Msg: fmt.Sprintf("merge tolerance %g Å is outside (0, %g] Å", tol, MaxMergeTolerance), Err: ErrBadValue}
 	}
-	rd := reader{file: name, b: b}
-	return rd.crystal(opt, tol)
+	rd := &reader{file: name, b: b}
+	c, err := rd.crystal(opt, tol)
+	return rd, c, err
 }
 
 // chooseBlock picks the named block, or the first with atom sites.
@@ -115,6 +176,7 @@ func chooseBlock(blocks []*block, file, want string) (*block, error) {
 type reader struct {
 	file string
 	b    *block
+	asym []asymSite // the atom-site rows, once read
 }
 
 func (rd *reader) errf(line int, tag string, kind error, msg string, args ...any) *Error {
@@ -311,6 +373,7 @@ type asymSite struct {
 	charge  float64
 	known   bool // charge known
 	frac    crystal.Vec3
+	occ     float64 // occupancy, 1 unless the file says otherwise
 	line    int
 }
 
@@ -455,19 +518,20 @@ func (rd *reader) sites(opt Options) ([]asymSite, error) {
 			}
 			s.frac[k] = x
 		}
+		s.occ = 1
 		if oc := cols[5].vals; oc != nil && !oc[r].unknown() {
 			x, ok := parseNumber(oc[r].text)
 			if !ok {
 				return nil, rd.errf(oc[r].line, "_atom_site_occupancy", ErrBadValue, "cannot read %q as a number", clip(oc[r].text))
 			}
-			if math.Abs(x-1) > OccupancyTolerance {
-				return nil, rd.errf(oc[r].line, "_atom_site_occupancy", ErrPartialOccupancy,
-					"site %s has occupancy %s; partial occupancy is not supported, because a point-charge lattice sum needs every site to hold one whole ion (order the structure in a supercell and give that file instead)", s.label, oc[r].text)
+			if !(x > 0 && x <= 1+crystal.OccupancyTolerance) {
+				return nil, rd.errf(oc[r].line, "_atom_site_occupancy", ErrBadValue,
+					"site %s has occupancy %s; an occupancy must be greater than 0 and at most 1", s.label, oc[r].text)
 			}
-		}
-		if !s.known {
-			return nil, rd.errf(s.line, "_atom_type_oxidation_number", ErrMissingCharge,
-				"no charge for site %s (type %s): give it in an _atom_type_symbol/_atom_type_oxidation_number loop, as a charged type symbol such as %s2+, or as a charge given by site label, type symbol or element", s.label, s.typ, s.element)
+			if x > 1-crystal.OccupancyTolerance {
+				x = 1
+			}
+			s.occ = x
 		}
 		out = append(out, s)
 	}
@@ -498,10 +562,8 @@ func (rd *reader) crystal(opt Options, tol float64) (*crystal.Crystal, error) {
 	if rd.file == "" {
 		c.Name = "data_" + rd.b.name
 	}
+	rd.asym = asym
 	if err := expand(c, asym, ops, tol, rd); err != nil {
-		return nil, err
-	}
-	if err := rd.neutral(c); err != nil {
 		return nil, err
 	}
 	z, err := rd.formulaUnits(c)
@@ -509,10 +571,19 @@ func (rd *reader) crystal(opt Options, tol float64) (*crystal.Crystal, error) {
 		return nil, err
 	}
 	c.FormulaUnits = z
-	if err := c.Validate(); err != nil {
-		return nil, rd.errf(0, "", errors.Unwrap(err), "%s", err.Error())
-	}
 	return c, nil
+}
+
+// chargesGiven reports the first atom-site row whose charge is given
+// nowhere.
+func (rd *reader) chargesGiven(c *crystal.Crystal) error {
+	for _, s := range rd.asym {
+		if !s.known {
+			return rd.errf(s.line, "_atom_type_oxidation_number", ErrMissingCharge,
+				"no charge for site %s (type %s): give it in an _atom_type_symbol/_atom_type_oxidation_number loop, as a charged type symbol such as %s2+, or as a charge given by site label, type symbol or element", s.label, s.typ, s.element)
+		}
+	}
+	return nil
 }
 
 // wrap maps a fractional coordinate into [0,1).
@@ -526,14 +597,18 @@ func wrap(x float64) float64 {
 
 // expand applies every operation to every asymmetric site and keeps one
 // copy of each position. Two images of the same site closer than tol (Å,
-// shortest periodic distance) are one site; images of different sites that
-// close are a collision, reported as an error. Sites are binned on a grid
-// whose cells are at least tol wide in every direction, so each image is
-// compared only with the sites in its own and the 26 adjacent grid cells.
+// shortest periodic distance) are one site. Images of different rows that
+// close share the site when both rows are partly occupied and their
+// occupancies sum to at most 1 (a disordered site, summed as its mean
+// charge); otherwise they are a collision, reported as an error. Sites are
+// binned on a grid whose cells are at least tol wide in every direction, so
+// each image is compared only with the sites in its own and the 26 adjacent
+// grid cells.
 func expand(c *crystal.Crystal, asym []asymSite, ops []Symop, tol float64, rd *reader) error {
-	var owner []int
+	var owners [][]int // rows sharing each site
 	g := newGrid(c, tol)
 	for i, s := range asym {
+		occupant := crystal.Occupant{Label: s.label, Element: s.element, Occupancy: s.occ, Charge: s.charge, ChargeKnown: s.known}
 		for _, op := range ops {
 			f := op.Apply(s.frac)
 			for k := range f {
@@ -541,10 +616,25 @@ func expand(c *crystal.Crystal, asym []asymSite, ops []Symop, tol float64, rd *r
 			}
 			j := g.find(c, f, tol)
 			if j >= 0 {
-				if owner[j] != i {
-					o := asym[owner[j]]
+				if slices.Contains(owners[j], i) {
+					continue
+				}
+				site := &c.Sites[j]
+				total := s.occ
+				for _, o := range site.Occupants {
+					total += o.Occupancy
+				}
+				if s.occ == 1 || total > 1+crystal.OccupancyTolerance {
+					o := asym[owners[j][0]]
 					return rd.errf(s.line, "_atom_site_label", ErrCollision,
-						"an image of site %s falls within %g Å of site %s (line %d); if the two share the site with partial occupancy, that is not supported; otherwise check the coordinates", s.label, tol, o.label, o.line)
+						"an image of site %s falls within %g Å of site %s (line %d), and their occupancies sum to %g, more than 1; check the coordinates and occupancies", s.label, tol, o.label, o.line, total)
+				}
+				owners[j] = append(owners[j], i)
+				site.Occupants = append(slices.Clone(site.Occupants), occupant)
+				site.Species = crystal.Composition(site.Occupants)
+				site.Charge = crystal.MeanCharge(site.Occupants)
+				if site.Label != s.label {
+					site.Label += "/" + s.label
 				}
 				continue
 			}
@@ -552,8 +642,9 @@ func expand(c *crystal.Crystal, asym []asymSite, ops []Symop, tol float64, rd *r
 				return rd.errf(0, "", ErrBadValue, "more than %d sites after symmetry expansion; that is beyond what this reader accepts", maxSites)
 			}
 			g.add(f, len(c.Sites))
-			c.Sites = append(c.Sites, crystal.Site{Label: s.label, Species: s.element, Charge: s.charge, Frac: f})
-			owner = append(owner, i)
+			occ := []crystal.Occupant{occupant}
+			c.Sites = append(c.Sites, crystal.Site{Label: s.label, Species: crystal.Composition(occ), Charge: crystal.MeanCharge(occ), Frac: f, Occupants: occ})
+			owners = append(owners, []int{i})
 		}
 	}
 	return nil
@@ -673,15 +764,22 @@ func (rd *reader) neutral(c *crystal.Crystal) error {
 
 // formulaUnits returns Z from _cell_formula_units_Z, or else the greatest
 // common divisor of the element counts in the cell (so Na4Cl4 gives 4 and
-// Ti2O4 gives 2). A given Z must divide every count.
+// Ti2O4 gives 2). Counts are weighted by occupancy; where they are not whole
+// numbers and the file gives no Z, Z is 1. A given Z must divide every count
+// of an ordered cell.
 func (rd *reader) formulaUnits(c *crystal.Crystal) (int, error) {
 	counts := map[string]int{}
-	for _, s := range c.Sites {
-		counts[s.Species]++
+	whole := true
+	for el, n := range c.ElementCounts() {
+		counts[el] = int(math.Round(n))
+		whole = whole && math.Abs(n-math.Round(n)) < 1e-6 && counts[el] > 0
 	}
 	g := 0
 	for _, n := range counts {
 		g = gcd(g, n)
+	}
+	if !whole || g == 0 {
+		g = 1
 	}
 	zf, ok, err := rd.number("_cell_formula_units_z", nil)
 	if err != nil {
@@ -695,7 +793,7 @@ func (rd *reader) formulaUnits(c *crystal.Crystal) (int, error) {
 	if math.Abs(zf-float64(z)) > 1e-9 || z <= 0 {
 		return 0, rd.errf(line, "_cell_formula_units_Z", ErrBadValue, "Z = %g must be a positive whole number", zf)
 	}
-	if g%z != 0 {
+	if whole && !rd.disordered() && g%z != 0 {
 		var els []string
 		for el := range counts {
 			els = append(els, el)
@@ -709,6 +807,16 @@ func (rd *reader) formulaUnits(c *crystal.Crystal) (int, error) {
 			"Z = %d does not divide the cell content after symmetry expansion (%s); check that every symmetry operation is listed", z, strings.Join(parts, ", "))
 	}
 	return z, nil
+}
+
+// disordered reports a file with a partly occupied site.
+func (rd *reader) disordered() bool {
+	for _, s := range rd.asym {
+		if s.occ < 1 {
+			return true
+		}
+	}
+	return false
 }
 
 func gcd(a, b int) int {

@@ -10,13 +10,14 @@ import (
 type tokenKind int
 
 const (
-	tokData   tokenKind = iota // data_NAME block header
-	tokLoop                    // loop_
-	tokTag                     // _data_name
-	tokValue                   // a value: unquoted, quoted or text field
-	tokSave                    // save_ or save_NAME (frames belong to dictionaries)
-	tokGlobal                  // global_ (STAR, not allowed in CIF)
-	tokStop                    // stop_ (STAR, not allowed in CIF)
+	tokData    tokenKind = iota // data_NAME block header
+	tokLoop                     // loop_
+	tokTag                      // _data_name
+	tokValue                    // a value: unquoted, quoted or text field
+	tokSave                     // save_ or save_NAME (frames belong to dictionaries)
+	tokGlobal                   // global_ (STAR, not allowed in CIF)
+	tokStop                     // stop_ (STAR, not allowed in CIF)
+	tokSkipped                  // values of a loop the reader does not use, counted but not kept
 )
 
 // token is one lexical element of a CIF file.
@@ -28,6 +29,40 @@ type token struct {
 	// quoted is true for a value written in quotes or as a text field: such a
 	// value is always a string, so '?' in quotes is not the "unknown" mark.
 	quoted bool
+	// count is the number of values a tokSkipped token stands for.
+	count int
+}
+
+// readLoop reports whether the reader uses a loop holding tag (normalized):
+// the values of every other loop are counted while tokenising, not kept,
+// so that a file carrying large tables the reader ignores (reflections,
+// anisotropic displacements) costs no memory for them.
+func readLoop(tag string) bool {
+	if strings.HasPrefix(tag, "_atom_site_aniso") {
+		return false
+	}
+	for _, p := range [...]string{"_atom_site_", "_atom_type_", "_space_group_symop_", "_symmetry_equiv_pos_"} {
+		if strings.HasPrefix(tag, p) {
+			return true
+		}
+	}
+	return false
+}
+
+// maxKeptTokens bounds the tokens kept from one file (values of the loops
+// read and single items): an atom-site loop of maxSites rows of twenty
+// columns fits.
+const maxKeptTokens = 20*maxSites + 100000
+
+// loopState follows the loop being tokenised: whether its values are kept,
+// whether it is the atom-site loop, how many tags and values it has.
+type loopState struct {
+	open     bool // after loop_, until a token other than a tag or value
+	inBody   bool // a value has been seen
+	keep     bool
+	atomSite bool
+	tags     int
+	values   int
 }
 
 // tokenize splits a CIF 1.1 file into tokens, following the syntax of
@@ -38,6 +73,46 @@ type token struct {
 // next line starting with ';'. Reserved words are case-insensitive.
 func tokenize(src string, file string) ([]token, error) {
 	var toks []token
+	var lp loopState
+	// emit adds a token, following the loop it belongs to: values of a loop
+	// the reader does not use are folded into one tokSkipped token, and the
+	// atom-site loop is refused as soon as it has more rows than the reader
+	// accepts sites.
+	emit := func(t token) error {
+		switch {
+		case t.kind == tokValue && lp.open:
+			lp.inBody = true
+			lp.values++
+			if lp.atomSite && lp.tags > 0 && lp.values > maxSites*lp.tags {
+				return &Error{File: file, Line: t.line, Tag: "_atom_site_fract_x", Err: ErrBadValue,
+					Msg: fmt.Sprintf("the atom-site loop has more than %d rows; that is beyond what this reader accepts", maxSites)}
+			}
+			if !lp.keep {
+				if n := len(toks); n > 0 && toks[n-1].kind == tokSkipped {
+					toks[n-1].count++
+					toks[n-1].line = t.line
+				} else {
+					toks = append(toks, token{kind: tokSkipped, line: t.line, col: t.col, count: 1})
+				}
+				return nil
+			}
+		case t.kind == tokTag && lp.open && !lp.inBody:
+			tag := normalizeTag(t.text)
+			lp.tags++
+			lp.keep = lp.keep || readLoop(tag)
+			lp.atomSite = lp.atomSite || tag == "_atom_site_fract_x"
+		case t.kind == tokLoop:
+			lp = loopState{open: true}
+		default:
+			lp = loopState{}
+		}
+		if len(toks) >= maxKeptTokens {
+			return &Error{File: file, Line: t.line, Err: ErrBadValue,
+				Msg: fmt.Sprintf("more than %d data values to read; that is beyond what this reader accepts", maxKeptTokens)}
+		}
+		toks = append(toks, t)
+		return nil
+	}
 	line, col := 1, 1
 	i := 0
 	n := len(src)
@@ -108,7 +183,9 @@ func tokenize(src string, file string) ([]token, error) {
 			if !closed {
 				return nil, syntaxErr(startLine, "text field opened with ';' is never closed (a line starting with ';' must end it)")
 			}
-			toks = append(toks, token{kind: tokValue, text: b.String(), line: startLine, col: 1, quoted: true})
+			if err := emit(token{kind: tokValue, text: b.String(), line: startLine, col: 1, quoted: true}); err != nil {
+				return nil, err
+			}
 			col = 2
 			i = j
 			atLineStart = false
@@ -125,7 +202,9 @@ func tokenize(src string, file string) ([]token, error) {
 				}
 				j++
 			}
-			toks = append(toks, token{kind: tokValue, text: src[i+1 : j], line: line, col: col, quoted: true})
+			if err := emit(token{kind: tokValue, text: src[i+1 : j], line: line, col: col, quoted: true}); err != nil {
+				return nil, err
+			}
 			col += utf8.RuneCountInString(src[i : j+1]) // columns count characters, not bytes
 			i = j + 1
 			atLineStart = false
@@ -162,7 +241,9 @@ func tokenize(src string, file string) ([]token, error) {
 		default:
 			t.kind = tokValue
 		}
-		toks = append(toks, t)
+		if err := emit(t); err != nil {
+			return nil, err
+		}
 		col += utf8.RuneCountInString(word)
 		i = j
 		atLineStart = false

@@ -40,6 +40,10 @@ type Site struct {
 	Charge float64
 	// Frac is the fractional position in the cell.
 	Frac Vec3
+	// Occupants are the species a structure file put on this site, with
+	// their occupancies (see Occupant); nil for a prototype's site. When
+	// set, Charge is their mean charge and Species their Composition.
+	Occupants []Occupant
 }
 
 // Crystal is a periodic arrangement of point charges.

@@ -1,6 +1,7 @@
 package ewald
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -37,6 +38,9 @@ type Options struct {
 	// alpha, when positive, forces the splitting parameter (1/Å); only the
 	// package's tests set it, to show the result does not depend on it.
 	alpha float64
+	// charged lets a cell with a net charge through to the sums; only
+	// SumCharged sets it, and adds the background term (background.go).
+	charged bool
 }
 
 // Result is the outcome of an Ewald sum.
@@ -92,7 +96,7 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 	if c == nil {
 		return Result{}, fmt.Errorf("Ewald sum: no crystal given")
 	}
-	if err := c.Validate(); err != nil {
+	if err := c.Validate(); err != nil && !(opt.charged && errors.Is(err, crystal.ErrNotNeutral)) {
 		return Result{}, fmt.Errorf("Ewald sum: %w", err)
 	}
 	hasCation, hasAnion := false, false

@@ -164,6 +164,8 @@ func TestRadiusFitRuns(t *testing.T) {
 	}
 	f := res.(*analysis.FittedRadius)
 	v := m.View()
+	drive.Run(u, drive.Key("f")) // the list is longer than the screen: page down once
+	v += m.View()
 	for _, s := range f.Used() {
 		if !strings.Contains(v, s.Formula) {
 			t.Errorf("salt %s used but not shown:\n%s", s.Formula, v)

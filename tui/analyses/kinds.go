@@ -131,5 +131,6 @@ func kinds() []kind {
 			},
 		},
 	}
+	ks = append(ks, stabilityKind(func() kind { return ks[len(ks)-1] }))
 	return ks
 }

@@ -21,6 +21,8 @@ func (m *Model) render(r any) []string {
 		return m.radius(r)
 	case *analysis.FittedRadius:
 		return m.radiusFit(r)
+	case *analysis.Stability:
+		return m.stability(r)
 	}
 	return []string{fmt.Sprintf("%v", r)}
 }
@@ -68,12 +70,14 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		if c.FromData {
 			from = "data"
 		}
-		verdict := "stable on enthalpy"
+		verdict := "no reaction favoured beyond 2σ"
 		switch {
 		case c.LosesNonMetal:
 			verdict = "gives off " + s.Released + " to form " + c.LowerState
 		case !c.Stable:
 			verdict = "disproportionates"
+		case c.Undecided:
+			verdict = "undecided within the data"
 		}
 		if c.Formula == s.Favoured {
 			verdict += " · favoured"
@@ -85,11 +89,7 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		lines = append(lines, st.Title.Render("  disproportionations"))
 	}
 	for _, d := range s.Disproportionations {
-		mark := "not favoured"
-		if d.Favoured {
-			mark = "favoured (exothermic)"
-		}
-		lines = append(lines, m.row(fmt.Sprintf("  %-28s %s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), mark)))
+		lines = append(lines, m.row(fmt.Sprintf("  %-28s %s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), d.Energies.Verdict)))
 	}
 	for _, c := range s.Compounds {
 		for _, n := range c.Notes {

@@ -3,13 +3,13 @@ package bench
 import (
 	"fmt"
 	"io"
-	"os"
 	"path/filepath"
 
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
 
 	"enthalpath/cycle"
+	"enthalpath/thermo/fileio"
 	"enthalpath/tui/hessdiagram"
 	"enthalpath/tui/prompt"
 	"enthalpath/tui/screen"
@@ -315,23 +315,10 @@ func (m *Model) askExport() {
 		}))
 }
 
-// writeSVG writes atomically: a temporary file beside path, then a rename.
+// writeSVG writes the drawing atomically (fileio.WriteAtomic): it keeps
+// the mode of a file it replaces and never replaces a link or a device.
 func writeSVG(path string, d interface{ WriteSVG(w io.Writer) error }) error {
-	dir := filepath.Dir(path)
-	f, err := os.CreateTemp(dir, ".svg-*")
-	if err != nil {
-		return err
-	}
-	tmp := f.Name()
-	defer os.Remove(tmp)
-	if err := d.WriteSVG(f); err != nil {
-		f.Close()
-		return err
-	}
-	if err := f.Close(); err != nil {
-		return err
-	}
-	return os.Rename(tmp, path)
+	return fileio.WriteAtomic(path, 0o644, d.WriteSVG)
 }
 
 func stem(s string) string {

@@ -173,6 +173,7 @@ func (m *Model) View() string {
 	}
 	lines = append(lines, m.madelungLines(res)...)
 	lines = append(lines, m.extendedLines(res)...)
+	lines = append(lines, m.siteLines()...)
 	// The settings take the rows left; when too few, the list scrolls with
 	// the cursor and its title says which rows are shown.
 	var edit []string

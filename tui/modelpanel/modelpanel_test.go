@@ -193,6 +193,17 @@ func TestStructureFromACIFFile(t *testing.T) {
 	if math.Abs(mr.Inputs.Madelung-1.747565) > 1e-5 {
 		t.Errorf("Madelung constant from the CIF = %.6f, want 1.747565", mr.Inputs.Madelung)
 	}
+	// The file carries no charges: the compound's ions are assigned, and
+	// the screen lists its sites with their potential and bond-valence sum
+	// (rock salt's cation potential is −A·e/(4πε₀·d) = −8.92 V at
+	// d = 2.820 Å, from A = 1.747565 and the NaCl cell; the sum of six
+	// Na–Cl bonds at 2.820 Å is near 1, Brown's rule, common practice).
+	v := m.View()
+	for _, want := range []string{"Sites of salt.cif", "Na", "φ -8.92", "BVS 1."} {
+		if !strings.Contains(v, want) {
+			t.Errorf("Models screen lacks %q:\n%s", want, v)
+		}
+	}
 }
 
 func must(s string, err error) string {

@@ -7,7 +7,6 @@ import (
 	"strings"
 
 	"enthalpath/cycle"
-	"enthalpath/thermo/cif"
 	"enthalpath/thermo/crystal"
 )
 
@@ -63,20 +62,9 @@ func settingsRows() []setting {
 					if err != nil {
 						return err
 					}
-					// Charges the file does not state come from the compound's
-					// ions (by element), so a plain structure file works too.
-					charges := map[string]float64{}
-					for _, p := range []cycle.Part{c.Cation, c.Anion} {
-						if !p.Ion.Polyatomic && p.Ion.Core != "" {
-							charges[p.Ion.Core] = float64(p.Ion.Charge)
-						}
-					}
-					cell, err := cif.ParseFile(path, cif.Options{Charges: charges})
-					if err != nil {
-						return err
-					}
-					c.Settings.Structure = cycle.Structure{CIF: text, Cell: cell}
-					return nil
+					// Charges the file does not state are assigned from the
+					// compound's ions, so a plain structure file works too.
+					return c.LoadStructureFile(path, text)
 				}
 				if _, err := crystal.LookupPrototype(text); err != nil {
 					return fmt.Errorf("%q is neither a prototype (%s) nor a .cif file", text, strings.Join(crystal.PrototypeNames(), ", "))

@@ -7,6 +7,10 @@ import (
 	"os"
 	"path/filepath"
 	"strings"
+	"unicode"
+	"unicode/utf8"
+
+	"enthalpath/thermo/fileio"
 )
 
 // Limits on a typed name, in bytes.
@@ -23,6 +27,7 @@ var (
 	ErrEmpty        = errors.New("the name is empty")
 	ErrTooLong      = errors.New("the name is too long")
 	ErrControl      = errors.New("the name holds a NUL byte or another control character")
+	ErrInvisible    = errors.New("the name holds a character that does not show")
 	ErrAbsolute     = errors.New("the name is an absolute path")
 	ErrHome         = errors.New(`the name starts with "~"`)
 	ErrClimb        = errors.New(`the name has a ".." component`)
@@ -114,6 +119,28 @@ func Join(root, name string) (string, error) {
 	return current, nil
 }
 
+// CheckCharacters refuses a name with a character that does not show as
+// itself: a control character (NUL, escape, C1), an invisible formatting
+// character (the right-to-left override U+202E that makes "evil‮txt.exe"
+// read backwards, zero-width spaces and joiners, the byte-order mark), a
+// line or paragraph separator, a private-use or unassigned code point, or
+// bytes that are not UTF-8.
+func CheckCharacters(name string) error {
+	if !utf8.ValidString(name) {
+		return &RefusedError{Name: name, Reason: ErrInvisible, Hint: "type the name again; it holds bytes that are not text"}
+	}
+	for _, r := range name {
+		switch {
+		case r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0):
+			return &RefusedError{Name: name, Reason: ErrControl, Hint: "type the name with printable characters only"}
+		case unicode.In(r, unicode.Cf, unicode.Zl, unicode.Zp, unicode.Co, unicode.Cs) || !unicode.IsPrint(r) && r != ' ':
+			return &RefusedError{Name: name, Reason: ErrInvisible,
+				Hint: fmt.Sprintf("it holds U+%04X, which does not show; type the name with visible characters only", r)}
+		}
+	}
+	return nil
+}
+
 // checkName applies the rules that need no file system.
 func checkName(name string) error {
 	refuse := func(reason error, hint string) error {
@@ -125,10 +152,8 @@ func checkName(name string) error {
 	case len(name) > MaxNameLen:
 		return refuse(ErrTooLong, fmt.Sprintf("use at most %d bytes", MaxNameLen))
 	}
-	for _, r := range name {
-		if r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0) {
-			return refuse(ErrControl, "type the name with printable characters only")
-		}
+	if err := CheckCharacters(name); err != nil {
+		return err
 	}
 	if filepath.IsAbs(name) || strings.HasPrefix(name, "/") || strings.HasPrefix(name, `\`) {
 		return refuse(ErrAbsolute, "type a name relative to your folder, such as cycles/NaCl")
@@ -136,13 +161,18 @@ func checkName(name string) error {
 	if strings.HasPrefix(name, "~") {
 		return refuse(ErrHome, "names are already relative to your folder; drop the ~")
 	}
-	for _, part := range strings.Split(name, string(filepath.Separator)) {
+	parts := strings.Split(name, string(filepath.Separator))
+	for _, part := range parts {
 		if part == ".." {
 			return refuse(ErrClimb, "names cannot leave your folder; type a name inside it")
 		}
 		if len(part) > MaxComponentLen {
 			return refuse(ErrTooLong, fmt.Sprintf("use at most %d bytes between slashes", MaxComponentLen))
 		}
+	}
+	if last := parts[len(parts)-1]; len(last) > fileio.MaxBaseName {
+		// Saving writes a temporary name longer than the file's own.
+		return refuse(ErrTooLong, fmt.Sprintf("use at most %d bytes for the file's own name", fileio.MaxBaseName))
 	}
 	if filepath.Clean(name) == "." {
 		return refuse(ErrEmpty, "type a file name, not the folder itself")

@@ -6,6 +6,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"enthalpath/thermo/fileio"
 )
 
 // The rules tested here are common practice for confining user-typed names
@@ -87,7 +89,19 @@ func TestJoin(t *testing.T) {
 		{name: "esc\x1b[2J", err: ErrControl},
 		{name: "c1\u009b2J", err: ErrControl},
 		{name: strings.Repeat("a", MaxComponentLen+1), err: ErrTooLong},
-		{name: strings.Repeat("a", MaxComponentLen), want: strings.Repeat("a", MaxComponentLen)},
+		// A folder may take NAME_MAX; the file's own name less, for the
+		// temporary name a save writes beside it (issue 11: a 245-byte
+		// name passed and then failed on the temporary name).
+		{name: strings.Repeat("a", MaxComponentLen) + "/x", want: strings.Repeat("a", MaxComponentLen) + "/x"},
+		{name: strings.Repeat("a", fileio.MaxBaseName), want: strings.Repeat("a", fileio.MaxBaseName)},
+		{name: strings.Repeat("a", fileio.MaxBaseName+1), err: ErrTooLong},
+		{name: "evil\u202etxt.hesscycle", err: ErrInvisible},
+		{name: "zero\u200bwidth", err: ErrInvisible},
+		{name: "bom\ufeff", err: ErrInvisible},
+		{name: "private\ue000use", err: ErrInvisible},
+		{name: "line\u2028sep", err: ErrInvisible},
+		{name: "bad\xffutf8", err: ErrInvisible},
+		{name: "café cycles/NaCl", want: "café cycles/NaCl"},
 		{name: strings.Repeat("abcdefgh/", MaxNameLen/9+1), err: ErrTooLong},
 		{name: "out/secret", err: ErrLinkOutside},
 		{name: "out/new.cycle", err: ErrLinkOutside},

@@ -45,8 +45,10 @@ type SessionSetup struct {
 	// Folder is the user's own folder; every file the session opens or
 	// saves must be inside it (resolve names with safepath.Join).
 	Folder string
-	// RecoveryPath is where the model writes unsaved work when it is told
-	// to shut down or after a failure; it is inside Folder.
+	// RecoveryPath is where the model keeps unsaved work when it is told
+	// to shut down or after a failure: this name inside Folder or the
+	// first free name of its series, never over an earlier file
+	// (fileio.WriteNew). The model says which file through Recoverer.
 	RecoveryPath string
 	// MaxInputLen bounds the length of any text the user types in a field.
 	MaxInputLen int
@@ -68,10 +70,11 @@ type Config struct {
 	StateDir string
 
 	// RecoveryFile is the base name of a user's recovery file inside their
-	// folder (default "recovered.cycle"). The name is the same from one
-	// session to the next, so a new session can offer the work an earlier
-	// one left; a user's second concurrent session gets "recovered-2.cycle",
-	// and so on, so concurrent sessions never write over each other.
+	// folder (default "recovered.cycle"). Every session of the user is
+	// given the same name, so a new session can offer the work an earlier
+	// one left; the model writes that name or the first free one of its
+	// series ("recovered-2.cycle", …), never over an earlier file, and
+	// reports which through Recoverer.
 	RecoveryFile string
 
 	MaxSessions int

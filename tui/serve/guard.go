@@ -27,9 +27,37 @@ type guard struct {
 	report   func(where string, value any, stack []byte)
 	send     func(tea.Msg) // sends to the program from outside the event loop
 
-	mu     sync.Mutex
-	failed bool
-	saved  bool
+	mu        sync.Mutex
+	failed    bool
+	saved     bool
+	saveEnded chan struct{} // closed when the save after a failure is over
+}
+
+// Recoverer is a session model that says where it kept unsaved work: the
+// file it wrote when told to shut down or after a failure, or "". The
+// server asks it when the session ends, to tell the member, rather than
+// guess from the folder.
+type Recoverer interface{ RecoveredTo() string }
+
+// recoveredTo asks the model where it kept unsaved work, once the program
+// has stopped; "" when it kept none, cannot say, or is still saving after a
+// failure past saveBudget.
+func (g *guard) recoveredTo() string {
+	g.mu.Lock()
+	ended := g.saveEnded
+	g.mu.Unlock()
+	if ended != nil {
+		select {
+		case <-ended:
+		case <-time.After(saveBudget):
+			return ""
+		}
+	}
+	r, ok := g.inner.(Recoverer)
+	if !ok {
+		return ""
+	}
+	return r.RecoveredTo()
 }
 
 var _ tea.Model = (*guard)(nil)
@@ -119,8 +147,9 @@ func (g *guard) save() {
 		return
 	}
 	g.saved = true
-	g.mu.Unlock()
 	done := make(chan struct{})
+	g.saveEnded = done
+	g.mu.Unlock()
 	go func() {
 		defer close(done)
 		defer func() {

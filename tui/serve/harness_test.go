@@ -21,6 +21,7 @@ import (
 	"github.com/charmbracelet/x/ansi"
 	gossh "golang.org/x/crypto/ssh"
 
+	"enthalpath/thermo/fileio"
 	"enthalpath/tui/safepath"
 )
 
@@ -44,7 +45,11 @@ type probe struct {
 	naming     bool
 	name, note string
 	viewPanic  bool
+	recovered  string
 }
+
+// RecoveredTo implements Recoverer.
+func (p *probe) RecoveredTo() string { return p.recovered }
 
 func newProbe(setups chan<- SessionSetup) ModelFactory {
 	return func(s SessionSetup) tea.Model {
@@ -63,11 +68,14 @@ func (p *probe) Init() tea.Cmd { return nil }
 func (p *probe) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 	switch msg := msg.(type) {
 	case probeShutdown:
-		if p.typed != "" {
+		if p.typed != "" && p.recovered == "" {
+			// As the workshop does: never over an earlier file.
 			content := fmt.Sprintf("reason: %s\ntyped: %s\n", msg.reason, p.typed)
-			if err := os.WriteFile(p.setup.RecoveryPath, []byte(content), 0o600); err != nil {
+			written, err := fileio.WriteNew(p.setup.RecoveryPath, 0o600, []byte(content))
+			if err != nil {
 				p.note = err.Error()
 			}
+			p.recovered = written
 		}
 		return p, tea.Quit
 	case probeNotice:

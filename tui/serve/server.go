@@ -28,14 +28,11 @@ type Server struct {
 	conns    atomic.Int64
 	maxConns int64
 
-	mu       sync.Mutex
-	sessions map[*liveSession]struct{}
-	// recoveryInUse holds, per user folder, the recovery-file numbers of
-	// that user's running sessions.
-	recoveryInUse map[string]map[int]bool
-	listeners     []net.Listener
-	closing       bool
-	sessWG        sync.WaitGroup
+	mu        sync.Mutex
+	sessions  map[*liveSession]struct{}
+	listeners []net.Listener
+	closing   bool
+	sessWG    sync.WaitGroup
 }
 
 // New checks cfg, loads or creates the host key and reads the
@@ -46,15 +43,21 @@ func New(cfg Config) (*Server, error) {
 		return nil, err
 	}
 	s := &Server{
-		cfg:           cfg,
-		log:           cfg.Logger,
-		slots:         make(chan struct{}, cfg.MaxSessions),
-		sessions:      make(map[*liveSession]struct{}),
-		recoveryInUse: make(map[string]map[int]bool),
+		cfg:      cfg,
+		log:      cfg.Logger,
+		slots:    make(chan struct{}, cfg.MaxSessions),
+		sessions: make(map[*liveSession]struct{}),
 		// Connections that have not opened a session yet (or are being
 		// refused) are bounded too, so a flood of handshakes cannot
 		// exhaust the host.
 		maxConns: int64(4*cfg.MaxSessions + 16),
+	}
+	// The key file first: a server that cannot start must not leave a new
+	// host key behind.
+	if cfg.AuthorizedKeysPath != "" {
+		if s.keys, err = loadAuthorizedKeys(cfg.AuthorizedKeysPath, s.log); err != nil {
+			return nil, err
+		}
 	}
 	signer, created, err := LoadOrCreateHostKey(cfg.HostKeyPath)
 	if err != nil {
@@ -65,11 +68,6 @@ func New(cfg Config) (*Server, error) {
 		s.log.Info("host key created", "path", cfg.HostKeyPath, "fingerprint", gossh.FingerprintSHA256(signer.PublicKey()))
 	} else {
 		s.log.Info("host key loaded", "path", cfg.HostKeyPath, "fingerprint", gossh.FingerprintSHA256(signer.PublicKey()))
-	}
-	if cfg.AuthorizedKeysPath != "" {
-		if s.keys, err = loadAuthorizedKeys(cfg.AuthorizedKeysPath, s.log); err != nil {
-			return nil, err
-		}
 	}
 	s.ssh, err = wish.NewServer(
 		// The host key goes in as an option: wish.NewServer writes a fresh

@@ -14,6 +14,8 @@ import (
 
 	tea "github.com/charmbracelet/bubbletea"
 	gossh "golang.org/x/crypto/ssh"
+
+	"enthalpath/thermo/fileio"
 )
 
 // The expected behaviours below come from the project's issue 7 (what the
@@ -584,23 +586,76 @@ func TestLoopbackOnlyWithoutAuthorizedKeys(t *testing.T) {
 	client.Close()
 }
 
-func TestRecoveryFilesPerConcurrentSession(t *testing.T) {
-	ts := startServer(t, func(c *Config) { c.RecoveryFile = "kept.hesscycle" })
-	dir := filepath.Join(ts.state, "users", "u")
-	first, releaseFirst := ts.srv.claimRecovery(dir)
-	second, releaseSecond := ts.srv.claimRecovery(dir)
-	other, releaseOther := ts.srv.claimRecovery(filepath.Join(ts.state, "users", "v"))
-	defer releaseOther()
-	if filepath.Base(first) != "kept.hesscycle" || filepath.Base(second) != "kept-2.hesscycle" || filepath.Base(other) != "kept.hesscycle" {
-		t.Errorf("names = %s, %s, %s", first, second, other)
+// TestRecoveryFilesNeverReplaced: successive sessions that end with
+// unsaved work each leave a recovery file of their own (an earlier one was
+// once overwritten by the next session), and each closing line names the
+// file its own session wrote, as the model reports it.
+func TestRecoveryFilesNeverReplaced(t *testing.T) {
+	ts := startServer(t, func(c *Config) { c.IdleTimeout = 300 * time.Millisecond })
+	for i, typed := range []string{"NaCl", "KBr"} {
+		tm := ts.mustTerm(t, ts.key, termOptions{})
+		tm.mustSee("enthalpath probe screen")
+		tm.typeKeys(typed)
+		tm.mustSee("keys: " + typed + "|")
+		if code, err := tm.exit(5 * time.Second); err != nil || code != ExitIdle {
+			t.Fatalf("session %d: exit %d, %v; want %d", i+1, code, err, ExitIdle)
+		}
+		want := []string{"recovered.cycle", "recovered-2.cycle"}[i]
+		if msg := tm.stderr.String(); !strings.Contains(msg, "Your unsaved work is in "+want+".") {
+			t.Errorf("session %d: closing line %q does not name %s", i+1, msg, want)
+		}
 	}
-	releaseFirst()
-	again, releaseAgain := ts.srv.claimRecovery(dir)
-	defer releaseAgain()
-	defer releaseSecond()
-	if again != first {
-		t.Errorf("a freed name is not reused: %s, want %s", again, first)
+	got := recoveryFiles(t, ts, ts.key)
+	if len(got) != 2 || !strings.Contains(strings.Join(got, ""), "typed: NaCl") || !strings.Contains(strings.Join(got, ""), "typed: KBr") {
+		t.Errorf("recovery files = %q; want NaCl's and KBr's", got)
 	}
+}
+
+// TestConcurrentSessionsRecoverApart: a member's sessions at once, all
+// stopped together, write different files of the one series, each named to
+// its own session (a second concurrent keep once wrote recovery-2-2, a name
+// never offered).
+func TestConcurrentSessionsRecoverApart(t *testing.T) {
+	ts := startServer(t, nil)
+	var terms []*term
+	for _, typed := range []string{"LiF", "NaF", "KF"} {
+		tm := ts.mustTerm(t, ts.key, termOptions{})
+		tm.mustSee("enthalpath probe screen")
+		tm.typeKeys(typed)
+		tm.mustSee("keys: " + typed + "|")
+		terms = append(terms, tm)
+	}
+	if err := ts.shutdown(t); err != nil {
+		t.Fatal(err)
+	}
+	folder := filepath.Join(ts.state, "users", UserFolderName(ts.key.PublicKey()))
+	named := map[string]bool{}
+	for i, tm := range terms {
+		tm.exit(5 * time.Second)
+		_, name, ok := strings.Cut(tm.stderr.String(), "Your unsaved work is in ")
+		name, _, _ = strings.Cut(name, ".\r")
+		name = strings.TrimSuffix(name, ".")
+		if !ok || named[name] {
+			t.Fatalf("session %d: closing line %q names no file of its own", i+1, tm.stderr.String())
+		}
+		named[name] = true
+		b, err := os.ReadFile(filepath.Join(folder, name))
+		if err != nil || !strings.Contains(string(b), "typed: "+[]string{"LiF", "NaF", "KF"}[i]) {
+			t.Errorf("session %d: %s holds %q, %v", i+1, name, b, err)
+		}
+	}
+	series := fileio.Series(filepath.Join(folder, "recovered.cycle"))
+	if len(series) != 3 {
+		t.Errorf("series %v, want 3 files", series)
+	}
+	for _, p := range series {
+		if !named[filepath.Base(p)] {
+			t.Errorf("%s was written but no session named it", p)
+		}
+	}
+}
+
+func TestRecoveryFileNameChecked(t *testing.T) {
 	if _, err := New(Config{HostKeyPath: "h", StateDir: "s", RecoveryFile: "../x", NewModel: newProbe(nil),
 		ShutdownMsg: func(string) tea.Msg { return nil }}); !errors.Is(err, ErrConfig) {
 		t.Errorf("RecoveryFile ../x accepted: %v", err)

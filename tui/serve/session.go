@@ -8,7 +8,6 @@ import (
 	"log/slog"
 	"os"
 	"path/filepath"
-	"strings"
 	"sync"
 	"sync/atomic"
 	"time"
@@ -18,6 +17,8 @@ import (
 	"github.com/charmbracelet/wish/bubbletea"
 	"github.com/muesli/termenv"
 	gossh "golang.org/x/crypto/ssh"
+
+	"enthalpath/tui/safepath"
 )
 
 // rendererQueryBudget bounds how long the renderer may wait for the
@@ -148,11 +149,10 @@ func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 		return refuse(sess, log, ExitFailure, "user folder unusable",
 			"your folder on this server could not be prepared; please tell the administrator")
 	}
-	recovery, release := s.claimRecovery(folder)
-	defer release()
-	// A recovery file left by an earlier session must not be announced as
-	// this one's: remember what was there.
-	before, _ := os.Stat(recovery)
+	// Every session of a member names the same recovery file; the model
+	// writes it or the first free name of its series, never over an
+	// earlier one, and says which (Recoverer).
+	recovery := filepath.Join(folder, s.cfg.RecoveryFile)
 
 	var dropped atomic.Int64
 	// The gate reads before the program runs; a drop is told to the
@@ -233,8 +233,12 @@ func (s *Server) run(sess ssh.Session, log *slog.Logger) (int, string) {
 		log.Warn("input dropped in this session", "bytes", n)
 	}
 	saved := ""
-	if recoveryWritten(recovery, before) {
-		saved = " Your unsaved work is in " + filepath.Base(recovery) + "."
+	if p := g.recoveredTo(); p != "" {
+		name, ok := safepath.Rel(folder, p)
+		if !ok {
+			name = filepath.Base(p)
+		}
+		saved = " Your unsaved work is in " + name + "."
 	}
 	reason, exit, byServer := ls.stopped()
 	switch {
@@ -263,16 +267,6 @@ func busyLine(places int) string {
 		return "the one place on this server is taken; please try again in a few minutes"
 	}
 	return fmt.Sprintf("all %d places on this server are taken; please try again in a few minutes", places)
-}
-
-// recoveryWritten reports whether the recovery file exists and differs
-// from what was there at the start (before is nil if nothing was).
-func recoveryWritten(path string, before os.FileInfo) bool {
-	now, err := os.Stat(path)
-	if err != nil {
-		return false
-	}
-	return before == nil || !now.ModTime().Equal(before.ModTime()) || now.Size() != before.Size() || !os.SameFile(now, before)
 }
 
 // buildModel calls the factory with panics contained.
@@ -363,37 +357,6 @@ func (s *Server) userFolder(key gossh.PublicKey) (string, error) {
 		}
 	}
 	return filepath.Abs(dir)
-}
-
-// claimRecovery picks the recovery file of a new session in folder: the
-// configured name for the user's first running session, the same name
-// numbered -2, -3, ... for further concurrent ones. release frees it.
-func (s *Server) claimRecovery(folder string) (path string, release func()) {
-	s.mu.Lock()
-	defer s.mu.Unlock()
-	used := s.recoveryInUse[folder]
-	if used == nil {
-		used = make(map[int]bool)
-		s.recoveryInUse[folder] = used
-	}
-	n := 1
-	for used[n] {
-		n++
-	}
-	used[n] = true
-	name := s.cfg.RecoveryFile
-	if n > 1 {
-		ext := filepath.Ext(name)
-		name = fmt.Sprintf("%s-%d%s", strings.TrimSuffix(name, ext), n, ext)
-	}
-	return filepath.Join(folder, name), func() {
-		s.mu.Lock()
-		defer s.mu.Unlock()
-		delete(used, n)
-		if len(used) == 0 {
-			delete(s.recoveryInUse, folder)
-		}
-	}
 }
 
 // profileName names a termenv colour profile for the log.

@@ -1,0 +1,197 @@
+package cycle_test
+
+import (
+	"go/parser"
+	"go/token"
+	"io/fs"
+	"os"
+	"path/filepath"
+	"sort"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// The arrows of DEVELOPERS.md § Architecture, as rules on import paths of
+// this module. Each rule names the layer a package belongs to (the longest
+// matching prefix) and the layers it may import.
+//
+//	front ends (main, tui, cycle/cli) → cycle → thermo, data
+//	data imports nothing of the project's physics; nothing imports tui;
+//	the engine never imports its command line.
+type layer struct {
+	prefix string   // import path prefix of the layer's packages
+	may    []string // other layers (their prefixes) it may import; "*" any
+	// leaf marks a package of no physics and no data that imports nothing
+	// of the project, which every layer may import.
+	leaf bool
+}
+
+var layers = []layer{
+	{prefix: "enthalpath/thermo", may: nil},
+	{prefix: "enthalpath/data", may: nil},
+	{prefix: "enthalpath/cycle", may: []string{"enthalpath/thermo", "enthalpath/data"}},
+	{prefix: "enthalpath/cycle/cli", may: []string{"enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
+	{prefix: "enthalpath/tui", may: []string{"enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
+	{prefix: "enthalpath", may: []string{"*"}}, // main wires the front ends together
+	// Reading and writing the files a user names (size caps, regular files
+	// only, atomic saves): the CIF reader and the data overlay need it, so
+	// it sits at the bottom, importing nothing of the project.
+	{prefix: "enthalpath/thermo/fileio", leaf: true},
+}
+
+// knownCrossings are imports that break an arrow today, each with its reason;
+// the test fails on any other crossing, and on an entry here that no longer
+// occurs (so the list only shrinks).
+var knownCrossings = map[string]string{
+	"enthalpath/data -> enthalpath/thermo": "data converts eV to kJ/mol with thermo's constants; the conversion moves to the engine (issue 13)",
+}
+
+// layerOf returns the rule for a package: the layer with the longest prefix
+// that is the package itself or one of its parents.
+func layerOf(pkg string) layer {
+	best := layer{prefix: "\x00"}
+	for _, l := range layers {
+		if (pkg == l.prefix || strings.HasPrefix(pkg, l.prefix+"/")) && (best.prefix == "\x00" || len(l.prefix) > len(best.prefix)) {
+			best = l
+		}
+	}
+	return best
+}
+
+func allowed(from, to string) bool {
+	lf, lt := layerOf(from), layerOf(to)
+	if lf.prefix == lt.prefix || lt.leaf {
+		return true
+	}
+	for _, p := range lf.may {
+		if p == "*" || p == lt.prefix {
+			return true
+		}
+	}
+	return false
+}
+
+// moduleImports reads the import lines of every non-test Go file of the
+// module below root and returns "from -> to" edges between its packages.
+func moduleImports(t *testing.T, root string) map[string][]string {
+	t.Helper()
+	edges := map[string][]string{}
+	fset := token.NewFileSet()
+	err := filepath.WalkDir(root, func(path string, d fs.DirEntry, err error) error {
+		if err != nil {
+			return err
+		}
+		if d.IsDir() {
+			name := d.Name()
+			if path != root && (strings.HasPrefix(name, ".") || name == "testdata" || name == "vendor") {
+				return filepath.SkipDir
+			}
+			return nil
+		}
+		if !strings.HasSuffix(path, ".go") || strings.HasSuffix(path, "_test.go") {
+			return nil
+		}
+		f, err := parser.ParseFile(fset, path, nil, parser.ImportsOnly)
+		if err != nil {
+			return err
+		}
+		rel, err := filepath.Rel(root, filepath.Dir(path))
+		if err != nil {
+			return err
+		}
+		pkg := "enthalpath"
+		if rel != "." {
+			pkg += "/" + filepath.ToSlash(rel)
+		}
+		for _, imp := range f.Imports {
+			to, err := strconv.Unquote(imp.Path.Value)
+			if err != nil {
+				return err
+			}
+			if to == "enthalpath" || strings.HasPrefix(to, "enthalpath/") {
+				edges[pkg] = append(edges[pkg], to)
+			}
+		}
+		return nil
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return edges
+}
+
+// crossings lists the edges that break an arrow, sorted.
+func crossings(edges map[string][]string) []string {
+	seen := map[string]bool{}
+	var out []string
+	for from, tos := range edges {
+		for _, to := range tos {
+			e := from + " -> " + to
+			if !allowed(from, to) && !seen[e] {
+				seen[e] = true
+				out = append(out, e)
+			}
+		}
+	}
+	sort.Strings(out)
+	return out
+}
+
+func TestImportsFollowTheArrows(t *testing.T) {
+	root, err := filepath.Abs("..")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := os.Stat(filepath.Join(root, "go.mod")); err != nil {
+		t.Fatalf("module root not found above cycle/: %v", err)
+	}
+	found := crossings(moduleImports(t, root))
+	occurs := map[string]bool{}
+	for _, e := range found {
+		occurs[e] = true
+		if _, ok := knownCrossings[e]; !ok {
+			t.Errorf("import against the arrows of DEVELOPERS.md: %s", e)
+		}
+	}
+	for e, why := range knownCrossings {
+		if !occurs[e] {
+			t.Errorf("known crossing %q (%s) no longer occurs: remove it from knownCrossings", e, why)
+		}
+	}
+}
+
+// The rule table itself, on made-up edges: each arrow the card forbids is
+// reported, each it allows is not.
+func TestArrowRules(t *testing.T) {
+	cases := []struct {
+		from, to string
+		ok       bool
+	}{
+		{"enthalpath/cycle", "enthalpath/thermo/ewald", true},
+		{"enthalpath/cycle/analysis", "enthalpath/data", true},
+		{"enthalpath/cycle", "enthalpath/cycle/cli", false},          // the engine never imports its command line
+		{"enthalpath/cycle/analysis", "enthalpath/cycle/cli", false}, // nor does any part of it
+		{"enthalpath/cycle", "enthalpath/tui", false},                // nothing imports tui
+		{"enthalpath/cycle/cli", "enthalpath/tui/screen", false},
+		{"enthalpath/thermo/ewald", "enthalpath/data", false}, // physics knows no tables
+		{"enthalpath/thermo/lattice", "enthalpath/cycle", false},
+		{"enthalpath/data", "enthalpath/cycle", false},
+		{"enthalpath/data/gen", "enthalpath/thermo", false}, // data holds no physics
+		{"enthalpath/tui/bench", "enthalpath/cycle", true},
+		{"enthalpath/tui/bench", "enthalpath/tui/screen", true},
+		{"enthalpath/tui/bench", "enthalpath/cycle/cli", false},
+		{"enthalpath/cycle/cli", "enthalpath/cycle/analysis", true},
+		{"enthalpath", "enthalpath/tui", true},
+		{"enthalpath", "enthalpath/cycle/cli", true},
+		{"enthalpath/data", "enthalpath/thermo/fileio", true}, // the leaf every layer may use
+		{"enthalpath/thermo/cif", "enthalpath/thermo/fileio", true},
+		{"enthalpath/thermo/fileio", "enthalpath/thermo", false}, // and it uses nothing of the project
+		{"enthalpath/thermo/fileio", "enthalpath/data", false},
+	}
+	for _, c := range cases {
+		if got := allowed(c.from, c.to); got != c.ok {
+			t.Errorf("allowed(%s -> %s) = %v, want %v", c.from, c.to, got, c.ok)
+		}
+	}
+}

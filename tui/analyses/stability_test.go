@@ -1,0 +1,54 @@
+package analyses
+
+import (
+	"strings"
+	"testing"
+
+	"enthalpath/cycle/analysis"
+	"enthalpath/tui/internal/drive"
+)
+
+func kindIndex(t *testing.T, name string) int {
+	t.Helper()
+	for i, k := range kinds() {
+		if k.name == name {
+			return i
+		}
+	}
+	t.Fatalf("no analysis %q", name)
+	return -1
+}
+
+// The stability analysis runs in the screen's job (off Update), shows the
+// reactions with their verdicts and draws ΔrG(T); a temperature that is
+// not a positive number is refused in place.
+func TestStabilityView(t *testing.T) {
+	_, m, u := setup(t)
+	i := kindIndex(t, "stability")
+	for range i {
+		drive.Run(u, drive.Key("j"))
+	}
+	drive.Run(u, drive.Key("e"), drive.Key("ctrl+u"))
+	drive.Run(u, drive.Text("MgCl3 -4")...)
+	drive.Run(u, drive.Key("enter"))
+	if editing, err := m.Editing(); !editing || err == nil {
+		t.Fatalf("temperature -4 accepted: editing=%v err=%v", editing, err)
+	}
+	drive.Run(u, drive.Key("ctrl+u"))
+	drive.Run(u, drive.Text("MgCl3 600")...)
+	drive.Run(u, drive.Key("enter"))
+	res, err := m.Result(i)
+	if err != nil {
+		t.Fatal(err)
+	}
+	st := res.(*analysis.Stability)
+	if st.Temperature != 600 || len(st.Reactions) == 0 {
+		t.Fatalf("stability %+v", st)
+	}
+	v := m.View()
+	for _, want := range []string{"MgCl3 → MgCl2 + ½ Cl2(g)", "favoured", "T (K)", "heat capacities neglected"} {
+		if !strings.Contains(v, want) {
+			t.Errorf("view lacks %q:\n%s", want, v)
+		}
+	}
+}
