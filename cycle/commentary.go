@@ -83,10 +83,7 @@ func (c *Cycle) commentary(r *Result) (notes, warnings []string) {
 		notes = append(notes, "lattice step taken from the "+c.Settings.LatticeFrom+" model with "+basis)
 	}
 	if m, ok := r.Model(ModelExtended); ok && m.Err == nil && m.Inputs.Extended != nil {
-		b := m.Inputs.Extended
-		t := b.Minimum
-		notes = append(notes, fmt.Sprintf("extended model per formula unit at its least energy (d = %.4f Å): Coulomb %.1f, repulsion %+.1f, dispersion %.1f, zero-point %+.1f, n·RT %+.1f kJ/mol",
-			t.D, t.Coulomb, t.Repulsion, t.Dispersion(), t.ZP, -b.LatticeCorrection))
+		notes = append(notes, m.Inputs.Extended.Summary())
 	}
 	for _, m := range r.Models {
 		if m.Err != nil {

@@ -70,6 +70,14 @@ func (b *ExtendedBreakdown) Terms(t lattice.ExtendedTerms) []Term {
 	}
 }
 
+// Summary is the breakdown in one line, kJ/mol per formula unit at the
+// least energy.
+func (b *ExtendedBreakdown) Summary() string {
+	t := b.Minimum
+	return fmt.Sprintf("extended model per formula unit at its least energy (d = %.4f Å): Coulomb %.1f, repulsion %+.1f, dispersion %.1f, zero-point %+.1f, n·RT %+.1f kJ/mol",
+		t.D, t.Coulomb, t.Repulsion, t.Dispersion(), t.ZP, -b.LatticeCorrection)
+}
+
 // Term is one named energy, kJ/mol.
 type Term struct {
 	Name  string

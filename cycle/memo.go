@@ -45,8 +45,6 @@ type Memo struct {
 	m  map[string]memoEntry
 	// sums holds the extended model's pair sums per structure (extended.go).
 	sums map[string]sumsEntry
-	// vals holds the models' validation per data set (validation.go).
-	vals validations
 }
 
 type memoEntry struct {

@@ -494,6 +494,9 @@ func (e *evaluator) volumeModel(in *ModelInputs) (float64, error) {
 	if est.Form == lattice.Form1999 {
 		in.Fit += ", " + est.Fit.Name + " fit α = " + strconv.FormatFloat(est.Fit.Alpha, 'g', -1, 64) + " kJ·nm/mol, β = " +
 			strconv.FormatFloat(est.Fit.Beta, 'g', -1, 64) + " kJ/mol"
+		if est.Fit.Name == "general" {
+			in.Fit += " (no constants for this charge type among the published ones the program has: MX 1:1, MX2 2:1, M2X 1:2; the general fit is used)"
+		}
 	}
 	return est.U, nil
 }

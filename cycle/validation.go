@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 	"slices"
-	"sync"
 
 	"enthalpath/data"
 	"enthalpath/thermo/lattice"
@@ -174,7 +173,7 @@ func (v *Validation) Thresholds(model string) (lattice.Thresholds, string) {
 	}
 	f := m.Family(IonicFamily)
 	th := lattice.Thresholds{Adequate: AdequateSigmas * f.RMSPercent, Substantial: SubstantialSigmas * f.RMSPercent}
-	return th, fmt.Sprintf("thresholds %.1f %% and %.1f %% of |model|: %g σ and %g σ, σ = %.2f %% the RMS gap of the %s model over %d built-in %s (validation of the built-in data)",
+	return th, fmt.Sprintf("thresholds %.1f %% and %.1f %% of |model| (%g σ and %g σ; σ = %.2f %%, the %s model's RMS gap over %d built-in %s)",
 		th.Adequate, th.Substantial, AdequateSigmas, SubstantialSigmas, f.RMSPercent, model, f.N, IonicFamily)
 }
 
@@ -185,7 +184,7 @@ func (v *Validation) Thresholds(model string) (lattice.Thresholds, string) {
 // and why.
 func (v *Validation) Reference(family string, ok func(model string) bool) (string, string) {
 	if ok(ModelExtended) {
-		return ModelExtended, "the extended model, evaluated for this compound"
+		return ModelExtended, "the extended model evaluates here"
 	}
 	best, bestRMS, over := "", math.Inf(1), ""
 	for _, fam := range []string{family, IonicFamily} {
@@ -270,20 +269,13 @@ func Validate(db *data.DB, memo *Memo) *Validation {
 	return v
 }
 
-// validations memoises one Validation per data set on a Memo.
-type validations struct {
-	mu sync.Mutex
-	m  map[*data.DB]*validationOnce
-}
-
-type validationOnce struct {
-	once sync.Once
-	v    *Validation
-}
+// validationKey is the key of the models' validation among the values
+// derived from a data set (data.DB.Derived).
+const validationKey = "cycle.Validation"
 
 // Validation returns the validation of the models over the compounds of
-// c's data, computed once per memo and data set (nil for a cycle built
-// without data).
+// c's data, computed once per data set (nil for a cycle built without
+// data).
 func (c *Cycle) Validation() *Validation {
 	if c.db == nil {
 		return nil
@@ -291,18 +283,8 @@ func (c *Cycle) Validation() *Validation {
 	return c.Memo().Validation(c.db)
 }
 
-// Validation returns Validate(db, m), computed once per memo and data set.
+// Validation returns Validate(db, m), computed once per data set (the
+// first caller's memo does the Ewald sums).
 func (m *Memo) Validation(db *data.DB) *Validation {
-	m.vals.mu.Lock()
-	if m.vals.m == nil {
-		m.vals.m = map[*data.DB]*validationOnce{}
-	}
-	e, ok := m.vals.m[db]
-	if !ok {
-		e = &validationOnce{}
-		m.vals.m[db] = e
-	}
-	m.vals.mu.Unlock()
-	e.once.Do(func() { e.v = Validate(db, m) })
-	return e.v
+	return db.Derived(validationKey, func() any { return Validate(db, m) }).(*Validation)
 }

@@ -10,6 +10,7 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"sync"
 )
 
 //go:embed tables/*.csv
@@ -47,6 +48,8 @@ type DB struct {
 
 	overlays []string
 	problems []string
+
+	derived sync.Map // values computed from this data set once (derived.go)
 }
 
 type ionKey struct {

@@ -40,7 +40,7 @@ func TestGolden(t *testing.T) {
 		{name: "models-MgO", initial: "MgO", keys: []string{"4"}, waitFor: "Ewald Madelung"},
 		{name: "survey", keys: []string{"tab", "tab", "tab", "tab"}, waitFor: "sorted by"},
 		{name: "help-bench", initial: "NaCl", keys: []string{"?"}, waitFor: "Keys on the Bench"},
-		{name: "analyses-scan", keys: []string{"shift+tab", "wait:Analyses beyond", "j", "r"}, waitFor: "disproportionations"},
+		{name: "analyses-scan", keys: []string{"shift+tab", "wait:Analyses beyond", "j", "r"}, waitFor: "Mg with Cl"},
 	}
 	for _, size := range [][2]int{{80, 24}, {120, 40}} {
 		for _, f := range flows {

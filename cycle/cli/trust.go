@@ -47,14 +47,14 @@ func familyReference(v *cycle.Validation, family string) (string, string) {
 func writeTrust(w io.Writer, v *cycle.Validation, list bool) {
 	fmt.Fprintf(w, "lattice models against the cycles of %d built-in compounds that close (ΔH_L at 298.15 K, default settings);\n", v.Compounds)
 	fmt.Fprintf(w, "gap = cycle − model in percent of |model|, negative when the cycle binds more\n\n")
-	t := table{head: []string{"family", "model", "n", "mean", "RMS", "largest", ""}, right: map[int]bool{2: true, 3: true, 4: true, 5: true}}
+	t := table{head: []string{"family", "model", "n", "mean", "RMS", "largest", "", ""}, right: map[int]bool{2: true, 3: true, 4: true, 5: true}}
 	add := func(family string, m *cycle.ModelValidation, s cycle.FamilyStats, mark string) {
 		if s.N == 0 {
-			t.add(family, m.Model, "0", "—", "—", "—", mark)
+			t.add(family, m.Model, "0", "—", "—", "—", "", mark)
 			return
 		}
-		t.add(family, m.Model, strconv.Itoa(s.N), fmt.Sprintf("%+.1f %%", s.MeanPercent), fmt.Sprintf("%.1f %%", s.RMSPercent),
-			fmt.Sprintf("%.1f %% %s", s.MaxPercent, s.Worst), mark)
+		t.add(family, m.Model, strconv.Itoa(s.N), percent(s.MeanPercent), fmt.Sprintf("%.1f %%", s.RMSPercent),
+			fmt.Sprintf("%.1f %%", s.MaxPercent), s.Worst, mark)
 	}
 	for _, fam := range append(cycle.ValidationFamilies(), "all") {
 		ref, _ := familyReference(v, fam)

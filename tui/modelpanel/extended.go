@@ -18,8 +18,12 @@ func verdictNote(res *cycle.Result) string {
 	if v == nil {
 		return "gap = cycle − model (█ left of │: the cycle binds more); no model gives a verdict"
 	}
-	return fmt.Sprintf("gap = cycle − model (█ left of │: the cycle binds more). Verdict: %s, read against %s (%s); %s",
-		v.Verdict.Character, v.Model, res.ReferenceWhy, v.Verdict.Basis)
+	why := ""
+	if v.Model != cycle.ModelExtended {
+		why = " (" + res.ReferenceWhy + ")"
+	}
+	return fmt.Sprintf("gap = cycle − model (█ left of │: the cycle binds more). Verdict read against %s%s; %s",
+		v.Model, why, v.Verdict.Basis)
 }
 
 // extendedLines give the extended model's terms at its least energy.
@@ -32,13 +36,11 @@ func (m *Model) extendedLines(res *cycle.Result) []string {
 		return nil
 	}
 	b := mr.Inputs.Extended
-	terms := b.Terms(b.Minimum)
-	parts := make([]string, len(terms))
-	for i, t := range terms {
-		parts[i] = t.Name + " " + m.ctx.Signed(t.Value)
-	}
-	text := fmt.Sprintf("extended model at d = %.4f Å (least energy; %.4f Å from %s): %s; θ_D %.0f K",
-		b.Minimum.D, b.Reference, refKind(b), strings.Join(parts, " · "), b.Minimum.DebyeTemperature)
+	t := b.Minimum
+	parts := []string{"Coulomb " + m.ctx.Signed(t.Coulomb), "repulsion " + m.ctx.Signed(t.Repulsion),
+		"dispersion " + m.ctx.Signed(t.Dispersion()), "zero-point " + m.ctx.Signed(t.ZP), "n·RT " + m.ctx.Signed(-b.LatticeCorrection)}
+	text := fmt.Sprintf("extended: %s (least at d = %.4f Å; %.4f Å from %s)",
+		strings.Join(parts, " · "), t.D, b.Reference, refKind(b))
 	return screen.Wrap(text, m.w, "  ")
 }
 

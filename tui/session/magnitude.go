@@ -40,9 +40,8 @@ func DataMagnitudes(db *data.DB) Magnitudes {
 			out[s.Kind] = v
 		}
 	}
-	memo := cycle.NewMemo() // one memo: the models' validation is computed once
 	for _, comp := range db.Compounds() {
-		c, err := cycle.Build(db, comp.Formula, cycle.Options{Memo: memo})
+		c, err := cycle.Build(db, comp.Formula, cycle.Options{})
 		if err != nil {
 			continue
 		}
