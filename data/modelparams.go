@@ -1,7 +1,7 @@
 package data
 
 import (
-	"cmp"
+	"maps"
 	"slices"
 	"sync"
 )
@@ -86,23 +86,18 @@ func (p *ModelParams) Source(key string) (Source, bool) {
 // Sources lists the citations of the extended model's tables.
 func (p *ModelParams) Sources() []Source { return slices.Clone(p.sources) }
 
-// Salts lists the salts with coefficients, in table order of formula.
-func (p *ModelParams) Salts() []SaltModelParams {
-	out := make([]SaltModelParams, 0, len(p.salts))
-	for _, s := range p.salts {
-		out = append(out, s)
-	}
-	slices.SortFunc(out, func(a, b SaltModelParams) int { return cmp.Compare(a.Formula, b.Formula) })
-	return out
-}
+// Salts lists the salts with coefficients, sorted by formula.
+func (p *ModelParams) Salts() []SaltModelParams { return valuesByKey(p.salts) }
 
 // IonParams lists the ions with inputs, sorted by symbol.
-func (p *ModelParams) IonParams() []IonModelParams {
-	out := make([]IonModelParams, 0, len(p.ions))
-	for _, s := range p.ions {
-		out = append(out, s)
+func (p *ModelParams) IonParams() []IonModelParams { return valuesByKey(p.ions) }
+
+func valuesByKey[V any](m map[string]V) []V {
+	keys := slices.Sorted(maps.Keys(m))
+	out := make([]V, len(keys))
+	for i, k := range keys {
+		out[i] = m[k]
 	}
-	slices.SortFunc(out, func(a, b IonModelParams) int { return cmp.Compare(a.Ion, b.Ion) })
 	return out
 }
 
