@@ -147,8 +147,8 @@ func TestServeEndToEnd(t *testing.T) {
 	}
 	defer client.Close()
 	sess, _ := client.NewSession()
-	var out lockedBuffer
-	sess.Stdout = &out
+	var out, sessErr lockedBuffer
+	sess.Stdout, sess.Stderr = &out, &sessErr
 	stdin, _ := sess.StdinPipe()
 	if err := sess.RequestPty("xterm-256color", 30, 100, gossh.TerminalModes{}); err != nil {
 		t.Fatal(err)
@@ -207,6 +207,13 @@ func TestServeEndToEnd(t *testing.T) {
 		t.Errorf("a file was written outside the user's folder: %v", matches)
 	}
 
+	// An earlier session's recovery file is not written over (it once
+	// was): this session's work goes to the next name, and the member is
+	// told that name, as the workshop reports it.
+	earlier := filepath.Join(folder, "recovery.hesscycle")
+	if err := os.WriteFile(earlier, []byte("an earlier session's work"), 0o600); err != nil {
+		t.Fatal(err)
+	}
 	start := time.Now()
 	if err := syscall.Kill(os.Getpid(), syscall.SIGTERM); err != nil {
 		t.Fatal(err)
@@ -227,8 +234,14 @@ func TestServeEndToEnd(t *testing.T) {
 	if !errors.As(err, &exitErr) || exitErr.ExitStatus() != serve.ExitShutdown {
 		t.Errorf("session ended with %v; want exit status %d", err, serve.ExitShutdown)
 	}
-	recovery := filepath.Join(dir, "state", "users", serve.UserFolderName(signer.PublicKey()), "recovery.hesscycle")
+	recovery := filepath.Join(folder, "recovery-2.hesscycle")
 	if b, err := os.ReadFile(recovery); err != nil || !bytes.Contains(b, []byte("NaCl")) {
 		t.Errorf("recovery file %s: %v, content %q", recovery, err, b)
+	}
+	if b, _ := os.ReadFile(earlier); string(b) != "an earlier session's work" {
+		t.Errorf("the earlier recovery file was changed: %q", b)
+	}
+	if !strings.Contains(sessErr.String(), "Your unsaved work is in recovery-2.hesscycle.") {
+		t.Errorf("closing line %q does not name recovery-2.hesscycle", sessErr.String())
 	}
 }

@@ -49,6 +49,12 @@ type Cycle struct {
 	Settings Settings
 	// Note is free text saved with the cycle file.
 	Note string
+	// AnionValue is the choice in force for a multiply charged monatomic
+	// anion's value (AnionFitted or AnionTextbook), "" when the anion has
+	// no such choice. Fitted holds the family-fitted ion values the cycle
+	// uses (read only).
+	AnionValue AnionValue
+	Fitted     []data.DerivedIon
 
 	memo *Memo
 	// db is the data the cycle was built from (for the validation of the
@@ -56,7 +62,9 @@ type Cycle struct {
 	db *data.DB
 }
 
-// Clone returns a deep copy of c that shares only the Madelung memo.
+// Clone returns a deep copy of c that shares only the Madelung memo and the
+// ions' tables of Shannon radii, which nothing changes in place (they are
+// replaced whole; their capacity is clipped so that an append copies).
 func (c *Cycle) Clone() *Cycle {
 	d := *c
 	d.Steps = slices.Clone(c.Steps)
@@ -73,8 +81,8 @@ func (c *Cycle) Clone() *Cycle {
 			d.Steps[i].Reference = &refs[len(refs)-1]
 		}
 	}
-	d.Cation.Ion.Radii = slices.Clone(c.Cation.Ion.Radii)
-	d.Anion.Ion.Radii = slices.Clone(c.Anion.Ion.Radii)
+	d.Cation.Ion.Radii = slices.Clip(c.Cation.Ion.Radii)
+	d.Anion.Ion.Radii = slices.Clip(c.Anion.Ion.Radii)
 	d.Compound.Params = maps.Clone(c.Compound.Params)
 	d.Settings = c.Settings.clone()
 	return &d

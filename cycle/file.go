@@ -27,6 +27,11 @@ const (
 	FileExtension = ".hesscycle"
 )
 
+// maxFileSteps bounds the [[step]] tables of a cycle file: more than any
+// cycle has (the most ionizations, sub-steps and attachments together are
+// under 30).
+const maxFileSteps = 64
+
 // MaxFileSize bounds what Unmarshal and Open read (1 MiB: a cycle file is a
 // few kilobytes).
 const MaxFileSize = 1 << 20
@@ -38,6 +43,9 @@ type fileDoc struct {
 	Compound string `toml:"compound"`
 	Cation   string `toml:"cation"`
 	Anion    string `toml:"anion"`
+	// AnionValue is "textbook" when the cycle uses the textbook value of a
+	// multiply charged anion instead of the family-fitted one (the default).
+	AnionValue string `toml:"anion_value,omitempty"`
 	// Solve lists the unknown steps (normally one).
 	Solve       []string      `toml:"solve"`
 	Conventions fileConv      `toml:"conventions"`
@@ -55,6 +63,7 @@ type fileDocIn struct {
 	Compound    string           `toml:"compound"`
 	Cation      string           `toml:"cation"`
 	Anion       string           `toml:"anion"`
+	AnionValue  string           `toml:"anion_value"`
 	Solve       []string         `toml:"solve"`
 	Conventions fileConv         `toml:"conventions"`
 	Models      fileModels       `toml:"models"`
@@ -184,6 +193,9 @@ func Marshal(c *Cycle) ([]byte, error) {
 		doc.Solve = []string{}
 	}
 	doc.Conventions = fileConv{Lattice: c.Conventions.Lattice.String(), Ionization: c.Conventions.Ionization.String()}
+	if c.AnionValue == AnionTextbook {
+		doc.AnionValue = string(AnionTextbook)
+	}
 	st := c.Settings
 	m := fileModels{LatticeFrom: st.LatticeFrom, Rho: st.Rho, BornExponent: st.BornExponent, Radius: st.Radius.String(),
 		CationCN: st.CationCN, AnionCN: st.AnionCN, D0: st.Distance.String(), Accuracy: st.Accuracy, Units: st.Units.Key()}
@@ -247,6 +259,10 @@ func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
 	if len(b) > MaxFileSize {
 		return fail(0, "", fmt.Sprintf("file is %d bytes, more than the %d a cycle file may have", len(b), MaxFileSize), nil)
 	}
+	var nesting *fileio.NestingError
+	if errors.As(fileio.CheckTOMLNesting(b), &nesting) {
+		return fail(nesting.Line, "", fmt.Sprintf("arrays or inline tables nested more than %d deep", nesting.Max), nil)
+	}
 	text := string(b)
 	var in fileDocIn
 	md, err := toml.Decode(text, &in)
@@ -276,7 +292,13 @@ func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
 		return fail(findKeyLine(text, k), k.String(), "unknown field (a newer file version, or a typing error?)", nil)
 	}
 	doc := fileDoc{Format: in.Format, Version: in.Version, Note: in.Note, Compound: in.Compound, Cation: in.Cation,
-		Anion: in.Anion, Solve: in.Solve, Conventions: in.Conventions, Models: in.Models}
+		Anion: in.Anion, AnionValue: in.AnionValue, Solve: in.Solve, Conventions: in.Conventions, Models: in.Models}
+	if len(in.Steps) > maxFileSteps {
+		// Refused before any per-step work: 13,000 steps in 1 MiB once
+		// took 111 s and 14.6 GB to read.
+		return fail(findTableLine(text, "step", maxFileSteps, "key"), fmt.Sprintf("step[%d]", maxFileSteps+1),
+			fmt.Sprintf("more than %d steps; a cycle has fewer", maxFileSteps), nil)
+	}
 	for i, m := range in.Steps {
 		s, field, why := stepFromTable(m)
 		if field != "" {
@@ -310,6 +332,11 @@ func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
 		return nil, ferr
 	}
 	opt := Options{Conventions: conv, Settings: set}
+	if doc.AnionValue != "" {
+		if opt.AnionValue, err = ParseAnionValue(doc.AnionValue); err != nil {
+			return fail(lineOf("anion_value"), "anion_value", err.Error(), nil)
+		}
+	}
 	c, err := Build(db, doc.Compound, opt)
 	if err == nil && doc.Cation != "" && doc.Anion != "" && (c.Cation.Ion.Symbol != doc.Cation || c.Anion.Ion.Symbol != doc.Anion) {
 		opt.Cation, opt.Anion = doc.Cation, doc.Anion
@@ -324,12 +351,17 @@ func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
 		c.Steps[i].Unknown = false
 		c.reset(i)
 	}
+	given := map[string]int{} // step key → its step[i] number
 	for i, s := range doc.Steps {
 		field := fmt.Sprintf("step[%d]", i+1)
-		line := findTableLine(text, "step", i, "key")
+		line := func() int { return findTableLine(text, "step", i, "key") } // only for a message: it scans the text
 		if _, ok := c.Step(s.Key); !ok {
-			return fail(line, field+".key", fmt.Sprintf("no step %q in the cycle of %s (steps: %s)", s.Key, c.Formula, strings.Join(c.Keys(), ", ")), nil)
+			return fail(line(), field+".key", fmt.Sprintf("no step %q in the cycle of %s (steps: %s)", s.Key, c.Formula, strings.Join(c.Keys(), ", ")), nil)
 		}
+		if first, twice := given[s.Key]; twice {
+			return fail(line(), field+".key", fmt.Sprintf("step %q is given twice (first as step[%d])", s.Key, first), nil)
+		}
+		given[s.Key] = i + 1
 		switch s.Source {
 		case "user":
 			if math.IsNaN(s.Value) || math.IsInf(s.Value, 0) {
@@ -345,7 +377,7 @@ func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
 				return fail(findTableLine(text, "step", i, "uncertainty"), field+".uncertainty", why, nil)
 			}
 			if err := c.Set(s.Key, s.Value, s.Uncertainty); err != nil {
-				return fail(line, field, "cannot set the value", err)
+				return fail(line(), field, "cannot set the value", err)
 			}
 		case "data", "model", "solved", "sum", "missing", "":
 		default:

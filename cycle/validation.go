@@ -270,7 +270,7 @@ func Validate(db *data.DB, memo *Memo) *Validation {
 }
 
 // validationKey is the key of the models' validation among the values
-// derived from a data set (data.DB.Derived).
+// derived from a data set (data.DB.Computed).
 const validationKey = "cycle.Validation"
 
 // Validation returns the validation of the models over the compounds of
@@ -286,5 +286,5 @@ func (c *Cycle) Validation() *Validation {
 // Validation returns Validate(db, m), computed once per data set (the
 // first caller's memo does the Ewald sums).
 func (m *Memo) Validation(db *data.DB) *Validation {
-	return db.Derived(validationKey, func() any { return Validate(db, m) }).(*Validation)
+	return db.Computed(validationKey, func() any { return Validate(db, m) }).(*Validation)
 }

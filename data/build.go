@@ -51,8 +51,23 @@ func (b *builder) apply(table string, r record) error {
 		return b.species(r)
 	case "alternatives.csv":
 		return b.alternative(r)
+	case DerivedIonsFile:
+		return b.derivedIon(r)
 	}
 	return fmt.Errorf("unknown table %q", table)
+}
+
+// reserve sizes the DB's slices and maps for n rows of table: the
+// compound records are large, and growing their slice row by row copies
+// them again and again.
+func (b *builder) reserve(table string, n int) {
+	switch table {
+	case "compounds.csv":
+		b.db.compounds = slices.Grow(b.db.compounds, n)
+		if len(b.db.compoundIdx) == 0 {
+			b.db.compoundIdx = make(map[string]int, n)
+		}
+	}
 }
 
 // problem records an inconsistency of the built-in tables that does not stop
@@ -573,11 +588,13 @@ func (b *builder) compound(r record) error {
 	if err != nil {
 		return err
 	}
-	parsed, ferr := ParseFormula(formula)
-	if ferr != nil {
-		return r.errorf("formula", "%v", ferr)
+	if b.overlay {
+		// Built-in formulas are checked by the data tests; their
+		// composition keys are built on first use (DB.compositions).
+		if _, ferr := ParseFormula(formula); ferr != nil {
+			return r.errorf("formula", "%v", ferr)
+		}
 	}
-	b.db.compKeys[formula] = parsed.compositionKey()
 	i, exists := b.db.compoundIdx[formula]
 	if exists && !b.overlay {
 		return r.errorf("formula", "compound %s listed twice", formula)
@@ -588,10 +605,12 @@ func (b *builder) compound(r record) error {
 		i = len(b.db.compounds) - 1
 	}
 	c := &b.db.compounds[i]
-	for field, dst := range map[string]*string{"name": &c.Name, "family": &c.Family, "structure": &c.Structure, "note": &c.Note,
-		"state": &c.State, "polymorph": &c.Polymorph} {
-		if r.has(field) {
-			*dst = r.str(field)
+	for _, f := range [...]struct {
+		field string
+		dst   *string
+	}{{"name", &c.Name}, {"family", &c.Family}, {"structure", &c.Structure}, {"note", &c.Note}, {"state", &c.State}, {"polymorph", &c.Polymorph}} {
+		if v := r.str(f.field); v != "" {
+			*f.dst = v
 		}
 	}
 	for _, side := range []struct {
@@ -748,7 +767,7 @@ func (b *builder) species(r record) error {
 	if _, _, ok := splitState(formula); !ok {
 		return r.errorf("formula", "%q: write the state in parentheses after the formula, as CO2(g), H2O(l) or NaCl(cr)", formula)
 	}
-	sp, exists := b.db.species[formula]
+	sp, exists := b.db.species.m[formula]
 	if exists && !b.overlay {
 		return r.errorf("formula", "species %s listed twice", formula)
 	}
@@ -775,7 +794,7 @@ func (b *builder) species(r record) error {
 	} else if ok {
 		b.set(&sp.Entropy, v)
 	}
-	b.db.species[formula] = sp
+	b.db.species.m[formula] = sp
 	return nil
 }
 
@@ -834,12 +853,18 @@ func (b *builder) alternative(r record) error {
 		}
 		b.db.ions[i].GasFormationAlternatives = append(b.db.ions[i].GasFormationAlternatives, v)
 	case "species_formation":
-		sp, ok := b.db.species[key]
+		if b.db.species.fsys != nil && !b.overlay && b.db.species.m == nil {
+			// species.csv is read on first use: keep the row until then.
+			r.cells = slices.Clone(r.cells) // eachCSV reuses the slice
+			b.db.species.pendingAlts = append(b.db.species.pendingAlts, r)
+			return nil
+		}
+		sp, ok := b.db.species.m[key]
 		if !ok {
 			return missing()
 		}
 		sp.Alternatives = append(sp.Alternatives, v)
-		b.db.species[key] = sp
+		b.db.species.m[key] = sp
 	}
 	return nil
 }
@@ -886,18 +911,11 @@ func (b *builder) finish() {
 			db.ionFoldIdx[canonicalIonSymbol(ion.Core, ion.Charge, false)] = i
 		}
 	}
-	db.compositionIdx = make(map[string]int, len(db.compounds))
 	db.compoundFoldIdx = make(map[string]int, len(db.compounds))
 	for i, c := range db.compounds {
 		db.compoundFoldIdx[strings.ToLower(c.Formula)] = i
-		key, ok := db.compKeys[c.Formula]
-		if !ok {
-			continue
-		}
-		if _, dup := db.compositionIdx[key]; !dup {
-			db.compositionIdx[key] = i
-		}
 	}
+	db.comp = &compositions{}
 	db.elementFoldIdx = make(map[string]int, len(db.elements))
 	for i, e := range db.elements {
 		db.elementFoldIdx[strings.ToLower(e.Symbol)] = i

@@ -1,6 +1,7 @@
 package data
 
 import (
+	"bytes"
 	"embed"
 	"errors"
 	"fmt"
@@ -37,19 +38,19 @@ type DB struct {
 	radii map[ionKey][]ShannonRadius
 
 	compounds       []Compound
-	compoundIdx     map[string]int    // formula as written
-	compoundFoldIdx map[string]int    // lower-case formula
-	compositionIdx  map[string]int    // normalized composition (first compound)
-	compKeys        map[string]string // formula → composition key
+	compoundIdx     map[string]int // formula as written
+	compoundFoldIdx map[string]int // lower-case formula
+	comp            *compositions  // composition keys, built on first use
 
-	solutions map[string]Value // tabulated formula → ΔsolH° at infinite dilution
+	solutions map[string]Value      // tabulated formula → ΔsolH° at infinite dilution
+	derived   map[string]DerivedIon // ion symbol → family-fitted gas-phase enthalpy (derived.go)
 
-	species map[string]Species // "CO2(g)" → species
+	species *speciesTable // "CO2(g)" → species, read on first use
 
 	overlays []string
 	problems []string
 
-	derived sync.Map // values computed from this data set once (derived.go)
+	computed sync.Map // values computed from this data set once (computed.go)
 }
 
 type ionKey struct {
@@ -66,9 +67,8 @@ func newDB() *DB {
 		ionIdx:      map[string]int{},
 		radii:       map[ionKey][]ShannonRadius{},
 		compoundIdx: map[string]int{},
-		compKeys:    map[string]string{},
 		solutions:   map[string]Value{},
-		species:     map[string]Species{},
+		species:     &speciesTable{m: map[string]Species{}},
 	}
 }
 
@@ -86,22 +86,21 @@ func Load() (*DB, error) {
 func LoadFS(fsys fs.FS) (*DB, error) {
 	b := &builder{db: newDB()}
 	for _, t := range tableOrder {
-		f, err := fsys.Open(t.file)
+		if t.file == "species.csv" {
+			b.db.species.fsys, b.db.species.m = fsys, nil // read on first use (speciesMap)
+			continue
+		}
+		raw, err := fs.ReadFile(fsys, t.file)
 		if err != nil {
 			if t.optional && isNotExist(err) {
 				continue
 			}
 			return nil, &TableError{File: t.file, Err: err}
 		}
-		recs, err := readCSV(t.file, f, tableColumns[t.file])
-		f.Close()
+		b.reserve(t.file, bytes.Count(raw, []byte{'\n'}))
+		err = eachCSV(t.file, bytes.NewReader(raw), tableColumns[t.file], func(r record) error { return b.apply(t.file, r) })
 		if err != nil {
 			return nil, err
-		}
-		for _, r := range recs {
-			if err := b.apply(t.file, r); err != nil {
-				return nil, err
-			}
 		}
 	}
 	b.finish()
@@ -113,7 +112,10 @@ func isNotExist(err error) bool { return errors.Is(err, fs.ErrNotExist) }
 // Problems lists inconsistencies found while loading the built-in tables
 // that did not stop loading: values without a source, unknown source keys,
 // compounds that name an ion missing from the ion table. Empty for good data.
-func (db *DB) Problems() []string { return slices.Clone(db.problems) }
+func (db *DB) Problems() []string {
+	db.speciesMap()
+	return append(slices.Clone(db.problems), db.species.problems...)
+}
 
 // Overlays names the overlay files applied to this DB, in order.
 func (db *DB) Overlays() []string { return slices.Clone(db.overlays) }
@@ -132,9 +134,9 @@ func (db *DB) clone() *DB {
 		radii:       make(map[ionKey][]ShannonRadius, len(db.radii)),
 		compounds:   make([]Compound, len(db.compounds)),
 		compoundIdx: maps.Clone(db.compoundIdx),
-		compKeys:    maps.Clone(db.compKeys),
 		solutions:   maps.Clone(db.solutions),
-		species:     make(map[string]Species, len(db.species)),
+		species:     &speciesTable{},
+		derived:     maps.Clone(db.derived),
 		overlays:    slices.Clone(db.overlays),
 		problems:    slices.Clone(db.problems),
 	}
@@ -153,10 +155,14 @@ func (db *DB) clone() *DB {
 	for i, cp := range db.compounds {
 		c.compounds[i] = copyCompound(cp)
 	}
-	for k, sp := range db.species {
+	c.species.once.Do(func() {}) // the clone's table is complete from the start
+	base := db.speciesMap()
+	c.species.m = make(map[string]Species, len(base))
+	for k, sp := range base {
 		sp.Alternatives = slices.Clone(sp.Alternatives)
-		c.species[k] = sp
+		c.species.m[k] = sp
 	}
+	c.problems = db.Problems()
 	return c
 }
 
@@ -545,7 +551,7 @@ func (db *DB) FindCompound(formula string) (Compound, bool) {
 		return copyCompound(db.compounds[i]), true
 	}
 	if f, err := ParseFormula(s); err == nil {
-		if i, ok := db.compositionIdx[f.compositionKey()]; ok {
+		if i, ok := db.compositions().byKey[f.compositionKey()]; ok {
 			return copyCompound(db.compounds[i]), true
 		}
 	}
@@ -604,6 +610,9 @@ func (db *DB) Source(key string) (Source, error) {
 	if key == userSource {
 		return Source{Key: userSource, Citation: "value from the user's overlay file"}, nil
 	}
+	if key == FamilyFitSource {
+		return Source{Key: FamilyFitSource, Citation: familyFitCitation}, nil
+	}
 	return Source{}, &NotFoundError{Kind: "source", Query: key, Suggestions: suggest(key, db.sourceKeys(), 3)}
 }
 
@@ -627,7 +636,7 @@ func (db *DB) Species(formulaWithState string) (Species, bool) {
 	if f, st, ok := splitState(key); ok && st == "s" {
 		key = f + "(cr)"
 	}
-	sp, ok := db.species[key]
+	sp, ok := db.speciesMap()[key]
 	if ok {
 		sp.Alternatives = sp.Alternatives[:len(sp.Alternatives):len(sp.Alternatives)]
 	}
@@ -636,9 +645,10 @@ func (db *DB) Species(formulaWithState string) (Species, bool) {
 
 // SpeciesList returns every species, sorted by formula.
 func (db *DB) SpeciesList() []Species {
-	out := make([]Species, 0, len(db.species))
-	for _, k := range slices.Sorted(maps.Keys(db.species)) {
-		sp := db.species[k]
+	m := db.speciesMap()
+	out := make([]Species, 0, len(m))
+	for _, k := range slices.Sorted(maps.Keys(m)) {
+		sp := m[k]
 		sp.Alternatives = slices.Clone(sp.Alternatives)
 		out = append(out, sp)
 	}
@@ -660,4 +670,89 @@ func splitState(s string) (formula, state string, ok bool) {
 		return "", "", false
 	}
 	return s[:i], state, true
+}
+
+// compositions holds the composition key of each compound (Hill order,
+// "ClNa" for NaCl) and the first compound of each key. Parsing every
+// formula costs more than the rest of loading, so it is done once, on the
+// first lookup that needs it; the result never changes afterwards.
+type compositions struct {
+	once  sync.Once
+	keys  map[string]string // formula → composition key
+	byKey map[string]int    // composition key → first compound
+}
+
+func (db *DB) compositions() *compositions {
+	c := db.comp
+	c.once.Do(func() {
+		c.keys = make(map[string]string, len(db.compounds))
+		c.byKey = make(map[string]int, len(db.compounds))
+		for i, cp := range db.compounds {
+			f, err := ParseFormula(cp.Formula)
+			if err != nil {
+				continue
+			}
+			k := f.compositionKey()
+			c.keys[cp.Formula] = k
+			if _, dup := c.byKey[k]; !dup {
+				c.byKey[k] = i
+			}
+		}
+	})
+	return c
+}
+
+// speciesTable is species.csv, read on the first lookup of a species: it
+// is the largest table and most runs never ask for a species. The
+// alternatives of its rows wait in pendingAlts until then.
+type speciesTable struct {
+	once        sync.Once
+	fsys        fs.FS // where species.csv is read from; nil: nothing to read
+	m           map[string]Species
+	pendingAlts []record
+	problems    []string
+	err         error
+}
+
+// speciesMap returns the species, reading species.csv first if needed.
+func (db *DB) speciesMap() map[string]Species {
+	t := db.species
+	t.once.Do(func() {
+		if t.m == nil {
+			t.m = map[string]Species{}
+		}
+		if t.fsys == nil {
+			return
+		}
+		// A builder of its own: it writes to the species table only,
+		// and keeps its problems apart from the DB's.
+		tmp := &DB{sourceIdx: db.sourceIdx, species: t}
+		b := &builder{db: tmp}
+		f, err := t.fsys.Open("species.csv")
+		if err != nil {
+			if !isNotExist(err) {
+				t.problems = append(t.problems, (&TableError{File: "species.csv", Err: err}).Error())
+			}
+			return
+		}
+		recs, err := readCSV("species.csv", f, tableColumns["species.csv"])
+		f.Close()
+		if err != nil {
+			t.problems = append(t.problems, err.Error())
+			return
+		}
+		t.m = make(map[string]Species, len(recs))
+		for _, r := range append(recs, t.pendingAlts...) {
+			table := "species.csv"
+			if r.file == "alternatives.csv" {
+				table = "alternatives.csv"
+			}
+			if err := b.apply(table, r); err != nil {
+				t.problems = append(t.problems, err.Error())
+			}
+		}
+		t.pendingAlts = nil
+		t.problems = append(t.problems, tmp.problems...)
+	})
+	return t.m
 }

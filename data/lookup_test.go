@@ -3,6 +3,7 @@ package data
 import (
 	"errors"
 	"slices"
+	"strings"
 	"testing"
 )
 
@@ -75,5 +76,38 @@ func TestAtomicNumber(t *testing.T) {
 		if got := AtomicNumber(SymbolOfZ(z)); got != z {
 			t.Errorf("AtomicNumber(SymbolOfZ(%d)) = %d", z, got)
 		}
+	}
+}
+
+// Species of the NBS tables (data/sources/nbs-tables-1982): CO2(g) line
+// 1675 (ΔfH° −393.509, ΔfG° −394.359 kJ/mol, S° 213.74 J/(mol·K)) and
+// H2O(l) line 46 (ΔfH° −285.830 kJ/mol); read on first use, also after an overlay.
+func TestSpecies(t *testing.T) {
+	db := mustLoad(t)
+	co2, ok := db.Species("CO2(g)")
+	if !ok || co2.Formation.V != -393.509 || co2.GibbsFormation.V != -394.359 || co2.Entropy.V != 213.74 || co2.Formation.Source != "nbs1982" {
+		t.Errorf("CO2(g) = %+v, %v", co2, ok)
+	}
+	if !strings.HasPrefix(co2.Formation.Locator, "nbs-tables-1982/") {
+		t.Errorf("CO2(g) locator %q", co2.Formation.Locator)
+	}
+	if len(co2.Alternatives) == 0 {
+		t.Error("CO2(g): no other compilation's value (NASA Glenn and ATcT both list it)")
+	}
+	if w, ok := db.Species("H2O (l)"); !ok || w.Formation.V != -285.830 {
+		t.Errorf("H2O(l) = %+v, %v", w, ok)
+	}
+	if _, ok := db.Species("Na(s)"); !ok {
+		t.Error("Na(s): the standard state of sodium is missing")
+	}
+	over, err := db.WithOverlay(strings.NewReader("[[species]]\nformula = \"XeF2(g)\"\nformation_kj_per_mol = -100\n"), "t.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if x, ok := over.Species("XeF2(g)"); !ok || x.Formation.V != -100 || !x.Formation.Override {
+		t.Errorf("overlay species: %+v %v", x, ok)
+	}
+	if _, ok := over.Species("CO2(g)"); !ok {
+		t.Error("overlay lost the built-in species")
 	}
 }

@@ -94,6 +94,11 @@ func (db *DB) WithOverlay(r io.Reader, name string) (*DB, error) {
 	if len(raw) > MaxOverlaySize {
 		return nil, &TableError{File: name, Err: fmt.Errorf("the file is larger than the %s a data file may have", fileio.Size(MaxOverlaySize))}
 	}
+	var nesting *fileio.NestingError
+	if errors.As(fileio.CheckTOMLNesting(raw), &nesting) {
+		return nil, &TableError{File: name, Line: nesting.Line, Column: nesting.Column,
+			Err: fmt.Errorf("arrays or inline tables nested more than %d deep", nesting.Max)}
+	}
 	var doc map[string]any
 	if _, err := toml.Decode(string(raw), &doc); err != nil {
 		var pe toml.ParseError

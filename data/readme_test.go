@@ -17,44 +17,27 @@ const (
 	readmeEnd   = "<!-- generated:end -->"
 )
 
-// sourceColumns are the columns that hold a source key.
-var sourceColumns = []string{"source", "formation_source", "params_source", "density_source", "lattice_source"}
-
 // readmeCounts renders the rows per source and per memory flag from the
-// embedded tables, and the accepted pymatgen disagreements.
+// embedded tables (Census), and the accepted pymatgen disagreements.
 func readmeCounts(t *testing.T) string {
+	census, err := Census()
+	if err != nil {
+		t.Fatal(err)
+	}
 	bySource := map[string]map[string]int{}
 	memory := map[string][2]int{} // table → {rows marked memory, rows}
-	for _, name := range TableFiles() {
-		f, err := embedded.Open("tables/" + name)
-		if err != nil {
-			continue
-		}
-		recs, err := readCSV(name, f, nil)
-		f.Close()
-		if err != nil {
-			t.Fatal(err)
-		}
-		m := memory[name]
-		for _, r := range recs {
-			m[1]++
-			if mem := strings.ToLower(r.str("memory")); mem != "" && mem != "no" {
-				m[0]++
+	for _, c := range census {
+		memory[c.File] = [2]int{c.Memory, c.Rows}
+		for key, n := range c.BySource {
+			if bySource[key] == nil {
+				bySource[key] = map[string]int{}
 			}
-			for _, col := range sourceColumns {
-				if key := r.str(col); key != "" {
-					if bySource[key] == nil {
-						bySource[key] = map[string]int{}
-					}
-					bySource[key][strings.TrimSuffix(name, ".csv")]++
-				}
-			}
+			bySource[key][strings.TrimSuffix(c.File, ".csv")] += n
 		}
-		memory[name] = m
 	}
 	var b strings.Builder
-	b.WriteString("Values citing each source (a compound row may cite several):\n\n")
-	b.WriteString("| source | values | by table |\n| --- | ---: | --- |\n")
+	b.WriteString("Rows citing each source (a compound row citing several counts under each):\n\n")
+	b.WriteString("| source | rows | by table |\n| --- | ---: | --- |\n")
 	for _, key := range slices.Sorted(mapKeysOf(bySource)) {
 		total := 0
 		var parts []string

@@ -112,11 +112,12 @@ func (db *DB) suggestCompounds(q string) []string {
 	// thousands of formulas the tables do not hold).
 	if f, err := ParseFormula(q); err == nil {
 		want := elementSet(f.compositionKey())
+		keys := db.compositions().keys
 		for _, c := range db.compounds {
 			if len(out) >= 6 {
 				break
 			}
-			key, ok := db.compKeys[c.Formula]
+			key, ok := keys[c.Formula]
 			if !ok {
 				continue
 			}

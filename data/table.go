@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 )
@@ -21,6 +22,8 @@ type record struct {
 	cells []string
 	// lines holds per-field lines where they differ from line (overlay keys).
 	lines map[string]int
+	// trimmed is set when every cell is already free of surrounding space.
+	trimmed bool
 }
 
 // get returns the raw cell of field and whether the row has that column.
@@ -45,13 +48,15 @@ func (r *record) set(field, value string) {
 	r.cells = append(r.cells, value)
 }
 
-func (r record) has(field string) bool {
-	v, _ := r.get(field)
-	return strings.TrimSpace(v) != ""
-}
+func (r record) has(field string) bool { return r.str(field) != "" }
 
+// str returns the cell of field, trimmed (readCSV trims cells as it reads
+// them; overlay records are trimmed here).
 func (r record) str(field string) string {
 	v, _ := r.get(field)
+	if r.trimmed {
+		return v
+	}
 	return strings.TrimSpace(v)
 }
 
@@ -144,43 +149,61 @@ func (r record) memoryOf(name string) (bool, error) {
 // readCSV reads a table: "#" lines before the header are comments; rows may
 // omit trailing empty cells but may not have more cells than the header.
 func readCSV(file string, rd io.Reader, known []string) ([]record, error) {
+	var out []record
+	err := eachCSV(file, rd, known, func(r record) error {
+		r.cells = slices.Clone(r.cells)
+		out = append(out, r)
+		return nil
+	})
+	return out, err
+}
+
+// eachCSV reads a table as readCSV does and hands each row to fn as soon
+// as it is read. The record's cells slice is reused for the next row:
+// fn may keep the strings, not the slice.
+func eachCSV(file string, rd io.Reader, known []string, fn func(record) error) error {
 	cr := csv.NewReader(rd)
 	cr.Comment = '#'
 	cr.FieldsPerRecord = -1
+	cr.ReuseRecord = true
 	header, err := cr.Read()
 	if err != nil {
 		if errors.Is(err, io.EOF) {
-			return nil, &TableError{File: file, Err: errors.New("empty table: no header row")}
+			return &TableError{File: file, Err: errors.New("empty table: no header row")}
 		}
-		return nil, csvError(file, err)
+		return csvError(file, err)
 	}
+	header = slices.Clone(header)
 	cols := make(map[string]int, len(header))
 	for i, h := range header {
 		header[i] = strings.TrimSpace(strings.TrimPrefix(h, "\ufeff"))
 		cols[header[i]] = i
 		if known != nil && !contains(known, header[i]) {
-			return nil, &TableError{File: file, Line: 1, Field: header[i], Err: fmt.Errorf("unknown column (known: %s)", strings.Join(known, ", "))}
+			return &TableError{File: file, Line: 1, Field: header[i], Err: fmt.Errorf("unknown column (known: %s)", strings.Join(known, ", "))}
 		}
 	}
-	var out []record
 	for {
 		row, err := cr.Read()
 		if errors.Is(err, io.EOF) {
-			break
+			return nil
 		}
 		if err != nil {
-			return nil, csvError(file, err)
+			return csvError(file, err)
 		}
 		line, _ := cr.FieldPos(0)
 		if len(row) > len(header) {
-			return nil, &TableError{File: file, Line: line, Err: fmt.Errorf("%d cells but the header has %d", len(row), len(header))}
+			return &TableError{File: file, Line: line, Err: fmt.Errorf("%d cells but the header has %d", len(row), len(header))}
 		}
 		if len(row) == 1 && strings.TrimSpace(row[0]) == "" {
 			continue
 		}
-		out = append(out, record{file: file, line: line, cols: cols, cells: row})
+		for i, c := range row {
+			row[i] = strings.TrimSpace(c)
+		}
+		if err := fn(record{file: file, line: line, cols: cols, cells: row, trimmed: true}); err != nil {
+			return err
+		}
 	}
-	return out, nil
 }
 
 func csvError(file string, err error) error {

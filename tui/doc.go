@@ -31,12 +31,15 @@
 // # Files
 //
 // Cycle files are written with cycle.Save (atomic). Quitting or opening
-// another cycle over unsaved work asks first (save, keep, discard, back).
-// Unsaved work goes to Options.RecoveryPath when the user answers keep
-// (when a recovery file is there already, beside it numbered,
-// recovery-2.hesscycle, never over it), and on ShutdownMsg and when Update
-// or View panics (there to RecoveryPath itself, where the SSH server looks
-// for it; the panic then goes on to Bubble Tea, which restores the
+// another cycle over unsaved work asks first (save, keep, discard, back);
+// in a window smaller than 80×24 the question is drawn short, and where it
+// cannot be drawn its answers do not act. One writer keeps unsaved work
+// (Model.keepWork): for the keep answer, on ShutdownMsg (a signal, a closed
+// terminal or connection, a server shutdown) and when Update or View
+// panics, it writes Options.RecoveryPath or, when any file is there, the
+// first free name of its series (recovery-2.hesscycle, …), never over an
+// earlier file; RecoveredTo says which, for the runner and the SSH server
+// (the panic then goes on to Bubble Tea, which restores the
 // terminal). With Options.FileRoot set, every typed name goes through
 // safepath.Join.
 package tui

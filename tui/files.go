@@ -11,6 +11,7 @@ import (
 
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/lipgloss"
 	"github.com/charmbracelet/x/ansi"
 
 	"enthalpath/cycle"
@@ -118,6 +119,31 @@ func (m *Model) confirmKey(k tea.KeyMsg) tea.Cmd {
 	return nil
 }
 
+// smallQuestion is the unsaved-changes question as a window smaller than
+// 80×24 draws it: whole when it fits, else a line per key, else nothing.
+// The question's keys act only when it is drawn (esc, back to work, always
+// does): a key must never discard work the user could not see asked about.
+func (m *Model) smallQuestion() []string {
+	long := []string{"The " + m.sess.Cycle.Formula + " cycle has unsaved changes."}
+	for _, b := range m.confirmBindings() {
+		long = append(long, b.Help().Key+"  "+b.Help().Desc)
+	}
+	short := []string{"Unsaved changes:"}
+	for _, b := range m.confirmKeys() {
+		short = append(short, b.Help().Key+" "+b.Help().Desc)
+	}
+	for _, lines := range [][]string{long, short} {
+		fits := len(lines) <= m.height
+		for _, l := range lines {
+			fits = fits && lipgloss.Width(l) <= m.width
+		}
+		if fits {
+			return lines
+		}
+	}
+	return nil
+}
+
 func (m *Model) confirmView() string {
 	st := m.ctx.Styles
 	inner := max(20, m.width-6) // the box's border and padding take 4, the margin 2
@@ -219,8 +245,12 @@ func (m *Model) askSave(thenQuit bool, thenOpen *screen.OpenMsg) tea.Cmd {
 			if err != nil {
 				return nil, err
 			}
-			if err := fileio.CheckReplaceable(path); err != nil {
-				return nil, err
+			var notRegular *fileio.NotRegularError
+			if err := fileio.CheckReplaceable(path); errors.As(err, &notRegular) {
+				// Worded with the name typed: the path may be the server's.
+				return nil, fmt.Errorf("%s is %s, not a regular file; it is not replaced: choose another name", name, notRegular.Kind)
+			} else if err != nil {
+				return nil, errors.New(m.shown(err.Error()))
 			}
 			if path != replace && path != m.sess.Path {
 				if held, exists := m.holds(path); exists {

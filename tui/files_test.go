@@ -1,6 +1,7 @@
 package tui_test
 
 import (
+	"fmt"
 	"math"
 	"os"
 	"path/filepath"
@@ -343,5 +344,48 @@ func TestEveryRecoveryFileIsAnnounced(t *testing.T) {
 	drive.RunCmd(u, m.Init())
 	if v := m.View(); !strings.Contains(v, "2 recovery files") || !strings.Contains(v, "recovery-2.hesscycle") {
 		t.Errorf("the start does not announce both recovery files and the newest:\n%s", v)
+	}
+}
+
+// TestSmallWindowQuestionDrawnBeforeItActs: in a window smaller than 80×24
+// the unsaved-changes question is drawn before any of its answers acts;
+// where it cannot be drawn at all, discard does nothing (esc then x once
+// discarded the work unseen and exited 0 with no recovery file).
+func TestSmallWindowQuestionDrawnBeforeItActs(t *testing.T) {
+	db := loadDB(t)
+	for _, tc := range []struct {
+		w, h  int
+		shown bool
+	}{
+		{60, 10, true}, // the whole question fits
+		{30, 5, true},  // a line per key
+		{20, 3, false}, // nothing fits: not drawn
+	} {
+		t.Run(fmt.Sprintf("%dx%d", tc.w, tc.h), func(t *testing.T) {
+			m, u, _ := newRoot(t, db, 80, 24)
+			openEdited(t, u)
+			drive.Run(u, tea.WindowSizeMsg{Width: tc.w, Height: tc.h})
+			if drive.Quit(drive.Run(u, drive.Key("esc"))) {
+				t.Fatal("esc quit")
+			}
+			v := m.View()
+			if tc.shown != (strings.Contains(v, "nsaved changes") && strings.Contains(v, "discard the changes")) {
+				t.Fatalf("question shown = %v, want %v:\n%s", !tc.shown, tc.shown, v)
+			}
+			quit := drive.Quit(drive.Run(u, drive.Key("x")))
+			if quit != tc.shown {
+				t.Fatalf("x quit = %v with the question shown = %v:\n%s", quit, tc.shown, v)
+			}
+			if !tc.shown {
+				if !m.Session().Dirty {
+					t.Error("the unseen question discarded the work")
+				}
+				keys(u, "esc")
+				drive.Run(u, tea.WindowSizeMsg{Width: 80, Height: 24})
+				if strings.Contains(m.View(), "unsaved changes.") {
+					t.Error("esc did not go back to work")
+				}
+			}
+		})
 	}
 }

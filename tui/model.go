@@ -224,9 +224,15 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		m.status, m.statusErr = "", false
 	}
 	if m.prompt.Active() {
+		if m.tooSmall() && k.Type != tea.KeyEsc {
+			return nil // not drawn: only esc (cancel) acts
+		}
 		return m.prompt.Update(k)
 	}
 	if m.confirming {
+		if m.tooSmall() && m.smallQuestion() == nil && !key.Matches(k, m.Confirm.Back) {
+			return nil // the question is not drawn: none of its answers acts
+		}
 		return m.confirmKey(k)
 	}
 	if m.tooSmall() {
@@ -407,9 +413,22 @@ func (m *Model) centre(box string, w, h int) string {
 }
 
 func (m *Model) smallView() string {
+	st := m.ctx.Styles
+	box := st.Renderer().NewStyle().Width(m.width).MaxHeight(m.height)
+	switch {
+	case m.confirming:
+		lines := m.smallQuestion()
+		if lines == nil {
+			return box.Render(st.Warn.Render("The window is too small to show the unsaved-changes question; enlarge it, or press esc to go back to work."))
+		}
+		lines[0] = st.Title.Render(lines[0])
+		return box.Render(strings.Join(lines, "\n"))
+	case m.prompt.Active():
+		return box.Render(st.Warn.Render("A file name is asked; enlarge the window to see it, or press esc to cancel."))
+	}
 	msg := fmt.Sprintf("The window is %d×%d; the workshop needs at least %d×%d.\nEnlarge the window, or press q to quit.",
 		m.width, m.height, MinWidth, MinHeight)
-	return m.ctx.Styles.Renderer().NewStyle().Width(m.width).MaxHeight(m.height).Render(m.ctx.Styles.Warn.Render(msg))
+	return box.Render(st.Warn.Render(msg))
 }
 
 func (m *Model) header() string {

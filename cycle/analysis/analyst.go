@@ -2,6 +2,7 @@ package analysis
 
 import (
 	"fmt"
+	"math"
 	"sync"
 
 	"enthalpath/cycle"
@@ -20,9 +21,20 @@ type Analyst struct {
 	additiveFit  *entropy.Additive
 	additiveErr  error
 
-	mu    sync.Mutex
-	built map[string]builtEntry
-	radii map[string]radiusEntry
+	saltsOnce sync.Once
+	saltsOf   map[string][]data.Compound // ion symbol → its compounds (ionfit.go)
+
+	mu      sync.Mutex
+	spreads map[string]spreadEntry
+	built   map[string]builtEntry
+	radii   map[ionKey]radiusEntry
+}
+
+// ionKey names an ion in the radius memo.
+type ionKey struct {
+	symbol, core string
+	charge       int
+	polyatomic   bool
 }
 
 type radiusEntry struct {
@@ -33,7 +45,7 @@ type radiusEntry struct {
 // ionRadius is IonRadius remembered per ion (the neighbour rule looks at
 // every element).
 func (a *Analyst) ionRadius(ion data.Ion) (Radius, error) {
-	key := fmt.Sprintf("%s|%s|%d|%v", ion.Symbol, ion.Core, ion.Charge, ion.Polyatomic)
+	key := ionKey{ion.Symbol, ion.Core, ion.Charge, ion.Polyatomic}
 	a.mu.Lock()
 	e, ok := a.radii[key]
 	a.mu.Unlock()
@@ -82,6 +94,11 @@ func (a *Analyst) build(formula, cation, anion string) (*cycle.Cycle, error) {
 	return e.c.Clone(), nil
 }
 
+type spreadEntry struct {
+	s   Spread
+	err error
+}
+
 // Option changes how New makes an Analyst.
 type Option func(*Analyst)
 
@@ -91,7 +108,7 @@ func WithStandards(s Standards) Option { return func(a *Analyst) { a.standards =
 
 // New returns an Analyst over db (which it only reads).
 func New(db *data.DB, opts ...Option) *Analyst {
-	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, built: map[string]builtEntry{}, radii: map[string]radiusEntry{}}
+	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[ionKey]radiusEntry{}}
 	for _, o := range opts {
 		o(a)
 	}
@@ -104,21 +121,31 @@ func (a *Analyst) DB() *data.DB { return a.db }
 // Memo returns the Madelung memo the Analyst's cycles share.
 func (a *Analyst) Memo() *cycle.Memo { return a.memo }
 
+// SpreadFamilies are the compound families over which Spread measures a
+// model against the cycle: the salts for which the ionic models were made.
+func SpreadFamilies() []string { return []string{"alkali halide", "alkaline-earth halide"} }
+
 // Spread is how far one lattice model strays from the Born–Haber cycle over
-// one family of the built-in compounds (cycle.Validation): the basis of the
-// model uncertainty of an estimate.
+// a set of built-in salts: for an estimate, the model's validation over the
+// compound's family (cycle.Validation, Family set); for ModelSpread, the
+// alkali and alkaline-earth halides.
 type Spread struct {
 	// Model is the model name (cycle.ModelNames).
 	Model string
-	// Family is the validation family the spread is over and Compounds how
-	// many of its compounds entered.
-	Family    string
+	// Family is the validation family an estimate's spread is over ("" for
+	// ModelSpread's halides).
+	Family string
+	// Compounds is how many salts entered; Skipped lists those the model or
+	// the cycle could not evaluate, with the reason.
 	Compounds int
+	Skipped   []string
 	// MeanPercent is the mean of 100·(cycle − model)/|model| (negative when
 	// the cycle binds more), RMSPercent its root mean square and
 	// MaxPercent the largest |gap| %, reached for Worst.
 	MeanPercent, RMSPercent, MaxPercent float64
 	Worst                               string
+
+	basis string // Basis, worded once
 }
 
 // Relative returns the model's relative standard uncertainty (RMS/100).
@@ -126,36 +153,87 @@ func (s Spread) Relative() float64 { return s.RMSPercent / 100 }
 
 // Basis describes the spread in words, for output.
 func (s Spread) Basis() string {
-	return fmt.Sprintf("%s model σ = %.1f %% of its value: RMS gap to the cycle over %d built-in %s (mean %+.1f %%, largest %.1f %% for %s; validation of the built-in data)",
-		s.Model, s.RMSPercent, s.Compounds, s.Family, s.MeanPercent, s.MaxPercent, s.Worst)
+	if s.basis != "" {
+		return s.basis
+	}
+	over := "alkali and alkaline-earth halides"
+	if s.Family != "" {
+		over = s.Family
+	}
+	return fmt.Sprintf("%s model σ = %.1f %% of its value: RMS gap to the cycle over %d built-in %s (mean %+.1f %%, largest %.1f %% for %s), computed from the data",
+		s.Model, s.RMSPercent, s.Compounds, over, s.MeanPercent, s.MaxPercent, s.Worst)
 }
 
-// spreadOf returns the spread model's σ for c is taken from: its
-// validation over c's family, or over the ionic family (cycle.Validation.SigmaStats).
+// spreadOf returns the spread an estimate of c with model takes its σ
+// from: the model's validation over c's family, or over the ionic family
+// (cycle.Validation.SigmaStats), the σ the cycle's own model results carry.
 func spreadOf(c *cycle.Cycle, model string) Spread {
 	v := c.Validation()
 	if v == nil {
 		return Spread{Model: model}
 	}
-	return spreadFrom(v.SigmaStats(model, cycle.ValidationFamily(c)), model)
-}
-
-func spreadFrom(f cycle.FamilyStats, model string) Spread {
+	f := v.SigmaStats(model, cycle.ValidationFamily(c))
 	return Spread{Model: model, Family: f.Family, Compounds: f.N, MeanPercent: f.MeanPercent, RMSPercent: f.RMSPercent,
 		MaxPercent: f.MaxPercent, Worst: f.Worst}
 }
 
-// ModelSpread returns the model's spread over the ionic family (the alkali
-// halides) from the validation of the Analyst's data.
+// ModelSpread computes (once per Analyst and model, then remembers) the
+// Spread of model with the same options an estimate uses by default.
 func (a *Analyst) ModelSpread(model string) (Spread, error) {
+	a.mu.Lock()
+	e, ok := a.spreads[model]
+	a.mu.Unlock()
+	if ok {
+		return e.s, e.err
+	}
+	s, err := a.computeSpread(model)
+	s.basis = s.Basis() // once, not on every estimate
+	a.mu.Lock()
+	a.spreads[model] = spreadEntry{s, err}
+	a.mu.Unlock()
+	return s, err
+}
+
+func (a *Analyst) computeSpread(model string) (Spread, error) {
 	if _, err := cycle.ParseModel(model); err != nil {
 		return Spread{}, err
 	}
-	v := a.memo.Validation(a.db)
-	s := spreadFrom(v.SigmaStats(model, cycle.IonicFamily), model)
-	if s.Compounds < 3 {
-		return s, &InputError{Subject: model, Reason: fmt.Sprintf("only %d built-in %s can be evaluated with this model, too few to measure its spread", s.Compounds, cycle.IonicFamily)}
+	s := Spread{Model: model}
+	var sum, sumSq float64
+	for comp := range a.db.CompoundsIn(SpreadFamilies()...) {
+		if !comp.Formation.Known() {
+			continue
+		}
+		c, err := cycle.Build(a.db, comp.Formula, cycle.Options{Memo: a.memo})
+		if err != nil {
+			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
+			continue
+		}
+		// c is this loop's own: close its lattice step in place (no copy).
+		cyc, _, err := closeLattice(c)
+		if err != nil {
+			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
+			continue
+		}
+		m, err := cycle.EvaluateModel(c, model)
+		if err != nil {
+			s.Skipped = append(s.Skipped, comp.Formula+": "+err.Error())
+			continue
+		}
+		g := 100 * (cyc - m.Value) / math.Abs(m.Value)
+		sum += g
+		sumSq += g * g
+		s.Compounds++
+		if math.Abs(g) > s.MaxPercent {
+			s.MaxPercent, s.Worst = math.Abs(g), comp.Formula
+		}
 	}
+	if s.Compounds < 3 {
+		return s, &InputError{Subject: model, Reason: fmt.Sprintf("only %d built-in halides can be evaluated with this model, too few to measure its spread", s.Compounds)}
+	}
+	n := float64(s.Compounds)
+	s.MeanPercent = sum / n
+	s.RMSPercent = math.Sqrt(sumSq / n)
 	return s, nil
 }
 

@@ -29,6 +29,9 @@ type CompareRow struct {
 	Models   []cycle.ModelResult
 	// Reference is the model the verdict is read against (cycle.Result).
 	Reference string
+	// Circular lists the fitted ion values fitted to this very salt: its
+	// verdicts are withheld.
+	Circular []cycle.Circularity
 	// Err is why the cycle could not be solved (the row has no numbers).
 	Err error
 }
@@ -65,7 +68,7 @@ func compareRows(db *data.DB, formulas []string, mf *modelFlags, set map[string]
 			rows = append(rows, row)
 			continue
 		}
-		row.Lattice, row.Uncertainty, row.Models, row.Reference = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models, r.Reference
+		row.Lattice, row.Uncertainty, row.Models, row.Circular, row.Reference = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models, r.Circular, r.Reference
 		if r.Handbook != nil {
 			row.Handbook = r.Handbook.Value
 		}
@@ -191,7 +194,7 @@ func modelCell(ms []cycle.ModelResult, name string) string {
 func headlineVerdict(r CompareRow) string {
 	for _, m := range r.Models {
 		if m.Model == r.Reference && m.Err == nil {
-			return m.Verdict.Character.String() + " (" + m.Model + ")"
+			return rowVerdict(r, m) + " (" + m.Model + ")"
 		}
 	}
 	return "no model available"
@@ -227,7 +230,7 @@ func writeCompareCSV(w io.Writer, rows []CompareRow, conv string) error {
 				rec = append(rec, "", "", "", "")
 				continue
 			}
-			rec = append(rec, num(m.Value), num(m.Gap), num(m.GapPercent), m.Verdict.Character.String())
+			rec = append(rec, num(m.Value), num(m.Gap), num(m.GapPercent), rowVerdict(r, *m))
 		}
 		status := "ok"
 		if r.Err != nil {
@@ -270,11 +273,16 @@ func writeCompareJSON(w io.Writer, rows []CompareRow, conv string) error {
 				mj.Error = m.Err.Error()
 				mj.KJPerMol, mj.EnergyKJ = jsonNumber(math.NaN()), jsonNumber(math.NaN())
 			} else {
-				mj.Verdict = m.Verdict.Character.String()
+				mj.Verdict = rowVerdict(r, m)
 			}
 			j.Models = append(j.Models, mj)
 		}
 		out.Compounds = append(out.Compounds, j)
 	}
 	return writeJSON(w, out)
+}
+
+// rowVerdict is a model's verdict for a row, or why none is given.
+func rowVerdict(r CompareRow, m cycle.ModelResult) string {
+	return verdictText(&cycle.Result{Circular: r.Circular}, m)
 }

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"math"
 	"slices"
 	"strconv"
 	"strings"
@@ -13,20 +14,28 @@ import (
 )
 
 const dataSynopsis = `data QUERY [--kind element|ion|compound] [--json]
-       enthalpath data --list elements|ions|compounds|sources [--json]`
+       enthalpath data --list elements|ions|compounds|sources [--json]
+       enthalpath data --sources [--json]`
 
 // runData shows one element, ion or compound with every value, its
 // uncertainty, unit and source, or lists the keys of one table.
 func runData(env Env, args []string) error {
 	fs := newFlagSet("data", dataSynopsis, env.Stderr)
-	var asJSON bool
+	var asJSON, sources bool
 	var kind, list string
 	fs.BoolVar(&asJSON, "json", false, "print JSON")
 	fs.StringVar(&kind, "kind", "", "read QUERY as an `element`, ion or compound (default: an ion if it ends in a charge, else an element, else a compound)")
 	fs.StringVar(&list, "list", "", "list every `TABLE` row key: elements, ions, compounds or sources")
+	fs.BoolVar(&sources, "sources", false, "count the built-in rows citing each source, and the rows entered from memory, per table")
 	pos, help, err := parseFlags(fs, args)
 	if help || err != nil {
 		return err
+	}
+	if sources {
+		if len(pos) > 0 || list != "" {
+			return Usagef("--sources takes no QUERY and no --list")
+		}
+		return dataSources(env.Stdout, asJSON)
 	}
 	if list == "" && len(pos) != 1 {
 		return Usagef("give one QUERY (an element symbol, an ion such as Fe3+ or SO4^2-, or a formula): usage: enthalpath %s", dataSynopsis)
@@ -186,6 +195,34 @@ func dataProvenance(v data.Value) string {
 	return "[" + strings.Join(parts, "; ") + "]"
 }
 
+// dataPrintAlternatives writes where the preferred value is in its source
+// and every other compilation's value with its difference from it.
+func dataPrintAlternatives(w io.Writer, pref data.Value, alts []data.Value, cite *dataCitations) {
+	if pref.Locator != "" {
+		fmt.Fprintf(w, "  at %s\n", pref.Locator)
+	}
+	if len(alts) == 0 {
+		return
+	}
+	t := table{head: []string{"other compilations", "difference", "source", "at"}, right: map[int]bool{1: true}}
+	for _, a := range alts {
+		t.add(dataNumberText(a), strconv.FormatFloat(math.Round((a.V-pref.V)*1e6)/1e6, 'f', -1, 64), a.Source, a.Locator)
+		cite.add(a)
+	}
+	t.write(w, "  ")
+}
+
+// dataState names a compound's phase ("cr" when the row gives none).
+func dataState(s string) string {
+	switch s {
+	case "l":
+		return "liquid"
+	case "g":
+		return "gas"
+	}
+	return "crystal"
+}
+
 // dataCitations collects the source keys used by the values shown.
 type dataCitations struct{ keys []string }
 
@@ -224,6 +261,7 @@ func dataPrint(w io.Writer, db *data.DB, rec any) {
 		dataPrintElement(w, db, r, &cite)
 	case data.Ion:
 		dataPrintIon(w, r, &cite)
+		dataPrintDerivedIon(w, db, r, &cite)
 	case data.Compound:
 		dataPrintCompound(w, db, r, &cite)
 	}
@@ -237,6 +275,11 @@ func dataPrintElement(w io.Writer, db *data.DB, e data.Element, cite *dataCitati
 	fmt.Fprintf(w, "%s  %s  (Z = %d)   standard state at 298.15 K: %s\n\n", e.Symbol, e.Name, e.Z, e.StandardState)
 	fmt.Fprintf(w, "Atomization ΔfH°(%s, g, 298.15 K)  %s\n", e.Symbol, dataValueText(e.Atomization))
 	cite.add(e.Atomization)
+	dataPrintAlternatives(w, e.Atomization, e.AtomizationAlternatives, cite)
+	if e.StandardEntropy.Known() {
+		fmt.Fprintf(w, "Standard entropy S°(%s, 298.15 K)  %s\n", e.StandardState, dataValueText(e.StandardEntropy))
+		cite.add(e.StandardEntropy)
+	}
 	if steps := db.AtomizationSteps(e.Symbol); len(steps) > 0 {
 		t := table{head: []string{"step", "kind", "ΔH° (kJ/mol)", "source"}}
 		for _, s := range steps {
@@ -324,6 +367,7 @@ func dataPrintIon(w io.Writer, ion data.Ion, cite *dataCitations) {
 			cite.add(x.v)
 		}
 	}
+	dataPrintAlternatives(w, ion.GasFormation, ion.GasFormationAlternatives, cite)
 	for _, h := range ion.Hydrations {
 		fmt.Fprintf(w, "Hydration enthalpy (%s scale)  %s\n", h.Scale, dataValueText(h.Value))
 		if h.Value.Note != "" {
@@ -342,8 +386,25 @@ func dataPrintCompound(w io.Writer, db *data.DB, c data.Compound, cite *dataCita
 		fmt.Fprintf(w, "  (%s)", c.Family)
 	}
 	fmt.Fprintf(w, "\n  ions: %d × %s, %d × %s\n\n", c.CationCount, c.Cation, c.AnionCount, c.Anion)
+	state := dataState(c.State)
+	if c.Polymorph != "" {
+		state += ", " + c.Polymorph
+	}
+	if c.Molecular {
+		state += "; molecular, not an ionic solid: the ions are formal"
+	}
+	fmt.Fprintf(w, "State  %s\n", state)
 	fmt.Fprintf(w, "Formation ΔfH°(298.15 K)  %s\n", dataValueText(c.Formation))
 	cite.add(c.Formation)
+	dataPrintAlternatives(w, c.Formation, c.Alternatives, cite)
+	if c.GibbsFormation.Known() {
+		fmt.Fprintf(w, "Gibbs energy of formation ΔfG°(298.15 K)  %s\n", dataValueText(c.GibbsFormation))
+		cite.add(c.GibbsFormation)
+	}
+	if c.Entropy.Known() {
+		fmt.Fprintf(w, "Entropy S°(298.15 K)  %s\n", dataValueText(c.Entropy))
+		cite.add(c.Entropy)
+	}
 	st := c.Structure
 	if st == "" {
 		st = "no prototype fits"
@@ -432,6 +493,51 @@ func dataList(w io.Writer, db *data.DB, what string, asJSON bool) error {
 	return nil
 }
 
+// dataSources prints data.Census: rows per source key and memory rows per
+// table of the built-in data.
+func dataSources(w io.Writer, asJSON bool) error {
+	census, err := data.Census()
+	if err != nil {
+		return err
+	}
+	bySource := map[string]int{}
+	for _, c := range census {
+		for k, n := range c.BySource {
+			bySource[k] += n
+		}
+	}
+	if asJSON {
+		type tableJSON struct {
+			File     string         `json:"file"`
+			Rows     int            `json:"rows"`
+			Memory   int            `json:"memory_rows"`
+			BySource map[string]int `json:"rows_by_source"`
+		}
+		var tables []tableJSON
+		for _, c := range census {
+			tables = append(tables, tableJSON{c.File, c.Rows, c.Memory, c.BySource})
+		}
+		return writeJSON(w, map[string]any{"tables": tables, "rows_by_source": bySource})
+	}
+	fmt.Fprintln(w, "Built-in rows citing each source (a row citing several counts under each)")
+	t := table{head: []string{"source", "rows"}, right: map[int]bool{1: true}}
+	for _, k := range slices.Sorted(dataMapKeys(bySource)) {
+		t.add(k, strconv.Itoa(bySource[k]))
+	}
+	t.write(w, "  ")
+	fmt.Fprintln(w, "\nRows per table, and those entered from memory (without the cited document at hand)")
+	t = table{head: []string{"table", "rows", "memory"}, right: map[int]bool{1: true, 2: true}}
+	var rows, mem int
+	for _, c := range census {
+		t.add(c.File, strconv.Itoa(c.Rows), strconv.Itoa(c.Memory))
+		rows += c.Rows
+		mem += c.Memory
+	}
+	t.add("all", strconv.Itoa(rows), strconv.Itoa(mem))
+	t.write(w, "  ")
+	return nil
+}
+
 // ---- JSON ----
 
 type dataValueJSON struct {
@@ -445,6 +551,7 @@ type dataValueJSON struct {
 	Override    bool           `json:"override"`
 	Replaced    *dataValueJSON `json:"replaced,omitempty"`
 	Note        string         `json:"note,omitempty"`
+	Locator     string         `json:"locator,omitempty"`
 }
 
 func dataValueOf(db *data.DB, v data.Value) *dataValueJSON {
@@ -452,12 +559,22 @@ func dataValueOf(db *data.DB, v data.Value) *dataValueJSON {
 		return nil
 	}
 	out := &dataValueJSON{Value: v.V, Uncertainty: v.U, Unit: v.Unit, Source: v.Source,
-		Memory: v.Memory, Derived: v.Derived, Override: v.Override, Note: v.Note}
+		Memory: v.Memory, Derived: v.Derived, Override: v.Override, Note: v.Note, Locator: v.Locator}
 	if s, err := db.Source(v.Source); err == nil {
 		out.Citation = s.Citation
 	}
 	if v.Replaced != nil {
 		out.Replaced = dataValueOf(db, *v.Replaced)
+	}
+	return out
+}
+
+// dataAltsOf writes other compilations' values, each with its difference
+// from the preferred value.
+func dataAltsOf(db *data.DB, pref data.Value, alts []data.Value) []map[string]any {
+	out := []map[string]any{}
+	for _, a := range alts {
+		out = append(out, map[string]any{"value": dataValueOf(db, a), "difference_from_preferred": a.V - pref.V})
 	}
 	return out
 }
@@ -507,6 +624,8 @@ func dataJSON(db *data.DB, rec any) any {
 			"kind": "element", "symbol": r.Symbol, "name": r.Name, "z": r.Z, "standard_state": r.StandardState,
 			"atomization_kj_per_mol":            dataNumber(r.Atomization),
 			"atomization":                       dataValueOf(db, r.Atomization),
+			"atomization_alternatives":          dataAltsOf(db, r.Atomization, r.AtomizationAlternatives),
+			"standard_entropy":                  dataValueOf(db, r.StandardEntropy),
 			"atomization_steps":                 steps,
 			"ionization_energies_ev":            ies,
 			"ionization_energies":               ieVals,
@@ -529,11 +648,13 @@ func dataJSON(db *data.DB, rec any) any {
 		return map[string]any{
 			"kind": "ion", "symbol": r.Symbol, "core": r.Core, "charge": r.Charge, "polyatomic": r.Polyatomic, "shape": r.Shape,
 			"born_config": r.BornConfig, "born_exponent": dataValueOf(db, r.BornExponent),
-			"shannon_radii":         radii,
-			"thermochemical_radius": dataValueOf(db, r.ThermochemicalRadius),
-			"gas_formation":         dataValueOf(db, r.GasFormation),
-			"hydration":             hyd,
-			"note":                  r.Note,
+			"shannon_radii":              radii,
+			"thermochemical_radius":      dataValueOf(db, r.ThermochemicalRadius),
+			"gas_formation":              dataValueOf(db, r.GasFormation),
+			"gas_formation_alternatives": dataAltsOf(db, r.GasFormation, r.GasFormationAlternatives),
+			"fitted_gas_formation":       derivedIonJSONOf(db, r.Symbol),
+			"hydration":                  hyd,
+			"note":                       r.Note,
 		}
 	case data.Compound:
 		params := map[string]float64{}
@@ -545,6 +666,12 @@ func dataJSON(db *data.DB, rec any) any {
 			"cation": r.Cation, "cation_count": r.CationCount, "anion": r.Anion, "anion_count": r.AnionCount,
 			"formation_enthalpy_kj_per_mol": dataNumber(r.Formation),
 			"formation_enthalpy":            dataValueOf(db, r.Formation),
+			"formation_alternatives":        dataAltsOf(db, r.Formation, r.Alternatives),
+			"gibbs_formation":               dataValueOf(db, r.GibbsFormation),
+			"entropy":                       dataValueOf(db, r.Entropy),
+			"state":                         dataState(r.State),
+			"polymorph":                     r.Polymorph,
+			"molecular":                     r.Molecular,
 			"structure":                     r.Structure,
 			"params":                        params,
 			"params_source":                 r.ParamsSource,
@@ -557,4 +684,38 @@ func dataJSON(db *data.DB, rec any) any {
 		}
 	}
 	return nil
+}
+
+// dataPrintDerivedIon shows the ion's family-fitted gas-phase enthalpy.
+func dataPrintDerivedIon(w io.Writer, db *data.DB, ion data.Ion, cite *dataCitations) {
+	d, ok := db.DerivedIon(ion.Symbol)
+	if !ok {
+		return
+	}
+	fmt.Fprintf(w, "ΔfH°(ion, g, 298.15 K), family fit  %s\n", dataValueText(d.GasFormation))
+	line := fmt.Sprintf("fitted over %d salts (%s): %s", len(d.Salts), d.Model, strings.Join(d.Salts, ", "))
+	if len(d.Outside) > 0 {
+		line += "; outside 2σ: " + strings.Join(d.Outside, ", ")
+	}
+	fmt.Fprintf(w, "  %s\n", wrapText(line, 76, "  "))
+	cite.add(d.GasFormation)
+}
+
+type derivedIonJSON struct {
+	Value   *dataValueJSON `json:"value"`
+	Model   string         `json:"lattice_source"`
+	Salts   []string       `json:"salts"`
+	Outside []string       `json:"outside_2sigma"`
+}
+
+func derivedIonJSONOf(db *data.DB, symbol string) *derivedIonJSON {
+	d, ok := db.DerivedIon(symbol)
+	if !ok {
+		return nil
+	}
+	j := &derivedIonJSON{Value: dataValueOf(db, d.GasFormation), Model: d.Model, Salts: d.Salts, Outside: d.Outside}
+	if j.Outside == nil {
+		j.Outside = []string{}
+	}
+	return j
 }

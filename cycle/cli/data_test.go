@@ -195,3 +195,29 @@ func TestDefaultOverlayReachesCycle(t *testing.T) {
 		t.Errorf("the default overlay's KCl formation enthalpy is not in the cycle:\n%s", out.String())
 	}
 }
+
+// data --sources counts the built-in rows per source and memory rows per
+// table; data X shows where the preferred value is in its pinned source and
+// every other compilation's value with its difference. NaCl: NBS 1982
+// −411.153 kJ/mol (data/sources/nbs-tables-1982, line 10930); NASA Glenn
+// NaCL(cr) −411.26 kJ/mol (data/sources/nasa-cea-thermo/thermo.inp, line 13616).
+func TestDataSourcesAndAlternatives(t *testing.T) {
+	code, out, errs := runDataCmd(t, "", "--sources")
+	if code != ExitOK || !strings.Contains(out, "nbs1982") || !strings.Contains(out, "compounds.csv") || !strings.Contains(out, "memory") {
+		t.Errorf("data --sources: exit %d\n%s%s", code, out, errs)
+	}
+	code, out, _ = runDataCmd(t, "", "--sources", "--json")
+	if code != ExitOK || !strings.Contains(out, `"rows_by_source"`) || !strings.Contains(out, `"memory_rows"`) {
+		t.Errorf("data --sources --json: exit %d\n%s", code, out)
+	}
+	code, out, _ = runDataCmd(t, "", "NaCl")
+	for _, want := range []string{"-411.153", "nbs-tables-1982/NBS_Tables_with_ErratumValues.csv:10930", "other compilations", "-411.26", "nasa-glenn", "State  crystal"} {
+		if code != ExitOK || !strings.Contains(out, want) {
+			t.Errorf("data NaCl lacks %q:\n%s", want, out)
+		}
+	}
+	code, out, _ = runDataCmd(t, "", "NaCl", "--json")
+	if code != ExitOK || !strings.Contains(out, `"formation_alternatives"`) || !strings.Contains(out, `"difference_from_preferred"`) || !strings.Contains(out, `"locator"`) {
+		t.Errorf("data NaCl --json:\n%s", out)
+	}
+}

@@ -48,10 +48,12 @@ const (
 	maxImages = 1000000
 )
 
-// MaxFileSize bounds the CIF files ParseFile reads, in bytes (4 MiB: a
-// cell of 50,000 sites takes about 2 MiB; a file that also carries its
-// structure factors may need them taken out first).
-const MaxFileSize = 4 << 20
+// MaxFileSize bounds the CIF files ParseFile reads, in bytes (2 MiB: a
+// cell of 40,000 sites written with its coordinates takes 1.5 MiB; a file
+// that also carries its structure factors may need them taken out first).
+// At 2 MiB the costliest file to read (a loop of one-character values)
+// peaks near 230 MB; at 4 MiB it took 450 MB.
+const MaxFileSize = 2 << 20
 
 // ParseFile reads the CIF file at path; see Parse. It reads regular files
 // only (not a device, pipe or folder) of at most MaxFileSize bytes.

@@ -301,3 +301,29 @@ func TestSeriesIgnoresLookalikes(t *testing.T) {
 		t.Errorf("Series = %v, want only recovery-4.hesscycle", got)
 	}
 }
+
+func TestCheckTOMLNesting(t *testing.T) {
+	deep := strings.Repeat("[", fileio.MaxTOMLNesting+1) + strings.Repeat("]", fileio.MaxTOMLNesting+1)
+	for _, tc := range []struct {
+		name, text string
+		line       int // 0: accepted
+	}{
+		{"a cycle file's shape", "[models]\nrho = 0.3\n[[step]]\nkey = \"lattice\"\nv = [1, [2, {a = 3}]]\n", 0},
+		{"as deep as allowed", "a = " + deep[1:len(deep)-1] + "\n", 0},
+		{"one level deeper", "x = 1\na = " + deep + "\n", 2},
+		{"brackets in strings do not count", `a = "` + deep + `"` + "\nb = '" + deep + "'\n", 0},
+		{"nor in multi-line strings", "a = \"\"\"\n" + deep + "\n\"\"\"\nb = '''" + deep + "'''\n", 0},
+		{"nor in comments", "# " + deep + "\n", 0},
+		{"an escaped quote does not end a string", `a = "\"` + deep + `"` + "\n", 0},
+		{"inline tables count", "a = " + strings.Repeat("{b=", 40) + "1" + strings.Repeat("}", 40) + "\n", 1},
+	} {
+		err := fileio.CheckTOMLNesting([]byte(tc.text))
+		var ne *fileio.NestingError
+		switch {
+		case tc.line == 0 && err != nil:
+			t.Errorf("%s: refused: %v", tc.name, err)
+		case tc.line != 0 && (!errors.As(err, &ne) || ne.Line != tc.line):
+			t.Errorf("%s: err = %v, want a NestingError on line %d", tc.name, err, tc.line)
+		}
+	}
+}

@@ -2,6 +2,7 @@ package analyses
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"enthalpath/cycle/analysis"
@@ -21,6 +22,8 @@ func (m *Model) render(r any) []string {
 		return m.radius(r)
 	case *analysis.FittedRadius:
 		return m.radiusFit(r)
+	case *analysis.IonFit:
+		return m.ionFit(r)
 	case *analysis.Stability:
 		return m.stability(r)
 	}
@@ -64,7 +67,7 @@ func (m *Model) estimate(e *analysis.Estimate) []string {
 func (m *Model) scan(s *analysis.Scan) []string {
 	st := m.ctx.Styles
 	lines := []string{st.Accent.Render(fmt.Sprintf("%s with %s (%s), lattice from %s", s.Metal, s.NonMetal, s.Anion, s.Model)),
-		st.Title.Render(fmt.Sprintf("  %-8s %6s %22s %14s  %s", "formula", "charge", "ΔfH° per formula", "per metal", "verdict"))}
+		st.Title.Render(fmt.Sprintf("  %-8s %6s %22s %22s  %s", "formula", "charge", "ΔfH° per formula", fmt.Sprintf("ΔfG(%g K)", s.Temperature), "verdict"))}
 	for _, c := range s.Compounds {
 		from := "estimate"
 		if c.FromData {
@@ -79,17 +82,28 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		case c.Undecided:
 			verdict = "undecided within the data"
 		}
-		if c.Formula == s.Favoured {
+		switch {
+		case c.Formula == s.Favoured && s.FavouredTie != "":
+			verdict += " · lowest, within 2σ of " + s.FavouredTie
+		case c.Formula == s.Favoured:
 			verdict += " · favoured"
 		}
-		lines = append(lines, m.row(fmt.Sprintf("  %-8s %6d %22s %14s  %s (%s)", c.Formula, c.Charge, m.pm(c.Formation, c.Uncertainty),
-			m.ctx.Signed(c.PerMetal), verdict, from)))
+		g := "—"
+		if !math.IsNaN(c.Gibbs) {
+			g = m.pm(c.Gibbs, c.GibbsUncertainty)
+		}
+		lines = append(lines, m.row(fmt.Sprintf("  %-8s %6d %22s %22s  %s (%s)", c.Formula, c.Charge, m.pm(c.Formation, c.Uncertainty),
+			g, verdict, from)))
 	}
 	if len(s.Disproportionations) > 0 {
 		lines = append(lines, st.Title.Render("  disproportionations"))
 	}
 	for _, d := range s.Disproportionations {
-		lines = append(lines, m.row(fmt.Sprintf("  %-28s %s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), d.Energies.Verdict)))
+		g := ""
+		if e := d.Energies; e.EntropyKnown {
+			g = " · ΔrG " + m.pm(e.Gibbs, e.GibbsUncertainty)
+		}
+		lines = append(lines, m.row(fmt.Sprintf("  %-28s ΔrH° %s%s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), g, d.Energies.Verdict)))
 	}
 	for _, c := range s.Compounds {
 		for _, n := range c.Notes {
@@ -171,6 +185,40 @@ func (m *Model) radiusFit(f *analysis.FittedRadius) []string {
 			}
 		}
 		lines = append(lines, st.Warn.Render(wrap(fmt.Sprintf("  left out (no lattice energy): %s", strings.Join(names, ", ")), m.w)))
+	}
+	return append(lines, m.notes(f.Notes)...)
+}
+
+func (m *Model) ionFit(f *analysis.IonFit) []string {
+	st := m.ctx.Styles
+	used := f.Used()
+	scatter := "one salt: no scatter"
+	if f.Birge > 0 {
+		scatter = fmt.Sprintf("internal SE %.1f, Birge ratio %.2f", f.InternalSE, f.Birge)
+	}
+	lines := []string{
+		st.Accent.Render(fmt.Sprintf("ΔfH°(%s, g) = %s over %d of %d salts", f.Ion, m.pm(f.Value, f.SE), len(used), len(f.Salts))) + st.Muted.Render("   "+scatter),
+		"lattice enthalpies from: " + f.Models(),
+	}
+	if b := f.Builtin; b != nil {
+		lines = append(lines, fmt.Sprintf("built-in derived value: %s (%s, %d salts)", m.pm(b.GasFormation.V, b.GasFormation.U), b.Model, len(b.Salts)))
+	}
+	lines = append(lines, st.Title.Render(fmt.Sprintf("  %-11s %-8s %16s %22s %10s %6s", "salt", "counter", "ΔH_L", "ΔfH° alone", "residual", "in σ")))
+	for _, s := range used {
+		row := m.row(fmt.Sprintf("  %-11s %-8s %16s %22s %10s %+6.1f", s.Formula, s.Counter, m.ctx.Signed(s.Lattice),
+			m.pm(s.Value, s.Uncertainty), m.ctx.Signed(s.Residual), s.Normalized))
+		if s.Outside {
+			row = st.Warn.Render(row + "  outside 2σ")
+		}
+		lines = append(lines, row)
+	}
+	if out := f.Outside(); len(out) > 0 {
+		lines = append(lines, st.Warn.Render(wrap("  outside 2σ: "+strings.Join(out, ", "), m.w)))
+	}
+	for _, s := range f.Salts {
+		if s.Skipped != "" {
+			lines = append(lines, st.Muted.Render(wrap("  left out: "+s.Formula+": "+s.Skipped, m.w-2)))
+		}
 	}
 	return append(lines, m.notes(f.Notes)...)
 }

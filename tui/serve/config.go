@@ -31,6 +31,23 @@ const (
 	DefaultMaxBurst      = 4096
 	DefaultShutdownGrace = 7 * time.Second
 	DefaultLoginTimeout  = 20 * time.Second
+	// DefaultMaxPendingPerAddress bounds the connections from one address
+	// that have not logged in yet.
+	DefaultMaxPendingPerAddress = 4
+)
+
+// Bounds on what one connection may ask for (common practice for a server
+// that holds per-channel state, no source): a client opens one session
+// channel per ssh -t, and sends a handful of environment variables.
+const (
+	// MaxChannelsPerConn is the most session channels open at once on one
+	// connection; more are refused (resource shortage).
+	MaxChannelsPerConn = 2
+	// MaxEnvPerChannel is the most environment variables a session channel
+	// may set; MaxEnvBytes the largest one, name and value. More, or
+	// larger, are refused and not kept.
+	MaxEnvPerChannel = 32
+	MaxEnvBytes      = 1024
 )
 
 // SessionSetup is what a session's model is built from.
@@ -81,10 +98,14 @@ type Config struct {
 	IdleTimeout time.Duration
 	// LoginTimeout closes a connection that has not authenticated within
 	// it, so idle or trickling handshakes cannot hold connection places.
-	LoginTimeout  time.Duration
-	MaxInputLen   int
-	MaxBurst      int
-	ShutdownGrace time.Duration
+	LoginTimeout time.Duration
+	// MaxPendingPerAddress bounds the connections from one address (IP)
+	// that have not logged in, so one host's silent or slow connections
+	// cannot fill the places others log in through.
+	MaxPendingPerAddress int
+	MaxInputLen          int
+	MaxBurst             int
+	ShutdownGrace        time.Duration
 
 	// NewModel builds each session's model.
 	NewModel ModelFactory
@@ -122,6 +143,9 @@ func (c *Config) withDefaults() (Config, error) {
 	if out.MaxBurst == 0 {
 		out.MaxBurst = DefaultMaxBurst
 	}
+	if out.MaxPendingPerAddress == 0 {
+		out.MaxPendingPerAddress = DefaultMaxPendingPerAddress
+	}
 	if out.LoginTimeout == 0 {
 		out.LoginTimeout = DefaultLoginTimeout
 	}
@@ -136,8 +160,8 @@ func (c *Config) withDefaults() (Config, error) {
 		return out, fmt.Errorf("%w: MaxSessions %d must be positive", ErrConfig, out.MaxSessions)
 	case out.IdleTimeout < 0:
 		return out, fmt.Errorf("%w: IdleTimeout %v must be positive", ErrConfig, out.IdleTimeout)
-	case out.MaxInputLen < 0 || out.MaxBurst < 0 || out.ShutdownGrace < 0 || out.LoginTimeout < 0:
-		return out, fmt.Errorf("%w: MaxInputLen, MaxBurst, LoginTimeout and ShutdownGrace must be positive", ErrConfig)
+	case out.MaxInputLen < 0 || out.MaxBurst < 0 || out.ShutdownGrace < 0 || out.LoginTimeout < 0 || out.MaxPendingPerAddress < 0:
+		return out, fmt.Errorf("%w: MaxInputLen, MaxBurst, LoginTimeout, MaxPendingPerAddress and ShutdownGrace must be positive", ErrConfig)
 	case out.HostKeyPath == "":
 		return out, fmt.Errorf("%w: HostKeyPath is empty", ErrConfig)
 	case out.StateDir == "":

@@ -42,12 +42,20 @@
 // in that session: its model is asked to write its recovery file, the user
 // is told, and no other session notices.
 //
+// Connections are bounded before login too: at most
+// Config.MaxPendingPerAddress from one address that have not logged in
+// (more are closed at once), each closed after Config.LoginTimeout, and
+// 4×MaxSessions+16 in all. On a connection at most MaxChannelsPerConn
+// session channels are open at once, and each keeps at most
+// MaxEnvPerChannel environment variables of MaxEnvBytes.
+//
 // Only interactive sessions are served: commands, subsystems (sftp), port
 // forwarding and other channel types are refused.
 //
 // # Shutdown
 //
 // Server.Shutdown stops accepting, sends every session the shutdown message
-// (the model writes its recovery file and quits), waits for them within the
-// grace period, then closes every connection.
+// (the model writes its recovery file, never over an earlier one, and
+// quits; a model that implements Recoverer tells the member which file),
+// waits for them within the grace period, then closes every connection.
 package serve

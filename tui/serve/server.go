@@ -28,8 +28,11 @@ type Server struct {
 	conns    atomic.Int64
 	maxConns int64
 
-	mu        sync.Mutex
-	sessions  map[*liveSession]struct{}
+	mu       sync.Mutex
+	sessions map[*liveSession]struct{}
+	// pending counts, per remote address, the connections that have not
+	// logged in yet.
+	pending   map[string]int
 	listeners []net.Listener
 	closing   bool
 	sessWG    sync.WaitGroup
@@ -47,6 +50,7 @@ func New(cfg Config) (*Server, error) {
 		log:      cfg.Logger,
 		slots:    make(chan struct{}, cfg.MaxSessions),
 		sessions: make(map[*liveSession]struct{}),
+		pending:  make(map[string]int),
 		// Connections that have not opened a session yet (or are being
 		// refused) are bounded too, so a flood of handshakes cannot
 		// exhaust the host.
@@ -84,6 +88,9 @@ func New(cfg Config) (*Server, error) {
 		return nil, err
 	}
 	s.ssh.Version = "enthalpath"
+	// Only session channels, at most MaxChannelsPerConn at once on a
+	// connection, with their requests bounded (boundedRequests).
+	s.ssh.ChannelHandlers = map[string]ssh.ChannelHandler{"session": s.sessionChannel}
 	s.ssh.ConnCallback = s.onConnect
 	s.ssh.ConnectionFailedCallback = func(conn net.Conn, err error) {
 		s.log.Info("connection refused during handshake", "remote", conn.RemoteAddr().String(), "reason", err.Error())
@@ -95,6 +102,7 @@ func New(cfg Config) (*Server, error) {
 				if err == nil {
 					if cc, ok := ctx.Value(connKey{}).(*countedConn); ok {
 						cc.authenticated.Store(true)
+						cc.loggedIn() // its place among the address's pending ones is free
 					}
 				}
 				s.onAuthAttempt(conn, method, err)
@@ -208,8 +216,26 @@ func (s *Server) onConnect(ctx ssh.Context, conn net.Conn) net.Conn {
 		s.log.Warn("connection refused: too many connections", "remote", remote, "limit", s.maxConns)
 		return nil
 	}
+	host := remoteHost(conn.RemoteAddr())
+	s.mu.Lock()
+	if s.pending[host] >= s.cfg.MaxPendingPerAddress {
+		s.mu.Unlock()
+		s.conns.Add(-1)
+		s.log.Warn("connection refused: too many connections from this address not logged in",
+			"remote", remote, "limit", s.cfg.MaxPendingPerAddress)
+		return nil
+	}
+	s.pending[host]++
+	s.mu.Unlock()
 	s.log.Info("connection", "remote", remote)
 	cc := &countedConn{Conn: conn, done: func() { s.conns.Add(-1) }}
+	cc.loggedIn = sync.OnceFunc(func() {
+		s.mu.Lock()
+		defer s.mu.Unlock()
+		if s.pending[host]--; s.pending[host] <= 0 {
+			delete(s.pending, host)
+		}
+	})
 	ctx.SetValue(connKey{}, cc)
 	time.AfterFunc(s.cfg.LoginTimeout, func() {
 		if !cc.authenticated.Load() {
@@ -222,6 +248,71 @@ func (s *Server) onConnect(ctx ssh.Context, conn net.Conn) net.Conn {
 
 // connKey finds a connection's countedConn in its context.
 type connKey struct{}
+
+// remoteHost is the address part of a remote address (its IP), the unit
+// the pending-connection limit counts by.
+func remoteHost(a net.Addr) string {
+	if tcp, ok := a.(*net.TCPAddr); ok {
+		return tcp.IP.String()
+	}
+	host, _, err := net.SplitHostPort(a.String())
+	if err != nil {
+		return a.String()
+	}
+	return host
+}
+
+// sessionChannel opens a session channel unless the connection has
+// MaxChannelsPerConn open already, and hands its requests through
+// boundedRequests.
+func (s *Server) sessionChannel(srv *ssh.Server, conn *gossh.ServerConn, newChan gossh.NewChannel, ctx ssh.Context) {
+	cc, _ := ctx.Value(connKey{}).(*countedConn)
+	if cc != nil {
+		if cc.channels.Add(1) > MaxChannelsPerConn {
+			cc.channels.Add(-1)
+			s.log.Warn("channel refused: too many on one connection", "remote", conn.RemoteAddr().String(), "limit", MaxChannelsPerConn)
+			newChan.Reject(gossh.ResourceShortage, fmt.Sprintf("at most %d sessions on one connection", MaxChannelsPerConn))
+			return
+		}
+		defer cc.channels.Add(-1)
+	}
+	ssh.DefaultSessionHandler(srv, conn, boundedChannel{newChan}, ctx)
+}
+
+// boundedChannel is a new session channel whose requests, once accepted,
+// pass through boundedRequests.
+type boundedChannel struct{ gossh.NewChannel }
+
+func (b boundedChannel) Accept() (gossh.Channel, <-chan *gossh.Request, error) {
+	ch, reqs, err := b.NewChannel.Accept()
+	if err != nil {
+		return ch, reqs, err
+	}
+	return ch, boundedRequests(reqs), nil
+}
+
+// boundedRequests passes a channel's requests on, one at a time (so a
+// flood waits on the client's own connection rather than in memory here),
+// refusing environment variables beyond MaxEnvPerChannel or MaxEnvBytes:
+// the session handler keeps every one it is given.
+func boundedRequests(in <-chan *gossh.Request) <-chan *gossh.Request {
+	out := make(chan *gossh.Request)
+	go func() {
+		defer close(out)
+		envs := 0
+		for req := range in {
+			if req.Type == "env" {
+				envs++
+				if envs > MaxEnvPerChannel || len(req.Payload) > MaxEnvBytes {
+					req.Reply(false, nil)
+					continue
+				}
+			}
+			out <- req
+		}
+	}()
+	return out
+}
 
 // onAuthAttempt logs every authentication outcome except the initial
 // "none" probe every client makes and refused keys (checkKey logs those,
@@ -261,9 +352,16 @@ type countedConn struct {
 	once          sync.Once
 	done          func()
 	authenticated atomic.Bool
+	// loggedIn frees the connection's place among its address's pending
+	// ones, once: at login or at close, whichever comes first.
+	loggedIn func()
+	channels atomic.Int64 // session channels open
 }
 
 func (c *countedConn) Close() error {
-	c.once.Do(c.done)
+	c.once.Do(func() {
+		c.loggedIn()
+		c.done()
+	})
 	return c.Conn.Close()
 }
