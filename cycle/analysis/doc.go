@@ -40,8 +40,9 @@
 // the family when it has at least five compounds, else the alkali halides),
 // computed from the data at first use, never typed in (Spread). The σ of an
 // estimate is the root sum of squares of that model σ and the data
-// uncertainties the cycle propagates. The command `trust` prints every
-// model's figures.
+// uncertainties the cycle propagates. cycle.Validate gives every model's
+// figures. Analyst.ModelSpread, the σ of the ion fit and of solution cycles,
+// stays the RMS gap over the alkali and alkaline-earth halides.
 //
 // # Ion values fitted over a family
 //
