@@ -97,7 +97,7 @@ func printRadiusFit(w io.Writer, f *analysis.FittedRadius) {
 	used := f.Used()
 	spread := "one salt only: no spread"
 	if f.HasSpread {
-		spread = fmt.Sprintf("one-salt radii %.3f ± %.3f Å, SE %.3f Å; rms misfit %.1f kJ/mol", f.Mean, f.SD, f.SE, f.RMSResidual)
+		spread = fmt.Sprintf("one-salt radii %s Å, SE %.3f Å; rms misfit %.1f kJ/mol", plusMinus(f.Mean, f.SD), f.SE, f.RMSResidual)
 	}
 	fmt.Fprintf(w, "radius of %s fitted over %d salt(s): %.3f Å (%s)\n", f.Ion, len(used), f.Radius, spread)
 	if f.Tabulated != nil {
