@@ -469,6 +469,8 @@ func inputsText(m cycle.ModelResult) string {
 }
 
 type cycleJSON struct {
+	Formula string `json:"formula"` // the compound, the key every command uses
+	// Deprecated: the same as formula, kept for scripts that read it.
 	Compound             string        `json:"compound"`
 	Name                 string        `json:"name,omitempty"`
 	Family               string        `json:"family,omitempty"`
@@ -558,7 +560,7 @@ type settingsJSON struct {
 }
 
 func cycleJSONOf(c *cycle.Cycle, r *cycle.Result) cycleJSON {
-	j := cycleJSON{Compound: c.Formula, Name: c.Name, Family: c.Family, Tabulated: c.Tabulated,
+	j := cycleJSON{Formula: c.Formula, Compound: c.Formula, Name: c.Name, Family: c.Family, Tabulated: c.Tabulated,
 		Cation: c.Cation.Ion.Symbol, Anion: c.Anion.Ion.Symbol,
 		Convention: r.Conventions.Lattice.Symbol(), IonizationConvention: r.Conventions.Ionization.String(),
 		Solved:            solvedJSON{Key: r.Solved.Key, KJPerMol: jsonNumber(r.Solved.Value), UncertaintyKJ: jsonNumber(r.Solved.Uncertainty)},

@@ -57,6 +57,8 @@ func runRadius(env Env, args []string) error {
 }
 
 type radiusJSON struct {
+	Formula string `json:"formula"` // the compound, the key every command uses
+	// Deprecated: the same as formula, kept for scripts that read it.
 	Compound             string      `json:"compound"`
 	Ion                  string      `json:"ion"`
 	Counter              string      `json:"counter_ion"`
@@ -88,7 +90,7 @@ func optNum(v float64) *jsonNumber {
 }
 
 func radiusJSONOf(d *analysis.DerivedRadius) radiusJSON {
-	out := radiusJSON{Compound: d.Formula, Ion: d.Ion, Counter: d.Counter, CounterRadius: d.CounterRadius.Value, CounterFrom: d.CounterRadius.From,
+	out := radiusJSON{Formula: d.Formula, Compound: d.Formula, Ion: d.Ion, Counter: d.Counter, CounterRadius: d.CounterRadius.Value, CounterFrom: d.CounterRadius.From,
 		LatticeEnergyKJ: jsonNum(d.LatticeEnergy), LatticeFrom: d.LatticeFrom,
 		Kapustinskii: optNum(d.Kapustinskii), KapustinskiiHandbook: optNum(d.KapustinskiiHandbook),
 		MolarVolume: optNum(d.MolarVolume), IonVolume: optNum(d.IonVolume), VolumeRadius: optNum(d.VolumeRadius),

@@ -45,6 +45,8 @@ func runRadiusFit(env Env, a *analysis.Analyst, pos []string, ion, counterRadii,
 }
 
 type radiusFitSaltJSON struct {
+	Formula string `json:"formula"` // the compound, the key every command uses
+	// Deprecated: the same as formula, kept for scripts that read it.
 	Compound        string      `json:"compound"`
 	Counter         string      `json:"counter_ion"`
 	CounterRadius   *jsonNumber `json:"counter_radius_angstrom,omitempty"`
@@ -81,7 +83,7 @@ func radiusFitJSONOf(f *analysis.FittedRadius) radiusFitJSON {
 		out.Tabulated, out.TabulatedFrom = optNum(f.Tabulated.Value), f.Tabulated.From
 	}
 	for _, s := range f.Salts {
-		j := radiusFitSaltJSON{Compound: s.Formula, Counter: s.Counter, Skipped: s.Skipped}
+		j := radiusFitSaltJSON{Formula: s.Formula, Compound: s.Formula, Counter: s.Counter, Skipped: s.Skipped}
 		if s.Skipped == "" {
 			j.CounterRadius, j.CounterFrom = optNum(s.CounterRadius.Value), s.CounterRadius.From
 			j.LatticeEnergyKJ, j.LatticeFrom = optNum(s.LatticeEnergy), s.LatticeFrom
