@@ -78,6 +78,7 @@ type radiusJSON struct {
 	Tabulated            *jsonNumber `json:"tabulated_radius_angstrom,omitempty"`
 	TabulatedFrom        string      `json:"tabulated_radius_from,omitempty"`
 	Problems             []string    `json:"problems,omitempty"`
+	Warnings             []string    `json:"warnings,omitempty"`
 	Notes                []string    `json:"notes"`
 }
 
@@ -95,6 +96,9 @@ func radiusJSONOf(d *analysis.DerivedRadius) radiusJSON {
 		Kapustinskii: optNum(d.Kapustinskii), KapustinskiiHandbook: optNum(d.KapustinskiiHandbook),
 		MolarVolume: optNum(d.MolarVolume), IonVolume: optNum(d.IonVolume), VolumeRadius: optNum(d.VolumeRadius),
 		EffectiveRho: optNum(d.EffectiveRho), Madelung: optNum(d.Madelung), D0: optNum(d.D0), D0From: d.D0From, Notes: d.Notes}
+	if d.RhoWarning != "" {
+		out.Warnings = append(out.Warnings, d.RhoWarning)
+	}
 	if d.Tabulated != nil {
 		out.Tabulated, out.TabulatedFrom = optNum(d.Tabulated.Value), d.Tabulated.From
 	}
@@ -129,6 +133,9 @@ func printRadius(w io.Writer, d *analysis.DerivedRadius) {
 	t.write(w, "  ")
 	if d.EffectiveRho > 0 {
 		fmt.Fprintf(w, "\n  ρ with A = %.5f (%s), d₀ = %.3f Å (%s); the usual ρ is %.3f Å\n", d.Madelung, d.Structure, d.D0, d.D0From, d.DefaultRho)
+	}
+	if d.RhoWarning != "" {
+		fmt.Fprintf(w, "  warning: %s\n", wrapText(d.RhoWarning, 96, "           "))
 	}
 	for _, n := range d.Notes {
 		fmt.Fprintf(w, "  note: %s\n", wrapText(n, 96, "        "))

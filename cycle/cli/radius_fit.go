@@ -68,13 +68,14 @@ type radiusFitJSON struct {
 	Used          int                 `json:"salts_used"`
 	Tabulated     *jsonNumber         `json:"tabulated_radius_angstrom,omitempty"`
 	TabulatedFrom string              `json:"tabulated_radius_from,omitempty"`
+	CounterRadii  string              `json:"counter_radii_from"`
 	Salts         []radiusFitSaltJSON `json:"salts"`
 	Notes         []string            `json:"notes"`
 }
 
 func radiusFitJSONOf(f *analysis.FittedRadius) radiusFitJSON {
 	out := radiusFitJSON{Ion: f.Ion, Radius: jsonNum(f.Radius), Mean: jsonNum(f.Mean),
-		RMSResidual: jsonNum(f.RMSResidual), Used: len(f.Used()), Notes: f.Notes, Salts: []radiusFitSaltJSON{}}
+		RMSResidual: jsonNum(f.RMSResidual), Used: len(f.Used()), Notes: f.Notes, CounterRadii: f.CounterRadiiFrom(), Salts: []radiusFitSaltJSON{}}
 	if f.HasSpread { // null with one salt: no spread can be given
 		sd, se := jsonNum(f.SD), jsonNum(f.SE)
 		out.SD, out.SE = &sd, &se
@@ -102,6 +103,7 @@ func printRadiusFit(w io.Writer, f *analysis.FittedRadius) {
 		spread = fmt.Sprintf("one-salt radii %s Å, SE %.3f Å; rms misfit %.1f kJ/mol", plusMinus(f.Mean, f.SD), f.SE, f.RMSResidual)
 	}
 	fmt.Fprintf(w, "radius of %s fitted over %d salt(s): %.3f Å (%s)\n", f.Ion, len(used), f.Radius, spread)
+	fmt.Fprintf(w, "  %s\n", f.CounterRadiiFrom())
 	if f.Tabulated != nil {
 		fmt.Fprintf(w, "  radius in the data: %.3f Å (%s)\n", f.Tabulated.Value, f.Tabulated.From)
 	}

@@ -139,6 +139,9 @@ func (m *Model) radius(r *analysis.DerivedRadius) []string {
 		"volume-based (sphere of its volume):  " + val(r.VolumeRadius, r.VolumeErr),
 		fmt.Sprintf("effective Born–Mayer ρ:               %s (usual %.3f Å; %s, d₀ %.3f Å)", val(r.EffectiveRho, r.RhoErr), r.DefaultRho, r.Structure, r.D0),
 	}
+	if r.RhoWarning != "" {
+		lines = append(lines, st.Warn.Render(wrap("warning: "+r.RhoWarning, m.w)))
+	}
 	if r.Tabulated != nil {
 		lines = append(lines, fmt.Sprintf("the data's radius: %.3f Å (%s)", r.Tabulated.Value, r.Tabulated.From))
 	}
@@ -154,6 +157,7 @@ func (m *Model) radiusFit(f *analysis.FittedRadius) []string {
 	}
 	lines := []string{
 		st.Accent.Render(fmt.Sprintf("%s: %.3f Å fitted over %d salt(s)", f.Ion, f.Radius, len(used))) + st.Muted.Render("   "+spread),
+		wrap(f.CounterRadiiFrom(), m.w),
 	}
 	if f.Tabulated != nil {
 		lines = append(lines, fmt.Sprintf("the data's radius: %.3f Å (%s)", f.Tabulated.Value, f.Tabulated.From))
