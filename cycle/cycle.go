@@ -53,7 +53,9 @@ type Cycle struct {
 	memo *Memo
 }
 
-// Clone returns a deep copy of c that shares only the Madelung memo.
+// Clone returns a deep copy of c that shares only the Madelung memo and the
+// ions' tables of Shannon radii, which nothing changes in place (they are
+// replaced whole; their capacity is clipped so that an append copies).
 func (c *Cycle) Clone() *Cycle {
 	d := *c
 	d.Steps = slices.Clone(c.Steps)
@@ -70,8 +72,8 @@ func (c *Cycle) Clone() *Cycle {
 			d.Steps[i].Reference = &refs[len(refs)-1]
 		}
 	}
-	d.Cation.Ion.Radii = slices.Clone(c.Cation.Ion.Radii)
-	d.Anion.Ion.Radii = slices.Clone(c.Anion.Ion.Radii)
+	d.Cation.Ion.Radii = slices.Clip(c.Cation.Ion.Radii)
+	d.Anion.Ion.Radii = slices.Clip(c.Anion.Ion.Radii)
 	d.Compound.Params = maps.Clone(c.Compound.Params)
 	d.Settings = c.Settings.clone()
 	return &d

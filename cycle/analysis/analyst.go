@@ -24,7 +24,14 @@ type Analyst struct {
 	mu      sync.Mutex
 	spreads map[string]spreadEntry
 	built   map[string]builtEntry
-	radii   map[string]radiusEntry
+	radii   map[ionKey]radiusEntry
+}
+
+// ionKey names an ion in the radius memo.
+type ionKey struct {
+	symbol, core string
+	charge       int
+	polyatomic   bool
 }
 
 type radiusEntry struct {
@@ -35,7 +42,7 @@ type radiusEntry struct {
 // ionRadius is IonRadius remembered per ion (the neighbour rule looks at
 // every element).
 func (a *Analyst) ionRadius(ion data.Ion) (Radius, error) {
-	key := fmt.Sprintf("%s|%s|%d|%v", ion.Symbol, ion.Core, ion.Charge, ion.Polyatomic)
+	key := ionKey{ion.Symbol, ion.Core, ion.Charge, ion.Polyatomic}
 	a.mu.Lock()
 	e, ok := a.radii[key]
 	a.mu.Unlock()
@@ -98,7 +105,7 @@ func WithStandards(s Standards) Option { return func(a *Analyst) { a.standards =
 
 // New returns an Analyst over db (which it only reads).
 func New(db *data.DB, opts ...Option) *Analyst {
-	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[string]radiusEntry{}}
+	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[ionKey]radiusEntry{}}
 	for _, o := range opts {
 		o(a)
 	}
@@ -130,6 +137,8 @@ type Spread struct {
 	// MaxPercent the largest |gap| %, reached for Worst.
 	MeanPercent, RMSPercent, MaxPercent float64
 	Worst                               string
+
+	basis string // Basis, worded once
 }
 
 // Relative returns the model's relative standard uncertainty (RMS/100).
@@ -137,6 +146,9 @@ func (s Spread) Relative() float64 { return s.RMSPercent / 100 }
 
 // Basis describes the spread in words, for output.
 func (s Spread) Basis() string {
+	if s.basis != "" {
+		return s.basis
+	}
 	return fmt.Sprintf("%s model σ = %.1f %% of its value: RMS gap to the cycle over %d built-in alkali and alkaline-earth halides (mean %+.1f %%, largest %.1f %% for %s), computed from the data",
 		s.Model, s.RMSPercent, s.Compounds, s.MeanPercent, s.MaxPercent, s.Worst)
 }
@@ -151,6 +163,7 @@ func (a *Analyst) ModelSpread(model string) (Spread, error) {
 		return e.s, e.err
 	}
 	s, err := a.computeSpread(model)
+	s.basis = s.Basis() // once, not on every estimate
 	a.mu.Lock()
 	a.spreads[model] = spreadEntry{s, err}
 	a.mu.Unlock()

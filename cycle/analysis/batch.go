@@ -228,9 +228,19 @@ func (l *lineLimiter) Read(p []byte) (int, error) {
 	return n, err
 }
 
-type batchJob struct {
-	row BatchRow
-	out chan BatchResult
+// batchBlockRows is the number of rows handed to a worker at once.
+const batchBlockRows = 64
+
+// batchBlock is a run of consecutive rows and their results; done is
+// closed when every result is in.
+type batchBlock struct {
+	rows    []BatchRow
+	results []BatchResult
+	done    chan struct{}
+}
+
+func newBatchBlock() *batchBlock {
+	return &batchBlock{rows: make([]BatchRow, 0, batchBlockRows), results: make([]BatchResult, 0, batchBlockRows), done: make(chan struct{})}
 }
 
 // BatchResult is one output row.
@@ -265,6 +275,9 @@ type BatchOptions struct {
 	JSON bool
 	// Progress, when set, is called after each row with the rows done.
 	Progress func(rows int)
+	// Workers is the number of rows estimated at once (0: one per
+	// processor, runtime.GOMAXPROCS). The output does not depend on it.
+	Workers int
 	// Dir is the folder a relative CIF path in the structure column is
 	// read from (the batch file's); "" is the working directory.
 	Dir string
@@ -343,19 +356,29 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 		}
 		return bw.Flush()
 	}
-	// Rows are estimated by workers and written in input order: a bounded
-	// queue of per-row result channels keeps at most cap(queue) rows in
-	// flight, so memory does not grow with the file.
-	workers := runtime.GOMAXPROCS(0)
-	queue := make(chan chan BatchResult, 4*workers)
-	jobs := make(chan batchJob, 4*workers)
+	// Rows are read into blocks, estimated by workers block by block and
+	// written in input order: a bounded queue of blocks keeps at most
+	// cap(queue) blocks in flight, so memory does not grow with the file,
+	// and a block's rows share one hand-over (rows take microseconds, a
+	// hand-over per row would cost as much).
+	workers := opt.Workers
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	queue := make(chan *batchBlock, 4*workers)
+	jobs := make(chan *batchBlock, 4*workers)
 	var wg sync.WaitGroup
 	for range workers {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			for j := range jobs {
-				j.out <- a.Row(j.row)
+			for blk := range jobs {
+				for i := range blk.rows {
+					if blk.results[i].Error == "" { // not a cell fault found while reading
+						blk.results[i] = a.Row(blk.rows[i])
+					}
+				}
+				close(blk.done)
 			}
 		}()
 	}
@@ -363,61 +386,73 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 	go func() {
 		defer close(queue)
 		defer close(jobs)
+		blk := newBatchBlock()
+		send := func() {
+			queue <- blk
+			jobs <- blk
+			blk = newBatchBlock()
+		}
 		for {
 			row, err := br.Next()
 			if err == io.EOF {
-				return
+				break
 			}
 			var ce *CSVError
 			if errors.As(err, &ce) && ce.Column != "" {
 				// A cell fault is this row's result, like a failed estimate.
-				out := make(chan BatchResult, 1)
-				out <- BatchResult{Line: row.Line, Formula: row.Formula, Error: oneLine(err.Error())}
-				queue <- out
-				continue
-			}
-			if err != nil {
+				blk.rows = append(blk.rows, row)
+				blk.results = append(blk.results, BatchResult{Line: row.Line, Formula: row.Formula, Error: oneLine(err.Error())})
+			} else if err != nil {
 				readErr = err
-				return
+				break
+			} else {
+				if st := row.Options.Structure; isCIFPath(st) && !filepath.IsAbs(st) {
+					row.Options.Structure = filepath.Join(opt.Dir, st)
+				}
+				blk.rows = append(blk.rows, row)
+				blk.results = append(blk.results, BatchResult{})
 			}
-			if st := row.Options.Structure; isCIFPath(st) && !filepath.IsAbs(st) {
-				row.Options.Structure = filepath.Join(opt.Dir, st)
+			if len(blk.rows) == batchBlockRows {
+				send()
 			}
-			out := make(chan BatchResult, 1)
-			queue <- out
-			jobs <- batchJob{row, out}
+		}
+		if len(blk.rows) > 0 {
+			send()
 		}
 	}()
 	var writeErr error
-	for out := range queue {
-		res := <-out
-		if writeErr != nil {
-			continue // drain
-		}
-		sum.Rows++
-		if res.Error != "" {
-			sum.Failed++
-		}
-		if opt.JSON {
-			b, err := json.Marshal(res)
-			if err != nil {
-				writeErr = err
-				continue
+	for blk := range queue {
+		<-blk.done
+		for k := range blk.results {
+			res := &blk.results[k]
+			if writeErr != nil {
+				break // drain
 			}
-			if sum.Rows > 1 {
-				bw.WriteString(",")
+			sum.Rows++
+			if res.Error != "" {
+				sum.Failed++
 			}
-			bw.WriteString("\n  ")
-			bw.Write(b)
-		} else {
-			res.fill(rec)
-			if err := cw.Write(rec); err != nil {
-				writeErr = err
-				continue
+			if opt.JSON {
+				b, err := json.Marshal(res)
+				if err != nil {
+					writeErr = err
+					continue
+				}
+				if sum.Rows > 1 {
+					bw.WriteString(",")
+				}
+				bw.WriteString("\n  ")
+				bw.Write(b)
+			} else {
+				res.fill(rec)
+				if err := cw.Write(rec); err != nil {
+					writeErr = err
+					continue
+				}
 			}
-		}
-		if opt.Progress != nil {
-			opt.Progress(sum.Rows)
+			if opt.Progress != nil {
+				opt.Progress(sum.Rows)
+			}
 		}
 	}
 	wg.Wait()

@@ -14,23 +14,14 @@ import (
 // the constant within 0.03 of the mean, the stated σ not below the RMS
 // relative scatter. Common practice, no source: the constant is the data's.
 func TestPackingFraction(t *testing.T) {
-	a := testAnalyst(t)
 	var fr []float64
-	for _, cp := range a.DB().Compounds() {
-		est, c, err := a.quickEstimateCycle(cp.Formula, EstimateOptions{})
-		if err != nil || c == nil {
-			continue
-		}
-		v := a.formulaVolume(est, c)
-		if !v.Measured {
-			continue
-		}
-		rc, ra := est.Cation.Radius.Value, est.Anion.Radius.Value
+	for _, o := range ownVolumes(t, testAnalyst(t)) {
+		rc, ra := o.est.Cation.Radius.Value, o.est.Anion.Radius.Value
 		if !(rc > 0 && ra > 0) {
 			continue
 		}
-		spheres := float64(est.Cation.Count)*entropy.SphereVolume(rc) + float64(est.Anion.Count)*entropy.SphereVolume(ra)
-		fr = append(fr, spheres/v.Value)
+		spheres := float64(o.est.Cation.Count)*entropy.SphereVolume(rc) + float64(o.est.Anion.Count)*entropy.SphereVolume(ra)
+		fr = append(fr, spheres/o.volume.Value)
 	}
 	if len(fr) < 50 {
 		t.Fatalf("only %d compounds with a measured volume and radii", len(fr))
@@ -51,4 +42,27 @@ func TestPackingFraction(t *testing.T) {
 	if PackingRelativeUncertainty < rms {
 		t.Errorf("PackingRelativeUncertainty %.2f below the scatter %.3f", PackingRelativeUncertainty, rms)
 	}
+}
+
+// ownVolume is a compound of the data whose formula-unit volume comes from
+// its own cell or density, with its estimate (for the radii).
+type ownVolume struct {
+	formula string
+	est     *Estimate
+	volume  Quantity
+}
+
+func ownVolumes(t *testing.T, a *Analyst) []ownVolume {
+	t.Helper()
+	var out []ownVolume
+	for _, cp := range a.DB().Compounds() {
+		est, c, err := a.quickEstimateCycle(cp.Formula, EstimateOptions{})
+		if err != nil || c == nil {
+			continue
+		}
+		if v := a.formulaVolume(est, c); v.Measured {
+			out = append(out, ownVolume{cp.Formula, est, v})
+		}
+	}
+	return out
 }

@@ -98,7 +98,8 @@ type ScanCompound struct {
 // Disproportionation is one reaction between oxidation states, e.g.
 // 2 MgCl → Mg + MgCl₂, with its enthalpy.
 type Disproportionation struct {
-	// Reaction as written in ASCII ("2 MgCl -> Mg + MgCl2").
+	// Reaction as written in ASCII without states ("2 MgCl -> Mg + MgCl2");
+	// Energies.Equation adds the states of liquids and gases.
 	Reaction string
 	// From is the oxidation state that disproportionates into Lower and Upper.
 	From, Lower, Upper int
@@ -297,7 +298,8 @@ func (sc *Scan) disproportionations(a *Analyst) {
 					[]Term{{Coefficient: float64(fq), Thermo: Q.th}},
 					[]Term{{Coefficient: float64(fp), Thermo: P.th}, {Coefficient: float64(fr), Thermo: R.th}},
 					sc.Temperature, sc.Pressure)
-				d := Disproportionation{Reaction: rx.Equation, From: Q.z, Lower: P.z, Upper: R.z,
+				d := Disproportionation{Reaction: fmt.Sprintf("%s%s -> %s%s + %s%s", coef(fq), Q.th.Formula, coef(fp), P.th.Formula, coef(fr), R.th.Formula),
+					From: Q.z, Lower: P.z, Upper: R.z,
 					Enthalpy: rx.Standard.Enthalpy, Uncertainty: rx.Standard.EnthalpyUncertainty,
 					Favoured: rx.Verdict == gibbs.Favoured, Energies: rx}
 				c := &sc.Compounds[Q.compound]

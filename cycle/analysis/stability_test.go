@@ -37,7 +37,12 @@ func decomposition(t *testing.T, a *Analyst, formula string, opt StabilityOption
 // Mg < Ca < Sr < Ba (fact of the trade), and CaCO₃ between 1050 and
 // 1250 K (handbook value about 1170 K, 898 °C at 1 atm; from memory).
 func TestCarbonateDecompositionMeasured(t *testing.T) {
-	a := nbsAnalyst(t)
+	for name, a := range map[string]*Analyst{"NBS fixture": nbsAnalyst(t), "the data": testAnalyst(t)} {
+		t.Run(name, func(t *testing.T) { carbonatesMeasured(t, a) })
+	}
+}
+
+func carbonatesMeasured(t *testing.T, a *Analyst) {
 	var prev float64
 	for _, f := range []string{"MgCO3", "CaCO3", "SrCO3", "BaCO3"} {
 		tk, st := decomposition(t, a, f, StabilityOptions{})
@@ -79,7 +84,12 @@ func TestCalciteAtRoomTemperature(t *testing.T) {
 // ΔfH° −804.2 and ΔfG° −737.2 kJ/mol (NBS 1982, line 7055 of the pinned
 // copy), and never as the ionic solid of the estimate.
 func TestScanTiClMolecular(t *testing.T) {
-	a := nbsAnalyst(t)
+	for name, a := range map[string]*Analyst{"NBS fixture": nbsAnalyst(t), "the data": testAnalyst(t)} {
+		t.Run(name, func(t *testing.T) { tiClMolecular(t, a) })
+	}
+}
+
+func tiClMolecular(t *testing.T, a *Analyst) {
 	sc, err := a.Scan("Ti", "Cl", ScanOptions{})
 	if err != nil {
 		t.Fatal(err)
@@ -230,4 +240,27 @@ func TestAdditiveEntropyBeside(t *testing.T) {
 		t.Errorf("additive S°(CaCO3) %.1f ± %.1f, NBS 92.9", q.Value, q.Uncertainty)
 	}
 	t.Logf("additive S°(CaCO3) = %.1f ± %.1f J/(mol·K): %s", q.Value, q.Uncertainty, q.Basis)
+}
+
+// A compound with a measured ΔfH° but no S° (BaO₂: NBS 1982 gives ΔfH°
+// −634.3 kJ/mol and no S°, line 10042 of the pinned copy) keeps its
+// measured ΔfH° and takes S° from the volume-based line, so its loss of
+// O₂ has a crossing; the reaction is marked as using estimates.
+func TestMeasuredEnthalpyEstimatedEntropy(t *testing.T) {
+	a := testAnalyst(t)
+	st, err := a.Stability("BaO2", StabilityOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := st.Compound
+	if !c.Formation.Measured || !near(c.Formation.Value, -634.3, 1e-9) {
+		t.Errorf("ΔfH° %+v", c.Formation)
+	}
+	if !c.Entropy.Known() || c.Entropy.Measured || !strings.Contains(c.Entropy.Basis, "volume-based") {
+		t.Errorf("S° %+v", c.Entropy)
+	}
+	if len(st.Reactions) != 1 || st.Reactions[0].Crossing == nil || !st.Reactions[0].Estimated {
+		t.Fatalf("reactions %+v", st.Reactions)
+	}
+	t.Logf("%s: ΔrG = 0 at %.0f ± %.0f K", st.Reactions[0].Equation, st.Reactions[0].Crossing.Temperature, st.Reactions[0].Crossing.Uncertainty)
 }

@@ -43,14 +43,42 @@ func (s dbStandards) Compound(formula string) (Standard, bool) {
 	if !ok {
 		return Standard{}, false
 	}
-	return Standard{Formula: c.Formula, Name: c.Name, State: "cr", Formation: c.Formation, Source: c.Formation.Source}, true
+	state := c.State
+	if state == "" {
+		state = "cr"
+	}
+	name := c.Name
+	if c.Polymorph != "" && !strings.Contains(name, c.Polymorph) {
+		name += ", " + c.Polymorph
+	}
+	return Standard{Formula: c.Formula, Name: name, State: state, Molecular: c.Molecular,
+		Formation: c.Formation, Gibbs: c.GibbsFormation, Entropy: c.Entropy, Source: c.Formation.Source}, true
 }
 
-// Gas: the data hold no gaseous molecules yet.
-func (s dbStandards) Gas(string) (Standard, bool) { return Standard{}, false }
+func (s dbStandards) Gas(formula string) (Standard, bool) {
+	sp, ok := s.db.Species(formula + "(g)")
+	if !ok {
+		return Standard{}, false
+	}
+	return Standard{Formula: formula, Name: sp.Name, State: "g", Formation: sp.Formation, Gibbs: sp.GibbsFormation,
+		Entropy: sp.Entropy, Source: sp.Formation.Source}, true
+}
 
-// ElementEntropy: the data hold no standard entropies yet.
-func (s dbStandards) ElementEntropy(string) (data.Value, bool) { return data.Value{}, false }
+// ElementEntropy divides the standard state's S° by its atoms (O2(g): 2).
+func (s dbStandards) ElementEntropy(symbol string) (data.Value, bool) {
+	el, err := s.db.Element(symbol)
+	if err != nil || !el.StandardEntropy.Known() {
+		return data.Value{}, false
+	}
+	v := el.StandardEntropy
+	if f, err := data.ParseFormula(strings.SplitN(el.StandardState, "(", 2)[0]); err == nil {
+		if n := f.Composition()[el.Symbol]; n > 1 {
+			v.V /= float64(n)
+			v.U /= float64(n)
+		}
+	}
+	return v, true
+}
 
 // stateWord names a state for a reader.
 func stateWord(state string) string {

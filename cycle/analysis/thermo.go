@@ -40,19 +40,19 @@ func measuredEnergy(v data.Value) Quantity {
 }
 
 // EntropyRelativeUncertainty is the relative standard uncertainty given to
-// a volume-based entropy estimate: the scatter of the Jenkins–Glasser salt
-// line against the data's measured S°, rounded up. TestEntropyEstimateRMS
-// measures that scatter over the data and fails when it exceeds this
-// figure; before the data had entropies it was the paper's "about 10 %"
-// (Jenkins & Glasser 2003, as the issue quotes it).
-const EntropyRelativeUncertainty = 0.10
+// a volume-based entropy estimate: the RMS relative error of the
+// Jenkins–Glasser salt line against the data's measured S°, rounded up
+// (23.6 % over 166 salts when written, median 13.6 %; the paper's own
+// scatter is about 10 %). TestEntropyScatterCovered fails when the data's
+// RMS exceeds it.
+const EntropyRelativeUncertainty = 0.25
 
 // PackingFraction is Σ(4π/3)r³ of a salt's ions (Shannon CN VI radii,
 // thermochemical radii of polyatomic ions) over its formula-unit volume,
 // for the compounds of the data with a cell or a density; the formula-unit
 // volume of a compound without either is its ions' sphere volumes over this
 // fraction. TestPackingFraction measures the mean and the scatter over the
-// data (0.653 and 18.3 % over 192 compounds when written; common practice, no source: the volumes of the published method
+// data (0.652 and 18.3 % over 194 compounds when written; common practice, no source: the volumes of the published method
 // are ion volumes fitted to salts; this is the same idea with one fitted
 // number).
 const (
@@ -140,6 +140,16 @@ func (a *Analyst) knownThermo(formula string) (Thermo, bool) {
 		Formation: measuredEnergy(st.Formation),
 		Entropy:   measured(st.Entropy),
 		Gibbs:     measuredEnergy(st.Gibbs)}
+	if !t.Entropy.Known() && !t.Gibbs.Known() && !t.Molecular {
+		// A measured ΔfH° without S° or ΔfG° (BaO₂): S° from the
+		// volume-based line, said so in its basis.
+		if c, err := a.cycleOf(formula, nil); err == nil {
+			rc, _ := a.ionRadius(c.Cation.Ion)
+			ra, _ := a.ionRadius(c.Anion.Ion)
+			t.Volume = a.volume(c, c.Cation.Count, rc.Value, c.Anion.Count, ra.Value)
+			t.Entropy = volumeEntropy(t.Volume)
+		}
+	}
 	a.complete(&t)
 	return t, true
 }
@@ -177,32 +187,45 @@ func (a *Analyst) estimatedThermo(est *Estimate, c *cycle.Cycle) Thermo {
 	t := Thermo{Formula: est.Formula, State: "cr",
 		Formation: Quantity{Value: est.Value, Uncertainty: est.Uncertainty, Basis: "estimate (" + est.Model + " lattice step)"}}
 	t.Volume = a.formulaVolume(est, c)
-	if t.Volume.Known() {
-		s, err := entropy.FromVolume(t.Volume.Value, entropy.Salt)
-		if err == nil {
-			line := entropy.LineFor(entropy.Salt)
-			u := math.Hypot(EntropyRelativeUncertainty*s, line.K*t.Volume.Uncertainty)
-			t.Entropy = Quantity{Value: s, Uncertainty: u,
-				Basis: fmt.Sprintf("volume-based estimate, %g·V_m + %g (%s), V_m %.4f nm³ from %s", line.K, line.C, line.Citation, t.Volume.Value, t.Volume.Basis)}
-		}
-	}
+	t.Entropy = volumeEntropy(t.Volume)
 	a.complete(&t)
 	return t
 }
 
-// formulaVolume returns V_m (nm³) of the estimated compound: from its cell
-// or density when the data have one, else Σ(4π/3)r³ / PackingFraction.
+// volumeEntropy is the volume-based S° of a formula-unit volume, with the
+// method's σ and the volume's; absent without a volume.
+func volumeEntropy(v Quantity) Quantity {
+	if !v.Known() {
+		return Quantity{}
+	}
+	s, err := entropy.FromVolume(v.Value, entropy.Salt)
+	if err != nil {
+		return Quantity{}
+	}
+	line := entropy.LineFor(entropy.Salt)
+	return Quantity{Value: s, Uncertainty: math.Hypot(EntropyRelativeUncertainty*s, line.K*v.Uncertainty),
+		Basis: fmt.Sprintf("volume-based estimate, %g·V_m + %g (%s), V_m %.4f nm³ from %s", line.K, line.C, line.Citation, v.Value, v.Basis)}
+}
+
+// formulaVolume returns V_m (nm³) of the estimated compound (radii as the
+// estimate took them).
 func (a *Analyst) formulaVolume(est *Estimate, c *cycle.Cycle) Quantity {
+	return a.volume(c, est.Cation.Count, est.Cation.Radius.Value, est.Anion.Count, est.Anion.Radius.Value)
+}
+
+// volume returns V_m (nm³) of the compound of c: from its cell or density
+// when the data have one, else Σ(4π/3)r³ / PackingFraction over nc cations
+// of radius rc and na anions of radius ra (Å).
+func (a *Analyst) volume(c *cycle.Cycle, nc int, rc float64, na int, ra float64) Quantity {
 	if c != nil && (c.Compound.Density.Known() || !c.Settings.Structure.Empty() && c.Settings.Structure.FromData) {
 		if m, err := cycle.EvaluateModel(c, cycle.ModelVolume); err == nil && m.Inputs.MolarVolume > 0 {
 			return Quantity{Value: m.Inputs.MolarVolume, Uncertainty: 0.01 * m.Inputs.MolarVolume, Measured: true, Basis: m.Inputs.VolumeFrom}
 		}
 	}
-	rc, ra := est.Cation.Radius.Value, est.Anion.Radius.Value
 	if !(rc > 0 && ra > 0) {
 		return Quantity{}
 	}
-	v := (float64(est.Cation.Count)*entropy.SphereVolume(rc) + float64(est.Anion.Count)*entropy.SphereVolume(ra)) / PackingFraction
+	v := (float64(nc)*entropy.SphereVolume(rc) + float64(na)*entropy.SphereVolume(ra)) / PackingFraction
 	return Quantity{Value: v, Uncertainty: PackingRelativeUncertainty * v,
 		Basis: fmt.Sprintf("ion spheres of radii %.2f and %.2f Å over a packing fraction %.2f", rc, ra, PackingFraction)}
 }

@@ -1,5 +1,5 @@
 // Package cli runs enthalpath's non-interactive subcommands (madelung, data,
-// cycle, compare, estimate, scan, solution, radius, batch) and prints their
+// cycle, compare, estimate, scan, solution, radius, batch, orderings) and prints their
 // results as text, JSON or CSV. main hands it every subcommand except the
 // interactive ones (the TUI and serve), so this package never imports tui.
 package cli
@@ -59,6 +59,7 @@ func commands() []command {
 		{"solution", "enthalpy of solution cycle", runSolution},
 		{"radius", "thermochemical radius derived from a cycle lattice energy", runRadius},
 		{"batch", "solve many formulas from a CSV file", runBatch},
+		{"orderings", "rank orderings of ions and vacancies on mixed sites by Ewald energy", runOrderings},
 	}
 }
 

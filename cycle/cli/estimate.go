@@ -3,7 +3,6 @@ package cli
 import (
 	"fmt"
 	"io"
-	"math"
 	"strings"
 
 	"enthalpath/cycle"
@@ -47,13 +46,8 @@ func runEstimate(env Env, args []string) error {
 			return Usagef("--%s %g: give the radius in Å, a positive number such as 1.02 (leave the flag out for the data's)", r.name, r.v)
 		}
 	}
-	for _, f := range []struct {
-		name string
-		v    float64
-	}{{"temperature", temp}, {"pressure", pres}} {
-		if !(f.v > 0) || math.IsInf(f.v, 0) {
-			return Usagef("--%s %g: give a positive number", f.name, f.v)
-		}
+	if err := positiveFlags(flagValue{"temperature", temp}, flagValue{"pressure", pres}); err != nil {
+		return err
 	}
 	if charges != "" {
 		if opt.Charges, err = analysis.ParseCharges(charges, pos[0]); err != nil {
@@ -83,6 +77,10 @@ func runEstimate(env Env, args []string) error {
 			j.StabilityError = stErr.Error()
 		}
 		return writeJSON(env.Stdout, j)
+	}
+	if st != nil && st.Compound.Known && st.Compound.Molecular {
+		fmt.Fprintf(env.Stdout, "%s is a molecular %s in the data, not an ionic solid: what follows is the estimate of a hypothetical ionic %s, not of the real compound\n\n",
+			st.Compound.Formula, stateName(st.Compound.State), est.Formula)
 	}
 	printEstimate(env.Stdout, est)
 	switch {

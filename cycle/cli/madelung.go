@@ -90,7 +90,8 @@ func runMadelung(env Env, args []string) error {
 	case sumErr != nil:
 		return &UsageError{fmt.Errorf("%s: %w", pos[0], sumErr)}
 	}
-	warnings := geometryWarnings(c, res)
+	mean, meanErr := c.MeanCationAnionDistance()
+	warnings := geometryWarnings(c, res, meanErr)
 	if bg.NetCharge != 0 {
 		warnings = append(warnings, fmt.Sprintf("%s (net charge %+.6g e per cell, background term %.6g eV)", ewald.BackgroundConvention, bg.NetCharge, bg.EnergyEV))
 	}
@@ -101,11 +102,11 @@ func runMadelung(env Env, args []string) error {
 		fmt.Fprintf(env.Stderr, "enthalpath madelung: warning: %s\n", w)
 	}
 	if *asJSON {
-		out := madelungJSON(job, c, res, bg, sumErr == nil)
+		out := madelungJSON(job, c, res, mean, bg, sumErr == nil)
 		out.Warnings = warnings
 		return writeJSON(env.Stdout, out)
 	}
-	printMadelung(env.Stdout, job, c, res, bg)
+	printMadelung(env.Stdout, job, c, res, mean, bg)
 	return nil
 }
 
@@ -113,14 +114,18 @@ func runMadelung(env Env, args []string) error {
 // real solid: its nearest cation and anion closer than crystal.ShortestBond
 // (wurtzite with u = 0.9 puts them 0.52 Å apart). The Madelung constant
 // of such a cell is a number about point charges, not about a crystal.
-func geometryWarnings(c *crystal.Crystal, r ewald.Result) []string {
+func geometryWarnings(c *crystal.Crystal, r ewald.Result, meanErr error) []string {
+	var out []string
+	if meanErr != nil {
+		out = append(out, meanErr.Error()+"; no mean bond length is given")
+	}
 	i, j := r.NearestPair[0], r.NearestPair[1]
 	if i < 0 || j < 0 || !(r.NearestDistance < crystal.ShortestBond) {
-		return nil
+		return out
 	}
-	return []string{fmt.Sprintf("the nearest cation and anion (site %d %s and site %d %s) are %.3g Å apart, below %g Å, shorter than any real bond "+
+	return append(out, fmt.Sprintf("the nearest cation and anion (site %d %s and site %d %s) are %.3g Å apart, below %g Å, shorter than any real bond "+
 		"(threshold: common practice, no source); the Madelung constant refers to that distance; check the parameters or the file",
-		i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, r.NearestDistance, crystal.ShortestBond)}
+		i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, r.NearestDistance, crystal.ShortestBond))
 }
 
 // madelungJob is what the command line asked for.
@@ -329,7 +334,7 @@ func printCharges(w io.Writer, sf *cycle.StructureFile, nSites int) {
 	fmt.Fprintf(w, "  bond-valence sums: exp((R − d)/%.2f Å) over cation–anion bonds, R from %s\n", valence.B, data.BondValenceSource)
 }
 
-func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Result, bg ewald.Background) {
+func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Result, mean float64, bg ewald.Background) {
 	if p := job.prototype; p != nil {
 		fmt.Fprintf(w, "structure   %s: %s (example %s)\n", p.Name, p.Description, p.Example)
 		var ps []string
@@ -353,7 +358,7 @@ func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Res
 	i, j := r.NearestPair[0], r.NearestPair[1]
 	fmt.Fprintf(w, "shortest cation–anion distance  d = %.6f Å  (site %d %s and site %d %s)\n",
 		r.NearestDistance, i+1, c.Sites[i].Species, j+1, c.Sites[j].Species)
-	if mean := c.MeanCationAnionDistance(); !math.IsNaN(mean) {
+	if !math.IsNaN(mean) {
 		fmt.Fprintf(w, "mean cation–anion bond length      %.6f Å\n", mean)
 	}
 	fmt.Fprintf(w, "Madelung constant               A = %.10f\n", r.MadelungConstant)
@@ -577,7 +582,9 @@ type madelungOutput struct {
 	Warnings []string `json:"warnings,omitempty"`
 }
 
-func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, bg ewald.Background, reached bool) madelungOutput {
+// madelungJSON builds the output; mean is NaN (JSON null) when there is no
+// mean bond length (the warnings say why).
+func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, mean float64, bg ewald.Background, reached bool) madelungOutput {
 	abc, ang := cellParameters(c)
 	st := madelungStructure{
 		Name: c.Name, Source: "cif", Supercell: job.supercell,
@@ -609,7 +616,7 @@ func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, bg ewald.
 		Convention:        r.Convention,
 		NearestDistance:   r.NearestDistance,
 		NearestPair:       [2]int{r.NearestPair[0] + 1, r.NearestPair[1] + 1},
-		MeanDistance:      jsonNumber(c.MeanCationAnionDistance()),
+		MeanDistance:      jsonNumber(mean),
 		EnergyCell:        r.EnergyEV,
 		EnergyFormulaUnit: r.EnergyPerFormulaUnitEV,
 		EnergyKJPerMol:    r.EnergyKJPerMol,

@@ -35,13 +35,8 @@ func runScan(env Env, args []string) error {
 	if maxCharge < 0 || givenFlags(fs)["max-charge"] && maxCharge == 0 {
 		return Usagef("--max-charge %d: give the highest metal charge to try, 1 or more (leave the flag out to go as far as the data's ionization energies)", maxCharge)
 	}
-	for _, f := range []struct {
-		name string
-		v    float64
-	}{{"temperature", temp}, {"pressure", pres}} {
-		if !(f.v > 0) || math.IsInf(f.v, 0) {
-			return Usagef("--%s %g: give a positive number", f.name, f.v)
-		}
+	if err := positiveFlags(flagValue{"temperature", temp}, flagValue{"pressure", pres}); err != nil {
+		return err
 	}
 	sc, err := a.Scan(pos[0], pos[1], analysis.ScanOptions{MaxCharge: maxCharge, Anion: anion, Model: model, Structure: structure, Temperature: temp, Pressure: pres})
 	if err != nil {

@@ -46,13 +46,8 @@ func runStability(env Env, args []string) error {
 	if asJSON && asCSV {
 		return Usagef("choose one of --csv and --json")
 	}
-	for _, f := range []struct {
-		name string
-		v    float64
-	}{{"temperature", temp}, {"pressure", pres}, {"from", from}, {"to", to}} {
-		if !(f.v > 0) || math.IsInf(f.v, 0) {
-			return Usagef("--%s %g: give a positive number", f.name, f.v)
-		}
+	if err := positiveFlags(flagValue{"temperature", temp}, flagValue{"pressure", pres}, flagValue{"from", from}, flagValue{"to", to}); err != nil {
+		return err
 	}
 	if to <= from {
 		return Usagef("--to %g is not above --from %g: give the curves' range lowest first", to, from)
@@ -86,6 +81,23 @@ func runStability(env Env, args []string) error {
 		return writeStabilityCSV(env.Stdout, st)
 	}
 	printStability(env.Stdout, st)
+	return nil
+}
+
+// flagValue is a numeric flag's name and value.
+type flagValue struct {
+	name string
+	v    float64
+}
+
+// positiveFlags refuses the first flag whose value is not a positive
+// finite number.
+func positiveFlags(flags ...flagValue) error {
+	for _, f := range flags {
+		if !(f.v > 0) || math.IsInf(f.v, 0) {
+			return Usagef("--%s %g: give a positive number", f.name, f.v)
+		}
+	}
 	return nil
 }
 
@@ -136,7 +148,7 @@ func thermoLines(w io.Writer, label string, t analysis.Thermo) {
 	}
 	name := ""
 	if t.Name != "" {
-		name = " (" + t.Name + ")"
+		name = " — " + t.Name
 	}
 	fmt.Fprintf(w, "  %s %s%s: %s\n", label, t.Formula, name, what)
 	tb := &table{head: []string{"quantity", "value", "from"}, right: map[int]bool{1: true}}

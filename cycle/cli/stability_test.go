@@ -113,3 +113,113 @@ func TestScanTemperatureFlag(t *testing.T) {
 		t.Errorf("--pressure -1: exit %d", code)
 	}
 }
+
+// stability CaCO3 --json on the built-in data: the decomposition to CaO and
+// CO₂ crosses zero at ΔrH°/ΔrS° = 178.32/0.16059 = 1110 K at 1 bar (NBS 1982
+// values of the three species, as the data hold them), and at 0.1 bar lower.
+func TestStabilityCalciteJSON(t *testing.T) {
+	zero := func(args ...string) float64 {
+		out, errs, code := runAnalysisCmd(t, "", "stability", append([]string{"CaCO3", "--json"}, args...)...)
+		if code != ExitOK {
+			t.Fatalf("exit %d: %s", code, errs)
+		}
+		var j struct {
+			Compound struct {
+				Known bool `json:"in_data"`
+			} `json:"compound"`
+			Reactions []struct {
+				Reaction string   `json:"reaction"`
+				Zero     *float64 `json:"gibbs_zero_k"`
+				Above    *bool    `json:"goes_above_zero_temperature"`
+			} `json:"reactions"`
+		}
+		if err := json.Unmarshal([]byte(out), &j); err != nil {
+			t.Fatal(err)
+		}
+		if !j.Compound.Known || len(j.Reactions) != 1 || j.Reactions[0].Reaction != "CaCO3 -> CaO + CO2(g)" || j.Reactions[0].Zero == nil || !*j.Reactions[0].Above {
+			t.Fatalf("JSON %s", out)
+		}
+		return *j.Reactions[0].Zero
+	}
+	if t1 := zero(); t1 < 1105 || t1 > 1115 {
+		t.Errorf("ΔrG = 0 at %.1f K at 1 bar, want 1110", t1)
+	}
+	if t01 := zero("--pressure", "0.1"); !(t01 < 1100) {
+		t.Errorf("at 0.1 bar CO2: %.1f K, want below the 1 bar value", t01)
+	}
+}
+
+// scan Ti Cl names TiCl₄ a molecular liquid with its measured ΔfH° −804.2
+// and ΔfG° −737.2 kJ/mol (NBS 1982, line 7055 of the pinned copy), and the
+// text says its ionic estimate is not the real compound; scan Cs F never
+// calls 2 CsF₂ → CsF + CsF₃ (−317 ± 474 kJ/mol) favoured.
+func TestScanNamesKnownAndUndecided(t *testing.T) {
+	out, errs, code := runAnalysisCmd(t, "", "scan", "Ti", "Cl", "--json")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var ti struct {
+		Compounds []struct {
+			Formula  string `json:"formula"`
+			Compared struct {
+				Known     bool   `json:"in_data"`
+				Molecular bool   `json:"molecular"`
+				State     string `json:"state"`
+				H         struct {
+					Value float64 `json:"value"`
+				} `json:"formation_kj_per_mol"`
+				G struct {
+					Value float64 `json:"value"`
+				} `json:"gibbs_formation_298_kj_per_mol"`
+			} `json:"compared"`
+		} `json:"compounds"`
+	}
+	if err := json.Unmarshal([]byte(out), &ti); err != nil {
+		t.Fatal(err)
+	}
+	found := false
+	for _, c := range ti.Compounds {
+		if c.Formula == "TiCl4" {
+			found = true
+			k := c.Compared
+			if !k.Known || !k.Molecular || k.State != "l" || k.H.Value != -804.2 || k.G.Value != -737.2 {
+				t.Errorf("TiCl4 compared as %+v", k)
+			}
+		}
+	}
+	if !found {
+		t.Errorf("no TiCl4 in %s", out)
+	}
+	text, _, _ := runAnalysisCmd(t, "", "scan", "Ti", "Cl")
+	if !strings.Contains(text, "molecular liquid") || !strings.Contains(text, "not the real compound") {
+		t.Errorf("the text does not name TiCl4 a molecular liquid:\n%s", text)
+	}
+	out, errs, code = runAnalysisCmd(t, "", "scan", "Cs", "F", "--json")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var cs struct {
+		Disproportionations []struct {
+			Reaction string `json:"reaction"`
+			Favoured bool   `json:"favoured"`
+			Energies struct {
+				Verdict string `json:"verdict"`
+			} `json:"energies"`
+		} `json:"disproportionations"`
+	}
+	if err := json.Unmarshal([]byte(out), &cs); err != nil {
+		t.Fatal(err)
+	}
+	n := 0
+	for _, d := range cs.Disproportionations {
+		if d.Reaction == "2 CsF2 -> CsF + CsF3" {
+			n++
+			if d.Favoured || d.Energies.Verdict == "favoured" {
+				t.Errorf("%s called favoured", d.Reaction)
+			}
+		}
+	}
+	if n != 1 {
+		t.Errorf("2 CsF2 -> CsF + CsF3 found %d times", n)
+	}
+}

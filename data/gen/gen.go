@@ -37,6 +37,7 @@ type generator struct {
 
 	elementNames  map[string]string // symbol → name (kept/elements.csv)
 	cationCharges map[string]int    // element → number of its monatomic cations in ions.csv
+	solids        []solid           // ionic crystals written to compounds.csv, in order
 	alts          *table
 }
 
@@ -82,6 +83,7 @@ func (g *generator) run() (map[string][]byte, error) {
 		{"species.csv", g.species},
 		{"compounds.csv", g.compounds},
 		{"ion_values.csv", g.ionValues},
+		{"solution_enthalpies.csv", g.solutionEnthalpies},
 		{"atomic_weights.csv", g.atomicWeights},
 	}
 	for _, s := range steps {

@@ -162,64 +162,69 @@ const CoordinationShellTolerance = 0.15
 // coordination shell (anions within 1 + CoordinationShellTolerance times
 // that cation's nearest anion distance), of the bond length. It is the
 // distance some published Madelung constants are referred to. Without a
-// cation or an anion it returns NaN.
-func (c *Crystal) MeanCationAnionDistance() float64 {
-	c = c.reduced()
-	recip := c.Reciprocal()
+// cation or an anion it returns NaN and no error.
+//
+// The anions are found by a grid search around each cation, so the work
+// grows with the number of sites times the size of a shell, never with the
+// number of periodic images a shell spans. A cell whose shells cannot be
+// found within MaxNeighbourVisits grid-cell images, or hold more than
+// MaxShellSize anions, returns NaN and a *ShellError.
+func (c *Crystal) MeanCationAnionDistance() (float64, error) {
+	mean, _, err := c.meanCationAnionDistance()
+	return mean, err
+}
+
+// meanCationAnionDistance is MeanCationAnionDistance that also returns the
+// grid-cell images examined.
+func (c *Crystal) meanCationAnionDistance() (mean float64, visits int, err error) {
+	r := c.reduced()
+	grid := newNeighbourGrid(r, func(s Site) bool { return s.Charge < 0 })
+	if len(grid.member) == 0 {
+		return math.NaN(), 0, nil
+	}
+	first := math.Cbrt(r.Volume() / float64(len(grid.member)))
 	sum, n := 0.0, 0
-	for _, sp := range c.Sites {
-		if !(sp.Charge > 0) {
+	var ds []float64
+	for i, s := range r.Sites {
+		if !(s.Charge > 0) {
 			continue
 		}
-		var ds []float64
-		nearest := math.Inf(1)
-		for _, sq := range c.Sites {
-			if !(sq.Charge < 0) {
-				continue
+		nearest, radius := math.Inf(1), first
+		for {
+			ds = ds[:0]
+			ok := grid.within(s.Frac, radius, func(_ int, d float64) {
+				if len(ds) < 4*MaxShellSize {
+					ds = append(ds, d)
+				}
+				nearest = math.Min(nearest, d)
+			})
+			if !ok || len(ds) == 4*MaxShellSize {
+				return math.NaN(), grid.visits, &ShellError{Crystal: c.Name, Site: i, Species: s.Species, Visits: grid.visits, Members: len(ds)}
 			}
-			ds = append(ds, c.shellDistances(sq.Frac.Sub(sp.Frac), recip)...)
+			if shell := nearest * (1 + CoordinationShellTolerance); shell <= radius {
+				break
+			} else if !math.IsInf(nearest, 1) {
+				radius = shell
+			} else {
+				radius *= 2
+			}
 		}
-		for _, d := range ds {
-			nearest = math.Min(nearest, d)
-		}
+		members := 0
 		for _, d := range ds {
 			if d <= nearest*(1+CoordinationShellTolerance) {
 				sum += d
-				n++
+				members++
 			}
 		}
+		if members > MaxShellSize {
+			return math.NaN(), grid.visits, &ShellError{Crystal: c.Name, Site: i, Species: s.Species, Visits: grid.visits, Members: members}
+		}
+		n += members
 	}
 	if n == 0 {
-		return math.NaN()
+		return math.NaN(), grid.visits, nil
 	}
-	return sum / float64(n)
-}
-
-// shellDistances lists the distances of every image of df within 1 +
-// CoordinationShellTolerance times its shortest image distance.
-func (c *Crystal) shellDistances(df Vec3, recip [3]Vec3) []float64 {
-	r := c.periodicDistance(df, recip, false) * (1 + CoordinationShellTolerance)
-	for k := range df {
-		df[k] -= math.Round(df[k])
-	}
-	var lo, hi [3]int
-	for k := 0; k < 3; k++ {
-		h := r * recip[k].Norm()
-		lo[k] = int(math.Ceil(-df[k] - h))
-		hi[k] = int(math.Floor(-df[k] + h))
-	}
-	var out []float64
-	for n0 := lo[0]; n0 <= hi[0]; n0++ {
-		for n1 := lo[1]; n1 <= hi[1]; n1++ {
-			for n2 := lo[2]; n2 <= hi[2]; n2++ {
-				f := Vec3{df[0] + float64(n0), df[1] + float64(n1), df[2] + float64(n2)}
-				if d := c.Cartesian(f).Norm(); d <= r {
-					out = append(out, d)
-				}
-			}
-		}
-	}
-	return out
+	return sum / float64(n), grid.visits, nil
 }
 
 // reduced returns c described in a reduced basis of its lattice (same

@@ -109,8 +109,8 @@ func TestNearestDistance(t *testing.T) {
 	cr, _ := Build("rutile", nil)
 	ap := math.Sqrt2 * x * a
 	eq := math.Sqrt(2*a*a*(0.5-x)*(0.5-x) + c*c/4)
-	if got, want := cr.MeanCationAnionDistance(), (2*ap+4*eq)/6; math.Abs(got-want) > 1e-12 {
-		t.Errorf("rutile mean distance %.12f, want %.12f", got, want)
+	if got, err := cr.MeanCationAnionDistance(); err != nil || math.Abs(got-(2*ap+4*eq)/6) > 1e-12 {
+		t.Errorf("rutile mean distance %.12f (%v), want %.12f", got, err, (2*ap+4*eq)/6)
 	}
 }
 

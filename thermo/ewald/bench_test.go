@@ -2,6 +2,7 @@ package ewald
 
 import (
 	"fmt"
+	"math"
 	"math/rand"
 	"testing"
 
@@ -79,5 +80,49 @@ func BenchmarkScaling(b *testing.B) {
 	for _, n := range []int{2, 3, 4, 5, 6, 8} {
 		c := rockSaltSupercell(b, n, 0.02)
 		b.Run(fmt.Sprintf("N=%d", len(c.Sites)), func(b *testing.B) { benchSum(b, c, Options{}) })
+	}
+}
+
+// BenchmarkTermCost is the calibration of the splitting parameter (see
+// balancedAlpha): it times the two sums of Sum separately at the α Sum
+// chooses and 1e-10, on a 2-ion cell (caesium chloride) and on displaced
+// rock-salt supercells, and reports the cost of one real-space term
+// (ns/real-term: one ordered pair-image within the cut-off, the pair loop
+// and image search included) and of the reciprocal sum per k-vector
+// (ns/k-vector) and per k-vector and site (ns/recip-site-term). The
+// reciprocal cost is c₀ + c₁·N per k-vector: c₁ from the large cells, c₀
+// from the 2-ion one.
+func BenchmarkTermCost(b *testing.B) {
+	cells := []*crystal.Crystal{}
+	cs, err := crystal.Build("caesium-chloride", nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	cells = append(cells, cs)
+	for _, n := range []int{3, 5} {
+		cells = append(cells, rockSaltSupercell(b, n, 0.02))
+	}
+	for _, c := range cells {
+		s := newSystem(c, false)
+		alpha := s.balancedAlpha()
+		p := math.Sqrt(-math.Log(DefaultAccuracy / 2))
+		rc, kc := p/alpha, 2*alpha*p
+		phi := make([]float64, len(s.q))
+		b.Run(fmt.Sprintf("real/N=%d", len(s.q)), func(b *testing.B) {
+			terms := 0
+			for i := 0; i < b.N; i++ {
+				terms, _, _, _ = s.realSpace(alpha, rc, phi)
+			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(terms), "ns/real-term")
+		})
+		b.Run(fmt.Sprintf("recip/N=%d", len(s.q)), func(b *testing.B) {
+			vectors := 0
+			for i := 0; i < b.N; i++ {
+				vectors = s.reciprocalSpace(alpha, kc, phi)
+			}
+			perVector := float64(b.Elapsed().Nanoseconds()) / float64(b.N) / float64(vectors)
+			b.ReportMetric(perVector, "ns/k-vector")
+			b.ReportMetric(perVector/float64(len(s.q)), "ns/recip-site-term")
+		})
 	}
 }

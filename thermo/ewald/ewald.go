@@ -247,21 +247,28 @@ func newSystem(c *crystal.Crystal, detect bool) *system {
 }
 
 // realToRecipCost is the cost of one real-space pair term (an erfc, a
-// square root and the image search) relative to one site-by-k-vector term of
-// the reciprocal sum; chosen from the benchmarks (8 to 4,096 ions), where
-// values from 4 to 50 changed the time by less than 30 %.
-const realToRecipCost = 10.0
+// square root, the pair loop and the image search) relative to one
+// site-by-k-vector term of the reciprocal sum, and kVectorOverhead the cost
+// of one k-vector's own set-up (its Gaussian factor, its row of phases) in
+// the same unit. BenchmarkTermCost measures both (on a loaded 2-core
+// machine: about 300 ns per real term, 22 ns per site-term and 140 ns per
+// k-vector); instruction counts of whole sums (valgrind --tool=callgrind,
+// 8 to 4,096 ions) were least with 10 and 6 among 3…40 and 0…6.
+const (
+	realToRecipCost = 10.0
+	kVectorOverhead = 6.0
+)
 
 // balancedAlpha returns the splitting parameter that balances the cost of
 // the two sums for a cut-off product p fixed by the accuracy. With
-// rc = p/α and kc = 2αp the real sum costs ∝ N²·rc³/V and the reciprocal
-// sum ∝ N·kc³·V/(8π³), so their sum is least for α⁶ = (c_r/c_k)·N·π³/V²
-// (compare the choice of J. Kolafa and J. W. Perram, Mol. Simul. 9, 351
-// (1992), and the N^(1/6) scaling in their Eq. 33); the total work then
-// grows as N^1.5.
+// rc = p/α and kc = 2αp the real sum costs ∝ c_r·N²·rc³/V and the
+// reciprocal sum ∝ (c₀ + c₁·N)·kc³·V/(8π³), so their sum is least for
+// α⁶ = (c_r/c₁)·N²/(N + c₀/c₁)·π³/V² (compare the choice of J. Kolafa and
+// J. W. Perram, Mol. Simul. 9, 351 (1992), and the N^(1/6) scaling in
+// their Eq. 33); the total work then grows as N^1.5.
 func (s *system) balancedAlpha() float64 {
 	n := float64(len(s.q))
-	return math.Pow(realToRecipCost*n*math.Pi*math.Pi*math.Pi/(s.volume*s.volume), 1.0/6)
+	return math.Pow(realToRecipCost*n*n/(n+kVectorOverhead)*math.Pi*math.Pi*math.Pi/(s.volume*s.volume), 1.0/6)
 }
 
 // work bounds the number of steps of a sum with cut-offs rc and kc: images

@@ -154,7 +154,10 @@ func TestMadelungNonCubic(t *testing.T) {
 		r := sum(t, c, Options{})
 		d := r.NearestDistance
 		if tt.d == mean {
-			d = c.MeanCationAnionDistance()
+			var err error
+			if d, err = c.MeanCationAnionDistance(); err != nil {
+				t.Fatal(err)
+			}
 		}
 		zz := c.Sites[r.NearestPair[0]].Charge * -c.Sites[r.NearestPair[1]].Charge
 		want := -tt.want * zz * thermo.CoulombEVAngstrom / d
@@ -508,5 +511,34 @@ func TestDeterministicAcrossProcessors(t *testing.T) {
 		if math.Float64bits(one.SitePotentials[i]) != math.Float64bits(many.SitePotentials[i]) {
 			t.Fatalf("φ[%d] differs: %.17g vs %.17g", i, one.SitePotentials[i], many.SitePotentials[i])
 		}
+	}
+}
+
+// TestOneImagePerPair: a displaced 216-ion cell summed with the cut-off
+// below half of every plane spacing (one image per pair, found by
+// rounding) and above it (the image search around each pair) gives the
+// same energy and potentials: a property of the Ewald sum, whose result
+// does not depend on α.
+func TestOneImagePerPair(t *testing.T) {
+	c := rockSaltSupercell(t, 3, 0.05)
+	s := newSystem(c, false)
+	p := math.Sqrt(-math.Log(DefaultAccuracy / 2))
+	spacing := 3 * 5.6402
+	near := p / (0.45 * spacing) // rc = 0.45·spacing: one image
+	far := p / (0.9 * spacing)   // rc = 0.9·spacing: several
+	if im := newImageSum(s, near, p/near); !(im.h[0] < 0.5 && im.h[1] < 0.5 && im.h[2] < 0.5) {
+		t.Fatalf("h = %v: the one-image path is not taken", im.h)
+	}
+	a, b := sum(t, c, Options{alpha: near}), sum(t, c, Options{alpha: far})
+	if relDiff(a.EnergyEV, b.EnergyEV) > 2e-10 {
+		t.Errorf("one image: %.12f eV, image search: %.12f eV", a.EnergyEV, b.EnergyEV)
+	}
+	for k := range a.SitePotentials {
+		if math.Abs(a.SitePotentials[k]-b.SitePotentials[k]) > 1e-8*math.Abs(b.SitePotentials[k]) {
+			t.Errorf("φ[%d]: %.12g V and %.12g V", k, a.SitePotentials[k], b.SitePotentials[k])
+		}
+	}
+	if a.NearestPair != b.NearestPair || relDiff(a.NearestDistance, b.NearestDistance) > 1e-12 {
+		t.Errorf("nearest pair %v %.12f and %v %.12f", a.NearestPair, a.NearestDistance, b.NearestPair, b.NearestDistance)
 	}
 }

@@ -182,16 +182,48 @@ func (p *realPart) pairTerm(s *system, im *imageSum, i, j int) (float64, int) {
 // (−1, −1 when none lies within rc), and a pair of coincident sites if any.
 func (s *system) realSpace(alpha, rc float64, phi []float64) (terms int, nearest float64, pair [2]int, overlap [2]int) {
 	n := len(s.q)
+	chunks := chunksFor(n)
+	parts := make([]realPart, chunks)
+	s.realSpacePairs(alpha, rc, parts)
+	nearest, pair, overlap = math.Inf(1), [2]int{-1, -1}, [2]int{-1, -1}
+	for c := range parts {
+		p := &parts[c]
+		for i, v := range p.phi {
+			phi[i] += v
+		}
+		terms += p.terms
+		if p.nearest < nearest {
+			nearest, pair = p.nearest, p.pair
+		}
+		if overlap[0] < 0 && p.overlap[0] >= 0 {
+			overlap = p.overlap
+		}
+	}
+	return terms, nearest, pair, overlap
+}
+
+// realSpacePairs is realSpace over every pair of sites, each with all its
+// images within rc.
+func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
+	n := len(s.q)
+	chunks := len(parts)
 	im := newImageSum(s, alpha, rc)
 	// Self images: the same for every site.
 	selfSum, selfCount, _, _ := im.sum(crystal.Vec3{}, crystal.Vec3{}, true)
-
-	chunks := chunksFor(n)
-	parts := make([]realPart, chunks)
+	// With the cut-off below half of every distance between lattice
+	// planes, |Δfₖ + mₖ| ≤ rc·|bₖ| < ½ leaves one image per pair, the one
+	// of the rounded fractional difference (and none of a site itself).
+	minImage := im.h[0] < 0.5 && im.h[1] < 0.5 && im.h[2] < 0.5
 	forChunks(n, func(c int) {
 		p := &parts[c]
 		p.nearest, p.pair, p.overlap = math.Inf(1), [2]int{-1, -1}, [2]int{-1, -1}
 		p.phi = make([]float64, n)
+		if minImage {
+			for i := c; i < n; i += chunks {
+				s.minImageRow(i, alpha, im.rc2, p)
+			}
+			return
+		}
 		for i := c; i < n; i += chunks {
 			qi := s.q[i]
 			acc := qi * selfSum
@@ -208,21 +240,6 @@ func (s *system) realSpace(alpha, rc float64, phi []float64) (terms int, nearest
 			p.phi[i] += acc
 		}
 	})
-	nearest, pair, overlap = math.Inf(1), [2]int{-1, -1}, [2]int{-1, -1}
-	for c := range parts {
-		p := &parts[c]
-		for i, v := range p.phi {
-			phi[i] += v
-		}
-		terms += p.terms
-		if p.nearest < nearest {
-			nearest, pair = p.nearest, p.pair
-		}
-		if overlap[0] < 0 && p.overlap[0] >= 0 {
-			overlap = p.overlap
-		}
-	}
-	return terms, nearest, pair, overlap
 }
 
 // reciprocalSpace adds to phi[i] the reciprocal-space potential
@@ -352,4 +369,50 @@ func (s *system) reciprocalSpace(alpha, kc float64, phi []float64) int {
 		count += parts[c].count
 	}
 	return count
+}
+
+// minImageRow adds the real-space terms of the pairs (i, j > i) at their
+// one image within the cut-off (see realSpacePairs) to p.
+func (s *system) minImageRow(i int, alpha, rc2 float64, p *realPart) {
+	a0, a1, a2 := s.lat[0], s.lat[1], s.lat[2]
+	fi, qi := s.frac[i], s.q[i]
+	acc := 0.0
+	frac, q, phi := s.frac[i+1:], s.q[i+1:], p.phi[i+1:]
+	for k := range frac {
+		fj := &frac[k]
+		// Δf ∈ (−1, 1); subtracting the nearest integer, computed as
+		// trunc(Δf + 1.5) − 1 on a positive number.
+		d0, d1, d2 := fj[0]-fi[0], fj[1]-fi[1], fj[2]-fi[2]
+		d0 -= float64(int(d0+1.5) - 1)
+		d1 -= float64(int(d1+1.5) - 1)
+		d2 -= float64(int(d2+1.5) - 1)
+		x := d0*a0[0] + d1*a1[0] + d2*a2[0]
+		y := d0*a0[1] + d1*a1[1] + d2*a2[1]
+		z := d0*a0[2] + d1*a1[2] + d2*a2[2]
+		r2 := x*x + y*y + z*z
+		if r2 >= rc2 {
+			continue
+		}
+		j := i + 1 + k
+		if r2 < coincident*coincident {
+			if p.overlap[0] < 0 {
+				p.overlap = [2]int{i, j}
+			}
+			continue
+		}
+		r := math.Sqrt(r2)
+		e := erfc(alpha*r) / r
+		acc += q[k] * e
+		phi[k] += qi * e
+		p.terms += 2
+		if qi*q[k] < 0 && r < p.nearest {
+			p.nearest = r
+			if qi > 0 {
+				p.pair = [2]int{i, j}
+			} else {
+				p.pair = [2]int{j, i}
+			}
+		}
+	}
+	p.phi[i] += acc
 }

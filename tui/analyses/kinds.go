@@ -131,6 +131,7 @@ func kinds() []kind {
 			},
 		},
 	}
-	ks = append(ks, stabilityKind(func() kind { return ks[len(ks)-1] }))
+	at := len(ks)
+	ks = append(ks, stabilityKind(func() kind { return ks[at] }))
 	return ks
 }

@@ -2,6 +2,7 @@ package analyses
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"enthalpath/cycle/analysis"
@@ -64,7 +65,7 @@ func (m *Model) estimate(e *analysis.Estimate) []string {
 func (m *Model) scan(s *analysis.Scan) []string {
 	st := m.ctx.Styles
 	lines := []string{st.Accent.Render(fmt.Sprintf("%s with %s (%s), lattice from %s", s.Metal, s.NonMetal, s.Anion, s.Model)),
-		st.Title.Render(fmt.Sprintf("  %-8s %6s %22s %14s  %s", "formula", "charge", "ΔfH° per formula", "per metal", "verdict"))}
+		st.Title.Render(fmt.Sprintf("  %-8s %6s %22s %22s  %s", "formula", "charge", "ΔfH° per formula", fmt.Sprintf("ΔfG(%g K)", s.Temperature), "verdict"))}
 	for _, c := range s.Compounds {
 		from := "estimate"
 		if c.FromData {
@@ -79,17 +80,28 @@ func (m *Model) scan(s *analysis.Scan) []string {
 		case c.Undecided:
 			verdict = "undecided within the data"
 		}
-		if c.Formula == s.Favoured {
+		switch {
+		case c.Formula == s.Favoured && s.FavouredTie != "":
+			verdict += " · lowest, within 2σ of " + s.FavouredTie
+		case c.Formula == s.Favoured:
 			verdict += " · favoured"
 		}
-		lines = append(lines, m.row(fmt.Sprintf("  %-8s %6d %22s %14s  %s (%s)", c.Formula, c.Charge, m.pm(c.Formation, c.Uncertainty),
-			m.ctx.Signed(c.PerMetal), verdict, from)))
+		g := "—"
+		if !math.IsNaN(c.Gibbs) {
+			g = m.pm(c.Gibbs, c.GibbsUncertainty)
+		}
+		lines = append(lines, m.row(fmt.Sprintf("  %-8s %6d %22s %22s  %s (%s)", c.Formula, c.Charge, m.pm(c.Formation, c.Uncertainty),
+			g, verdict, from)))
 	}
 	if len(s.Disproportionations) > 0 {
 		lines = append(lines, st.Title.Render("  disproportionations"))
 	}
 	for _, d := range s.Disproportionations {
-		lines = append(lines, m.row(fmt.Sprintf("  %-28s %s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), d.Energies.Verdict)))
+		g := ""
+		if e := d.Energies; e.EntropyKnown {
+			g = " · ΔrG " + m.pm(e.Gibbs, e.GibbsUncertainty)
+		}
+		lines = append(lines, m.row(fmt.Sprintf("  %-28s ΔrH° %s%s  %s", d.Reaction, m.pm(d.Enthalpy, d.Uncertainty), g, d.Energies.Verdict)))
 	}
 	for _, c := range s.Compounds {
 		for _, n := range c.Notes {

@@ -74,7 +74,7 @@ func (m *Model) stability(s *analysis.Stability) []string {
 		groups = append(groups, eq)
 	}
 	if len(pts) > 0 {
-		sc := plot.Scatter{Points: pts, Groups: groups, XLabel: "T (K); up: ΔrG (kJ/mol)"}
+		sc := plot.Scatter{Points: pts, Groups: groups, XLabel: "T (K); up: ΔrG (kJ/mol); - ΔrG = 0", Zero: true}
 		chart := sc.Render(m.w, stabilityPlotHeight, plot.Styles{Axis: st.Muted, Point: st.Accent, Guide: st.Rule, Label: st.Text})
 		lines = append(lines, strings.Split(chart, "\n")...)
 	}

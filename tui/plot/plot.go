@@ -42,6 +42,8 @@ type Scatter struct {
 	YLabel string
 	// Diagonal draws the line y = x (a model agreeing with the cycle).
 	Diagonal bool
+	// Zero keeps y = 0 in range and draws it (a reaction energy's sign).
+	Zero bool
 }
 
 const yAxisWidth = 8
@@ -64,6 +66,9 @@ func (s Scatter) Render(w, h int, st Styles) string {
 		return pad("(nothing to plot yet)", w, h)
 	}
 	xlo, xhi := bounds(xs)
+	if s.Zero {
+		ys = append(ys, 0)
+	}
 	ylo, yhi := bounds(ys)
 	if s.Diagonal { // same range on both axes so y = x is the diagonal
 		xlo, ylo = math.Min(xlo, ylo), math.Min(xlo, ylo)
@@ -84,6 +89,11 @@ func (s Scatter) Render(w, h int, st Styles) string {
 			if y := row(v); y >= 0 && y < ph {
 				cells[y][x], kinds[y][x] = '.', 1
 			}
+		}
+	}
+	if y := row(0); s.Zero && y >= 0 && y < ph {
+		for x := 0; x < pw; x++ {
+			cells[y][x], kinds[y][x] = '-', 1
 		}
 	}
 	for _, p := range s.Points {

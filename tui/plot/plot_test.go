@@ -66,3 +66,30 @@ func TestStripOneRowPerGroup(t *testing.T) {
 		t.Errorf("copper glyphs not right of alkali glyphs:\n%s", out)
 	}
 }
+
+// Zero keeps y = 0 in range though every point is positive, and draws it
+// on the row between the points' rows and the bottom.
+func TestScatterZeroLine(t *testing.T) {
+	s := Scatter{Points: []Point{{300, 130, 0}, {1500, 60, 0}}, Groups: []string{"a"}, Zero: true}
+	lines := strings.Split(s.Render(50, 14, Styles{}), "\n")
+	zero, point := -1, -1
+	for i, l := range lines {
+		body := []rune(l)
+		if len(body) <= yAxisWidth {
+			continue
+		}
+		rest := string(body[yAxisWidth:])
+		if strings.Count(rest, "-") > 30 && zero < 0 {
+			zero = i
+		}
+		if strings.ContainsRune(rest, 'o') && point < 0 && !strings.Contains(l, "o a") {
+			point = i
+		}
+	}
+	if zero < 0 || point < 0 || zero <= point {
+		t.Errorf("zero line at row %d, first point at row %d:\n%s", zero, point, strings.Join(lines, "\n"))
+	}
+	if s.Zero = false; strings.Count(s.Render(50, 14, Styles{}), "-") > 10 {
+		t.Errorf("a zero line drawn without Zero")
+	}
+}
