@@ -1,6 +1,7 @@
 package analyses
 
 import (
+	"enthalpath/tui/diagram"
 	"fmt"
 	"math"
 	"strings"
@@ -120,7 +121,7 @@ func (m *Model) solution(s *analysis.SolutionCycle) []string {
 	for _, t := range s.Terms {
 		flag := " "
 		if t.Unknown {
-			flag = "?"
+			flag = diagram.SolvedMark
 		}
 		src := t.Source.Kind.String()
 		if t.Source.Key != "" {

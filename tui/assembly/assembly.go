@@ -466,14 +466,14 @@ func (m *Model) View() string {
 		s, _ := c.Step(k)
 		val := m.ctx.Signed(s.Value)
 		if s.Unknown {
-			val = "?"
+			val = "unknown"
 		}
 		if s.Kind == cycle.KindLattice && c.Settings.LatticeFrom != "" {
 			val = m.modelValue(c)
 		}
 		marker := "✓"
 		if s.Unknown {
-			marker = "?"
+			marker = diagram.SolvedMark
 		}
 		// The multiplicity the value enters the sum with (×½ for Cl₂ → 2Cl).
 		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s %3s %10s  %s", marker, s.Reaction, screen.Multiplicity(s.Multiplicity), val, m.label(s)), m.w))
@@ -555,7 +555,7 @@ func (m *Model) doneLine() string {
 		return st.Error.Render("Not solved: ") + msg
 	}
 	s := m.sess.Result.Solved
-	return st.Solved.Render("? solved: ") + st.Accent.Render(fmt.Sprintf("%s = %s %s %s", s.Label, m.ctx.Signed(s.Value),
+	return st.Solved.Render(diagram.SolvedMark+" solved: ") + st.Accent.Render(fmt.Sprintf("%s = %s %s %s", s.Label, m.ctx.Signed(s.Value),
 		m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units)) + st.Muted.Render("   enter: on to the bench")
 }
 

@@ -66,8 +66,8 @@ func TestOpensWithLatticeSolved(t *testing.T) {
 		t.Errorf("view lacks %q:\n%s", want, view)
 	}
 	// The unknown row carries the textual marker, not only a colour.
-	if !strings.Contains(view, "›? Na⁺(g) + Cl⁻(g) → NaCl(s)") {
-		t.Errorf("lattice row lacks its ? marker:\n%s", view)
+	if !strings.Contains(view, "›∴ Na⁺(g) + Cl⁻(g) → NaCl(s)") {
+		t.Errorf("lattice row lacks its ∴ marker:\n%s", view)
 	}
 }
 
@@ -91,7 +91,7 @@ func TestMarkUnknownThenEditClosesOnTheOtherStep(t *testing.T) {
 	if want := -3.613 * thermo.KJPerMolPerEV; math.Abs(res.Solved.Value-want) > 10 {
 		t.Errorf("attachment-1 from the handbook lattice = %.1f, want ≈ %.1f", res.Solved.Value, want)
 	}
-	if v := m.View(); !strings.Contains(v, "? solved: attachment-1 = ") {
+	if v := m.View(); !strings.Contains(v, "∴ solved: attachment-1 = ") {
 		t.Errorf("view does not show the solved attachment:\n%s", v)
 	}
 
@@ -383,7 +383,7 @@ func TestDrawingClosesUnderU(t *testing.T) {
 	lat, _ := res.Step("lattice")
 	corr := -f.Session.Cycle.LatticeCorrection()
 	want := "lattice arrow ΔH_L " + f.Ctx.Signed(lat.Value+corr) + " = U " + f.Ctx.Signed(lat.Value)
-	arrow := "?" + strings.ReplaceAll(strconv.FormatFloat(math.Round(lat.Value+corr), 'f', 0, 64), "-", "−")
+	arrow := "∴" + strings.ReplaceAll(strconv.FormatFloat(math.Round(lat.Value+corr), 'f', 0, 64), "-", "−")
 	if strings.Contains(v, "from ΔfH°") || !strings.Contains(v, want) || !strings.Contains(v, arrow) {
 		t.Errorf("the drawing under U lacks %q or the arrow %q, or adds a formation level:\n%s", want, arrow, v)
 	}
@@ -407,7 +407,7 @@ func TestSolvedLineIsNotCut(t *testing.T) {
 		}
 		var line string
 		for _, l := range strings.Split(m.View(), "\n") {
-			if strings.HasPrefix(l, "? solved:") {
+			if strings.HasPrefix(l, "∴ solved:") {
 				line = strings.TrimRight(l, " ")
 			}
 		}

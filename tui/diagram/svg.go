@@ -25,7 +25,7 @@ const (
 // WriteSVG writes the diagram as a standalone, well-formed SVG 1.1 document:
 // levels as lines labelled with their state and energy, arrows with
 // arrowheads and values, the unknown step dashed, in its own colour and
-// marked "?" and "(solved)" so it reads in greyscale too.
+// marked with SolvedMark and "(solved)" so it reads in greyscale too.
 func (d Diagram) WriteSVG(w io.Writer) error {
 	var b bytes.Buffer
 	n := len(d.Arrows)
@@ -93,7 +93,7 @@ func (d Diagram) WriteSVG(w io.Writer) error {
 		y0, y1 := y(d.Levels[ar.From].Energy), y(d.Levels[ar.To].Energy)
 		colour, marker, dash, label := "#1f3f5f", "head", "", ar.Value
 		if ar.Unknown {
-			colour, marker, dash, label = "#b04a00", "head-solved", ` stroke-dasharray="6,4"`, "? "+ar.Value+" (solved)"
+			colour, marker, dash, label = "#b04a00", "head-solved", ` stroke-dasharray="6,4"`, SolvedMark+" "+ar.Value+" (solved)"
 		}
 		fmt.Fprintf(&b, `<line x1="%s" y1="%s" x2="%s" y2="%s" stroke="%s" stroke-width="2"%s marker-end="url(#%s)"/>`,
 			num(x), num(y0), num(x), num(y1), colour, dash, marker)

@@ -125,15 +125,57 @@ func Build(formula string, steps []cycle.Step, opt Options) diagram.Diagram {
 		a.Value = arrowValue(formation, hasValue(formation, opt.Solved), opt.Units)
 		target := thermo.FromKJPerMol(formation.Contribution(), opt.Units)
 		last := len(d.Levels) - 1
-		// Closed cycle: the formation arrow ends on the solid's level. When
-		// it does not close (nothing solved yet), it gets its own level.
+		// Closed cycle: the formation arrow ends on the solid's level.
 		if hasValue(formation, opt.Solved) && abs(target-d.Levels[last].Energy) > closeTolerance(opt.Units) {
-			d.Levels = append(d.Levels, diagram.Level{Label: product(formation) + " (from ΔfH°)", Energy: target})
-			last = len(d.Levels) - 1
+			if complete(steps, terms, opt.Solved) {
+				// Over-determined: every step has a value and the path
+				// misses the solid. The solid is drawn once, at ΔfH°;
+				// the path's open end is joined to it by the miss, the
+				// closure residual (Σ of the steps − ΔfH°).
+				end := last
+				d.Levels[end].Label = ""
+				d.Levels = append(d.Levels, diagram.Level{Label: product(formation), Energy: target})
+				last = len(d.Levels) - 1
+				d.Arrows = append(d.Arrows, diagram.Arrow{From: last, To: end, Tag: "closure residual",
+					Value: "miss " + signed(d.Levels[end].Energy-target, opt.Units), Miss: true})
+			} else {
+				// Not closed because a step has no value yet: the
+				// formation arrow gets its own level.
+				d.Levels = append(d.Levels, diagram.Level{Label: product(formation) + " (from ΔfH°)", Energy: target})
+				last = len(d.Levels) - 1
+			}
 		}
 		a.To = last
 	}
 	return d
+}
+
+// complete reports whether every term and the formation step have a value
+// of their own (none unknown, none missing): the cycle is over-determined.
+func complete(steps []cycle.Step, terms []int, solved bool) bool {
+	if solved {
+		return false
+	}
+	for i := range steps {
+		s := &steps[i]
+		if s.Unknown || s.Source.Kind == cycle.SourceMissing {
+			return false
+		}
+	}
+	return len(terms) > 0
+}
+
+// signed writes v (already in unit u) with its sign, as the arrows' values.
+func signed(v float64, u thermo.Unit) string {
+	prec := 1
+	if u == thermo.EVPerFormulaUnit {
+		prec = 3
+	}
+	str := strconv.FormatFloat(v, 'f', prec, 64)
+	if v > 0 {
+		str = "+" + str
+	}
+	return strings.Replace(str, "-", "−", 1)
 }
 
 func closeTolerance(u thermo.Unit) float64 { return thermo.FromKJPerMol(0.5, u) }

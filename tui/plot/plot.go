@@ -13,6 +13,10 @@ import (
 // list reuse them.
 const Glyphs = "ox+*#@%&=~"
 
+// Crowded marks a cell holding points of two groups: a mark of its own,
+// neither a group's glyph nor the help key "?" nor the solved-step mark.
+const Crowded = '‡'
+
 // Glyph returns the marker of group g.
 func Glyph(g int) rune {
 	r := []rune(Glyphs)
@@ -106,7 +110,7 @@ func (s Scatter) Render(w, h int, st Styles) string {
 		}
 		g := Glyph(p.Group)
 		if kinds[y][x] == 2 && cells[y][x] != g {
-			g = '?' // two groups on one cell; the table has the numbers
+			g = Crowded // two groups on one cell; the table has the numbers
 		}
 		cells[y][x], kinds[y][x] = g, 2
 	}
