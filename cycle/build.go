@@ -27,6 +27,9 @@ type Options struct {
 	Settings Settings
 	// Memo is the Madelung memo to use; nil makes a new one.
 	Memo *Memo
+	// AnionValue chooses the value of a multiply charged monatomic anion
+	// (O²⁻, S²⁻): the family-fitted one (default) or the textbook one.
+	AnionValue AnionValue
 }
 
 // Default uncertainties used where a source states none (common practice,
@@ -108,7 +111,7 @@ func Build(db *data.DB, formula string, opt Options) (*Cycle, error) {
 	// sub-step per side, the lattice and the formation (more, as for Br₂(l),
 	// only costs a reallocation).
 	n := 6 + c.Cation.Ion.Charge - c.Anion.Ion.Charge
-	b := builder{db: db, c: c, steps: make([]Step, 0, n), refs: make([]Entry, 0, n)}
+	b := builder{db: db, c: c, route: opt.AnionValue, steps: make([]Step, 0, n), refs: make([]Entry, 0, n)}
 	b.side(SideCation)
 	b.side(SideAnion)
 	b.compoundSteps()
@@ -134,6 +137,7 @@ func cloneParams(p map[string]float64) map[string]float64 {
 type builder struct {
 	db    *data.DB
 	c     *Cycle
+	route AnionValue
 	steps []Step
 	// refs holds the steps' reference entries in one allocation. Should it
 	// outgrow its capacity, append moves it and the pointers handed out
@@ -200,7 +204,19 @@ func (b *builder) side(side Side) {
 		s := Step{Key: "ion-formation-" + suffix, Kind: KindIonFormation, Side: side, Multiplicity: count,
 			Label:    "standard enthalpy of formation of gaseous " + p.Ion.Symbol,
 			Reaction: ionFormationReaction(b.db, p.Ion)}
-		b.add(s, &p.Ion.GasFormation, DefaultIonFormation)
+		v := &p.Ion.GasFormation
+		if !v.Known() {
+			if fit, ok := b.db.DerivedIon(p.Ion.Symbol); ok {
+				b.c.Fitted = append(b.c.Fitted, fit)
+				v = &fit.GasFormation
+			}
+		}
+		b.add(s, v, DefaultIonFormation)
+		if last := &b.steps[len(b.steps)-1]; v.Source == data.FamilyFitSource && last.Reference != nil {
+			fit := b.c.Fitted[len(b.c.Fitted)-1]
+			last.Source = fittedSource(b.db, fit)
+			last.Reference.Source = last.Source
+		}
 		// The tabulated value counts the thermal electron (298.15 K
 		// convention); the cycle is built in the 0 K convention.
 		last := &b.steps[len(b.steps)-1]
@@ -228,26 +244,7 @@ func (b *builder) side(side Side) {
 		}
 		return
 	}
-	for j := 1; j <= -p.Ion.Charge; j++ {
-		s := Step{Key: "attachment-" + strconv.Itoa(j), Kind: KindAttachment, Side: side, Order: j, Multiplicity: count,
-			Label:    ordinal(j) + " electron attachment enthalpy of " + el.Symbol + " (minus the " + ordinal(j) + " electron affinity)",
-			Reaction: el.Symbol + chargeText(-(j - 1)) + "(g) + e⁻ → " + el.Symbol + chargeText(-j) + "(g)"}
-		var v *data.Value
-		def := thermo.EVToKJPerMol(DefaultAffinityUncertaintyEV)
-		switch j {
-		case 1:
-			v = &el.ElectronAffinity
-		case 2:
-			v = &el.SecondAffinity
-			def = DefaultDerivedAttachment
-		}
-		if v != nil && v.Known() {
-			neg := *v // attachment enthalpy = −(electron affinity)
-			neg.V = -neg.V
-			v = &neg
-		}
-		b.add(s, v, def)
-	}
+	b.anionAttachments(p, el, b.route)
 }
 
 // atomization adds atomization-<suffix> and its sub-steps.

@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"sync"
+
+	"enthalpath/data"
 )
 
 // ionizationNotes are the two explanations of the ionization convention,
@@ -58,7 +60,9 @@ func (c *Cycle) commentary(r *Result) (notes, warnings []string) {
 		if s.Source.Kind == SourceSum || (s.Parent != "" && !c.inSum(i)) {
 			continue
 		}
-		if s.Source.Derived {
+		if s.Source.Key == data.FamilyFitSource {
+			notes = append(notes, fmt.Sprintf("%s: %s; its standard error is part of the cycle's uncertainty", s.Key, s.Source.Note))
+		} else if s.Source.Derived {
 			warnings = append(warnings, fmt.Sprintf("%s is derived in the data (%s) from other values, for O²⁻ and S²⁻ from a cycle, not measured; replace it with --set %s=VALUE if you have a better value",
 				s.Key, s.Source.Key, s.Key))
 		}
@@ -68,6 +72,10 @@ func (c *Cycle) commentary(r *Result) (notes, warnings []string) {
 		if s.Source.Memory {
 			memory = append(memory, s.Key)
 		}
+	}
+	for _, cc := range r.Circular {
+		warnings = append(warnings, fmt.Sprintf("the value of %s was fitted to %s among %d salts (%s): a comparison of this cycle with the lattice models is not independent, so no covalency verdict is given",
+			cc.Ion, c.Formula, cc.Salts, cc.Model))
 	}
 	if len(defaults) > 0 {
 		warnings = append(warnings, "no uncertainty stated by the source, default of the kind used (kJ/mol): "+strings.Join(defaults, ", "))

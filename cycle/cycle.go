@@ -49,6 +49,12 @@ type Cycle struct {
 	Settings Settings
 	// Note is free text saved with the cycle file.
 	Note string
+	// AnionValue is the choice in force for a multiply charged monatomic
+	// anion's value (AnionFitted or AnionTextbook), "" when the anion has
+	// no such choice. Fitted holds the family-fitted ion values the cycle
+	// uses (read only).
+	AnionValue AnionValue
+	Fitted     []data.DerivedIon
 
 	memo *Memo
 }

@@ -43,6 +43,9 @@ type fileDoc struct {
 	Compound string `toml:"compound"`
 	Cation   string `toml:"cation"`
 	Anion    string `toml:"anion"`
+	// AnionValue is "textbook" when the cycle uses the textbook value of a
+	// multiply charged anion instead of the family-fitted one (the default).
+	AnionValue string `toml:"anion_value,omitempty"`
 	// Solve lists the unknown steps (normally one).
 	Solve       []string      `toml:"solve"`
 	Conventions fileConv      `toml:"conventions"`
@@ -60,6 +63,7 @@ type fileDocIn struct {
 	Compound    string           `toml:"compound"`
 	Cation      string           `toml:"cation"`
 	Anion       string           `toml:"anion"`
+	AnionValue  string           `toml:"anion_value"`
 	Solve       []string         `toml:"solve"`
 	Conventions fileConv         `toml:"conventions"`
 	Models      fileModels       `toml:"models"`
@@ -189,6 +193,9 @@ func Marshal(c *Cycle) ([]byte, error) {
 		doc.Solve = []string{}
 	}
 	doc.Conventions = fileConv{Lattice: c.Conventions.Lattice.String(), Ionization: c.Conventions.Ionization.String()}
+	if c.AnionValue == AnionTextbook {
+		doc.AnionValue = string(AnionTextbook)
+	}
 	st := c.Settings
 	m := fileModels{LatticeFrom: st.LatticeFrom, Rho: st.Rho, BornExponent: st.BornExponent, Radius: st.Radius.String(),
 		CationCN: st.CationCN, AnionCN: st.AnionCN, D0: st.Distance.String(), Accuracy: st.Accuracy, Units: st.Units.Key()}
@@ -285,7 +292,7 @@ func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
 		return fail(findKeyLine(text, k), k.String(), "unknown field (a newer file version, or a typing error?)", nil)
 	}
 	doc := fileDoc{Format: in.Format, Version: in.Version, Note: in.Note, Compound: in.Compound, Cation: in.Cation,
-		Anion: in.Anion, Solve: in.Solve, Conventions: in.Conventions, Models: in.Models}
+		Anion: in.Anion, AnionValue: in.AnionValue, Solve: in.Solve, Conventions: in.Conventions, Models: in.Models}
 	if len(in.Steps) > maxFileSteps {
 		// Refused before any per-step work: 13,000 steps in 1 MiB once
 		// took 111 s and 14.6 GB to read.
@@ -325,6 +332,11 @@ func unmarshal(db *data.DB, b []byte, path string) (*Cycle, error) {
 		return nil, ferr
 	}
 	opt := Options{Conventions: conv, Settings: set}
+	if doc.AnionValue != "" {
+		if opt.AnionValue, err = ParseAnionValue(doc.AnionValue); err != nil {
+			return fail(lineOf("anion_value"), "anion_value", err.Error(), nil)
+		}
+	}
 	c, err := Build(db, doc.Compound, opt)
 	if err == nil && doc.Cation != "" && doc.Anion != "" && (c.Cation.Ion.Symbol != doc.Cation || c.Anion.Ion.Symbol != doc.Anion) {
 		opt.Cation, opt.Anion = doc.Cation, doc.Anion

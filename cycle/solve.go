@@ -6,6 +6,7 @@ import (
 	"slices"
 
 	"enthalpath/thermo"
+	"enthalpath/thermo/lattice"
 )
 
 // freeElectronEnthalpy is 5/2·RT at 298.15 K in kJ/mol: the heat content
@@ -46,7 +47,7 @@ func (c *Cycle) shift(s *Step, conv Conventions) float64 {
 		}
 	case KindAttachment:
 		if conv.Ionization == Energies0K {
-			return h
+			return h * s.electrons()
 		}
 	case KindIonFormation:
 		if conv.Ionization == Energies0K {
@@ -134,6 +135,10 @@ type Result struct {
 	// Warnings are things the user should look at (cycle-derived inputs,
 	// values from memory, default uncertainties, models that failed).
 	Warnings []string
+	// Circular lists the family-fitted ion values the cycle uses that were
+	// fitted to this very compound: the comparison with the models is then
+	// not independent, and every model's verdict is left Undetermined.
+	Circular []Circularity
 }
 
 // Step returns the result's step with key.
@@ -191,62 +196,97 @@ func Solve(c *Cycle) (*Result, error) {
 			return nil, &UnknownsError{}
 		}
 	}
-	w.refreshComposites()
-
-	unknown := -1
-	var unknowns []string
-	for i := range steps {
-		if steps[i].Unknown {
-			unknowns = append(unknowns, steps[i].Key)
-			unknown = i
-		}
+	if err := w.hess(res); err != nil {
+		return nil, err
 	}
-	if len(unknowns) != 1 {
-		return nil, &UnknownsError{Keys: unknowns}
-	}
-	if !w.inSum(unknown) {
-		parent := steps[unknown].Parent
-		return nil, fmt.Errorf("%w: step %s is a sub-step of %s, which has a value of its own; reset %s (or solve for %s) instead: %w",
-			ErrUnknownStep, steps[unknown].Key, parent, parent, parent, ErrTooManyUnknowns)
-	}
-	sum, variance := 0.0, 0.0
-	for i := range steps {
-		s := &steps[i]
-		if i == unknown || !w.inSum(i) {
-			continue
-		}
-		if s.Source.Kind == SourceMissing {
-			return nil, &MissingError{Key: s.Key, What: s.Label}
-		}
-		base := s.Value - w.shift(s, w.Conventions)
-		sum += hessSign(s) * s.Multiplicity * base
-		variance += sq(s.Multiplicity * s.Uncertainty)
-	}
-	u := &steps[unknown]
-	if u.Multiplicity == 0 {
-		return nil, fmt.Errorf("cycle %s: step %s has multiplicity 0 and cannot be solved", c.Formula, u.Key)
-	}
-	base := -sum / (hessSign(u) * u.Multiplicity)
-	u.Value = base + w.shift(u, w.Conventions)
-	u.Uncertainty = math.Sqrt(variance) / math.Abs(u.Multiplicity)
-	if math.IsNaN(u.Value) || math.IsInf(u.Value, 0) || math.IsNaN(u.Uncertainty) || math.IsInf(u.Uncertainty, 0) {
-		return nil, fmt.Errorf("cycle %s: the steps sum to no finite value for %s; check the values given", c.Formula, u.Key)
-	}
-	u.Source = Source{Kind: SourceSolved, Citation: "Hess's law over the other steps"}
-	w.refreshComposites()
-	res.Solved = *u
-	res.Steps = steps
-
-	lat, _ := w.Step("lattice")
-	corr := w.LatticeCorrection()
-	latBase := lat.Value - w.shift(lat, w.Conventions)
-	res.Lattice = LatticeValue{Enthalpy: latBase, Energy: latBase + corr, Uncertainty: lat.Uncertainty, Correction: corr}
+	res.Lattice = w.latticeValue()
 	res.Handbook = w.handbook(res.Lattice)
 	if models == nil {
 		models = EvaluateModels(c)
 	}
 	res.Models = gaps(models, res.Lattice.In(w.Conventions.Lattice))
+	if res.Circular = w.circularity(); len(res.Circular) > 0 {
+		for i := range res.Models {
+			res.Models[i].Verdict.Character = lattice.Undetermined
+		}
+	}
 	res.Notes, res.Warnings = w.commentary(res)
+	return res, nil
+}
+
+// hess closes w (a working copy whose Steps the caller owns) by Hess's law:
+// the one unknown step gets the value the others leave, with the
+// propagated uncertainty; res.Solved and res.Steps are set.
+func (w *Cycle) hess(res *Result) error {
+	w.refreshComposites()
+
+	unknown := -1
+	var unknowns []string
+	for i := range w.Steps {
+		if w.Steps[i].Unknown {
+			unknowns = append(unknowns, w.Steps[i].Key)
+			unknown = i
+		}
+	}
+	if len(unknowns) != 1 {
+		return &UnknownsError{Keys: unknowns}
+	}
+	if !w.inSum(unknown) {
+		parent := w.Steps[unknown].Parent
+		return fmt.Errorf("%w: step %s is a sub-step of %s, which has a value of its own; reset %s (or solve for %s) instead: %w",
+			ErrUnknownStep, w.Steps[unknown].Key, parent, parent, parent, ErrTooManyUnknowns)
+	}
+	sum, variance := 0.0, 0.0
+	for i := range w.Steps {
+		s := &w.Steps[i]
+		if i == unknown || !w.inSum(i) {
+			continue
+		}
+		if s.Source.Kind == SourceMissing {
+			return &MissingError{Key: s.Key, What: s.Label}
+		}
+		base := s.Value - w.shift(s, w.Conventions)
+		sum += hessSign(s) * s.Multiplicity * base
+		variance += sq(s.Multiplicity * s.Uncertainty)
+	}
+	u := &w.Steps[unknown]
+	if u.Multiplicity == 0 {
+		return fmt.Errorf("cycle %s: step %s has multiplicity 0 and cannot be solved", w.Formula, u.Key)
+	}
+	base := -sum / (hessSign(u) * u.Multiplicity)
+	u.Value = base + w.shift(u, w.Conventions)
+	u.Uncertainty = math.Sqrt(variance) / math.Abs(u.Multiplicity)
+	if math.IsNaN(u.Value) || math.IsInf(u.Value, 0) || math.IsNaN(u.Uncertainty) || math.IsInf(u.Uncertainty, 0) {
+		return fmt.Errorf("cycle %s: the steps sum to no finite value for %s; check the values given", w.Formula, u.Key)
+	}
+	u.Source = Source{Kind: SourceSolved, Citation: "Hess's law over the other steps"}
+	w.refreshComposites()
+	res.Solved = *u
+	res.Steps = w.Steps
+	return nil
+}
+
+// latticeValue is w's lattice step in both conventions.
+func (w *Cycle) latticeValue() LatticeValue {
+	lat, _ := w.Step("lattice")
+	corr := w.LatticeCorrection()
+	latBase := lat.Value - w.shift(lat, w.Conventions)
+	return LatticeValue{Enthalpy: latBase, Energy: latBase + corr, Uncertainty: lat.Uncertainty, Correction: corr}
+}
+
+// SolveHess is Solve without the model comparison, the handbook value and
+// the commentary: the solved step and the steps, for callers that solve
+// many cycles for one number (a family fit). Result.Lattice is set;
+// Models, Handbook, Notes and Warnings are empty. LatticeFrom is not
+// applied: give the lattice step a value first.
+func SolveHess(c *Cycle) (*Result, error) {
+	w := *c
+	w.Steps = slices.Clone(c.Steps)
+	res := &Result{Conventions: c.Conventions}
+	if err := w.hess(res); err != nil {
+		return nil, err
+	}
+	res.Lattice = w.latticeValue()
 	return res, nil
 }
 

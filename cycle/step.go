@@ -157,8 +157,12 @@ type Step struct {
 	Reaction string
 	Kind     StepKind
 	Side     Side
-	// Order is the stage of an ionization or attachment (1, 2, …), else 0.
+	// Order is the stage of an ionization or attachment (1, 2, …), else 0:
+	// the first electron the step moves.
 	Order int
+	// Electrons is how many electrons an attachment step adds when it
+	// covers several (N(g) + 3e⁻ → N³⁻(g): 3); 0 means one.
+	Electrons int
 	// Value is ΔH (or ΔU for the lattice step under LatticeEnergy) in
 	// kJ/mol per mole of Reaction as written, in the cycle's conventions.
 	// It is meaningless while Unknown or when Source.Kind is SourceMissing.

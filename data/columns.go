@@ -23,6 +23,7 @@ var tableColumns = map[string][]string{
 	"species.csv": {"formula", "name", "formation_kj_per_mol", "formation_uncertainty", "gibbs_kj_per_mol",
 		"entropy_j_per_mol_k", "source", "locator", "memory", "note"},
 	"alternatives.csv": {"kind", "key", "value", "uncertainty", "unit", "source", "locator", "note"},
+	DerivedIonsFile:    {"ion", "gas_formation_kj_per_mol", "standard_error", "model", "salts", "outside_2sigma", "skipped", "derived", "note"},
 }
 
 // tableOrder is the order tables are read in (each may refer to the ones
@@ -46,6 +47,7 @@ var tableOrder = []struct {
 	{"solution_enthalpies.csv", "solution_enthalpy", true},
 	{"species.csv", "species", true},
 	{"alternatives.csv", "alternative", true},
+	{DerivedIonsFile, "derived_ion", true},
 }
 
 // TableFiles lists the table file names in reading order.

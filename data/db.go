@@ -42,7 +42,8 @@ type DB struct {
 	compoundFoldIdx map[string]int // lower-case formula
 	comp            *compositions  // composition keys, built on first use
 
-	solutions map[string]Value // tabulated formula → ΔsolH° at infinite dilution
+	solutions map[string]Value      // tabulated formula → ΔsolH° at infinite dilution
+	derived   map[string]DerivedIon // ion symbol → family-fitted gas-phase enthalpy (derived.go)
 
 	species *speciesTable // "CO2(g)" → species, read on first use
 
@@ -133,6 +134,7 @@ func (db *DB) clone() *DB {
 		compoundIdx: maps.Clone(db.compoundIdx),
 		solutions:   maps.Clone(db.solutions),
 		species:     &speciesTable{},
+		derived:     maps.Clone(db.derived),
 		overlays:    slices.Clone(db.overlays),
 		problems:    slices.Clone(db.problems),
 	}
@@ -605,6 +607,9 @@ func (db *DB) Source(key string) (Source, error) {
 	}
 	if key == userSource {
 		return Source{Key: userSource, Citation: "value from the user's overlay file"}, nil
+	}
+	if key == FamilyFitSource {
+		return Source{Key: FamilyFitSource, Citation: familyFitCitation}, nil
 	}
 	return Source{}, &NotFoundError{Kind: "source", Query: key, Suggestions: suggest(key, db.sourceKeys(), 3)}
 }

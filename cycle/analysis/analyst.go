@@ -21,6 +21,9 @@ type Analyst struct {
 	additiveFit  *entropy.Additive
 	additiveErr  error
 
+	saltsOnce sync.Once
+	saltsOf   map[string][]data.Compound // ion symbol → its compounds (ionfit.go)
+
 	mu      sync.Mutex
 	spreads map[string]spreadEntry
 	built   map[string]builtEntry

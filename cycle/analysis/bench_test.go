@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"io"
 	"testing"
+
+	"enthalpath/data"
 )
 
 // BenchmarkScanMgCl: one metal–non-metal scan up to charge 4 (the issue
@@ -93,6 +95,29 @@ func BenchmarkFitRadiusNitrate(b *testing.B) {
 			b.Fatal(err)
 		}
 	}
+}
+
+// BenchmarkFitIon fits O²⁻ over every built-in oxide (volume-based or
+// Kapustinskii per salt; 100 salts with the tables of December 2026,
+// reported as the salts metric) on a warm Analyst: the in-process cost of
+// one ion fit over a family of 30 or more salts.
+func BenchmarkFitIon(b *testing.B) {
+	db, err := data.LoadWithoutDerived()
+	if err != nil {
+		b.Fatal(err)
+	}
+	a := New(db)
+	f, err := a.FitIon("O2-", IonFitOptions{})
+	if err != nil || len(f.Used()) < 30 {
+		b.Fatalf("%v, %d salts", err, len(f.Used()))
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := a.FitIon("O2-", IonFitOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(len(f.Used())), "salts")
 }
 
 // BenchmarkScanGibbsTiCl: a scan over four oxidation states with Gibbs

@@ -63,10 +63,30 @@ type FittedRadius struct {
 
 // Used returns the salts in the fit.
 func (f *FittedRadius) Used() []SaltRadius {
-	var out []SaltRadius
-	for _, s := range f.Salts {
-		if s.Skipped == "" {
-			out = append(out, s)
+	return kept(f.Salts, func(s SaltRadius) string { return s.Skipped })
+}
+
+// noSalts is the error of a fit over a family with no usable salt: none in
+// the data (with only, none with those counter-ions), or salts of which none
+// has what lacking names (the first, and why it was left out, by of).
+func noSalts[T any](ion string, only []string, salts []T, lacking string, of func(T) (formula, skipped string)) *InputError {
+	reason := "no compound of the data contains it"
+	if len(only) > 0 {
+		reason = "no compound of the data pairs it with " + strings.Join(only, ", ")
+	}
+	if len(salts) > 0 {
+		first, why := of(salts[0])
+		reason = fmt.Sprintf("none of its %d %s (first: %s: %s)", len(salts), lacking, first, why)
+	}
+	return &InputError{Subject: ion, Field: "salts", Reason: reason}
+}
+
+// kept returns the items whose skipped reason is empty, in order.
+func kept[T any](items []T, skipped func(T) string) []T {
+	var out []T
+	for _, it := range items {
+		if skipped(it) == "" {
+			out = append(out, it)
 		}
 	}
 	return out
@@ -145,14 +165,7 @@ func (a *Analyst) FitRadius(ion string, opt FitOptions) (*FittedRadius, error) {
 	}
 	used := f.Used()
 	if len(used) == 0 {
-		why := "no compound of the data contains it"
-		if len(only) > 0 {
-			why = "no compound of the data pairs it with " + strings.Join(only, ", ")
-		}
-		if len(f.Salts) > 0 {
-			why = fmt.Sprintf("none of its %d compounds has a usable lattice energy (first: %s: %s)", len(f.Salts), f.Salts[0].Formula, f.Salts[0].Skipped)
-		}
-		return f, &InputError{Subject: in.Symbol, Field: "salts", Reason: why}
+		return f, noSalts(in.Symbol, only, f.Salts, "compounds has a usable lattice energy", func(s SaltRadius) (string, string) { return s.Formula, s.Skipped })
 	}
 	target := in.Charge > 0
 	model := func(s SaltRadius, r float64) float64 {

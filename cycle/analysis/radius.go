@@ -122,6 +122,14 @@ func (a *Analyst) DeriveRadius(formula string, opt RadiusOptions) (*DerivedRadiu
 		}
 	default:
 		h, _, err := cycleLattice(c)
+		for _, f := range c.Fitted {
+			if err == nil && f.Ion == target.Ion.Symbol {
+				// The ion's value came from a lattice model over its salts: a
+				// radius from that cycle would return the model's own input.
+				err = &InputError{Subject: formula, Field: "lattice energy", Reason: "the cycle uses the family-fitted gas-phase value of " + f.Ion +
+					", itself from lattice models (" + f.Model + "): a radius from it would be circular"}
+			}
+		}
 		if err == nil {
 			d.LatticeEnergy = h + c.LatticeCorrection()
 			d.LatticeFrom = fmt.Sprintf("Born–Haber cycle of %s from the data (ΔH_L %.1f kJ/mol converted to U by Jenkins' rule)", c.Formula, h)

@@ -131,7 +131,7 @@ func TestAnalysisUsageErrors(t *testing.T) {
 		{"radius", []string{"--ion", "NO3-", "--all-salts", "--counter-radii", "K+=1.33,Na+"}, "column 9"},
 		{"radius", []string{"--ion", "NO3-", "--all-salts", "--counter-radii", "K+=-1"}, "positive"},
 		{"radius", []string{"--ion", "NO3-", "--all-salts", "--only", "Kx+"}, "Kx+"},
-		{"radius", []string{"--ion", "ClO4-", "--all-salts"}, "gaseous ClO4-"},
+		{"radius", []string{"--ion", "ClO4-", "--all-salts"}, "circular"},
 		{"radius", []string{"KNO3", "--ion", "NO3-", "--only", "K+"}, "go with --all-salts"},
 		{"batch", []string{"/nonexistent/file.csv"}, "file.csv"},
 		{"estimate", []string{"MgCl", "--bogus"}, "bogus"},

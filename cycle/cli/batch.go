@@ -94,8 +94,10 @@ func (c *countingReader) Read(p []byte) (int, error) {
 	return n, err
 }
 
-// progressBar draws a bar on stderr once the batch has run for more than a
+// progressBar draws a bar on stderr once the work has run for more than a
 // second, and only when stderr is a terminal; otherwise it does nothing.
+// It shows the share of the input file read and the rows done, or, when
+// status is set, the share and text status gives.
 type progressBar struct {
 	w       io.Writer
 	on      bool
@@ -105,6 +107,7 @@ type progressBar struct {
 	read    *countingReader
 	rows    int
 	visible bool
+	status  func() (share float64, text string)
 }
 
 func newProgressBar(w io.Writer, size int64, read *countingReader) *progressBar {
@@ -117,7 +120,15 @@ func newProgressBar(w io.Writer, size int64, read *countingReader) *progressBar 
 
 func (b *progressBar) update(rows int) {
 	b.rows = rows
-	if !b.on || rows%64 != 0 {
+	if rows%64 == 0 {
+		b.tick()
+	}
+}
+
+// tick draws the bar if it is on, has run a second and was not drawn in
+// the last tenth of a second.
+func (b *progressBar) tick() {
+	if !b.on {
 		return
 	}
 	now := time.Now()
@@ -130,7 +141,11 @@ func (b *progressBar) update(rows int) {
 
 func (b *progressBar) draw() {
 	const width = 30
-	if b.size > 0 {
+	if b.status != nil {
+		share, text := b.status()
+		n := int(min(max(share, 0), 1) * width)
+		fmt.Fprintf(b.w, "\r[%s%s] %3.0f %%  %s", strings.Repeat("#", n), strings.Repeat(".", width-n), 100*min(max(share, 0), 1), text)
+	} else if b.size > 0 {
 		frac := float64(b.read.n) / float64(b.size)
 		frac = min(max(frac, 0), 1)
 		n := int(frac * width)

@@ -1,5 +1,5 @@
 // Package cli runs enthalpath's non-interactive subcommands (madelung, data,
-// cycle, compare, estimate, scan, solution, radius, batch, orderings) and prints their
+// cycle, compare, estimate, scan, solution, radius, ionfit, batch, orderings) and prints their
 // results as text, JSON or CSV. main hands it every subcommand except the
 // interactive ones (the TUI and serve), so this package never imports tui.
 package cli
@@ -58,6 +58,7 @@ func commands() []command {
 		{"stability", "decompositions with ΔrG(T), verdicts beyond 2σ, temperatures of gas loss", runStability},
 		{"solution", "enthalpy of solution cycle", runSolution},
 		{"radius", "thermochemical radius derived from a cycle lattice energy", runRadius},
+		{"ionfit", "gas-phase enthalpy of an ion fitted over its salts (SO4^2-, O2-, ...)", runIonfit},
 		{"batch", "solve many formulas from a CSV file", runBatch},
 		{"orderings", "rank orderings of ions and vacancies on mixed sites by Ewald energy", runOrderings},
 	}

@@ -27,6 +27,9 @@ type CompareRow struct {
 	// convention (NaN when absent).
 	Handbook float64
 	Models   []cycle.ModelResult
+	// Circular lists the fitted ion values fitted to this very salt: its
+	// verdicts are withheld.
+	Circular []cycle.Circularity
 	// Err is why the cycle could not be solved (the row has no numbers).
 	Err error
 }
@@ -63,7 +66,7 @@ func compareRows(db *data.DB, formulas []string, mf *modelFlags, set map[string]
 			rows = append(rows, row)
 			continue
 		}
-		row.Lattice, row.Uncertainty, row.Models = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models
+		row.Lattice, row.Uncertainty, row.Models, row.Circular = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models, r.Circular
 		if r.Handbook != nil {
 			row.Handbook = r.Handbook.Value
 		}
@@ -159,7 +162,7 @@ func writeCompareText(w io.Writer, rows []CompareRow, u thermoUnit, conv string)
 		for _, name := range cycle.ModelNames() {
 			cells = append(cells, modelCell(r.Models, name))
 		}
-		cells = append(cells, headlineVerdict(r.Models))
+		cells = append(cells, headlineVerdict(r))
 		t.add(cells...)
 	}
 	fmt.Fprintf(w, "cycle lattice step (%s, %s) against the ionic models: each model column is the gap cycle − model in percent of |model|\n\n", conv, u)
@@ -187,11 +190,11 @@ func modelCell(ms []cycle.ModelResult, name string) string {
 
 // headlineVerdict is the verdict of the structure-specific model, or of
 // Born–Mayer when there is no structure.
-func headlineVerdict(ms []cycle.ModelResult) string {
+func headlineVerdict(r CompareRow) string {
 	for _, name := range []string{cycle.ModelEwald, cycle.ModelBornMayer, cycle.ModelKapustinskii} {
-		for _, m := range ms {
+		for _, m := range r.Models {
 			if m.Model == name && m.Err == nil {
-				return m.Verdict.Character.String() + " (" + name + ")"
+				return rowVerdict(r, m) + " (" + name + ")"
 			}
 		}
 	}
@@ -228,7 +231,7 @@ func writeCompareCSV(w io.Writer, rows []CompareRow, conv string) error {
 				rec = append(rec, "", "", "", "")
 				continue
 			}
-			rec = append(rec, num(m.Value), num(m.Gap), num(m.GapPercent), m.Verdict.Character.String())
+			rec = append(rec, num(m.Value), num(m.Gap), num(m.GapPercent), rowVerdict(r, *m))
 		}
 		status, reason := compareStatus(r.Err)
 		rec = append(rec, status, reason)
@@ -282,11 +285,16 @@ func writeCompareJSON(w io.Writer, rows []CompareRow, conv string) error {
 				mj.Error = m.Err.Error()
 				mj.KJPerMol, mj.EnergyKJ = jsonNumber(math.NaN()), jsonNumber(math.NaN())
 			} else {
-				mj.Verdict = m.Verdict.Character.String()
+				mj.Verdict = rowVerdict(r, m)
 			}
 			j.Models = append(j.Models, mj)
 		}
 		out.Compounds = append(out.Compounds, j)
 	}
 	return writeJSON(w, out)
+}
+
+// rowVerdict is a model's verdict for a row, or why none is given.
+func rowVerdict(r CompareRow, m cycle.ModelResult) string {
+	return verdictText(&cycle.Result{Circular: r.Circular}, m)
 }

@@ -16,7 +16,7 @@ import (
 )
 
 const cycleSynopsis = `cycle FORMULA [--solve KEY] [--set KEY=VALUE[±UNC]]... [--lattice-from MODEL]
-                  [--structure NAME|FILE.cif] [--units kj|kcal|ev] [--save FILE] [--json]
+                  [--structure NAME|FILE.cif] [--units kj|kcal|ev] [--anion-value fitted|textbook] [--save FILE] [--json]
        enthalpath cycle --open FILE [flags]`
 
 // modelFlags are the settings shared by cycle and compare.
@@ -188,8 +188,10 @@ func runCycle(env Env, args []string) error {
 	var mf modelFlags
 	mf.register(fs)
 	var solve, sets listFlag
-	var latticeFrom, save, open, cation, anion, note string
+	var latticeFrom, save, open, cation, anion, note, anionValue string
 	var asJSON bool
+	fs.StringVar(&anionValue, "anion-value", string(cycle.AnionFitted), "value of a multiply charged anion such as O2- or S2-: `CHOICE` "+
+		strings.Join(cycle.AnionValueNames(), " or ")+" (fitted: the gas-phase value fitted over the family of salts; textbook: the cycle-derived second electron affinity of the data)")
 	fs.Var(&solve, "solve", "the step `KEY` to solve for (default lattice); repeat to see the error for two unknowns")
 	fs.Var(&sets, "set", "give step KEY a value: `KEY=VALUE[±UNC]` (±, +- accepted; optional unit suffix kj, kcal, ev); repeatable")
 	fs.StringVar(&latticeFrom, "lattice-from", "", "fill the lattice step from a model ("+strings.Join(cycle.ModelNames(), ", ")+") and solve another step")
@@ -242,7 +244,11 @@ func runCycle(env Env, args []string) error {
 		if err != nil {
 			return err
 		}
-		if c, err = cycle.Build(db, pos[0], cycle.Options{Cation: cation, Anion: anion, Conventions: conv}); err != nil {
+		av, err := cycle.ParseAnionValue(anionValue)
+		if err != nil {
+			return Usagef("--anion-value: %v", err)
+		}
+		if c, err = cycle.Build(db, pos[0], cycle.Options{Cation: cation, Anion: anion, Conventions: conv, AnionValue: av}); err != nil {
 			return &UsageError{err}
 		}
 		set["lattice-as"], set["ionization-at"] = false, false
@@ -315,10 +321,14 @@ func runCycle(env Env, args []string) error {
 	if err != nil {
 		return &UsageError{err}
 	}
+	eff := cycle.AnionValueChoice(db, c, r)
 	if asJSON {
-		return writeJSON(env.Stdout, cycleJSONOf(c, r))
+		j := cycleJSONOf(c, r)
+		j.AnionValue = anionValueJSONOf(c, eff)
+		return writeJSON(env.Stdout, j)
 	}
 	printCycle(env.Stdout, c, r)
+	printAnionValue(env.Stdout, c, eff)
 	if save != "" {
 		fmt.Fprintf(env.Stdout, "\nsaved to %s\n", save)
 	}
@@ -406,7 +416,7 @@ func printCycle(w io.Writer, c *cycle.Cycle, r *cycle.Result) {
 			mt.add(m.Model, "—", "—", "—", "not available")
 			continue
 		}
-		mt.add(m.Model, energy(m.Value, u), energy(m.Gap, u), percent(m.GapPercent), m.Verdict.Character.String())
+		mt.add(m.Model, energy(m.Value, u), energy(m.Gap, u), percent(m.GapPercent), verdictText(r, m))
 	}
 	mt.write(w, "  ")
 	fmt.Fprintf(w, "  verdict %s\n", cycle.VerdictThresholds())
@@ -471,23 +481,24 @@ func inputsText(m cycle.ModelResult) string {
 type cycleJSON struct {
 	Formula string `json:"formula"` // the compound, the key every command uses
 	// Deprecated: the same as formula, kept for scripts that read it.
-	Compound             string        `json:"compound"`
-	Name                 string        `json:"name,omitempty"`
-	Family               string        `json:"family,omitempty"`
-	Tabulated            bool          `json:"tabulated"`
-	Cation               string        `json:"cation"`
-	Anion                string        `json:"anion"`
-	Convention           string        `json:"convention"`
-	IonizationConvention string        `json:"ionization_convention"`
-	Steps                []stepJSON    `json:"steps"`
-	Solved               solvedJSON    `json:"solved"`
-	Lattice              latticeJSON   `json:"lattice"`
-	Handbook             *handbookJSON `json:"handbook,omitempty"`
-	Models               []modelJSON   `json:"models"`
-	VerdictThresholds    string        `json:"verdict_thresholds"`
-	Notes                []string      `json:"notes"`
-	Warnings             []string      `json:"warnings"`
-	Settings             settingsJSON  `json:"settings"`
+	Compound             string          `json:"compound"`
+	Name                 string          `json:"name,omitempty"`
+	Family               string          `json:"family,omitempty"`
+	Tabulated            bool            `json:"tabulated"`
+	Cation               string          `json:"cation"`
+	Anion                string          `json:"anion"`
+	Convention           string          `json:"convention"`
+	IonizationConvention string          `json:"ionization_convention"`
+	Steps                []stepJSON      `json:"steps"`
+	Solved               solvedJSON      `json:"solved"`
+	Lattice              latticeJSON     `json:"lattice"`
+	Handbook             *handbookJSON   `json:"handbook,omitempty"`
+	Models               []modelJSON     `json:"models"`
+	VerdictThresholds    string          `json:"verdict_thresholds"`
+	Notes                []string        `json:"notes"`
+	Warnings             []string        `json:"warnings"`
+	AnionValue           *anionValueJSON `json:"anion_value,omitempty"`
+	Settings             settingsJSON    `json:"settings"`
 }
 
 type stepJSON struct {
@@ -598,7 +609,7 @@ func cycleJSONOf(c *cycle.Cycle, r *cycle.Result) cycleJSON {
 			mj.KJPerMol, mj.EnergyKJ = jsonNumber(math.NaN()), jsonNumber(math.NaN())
 		} else {
 			in := m.Inputs
-			mj.Verdict = m.Verdict.Character.String()
+			mj.Verdict = verdictText(r, m)
 			mj.Madelung, mj.MadelungFrom, mj.D0, mj.D0From = jsonNumber(in.Madelung), in.MadelungFrom, jsonNumber(in.D0), in.D0From
 			mj.BornExponent, mj.Rho = jsonNumber(in.BornExponent), jsonNumber(in.Rho)
 			mj.CationRadius, mj.AnionRadius, mj.MolarVolume = jsonNumber(in.CationRadius), jsonNumber(in.AnionRadius), jsonNumber(in.MolarVolume)
@@ -606,4 +617,66 @@ func cycleJSONOf(c *cycle.Cycle, r *cycle.Result) cycleJSON {
 		j.Models = append(j.Models, mj)
 	}
 	return j
+}
+
+// verdictText is a model's verdict in words, or why none is given.
+func verdictText(r *cycle.Result, m cycle.ModelResult) string {
+	if len(r.Circular) > 0 {
+		return "not judged: " + r.Circular[0].Ion + " was fitted to this salt"
+	}
+	return m.Verdict.Character.String()
+}
+
+type anionValueJSON struct {
+	InForce      string      `json:"in_force"`
+	Other        string      `json:"other"`
+	Step         string      `json:"step"`
+	InForceKJ    jsonNumber  `json:"in_force_kj_per_mol"`
+	OtherKJ      jsonNumber  `json:"other_kj_per_mol"`
+	Solved       string      `json:"solved"`
+	ShiftKJ      jsonNumber  `json:"solved_shift_with_other_kj_per_mol"`
+	FittedValue  *jsonNumber `json:"fitted_gas_formation_kj_per_mol,omitempty"`
+	FittedSE     *jsonNumber `json:"fitted_standard_error_kj_per_mol,omitempty"`
+	FittedSource string      `json:"fitted_lattice_source,omitempty"`
+}
+
+func anionValueJSONOf(c *cycle.Cycle, e *cycle.AnionValueEffect) *anionValueJSON {
+	if e == nil {
+		return nil
+	}
+	j := &anionValueJSON{InForce: string(e.InForce), Other: string(e.Other), Step: e.Step, InForceKJ: jsonNum(e.InForceValue),
+		OtherKJ: jsonNum(e.OtherValue), Solved: e.Solved, ShiftKJ: jsonNum(e.Shift)}
+	for _, f := range c.Fitted {
+		if f.Ion == c.Anion.Ion.Symbol {
+			v, u := jsonNum(f.GasFormation.V), jsonNum(f.GasFormation.U)
+			j.FittedValue, j.FittedSE, j.FittedSource = &v, &u, f.Model
+		}
+	}
+	return j
+}
+
+// printAnionValue says which value of a multiply charged anion is in force
+// and how much the other would move the solved step.
+func printAnionValue(w io.Writer, c *cycle.Cycle, e *cycle.AnionValueEffect) {
+	if e == nil {
+		return
+	}
+	u := c.Settings.Units
+	ion := cycle.IonText(c.Anion.Ion)
+	what := "the textbook value (the data's cycle-derived second electron affinity)"
+	if e.InForce == cycle.AnionFitted {
+		what = "the value fitted over its family of salts"
+		for _, f := range c.Fitted {
+			if f.Ion == c.Anion.Ion.Symbol {
+				what += fmt.Sprintf(" (ΔfH° = %s kJ/mol, %s, %d salts)", plusMinus(f.GasFormation.V, f.GasFormation.U), f.Model, len(f.Salts))
+			}
+		}
+	}
+	fmt.Fprintf(w, "\n%s\n", wrapText(fmt.Sprintf("%s(g): %s is in force: %s = %s %s.", ion, what, e.Step, energy(e.InForceValue, u), u), 100, "  "))
+	if e.Solved == e.Step {
+		fmt.Fprintf(w, "  the %s value would be %s = %s %s; here that step is the one solved.\n", e.Other, e.Step, energy(e.OtherValue, u), u)
+		return
+	}
+	fmt.Fprintf(w, "  with the %s value (%s = %s %s; --anion-value %s) %s would move by %s %s.\n",
+		e.Other, e.Step, energy(e.OtherValue, u), u, e.Other, e.Solved, energy(e.Shift, u), u)
 }

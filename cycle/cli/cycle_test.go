@@ -92,7 +92,7 @@ func TestCycleCommandLine(t *testing.T) {
 	}{
 		{[]string{"NaCl", "--set", "formation=-411", "--solve", "lattice", "--solve", "formation"}, "2 unknowns"},
 		{[]string{"NaCl", "--solve", "ionisation-1"}, "ionization-1"},
-		{[]string{"Li3N"}, "--set attachment-1=VALUE"},
+		{[]string{"NaHg", "--cation", "Na+", "--anion", "Hg-"}, "--set attachment-1=VALUE"}, // Hg has no electron affinity in the data
 		{[]string{"NaCl", "--set", "lattice"}, "missing '='"},
 		{[]string{"NaCl", "--lattice-from", "quantum"}, "born-lande"},
 		{[]string{"NaCl", "--lattice-from", "ewald", "--solve", "lattice"}, "contradict"},

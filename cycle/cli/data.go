@@ -285,6 +285,7 @@ func dataPrint(w io.Writer, db *data.DB, rec any) {
 		dataPrintElement(w, db, r, &cite)
 	case data.Ion:
 		dataPrintIon(w, r, &cite)
+		dataPrintDerivedIon(w, db, r, &cite)
 	case data.Compound:
 		dataPrintCompound(w, db, r, &cite)
 	}
@@ -675,6 +676,7 @@ func dataJSON(db *data.DB, rec any) any {
 			"thermochemical_radius":      dataValueOf(db, r.ThermochemicalRadius),
 			"gas_formation":              dataValueOf(db, r.GasFormation),
 			"gas_formation_alternatives": dataAltsOf(db, r.GasFormation, r.GasFormationAlternatives),
+			"fitted_gas_formation":       derivedIonJSONOf(db, r.Symbol),
 			"hydration":                  hyd,
 			"note":                       r.Note,
 		}
@@ -706,4 +708,38 @@ func dataJSON(db *data.DB, rec any) any {
 		}
 	}
 	return nil
+}
+
+// dataPrintDerivedIon shows the ion's family-fitted gas-phase enthalpy.
+func dataPrintDerivedIon(w io.Writer, db *data.DB, ion data.Ion, cite *dataCitations) {
+	d, ok := db.DerivedIon(ion.Symbol)
+	if !ok {
+		return
+	}
+	fmt.Fprintf(w, "ΔfH°(ion, g, 298.15 K), family fit  %s\n", dataValueText(d.GasFormation))
+	line := fmt.Sprintf("fitted over %d salts (%s): %s", len(d.Salts), d.Model, strings.Join(d.Salts, ", "))
+	if len(d.Outside) > 0 {
+		line += "; outside 2σ: " + strings.Join(d.Outside, ", ")
+	}
+	fmt.Fprintf(w, "  %s\n", wrapText(line, 76, "  "))
+	cite.add(d.GasFormation)
+}
+
+type derivedIonJSON struct {
+	Value   *dataValueJSON `json:"value"`
+	Model   string         `json:"lattice_source"`
+	Salts   []string       `json:"salts"`
+	Outside []string       `json:"outside_2sigma"`
+}
+
+func derivedIonJSONOf(db *data.DB, symbol string) *derivedIonJSON {
+	d, ok := db.DerivedIon(symbol)
+	if !ok {
+		return nil
+	}
+	j := &derivedIonJSON{Value: dataValueOf(db, d.GasFormation), Model: d.Model, Salts: d.Salts, Outside: d.Outside}
+	if j.Outside == nil {
+		j.Outside = []string{}
+	}
+	return j
 }

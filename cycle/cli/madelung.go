@@ -58,25 +58,7 @@ func runMadelung(env Env, args []string) error {
 		fs.Usage()
 		return Usagef("madelung: give exactly one prototype name or CIF file (got %d arguments); see --list", len(pos))
 	}
-	chargeMap, err := parseKeyValues("--charges", charges)
-	if err != nil {
-		return err
-	}
-	paramMap, err := parseKeyValues("--param", params)
-	if err != nil {
-		return err
-	}
-	n, err := parseSupercell(*supercell)
-	if err != nil {
-		return err
-	}
-	job := madelungJob{target: pos[0], params: paramMap, charges: chargeMap, supercell: n}
-	if isCIFPath(pos[0]) {
-		if job.db, err = loadData(env); err != nil {
-			return err
-		}
-	}
-	c, err := job.crystal()
+	job, c, err := loadStructure(env, pos[0], params, charges, *supercell)
 	if err != nil {
 		return err
 	}
@@ -126,6 +108,32 @@ func geometryWarnings(c *crystal.Crystal, r ewald.Result, meanErr error) []strin
 	return append(out, fmt.Sprintf("the nearest cation and anion (site %d %s and site %d %s) are %.3g Å apart, below %g Å, shorter than any real bond "+
 		"(threshold: common practice, no source); the Madelung constant refers to that distance; check the parameters or the file",
 		i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, r.NearestDistance, crystal.ShortestBond))
+}
+
+// loadStructure reads the structure flags that madelung and orderings
+// share (--param, --charges, --supercell) and builds the crystal of target,
+// a prototype name or a CIF file.
+func loadStructure(env Env, target string, params, charges listFlag, supercell string) (madelungJob, *crystal.Crystal, error) {
+	chargeMap, err := parseKeyValues("--charges", charges)
+	if err != nil {
+		return madelungJob{}, nil, err
+	}
+	paramMap, err := parseKeyValues("--param", params)
+	if err != nil {
+		return madelungJob{}, nil, err
+	}
+	n, err := parseSupercell(supercell)
+	if err != nil {
+		return madelungJob{}, nil, err
+	}
+	job := madelungJob{target: target, params: paramMap, charges: chargeMap, supercell: n}
+	if isCIFPath(target) {
+		if job.db, err = loadData(env); err != nil {
+			return job, nil, err
+		}
+	}
+	c, err := job.crystal()
+	return job, c, err
 }
 
 // madelungJob is what the command line asked for.

@@ -10,11 +10,17 @@ import (
 	"enthalpath/thermo"
 )
 
-func runMadelungForTest(t *testing.T, args ...string) (code int, stdout, stderr string) {
+// runForTest runs command with args and empty standard input.
+func runForTest(t *testing.T, command string, args ...string) (code int, stdout, stderr string) {
 	t.Helper()
 	var out, errb bytes.Buffer
-	code = Run(Env{Stdout: &out, Stderr: &errb, Stdin: strings.NewReader("")}, "madelung", args)
+	code = Run(Env{Stdout: &out, Stderr: &errb, Stdin: strings.NewReader("")}, command, args)
 	return code, out.String(), errb.String()
+}
+
+func runMadelungForTest(t *testing.T, args ...string) (code int, stdout, stderr string) {
+	t.Helper()
+	return runForTest(t, "madelung", args...)
 }
 
 func decodeMadelung(t *testing.T, s string) map[string]any {

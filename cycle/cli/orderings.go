@@ -9,9 +9,6 @@ import (
 	"path/filepath"
 	"strconv"
 	"strings"
-	"time"
-
-	"github.com/mattn/go-isatty"
 
 	"enthalpath/thermo/cif"
 	"enthalpath/thermo/ewald"
@@ -23,7 +20,9 @@ const orderingsSynopsis = `orderings NAME|FILE.cif --site SEL=OCCUPANTS [--site 
 Ranks the orderings of ions and vacancies over mixed sites by their Ewald
 (electrostatic) energy, conducting boundary conditions. The structure is a
 built-in prototype (see madelung --list) or a CIF file, repeated by
---supercell; each --site chooses the sites whose label or species is SEL and
+--supercell. A CIF file's partly occupied and shared sites are mixed with
+the occupancies and charges it gives (or that are assigned, as for
+madelung); each --site chooses the sites whose label or species is SEL and
 gives their occupants as SPECIES:CHARGE:FRACTION, comma-separated, with
 "vac:FRACTION" for vacancies; one occupant without a fraction replaces the
 ion. Example, Li/vacancy on the cation sites of rock salt:
@@ -56,9 +55,6 @@ func runOrderings(env Env, args []string) error {
 		fs.Usage()
 		return Usagef("orderings: give exactly one prototype name or CIF file (got %d arguments)", len(pos))
 	}
-	if len(sites) == 0 {
-		return Usagef("orderings: give the mixed sites with --site, e.g. --site M=Li:+1:0.5,vac:0.5")
-	}
 	if *keep < 1 || *sweeps < 1 || *restarts < 1 {
 		return Usagef("--keep, --sweeps and --restarts must be positive")
 	}
@@ -79,29 +75,23 @@ func runOrderings(env Env, args []string) error {
 	if err != nil {
 		return err
 	}
-	chargeMap, err := parseKeyValues("--charges", charges)
+	_, c, err := loadStructure(env, pos[0], params, charges, *supercell)
 	if err != nil {
 		return err
 	}
-	paramMap, err := parseKeyValues("--param", params)
-	if err != nil {
-		return err
-	}
-	n, err := parseSupercell(*supercell)
-	if err != nil {
-		return err
-	}
-	job := madelungJob{target: pos[0], params: paramMap, charges: chargeMap, supercell: n}
-	c, err := job.crystal()
-	if err != nil {
-		return err
+	specs = append(specs, ordering.OccupancySpecs(c, specs)...)
+	if len(specs) == 0 {
+		return Usagef("orderings: %s has no partly occupied or shared site; give the mixed sites with --site, e.g. --site M=Li:+1:0.5,vac:0.5", pos[0])
 	}
 	p, err := ordering.NewProblem(c, specs, ordering.Options{Accuracy: *accuracy})
 	if err != nil {
 		return orderingError(err)
 	}
-	bar := newWorkBar(env.Stderr)
-	out, err := p.Search(ordering.SearchOptions{Keep: *keep, Method: m, Seed: *seed, Sweeps: *sweeps, Restarts: *restarts, Progress: bar.update})
+	bar := newProgressBar(env.Stderr, 0, nil)
+	var done, total float64
+	bar.status = func() (float64, string) { return done / total, fmt.Sprintf("%.3g of %.3g", done, total) }
+	progress := func(d, t float64) { done, total = d, t; bar.tick() }
+	out, err := p.Search(ordering.SearchOptions{Keep: *keep, Method: m, Seed: *seed, Sweeps: *sweeps, Restarts: *restarts, Progress: progress})
 	bar.finish()
 	if err != nil {
 		return orderingError(err)
@@ -329,55 +319,4 @@ func orderingsJSON(p *ordering.Problem, out ordering.Outcome, files []string, se
 		o.Orderings = append(o.Orderings, oj)
 	}
 	return o
-}
-
-// workBar draws the search's progress on stderr once it has run for more
-// than a second, and only when stderr is a terminal.
-type workBar struct {
-	w       io.Writer
-	on      bool
-	start   time.Time
-	last    time.Time
-	visible bool
-	done    float64
-	total   float64
-}
-
-func newWorkBar(w io.Writer) *workBar {
-	b := &workBar{w: w, start: time.Now()}
-	if f, ok := w.(*os.File); ok {
-		b.on = isatty.IsTerminal(f.Fd()) || isatty.IsCygwinTerminal(f.Fd())
-	}
-	return b
-}
-
-func (b *workBar) update(done, total float64) {
-	b.done, b.total = done, total
-	if !b.on {
-		return
-	}
-	now := time.Now()
-	if now.Sub(b.start) < time.Second || now.Sub(b.last) < 100*time.Millisecond {
-		return
-	}
-	b.last = now
-	b.draw()
-}
-
-func (b *workBar) draw() {
-	const width = 30
-	frac := 0.0
-	if b.total > 0 {
-		frac = min(max(b.done/b.total, 0), 1)
-	}
-	n := int(frac * width)
-	fmt.Fprintf(b.w, "\r[%s%s] %3.0f %%  %.3g of %.3g", strings.Repeat("#", n), strings.Repeat(".", width-n), 100*frac, b.done, b.total)
-	b.visible = true
-}
-
-func (b *workBar) finish() {
-	if b.visible {
-		b.draw()
-		fmt.Fprintln(b.w)
-	}
 }

@@ -22,6 +22,7 @@ func TestPlusMinusOneRule(t *testing.T) {
 		{"estimate", "MgCl", "--charges", "Mg=+1,Cl=-1"},
 		{"solution", "NaCl"},
 		{"stability", "CaCO3"},
+		{"ionfit", "SO4^2-"},
 	} {
 		var out, errs strings.Builder
 		if code := Run(Env{Stdout: &out, Stderr: &errs, Stdin: strings.NewReader("")}, args[0], args[1:]); code != ExitOK {

@@ -25,15 +25,7 @@ func runRadiusFit(env Env, a *analysis.Analyst, pos []string, ion, counterRadii,
 			return Usagef("--counter-radii: %v", err)
 		}
 	}
-	var onlyList []string
-	if only != "" {
-		for _, s := range strings.Split(only, ",") {
-			if s = strings.TrimSpace(s); s != "" {
-				onlyList = append(onlyList, s)
-			}
-		}
-	}
-	f, err := a.FitRadius(ion, analysis.FitOptions{CounterRadii: radii, Only: onlyList})
+	f, err := a.FitRadius(ion, analysis.FitOptions{CounterRadii: radii, Only: splitComma(only)})
 	if err != nil {
 		return inputError(err)
 	}

@@ -108,12 +108,7 @@ func PairPotentials(c *crystal.Crystal, rows []int, opt Options) (*Pairs, error)
 // phi[r·N+j] for i = rows[r], over |k| ≤ kc (each ±k pair once, doubled).
 func (s *system) pairReciprocal(alpha, kc float64, rows []int, phi []float64) {
 	n := len(s.q)
-	var b [3]crystal.Vec3
-	var mmax [3]int
-	for k := 0; k < 3; k++ {
-		b[k] = s.recip[k].Scale(2 * math.Pi)
-		mmax[k] = int(math.Floor(kc * s.lat[k].Norm() / (2 * math.Pi)))
-	}
+	b, mmax := s.reciprocalBox(kc)
 	cosK, sinK := make([]float64, n), make([]float64, n)
 	pre := 8 * math.Pi / s.volume
 	inv4a2 := 1 / (4 * alpha * alpha)

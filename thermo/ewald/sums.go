@@ -242,19 +242,23 @@ func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
 	})
 }
 
+// reciprocalBox returns the reciprocal lattice vectors with 2π and the
+// largest |mₖ| of a vector Σ mₖbₖ within kc: |mₖ| = |k·aₖ|/2π ≤ kc·|aₖ|/2π.
+func (s *system) reciprocalBox(kc float64) (b [3]crystal.Vec3, mmax [3]int) {
+	for k := 0; k < 3; k++ {
+		b[k] = s.recip[k].Scale(2 * math.Pi)
+		mmax[k] = int(math.Floor(kc * s.lat[k].Norm() / (2 * math.Pi)))
+	}
+	return b, mmax
+}
+
 // reciprocalSpace adds to phi[i] the reciprocal-space potential
 // (4π/V)·Σ_{k≠0} exp(−k²/4α²)/k²·Re(S(k)·e^{−ik·rᵢ}), S(k) = Σⱼ qⱼe^{ik·rⱼ},
 // over |k| ≤ kc, and returns the number of ±k pairs used. Each e^{ik·r} is
 // built from per-site powers of e^{2πi·fₐ}, by multiplication only.
 func (s *system) reciprocalSpace(alpha, kc float64, phi []float64) int {
 	n := len(s.q)
-	var b [3]crystal.Vec3
-	var mmax [3]int
-	for k := 0; k < 3; k++ {
-		b[k] = s.recip[k].Scale(2 * math.Pi)
-		// |m_k| = |k·a_k|/2π ≤ kc·|a_k|/2π.
-		mmax[k] = int(math.Floor(kc * s.lat[k].Norm() / (2 * math.Pi)))
-	}
+	b, mmax := s.reciprocalBox(kc)
 	// pow[k][(m+M)*n + j] = e^{2πi·m·f_jk} as (re, im).
 	var powRe, powIm [3][]float64
 	for k := 0; k < 3; k++ {

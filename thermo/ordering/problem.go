@@ -289,3 +289,38 @@ func (p *Problem) Crystal(x []uint8) *crystal.Crystal {
 	}
 	return c
 }
+
+// OccupancySpecs returns a SiteSpec for every kind of partly occupied or
+// shared site of c (crystal.Site.Averaged, as a structure file gives
+// them): the sites whose Species (their composition) is the same form one
+// group, with each occupant's element, charge and occupancy, and the
+// vacancy taking what the occupancies leave. Sites matched by a selector
+// in skip are left out (the caller's own specifications come first).
+func OccupancySpecs(c *crystal.Crystal, skip []SiteSpec) []SiteSpec {
+	var out []SiteSpec
+	seen := map[string]bool{}
+	for _, s := range c.Sites {
+		if !s.Averaged() || seen[s.Species] {
+			continue
+		}
+		chosen := false
+		for _, sp := range skip {
+			chosen = chosen || sp.Match == s.Species || sp.Match == s.Label
+		}
+		if chosen {
+			continue
+		}
+		seen[s.Species] = true
+		spec := SiteSpec{Match: s.Species}
+		left := 1.0
+		for _, o := range s.Occupants {
+			spec.Occupants = append(spec.Occupants, Occupant{Species: o.Element, Charge: o.Charge, Fraction: o.Occupancy})
+			left -= o.Occupancy
+		}
+		if left > crystal.OccupancyTolerance {
+			spec.Occupants = append(spec.Occupants, Occupant{Fraction: left})
+		}
+		out = append(out, spec)
+	}
+	return out
+}

@@ -1,6 +1,8 @@
 package analyses
 
 import (
+	"fmt"
+	"slices"
 	"strings"
 	"testing"
 
@@ -195,10 +197,11 @@ func TestRadiusFitRuns(t *testing.T) {
 // ends, and they are offered in the help only when they would move it.
 func TestTallResultScrolls(t *testing.T) {
 	_, m, u := setup(t)
-	m.SetSize(80, 16)
-	drive.Run(u, drive.Key("j"), drive.Key("r")) // the scan: taller than 16 lines
+	const height = 18 // one line per analysis (seven) above the result window
+	m.SetSize(80, height)
+	drive.Run(u, drive.Key("j"), drive.Key("r")) // the scan: taller than the screen
 	first := m.View()
-	if !strings.Contains(first, "lines 1–") || len(strings.Split(first, "\n")) > 16 {
+	if !strings.Contains(first, "lines 1–") || len(strings.Split(first, "\n")) > height {
 		t.Fatalf("no window on a tall result, or taller than the screen:\n%s", first)
 	}
 	helpHas := func(k string) bool {
@@ -288,5 +291,43 @@ func TestRadiusFitDefaultsToTheDataRadii(t *testing.T) {
 	}
 	if v := m.View(); !strings.Contains(v, "counter-ion radii: the data's") {
 		t.Errorf("the view does not say the counter-radii are the data's:\n%s", v)
+	}
+}
+
+// TestIonFitRunsOffTheUpdatePath: the ion fit runs in a command; until its
+// result arrives the screen says it is running, then shows the fitted
+// value with its standard error and the salts outside 2σ.
+func TestIonFitRunsOffTheUpdatePath(t *testing.T) {
+	_, m, u := setup(t)
+	i := slices.IndexFunc(kinds(), func(k kind) bool { return k.name == "ion fit" })
+	for range i {
+		drive.Run(u, drive.Key("j"))
+	}
+	if m.kinds[m.Cursor()].name != "ion fit" {
+		t.Fatalf("cursor on %q", m.kinds[m.Cursor()].name)
+	}
+	cmd := u(drive.Key("r")) // the command is returned, not yet run
+	if cmd == nil || !strings.Contains(m.View(), "running…") {
+		t.Fatalf("no command, or no running state shown:\n%s", m.View())
+	}
+	drive.RunCmd(u, cmd)
+	res, err := m.Result(i)
+	if err != nil {
+		t.Fatal(err)
+	}
+	f := res.(*analysis.IonFit)
+	v := m.View()
+	for _, w := range []string{"ΔfH°(SO4^2-, g)", fmt.Sprintf("over %d of %d salts", len(f.Used()), len(f.Salts)), "lattice enthalpies from"} {
+		if !strings.Contains(v, w) {
+			t.Errorf("ion fit view lacks %q:\n%s", w, v)
+		}
+	}
+	if out := f.Outside(); len(out) > 0 {
+		for range 40 {
+			drive.Run(u, drive.Key("pgdown"))
+		}
+		if v := m.View(); !strings.Contains(v, "outside 2σ: "+strings.Join(out, ", ")) {
+			t.Errorf("the end of the result does not name the salts outside 2σ (%v):\n%s", out, v)
+		}
 	}
 }

@@ -2,6 +2,7 @@ package analyses
 
 import (
 	"fmt"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -130,8 +131,35 @@ func kinds() []kind {
 				return func(a *analysis.Analyst) (any, error) { return a.FitRadius(args[0], opt) }, nil
 			},
 		},
+		ionFitKind(),
 	}
 	at := len(ks)
 	ks = append(ks, stabilityKind(func() kind { return ks[at] }))
 	return ks
+}
+
+// ionFitKind fits an ion's gas-phase enthalpy over its salts.
+func ionFitKind() kind {
+	k := kind{name: "ion fit", what: "gas-phase enthalpy of an ion fitted over every salt of it (weighted least squares)",
+		syntax: "ION [SOURCE] [ionic | COUNTER,...]", example: "SO4^2- auto ionic"}
+	k.prepare = func(args []string) (job, error) {
+		if len(args) < 1 || len(args) > 3 {
+			return nil, usage(k, "give an ion, optionally the lattice source (%s) and counter-ions", strings.Join(analysis.IonFitSources(), ", "))
+		}
+		var opt analysis.IonFitOptions
+		for _, w := range args[1:] {
+			switch {
+			case slices.Contains(analysis.IonFitSources(), strings.ToLower(w)):
+				opt.From = w
+			case strings.EqualFold(w, "ionic"):
+				opt.Ionic = true
+			case strings.ContainsAny(w, "+-"):
+				opt.Only = append(opt.Only, strings.Split(w, ",")...)
+			default:
+				return nil, usage(k, "%q is neither a lattice source (%s), ionic, nor counter-ions (K+,Na+)", w, strings.Join(analysis.IonFitSources(), ", "))
+			}
+		}
+		return func(a *analysis.Analyst) (any, error) { return a.FitIon(args[0], opt) }, nil
+	}
+	return k
 }

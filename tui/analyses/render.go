@@ -23,6 +23,8 @@ func (m *Model) render(r any) []string {
 		return m.radius(r)
 	case *analysis.FittedRadius:
 		return m.radiusFit(r)
+	case *analysis.IonFit:
+		return m.ionFit(r)
 	case *analysis.Stability:
 		return m.stability(r)
 	}
@@ -188,6 +190,40 @@ func (m *Model) radiusFit(f *analysis.FittedRadius) []string {
 			}
 		}
 		lines = append(lines, st.Warn.Render(wrap(fmt.Sprintf("  left out (no lattice energy): %s", strings.Join(names, ", ")), m.w)))
+	}
+	return append(lines, m.notes(f.Notes)...)
+}
+
+func (m *Model) ionFit(f *analysis.IonFit) []string {
+	st := m.ctx.Styles
+	used := f.Used()
+	scatter := "one salt: no scatter"
+	if f.Birge > 0 {
+		scatter = fmt.Sprintf("internal SE %.1f, Birge ratio %.2f", f.InternalSE, f.Birge)
+	}
+	lines := []string{
+		st.Accent.Render(fmt.Sprintf("ΔfH°(%s, g) = %s over %d of %d salts", f.Ion, m.pm(f.Value, f.SE), len(used), len(f.Salts))) + st.Muted.Render("   "+scatter),
+		"lattice enthalpies from: " + f.Models(),
+	}
+	if b := f.Builtin; b != nil {
+		lines = append(lines, fmt.Sprintf("built-in derived value: %s (%s, %d salts)", m.pm(b.GasFormation.V, b.GasFormation.U), b.Model, len(b.Salts)))
+	}
+	lines = append(lines, st.Title.Render(fmt.Sprintf("  %-11s %-8s %16s %22s %10s %6s", "salt", "counter", "ΔH_L", "ΔfH° alone", "residual", "in σ")))
+	for _, s := range used {
+		row := m.row(fmt.Sprintf("  %-11s %-8s %16s %22s %10s %+6.1f", s.Formula, s.Counter, m.ctx.Signed(s.Lattice),
+			m.pm(s.Value, s.Uncertainty), m.ctx.Signed(s.Residual), s.Normalized))
+		if s.Outside {
+			row = st.Warn.Render(row + "  outside 2σ")
+		}
+		lines = append(lines, row)
+	}
+	if out := f.Outside(); len(out) > 0 {
+		lines = append(lines, st.Warn.Render(wrap("  outside 2σ: "+strings.Join(out, ", "), m.w)))
+	}
+	for _, s := range f.Salts {
+		if s.Skipped != "" {
+			lines = append(lines, st.Muted.Render(wrap("  left out: "+s.Formula+": "+s.Skipped, m.w-2)))
+		}
 	}
 	return append(lines, m.notes(f.Notes)...)
 }
