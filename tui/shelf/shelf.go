@@ -59,7 +59,7 @@ func New(ctx *screen.Context) *Model {
 	}
 	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
 	ti.Prompt = "formula or filter › "
-	ti.Placeholder = "filter, or new formula + ctrl+g; empty: q quits, 1–6, ?"
+	ti.Placeholder = "filter (empty: q quits, 1–6 screens)"
 	ti.Focus()
 	m.input = ti
 	var compounds []data.Compound
