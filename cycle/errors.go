@@ -212,8 +212,8 @@ type PrototypeFitError struct {
 	// Species are the prototype's site species; Cations and Anions its
 	// counts of M and X per cell, Want the compound's cations and anions
 	// per formula unit.
-	Species                  []string
-	Cations, Anions          int
+	Species                 []string
+	Cations, Anions         int
 	WantCations, WantAnions int
 }
 
