@@ -70,6 +70,7 @@ type Model struct {
 	prompt        prompt.Slot     // a file name, asked over the screen
 	quitting      bool
 	recovered     string // path of the recovery file written, for the last frame
+	notice        bool   // the status line is the recovery notice of the start
 	kept          string // where the work was kept before an open, said when it is done
 	// lastKept is the recovery file keepWork wrote last and what it holds.
 	lastKept struct {
@@ -161,11 +162,21 @@ func (m *Model) checkRecovery() tea.Cmd {
 		case 1:
 			// The key first and the name last: a long local path cut at
 			// the window's edge is whole in the ctrl+o prompt.
-			return screen.StatusMsg{Text: "A recovery file from an earlier session (ctrl+o opens it): " + m.name(files[0])}
+			return recoveryNoticeMsg{text: "A recovery file from an earlier session (ctrl+o opens it): " + m.name(files[0])}
 		}
-		return screen.StatusMsg{Text: fmt.Sprintf("%d recovery files from earlier sessions (ctrl+o opens the newest): %s",
+		return recoveryNoticeMsg{text: fmt.Sprintf("%d recovery files from earlier sessions (ctrl+o opens the newest): %s",
 			len(files), m.name(files[0]))}
 	}
+}
+
+// recoveryNoticeMsg announces the recovery files found at the start.
+type recoveryNoticeMsg struct{ text string }
+
+// noticeDealtWith reports whether the recovery notice shown no longer
+// applies: a cycle is open (one of the files, or other work chosen), or
+// none of the announced files is there any more.
+func (m *Model) noticeDealtWith() bool {
+	return m.sess.Cycle != nil || len(recoveryFiles(m.opts.RecoveryPath)) == 0
 }
 
 // Update routes a message. A panic anywhere below writes the recovery file
@@ -184,7 +195,12 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 	case ShutdownMsg:
 		return m.shutdown(msg.Reason)
 	case screen.StatusMsg:
-		m.status, m.statusErr = msg.Text, msg.Err
+		m.status, m.statusErr, m.notice = msg.Text, msg.Err, false
+		return nil
+	case recoveryNoticeMsg:
+		if m.sess.Cycle == nil && m.status == "" { // not over work begun meanwhile
+			m.status, m.statusErr, m.notice = msg.text, false, true
+		}
 		return nil
 	case screen.SwitchMsg:
 		return m.switchTo(msg.To)
@@ -303,6 +319,9 @@ func (m *Model) switchTo(id screen.ID) tea.Cmd {
 	m.showHelp = false
 	if m.statusErr && m.opts.Validate() == nil {
 		m.status, m.statusErr = "", false // the error was about the screen left
+	}
+	if m.notice && m.noticeDealtWith() {
+		m.status, m.notice = "", false // the recovery notice is stale
 	}
 	return m.screens[id].Update(screen.ShownMsg{})
 }
