@@ -70,7 +70,7 @@ type Model struct {
 	prompt        prompt.Slot     // a file name, asked over the screen
 	quitting      bool
 	recovered     string // path of the recovery file written, for the last frame
-	notice        bool   // the status line is the recovery notice of the start
+	notice        string // the recovery notice of the start, while shown
 	kept          string // where the work was kept before an open, said when it is done
 	// lastKept is the recovery file keepWork wrote last and what it holds.
 	lastKept struct {
@@ -195,11 +195,11 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 	case ShutdownMsg:
 		return m.shutdown(msg.Reason)
 	case screen.StatusMsg:
-		m.status, m.statusErr, m.notice = msg.Text, msg.Err, false
+		m.status, m.statusErr = msg.Text, msg.Err
 		return nil
 	case recoveryNoticeMsg:
 		if m.sess.Cycle == nil && m.status == "" { // not over work begun meanwhile
-			m.status, m.statusErr, m.notice = msg.text, false, true
+			m.status, m.statusErr, m.notice = msg.text, false, msg.text
 		}
 		return nil
 	case screen.SwitchMsg:
@@ -320,8 +320,8 @@ func (m *Model) switchTo(id screen.ID) tea.Cmd {
 	if m.statusErr && m.opts.Validate() == nil {
 		m.status, m.statusErr = "", false // the error was about the screen left
 	}
-	if m.notice && m.noticeDealtWith() {
-		m.status, m.notice = "", false // the recovery notice is stale
+	if m.notice != "" && m.status == m.notice && m.noticeDealtWith() {
+		m.status, m.notice = "", "" // the recovery notice is stale
 	}
 	return m.screens[id].Update(screen.ShownMsg{})
 }
