@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/help"
@@ -523,6 +524,16 @@ func (m *Model) helpLine() string {
 	line := m.help.ShortHelpView(m.ShortHelp())
 	wide := m.help
 	wide.Width = 0 // unbounded, to see whether it all fits
+	if !m.confirming && !m.prompt.Active() {
+		// Too narrow for every key: the screen's last keys give way, so
+		// the help and quit keys at the end stay (q quit fell off at 80).
+		b, globals := m.ShortHelp(), m.globalShortHelp()
+		screenKeys := b[:len(b)-len(globals)]
+		for len(screenKeys) > 1 && lipgloss.Width(wide.ShortHelpView(append(slices.Clip(screenKeys), globals...))) > m.width {
+			screenKeys = screenKeys[:len(screenKeys)-1]
+		}
+		line = m.help.ShortHelpView(append(slices.Clip(screenKeys), globals...))
+	}
 	if m.confirming && lipgloss.Width(wide.ShortHelpView(m.ShortHelp())) > m.width {
 		// The question's box says what follows each answer; the line
 		// keeps every key with its bare name rather than lose the last.
@@ -540,17 +551,24 @@ func (m *Model) ShortHelp() []key.Binding {
 	if m.confirming {
 		return m.confirmBindings()
 	}
-	b := m.screens[m.active].ShortHelp()
+	b := slices.Clip(m.screens[m.active].ShortHelp())
 	if len(b) == 0 && !m.screens[m.active].Capturing() {
 		b = []key.Binding{m.Keys.GoTo} // a screen with nothing to act on yet
 	}
+	return append(b, m.globalShortHelp()...)
+}
+
+// globalShortHelp is the end of the help line: the keys that open the key
+// list and quit, those that work while the screen is typing.
+func (m *Model) globalShortHelp() []key.Binding {
 	if m.screens[m.active].Capturing() {
+		var b []key.Binding
 		if h, ok := withoutPrintable(m.Keys.Help); ok {
 			b = append(b, h)
 		}
 		return append(b, m.Keys.ForceQuit)
 	}
-	return append(b, m.Keys.Help, m.Keys.Quit)
+	return []key.Binding{m.Keys.Help, m.Keys.Quit}
 }
 
 // FullHelp is the overlay's content: the screen's keys, then the global
