@@ -23,3 +23,17 @@ func TestFooterKeepsQuitAt80x24(t *testing.T) {
 		}
 	}
 }
+
+// TestBenchDrawingKeepsLevelLabelsAt80x24: at 80×24 the Bench's drawing
+// shows every level label of NaCl's cycle whole (they were cut:
+// "Na⁺(g) + ½Cl₂(…").
+func TestBenchDrawingKeepsLevelLabelsAt80x24(t *testing.T) {
+	m, u, _ := newRoot(t, loadDB(t), 80, 24)
+	drive.Run(u, screen.OpenMsg{Formula: "NaCl"})
+	v := m.View()
+	for _, label := range []string{"Na⁺(g) + Cl(g)", "Na⁺(g) + ½Cl₂(g)", "Na⁺(g) + Cl⁻(g)", "Na(g) + ½Cl₂(g)", "Na(s) + ½Cl₂(g)", "NaCl(s)"} {
+		if !strings.Contains(v, "·"+label) {
+			t.Errorf("level label %q not shown whole at 80×24:\n%s", label, v)
+		}
+	}
+}

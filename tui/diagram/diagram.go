@@ -152,9 +152,16 @@ func (d Diagram) Layout(w, h int) Geometry {
 	lo, hi := d.span()
 	axisWidth := axisWidthFor(lo, hi, h)
 	g.AxisWidth = axisWidth
+	// The labels keep their whole width when the arrows can close up for
+	// it (at 80 columns they were cut: "Na⁺(g) + ½Cl₂(…").
+	labelNeed := minLabelWidth
+	for _, l := range d.Levels {
+		labelNeed = max(labelNeed, len([]rune(l.Label))+3)
+	}
+	labelNeed = min(labelNeed, w/2)
 	spacing := maxSpacing
 	if n > 0 {
-		spacing = (w - axisWidth - minLabelWidth - 2) / n
+		spacing = (w - axisWidth - labelNeed - 2) / n
 	}
 	spacing = max(minSpacing, min(maxSpacing, spacing))
 	for i := range n {
