@@ -419,3 +419,34 @@ func TestSolvedLineIsNotCut(t *testing.T) {
 		}
 	}
 }
+
+// TestExportedSVGReadsAsATextbookDiagram: the SVG gives each value with
+// its uncertainty, marks a value the user typed over the data's, and names
+// the steps in words, not keys (½Cl₂ → Cl read "dissociation-anion").
+// NaCl's atomization of Na is 107.32 ± 0.18 kJ/mol (NBS 1982, the data's
+// pinned table); the attachment set here to −355 ± 5 is the user's.
+func TestExportedSVGReadsAsATextbookDiagram(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	if _, err := f.Session.Change(func(c *cycle.Cycle) error { return c.Set("attachment-1", -355, 5) }); err != nil {
+		t.Fatal(err)
+	}
+	drive.RunCmd(u, f.Session.Solve())
+	drive.Run(u, drive.Key("d"), drive.Key("enter"))
+	path := strings.TrimSuffix(strings.TrimPrefix(f.LastStatus(), "Drawing written to "), ".")
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (status %q, exporting %v)", err, f.LastStatus(), m.Exporting())
+	}
+	svg := string(b)
+	for _, want := range []string{"+107.32 ± 0.18", "* −355.0 ± 5.0 (your value)", "* your value, typed over the data's",
+		"first ionization", "dissociation", "(solved)"} {
+		if !strings.Contains(svg, want) {
+			t.Errorf("SVG lacks %q", want)
+		}
+	}
+	for _, key := range []string{">dissociation-anion<", ">attachment-1<", ">atomization-cation<"} {
+		if strings.Contains(svg, key) {
+			t.Errorf("SVG labels a step by its key %s", key)
+		}
+	}
+}

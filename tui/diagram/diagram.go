@@ -28,6 +28,12 @@ type Arrow struct {
 	// Miss marks no step but the amount by which an over-determined cycle
 	// fails to close: drawn dotted between the two ends, its Value worded.
 	Miss bool
+	// Name is the step in words ("first ionization energy of Na") and
+	// Reading its value with the standard uncertainty ("+107.32 ± 0.18"),
+	// for the SVG ("" falls back to Tag and Value); User marks a value the
+	// user typed over the data's.
+	Name, Reading string
+	User          bool
 }
 
 // SolvedMark marks the solved step's value in the text drawing, in the

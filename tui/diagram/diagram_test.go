@@ -26,12 +26,12 @@ func sampleNaCl() Diagram {
 			{"NaCl(s)", -411},
 		},
 		Arrows: []Arrow{
-			{0, 1, "sub", "+107", false, false},
-			{1, 2, "IE1", "+496", false, false},
-			{2, 3, "diss", "+121", false, false},
-			{3, 4, "att", "−349", false, false},
-			{4, 5, "lattice", "−786", true, false},
-			{0, 5, "formation", "−411", false, false},
+			{0, 1, "sub", "+107", false, false, "", "", false},
+			{1, 2, "IE1", "+496", false, false, "", "", false},
+			{2, 3, "diss", "+121", false, false, "", "", false},
+			{3, 4, "att", "−349", false, false, "", "", false},
+			{4, 5, "lattice", "−786", true, false, "", "", false},
+			{0, 5, "formation", "−411", false, false, "", "", false},
 		},
 	}
 }
@@ -136,7 +136,7 @@ func TestNiceStep(t *testing.T) {
 
 func TestWideTickLabelsAreWhole(t *testing.T) {
 	d := Diagram{Levels: []Level{{"a", 0}, {"b", 12000}, {"c", -1700}},
-		Arrows: []Arrow{{0, 1, "up", "+12000", false, false}, {1, 2, "down", "−13700", true, false}}}
+		Arrows: []Arrow{{0, 1, "up", "+12000", false, false, "", "", false}, {1, 2, "down", "−13700", true, false, "", "", false}}}
 	out := d.Render(80, 20, Styles{})
 	if !strings.Contains(out, "+10000 ┤") {
 		t.Errorf("tick +10000 cut:\n%s", out)
