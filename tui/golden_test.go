@@ -43,6 +43,10 @@ func TestGolden(t *testing.T) {
 		{name: "assembly-KCl", initial: "KCl", keys: []string{"a", "wait:Assembling", "y", "y", "y"}, waitFor: "step 4 of"},
 		{name: "models-MgO", initial: "MgO", keys: []string{"4"}, waitFor: "Ewald Madelung"},
 		{name: "survey", keys: []string{"tab", "tab", "tab", "tab"}, waitFor: "sorted by"},
+		// The chart of model against cycle: round ticks, axes that reach
+		// every point; l puts both on a log scale for the crowded end.
+		{name: "survey-chart", keys: []string{"tab", "tab", "tab", "tab", "wait:sorted by", "p"}, waitFor: "against the cycle"},
+		{name: "survey-chart-log", keys: []string{"tab", "tab", "tab", "tab", "wait:sorted by", "p", "wait:against the cycle", "l"}, waitFor: "log scale"},
 		{name: "help-bench", initial: "NaCl", keys: []string{"?"}, waitFor: "Keys on the Bench"},
 		// The scan's own result line: "disproportionations" is in the
 		// static description too, so waiting for it could snapshot the

@@ -34,9 +34,19 @@ func TestQuestionMarkIsOnlyTheHelpKey(t *testing.T) {
 	if !strings.Contains(v, diagram.SolvedMark+" solved: lattice") {
 		t.Fatalf("NaCl not solved on the Bench:\n%s", v)
 	}
-	for _, line := range strings.Split(v, "\n") {
-		if strings.Contains(line, "?") && !strings.Contains(line, "?/f1") && !strings.Contains(line, "? or f1") {
-			t.Errorf("a \"?\" outside the key help: %q", line)
+	noQuestionMark := func(where, v string) {
+		for _, line := range strings.Split(v, "\n") {
+			if strings.Contains(line, "?") && !strings.Contains(line, "?/f1") && !strings.Contains(line, "? or f1") {
+				t.Errorf("%s: a \"?\" outside the key help: %q", where, line)
+			}
 		}
 	}
+	noQuestionMark("bench", v)
+	keys(u, "5")
+	drive.RunCmd(u, m.Screen(screen.Survey).Update(screen.ShownMsg{}))
+	keys(u, "p")
+	if v := m.View(); !strings.Contains(v, "against the cycle") {
+		t.Fatalf("no survey chart:\n%s", v)
+	}
+	noQuestionMark("survey chart", m.View())
 }
