@@ -174,7 +174,7 @@ func ChargeText(f Formula) string {
 
 // GCD returns the greatest common divisor of a and b, never negative;
 // GCD(0, 0) is 0.
-func GCD(a, b int) int {
+func GCD[T ~int | ~int64](a, b T) T {
 	for b != 0 {
 		a, b = b, a%b
 	}
