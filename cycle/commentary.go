@@ -63,7 +63,7 @@ func (c *Cycle) commentary(r *Result) (notes, warnings []string) {
 		if s.Source.Key == data.FamilyFitSource {
 			notes = append(notes, fmt.Sprintf("%s: %s; its standard error is part of the cycle's uncertainty", s.Key, s.Source.Note))
 		} else if s.Source.Derived {
-			warnings = append(warnings, fmt.Sprintf("%s is derived in the data (%s) from other values, for O²⁻ and S²⁻ from a cycle, not measured; replace it with --set %s=VALUE if you have a better value",
+			warnings = append(warnings, fmt.Sprintf("%s is derived in the data (%s) from other values, for O²⁻ and S²⁻ from a cycle, not measured; give step %s a value of your own if you have a better one",
 				s.Key, s.Source.Key, s.Key))
 		}
 		if s.Source.DefaultUncertainty {

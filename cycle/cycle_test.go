@@ -397,12 +397,14 @@ func TestCompositeAtomization(t *testing.T) {
 	}
 }
 
-// Every failure mode has its own typed error naming what to do.
+// Every failure mode has its own typed error naming what to do, in the
+// engine's words (each front end names its own flag or key: cycle/cli's
+// TestEngineErrorsWordedForTheCommandLine).
 func TestErrors(t *testing.T) {
 	db := loadDB(t)
 	c := build(t, "NaCl", Options{})
 	c.Steps[5].Unknown = false // lattice
-	if _, err := Solve(c); !errors.Is(err, ErrNothingToSolve) || !strings.Contains(err.Error(), "--solve") {
+	if _, err := Solve(c); !errors.Is(err, ErrNothingToSolve) || !strings.Contains(err.Error(), "mark one step unknown") {
 		t.Errorf("zero unknowns: %v", err)
 	}
 	c = build(t, "NaCl", Options{})
@@ -420,7 +422,7 @@ func TestErrors(t *testing.T) {
 	}
 	_, err = Solve(c)
 	var me *MissingError
-	if !errors.As(err, &me) || me.Key != "attachment-1-3" || !strings.Contains(err.Error(), "--set attachment-1-3=VALUE") {
+	if !errors.As(err, &me) || me.Key != "attachment-1-3" || !strings.Contains(err.Error(), "give step attachment-1-3 a value") {
 		t.Errorf("missing datum: %v", err)
 	}
 	if _, err := Build(db, "NaCl", Options{Cation: "Mg2+", Anion: "Cl-"}); !errors.Is(err, ErrChargeBalance) {

@@ -40,9 +40,9 @@ type UnknownsError struct {
 
 func (e *UnknownsError) Error() string {
 	if len(e.Keys) == 0 {
-		return "nothing to solve: mark one step unknown with --solve KEY (usually --solve lattice)"
+		return "nothing to solve: mark one step unknown (usually lattice)"
 	}
-	return fmt.Sprintf("%d unknowns (%s): exactly one step can be solved; give a value to all but one with --set KEY=VALUE",
+	return fmt.Sprintf("%d unknowns (%s): exactly one step can be solved; give a value to all but one",
 		len(e.Keys), strings.Join(e.Keys, ", "))
 }
 
@@ -61,8 +61,8 @@ type MissingError struct {
 }
 
 func (e *MissingError) Error() string {
-	return fmt.Sprintf("no %s in the data; give it with --set %s=VALUE (kJ/mol per reaction as written) or solve for it with --solve %s",
-		e.What, e.Key, e.Key)
+	return fmt.Sprintf("no %s in the data; give step %s a value (kJ/mol per reaction as written) or solve for it",
+		e.What, e.Key)
 }
 
 func (e *MissingError) Unwrap() error { return ErrMissingDatum }
@@ -127,11 +127,48 @@ func (e *CompoundError) Unwrap() []error {
 type ModelError struct {
 	Model  string
 	Reason string
+	// Remedy is the setting that would let the model run, for a front
+	// end to name its own way of giving it (RemedyNone: none).
+	Remedy Remedy
 	Err    error
+}
+
+// Remedy is a setting the user can give so that a model runs.
+type Remedy int
+
+const (
+	RemedyNone Remedy = iota
+	// RemedyBornExponent: give the Born exponent n.
+	RemedyBornExponent
+	// RemedyStructure: choose a structure (a prototype or a CIF file).
+	RemedyStructure
+	// RemedyStructureWithCell: choose a structure with cell parameters or
+	// a CIF file.
+	RemedyStructureWithCell
+	// RemedyReadCIF: give the CIF file of the structure again.
+	RemedyReadCIF
+)
+
+// String is the remedy in neutral words, as Error appends it.
+func (r Remedy) String() string {
+	switch r {
+	case RemedyBornExponent:
+		return "give the Born exponent n"
+	case RemedyStructure:
+		return "choose a structure (a prototype or a CIF file)"
+	case RemedyStructureWithCell:
+		return "choose a structure with cell parameters, or a CIF file"
+	case RemedyReadCIF:
+		return "give the CIF file again"
+	}
+	return ""
 }
 
 func (e *ModelError) Error() string {
 	msg := fmt.Sprintf("model %s: %s", e.Model, e.Reason)
+	if e.Remedy != RemedyNone {
+		msg += "; " + e.Remedy.String()
+	}
 	if e.Err != nil {
 		msg += ": " + e.Err.Error()
 	}

@@ -157,7 +157,7 @@ func buildCell(st Structure, cation, anion Part) (*crystal.Crystal, error) {
 		return st.Cell, nil
 	}
 	if st.CIF != "" {
-		return nil, &ModelError{Model: ModelEwald, Reason: "the CIF file " + st.CIF + " has not been read; open it with --structure FILE.cif"}
+		return nil, &ModelError{Model: ModelEwald, Reason: "the CIF file " + st.CIF + " has not been read", Remedy: RemedyReadCIF}
 	}
 	if st.Prototype == "" {
 		return nil, &ModelError{Model: ModelEwald, Reason: "no structure chosen"}

@@ -529,8 +529,7 @@ func (c *Cycle) molarVolume() (float64, string, error) {
 		vm, err := lattice.MolarVolumeFromDensity(c.MolarMass, c.Compound.Density.V)
 		return vm, fmt.Sprintf("molar mass %.3f g/mol / density %g g/cm³ (%s)", c.MolarMass, c.Compound.Density.V, c.Compound.Density.Source), err
 	}
-	return 0, "", &ModelError{Model: ModelVolume, Reason: "no cell parameters and no density for " + c.Formula +
-		"; choose a structure with parameters (--structure) or give a CIF file"}
+	return 0, "", &ModelError{Model: ModelVolume, Reason: "no cell parameters and no density for " + c.Formula, Remedy: RemedyStructureWithCell}
 }
 
 // bornModel evaluates Born–Landé (mayer false) or Born–Mayer (mayer true);
@@ -559,7 +558,7 @@ func (e *evaluator) bornModel(in *ModelInputs, mayer, actual bool) (float64, err
 		n, err = c.bornExponent()
 		if err != nil {
 			return 0, &ModelError{Model: ModelBornLande, Reason: "no Pauling Born exponent for " + c.Cation.Ion.Symbol + " with " +
-				c.Anion.Ion.Symbol + " (cycle --born-n, or the Models screen, takes n as given)", Err: err}
+				c.Anion.Ion.Symbol, Remedy: RemedyBornExponent, Err: err}
 		}
 		in.BornExponentFrom = "mean of Pauling's values over the ions (" + c.Cation.Ion.BornConfig + " ×" + strconv.Itoa(c.Cation.Count) +
 			", " + c.Anion.Ion.BornConfig + " ×" + strconv.Itoa(c.Anion.Count) + ")"
@@ -686,8 +685,7 @@ func (e *evaluator) madelungUncached(in *ModelInputs, actual bool) (MadelungValu
 	guessed := false
 	if st.Empty() {
 		if actual {
-			return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: "no structure for " + c.Formula +
-				"; choose a prototype or a CIF file with --structure"}
+			return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: "no structure for " + c.Formula, Remedy: RemedyStructure}
 		}
 		p, why, err := e.ratioRule()
 		if err != nil {

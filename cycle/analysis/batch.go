@@ -22,7 +22,7 @@ import (
 
 // Batch input columns (a header row names them; order is free; only
 // formula is required). A column "set:KEY" gives step KEY a value
-// ("744±20", kJ/mol per reaction as written), as --set does.
+// ("744±20", kJ/mol per reaction as written), as a step value is given.
 const (
 	ColFormula      = "formula"
 	ColCharges      = "charges"

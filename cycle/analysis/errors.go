@@ -31,17 +31,36 @@ func (e *ChargesError) Error() string {
 func (e *ChargesError) Unwrap() error { return ErrBadCharges }
 
 // InputError reports an analysis input that cannot be used: Subject names
-// it (a formula, an ion, a key) and Field the part at fault.
+// it (a formula, an ion, a key), Field the part at fault (one of the
+// Field… constants where a front end has its own way of giving it) and
+// Key the step or ion that field concerns. The engine's words name no
+// flag and no screen: each front end names its own (cycle/cli, the
+// workshop's analyses screen).
 type InputError struct {
 	Subject, Field, Reason string
+	Key                    string
 	Err                    error
 }
+
+// The fields of an InputError that a front end gives in a way of its own.
+const (
+	FieldCharges     = "charges"        // the ions' charges of a hypothetical compound
+	FieldStepValue   = "value of step"  // a value given to step Key
+	FieldUnknownStep = "unknown step"   // the step Key marked to be solved
+	FieldIon         = "ion"            // the ion Key a fit or a radius is for
+	FieldMaxCharge   = "highest charge" // the highest metal charge a scan tries
+	FieldScale       = "hydration scale"
+	FieldLattice     = "lattice energy" // a lattice energy given by the user
+)
 
 func (e *InputError) Error() string {
 	// An empty subject is said, not printed as nothing before a colon.
 	msg := e.Subject
 	if msg == "" {
 		msg = "(empty)"
+	}
+	if e.Key != "" {
+		msg = e.Key + " " + msg
 	}
 	if e.Field != "" {
 		msg = e.Field + " " + msg

@@ -202,7 +202,7 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 	}
 	for _, s := range opt.Sets {
 		if err := s.Apply(c); err != nil {
-			return nil, nil, &InputError{Subject: formula, Field: "--set " + s.Key, Reason: "cannot be applied", Err: err}
+			return nil, nil, &InputError{Subject: formula, Field: FieldStepValue, Key: s.Key, Reason: "cannot be applied", Err: err}
 		}
 	}
 	var m cycle.ModelResult
@@ -240,7 +240,7 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 		solve = "formation"
 	}
 	if solve == "lattice" {
-		return nil, nil, &InputError{Subject: formula, Field: "--solve lattice", Reason: "an estimate takes the lattice step from a model; solve another step, or use the cycle command"}
+		return nil, nil, &InputError{Subject: formula, Field: FieldUnknownStep, Key: "lattice", Reason: "an estimate takes the lattice step from a model; solve another step, or close the cycle itself"}
 	}
 	s, ok := c.Step(solve)
 	if !ok {
@@ -270,7 +270,7 @@ func (a *Analyst) ionsFromCharges(formula string, ch Charges) (string, string, e
 		case z < 0 && an == "":
 			an = sym
 		default:
-			return "", "", &InputError{Subject: formula, Field: "--charges", Reason: "give one positive and one negative charge (one cation and one anion)"}
+			return "", "", &InputError{Subject: formula, Field: FieldCharges, Reason: "give one positive and one negative charge (one cation and one anion)"}
 		}
 	}
 	first, second := firstTwoSymbols(formula)
@@ -281,11 +281,11 @@ func (a *Analyst) ionsFromCharges(formula string, ch Charges) (string, string, e
 			other, positive = first, true
 		}
 		if _, given := ch[other]; given || other == "" {
-			return "", "", &InputError{Subject: formula, Field: "--charges", Reason: "give one positive and one negative charge"}
+			return "", "", &InputError{Subject: formula, Field: FieldCharges, Reason: "give one positive and one negative charge"}
 		}
 		sym, err := a.dataIon(other, positive)
 		if err != nil {
-			return "", "", &InputError{Subject: formula, Field: "--charges", Reason: "give the charge of " + other + " too", Err: err}
+			return "", "", &InputError{Subject: formula, Field: FieldCharges, Reason: "give the charge of " + other + " too", Err: err}
 		}
 		if positive {
 			cat = sym

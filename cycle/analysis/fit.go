@@ -103,7 +103,7 @@ func kept[T any](items []T, skipped func(T) string) []T {
 func (a *Analyst) FitRadius(ion string, opt FitOptions) (*FittedRadius, error) {
 	in, err := a.db.Ion(ion)
 	if err != nil {
-		return nil, &InputError{Subject: ion, Field: "--ion", Reason: "not an ion of the data", Err: err}
+		return nil, &InputError{Subject: ion, Field: FieldIon, Reason: "not an ion of the data", Err: err}
 	}
 	f := &FittedRadius{Ion: in.Symbol}
 	if r, err := a.ionRadius(in); err == nil && r.Kind != "neighbour" {

@@ -94,7 +94,7 @@ func (a *Analyst) DeriveRadius(formula string, opt RadiusOptions) (*DerivedRadiu
 		case c.Anion.Ion.Symbol:
 			target, other = &c.Anion, &c.Cation
 		default:
-			return nil, &InputError{Subject: formula, Field: "--ion " + opt.Ion,
+			return nil, &InputError{Subject: formula, Field: FieldIon, Key: opt.Ion,
 				Reason: fmt.Sprintf("not an ion of %s; its ions are %s and %s", c.Formula, c.Cation.Ion.Symbol, c.Anion.Ion.Symbol)}
 		}
 	}
@@ -137,7 +137,7 @@ func (a *Analyst) DeriveRadius(formula string, opt RadiusOptions) (*DerivedRadiu
 			d.LatticeEnergy = s.Reference.Value + c.LatticeCorrection()
 			d.LatticeFrom = fmt.Sprintf("handbook lattice value of %s (%s); the cycle could not be closed: %v", c.Formula, s.Reference.Source.Key, err)
 		} else {
-			return nil, &InputError{Subject: formula, Field: "lattice energy", Reason: "the cycle cannot be closed and the data have no handbook value; give U with --lattice VALUE", Err: err}
+			return nil, &InputError{Subject: formula, Field: FieldLattice, Reason: "the cycle cannot be closed and the data have no handbook value; give U", Err: err}
 		}
 	}
 	u := d.LatticeEnergy

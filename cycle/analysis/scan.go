@@ -153,7 +153,7 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 	anion := opt.Anion
 	if anion == "" {
 		if anion, err = a.dataIon(nonmetal, false); err != nil {
-			return nil, &InputError{Subject: nonmetal, Field: "non-metal", Reason: "the data have no anion of it; give one (e.g. --anion " + nonmetal + "-)", Err: err}
+			return nil, &InputError{Subject: nonmetal, Field: "non-metal", Reason: "the data have no anion of it; give one with its charge (e.g. " + nonmetal + "-)", Err: err}
 		}
 	}
 	an, err := a.db.Ion(anion)
@@ -170,7 +170,7 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 	maxZ := len(el.Ionization)
 	if opt.MaxCharge > 0 {
 		if opt.MaxCharge > maxZ {
-			return nil, &InputError{Subject: metal, Field: "--max-charge", Reason: fmt.Sprintf("the data have %d ionization energies of %s, so the charge cannot exceed %d", maxZ, metal, maxZ)}
+			return nil, &InputError{Subject: metal, Field: FieldMaxCharge, Reason: fmt.Sprintf("the data have %d ionization energies of %s, so the charge cannot exceed %d", maxZ, metal, maxZ)}
 		}
 		maxZ = opt.MaxCharge
 	} else if maxZ > DefaultMaxCharge {

@@ -105,7 +105,7 @@ func (a *Analyst) Solution(formula string, opt SolutionOptions) (*SolutionCycle,
 		scale = ScaleConventional
 	}
 	if scale != ScaleConventional && scale != ScaleAbsolute {
-		return nil, &InputError{Subject: formula, Field: "--scale", Reason: fmt.Sprintf("unknown hydration scale %q: use %s or %s", scale, ScaleConventional, ScaleAbsolute)}
+		return nil, &InputError{Subject: formula, Field: FieldScale, Reason: fmt.Sprintf("unknown hydration scale %q: use %s or %s", scale, ScaleConventional, ScaleAbsolute)}
 	}
 	solve := opt.Solve
 	if solve == "" {
@@ -136,7 +136,7 @@ func (a *Analyst) Solution(formula string, opt SolutionOptions) (*SolutionCycle,
 	}
 	ui, ok := idx[solve]
 	if !ok {
-		return nil, &InputError{Subject: formula, Field: "--solve " + solve, Reason: "not a term of the solution cycle; the terms are " + strings.Join(SolutionKeys(), ", ")}
+		return nil, &InputError{Subject: formula, Field: FieldUnknownStep, Key: solve, Reason: "not a term of the solution cycle; the terms are " + strings.Join(SolutionKeys(), ", ")}
 	}
 	terms[ui].Unknown = true
 	// Measured enthalpy of solution.
@@ -153,13 +153,13 @@ func (a *Analyst) Solution(formula string, opt SolutionOptions) (*SolutionCycle,
 	for _, s := range opt.Sets {
 		i, ok := idx[s.Key]
 		if !ok {
-			return nil, &InputError{Subject: formula, Field: "--set " + s.Key, Reason: "not a term of the solution cycle; the terms are " + strings.Join(SolutionKeys(), ", ")}
+			return nil, &InputError{Subject: formula, Field: FieldStepValue, Key: s.Key, Reason: "not a term of the solution cycle; the terms are " + strings.Join(SolutionKeys(), ", ")}
 		}
 		if i == ui {
-			return nil, &InputError{Subject: formula, Field: "--set " + s.Key, Reason: "is the term being solved; solve another one with --solve"}
+			return nil, &InputError{Subject: formula, Field: FieldStepValue, Key: s.Key, Reason: "is the term being solved; solve for another one"}
 		}
 		if s.Key == KeyLatticeDissociation && !(s.Value > 0) {
-			return nil, &InputError{Subject: formula, Field: "--set " + s.Key,
+			return nil, &InputError{Subject: formula, Field: FieldStepValue, Key: s.Key,
 				Reason: fmt.Sprintf("%g kJ/mol: a lattice dissociation enthalpy is positive (the solid takes up heat to become gaseous ions); the Born–Haber cycle prints the lattice step in the other direction, negative, so give its magnitude", s.Value)}
 		}
 		u := s.Uncertainty
@@ -184,8 +184,8 @@ func (a *Analyst) Solution(formula string, opt SolutionOptions) (*SolutionCycle,
 				why = "the Born–Haber cycle cannot be closed (no " + miss.What + " in the data) and the data have no handbook lattice value"
 				err = nil
 			}
-			return nil, &InputError{Subject: formula, Field: KeyLatticeDissociation,
-				Reason: "no value: " + why + "; give it with --set " + KeyLatticeDissociation + "=VALUE (kJ/mol, positive), or take it from a model with --lattice-from MODEL", Err: err}
+			return nil, &InputError{Subject: formula, Field: FieldStepValue, Key: KeyLatticeDissociation,
+				Reason: "no value: " + why + "; give it a value (kJ/mol, positive), or take it from a model", Err: err}
 		}
 		terms[li].Value, terms[li].Uncertainty, terms[li].Source = v, u, src
 	}
@@ -199,14 +199,14 @@ func (a *Analyst) Solution(formula string, opt SolutionOptions) (*SolutionCycle,
 		}
 		v, err := a.db.HydrationOnScale(side.ion.Symbol, scale)
 		if err != nil {
-			return nil, &InputError{Subject: formula, Field: side.key, Reason: "no " + scale + " hydration enthalpy of " + side.ion.Symbol + " in the data; give it with --set " + side.key + "=VALUE", Err: err}
+			return nil, &InputError{Subject: formula, Field: FieldStepValue, Key: side.key, Reason: "no " + scale + " hydration enthalpy of " + side.ion.Symbol + " in the data; give it a value", Err: err}
 		}
 		e := a.entry(v, defaultHydrationUncertainty)
 		terms[i].Value, terms[i].Uncertainty, terms[i].Source = e.Value, e.Uncertainty, e.Source
 	}
 	if di := idx[KeyDissolution]; di != ui && !known[KeyDissolution] {
 		if measured == nil {
-			return nil, &InputError{Subject: formula, Field: KeyDissolution, Reason: "no measured enthalpy of solution in the data; give it with --set " + KeyDissolution + "=VALUE (kJ/mol)"}
+			return nil, &InputError{Subject: formula, Field: FieldStepValue, Key: KeyDissolution, Reason: "no measured enthalpy of solution in the data; give it a value (kJ/mol)"}
 		}
 		terms[di].Value, terms[di].Uncertainty, terms[di].Source = measured.Value, measured.Uncertainty, measured.Source
 	}

@@ -172,14 +172,14 @@ func TestSolutionErrors(t *testing.T) {
 	cases := []struct {
 		name, formula string
 		opt           SolutionOptions
-		field         string
+		field, key    string
 	}{
-		{"unknown key", "NaCl", SolutionOptions{Solve: "heat"}, "--solve heat"},
-		{"set the unknown", "NaCl", SolutionOptions{Sets: []cycle.Setting{{Key: KeyDissolution, Value: 1}}}, "--set dissolution"},
-		{"bad scale", "NaCl", SolutionOptions{Scale: "relative"}, "--scale"},
-		{"no measured value", "TlBr", SolutionOptions{Solve: KeyHydrationAnion}, KeyDissolution}, // TlBr: no NBS row at infinite dilution, so no solution_enthalpies.csv row
-		{"lattice sign slip", "NaCl", SolutionOptions{Sets: []cycle.Setting{{Key: KeyLatticeDissociation, Value: -787}}}, "--set lattice-dissociation"},
-		{"cycle cannot close", "Na2SO4", SolutionOptions{}, KeyLatticeDissociation},
+		{"unknown key", "NaCl", SolutionOptions{Solve: "heat"}, FieldUnknownStep, "heat"},
+		{"set the unknown", "NaCl", SolutionOptions{Sets: []cycle.Setting{{Key: KeyDissolution, Value: 1}}}, FieldStepValue, "dissolution"},
+		{"bad scale", "NaCl", SolutionOptions{Scale: "relative"}, FieldScale, ""},
+		{"no measured value", "TlBr", SolutionOptions{Solve: KeyHydrationAnion}, FieldStepValue, KeyDissolution}, // TlBr: no NBS row at infinite dilution, so no solution_enthalpies.csv row
+		{"lattice sign slip", "NaCl", SolutionOptions{Sets: []cycle.Setting{{Key: KeyLatticeDissociation, Value: -787}}}, FieldStepValue, "lattice-dissociation"},
+		{"cycle cannot close", "Na2SO4", SolutionOptions{}, FieldStepValue, KeyLatticeDissociation},
 	}
 	measured, err := data.LoadWithoutDerived() // no gas-phase SO₄²⁻ there
 	if err != nil {
@@ -196,8 +196,8 @@ func TestSolutionErrors(t *testing.T) {
 			t.Errorf("%s: got %v, want an *InputError", tc.name, err)
 			continue
 		}
-		if ie.Field != tc.field || !strings.Contains(err.Error(), tc.formula) {
-			t.Errorf("%s: error %q does not name %s and field %s", tc.name, err, tc.formula, tc.field)
+		if ie.Field != tc.field || ie.Key != tc.key || !strings.Contains(err.Error(), tc.formula) {
+			t.Errorf("%s: error %q does not name %s and field %s %s", tc.name, err, tc.formula, tc.field, tc.key)
 		}
 		// Every hint must be an option of the solution cycle: --set takes
 		// only its terms, so a cycle step's key (formation, ion-formation-…)

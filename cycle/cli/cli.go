@@ -8,7 +8,6 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"strings"
 )
 
 // Exit codes.
@@ -108,7 +107,7 @@ func Run(env Env, name string, args []string) (code int) {
 		if err == nil {
 			return ExitOK
 		}
-		fmt.Fprintf(env.Stderr, "enthalpath %s: %s\n", name, strings.TrimSpace(err.Error()))
+		fmt.Fprintf(env.Stderr, "enthalpath %s: %s\n", name, commandLineText(err))
 		var ue *UsageError
 		if errors.As(err, &ue) {
 			return ExitUsage

@@ -166,7 +166,7 @@ func writeCompareText(w io.Writer, rows []CompareRow, u thermoUnit, conv string)
 	if len(failed) > 0 {
 		fmt.Fprintf(w, "\n%d compound(s) whose cycle does not close:\n", len(failed))
 		for _, r := range failed {
-			fmt.Fprintf(w, "  %-10s %s\n", notation.ShortInput(r.Formula), wrapText(r.Err.Error(), 100, strings.Repeat(" ", 13)))
+			fmt.Fprintf(w, "  %-10s %s\n", notation.ShortInput(r.Formula), wrapText(commandLineText(r.Err), 100, strings.Repeat(" ", 13)))
 		}
 	}
 }
@@ -269,12 +269,12 @@ func writeCompareJSON(w io.Writer, rows []CompareRow, conv string) error {
 		j := compareJSONRow{Formula: r.Formula, Family: r.Family, Convention: conv, Lattice: jsonNumber(r.Lattice),
 			Uncertainty: jsonNumber(r.Uncertainty), Handbook: jsonNumber(r.Handbook), Models: []modelJSON{}}
 		if r.Err != nil {
-			j.Error = r.Err.Error()
+			j.Error = commandLineText(r.Err)
 		}
 		for _, m := range r.Models {
 			mj := modelJSON{Model: m.Model, KJPerMol: jsonNumber(m.Value), EnergyKJ: jsonNumber(m.Energy), Gap: jsonNumber(m.Gap), GapPercent: jsonNumber(m.GapPercent)}
 			if m.Err != nil {
-				mj.Error = m.Err.Error()
+				mj.Error = commandLineText(m.Err)
 				mj.KJPerMol, mj.EnergyKJ = jsonNumber(math.NaN()), jsonNumber(math.NaN())
 			} else {
 				mj.Verdict = rowVerdict(r, m)

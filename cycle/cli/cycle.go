@@ -424,7 +424,7 @@ func printCycle(w io.Writer, c *cycle.Cycle, r *cycle.Result) {
 	fmt.Fprintln(w, "\nmodel inputs")
 	for _, m := range r.Models {
 		if m.Err != nil {
-			fmt.Fprintf(w, "  %-12s %s\n", m.Model, wrapText(m.Err.Error(), 90, strings.Repeat(" ", 15)))
+			fmt.Fprintf(w, "  %-12s %s\n", m.Model, wrapText(commandLineText(m.Err), 90, strings.Repeat(" ", 15)))
 			continue
 		}
 		fmt.Fprintf(w, "  %-12s %s\n", m.Model, wrapText(inputsText(m), 90, strings.Repeat(" ", 15)))
@@ -612,7 +612,7 @@ func cycleJSONOf(c *cycle.Cycle, r *cycle.Result) cycleJSON {
 	for _, m := range r.Models {
 		mj := modelJSON{Model: m.Model, KJPerMol: jsonNumber(m.Value), EnergyKJ: jsonNumber(m.Energy), Gap: jsonNumber(m.Gap), GapPercent: jsonNumber(m.GapPercent)}
 		if m.Err != nil {
-			mj.Error = m.Err.Error()
+			mj.Error = commandLineText(m.Err)
 			mj.KJPerMol, mj.EnergyKJ = jsonNumber(math.NaN()), jsonNumber(math.NaN())
 		} else {
 			in := m.Inputs

@@ -32,10 +32,10 @@ func Explain(err error) string {
 	return Message(err)
 }
 
-// Message is an engine error phrased for the screen. The engine's model
-// errors name command-line options (--born-n, --structure) as the way out;
-// here the Models screen's rows are named instead, built from the typed
-// error's fields. Other errors are returned as they read.
+// Message is an engine error phrased for the screen. A model error's way
+// out (its Remedy: a structure, a Born exponent) is named as the Models
+// screen's row that gives it; other errors are returned as they read (the
+// engine's words name no flag).
 func Message(err error) string {
 	if err == nil {
 		return ""
@@ -44,7 +44,7 @@ func Message(err error) string {
 	var se *cycle.SettingError
 	switch {
 	case errors.As(err, &me):
-		msg := "model " + me.Model + ": " + screenWording(me.Reason)
+		msg := "model " + me.Model + ": " + me.Reason + remedyOnScreen(me.Remedy)
 		if me.Err != nil {
 			msg += ": " + Message(me.Err)
 		}
@@ -74,14 +74,18 @@ func ValueError(text string, err error) error {
 		text, strings.TrimSuffix(reason, "."), float64(cycle.MaxStepMagnitude))
 }
 
-// screenWording replaces the command-line hints of the engine's model
-// errors by the Models screen, where those settings are made (4 shows it).
-func screenWording(reason string) string {
-	return strings.NewReplacer(
-		" (cycle --born-n, or the Models screen, takes n as given)", "; type n on the Models screen (4)",
-		"; choose a prototype or a CIF file with --structure", "; set the structure on the Models screen (4)",
-		"; choose a structure with parameters (--structure) or give a CIF file",
-		"; set a structure with cell parameters or a CIF file on the Models screen (4)",
-		"; open it with --structure FILE.cif", "; give the CIF file again on the Models screen (4)",
-	).Replace(reason)
+// remedyOnScreen names where on the Models screen (4) a model's missing
+// setting is made.
+func remedyOnScreen(r cycle.Remedy) string {
+	switch r {
+	case cycle.RemedyBornExponent:
+		return "; type n on the Models screen (4)"
+	case cycle.RemedyStructure:
+		return "; set the structure on the Models screen (4)"
+	case cycle.RemedyStructureWithCell:
+		return "; set a structure with cell parameters or a CIF file on the Models screen (4)"
+	case cycle.RemedyReadCIF:
+		return "; give the CIF file again on the Models screen (4)"
+	}
+	return ""
 }

@@ -1,6 +1,7 @@
 package session
 
 import (
+	"strings"
 	"testing"
 
 	"enthalpath/cycle"
@@ -30,5 +31,22 @@ func TestMagnitudesWarmedOffUpdate(t *testing.T) {
 	<-done
 	if got := s.magnitudesOf(nil)[cycle.KindLattice]; got <= 787 {
 		t.Errorf("largest lattice magnitude %.0f kJ/mol, want above NaCl's 787", got)
+	}
+}
+
+// TestModelRemedyOnTheModelsScreen: a model error's remedy is worded as
+// the Models screen's row, from its field (no sentence fragment replaced),
+// and no flag reaches the screen.
+func TestModelRemedyOnTheModelsScreen(t *testing.T) {
+	for r, want := range map[cycle.Remedy]string{
+		cycle.RemedyBornExponent:      "type n on the Models screen (4)",
+		cycle.RemedyStructure:         "set the structure on the Models screen (4)",
+		cycle.RemedyStructureWithCell: "cell parameters or a CIF file on the Models screen (4)",
+		cycle.RemedyReadCIF:           "give the CIF file again on the Models screen (4)",
+	} {
+		msg := Message(&cycle.ModelError{Model: cycle.ModelEwald, Reason: "cannot run", Remedy: r})
+		if !strings.Contains(msg, want) || strings.Contains(msg, "--") {
+			t.Errorf("remedy %v: %q, want %q and no flag", r, msg, want)
+		}
 	}
 }
