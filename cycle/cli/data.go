@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"cmp"
 	"errors"
 	"fmt"
 	"io"
@@ -669,7 +670,7 @@ func dataJSON(db *data.DB, rec any) any {
 			"formation_alternatives":        dataAltsOf(db, r.Formation, r.Alternatives),
 			"gibbs_formation":               dataValueOf(db, r.GibbsFormation),
 			"entropy":                       dataValueOf(db, r.Entropy),
-			"state":                         dataState(r.State),
+			"state":                         cmp.Or(r.State, "cr"),
 			"polymorph":                     r.Polymorph,
 			"molecular":                     r.Molecular,
 			"structure":                     r.Structure,
