@@ -13,6 +13,9 @@ import (
 // x[inv[g][0]], x[inv[g][1]], … in order.
 type symmetry struct {
 	inv [][]int32
+	// translations is the number of pure lattice translations, which come
+	// first in inv.
+	translations int
 	// translationsOnly is set when the point operations were left out to
 	// keep the table within Options.MaxSymmetry.
 	translationsOnly bool
@@ -193,7 +196,7 @@ func findSymmetry(p *Problem, maxTable int) *symmetry {
 				continue
 			}
 			if (len(perms)+len(translations))*m > maxTable {
-				return &symmetry{inv: inverses(translations), translationsOnly: true}
+				return &symmetry{inv: inverses(translations), translations: len(translations), translationsOnly: true}
 			}
 			for _, t := range translations {
 				perm := make([]int32, m)
@@ -205,7 +208,50 @@ func findSymmetry(p *Problem, maxTable int) *symmetry {
 			break
 		}
 	}
-	return &symmetry{inv: inverses(perms)}
+	return &symmetry{inv: inverses(perms), translations: len(translations)}
+}
+
+// translationPerms returns the pure translations as forward permutations
+// of the m mixed sites (t[a] is the image of a); only the identity without
+// a table.
+func (s *symmetry) translationPerms() [][]int32 {
+	if s == nil {
+		return nil
+	}
+	out := make([][]int32, s.translations)
+	for k, inv := range s.inv[:s.translations] {
+		fwd := make([]int32, len(inv))
+		for b, a := range inv {
+			fwd[a] = int32(b)
+		}
+		out[k] = fwd
+	}
+	return out
+}
+
+// orbitRepresentatives returns the least mixed site of each orbit of the
+// translations (which must include the identity).
+func orbitRepresentatives(m int, translations [][]int32) []int {
+	covered := make([]bool, m)
+	var reps []int
+	for a := 0; a < m; a++ {
+		if covered[a] {
+			continue
+		}
+		reps = append(reps, a)
+		for _, t := range translations {
+			covered[t[a]] = true
+		}
+	}
+	return reps
+}
+
+func identity(m int) []int32 {
+	id := make([]int32, m)
+	for a := range id {
+		id[a] = int32(a)
+	}
+	return id
 }
 
 // inverses inverts each permutation in place and returns the list.
