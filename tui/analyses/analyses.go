@@ -203,7 +203,7 @@ func (m *Model) parts() ([]string, []string) {
 	st := m.ctx.Styles
 	km := m.KeyMap
 	title := "Analyses beyond one cycle"
-	aside := trunc(fmt.Sprintf(" — %s: arguments · %s: run again", km.Edit.Help().Key, km.Run.Help().Key), max(0, m.w-len([]rune(title))))
+	aside := screen.Truncate(fmt.Sprintf(" — %s: arguments · %s: run again", km.Edit.Help().Key, km.Run.Help().Key), max(0, m.w-len([]rune(title))))
 	lines := []string{st.Title.Render(title) + st.Muted.Render(aside)}
 	nameWidth := 0
 	for _, k := range m.kinds {
@@ -214,7 +214,7 @@ func (m *Model) parts() ([]string, []string) {
 		if i == m.cursor {
 			cursor = "›"
 		}
-		text := trunc(fmt.Sprintf("%s %-*s %-34s %s", cursor, nameWidth+1, k.name, trunc(m.args[i], 34), k.what), m.w)
+		text := screen.Truncate(fmt.Sprintf("%s %-*s %-34s %s", cursor, nameWidth+1, k.name, screen.Truncate(m.args[i], 34), k.what), m.w)
 		if i == m.cursor {
 			text = st.Selected.Render(text)
 		}
@@ -261,7 +261,7 @@ func (m *Model) window(headEntries, bodyEntries []string) string {
 	}
 	km := m.KeyMap
 	top := min(m.scroll, last)
-	where := m.ctx.Styles.Muted.Render(trunc(fmt.Sprintf("lines %d–%d of %d · %s down · %s up", top+1, top+show, len(rows),
+	where := m.ctx.Styles.Muted.Render(screen.Truncate(fmt.Sprintf("lines %d–%d of %d · %s down · %s up", top+1, top+show, len(rows),
 		km.More.Help().Key, km.Back.Help().Key), m.w))
 	return strings.Join(append(append(head, rows[top:top+show]...), where), "\n")
 }
@@ -286,17 +286,6 @@ func (m *Model) scrollRange() (top, last int) {
 	h, rows := m.split(head, body)
 	_, last = m.span(len(h), len(rows))
 	return min(m.scroll, last), last
-}
-
-func trunc(s string, n int) string {
-	r := []rune(s)
-	if len(r) <= n {
-		return s
-	}
-	if n <= 1 {
-		return string(r[:max(n, 0)])
-	}
-	return string(r[:n-1]) + "…"
 }
 
 // wrap breaks s into lines of at most w cells at spaces.

@@ -470,7 +470,7 @@ func (m *Model) View() string {
 			marker = diagram.SolvedMark
 		}
 		// The multiplicity the value enters the sum with (×½ for Cl₂ → 2Cl).
-		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s %3s %10s  %s", marker, s.Reaction, screen.Multiplicity(s.Multiplicity), val, m.label(s)), m.w))
+		lines = append(lines, screen.Truncate(fmt.Sprintf(" %s %-34s %3s %10s  %s", marker, s.Reaction, screen.Multiplicity(s.Multiplicity), val, m.label(s)), m.w))
 	}
 	if s := m.current(); s != nil {
 		text, ok := m.proposal(s)
@@ -563,15 +563,4 @@ func multNote(v float64) string {
 		return "   (×½ per formula unit)"
 	}
 	return fmt.Sprintf("   (×%g per formula unit)", v)
-}
-
-func trunc(s string, n int) string {
-	r := []rune(s)
-	if len(r) <= n {
-		return s
-	}
-	if n <= 1 {
-		return string(r[:max(n, 0)])
-	}
-	return string(r[:n-1]) + "…"
 }

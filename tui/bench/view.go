@@ -60,7 +60,7 @@ func (m *Model) titleLine() string {
 		name += " · " + s
 	}
 	conv := c.Conventions.Lattice.Symbol() + ", ionization at " + c.Conventions.Ionization.String()
-	return st.Title.Render(trunc(name, m.w-len([]rune(conv))-3)) + "   " + st.Muted.Render(conv)
+	return st.Title.Render(screen.Truncate(name, m.w-len([]rune(conv))-3)) + "   " + st.Muted.Render(conv)
 }
 
 func (m *Model) solvedLine() string {
@@ -75,7 +75,7 @@ func (m *Model) solvedLine() string {
 		r, u := cycle.Residual(m.sess.Cycle)
 		line := fmt.Sprintf("closure residual %s %s %s", m.ctx.Signed(r), m.ctx.Uncertainty(u), m.ctx.Units)
 		return st.Warn.Render("over-determined: ") + st.Accent.Render(line) +
-			st.Muted.Render(trunc(" (Σ of the steps − ΔfH°) · x on a step solves for it", max(0, m.w-len([]rune(line))-17)))
+			st.Muted.Render(screen.Truncate(" (Σ of the steps − ΔfH°) · x on a step solves for it", max(0, m.w-len([]rune(line))-17)))
 	}
 	if m.sess.SolveErr != nil {
 		return st.Error.Render("not solved: ") + st.Text.Render(explainShort(m.sess.SolveErr, m.w-12))
@@ -95,10 +95,10 @@ func (m *Model) solvedLine() string {
 			extra += more
 		}
 	}
-	return st.Solved.Render(diagram.SolvedMark+" solved: ") + st.Accent.Render(line) + st.Muted.Render(trunc(extra, room))
+	return st.Solved.Render(diagram.SolvedMark+" solved: ") + st.Accent.Render(line) + st.Muted.Render(screen.Truncate(extra, room))
 }
 
-func explainShort(err error, w int) string { return trunc(session.Explain(err), w) }
+func explainShort(err error, w int) string { return screen.Truncate(session.Explain(err), w) }
 
 // Column widths of the step list.
 const (
@@ -126,7 +126,7 @@ func (m *Model) listView(h int) string {
 	colSource := max(10, m.w-colFlag-colMult-colValue-colUnc-colReaction-5)
 	header := fmt.Sprintf("%-*s%-*s %*s %*s %*s %-*s", colFlag, "", colReaction, "reaction", colMult, "×",
 		colValue, m.ctx.Units.String(), colUnc, "±", colSource, "source")
-	lines := []string{st.Title.Render(trunc(header, m.w))}
+	lines := []string{st.Title.Render(screen.Truncate(header, m.w))}
 	// The rows: the steps, and under U the correction row after the
 	// lattice step (-1), so that the values shown sum by Hess's law.
 	order := make([]int, 0, len(steps)+1)
@@ -150,7 +150,7 @@ func (m *Model) listView(h int) string {
 	for r := m.top; r < len(order) && r < m.top+rows; r++ {
 		i := order[r]
 		if i < 0 {
-			lines = append(lines, st.Muted.Render(trunc(m.correctionRow(colReaction, colSource), m.w)))
+			lines = append(lines, st.Muted.Render(screen.Truncate(m.correctionRow(colReaction, colSource), m.w)))
 			continue
 		}
 		s := &steps[i]
@@ -178,9 +178,9 @@ func (m *Model) listView(h int) string {
 		case s.Source.Kind == cycle.SourceMissing:
 			value, unc = "missing", ""
 		}
-		text := fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", cursor, flag, colReaction, trunc(reaction, colReaction),
-			colMult, screen.Multiplicity(s.Multiplicity), colValue, value, colUnc, unc, colSource, trunc(sourceText(s), colSource))
-		text = trunc(text, m.w)
+		text := fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", cursor, flag, colReaction, screen.Truncate(reaction, colReaction),
+			colMult, screen.Multiplicity(s.Multiplicity), colValue, value, colUnc, unc, colSource, screen.Truncate(sourceText(s), colSource))
+		text = screen.Truncate(text, m.w)
 		switch {
 		case i == m.cursor:
 			text = st.Selected.Render(text)
@@ -191,7 +191,7 @@ func (m *Model) listView(h int) string {
 		}
 		lines = append(lines, text)
 	}
-	lines = append(lines, st.Muted.Render(trunc(diagram.SolvedMark+" the unknown (solved)  ! no value in the data  * your value  └ sub-step", m.w)))
+	lines = append(lines, st.Muted.Render(screen.Truncate(diagram.SolvedMark+" the unknown (solved)  ! no value in the data  * your value  └ sub-step", m.w)))
 	return strings.Join(lines, "\n")
 }
 
@@ -217,9 +217,9 @@ func (m *Model) rowCount() int {
 // U, it is the term that makes the rows add up to the formation enthalpy.
 func (m *Model) correctionRow(colReaction, colSource int) string {
 	corr := -m.sess.Cycle.LatticeCorrection()
-	return fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", " ", " ", colReaction, trunc("└ ΔH_L − U (nRT)", colReaction),
+	return fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", " ", " ", colReaction, screen.Truncate("└ ΔH_L − U (nRT)", colReaction),
 		colMult, "", colValue, m.ctx.Signed(corr), colUnc, m.ctx.Uncertainty(0), colSource,
-		trunc("U → ΔH_L, Jenkins' rule", colSource))
+		screen.Truncate("U → ΔH_L, Jenkins' rule", colSource))
 }
 
 func sourceText(s *cycle.Step) string {
@@ -247,7 +247,7 @@ func (m *Model) drawingView(h int) string {
 		corr := -m.sess.Cycle.LatticeCorrection()
 		note = fmt.Sprintf(" · lattice arrow ΔH_L %s = U %s %s · d exports SVG", m.ctx.Signed(lat.Value+corr), m.ctx.Signed(lat.Value), m.ctx.Signed(corr))
 	}
-	title := st.Title.Render("Drawn to scale") + st.Muted.Render(trunc(note, m.w-14))
+	title := st.Title.Render("Drawn to scale") + st.Muted.Render(screen.Truncate(note, m.w-14))
 	return title + "\n" + d.Render(m.w, h-1, m.diagramStyles())
 }
 
@@ -310,15 +310,4 @@ func (m *Model) sourceView(h int) string {
 	lines = append(lines, "", st.Muted.Render("any key closes this box"))
 	box := st.Panel.Width(w).Render(strings.Join(lines, "\n"))
 	return m.ctx.Styles.Renderer().NewStyle().MaxHeight(max(h, 1)).Render(box)
-}
-
-func trunc(s string, n int) string {
-	r := []rune(s)
-	if len(r) <= n {
-		return s
-	}
-	if n <= 1 {
-		return string(r[:max(n, 0)])
-	}
-	return string(r[:n-1]) + "…"
 }

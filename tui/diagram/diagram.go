@@ -5,6 +5,8 @@ import (
 	"strings"
 
 	"github.com/charmbracelet/lipgloss"
+
+	"enthalpath/tui/screen"
 )
 
 // Level is one state of the system at an enthalpy.
@@ -303,7 +305,7 @@ func (d Diagram) Render(w, h int, st Styles) string {
 			continue // the open end of an over-determined path: no state of its own
 		}
 		y := geo.Rows[i]
-		text := truncate(l.Label, labelW)
+		text := screen.Truncate(l.Label, labelW)
 		for _, dy := range []int{0, -1, 1, -2, 2} {
 			if !g.rangeFree(geo.LabelX+2, y+dy, len([]rune(text))) {
 				continue
@@ -409,22 +411,8 @@ func (st Styles) style(c cellClass) lipgloss.Style {
 	return lipgloss.Style{}
 }
 
-func truncate(s string, n int) string {
-	r := []rune(s)
-	if n <= 0 {
-		return ""
-	}
-	if len(r) <= n {
-		return s
-	}
-	if n == 1 {
-		return "…"
-	}
-	return string(r[:n-1]) + "…"
-}
-
 func fit(msg string, w, h int) string {
 	lines := make([]string, max(h, 1))
-	lines[0] = truncate(msg, w)
+	lines[0] = screen.Truncate(msg, w)
 	return strings.Join(lines, "\n")
 }

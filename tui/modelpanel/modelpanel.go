@@ -149,7 +149,7 @@ func (m *Model) View() string {
 		if more := " · " + res.Solved.Key + " solved from it"; len([]rune(head+more)) <= m.w {
 			head += more
 		}
-		lines = append(lines, st.Title.Render(trunc(head, m.w)))
+		lines = append(lines, st.Title.Render(screen.Truncate(head, m.w)))
 	case res != nil:
 		cycleValue := res.Lattice.In(c.Conventions.Lattice)
 		lines = append(lines, st.Title.Render(fmt.Sprintf("%s: cycle lattice %s = %s %s %s", c.Formula, c.Conventions.Lattice.Symbol(),
@@ -193,14 +193,14 @@ func (m *Model) View() string {
 	if first > 0 || last < len(m.rows) {
 		title = fmt.Sprintf(" %d–%d of %d, ↑/↓ for more · e type · ←/→ step · r default", first+1, last, len(m.rows))
 	}
-	lines = append(lines, st.Title.Render("Settings")+st.Muted.Render(trunc(title, m.w-8)))
+	lines = append(lines, st.Title.Render("Settings")+st.Muted.Render(screen.Truncate(title, m.w-8)))
 	for i, r := range m.rows[first:last] {
 		i += first
 		cursor := " "
 		if i == m.cursor {
 			cursor = "›"
 		}
-		text := trunc(fmt.Sprintf("%s %-22s %s", cursor, r.name, r.show(&c.Settings)), m.w)
+		text := screen.Truncate(fmt.Sprintf("%s %-22s %s", cursor, r.name, r.show(&c.Settings)), m.w)
 		if i == m.cursor {
 			text = st.Selected.Render(text)
 		}
@@ -237,8 +237,8 @@ func (m *Model) modelTable(res *cycle.Result, ref string) []string {
 	if ref != "" {
 		verdictHead = "no verdict"
 	}
-	head := fmt.Sprintf("%-*s %10s %9s %8s %-*s %s", nameW, "model", m.ctx.Units.String(), "gap", "gap %", 2*half+1, trunc(scale, 2*half+1), verdictHead)
-	out := []string{st.Title.Render(trunc(head, m.w))}
+	head := fmt.Sprintf("%-*s %10s %9s %8s %-*s %s", nameW, "model", m.ctx.Units.String(), "gap", "gap %", 2*half+1, screen.Truncate(scale, 2*half+1), verdictHead)
+	out := []string{st.Title.Render(screen.Truncate(head, m.w))}
 	if len(models) == 0 {
 		return append(out, st.Muted.Render("  (the models appear once the cycle is solved)"))
 	}
@@ -262,10 +262,10 @@ func (m *Model) modelTable(res *cycle.Result, ref string) []string {
 		}
 		line := fmt.Sprintf("%-*s %10s %9s %8s %s %s", nameW, mr.Model, m.ctx.Signed(mr.Value), m.ctx.Signed(mr.Gap), pct(mr.GapPercent),
 			bar(mr.GapPercent, half), verdict)
-		out = append(out, trunc(line, m.w))
+		out = append(out, screen.Truncate(line, m.w))
 	}
 	if hb := res.Handbook; hb != nil {
-		out = append(out, st.Muted.Render(trunc(fmt.Sprintf("%-*s %10s %9s %8s  (%s, tabulated as %s)", nameW, "handbook", m.ctx.Signed(hb.Value),
+		out = append(out, st.Muted.Render(screen.Truncate(fmt.Sprintf("%-*s %10s %9s %8s  (%s, tabulated as %s)", nameW, "handbook", m.ctx.Signed(hb.Value),
 			m.ctx.Signed(hb.Difference), pct(hb.Percent), hb.Source.Key, hb.Convention.Symbol()), m.w)))
 	}
 	return out
@@ -317,15 +317,4 @@ func (m *Model) madelungLines(res *cycle.Result) []string {
 	in := mr.Inputs
 	return screen.Wrap(fmt.Sprintf("Ewald Madelung constant A = %.6f for %s, referred to d₀ = %.4f Å (%s; tin-foil boundary)",
 		in.Madelung, in.Structure, in.D0, in.MadelungFrom), m.w, "  ")
-}
-
-func trunc(s string, n int) string {
-	r := []rune(s)
-	if len(r) <= n {
-		return s
-	}
-	if n <= 1 {
-		return string(r[:max(n, 0)])
-	}
-	return string(r[:n-1]) + "…"
 }

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+
+	"enthalpath/tui/screen"
 )
 
 // maxSiteGroups bounds the lines the per-site summary takes.
@@ -47,7 +49,7 @@ func (m *Model) siteLines() []string {
 			g.sumLo, g.sumHi = math.Min(g.sumLo, s.BondValenceSums[i]), math.Max(g.sumHi, s.BondValenceSums[i])
 		}
 	}
-	lines := []string{st.Title.Render(trunc(fmt.Sprintf("Sites of %s: Madelung potential and bond-valence sum", s.Name()), m.w))}
+	lines := []string{st.Title.Render(screen.Truncate(fmt.Sprintf("Sites of %s: Madelung potential and bond-valence sum", s.Name()), m.w))}
 	for k, g := range groups {
 		if k == maxSiteGroups {
 			lines = append(lines, st.Muted.Render(fmt.Sprintf("  … %d more kinds of site (enthalpath madelung FILE lists every site)", len(groups)-k)))
@@ -64,7 +66,7 @@ func (m *Model) siteLines() []string {
 				sum = fmt.Sprintf("%.2f … %.2f", g.sumLo, g.sumHi)
 			}
 		}
-		lines = append(lines, trunc(fmt.Sprintf("  %-10s %+6.3g ×%-4d φ %-22s BVS %s", g.species, g.charge, g.n, pot, sum), m.w))
+		lines = append(lines, screen.Truncate(fmt.Sprintf("  %-10s %+6.3g ×%-4d φ %-22s BVS %s", g.species, g.charge, g.n, pot, sum), m.w))
 	}
 	return lines
 }

@@ -7,6 +7,8 @@ import (
 	"strings"
 
 	"github.com/charmbracelet/lipgloss"
+
+	"enthalpath/tui/screen"
 )
 
 // Glyphs are the point markers, one per group in order; groups beyond the
@@ -192,7 +194,7 @@ func (s Scatter) Render(w, h int, st Styles) string {
 	}
 	gap := pw - len([]rune(left)) - len([]rune(right)) - len([]rune(mid))
 	xl := left + strings.Repeat(" ", max(gap/2, 1)) + mid + strings.Repeat(" ", max(gap-gap/2, 1)) + right
-	b.WriteString(st.Label.Render(strings.Repeat(" ", yAxisWidth) + truncate(xl, pw)))
+	b.WriteString(st.Label.Render(strings.Repeat(" ", yAxisWidth) + screen.Truncate(xl, pw)))
 	for _, l := range legend {
 		b.WriteByte('\n')
 		b.WriteString(st.Label.Render(l))
@@ -252,7 +254,7 @@ func (s Strip) Render(w, h int, st Styles) string {
 				}
 			}
 		}
-		b.WriteString(st.Label.Render(fmt.Sprintf("%-*s ", labelW, truncate(name, labelW))))
+		b.WriteString(st.Label.Render(fmt.Sprintf("%-*s ", labelW, screen.Truncate(name, labelW))))
 		b.WriteString(st.Axis.Render("│ "))
 		b.WriteString(renderRow(cells, kinds, st))
 		b.WriteByte('\n')
@@ -263,7 +265,7 @@ func (s Strip) Render(w, h int, st Styles) string {
 	mid := " " + s.XLabel + " "
 	gap := pw - len([]rune(left)) - len([]rune(right)) - len([]rune(mid))
 	xl := left + strings.Repeat(" ", max(gap/2, 1)) + mid + strings.Repeat(" ", max(gap-gap/2, 1)) + right
-	b.WriteString(st.Label.Render(strings.Repeat(" ", labelW+3) + truncate(xl, pw)))
+	b.WriteString(st.Label.Render(strings.Repeat(" ", labelW+3) + screen.Truncate(xl, pw)))
 	lines := strings.Count(b.String(), "\n") + 1
 	for ; lines < h; lines++ {
 		b.WriteByte('\n')
@@ -398,19 +400,8 @@ func Tick(v float64) string {
 	return strings.Replace(s, "-", "−", 1)
 }
 
-func truncate(s string, n int) string {
-	r := []rune(s)
-	if len(r) <= n {
-		return s
-	}
-	if n <= 1 {
-		return string(r[:max(n, 0)])
-	}
-	return string(r[:n-1]) + "…"
-}
-
 func pad(msg string, w, h int) string {
 	lines := make([]string, max(h, 1))
-	lines[0] = truncate(msg, w)
+	lines[0] = screen.Truncate(msg, w)
 	return strings.Join(lines, "\n")
 }

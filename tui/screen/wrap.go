@@ -78,3 +78,18 @@ func WrapRow(row string, width int, indent string) []string {
 	}
 	return out
 }
+
+// Truncate shortens s to at most n display cells (not runes: a wide
+// character takes two, an escape sequence none), ending it with "…" when
+// anything was cut. The one truncation of every screen.
+func Truncate(s string, n int) string {
+	switch {
+	case n <= 0:
+		return ""
+	case ansi.StringWidth(s) <= n:
+		return s
+	case n == 1:
+		return "…"
+	}
+	return ansi.Truncate(s, n, "…")
+}

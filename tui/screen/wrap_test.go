@@ -63,3 +63,33 @@ func TestWrapAtTinyWidths(t *testing.T) {
 		}
 	}
 }
+
+// TestTruncate: widths in display cells (Unicode East Asian Width: CJK
+// ideographs are wide, two cells; "…" and "²" are one), the tail counted
+// in; a styled string keeps its escape sequences out of the count.
+func TestTruncate(t *testing.T) {
+	for _, tc := range []struct {
+		in   string
+		n    int
+		want string
+	}{
+		{"NaCl", 10, "NaCl"},
+		{"sodium chloride", 6, "sodiu…"},
+		{"Mg²⁺ ion", 5, "Mg²⁺…"},
+		{"塩化ナトリウム", 5, "塩化…"}, // 2+2+1 cells
+		{"abc", 1, "…"},
+		{"abc", 0, ""},
+	} {
+		got := Truncate(tc.in, tc.n)
+		if got != tc.want || ansi.StringWidth(got) > tc.n {
+			t.Errorf("Truncate(%q, %d) = %q (%d cells), want %q", tc.in, tc.n, got, ansi.StringWidth(got), tc.want)
+		}
+	}
+	styled := "\x1b[1mbold text\x1b[0m"
+	if got := Truncate(styled, 20); got != styled {
+		t.Errorf("a styled string that fits was changed: %q", got)
+	}
+	if got := ansi.StringWidth(Truncate(styled, 5)); got != 5 {
+		t.Errorf("styled string cut to %d cells, want 5", got)
+	}
+}

@@ -294,21 +294,21 @@ func (m *Model) View() string {
 	unit := m.ctx.Units.String()
 	nameW, famW := m.columnWidths()
 	header := fmt.Sprintf("   %-9s %-*s %-*s %12s  %-12s", "formula", nameW, "name", famW, "family", "ΔfH°("+unit+")", "structure")
-	lines = append(lines, st.Title.Render(truncate(header, m.w)))
+	lines = append(lines, st.Title.Render(screen.Truncate(header, m.w)))
 	lh := m.listHeight()
 	if m.typedNew != "" && len(m.shown) > 0 {
 		msg := fmt.Sprintf("%s is not in the data: enter assembles it step by step · ↓ picks a row below", m.typedNew)
 		if m.picked {
 			msg = fmt.Sprintf("enter opens the highlighted row · ctrl+g assembles %s (not in the data)", m.typedNew)
 		}
-		lines = append(lines, st.Accent.Render(truncate(msg, m.w)))
+		lines = append(lines, st.Accent.Render(screen.Truncate(msg, m.w)))
 	}
 	if len(m.shown) == 0 {
 		msg := "No compound of the data matches."
 		if f := m.Filter(); f != "" {
 			msg += fmt.Sprintf(" Enter assembles a cycle for %q step by step from element data.", f)
 		}
-		lines = append(lines, st.Warn.Render(truncate(msg, m.w)))
+		lines = append(lines, st.Warn.Render(screen.Truncate(msg, m.w)))
 	}
 	for i := m.top; i < len(m.shown) && i < m.top+lh; i++ {
 		r := m.all[m.shown[i]]
@@ -332,9 +332,9 @@ func (m *Model) View() string {
 		if structure == "" {
 			structure = "—"
 		}
-		text := fmt.Sprintf("%s%s %-9s %-*s %-*s %12s  %-12s", cursor, mark, r.c.Formula, nameW, truncate(r.c.Name, nameW),
-			famW, truncate(r.c.Family, famW), form, structure)
-		text = truncate(text, m.w)
+		text := fmt.Sprintf("%s%s %-9s %-*s %-*s %12s  %-12s", cursor, mark, r.c.Formula, nameW, screen.Truncate(r.c.Name, nameW),
+			famW, screen.Truncate(r.c.Family, famW), form, structure)
+		text = screen.Truncate(text, m.w)
 		if highlighted {
 			text = st.Selected.Render(text)
 		}
@@ -344,17 +344,6 @@ func (m *Model) View() string {
 		lines = append(lines, "")
 	}
 	foot := fmt.Sprintf("%d of %d compounds · ★ the invented study's shortlist · u from your data file", len(m.shown), len(m.all))
-	lines = append(lines, st.Muted.Render(truncate(foot, m.w)))
+	lines = append(lines, st.Muted.Render(screen.Truncate(foot, m.w)))
 	return lipgloss.JoinVertical(lipgloss.Left, lines[:min(len(lines), max(m.h, 1))]...)
-}
-
-func truncate(s string, n int) string {
-	r := []rune(s)
-	if len(r) <= n {
-		return s
-	}
-	if n <= 1 {
-		return string(r[:max(n, 0)])
-	}
-	return string(r[:n-1]) + "…"
 }

@@ -297,7 +297,7 @@ func (m *Model) View() string {
 	}
 	head := fmt.Sprintf("%d of %d compounds · sorted by %s (%s) · gap to %s · lattice %s in %s",
 		len(m.shown), len(m.rows), sortNames[m.sortBy], order, m.ModelName(), "ΔH_L", m.ctx.Units)
-	lines := []string{st.Title.Render(trunc(head, m.w))}
+	lines := []string{st.Title.Render(screen.Truncate(head, m.w))}
 	if m.filtering || m.filter.Value() != "" {
 		lines = append(lines, m.filter.View())
 	}
@@ -323,17 +323,17 @@ func (m *Model) table(h int) []string {
 	fmt.Fprintf(&b, "  %-9s %-15s %9s", "formula", "family", "cycle")
 	if wide {
 		for _, n := range names {
-			fmt.Fprintf(&b, " %10s", trunc(n, 10))
+			fmt.Fprintf(&b, " %10s", screen.Truncate(n, 10))
 		}
 	} else {
-		fmt.Fprintf(&b, " %12s", trunc(m.ModelName(), 12))
+		fmt.Fprintf(&b, " %12s", screen.Truncate(m.ModelName(), 12))
 	}
 	fmt.Fprintf(&b, " %9s %7s  ", "gap", "gap %")
 	// The verdict column takes what the line leaves; too narrow for the
 	// verdicts' words it shows their codes, which a legend explains.
 	verdictW := max(screen.VerdictCodeWidth, m.w-lipgloss.Width(b.String()))
 	b.WriteString("verdict")
-	out := []string{st.Title.Render(trunc(b.String(), m.w))}
+	out := []string{st.Title.Render(screen.Truncate(b.String(), m.w))}
 	note := "gap = cycle − model; negative: the cycle binds more than the ionic model"
 	if _, code := screen.Verdict(lattice.SubstantialCovalent, verdictW); code {
 		note = "gap = cycle − model · " + screen.VerdictLegend
@@ -360,7 +360,7 @@ func (m *Model) table(h int) []string {
 		if i == m.cursor {
 			cursor = "›"
 		}
-		fmt.Fprintf(&line, "%s %-9s %-15s %9s", cursor, trunc(r.Formula, 9), trunc(r.Family, 15), m.num(r.Cycle))
+		fmt.Fprintf(&line, "%s %-9s %-15s %9s", cursor, screen.Truncate(r.Formula, 9), screen.Truncate(r.Family, 15), m.num(r.Cycle))
 		if wide {
 			for j := range names {
 				fmt.Fprintf(&line, " %10s", m.num(r.Models[j]))
@@ -381,7 +381,7 @@ func (m *Model) table(h int) []string {
 			verdict, _ = screen.Verdict(r.Verdicts[m.model], verdictW)
 		}
 		fmt.Fprintf(&line, " %9s %7s  %s", m.num(r.Gaps[m.model]), pct(r.GapPercents[m.model]), verdict)
-		text := trunc(line.String(), m.w)
+		text := screen.Truncate(line.String(), m.w)
 		if i == m.cursor {
 			text = st.Selected.Render(text)
 		}
@@ -478,7 +478,7 @@ func (m *Model) scatter(h int) string {
 		pts = append(pts, plot.Point{X: m.conv(r.Cycle), Y: m.conv(r.Models[m.model]), Group: group[j]})
 	}
 	s := plot.Scatter{Points: pts, Groups: fams, XLabel: "cycle lattice (" + m.ctx.Units.String() + ")", Diagonal: true, Log: m.logScale}
-	title := st.Muted.Render(trunc(m.ModelName()+" (up) against the cycle (across); dots: model = cycle; "+string(plot.Crowded)+" two groups on one cell; l log/linear; / filters", m.w))
+	title := st.Muted.Render(screen.Truncate(m.ModelName()+" (up) against the cycle (across); dots: model = cycle; "+string(plot.Crowded)+" two groups on one cell; l log/linear; / filters", m.w))
 	return title + "\n" + s.Render(m.w, h-1, plot.Styles{Axis: st.Muted, Point: st.Accent, Guide: st.Rule, Label: st.Text})
 }
 
@@ -490,7 +490,7 @@ func (m *Model) strip(h int) string {
 		vals[group[j]] = append(vals[group[j]], m.rows[j].GapPercents[m.model])
 	}
 	s := plot.Strip{Groups: fams, Values: vals, XLabel: "gap to " + m.ModelName() + " (%)", Zero: true}
-	title := st.Muted.Render(trunc("gap (cycle − model) in % by family, most frequent first; left of ┊: the cycle binds more; / filters", m.w))
+	title := st.Muted.Render(screen.Truncate("gap (cycle − model) in % by family, most frequent first; left of ┊: the cycle binds more; / filters", m.w))
 	return title + "\n" + s.Render(m.w, h-1, plot.Styles{Axis: st.Muted, Point: st.Accent, Guide: st.Rule, Label: st.Text})
 }
 
@@ -499,15 +499,4 @@ func (m *Model) conv(kj float64) float64 {
 		return kj
 	}
 	return thermo.FromKJPerMol(kj, m.ctx.Units)
-}
-
-func trunc(s string, n int) string {
-	r := []rune(s)
-	if len(r) <= n {
-		return s
-	}
-	if n <= 1 {
-		return string(r[:max(n, 0)])
-	}
-	return string(r[:n-1]) + "…"
 }
