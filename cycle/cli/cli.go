@@ -60,6 +60,7 @@ func commands() []command {
 		{"radius", "thermochemical radius derived from a cycle lattice energy", runRadius},
 		{"ionfit", "gas-phase enthalpy of an ion fitted over its salts (SO4^2-, O2-, ...)", runIonfit},
 		{"batch", "solve many formulas from a CSV file", runBatch},
+		{"completion", "print a shell completion script: bash, zsh or fish", runCompletion},
 		{"orderings", "rank orderings of ions and vacancies on mixed sites by Ewald energy", runOrderings},
 	}
 }
