@@ -1,5 +1,5 @@
 // Package cli runs enthalpath's non-interactive subcommands (madelung, data,
-// cycle, compare, estimate, scan, solution, radius, ionfit, batch, orderings) and prints their
+// cycle, compare, estimate, scan, solution, radius, ionfit, batch, orderings, completion) and prints their
 // results as text, JSON or CSV. main hands it every subcommand except the
 // interactive ones (the TUI and serve), so this package never imports tui.
 package cli
