@@ -62,6 +62,7 @@ func commands() []command {
 		{"batch", "solve many formulas from a CSV file", runBatch},
 		{"completion", "print a shell completion script: bash, zsh or fish", runCompletion},
 		{"orderings", "rank orderings of ions and vacancies on mixed sites by Ewald energy", runOrderings},
+		{"trust", "how far each lattice model can be trusted: its gaps to the cycles of the built-in compounds, by family", runTrust},
 	}
 }
 

@@ -27,6 +27,8 @@ type CompareRow struct {
 	// convention (NaN when absent).
 	Handbook float64
 	Models   []cycle.ModelResult
+	// Reference is the model the verdict is read against (cycle.Result).
+	Reference string
 	// Circular lists the fitted ion values fitted to this very salt: its
 	// verdicts are withheld.
 	Circular []cycle.Circularity
@@ -66,7 +68,7 @@ func compareRows(db *data.DB, formulas []string, mf *modelFlags, set map[string]
 			rows = append(rows, row)
 			continue
 		}
-		row.Lattice, row.Uncertainty, row.Models, row.Circular = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models, r.Circular
+		row.Lattice, row.Uncertainty, row.Models, row.Circular, row.Reference = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models, r.Circular, r.Reference
 		if r.Handbook != nil {
 			row.Handbook = r.Handbook.Value
 		}
@@ -150,7 +152,7 @@ func writeCompareText(w io.Writer, rows []CompareRow, u thermoUnit, conv string)
 	for _, m := range cycle.ModelNames() {
 		head = append(head, m)
 	}
-	head = append(head, "verdict (ewald, else born-mayer)")
+	head = append(head, "verdict (read against)")
 	t := table{head: head, right: map[int]bool{2: true, 3: true, 4: true, 5: true, 6: true, 7: true}}
 	var failed []CompareRow
 	for _, r := range rows {
@@ -188,14 +190,11 @@ func modelCell(ms []cycle.ModelResult, name string) string {
 	return "—"
 }
 
-// headlineVerdict is the verdict of the structure-specific model, or of
-// Born–Mayer when there is no structure.
+// headlineVerdict is the verdict of the row's reference model.
 func headlineVerdict(r CompareRow) string {
-	for _, name := range []string{cycle.ModelEwald, cycle.ModelBornMayer, cycle.ModelKapustinskii} {
-		for _, m := range r.Models {
-			if m.Model == name && m.Err == nil {
-				return rowVerdict(r, m) + " (" + name + ")"
-			}
+	for _, m := range r.Models {
+		if m.Model == r.Reference && m.Err == nil {
+			return rowVerdict(r, m) + " (" + m.Model + ")"
 		}
 	}
 	return "no model available"

@@ -289,23 +289,16 @@ func sourceName(s cycle.Source) string {
 }
 
 // latticeModel picks the model that fills the lattice step when another
-// step is solved and the data have no handbook value for it: Born–Mayer
-// with the Ewald constant, else Born–Mayer, else Kapustinskii.
+// step is solved and the data have no handbook value for it: the default
+// model of an estimate (cycle.DefaultModel), as on the command line.
 func (m *Model) latticeModel() (cycle.ModelResult, bool) {
 	mr, err := m.latticeModelErr()
 	return mr, err == nil
 }
 
 func (m *Model) latticeModelErr() (cycle.ModelResult, error) {
-	var last error
-	for _, name := range []string{cycle.ModelEwald, cycle.ModelBornMayer, cycle.ModelKapustinkii} {
-		mr, err := cycle.EvaluateModel(m.sess.Cycle, name)
-		if err == nil && mr.OK() {
-			return mr, nil
-		}
-		last = err
-	}
-	return cycle.ModelResult{}, last
+	mr, _, err := cycle.DefaultModel(m.sess.Cycle)
+	return mr, err
 }
 
 func (m *Model) accept() tea.Cmd {

@@ -243,7 +243,9 @@ func TestExportWritesWellFormedSVG(t *testing.T) {
 			t.Fatalf("not well-formed: %v", err)
 		}
 	}
-	for _, want := range []string{"CaF₂(s)", "Ca²⁺(g)", "(solved)"} {
+	// The notes under the drawing: the verdict with its model, and the
+	// extended model's terms.
+	for _, want := range []string{"CaF₂(s)", "Ca²⁺(g)", "(solved)", "verdict: ", "against the extended model", "extended model per formula unit"} {
 		if !strings.Contains(string(b), want) {
 			t.Errorf("SVG lacks %q", want)
 		}

@@ -47,6 +47,8 @@ type Diagram struct {
 	Unit   string
 	Levels []Level
 	Arrows []Arrow
+	// Notes are lines printed under an exported drawing (SVG only).
+	Notes []string
 }
 
 // Styles are the styles Render applies to each kind of cell.

@@ -14,6 +14,7 @@ import (
 const (
 	svgMarginTop   = 56.0
 	svgMarginBot   = 36.0
+	svgNoteLine    = 16.0 // one line of notes under the drawing
 	svgAxisX       = 72.0
 	svgSpacing     = 92.0
 	svgLabelGap    = 28.0
@@ -32,7 +33,7 @@ func (d Diagram) WriteSVG(w io.Writer) error {
 	var b bytes.Buffer
 	n := len(d.Arrows)
 	width := svgAxisX + 40 + float64(max(n, 1))*svgSpacing + svgLabelGap + svgLabelWidth
-	height := svgMarginTop + svgPlotHeight + svgMarginBot
+	height := svgMarginTop + svgPlotHeight + svgMarginBot + svgNoteLine*float64(len(d.Notes))
 	lo, hi := d.span()
 	y := func(e float64) float64 {
 		if math.IsNaN(e) || math.IsInf(e, 0) {
@@ -125,7 +126,12 @@ func (d Diagram) WriteSVG(w io.Writer) error {
 	if d.hasUser() {
 		fmt.Fprintf(&b, `<text x="%s" y="%s" fill="#555555">* your value, typed over the data's</text>`+"\n", num(svgAxisX), num(height-12))
 	}
-	b.WriteString("</g>\n</svg>\n")
+	b.WriteString("</g>\n")
+	for i, n := range d.Notes {
+		fmt.Fprintf(&b, `<text x="%s" y="%s" fill="#555555" font-size="11">%s</text>`+"\n", num(svgAxisX),
+			num(svgMarginTop+svgPlotHeight+svgMarginBot+svgNoteLine*float64(i)), esc(n))
+	}
+	b.WriteString("</svg>\n")
 	_, err := w.Write(b.Bytes())
 	return err
 }

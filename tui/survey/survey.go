@@ -316,7 +316,9 @@ func (m *Model) View() string {
 func (m *Model) table(h int) []string {
 	st := m.ctx.Styles
 	names := cycle.ModelNames()
-	wide := m.w >= 110
+	// Every model's column when they all fit beside the verdict's codes:
+	// the lead (37), 11 a model, the gap columns (20).
+	wide := m.w >= 37+11*len(names)+20+screen.VerdictCodeWidth
 	var b strings.Builder
 	fmt.Fprintf(&b, "  %-9s %-15s %9s", "formula", "family", "cycle")
 	if wide {
