@@ -179,7 +179,7 @@ func (m *Model) listView(h int) string {
 			value, unc = "missing", ""
 		}
 		text := fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", cursor, flag, colReaction, trunc(reaction, colReaction),
-			colMult, screen.Multiplicity(s.Multiplicity), colValue, value, colUnc, unc, colSource, trunc(sourceText(s), colSource))
+			colMult, screen.Multiplicity(s.Multiplicity), colValue, value, colUnc, unc, colSource, trunc(sourceFitting(s, colSource), colSource))
 		text = trunc(text, m.w)
 		switch {
 		case i == m.cursor:
@@ -220,6 +220,17 @@ func (m *Model) correctionRow(colReaction, colSource int) string {
 	return fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", " ", " ", colReaction, trunc("└ ΔH_L − U (nRT)", colReaction),
 		colMult, "", colValue, m.ctx.Signed(corr), colUnc, m.ctx.Uncertainty(0), colSource,
 		trunc("U → ΔH_L, Jenkins' rule", colSource))
+}
+
+// sourceFitting is sourceText in n cells: a data row's source without the
+// word "data" when the whole does not fit (data is what a bare key means),
+// so a narrow window keeps the key and its markers.
+func sourceFitting(s *cycle.Step, n int) string {
+	t := sourceText(s)
+	if len([]rune(t)) > n && s.Source.Kind == cycle.SourceData {
+		t = strings.TrimPrefix(t, "data: ")
+	}
+	return t
 }
 
 func sourceText(s *cycle.Step) string {
