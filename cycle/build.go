@@ -7,10 +7,10 @@ import (
 	"slices"
 	"strconv"
 	"strings"
-	"unicode/utf8"
 
 	"enthalpath/data"
 	"enthalpath/thermo"
+	"enthalpath/thermo/notation"
 )
 
 // Options choose how Build makes a cycle.
@@ -333,8 +333,8 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 		// Not a formula at all (a hydrate, a full-width letter, a stray
 		// character): the formula reader says what and where, with its
 		// hint, and no tabulated compound is a useful suggestion.
-		var fe *data.FormulaError
-		if _, ferr := data.ParseFormula(formula); errors.As(ferr, &fe) {
+		var fe *notation.FormulaError
+		if errors.As(err, &fe) {
 			return &CompoundError{Formula: formula, Reason: "not a formula: " + fe.Detail()}
 		}
 		reason := "not in the data and not a simple binary formula MₐXᵦ; give its cation and anion with their charges (for example Mg2+ and Cl-)"
@@ -347,11 +347,12 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 		if in, ok := db.FindIon(sym); ok {
 			return in, nil
 		}
-		core, z, ok := parseIonSymbol(sym)
+		read, ok := notation.ParseIon(sym)
+		core, z := read.Core, read.Charge
 		if !ok {
 			return data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("cannot read ion %q (write it like Mg+ or O2-)", sym)}
 		}
-		if !data.IsElementSymbol(core) {
+		if !notation.IsElementSymbol(core) {
 			return data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("ion %q is not in the data and %q is not an element", sym, core)}
 		}
 		return hypotheticalIon(db, sym, core, z), nil
@@ -374,7 +375,7 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 		case len(comp) != 2:
 			return &CompoundError{Formula: formula, Reason: fmt.Sprintf("not in the data, and %d elements where a binary compound has 2", len(comp)), Suggestions: suggestions()}
 		default:
-			parts = []formulaPart{{core: comp[0].symbol, count: comp[0].count}, {core: comp[1].symbol, count: comp[1].count}}
+			parts = []formulaPart{{core: comp[0].Symbol, count: comp[0].Count}, {core: comp[1].Symbol, count: comp[1].Count}}
 		}
 		cat, an, err = pickIons(db, formula, parts[0], parts[1], opt)
 		if err != nil {
@@ -384,7 +385,7 @@ func (c *Cycle) hypothetical(db *data.DB, formula string, opt Options) error {
 	if cat.Charge <= 0 || an.Charge >= 0 {
 		return &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s must be a cation and %s an anion", cat.Symbol, an.Symbol)}
 	}
-	g := gcd(cat.Charge, -an.Charge)
+	g := notation.GCD(cat.Charge, -an.Charge)
 	a, bb := -an.Charge/g, cat.Charge/g
 	if comp != nil {
 		ca, cb, ok := ionCounts(comp, cat.Core, an.Core)
@@ -405,16 +406,6 @@ func countText(n int) string {
 		return ""
 	}
 	return strconv.Itoa(n)
-}
-
-func gcd(a, b int) int {
-	for b != 0 {
-		a, b = b, a%b
-	}
-	if a < 0 {
-		return -a
-	}
-	return a
 }
 
 // pickIons chooses, for a formula of two parts (elements, or a bracketed
@@ -454,7 +445,7 @@ func pickIons(db *data.DB, formula string, p1, p2 formulaPart, opt Options) (dat
 		return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("the data have no anion %s; give the ions with their charges", second)}
 	}
 	if len(anions) == 0 {
-		if !data.IsElementSymbol(second) {
+		if !notation.IsElementSymbol(second) {
 			return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("%q is not an element", second)}
 		}
 		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("the data have no anion of %s; write the metal first, or give the cation and the anion with their charges (for example %s-)", second, second)}
@@ -494,10 +485,10 @@ func NeighbourDonor(db *data.DB, core string, z int) string {
 	}
 	// Walk outwards from core's Z, the lighter neighbour first: a batch of
 	// hypothetical compounds calls this for every row, so no table copies.
-	at := data.AtomicNumber(core)
+	at := notation.AtomicNumber(core)
 	for d := 1; d < 119; d++ {
 		for _, zz := range [2]int{at - d, at + d} {
-			if sym := data.SymbolOfZ(zz); sym != "" && len(db.Radii(sym, z)) > 0 {
+			if sym := notation.SymbolOfZ(zz); sym != "" && len(db.Radii(sym, z)) > 0 {
 				return sym
 			}
 		}
@@ -525,18 +516,13 @@ func hypotheticalIon(db *data.DB, sym, core string, z int) data.Ion {
 }
 
 // composition is a formula's element counts in order of first appearance.
-type composition []elementCount
-
-type elementCount struct {
-	symbol string
-	count  int
-}
+type composition []notation.ElementCount
 
 // of returns the count of sym, 0 when the formula has none.
 func (c composition) of(sym string) int {
 	for _, t := range c {
-		if t.symbol == sym {
-			return t.count
+		if t.Symbol == sym {
+			return t.Count
 		}
 	}
 	return 0
@@ -545,17 +531,16 @@ func (c composition) of(sym string) int {
 // add returns c with n more atoms of sym.
 func (c composition) add(sym string, n int) composition {
 	for i := range c {
-		if c[i].symbol == sym {
-			c[i].count += n
+		if c[i].Symbol == sym {
+			c[i].Count += n
 			return c
 		}
 	}
-	return append(c, elementCount{sym, n})
+	return append(c, notation.ElementCount{Symbol: sym, Count: n})
 }
 
-// parseBinary reads a formula of element symbols with counts and
-// bracketed groups ("Al2O3", "MgCl", "Ba(N3)2"), returning the element
-// counts in order of first appearance.
+// parseBinary reads a neutral formula ("Al2O3", "MgCl", "Ba(N3)2",
+// "Sr[N3]2") into its element counts in order of first appearance.
 func parseBinary(f string) (composition, error) {
 	comp, _, err := parseParts(f)
 	return comp, err
@@ -569,139 +554,26 @@ type formulaPart struct {
 	bracketed bool
 }
 
-// Bounds of parseParts: bracket depth, and atoms of one element (so that
-// nested counts cannot overflow).
-const (
-	maxBracketDepth = 4
-	maxElementAtoms = 100000
-)
+// errChargedFormula refuses an ion where a compound was asked for.
+var errChargedFormula = errors.New("the formula carries a charge; a compound is neutral")
 
-// parseParts reads formula f into its element counts and its top-level
-// parts. Counts are decimal, 1 to 999, without a leading zero.
+// parseParts reads formula f with the one formula reader
+// (notation.ParseFormula: counts, nested (), [] and {}, subscript digits)
+// into its element counts and its top-level parts. Its errors are
+// *notation.FormulaError, or errChargedFormula.
 func parseParts(f string) (composition, []formulaPart, error) {
-	f = strings.Map(func(r rune) rune {
-		if r >= '₀' && r <= '₉' {
-			return '0' + (r - '₀')
-		}
-		return r
-	}, f)
-	p := &binaryParser{f: f}
-	comp, parts, err := p.sequence(0)
+	fm, err := notation.ParseFormula(f)
 	if err != nil {
 		return nil, nil, err
 	}
-	if p.i < len(f) { // a ')' with no '('
-		return nil, nil, p.unexpected()
+	if fm.Charge != 0 {
+		return nil, nil, errChargedFormula
 	}
-	if len(comp) == 0 {
-		return nil, nil, fmt.Errorf("no element")
+	parts := make([]formulaPart, len(fm.Groups))
+	for i, g := range fm.Groups {
+		parts[i] = formulaPart{core: g.Text, count: g.Count, bracketed: g.Bracketed}
 	}
-	return comp, parts, nil
-}
-
-type binaryParser struct {
-	f string
-	i int
-}
-
-// sequence reads parts up to the end or a ')'.
-func (p *binaryParser) sequence(depth int) (composition, []formulaPart, error) {
-	var comp composition
-	var parts []formulaPart
-	f := p.f
-	for p.i < len(f) && f[p.i] != ')' {
-		ch := f[p.i]
-		switch {
-		case ch == '(':
-			open := p.i
-			if depth >= maxBracketDepth {
-				return nil, nil, fmt.Errorf("brackets nested deeper than %d at column %d", maxBracketDepth, open+1)
-			}
-			p.i++
-			inner, _, err := p.sequence(depth + 1)
-			if err != nil {
-				return nil, nil, err
-			}
-			if p.i >= len(f) {
-				return nil, nil, fmt.Errorf("bracket opened at column %d is not closed", open+1)
-			}
-			if len(inner) == 0 {
-				return nil, nil, fmt.Errorf("empty brackets at column %d", open+1)
-			}
-			core := f[open+1 : p.i]
-			p.i++
-			n, err := p.count()
-			if err != nil {
-				return nil, nil, err
-			}
-			for _, t := range inner {
-				if comp, err = comp.addChecked(t.symbol, t.count*n); err != nil {
-					return nil, nil, err
-				}
-			}
-			parts = append(parts, formulaPart{core: core, count: n, bracketed: true})
-		case ch >= 'A' && ch <= 'Z':
-			j := p.i + 1
-			for j < len(f) && f[j] >= 'a' && f[j] <= 'z' {
-				j++
-			}
-			sym := f[p.i:j]
-			if !data.IsElementSymbol(sym) {
-				return nil, nil, fmt.Errorf("unknown element %q at column %d", sym, p.i+1)
-			}
-			p.i = j
-			n, err := p.count()
-			if err != nil {
-				return nil, nil, err
-			}
-			if comp, err = comp.addChecked(sym, n); err != nil {
-				return nil, nil, err
-			}
-			parts = append(parts, formulaPart{core: sym, count: n})
-		default:
-			return nil, nil, p.unexpected()
-		}
-	}
-	return comp, parts, nil
-}
-
-// unexpected reports the character at p.i, whole (not its first byte), at
-// its 1-based column in characters.
-func (p *binaryParser) unexpected() error {
-	r, _ := utf8.DecodeRuneInString(p.f[p.i:])
-	return fmt.Errorf("unexpected %q at column %d", r, utf8.RuneCountInString(p.f[:p.i])+1)
-}
-
-// count reads the count after a part (1 when none is written).
-func (p *binaryParser) count() (int, error) {
-	f, j := p.f, p.i
-	k := j
-	for k < len(f) && f[k] >= '0' && f[k] <= '9' {
-		k++
-	}
-	p.i = k
-	if k == j {
-		return 1, nil
-	}
-	switch {
-	case f[j] == '0' && k-j == 1:
-		return 0, fmt.Errorf("zero count at column %d", j+1)
-	case f[j] == '0':
-		return 0, fmt.Errorf("count %q at column %d has a leading zero; write %s", f[j:k], j+1, strings.TrimLeft(f[j:k], "0"))
-	case k-j > 3:
-		return 0, fmt.Errorf("count too large at column %d", j+1)
-	}
-	n, _ := readCount(f[j:k])
-	return n, nil
-}
-
-// addChecked is add with a bound on the atoms of one element.
-func (c composition) addChecked(sym string, n int) (composition, error) {
-	c = c.add(sym, n)
-	if c.of(sym) > maxElementAtoms {
-		return c, fmt.Errorf("more than %d atoms of %s", maxElementAtoms, sym)
-	}
-	return c, nil
+	return fm.Counts(), parts, nil
 }
 
 // coreComposition returns the atoms of one ion core ("N3" → N 3); a core
@@ -709,7 +581,7 @@ func (c composition) addChecked(sym string, n int) (composition, error) {
 func coreComposition(core string) composition {
 	cc, err := parseBinary(core)
 	if err != nil {
-		return composition{{core, 1}}
+		return composition{{Symbol: core, Count: 1}}
 	}
 	return cc
 }
@@ -721,12 +593,12 @@ func coreComposition(core string) composition {
 func ionCounts(comp composition, cation, anion string) (a, b int, ok bool) {
 	cc, ac := coreComposition(cation), coreComposition(anion)
 	first := cc[0]
-	for a = 1; a*first.count <= comp.of(first.symbol); a++ {
+	for a = 1; a*first.Count <= comp.of(first.Symbol); a++ {
 		b = 0
 		fits := true
 		for _, t := range comp {
-			rest := t.count - a*cc.of(t.symbol)
-			per := ac.of(t.symbol)
+			rest := t.Count - a*cc.of(t.Symbol)
+			per := ac.of(t.Symbol)
 			switch {
 			case rest < 0, per == 0 && rest != 0, per != 0 && rest%per != 0:
 				fits = false
@@ -743,12 +615,12 @@ func ionCounts(comp composition, cation, anion string) (a, b int, ok bool) {
 		}
 		// Every element of both cores must be in the formula.
 		for _, t := range ac {
-			if comp.of(t.symbol) == 0 {
+			if comp.of(t.Symbol) == 0 {
 				fits = false
 			}
 		}
 		for _, t := range cc {
-			if comp.of(t.symbol) == 0 {
+			if comp.of(t.Symbol) == 0 {
 				fits = false
 			}
 		}
@@ -762,48 +634,11 @@ func ionCounts(comp composition, cation, anion string) (a, b int, ok bool) {
 // partText writes count n of an ion core in a formula: "Ba", "Cl2",
 // "(N3)2", "O2" for one peroxide.
 func partText(core string, n int) string {
-	if n != 1 && len(coreComposition(core)) == 1 && coreComposition(core)[0].count == 1 {
+	if n != 1 && len(coreComposition(core)) == 1 && coreComposition(core)[0].Count == 1 {
 		return core + countText(n)
 	}
 	if n != 1 {
 		return "(" + core + ")" + countText(n)
 	}
 	return core
-}
-
-// parseIonSymbol reads "Mg+", "Mg2+", "O2-", "Fe+3", "Cl^-".
-func parseIonSymbol(s string) (core string, charge int, ok bool) {
-	s = strings.ReplaceAll(strings.TrimSpace(s), "^", "")
-	i := 0
-	for i < len(s) && (s[i] >= 'A' && s[i] <= 'Z' || s[i] >= 'a' && s[i] <= 'z') {
-		i++
-	}
-	core, rest := s[:i], s[i:]
-	if core == "" || rest == "" {
-		return "", 0, false
-	}
-	sign := 1
-	var digits string
-	switch {
-	case strings.HasSuffix(rest, "+") || strings.HasSuffix(rest, "-"):
-		if rest[len(rest)-1] == '-' {
-			sign = -1
-		}
-		digits = rest[:len(rest)-1]
-	case rest[0] == '+' || rest[0] == '-':
-		if rest[0] == '-' {
-			sign = -1
-		}
-		digits = rest[1:]
-	default:
-		return "", 0, false
-	}
-	n := 1
-	if digits != "" {
-		var ok bool
-		if n, ok = readCount(digits); !ok || len(digits) > 2 {
-			return "", 0, false // also a leading zero: "Fe03+"
-		}
-	}
-	return core, sign * n, true
 }

@@ -94,6 +94,40 @@ func TestPolyatomicIonInBinaryFormula(t *testing.T) {
 	}
 }
 
+// TestBracketKindsBuildAlike: one formula reader serves Build, so square
+// and curly brackets name a polyatomic ion as round ones do — Sr[N3]2
+// builds as Sr(N3)2 and Ca[OH]2 as Ca(OH)2 (stoichiometry, no source
+// needed: the same atoms and the same ions). Before, Sr[N3]2 was
+// "unexpected '['" with a suggestion of Sr(NO3)2.
+func TestBracketKindsBuildAlike(t *testing.T) {
+	db := loadDB(t)
+	for _, tc := range []struct{ written, round string }{
+		{"Sr[N3]2", "Sr(N3)2"},
+		{"Sr{N3}2", "Sr(N3)2"},
+		{"Ca[OH]2", "Ca(OH)2"},
+		{"Ba[N3]2", "Ba(N3)2"},
+	} {
+		got, err := Build(db, tc.written, Options{})
+		if err != nil {
+			t.Errorf("Build(%s): %v", tc.written, err)
+			continue
+		}
+		want, err := Build(db, tc.round, Options{})
+		if err != nil {
+			t.Fatalf("Build(%s): %v", tc.round, err)
+		}
+		if got.Cation.Ion.Symbol != want.Cation.Ion.Symbol || got.Anion.Ion.Symbol != want.Anion.Ion.Symbol ||
+			got.Cation.Count != want.Cation.Count || got.Anion.Count != want.Anion.Count || len(got.Steps) != len(want.Steps) {
+			t.Errorf("Build(%s) = %s×%d %s×%d (%d steps); Build(%s) = %s×%d %s×%d (%d steps)", tc.written,
+				got.Cation.Ion.Symbol, got.Cation.Count, got.Anion.Ion.Symbol, got.Anion.Count, len(got.Steps), tc.round,
+				want.Cation.Ion.Symbol, want.Cation.Count, want.Anion.Ion.Symbol, want.Anion.Count, len(want.Steps))
+		}
+		if got.Anion.Ion.Charge != -1 || got.Anion.Count != 2 {
+			t.Errorf("Build(%s): anion %s ×%d, want a singly charged anion ×2", tc.written, got.Anion.Ion.Symbol, got.Anion.Count)
+		}
+	}
+}
+
 // TestBuildMessagesForUsers: the refusals of a formula name what the user
 // can give (a cation and an anion with charges), not the fields of Options
 // ("for example Anion Au-", "the cation and anion options" before).

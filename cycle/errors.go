@@ -1,10 +1,11 @@
 package cycle
 
 import (
-	"enthalpath/data"
 	"errors"
 	"fmt"
 	"strings"
+
+	"enthalpath/thermo/notation"
 )
 
 // Sentinel errors; the typed errors below wrap them so errors.Is works.
@@ -86,7 +87,7 @@ type ChargeError struct {
 }
 
 func (e *ChargeError) Error() string {
-	return fmt.Sprintf("%s: impossible charge balance: %s", data.ShortInput(e.Formula), e.Detail)
+	return fmt.Sprintf("%s: impossible charge balance: %s", notation.ShortInput(e.Formula), e.Detail)
 }
 
 func (e *ChargeError) Unwrap() error { return ErrChargeBalance }
@@ -104,7 +105,7 @@ type CompoundError struct {
 func (e *CompoundError) Error() string {
 	msg := e.Reason
 	if e.Formula != "" {
-		msg = fmt.Sprintf("%s: %s", data.ShortInput(e.Formula), e.Reason)
+		msg = fmt.Sprintf("%s: %s", notation.ShortInput(e.Formula), e.Reason)
 	}
 	if e.Err != nil {
 		msg += ": " + e.Err.Error()
@@ -158,10 +159,43 @@ type SettingError struct {
 
 func (e *SettingError) Error() string {
 	return fmt.Sprintf("setting %s: %s at column %d (write KEY=VALUE or KEY=VALUE±UNC, e.g. attachment-2=744±20)",
-		data.QuoteInput(e.Text), e.Reason, e.Column)
+		notation.QuoteInput(e.Text), e.Reason, e.Column)
 }
 
 func (e *SettingError) Unwrap() error { return ErrBadSetting }
+
+// ValueError reports an energy typed as VALUE[±UNC][UNIT] that cannot be
+// read (see ParseQuantity); Column is the 1-based column (in characters)
+// of the fault. Part and Problem say what is wrong for a front end that
+// words it itself; Reason is the engine's own account.
+type ValueError struct {
+	Text   string
+	Column int
+	// Part is "value" or "uncertainty"; "" for the text as a whole.
+	Part    string
+	Problem ValueProblem
+	Reason  string
+}
+
+// ValueProblem is what is wrong with a typed energy.
+type ValueProblem int
+
+const (
+	// ValueNotUTF8: the text is not valid UTF-8.
+	ValueNotUTF8 ValueProblem = iota + 1
+	// ValueMissing: no number where one is needed.
+	ValueMissing
+	// ValueNotANumber: the part is no finite decimal number.
+	ValueNotANumber
+	// ValueNegative: a negative uncertainty.
+	ValueNegative
+	// ValueTooLarge: beyond ±MaxStepMagnitude kJ/mol.
+	ValueTooLarge
+)
+
+func (e *ValueError) Error() string {
+	return fmt.Sprintf("value %s: %s at column %d", notation.QuoteInput(e.Text), e.Reason, e.Column)
+}
 
 // FileError reports a fault in a cycle file, with the line and field.
 type FileError struct {

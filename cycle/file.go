@@ -407,24 +407,27 @@ func (m fileModels) settings(text, path string) (Settings, *FileError) {
 			return bad("lattice_from", err.Error())
 		}
 	}
-	if m.Rho < 0 || math.IsNaN(m.Rho) || math.IsInf(m.Rho, 0) {
-		return bad("rho", "must be a positive distance in Å (or absent for the default)")
+	// 0 (the key absent) stands for the default; anything else is checked
+	// against the one bound every front end uses.
+	for _, f := range []struct {
+		key     string
+		setting ModelSetting
+		v       float64
+	}{{"rho", SettingRho, m.Rho}, {"born_exponent", SettingBornExponent, m.BornExponent},
+		{"cation_cn", SettingCN, float64(m.CationCN)}, {"anion_cn", SettingCN, float64(m.AnionCN)},
+		{"accuracy", SettingAccuracy, m.Accuracy}} {
+		if f.v != 0 || math.IsNaN(f.v) {
+			if err := CheckSetting(f.setting, f.v); err != nil {
+				return bad(f.key, err.Error()+"; leave the key out for the default")
+			}
+		}
 	}
 	s.Rho = m.Rho
-	if m.BornExponent != 0 && !(m.BornExponent > 1 && m.BornExponent < 100) {
-		return bad("born_exponent", "must be greater than 1 (or absent for Pauling's values)")
-	}
 	s.BornExponent = m.BornExponent
 	if m.Radius != "" {
 		if s.Radius, err = ParseRadiusKind(m.Radius); err != nil {
 			return bad("radius", err.Error())
 		}
-	}
-	if m.CationCN < 0 || m.CationCN > 16 {
-		return bad("cation_cn", "a coordination number is between 1 and 16 (0 for the structure's)")
-	}
-	if m.AnionCN < 0 || m.AnionCN > 16 {
-		return bad("anion_cn", "a coordination number is between 1 and 16 (0 for the structure's)")
 	}
 	s.CationCN, s.AnionCN = m.CationCN, m.AnionCN
 	if m.D0 != "" {
@@ -445,9 +448,6 @@ func (m fileModels) settings(text, path string) (Settings, *FileError) {
 	if m.CIF != "" {
 		s.Structure = Structure{CIF: m.CIF}
 	}
-	if m.Accuracy != 0 && !(m.Accuracy > 0 && m.Accuracy <= 1e-2) {
-		return bad("accuracy", "the Ewald accuracy lies between 0 and 0.01")
-	}
 	s.Accuracy = m.Accuracy
 	if m.Units != "" {
 		if s.Units, err = thermo.ParseUnit(m.Units); err != nil {
@@ -461,8 +461,8 @@ func (m fileModels) settings(text, path string) (Settings, *FileError) {
 func ParseDistance(s string) (DistanceSource, float64, error) {
 	t := strings.TrimSpace(strings.TrimSuffix(strings.TrimSpace(s), "Å"))
 	if v, err := parseNumber(t); err == nil {
-		if !(v > 0.5 && v < 20) {
-			return 0, 0, fmt.Errorf("d₀ = %g Å is not a cation–anion distance (0.5 to 20 Å)", v)
+		if err := CheckSetting(SettingD0, v); err != nil {
+			return 0, 0, err
 		}
 		return DistanceUser, v, nil
 	}

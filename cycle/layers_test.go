@@ -38,6 +38,10 @@ var layers = []layer{
 	// only, atomic saves): the CIF reader and the data overlay need it, so
 	// it sits at the bottom, importing nothing of the project.
 	{prefix: "enthalpath/thermo/fileio", leaf: true},
+	// Chemical notation (formulas, ion symbols, charges, the periodic
+	// table): the data tables, the engine, the CIF reader and the front
+	// ends read a formula the same way, so it too is a leaf.
+	{prefix: "enthalpath/thermo/notation", leaf: true},
 }
 
 // knownCrossings are imports that break an arrow today, each with its reason;

@@ -14,11 +14,11 @@ func coreMass(db *data.DB, core string) float64 {
 	}
 	m := 0.0
 	for _, t := range comp {
-		e, err := db.Element(t.symbol)
+		e, err := db.Element(t.Symbol)
 		if err != nil || !e.AtomicMass.Known() {
 			return 0
 		}
-		m += e.AtomicMass.V * float64(t.count)
+		m += e.AtomicMass.V * float64(t.Count)
 	}
 	return m
 }

@@ -78,63 +78,15 @@ func ParseSetting(text string, def thermo.Unit) (Setting, error) {
 		}
 	}
 	rest := text[eq+1:]
-	col0 := utf8.RuneCountInString(text[:eq+1]) + 1
-	// Unit suffix.
-	unit := def
-	body := strings.TrimSpace(rest)
-	lower := strings.ToLower(body)
-	for _, u := range []struct {
-		suffix string
-		unit   thermo.Unit
-	}{{"kcal/mol", thermo.KcalPerMol}, {"kj/mol", thermo.KJPerMol}, {"kcal", thermo.KcalPerMol}, {"kj", thermo.KJPerMol}, {"ev", thermo.EVPerFormulaUnit}} {
-		if strings.HasSuffix(lower, u.suffix) {
-			unit = u.unit
-			body = strings.TrimSpace(body[:len(body)-len(u.suffix)])
-			break
+	q, err := ParseQuantity(rest, def, "step "+key)
+	if ve, ok := err.(*ValueError); ok {
+		reason := ve.Reason
+		if ve.Part == "value" && ve.Problem == ValueMissing {
+			reason = "missing value after '='"
 		}
+		return bad(utf8.RuneCountInString(text[:eq+1])+ve.Column, reason)
 	}
-	valText, uncText, hasUnc := body, "", false
-	if i := strings.Index(body, "±"); i >= 0 {
-		valText, uncText, hasUnc = body[:i], body[i+len("±"):], true
-	} else if i := strings.Index(body, "+-"); i >= 0 {
-		valText, uncText, hasUnc = body[:i], body[i+2:], true
-	}
-	valText = strings.TrimSpace(valText)
-	if valText == "" {
-		return bad(col0, "missing value after '='")
-	}
-	v, err := parseNumber(valText)
-	if err != nil {
-		return bad(col0+leading(rest), "value "+strconv.Quote(valText)+" is not a number")
-	}
-	s := Setting{Key: key, Value: thermo.ToKJPerMol(v, unit)}
-	if why := checkTyped("the value of step "+key, v, unit); why != "" {
-		return bad(col0+leading(rest), why)
-	}
-	if hasUnc {
-		uncText = strings.TrimSpace(uncText)
-		sep, at := "±", strings.Index(rest, "±")
-		if at < 0 {
-			sep, at = "+-", strings.Index(rest, "+-")
-		}
-		start := at + len(sep)
-		uc := col0 + utf8.RuneCountInString(rest[:start]) + leading(rest[start:])
-		if uncText == "" {
-			return bad(uc, "missing uncertainty after ±")
-		}
-		u, err := parseNumber(uncText)
-		if err != nil {
-			return bad(uc, "uncertainty "+strconv.Quote(uncText)+" is not a number")
-		}
-		if u < 0 {
-			return bad(uc, "uncertainty must not be negative")
-		}
-		s.Uncertainty, s.HasUncertainty = math.Abs(thermo.ToKJPerMol(u, unit)), true
-		if why := checkTyped("the uncertainty of step "+key, u, unit); why != "" {
-			return bad(uc, why)
-		}
-	}
-	return s, nil
+	return Setting{Key: key, Value: q.Value, Uncertainty: q.Uncertainty, HasUncertainty: q.HasUncertainty}, nil
 }
 
 func leading(s string) int {

@@ -148,15 +148,15 @@ func readCount(s string) (int, bool) {
 func elementTerms(db *data.DB, comp composition) string {
 	var b strings.Builder
 	for i, t := range comp {
-		state := t.symbol + "(s)"
-		if el, err := db.Element(t.symbol); err == nil && el.StandardState != "" {
+		state := t.Symbol + "(s)"
+		if el, err := db.Element(t.Symbol); err == nil && el.StandardState != "" {
 			state = el.StandardState
 		}
-		formula, atoms, phase := splitState(state, t.symbol)
+		formula, atoms, phase := splitState(state, t.Symbol)
 		if i > 0 {
 			b.WriteString(" + ")
 		}
-		b.WriteString(coefficient(float64(t.count) / float64(atoms)))
+		b.WriteString(coefficient(float64(t.Count) / float64(atoms)))
 		subscripts.WriteString(&b, formula)
 		b.WriteString(phase)
 	}
@@ -169,10 +169,10 @@ func formationReaction(db *data.DB, c *Cycle) string {
 	addCore := func(core string, mult int) {
 		cc, err := parseBinary(core)
 		if err != nil {
-			cc = composition{{core, 1}}
+			cc = composition{{Symbol: core, Count: 1}}
 		}
 		for _, t := range cc {
-			comp = comp.add(t.symbol, t.count*mult)
+			comp = comp.add(t.Symbol, t.Count*mult)
 		}
 	}
 	addCore(c.Cation.Ion.Core, c.Cation.Count)

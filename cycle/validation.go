@@ -7,6 +7,7 @@ import (
 
 	"enthalpath/data"
 	"enthalpath/thermo/lattice"
+	"enthalpath/thermo/notation"
 )
 
 // The validation families: every compound falls in one, from its ions.
@@ -50,7 +51,7 @@ func ValidationFamily(c *Cycle) string {
 	if cat.Polyatomic || an.Polyatomic {
 		return FamilyPolyatomic
 	}
-	z := data.AtomicNumber(cat.Core)
+	z := notation.AtomicNumber(cat.Core)
 	switch an.Core {
 	case "F", "Cl", "Br", "I":
 		switch {

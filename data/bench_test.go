@@ -1,6 +1,10 @@
 package data
 
-import "testing"
+import (
+	"testing"
+
+	"enthalpath/thermo/notation"
+)
 
 // go test -run XXX -bench . -benchmem ./data/
 func BenchmarkLoad(b *testing.B) {
@@ -57,7 +61,7 @@ func BenchmarkLookup(b *testing.B) {
 	b.Run("ParseFormula", func(b *testing.B) {
 		b.ReportAllocs()
 		for b.Loop() {
-			if _, err := ParseFormula("Ca3(PO4)2"); err != nil {
+			if _, err := notation.ParseFormula("Ca3(PO4)2"); err != nil {
 				b.Fatal(err)
 			}
 		}

@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"enthalpath/thermo"
+	"enthalpath/thermo/notation"
 )
 
 // builder applies table rows to a DB under construction. With overlay set,
@@ -168,7 +169,7 @@ func (b *builder) element(r record) error {
 	if err != nil {
 		return err
 	}
-	if !IsElementSymbol(sym) {
+	if !notation.IsElementSymbol(sym) {
 		return r.errorf("symbol", "%q is not an element symbol", sym)
 	}
 	i, exists := b.db.elementIdx[sym]
@@ -177,15 +178,15 @@ func (b *builder) element(r record) error {
 	}
 	if !exists {
 		b.db.elementIdx[sym] = len(b.db.elements)
-		b.db.elements = append(b.db.elements, Element{Symbol: sym, Z: atomicNumber(sym)})
+		b.db.elements = append(b.db.elements, Element{Symbol: sym, Z: notation.AtomicNumber(sym)})
 		i = len(b.db.elements) - 1
 	}
 	e := &b.db.elements[i]
 	if z, ok, err := r.integer("z"); err != nil {
 		return err
 	} else if ok {
-		if z != atomicNumber(sym) {
-			return r.errorf("z", "atomic number %d does not match %s (Z = %d)", z, sym, atomicNumber(sym))
+		if z != notation.AtomicNumber(sym) {
+			return r.errorf("z", "atomic number %d does not match %s (Z = %d)", z, sym, notation.AtomicNumber(sym))
 		}
 	}
 	if r.has("name") {
@@ -426,7 +427,7 @@ func (b *builder) ion(r record) error {
 		if ion.Core, err = r.requiredStr("core"); err != nil {
 			return err
 		}
-		if _, ferr := ParseFormula(ion.Core); ferr != nil {
+		if _, ferr := notation.ParseFormula(ion.Core); ferr != nil {
 			return r.errorf("core", "%v", ferr)
 		}
 	}
@@ -503,7 +504,7 @@ func (b *builder) shannon(r record) error {
 	for j := range list {
 		if list[j].CN == cn && list[j].Spin == spin {
 			if !b.overlay {
-				return r.errorf("cn", "%s%s CN %s %s listed twice", core, chargeSuffix(charge, false), cn, spin)
+				return r.errorf("cn", "%s%s CN %s %s listed twice", core, notation.ChargeSuffix(charge, false), cn, spin)
 			}
 			if okC {
 				b.set(&list[j].Crystal, cr)
@@ -592,7 +593,7 @@ func (b *builder) compound(r record) error {
 	if b.overlay {
 		// Built-in formulas are checked by the data tests; their
 		// composition keys are built on first use (DB.compositions).
-		if _, ferr := ParseFormula(formula); ferr != nil {
+		if _, ferr := notation.ParseFormula(formula); ferr != nil {
 			return r.errorf("formula", "%v", ferr)
 		}
 	}
@@ -633,8 +634,8 @@ func (b *builder) compound(r record) error {
 			if *side.dstCount, err = r.requiredInt(side.count); err != nil {
 				return err
 			}
-			if *side.dstCount < 1 || *side.dstCount > maxCount {
-				return r.errorf(side.count, "count %d must be between 1 and %d, as in a formula", *side.dstCount, maxCount)
+			if *side.dstCount < 1 || *side.dstCount > notation.MaxCount {
+				return r.errorf(side.count, "count %d must be between 1 and %d, as in a formula", *side.dstCount, notation.MaxCount)
 			}
 		}
 	}
@@ -904,13 +905,13 @@ func (b *builder) finish() {
 		if _, dup := db.ionKeyIdx[k]; !dup {
 			db.ionKeyIdx[k] = i
 		}
-		for _, key := range []string{foldIon(ion.Symbol), caretIonSymbol(ion.Core, ion.Charge)} {
+		for _, key := range []string{notation.FoldIon(ion.Symbol), notation.CaretIonSymbol(ion.Core, ion.Charge)} {
 			if _, dup := db.ionFoldIdx[key]; !dup {
 				db.ionFoldIdx[key] = i
 			}
 		}
 		if !ion.Polyatomic {
-			db.ionFoldIdx[canonicalIonSymbol(ion.Core, ion.Charge, false)] = i
+			db.ionFoldIdx[notation.IonSymbol(ion.Core, ion.Charge, false)] = i
 		}
 	}
 	db.compoundFoldIdx = make(map[string]int, len(db.compounds))

@@ -26,6 +26,7 @@ import (
 
 	"enthalpath/thermo"
 	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/notation"
 )
 
 func loadTables(t *testing.T) *DB {
@@ -153,7 +154,7 @@ func TestCompoundCounts(t *testing.T) {
 func TestCompoundCompositionAndCharge(t *testing.T) {
 	db := loadTables(t)
 	for _, c := range db.Compounds() {
-		f, err := ParseFormula(c.Formula)
+		f, err := notation.ParseFormula(c.Formula)
 		if err != nil {
 			t.Errorf("%s: %v", c.Formula, err)
 			continue
@@ -164,7 +165,7 @@ func TestCompoundCompositionAndCharge(t *testing.T) {
 			n   int
 		}{{c.Cation, c.CationCount}, {c.Anion, c.AnionCount}} {
 			ion := ionOf(t, db, side.sym)
-			core, err := ParseFormula(ion.Core)
+			core, err := notation.ParseFormula(ion.Core)
 			if err != nil {
 				t.Errorf("%s: core %q of %s: %v", c.Formula, ion.Core, side.sym, err)
 				continue
@@ -449,7 +450,7 @@ func TestFormationAgainstPymatgen(t *testing.T) {
 		if v.KJ == nil {
 			continue
 		}
-		f, err := ParseFormula(formula)
+		f, err := notation.ParseFormula(formula)
 		if err != nil {
 			continue
 		}
@@ -465,7 +466,7 @@ func TestFormationAgainstPymatgen(t *testing.T) {
 	var missing, newDisagree []string
 	compared, newCompared := 0, 0
 	for _, c := range db.Compounds() {
-		f, err := ParseFormula(c.Formula)
+		f, err := notation.ParseFormula(c.Formula)
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -12,6 +12,8 @@ import (
 	"strconv"
 	"strings"
 	"sync"
+
+	"enthalpath/thermo/notation"
 )
 
 //go:embed tables/*.csv
@@ -298,11 +300,11 @@ func (db *DB) FindIon(symbol string) (Ion, bool) {
 	if i, ok := db.ionIdx[s]; ok {
 		return sharedIon(db.ions[i]), true
 	}
-	if i, ok := db.ionFoldIdx[foldIon(s)]; ok {
+	if i, ok := db.ionFoldIdx[notation.FoldIon(s)]; ok {
 		return sharedIon(db.ions[i]), true
 	}
-	for _, cand := range ionReadings(s) {
-		if i, ok := db.ionKeyIdx[cand]; ok {
+	for _, cand := range notation.IonReadings(s) {
+		if i, ok := db.ionKeyIdx[ionKey{cand.Core, cand.Charge}]; ok {
 			return sharedIon(db.ions[i]), true
 		}
 	}
@@ -314,7 +316,7 @@ func (db *DB) IonByCharge(core string, charge int) (Ion, error) {
 	if i, ok := db.ionKeyIdx[ionKey{strings.TrimSpace(core), charge}]; ok {
 		return sharedIon(db.ions[i]), nil
 	}
-	q := canonicalIonSymbol(core, charge, false)
+	q := notation.IonSymbol(core, charge, false)
 	var sugg []string
 	for _, ion := range db.ions {
 		if ion.Core == core {
@@ -368,7 +370,7 @@ func (db *DB) Radius(core string, charge int, cn string, spin string) (ShannonRa
 	}
 	core = strings.TrimSpace(core)
 	list = db.radii[ionKey{core, charge}]
-	sym := canonicalIonSymbol(core, charge, false)
+	sym := notation.IonSymbol(core, charge, false)
 	if len(list) == 0 {
 		return ShannonRadius{}, &NotFoundError{Kind: "radius", Query: sym, Detail: "no Shannon radii tabulated for this ion", Suggestions: db.ionsWithRadii(core)}
 	}
@@ -482,7 +484,7 @@ func (db *DB) ionsWithRadii(core string) []string {
 	var out []string
 	for k := range db.radii {
 		if k.core == core {
-			out = append(out, canonicalIonSymbol(k.core, k.charge, false))
+			out = append(out, notation.IonSymbol(k.core, k.charge, false))
 		}
 	}
 	slices.Sort(out)
@@ -550,8 +552,8 @@ func (db *DB) FindCompound(formula string) (Compound, bool) {
 	if i, ok := db.compoundFoldIdx[strings.ToLower(s)]; ok {
 		return copyCompound(db.compounds[i]), true
 	}
-	if f, err := ParseFormula(s); err == nil {
-		if i, ok := db.compositions().byKey[f.compositionKey()]; ok {
+	if f, err := notation.ParseFormula(s); err == nil {
+		if i, ok := db.compositions().byKey[f.Hill()]; ok {
 			return copyCompound(db.compounds[i]), true
 		}
 	}
@@ -688,11 +690,11 @@ func (db *DB) compositions() *compositions {
 		c.keys = make(map[string]string, len(db.compounds))
 		c.byKey = make(map[string]int, len(db.compounds))
 		for i, cp := range db.compounds {
-			f, err := ParseFormula(cp.Formula)
+			f, err := notation.ParseFormula(cp.Formula)
 			if err != nil {
 				continue
 			}
-			k := f.compositionKey()
+			k := f.Hill()
 			c.keys[cp.Formula] = k
 			if _, dup := c.byKey[k]; !dup {
 				c.byKey[k] = i

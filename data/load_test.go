@@ -10,6 +10,7 @@ import (
 	"testing/fstest"
 
 	"enthalpath/thermo"
+	"enthalpath/thermo/notation"
 )
 
 func mustLoad(t testing.TB) *DB {
@@ -102,7 +103,7 @@ func forEachValue(db *DB, fn func(where string, v Value)) {
 	}
 	for k, list := range db.radii {
 		for _, r := range list {
-			visit(canonicalIonSymbol(k.core, k.charge, false)+" radius "+r.CN, r.Ionic)
+			visit(notation.IonSymbol(k.core, k.charge, false)+" radius "+r.CN, r.Ionic)
 		}
 	}
 	for _, c := range db.Compounds() {
@@ -173,8 +174,8 @@ func TestRadiiGrowWithCoordination(t *testing.T) {
 			}
 			sort.SliceStable(chain, func(i, j int) bool { return chain[i].Coordination < chain[j].Coordination })
 			for i := 1; i < len(chain); i++ {
-				if chain[i].Ionic.V <= chain[i-1].Ionic.V && !shannonNotGrowing[canonicalIonSymbol(k.core, k.charge, false)+" "+chain[i].CN] {
-					t.Errorf("%s %s: CN %s radius %g not above CN %s radius %g", canonicalIonSymbol(k.core, k.charge, false), spin,
+				if chain[i].Ionic.V <= chain[i-1].Ionic.V && !shannonNotGrowing[notation.IonSymbol(k.core, k.charge, false)+" "+chain[i].CN] {
+					t.Errorf("%s %s: CN %s radius %g not above CN %s radius %g", notation.IonSymbol(k.core, k.charge, false), spin,
 						chain[i].CN, chain[i].Ionic.V, chain[i-1].CN, chain[i-1].Ionic.V)
 				}
 			}
@@ -341,7 +342,7 @@ func TestCompoundsAreConsistent(t *testing.T) {
 		t.Skip("compounds.csv is absent")
 	}
 	for _, c := range db.Compounds() {
-		f, err := ParseFormula(c.Formula)
+		f, err := notation.ParseFormula(c.Formula)
 		if err != nil {
 			t.Errorf("%s: %v", c.Formula, err)
 			continue
@@ -365,7 +366,7 @@ func TestCompoundsAreConsistent(t *testing.T) {
 			core string
 			n    int
 		}{{cat.Core, c.CationCount}, {an.Core, c.AnionCount}} {
-			cf, err := ParseFormula(side.core)
+			cf, err := notation.ParseFormula(side.core)
 			if err != nil {
 				t.Errorf("%s: ion core %q: %v", c.Formula, side.core, err)
 				continue
@@ -393,7 +394,7 @@ func TestCompoundsAreConsistent(t *testing.T) {
 func TestIonsAreConsistent(t *testing.T) {
 	db := mustLoad(t)
 	for _, ion := range db.Ions() {
-		f, err := ParseFormula(ion.Core)
+		f, err := notation.ParseFormula(ion.Core)
 		if err != nil {
 			t.Errorf("%s: core %v", ion.Symbol, err)
 			continue

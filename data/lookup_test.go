@@ -64,21 +64,6 @@ func TestCompoundsIn(t *testing.T) {
 	}
 }
 
-// Atomic numbers of the IUPAC periodic table (from memory); the lookup is
-// exact-case and every symbol round-trips through SymbolOfZ.
-func TestAtomicNumber(t *testing.T) {
-	for sym, z := range map[string]int{"H": 1, "Na": 11, "Fe": 26, "I": 53, "U": 92, "Og": 118, "fe": 0, "Xx": 0, "": 0} {
-		if got := AtomicNumber(sym); got != z || IsElementSymbol(sym) != (z > 0) {
-			t.Errorf("AtomicNumber(%q) = %d, IsElementSymbol %v; want %d", sym, got, IsElementSymbol(sym), z)
-		}
-	}
-	for z := 1; z <= 118; z++ {
-		if got := AtomicNumber(SymbolOfZ(z)); got != z {
-			t.Errorf("AtomicNumber(SymbolOfZ(%d)) = %d", z, got)
-		}
-	}
-}
-
 // Species of the NBS tables (data/sources/nbs-tables-1982): CO2(g) line
 // 1675 (ΔfH° −393.509, ΔfG° −394.359 kJ/mol, S° 213.74 J/(mol·K)) and
 // H2O(l) line 46 (ΔfH° −285.830 kJ/mol); read on first use, also after an overlay.

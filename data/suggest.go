@@ -3,6 +3,8 @@ package data
 import (
 	"sort"
 	"strings"
+
+	"enthalpath/thermo/notation"
 )
 
 // suggest returns up to n candidates closest to q by edit distance (case
@@ -92,7 +94,7 @@ func (db *DB) suggestIons(q string) []string {
 	}
 	out := suggest(q, cands, 4)
 	// Same core, other charges.
-	core := strings.TrimRight(strings.TrimRight(foldIon(q), "+-"), "0123456789")
+	core := strings.TrimRight(strings.TrimRight(notation.FoldIon(q), "+-"), "0123456789")
 	for _, ion := range db.ions {
 		if ion.Core == core && len(out) < 6 {
 			out = appendNew(out, ion.Symbol)
@@ -110,8 +112,8 @@ func (db *DB) suggestCompounds(q string) []string {
 	// Compounds sharing the elements of q, compared through the composition
 	// keys built at load: a miss must stay cheap (batch runs look up
 	// thousands of formulas the tables do not hold).
-	if f, err := ParseFormula(q); err == nil {
-		want := elementSet(f.compositionKey())
+	if f, err := notation.ParseFormula(q); err == nil {
+		want := elementSet(f.Hill())
 		keys := db.compositions().keys
 		for _, c := range db.compounds {
 			if len(out) >= 6 {

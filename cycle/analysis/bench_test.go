@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // BenchmarkScanMgCl: one metal–non-metal scan up to charge 4 (the issue
@@ -59,7 +60,7 @@ func batchInput(n int) []byte {
 	return b.Bytes()
 }
 
-func gcd(a, b int) int { return gcdInt(a, b) }
+func gcd(a, b int) int { return notation.GCD(a, b) }
 
 // BenchmarkBatch10000: 10,000 formulas through the batch, in-process.
 func BenchmarkBatch10000(b *testing.B) {

@@ -8,6 +8,7 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // DefaultModel is the lattice model of an estimate unless another is asked:
@@ -299,7 +300,7 @@ func (a *Analyst) ionSymbol(core string, z int) string {
 	if in, err := a.db.IonByCharge(core, z); err == nil {
 		return in.Symbol
 	}
-	return core + chargeSuffix(z)
+	return core + notation.ChargeSuffix(z, false)
 }
 
 // dataIon returns the symbol of the data's monatomic ion of element el with

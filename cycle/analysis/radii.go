@@ -7,6 +7,7 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // Radius is the radius an analysis used for one ion, with where it came from.
@@ -51,19 +52,7 @@ func IonRadius(db *data.DB, ion data.Ion) (Radius, error) {
 	}
 	return Radius{Value: best.Ionic.V, Kind: "neighbour",
 		From: fmt.Sprintf("no radius for %s in the data: the Shannon CN %s radius of %s%s used (neighbour rule, common practice, no source)",
-			ion.Symbol, best.CN, donor, chargeSuffix(ion.Charge))}, nil
-}
-
-func chargeSuffix(z int) string {
-	switch {
-	case z == 1:
-		return "+"
-	case z == -1:
-		return "-"
-	case z > 0:
-		return fmt.Sprintf("%d+", z)
-	}
-	return fmt.Sprintf("%d-", -z)
+			ion.Symbol, best.CN, donor, notation.ChargeSuffix(ion.Charge, false))}, nil
 }
 
 // useRadius makes p's ion carry radius r (Å) alone, so that every model of

@@ -9,6 +9,7 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/thermo"
 	"enthalpath/thermo/gibbs"
+	"enthalpath/thermo/notation"
 )
 
 // ScanOptions choose the oxidation states and the model of a scan.
@@ -157,8 +158,8 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 	}
 	an, err := a.db.Ion(anion)
 	if err != nil {
-		if core, z, ok := splitIon(anion); ok && core == nonmetal && z < 0 {
-			an.Symbol, an.Core, an.Charge = anion, core, z
+		if in, ok := notation.ParseIon(anion); ok && in.Core == nonmetal && in.Charge < 0 {
+			an.Symbol, an.Core, an.Charge = anion, in.Core, in.Charge
 		} else {
 			return nil, &InputError{Subject: anion, Field: "anion", Reason: "not an anion of " + nonmetal, Err: err}
 		}
@@ -190,7 +191,7 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 		Temperature: temp, Pressure: pres, Gibbs: true}
 	w := -an.Charge
 	for z := 1; z <= maxZ; z++ {
-		g := gcdInt(z, w)
+		g := notation.GCD(z, w)
 		mc, xc := w/g, z/g
 		formula := el.Symbol + countText(mc) + an.Core + countText(xc)
 		if an.Polyatomic && xc > 1 {
@@ -223,7 +224,7 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 		// The same formula may be a real compound of other ions (KO2 is
 		// potassium superoxide, not a K⁴⁺ oxide): say so, lest the row be
 		// read as the real compound's.
-		cation := el.Symbol + chargeSuffix(z)
+		cation := el.Symbol + notation.ChargeSuffix(z, false)
 		other := false
 		if real, ok := a.db.FindCompound(est.Formula); ok && (real.Cation != cation || real.Anion != an.Symbol) {
 			other = true
@@ -298,7 +299,7 @@ func (sc *Scan) disproportionations(a *Analyst) {
 				nq, np, nr := R.z-P.z, R.z-Q.z, Q.z-P.z
 				l := lcm(lcm(P.mc, Q.mc), R.mc)
 				fq, fp, fr := nq*l/Q.mc, np*l/P.mc, nr*l/R.mc
-				g := gcdInt(gcdInt(fq, fp), fr)
+				g := notation.GCD(notation.GCD(fq, fp), fr)
 				fq, fp, fr = fq/g, fp/g, fr/g
 				rx := newReaction("disproportionation",
 					[]Term{{Coefficient: float64(fq), Thermo: Q.th}},
@@ -368,7 +369,8 @@ func (sc *Scan) releases(a *Analyst, monatomic bool) {
 
 // anionCharge is |z| of the scan's anion.
 func (sc *Scan) anionCharge() int {
-	_, z, ok := splitIon(sc.Anion)
+	in, ok := notation.ParseIon(sc.Anion)
+	z := in.Charge
 	if !ok || z == 0 {
 		return 1
 	}
@@ -435,30 +437,7 @@ func countText(n int) string {
 	return fmt.Sprint(n)
 }
 
-func gcdInt(a, b int) int {
-	for b != 0 {
-		a, b = b, a%b
-	}
-	if a < 0 {
-		return -a
-	}
-	return a
-}
-
-func lcm(a, b int) int { return a / gcdInt(a, b) * b }
-
-// splitIon reads "Cl-", "O2-", "Cl2-" into core and charge.
-func splitIon(s string) (string, int, bool) {
-	i := 0
-	for i < len(s) && (s[i] >= 'A' && s[i] <= 'Z' || s[i] >= 'a' && s[i] <= 'z') {
-		i++
-	}
-	if i == 0 || i == len(s) {
-		return "", 0, false
-	}
-	z, ok := parseCharge(strings.TrimPrefix(s[i:], "^"))
-	return s[:i], z, ok
-}
+func lcm(a, b int) int { return a / notation.GCD(a, b) * b }
 
 // elementalForm returns the element as it is given off in its standard
 // state: the diatomic gases and halogens as X2, every other element as its

@@ -7,6 +7,7 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/thermo"
 	"enthalpath/thermo/gibbs"
+	"enthalpath/thermo/notation"
 )
 
 // StabilityOptions choose a stability analysis.
@@ -201,7 +202,7 @@ func (a *Analyst) gasReleases(st *Stability, c *cycle.Cycle, opt EstimateOptions
 		}
 	}
 	nM, nY := c.Cation.Count*f, int(float64(c.Anion.Count*f)*rel.Yield)
-	g := gcdInt(nM, nY)
+	g := notation.GCD(nM, nY)
 	product, ok := a.db.FindIon(rel.Product)
 	if !ok {
 		st.Notes = append(st.Notes, "the data have no ion "+rel.Product+": the decomposition of "+st.Formula+" is left out")

@@ -4,6 +4,7 @@ import (
 	"strings"
 
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // Standard is a species' measured standard data at 298.15 K and 1 bar.
@@ -71,7 +72,7 @@ func (s dbStandards) ElementEntropy(symbol string) (data.Value, bool) {
 		return data.Value{}, false
 	}
 	v := el.StandardEntropy
-	if f, err := data.ParseFormula(strings.SplitN(el.StandardState, "(", 2)[0]); err == nil {
+	if f, err := notation.ParseFormula(strings.SplitN(el.StandardState, "(", 2)[0]); err == nil {
 		if n := f.Composition()[el.Symbol]; n > 1 {
 			v.V /= float64(n)
 			v.U /= float64(n)

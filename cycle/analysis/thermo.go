@@ -8,6 +8,7 @@ import (
 	"enthalpath/data"
 	"enthalpath/thermo"
 	"enthalpath/thermo/entropy"
+	"enthalpath/thermo/notation"
 )
 
 // Quantity is a number with its standard uncertainty and provenance.
@@ -98,7 +99,7 @@ func (t Thermo) GibbsAt(temp float64) (float64, float64) {
 // elementsEntropy returns ΣS°(elements) of formula per mole (J/(mol·K)) with
 // its σ; ok false when an element lacks a standard entropy.
 func (a *Analyst) elementsEntropy(formula string) (float64, float64, bool) {
-	f, err := data.ParseFormula(formula)
+	f, err := notation.ParseFormula(formula)
 	if err != nil {
 		return 0, 0, false
 	}

@@ -11,7 +11,9 @@ import (
 	"strings"
 
 	"enthalpath/cycle"
+	"enthalpath/cycle/analysis"
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 const compareSynopsis = "compare FORMULA... | --all [--csv|--json] [model flags]"
@@ -36,41 +38,34 @@ type CompareRow struct {
 	Err error
 }
 
-// compareRows builds and solves the cycle of each formula with the same
-// settings, sharing one Madelung memo.
+// compareRows builds and solves the cycle of each formula (every compound
+// when formulas is nil) with the same settings (analysis.Survey).
 func compareRows(db *data.DB, formulas []string, mf *modelFlags, set map[string]bool) ([]CompareRow, error) {
 	conv, err := mf.conventions()
 	if err != nil {
 		return nil, err
 	}
-	memo := cycle.NewMemo()
-	rows := make([]CompareRow, 0, len(formulas))
-	for _, f := range formulas {
-		row := CompareRow{Formula: f, Handbook: math.NaN(), Lattice: math.NaN(), Uncertainty: math.NaN()}
-		c, err := cycle.Build(db, f, cycle.Options{Conventions: conv, Memo: memo})
-		if err != nil {
-			row.Err = err
-			rows = append(rows, row)
-			continue
+	local := map[string]bool{}
+	for k, v := range set {
+		local[k] = v
+	}
+	local["lattice-as"], local["ionization-at"] = false, false
+	entries, err := analysis.Survey(db, formulas, analysis.SurveyOptions{Conventions: conv,
+		Prepare: func(c *cycle.Cycle) error { return mf.apply(c, local, false) }})
+	if err != nil {
+		return nil, err
+	}
+	rows := make([]CompareRow, 0, len(entries))
+	for _, e := range entries {
+		row := CompareRow{Formula: e.Formula, Handbook: math.NaN(), Lattice: math.NaN(), Uncertainty: math.NaN(), Err: e.Err}
+		if e.Cycle != nil {
+			row.Formula, row.Family = e.Cycle.Formula, e.Cycle.Family
 		}
-		row.Formula, row.Family = c.Formula, c.Family
-		local := map[string]bool{}
-		for k, v := range set {
-			local[k] = v
-		}
-		local["lattice-as"], local["ionization-at"] = false, false
-		if err := mf.apply(c, local, false); err != nil {
-			return nil, err
-		}
-		r, err := cycle.Solve(c)
-		if err != nil {
-			row.Err = err
-			rows = append(rows, row)
-			continue
-		}
-		row.Lattice, row.Uncertainty, row.Models, row.Circular, row.Reference = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models, r.Circular, r.Reference
-		if r.Handbook != nil {
-			row.Handbook = r.Handbook.Value
+		if r := e.Result; r != nil {
+			row.Lattice, row.Uncertainty, row.Models, row.Circular, row.Reference = r.Lattice.In(e.Cycle.Conventions.Lattice), r.Lattice.Uncertainty, r.Models, r.Circular, r.Reference
+			if r.Handbook != nil {
+				row.Handbook = r.Handbook.Value
+			}
 		}
 		rows = append(rows, row)
 	}
@@ -108,9 +103,7 @@ func runCompare(env Env, args []string) error {
 	}
 	formulas := pos
 	if all {
-		for _, c := range db.Compounds() {
-			formulas = append(formulas, c.Formula)
-		}
+		formulas = nil // every compound
 	}
 	rows, err := compareRows(db, formulas, &mf, set)
 	if err != nil {
@@ -136,7 +129,7 @@ func runCompare(env Env, args []string) error {
 			if strings.HasPrefix(r.Err.Error(), r.Formula) { // it names the formula already
 				return &UsageError{r.Err}
 			}
-			return &UsageError{fmt.Errorf("%s: %w", data.ShortInput(r.Formula), r.Err)}
+			return &UsageError{fmt.Errorf("%s: %w", notation.ShortInput(r.Formula), r.Err)}
 		}
 	}
 	return nil
@@ -173,7 +166,7 @@ func writeCompareText(w io.Writer, rows []CompareRow, u thermoUnit, conv string)
 	if len(failed) > 0 {
 		fmt.Fprintf(w, "\n%d compound(s) whose cycle does not close:\n", len(failed))
 		for _, r := range failed {
-			fmt.Fprintf(w, "  %-10s %s\n", data.ShortInput(r.Formula), wrapText(r.Err.Error(), 100, strings.Repeat(" ", 13)))
+			fmt.Fprintf(w, "  %-10s %s\n", notation.ShortInput(r.Formula), wrapText(r.Err.Error(), 100, strings.Repeat(" ", 13)))
 		}
 	}
 }

@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -10,9 +11,9 @@ import (
 	"strings"
 
 	"enthalpath/cycle"
-	"enthalpath/data"
 	"enthalpath/thermo"
 	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/notation"
 )
 
 const cycleSynopsis = `cycle FORMULA [--solve KEY] [--set KEY=VALUE[±UNC]]... [--lattice-from MODEL]
@@ -69,14 +70,14 @@ func (m *modelFlags) apply(c *cycle.Cycle, set map[string]bool, all bool) error 
 	// A flag given explicitly is checked even at 0, the value that stands
 	// for "the default" only while the flag is left out.
 	if given("rho") {
-		if !(m.rho > 0 && m.rho < 5) {
-			return Usagef("--rho %g: give the Born–Mayer range in Å, a small positive number such as 0.345 (leave the flag out for that default)", m.rho)
+		if err := cycle.CheckSetting(cycle.SettingRho, m.rho); err != nil {
+			return boundUsage("rho", "give the Born–Mayer range in Å", err)
 		}
 		s.Rho = m.rho
 	}
 	if given("born-n") {
-		if !(m.bornN > 1 && m.bornN < 100) {
-			return Usagef("--born-n %g: the Born exponent must be greater than 1 (Pauling's values are 5 to 12; leave the flag out for their mean over the ions)", m.bornN)
+		if err := cycle.CheckSetting(cycle.SettingBornExponent, m.bornN); err != nil {
+			return boundUsage("born-n", "give the Born exponent", err)
 		}
 		s.BornExponent = m.bornN
 	}
@@ -91,8 +92,8 @@ func (m *modelFlags) apply(c *cycle.Cycle, set map[string]bool, all bool) error 
 		dst  *int
 	}{{"cn-cation", m.cnCation, &s.CationCN}, {"cn-anion", m.cnAnion, &s.AnionCN}} {
 		if given(cn.name) {
-			if cn.v < 1 || cn.v > 16 {
-				return Usagef("--%s %d: a coordination number is between 1 and 16 (leave the flag out for the structure's)", cn.name, cn.v)
+			if err := cycle.CheckSetting(cycle.SettingCN, float64(cn.v)); err != nil {
+				return boundUsage(cn.name, "give a whole coordination number", err)
 			}
 			*cn.dst = cn.v
 		}
@@ -103,8 +104,8 @@ func (m *modelFlags) apply(c *cycle.Cycle, set map[string]bool, all bool) error 
 		}
 	}
 	if given("accuracy") {
-		if !(m.accuracy > 0 && m.accuracy <= 1e-2) {
-			return Usagef("--accuracy %g: give a relative accuracy greater than 0 and at most 0.01, such as 1e-8 (leave the flag out for that default)", m.accuracy)
+		if err := cycle.CheckSetting(cycle.SettingAccuracy, m.accuracy); err != nil {
+			return boundUsage("accuracy", "give the relative accuracy of the Ewald sum", err)
 		}
 		s.Accuracy = m.accuracy
 	}
@@ -213,7 +214,7 @@ func runCycle(env Env, args []string) error {
 	case open == "" && len(pos) == 0:
 		return Usagef("no formula: usage: enthalpath %s", cycleSynopsis)
 	case len(pos) > 1:
-		return Usagef("one formula at a time (got %s); use compare for several", data.ShortInput(strings.Join(pos, " ")))
+		return Usagef("one formula at a time (got %s); use compare for several", notation.ShortInput(strings.Join(pos, " ")))
 	}
 	db, err := loadData(env)
 	if err != nil {
@@ -686,4 +687,16 @@ func printAnionValue(w io.Writer, c *cycle.Cycle, e *cycle.AnionValueEffect) {
 	}
 	fmt.Fprintf(w, "  with the %s value (%s = %s %s; --anion-value %s) %s would move by %s %s.\n",
 		e.Other, e.Step, energy(e.OtherValue, u), u, e.Other, e.Solved, energy(e.Shift, u), u)
+}
+
+// boundUsage words a model setting refused by the engine's bound for the
+// command line: the flag and the value as typed, what to give, the bound
+// and the usual values, and how to get the default.
+func boundUsage(flag, advice string, err error) error {
+	var be *cycle.BoundError
+	if !errors.As(err, &be) {
+		return Usagef("--%s: %v", flag, err)
+	}
+	return Usagef("--%s %s: %s (%s; %s); leave the flag out for the default", flag, strconv.FormatFloat(be.Value, 'g', -1, 64),
+		advice, be.Bound.Range(be.Setting.String()), be.Bound.Usual)
 }

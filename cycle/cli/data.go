@@ -12,6 +12,7 @@ import (
 
 	"enthalpath/data"
 	"enthalpath/thermo"
+	"enthalpath/thermo/notation"
 )
 
 const dataSynopsis = `data QUERY [--kind element|ion|compound] [--json]
@@ -112,13 +113,13 @@ func dataFindAny(db *data.DB, q string) (any, error) {
 			// Element lookups ignore case ("na" is Na), but a query that
 			// reads as a formula of several elements ("HF", "CO", "SN")
 			// means that compound, not the element its letters spell.
-			if f, ferr := data.ParseFormula(t); ferr == nil && len(f.Elements()) > 1 {
+			if f, ferr := notation.ParseFormula(t); ferr == nil && len(f.Elements()) > 1 {
 				var parts []string
 				for _, g := range f.Groups {
 					parts = append(parts, g.Text)
 				}
 				return nil, Usagef("%s reads as a compound of %s, which is not in the data; for the element %s (%s) ask for %q",
-					data.QuoteInput(q), strings.Join(parts, " and "), e.Symbol, e.Name, e.Symbol)
+					notation.QuoteInput(q), strings.Join(parts, " and "), e.Symbol, e.Name, e.Symbol)
 			}
 			return e, nil
 		}
@@ -135,9 +136,9 @@ func dataFindAny(db *data.DB, q string) (any, error) {
 			}
 		}
 	}
-	msg := "nothing called " + data.QuoteInput(q) + " in the data"
-	var fe *data.FormulaError
-	if _, ferr := data.ParseFormula(t); errors.As(ferr, &fe) && !endsInCharge && len(t) > 2 {
+	msg := "nothing called " + notation.QuoteInput(q) + " in the data"
+	var fe *notation.FormulaError
+	if _, ferr := notation.ParseFormula(t); errors.As(ferr, &fe) && !endsInCharge && len(t) > 2 {
 		msg += " (read as a formula: " + fe.Detail() + ")"
 	}
 	if len(sugg) > 0 {

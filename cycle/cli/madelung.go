@@ -51,8 +51,10 @@ func runMadelung(env Env, args []string) error {
 		}
 		return listPrototypes(env.Stdout, *asJSON)
 	}
-	if givenFlags(fs)["accuracy"] && *accuracy == 0 { // 0 would mean the library's default
-		return Usagef("--accuracy 0: give a relative accuracy greater than 0 and at most %g, such as %g (leave the flag out for that default)", ewald.CoarsestAccuracy, ewald.DefaultAccuracy)
+	if givenFlags(fs)["accuracy"] { // 0 would mean the library's default
+		if err := cycle.CheckSetting(cycle.SettingAccuracy, *accuracy); err != nil {
+			return boundUsage("accuracy", "give the relative accuracy of the Ewald sum", err)
+		}
 	}
 	if len(pos) != 1 {
 		fs.Usage()

@@ -98,15 +98,15 @@ func TestExplicitZeroRefused(t *testing.T) {
 		want string
 	}{
 		{"cycle", []string{"NaCl", "--rho", "0"}, "--rho 0: give the Born–Mayer range"},
-		{"cycle", []string{"NaCl", "--born-n", "0"}, "--born-n 0: the Born exponent must be greater than 1"},
-		{"cycle", []string{"NaCl", "--cn-cation", "0"}, "--cn-cation 0: a coordination number is between 1 and 16"},
-		{"cycle", []string{"NaCl", "--accuracy", "0"}, "--accuracy 0: give a relative accuracy greater than 0"},
+		{"cycle", []string{"NaCl", "--born-n", "0"}, "--born-n 0: give the Born exponent (1 < n ≤ 30"},
+		{"cycle", []string{"NaCl", "--cn-cation", "0"}, "--cn-cation 0: give a whole coordination number (1 ≤ CN ≤ 16"},
+		{"cycle", []string{"NaCl", "--accuracy", "0"}, "--accuracy 0: give the relative accuracy of the Ewald sum (0 < accuracy ≤ 0.01"},
 		{"compare", []string{"NaCl", "--rho", "0"}, "--rho 0"},
 		{"scan", []string{"Mg", "Cl", "--max-charge", "0"}, "--max-charge 0: give the highest metal charge to try, 1 or more"},
 		{"estimate", []string{"MgCl", "--cation-radius", "0"}, "--cation-radius 0: give the radius in Å"},
 		{"radius", []string{"NaNO3", "--ion", "NO3-", "--counter-radius", "0"}, "--counter-radius 0: give the radius in Å"},
 		{"radius", []string{"NaNO3", "--ion", "NO3-", "--lattice", "0"}, "--lattice 0: give the lattice energy"},
-		{"madelung", []string{"rock-salt", "--accuracy", "0"}, "--accuracy 0: give a relative accuracy greater than 0"},
+		{"madelung", []string{"rock-salt", "--accuracy", "0"}, "--accuracy 0: give the relative accuracy of the Ewald sum (0 < accuracy ≤ 0.01"},
 	}
 	for _, c := range cases {
 		_, errs, code := run(t, c.name, c.args...)

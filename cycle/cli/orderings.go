@@ -10,6 +10,7 @@ import (
 	"strconv"
 	"strings"
 
+	"enthalpath/cycle"
 	"enthalpath/thermo/cif"
 	"enthalpath/thermo/ewald"
 	"enthalpath/thermo/ordering"
@@ -58,8 +59,8 @@ func runOrderings(env Env, args []string) error {
 	if *keep < 1 || *sweeps < 1 || *restarts < 1 {
 		return Usagef("--keep, --sweeps and --restarts must be positive")
 	}
-	if !(*accuracy > 0 && *accuracy <= ewald.CoarsestAccuracy) {
-		return Usagef("--accuracy %g: give a relative accuracy greater than 0 and at most %g", *accuracy, ewald.CoarsestAccuracy)
+	if err := cycle.CheckSetting(cycle.SettingAccuracy, *accuracy); err != nil {
+		return boundUsage("accuracy", "give the relative accuracy of the Ewald sums", err)
 	}
 	var m ordering.Method
 	switch *method {

@@ -6,13 +6,13 @@ import (
 	"strings"
 
 	"enthalpath/cycle/analysis"
-	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 func runRadiusFit(env Env, a *analysis.Analyst, pos []string, ion, counterRadii, only string, u, rc float64, asJSON bool) error {
 	switch {
 	case len(pos) != 0:
-		return Usagef("--all-salts takes no formula (it uses every salt of %s in the data); got %s", ion, data.QuoteInput(strings.Join(pos, " ")))
+		return Usagef("--all-salts takes no formula (it uses every salt of %s in the data); got %s", ion, notation.QuoteInput(strings.Join(pos, " ")))
 	case u != 0:
 		return Usagef("--lattice goes with one FORMULA, not with --all-salts (each salt's lattice energy is its own cycle's)")
 	case rc != 0:

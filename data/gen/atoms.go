@@ -6,7 +6,7 @@ import (
 	"strconv"
 	"strings"
 
-	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // elements writes elements.csv: ΔfH°(X, g, 298.15 K) and S° of the
@@ -59,7 +59,7 @@ func (g *generator) elements() (*table, error) {
 		}
 		u := spread(atomization, 0, nbsUnit(gas), alts)
 		g.addAlts("atomization", sym, alts)
-		row := map[string]string{"symbol": sym, "z": strconv.Itoa(data.AtomicNumber(sym)), "name": k["name"], "standard_state": std,
+		row := map[string]string{"symbol": sym, "z": strconv.Itoa(notation.AtomicNumber(sym)), "name": k["name"], "standard_state": std,
 			"atomization_kj_per_mol": gas.Original, "atomization_uncertainty": num(nonzero(u)), "source": keyNBS,
 			"locator": locator(nbsFile, gas.Line)}
 		if atomization == 0 {
@@ -103,7 +103,7 @@ func (g *generator) ionization() (*table, error) {
 		}
 		q, err := strconv.Atoi(r.Cells["ion_charge"])
 		limit := maxIonStage
-		if z := data.AtomicNumber(sym); z <= 10 {
+		if z := notation.AtomicNumber(sym); z <= 10 {
 			limit = z
 		}
 		if err != nil || q+1 > limit || q != next[sym] {
@@ -292,7 +292,7 @@ func (g *generator) species() (*table, error) {
 		if !(r.State == "g" || r.State == "l" || stdState[key] && r.H == 0) || seen[key] {
 			continue
 		}
-		if p, err := data.ParseFormula(r.Formula); err != nil || p.Charge != 0 {
+		if p, err := notation.ParseFormula(r.Formula); err != nil || p.Charge != 0 {
 			continue
 		}
 		seen[key] = true

@@ -7,7 +7,7 @@ import (
 	"strconv"
 	"strings"
 
-	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // ionDef is a row of data/tables/ions.csv (hand-kept: symbols, charges).
@@ -44,13 +44,6 @@ type ionPair struct {
 	m, n          int
 }
 
-func gcd(a, b int) int {
-	for b != 0 {
-		a, b = b, a%b
-	}
-	return a
-}
-
 // pairsFor lists every (cation, anion) of the ion table whose charge-
 // balanced combination has exactly the composition comp.
 func pairsFor(comp map[string]float64, ions []ionDef) []ionPair {
@@ -64,7 +57,7 @@ func pairsFor(comp map[string]float64, ions []ionDef) []ionPair {
 				continue
 			}
 			za := -a.charge
-			d := gcd(c.charge, za)
+			d := notation.GCD(c.charge, za)
 			m0, n0 := za/d, c.charge/d
 			// Find the multiple k from any element of the cation.
 			k := 0
@@ -537,8 +530,6 @@ func memoryNames(cell, name string) bool {
 	return false
 }
 
-var _ = data.ParseFormula
-
 // ionValues writes ion_values.csv: ΔfH°(ion, g, 298.15 K) of each
 // polyatomic ion from the sources in the order of preference of
 // choices.csv (prefer, ion_gas_formation), the others in alternatives.csv;
@@ -733,7 +724,7 @@ func gasOligomer(phases []nbsRow, comp map[string]float64) bool {
 	}
 	d := 0
 	for _, n := range comp {
-		d = gcd(d, int(n))
+		d = notation.GCD(d, int(n))
 	}
 	return d > 1
 }

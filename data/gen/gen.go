@@ -8,7 +8,7 @@ import (
 	"strconv"
 	"strings"
 
-	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 // Source keys of sources.csv the generator cites.
@@ -246,7 +246,7 @@ func atctComposition(f string) (map[string]float64, int, bool) {
 
 // composition parses a formula into element counts.
 func composition(f string) (map[string]float64, int, bool) {
-	p, err := data.ParseFormula(f)
+	p, err := notation.ParseFormula(f)
 	if err != nil {
 		return nil, 0, false
 	}

@@ -1,38 +1,10 @@
 package cif
 
-import "strings"
+import (
+	"strings"
 
-// elementSymbols lists the chemical elements by atomic number (index 0 is
-// unused), hydrogen to oganesson, as named by IUPAC (the 2016
-// recommendations complete the seventh period). Never written.
-var elementSymbols = [...]string{"",
-	"H", "He",
-	"Li", "Be", "B", "C", "N", "O", "F", "Ne",
-	"Na", "Mg", "Al", "Si", "P", "S", "Cl", "Ar",
-	"K", "Ca", "Sc", "Ti", "V", "Cr", "Mn", "Fe", "Co", "Ni", "Cu", "Zn",
-	"Ga", "Ge", "As", "Se", "Br", "Kr",
-	"Rb", "Sr", "Y", "Zr", "Nb", "Mo", "Tc", "Ru", "Rh", "Pd", "Ag", "Cd",
-	"In", "Sn", "Sb", "Te", "I", "Xe",
-	"Cs", "Ba",
-	"La", "Ce", "Pr", "Nd", "Pm", "Sm", "Eu", "Gd", "Tb", "Dy", "Ho", "Er", "Tm", "Yb", "Lu",
-	"Hf", "Ta", "W", "Re", "Os", "Ir", "Pt", "Au", "Hg",
-	"Tl", "Pb", "Bi", "Po", "At", "Rn",
-	"Fr", "Ra",
-	"Ac", "Th", "Pa", "U", "Np", "Pu", "Am", "Cm", "Bk", "Cf", "Es", "Fm", "Md", "No", "Lr",
-	"Rf", "Db", "Sg", "Bh", "Hs", "Mt", "Ds", "Rg", "Cn",
-	"Nh", "Fl", "Mc", "Lv", "Ts", "Og",
-}
-
-// AtomicNumber returns the atomic number of the element with symbol sym
-// (exact case, as "Na"), or 0 if there is none.
-func AtomicNumber(sym string) int {
-	for z := 1; z < len(elementSymbols); z++ {
-		if elementSymbols[z] == sym {
-			return z
-		}
-	}
-	return 0
-}
+	"enthalpath/thermo/notation"
+)
 
 // normalizeSymbol writes a one- or two-letter symbol in the usual case:
 // "NA" and "na" become "Na".
@@ -56,12 +28,12 @@ func elementPrefix(s string) (string, int) {
 		n++
 	}
 	if n == 2 {
-		if two := normalizeSymbol(s[:2]); AtomicNumber(two) > 0 {
+		if two := normalizeSymbol(s[:2]); notation.AtomicNumber(two) > 0 {
 			return two, 2
 		}
 	}
 	if n >= 1 {
-		if one := normalizeSymbol(s[:1]); AtomicNumber(one) > 0 {
+		if one := normalizeSymbol(s[:1]); notation.AtomicNumber(one) > 0 {
 			return one, 1
 		}
 	}

@@ -13,6 +13,7 @@ import (
 
 	"enthalpath/thermo/crystal"
 	"enthalpath/thermo/fileio"
+	"enthalpath/thermo/notation"
 )
 
 // Options adjust how a CIF file becomes a crystal.
@@ -412,7 +413,7 @@ func typeSymbol(s string) (el string, charge float64, hasCharge bool, err error)
 	for n < len(s) && isLetter(s[n]) {
 		n++
 	}
-	if n == 0 || n > 2 || AtomicNumber(normalizeSymbol(s[:n])) == 0 {
+	if n == 0 || n > 2 || notation.AtomicNumber(normalizeSymbol(s[:n])) == 0 {
 		return "", 0, false, ErrUnknownElement
 	}
 	el = normalizeSymbol(s[:n])
@@ -783,7 +784,7 @@ func (rd *reader) formulaUnits(c *crystal.Crystal) (int, error) {
 	}
 	g := 0
 	for _, n := range counts {
-		g = gcd(g, n)
+		g = notation.GCD(g, n)
 	}
 	if !whole || g == 0 {
 		g = 1
@@ -824,11 +825,4 @@ func (rd *reader) disordered() bool {
 		}
 	}
 	return false
-}
-
-func gcd(a, b int) int {
-	for b != 0 {
-		a, b = b, a%b
-	}
-	return a
 }

@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/notation"
 )
 
 // primitive returns the system of the primitive cell of s: the lattice
@@ -25,7 +26,7 @@ func (s *system) primitive() (*system, bool) {
 		if !ok {
 			return nil, false
 		}
-		den = den / gcd(den, d) * d
+		den = den / notation.GCD(den, d) * d
 	}
 	cols := [][3]int64{{den, 0, 0}, {0, den, 0}, {0, 0, den}}
 	for _, t := range s.generators {
@@ -76,16 +77,6 @@ func denominator(t crystal.Vec3, limit int64) (int64, bool) {
 		}
 	}
 	return 0, false
-}
-
-func gcd(a, b int64) int64 {
-	for b != 0 {
-		a, b = b, a%b
-	}
-	if a < 0 {
-		return -a
-	}
-	return a
 }
 
 // hermiteBasis returns three integer vectors spanning the same lattice as

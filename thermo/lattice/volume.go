@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"enthalpath/thermo"
+	"enthalpath/thermo/notation"
 )
 
 // SI prefixes used to move between Å³, nm³ and cm³ (exact by definition).
@@ -73,7 +74,7 @@ func FitFor(ions []IonKind) VolumeFit {
 	if cat.Charge <= 0 || an.Charge >= 0 || cat.Count <= 0 || an.Count <= 0 {
 		return fitGeneral
 	}
-	g := gcd(cat.Count, an.Count)
+	g := notation.GCD(cat.Count, an.Count)
 	nc, na := cat.Count/g, an.Count/g
 	zc, za := cat.Charge, -an.Charge
 	switch {
@@ -269,16 +270,6 @@ func MolarVolumeFromCell(cellVolume float64, z int) (float64, error) {
 }
 
 func cube(x float64) float64 { return x * x * x }
-
-func gcd(a, b int) int {
-	for b != 0 {
-		a, b = b, a%b
-	}
-	if a < 0 {
-		return -a
-	}
-	return a
-}
 
 // DerivedIonVolume returns the volume (nm³) of one ion of kind
 // ions[unknown] for which the volume-based model reproduces the lattice

@@ -235,6 +235,7 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		return m.accept()
 	case key.Matches(k, km.Type):
 		m.startEdit()
+		return m.sess.WarmMagnitudes(m.ctx.DB) // ready by the time the value is typed
 	case key.Matches(k, km.Unknown):
 		return m.markUnknown()
 	}
@@ -405,7 +406,7 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 		}
 		kj, unc, err := m.ctx.ParseValue(text, keep)
 		if err != nil {
-			return nil, err
+			return nil, session.ValueError(text, err)
 		}
 		if err := confirm.Ask(text, m.sess.Question(m.ctx, s.Kind, text, kj)); err != nil {
 			return nil, err

@@ -178,6 +178,7 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		m.move(len(c.Steps))
 	case key.Matches(k, km.Edit):
 		m.startEdit()
+		return m.sess.WarmMagnitudes(m.ctx.DB) // ready by the time the value is typed
 	case key.Matches(k, km.Unknown):
 		s := m.current()
 		return m.change(func(c *cycle.Cycle) error { return c.SolveFor(s.Key) },
@@ -260,7 +261,7 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 			err = m.plausible(s, kj)
 		}
 		if err != nil {
-			return nil, err
+			return nil, session.ValueError(text, err)
 		}
 		if err := confirm.Ask(text, m.sess.Question(m.ctx, s.Kind, text, kj)); err != nil {
 			return nil, err

@@ -4,6 +4,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -296,6 +297,42 @@ func TestExplanationsAreNotCut(t *testing.T) {
 				if !strings.Contains(m.View(), "› "+name) {
 					t.Errorf("%s at %d×%d: the setting %s is not shown when chosen:\n%s", formula, size[0], size[1], name, m.View())
 				}
+			}
+		}
+	}
+}
+
+// TestSettingsTakeTheEngineBounds: the ρ and n rows accept exactly what
+// cycle.CheckSetting accepts, the bound of the command line and of cycle
+// files too (before: ρ ≤ 2 Å and 1 ≤ n ≤ 20 here, ρ < 5 Å and n < 100 on
+// the command line). The values straddle the ends (common practice, no
+// source).
+func TestSettingsTakeTheEngineBounds(t *testing.T) {
+	f, _, _ := setup(t, "NaCl")
+	rows := settingsRows()
+	find := func(prefix string) setting {
+		for _, r := range rows {
+			if strings.HasPrefix(r.name, prefix) {
+				return r
+			}
+		}
+		t.Fatalf("no row %q", prefix)
+		return setting{}
+	}
+	for _, tc := range []struct {
+		row     string
+		setting cycle.ModelSetting
+		values  []float64
+	}{
+		{"ρ", cycle.SettingRho, []float64{0.345, 2, 2.5, 4, -0.3}},
+		{"Born exponent", cycle.SettingBornExponent, []float64{1, 1.5, 9, 30, 50}},
+	} {
+		r := find(tc.row)
+		for _, v := range tc.values {
+			c := f.Session.Cycle.Clone()
+			err := r.parse(c, strconv.FormatFloat(v, 'g', -1, 64), nil)
+			if want := cycle.CheckSetting(tc.setting, v) == nil; (err == nil) != want {
+				t.Errorf("%s row, %g: %v; engine bound accepts: %v", tc.row, v, err, want)
 			}
 		}
 	}

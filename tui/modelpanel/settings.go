@@ -23,13 +23,16 @@ type setting struct {
 	hint    string
 }
 
-func positive(name, text string) (float64, error) {
+// bounded reads a number typed for a model setting and checks it against
+// the engine's one bound for it (cycle.CheckSetting), as the command line
+// and cycle files do.
+func bounded(ms cycle.ModelSetting, text string) (float64, error) {
 	v, err := strconv.ParseFloat(strings.TrimSpace(text), 64)
 	if err != nil {
-		return 0, fmt.Errorf("%s: %q is not a number", name, text)
+		return 0, fmt.Errorf("%s: %q is not a number", ms, text)
 	}
-	if v <= 0 || v != v {
-		return 0, fmt.Errorf("%s must be a positive number, not %q", name, text)
+	if err := cycle.CheckSetting(ms, v); err != nil {
+		return 0, err
 	}
 	return v, nil
 }
@@ -103,10 +106,7 @@ func settingsRows() []setting {
 				return autoOr(s.Rho, " Å")
 			},
 			parse: func(c *cycle.Cycle, text string, _ func(string) (string, error)) error {
-				v, err := positive("ρ", text)
-				if err == nil && v > 2 {
-					err = fmt.Errorf("ρ = %g Å is far outside the usual 0.2–0.5 Å; type it in Å", v)
-				}
+				v, err := bounded(cycle.SettingRho, text)
 				if err == nil {
 					c.Settings.Rho = v
 				}
@@ -124,10 +124,7 @@ func settingsRows() []setting {
 				return autoOr(s.BornExponent, "")
 			},
 			parse: func(c *cycle.Cycle, text string, _ func(string) (string, error)) error {
-				v, err := positive("n", text)
-				if err == nil && (v < 1 || v > 20) {
-					err = fmt.Errorf("n = %g is outside 1–20 (Pauling's values run 5–12)", v)
-				}
+				v, err := bounded(cycle.SettingBornExponent, text)
 				if err == nil {
 					c.Settings.BornExponent = v
 				}
@@ -161,19 +158,9 @@ func settingsRows() []setting {
 				return s.Distance.String()
 			},
 			parse: func(c *cycle.Cycle, text string, _ func(string) (string, error)) error {
-				if v, err := strconv.ParseFloat(strings.TrimSpace(text), 64); err == nil {
-					if v <= 0.5 || v > 10 {
-						return fmt.Errorf("d₀ = %g Å is not a cation–anion distance (0.5–10 Å)", v)
-					}
-					c.Settings.Distance, c.Settings.D0 = cycle.DistanceUser, v
-					return nil
-				}
-				d, err := cycle.ParseDistanceSource(text)
+				d, v, err := cycle.ParseDistance(text)
 				if err == nil {
-					if d == cycle.DistanceUser {
-						return fmt.Errorf("type the distance in Å for a d₀ of your own")
-					}
-					c.Settings.Distance = d
+					c.Settings.Distance, c.Settings.D0 = d, v
 				}
 				return err
 			},
@@ -219,8 +206,11 @@ func cnRow(name string, field func(s *cycle.Settings) *int) setting {
 		},
 		parse: func(c *cycle.Cycle, text string, _ func(string) (string, error)) error {
 			v, err := strconv.Atoi(strings.TrimSpace(text))
-			if err != nil || v < 1 || v > 14 {
-				return fmt.Errorf("%s: %q is not a coordination number (an integer 1–14)", name, text)
+			if err != nil {
+				return fmt.Errorf("%s: %q is not a coordination number (a whole number)", name, text)
+			}
+			if err := cycle.CheckSetting(cycle.SettingCN, float64(v)); err != nil {
+				return fmt.Errorf("%s: %w", name, err)
 			}
 			*field(&c.Settings) = v
 			return nil

@@ -1,11 +1,13 @@
 package screen
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strconv"
 	"strings"
 
+	"enthalpath/cycle"
 	"enthalpath/thermo"
 )
 
@@ -51,35 +53,28 @@ func FormatEnergy(kj float64, u thermo.Unit) string {
 }
 
 // ParseEnergy reads a number typed by the user in unit u, with an optional
-// uncertainty after "±" or "+-" (for example "-787.2 ± 2", "744+-20"), and
-// returns both in kJ/mol. The minus sign may be "-" or "−". The error says
-// what is wrong and where (1-based column).
+// uncertainty after "±", "+-" or "+/-" and an optional unit (for example
+// "-787.2 ± 2", "744+-20", "-188.1 kcal"), as the command line reads a
+// step value (cycle.ParseQuantity), and returns both in kJ/mol. The error
+// says what is wrong and where (1-based column).
 func ParseEnergy(text string, u thermo.Unit) (kj, uncKJ float64, hasUnc bool, err error) {
-	s := strings.ReplaceAll(text, "−", "-")
-	s = strings.ReplaceAll(s, "+/-", "±")
-	s = strings.ReplaceAll(s, "+-", "±")
-	valuePart, uncPart, hasUnc := strings.Cut(s, "±")
-	vs := strings.TrimSpace(valuePart)
-	if vs == "" {
-		return 0, 0, false, &InputError{Text: text, Column: 1, Reason: "type a number, e.g. -787.2 or 744±20"}
+	q, err := cycle.ParseQuantity(text, u, "the step")
+	var ve *cycle.ValueError
+	if !errors.As(err, &ve) {
+		return q.Value, q.Uncertainty, q.HasUncertainty, err
 	}
-	v, perr := strconv.ParseFloat(vs, 64)
-	if perr != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-		return 0, 0, false, &InputError{Text: text, Column: firstBad(text, 0), Reason: "not a number"}
+	reason := "not a number"
+	switch {
+	case ve.Problem == cycle.ValueTooLarge:
+		return 0, 0, false, err // the session words it with the bound (session.ValueError)
+	case ve.Part == "value" && ve.Problem == cycle.ValueMissing:
+		reason = "type a number, e.g. -787.2 or 744±20"
+	case ve.Part == "uncertainty" && ve.Problem == cycle.ValueNegative:
+		reason = "the uncertainty must not be negative"
+	case ve.Part == "uncertainty":
+		reason = "the uncertainty after ± is not a number"
 	}
-	var unc float64
-	if hasUnc {
-		us := strings.TrimSpace(uncPart)
-		unc, perr = strconv.ParseFloat(us, 64)
-		col := strings.IndexAny(text, "±+") // column of the uncertainty
-		if perr != nil || math.IsNaN(unc) || math.IsInf(unc, 0) {
-			return 0, 0, false, &InputError{Text: text, Column: len([]rune(text[:max(col, 0)])) + 2, Reason: "the uncertainty after ± is not a number"}
-		}
-		if unc < 0 {
-			return 0, 0, false, &InputError{Text: text, Column: len([]rune(text[:max(col, 0)])) + 2, Reason: "the uncertainty must not be negative"}
-		}
-	}
-	return thermo.ToKJPerMol(v, u), thermo.ToKJPerMol(unc, u), hasUnc, nil
+	return 0, 0, false, &InputError{Text: text, Column: ve.Column, Reason: reason}
 }
 
 // ParseValue reads a step value typed in the context's unit, as
@@ -90,20 +85,6 @@ func (c *Context) ParseValue(text string, keep float64) (kj, uncKJ float64, err 
 		uncKJ = keep
 	}
 	return kj, uncKJ, err
-}
-
-// firstBad returns the 1-based column of the first character that cannot be
-// part of a number.
-func firstBad(text string, from int) int {
-	for i, r := range []rune(text) {
-		if i < from {
-			continue
-		}
-		if !strings.ContainsRune("0123456789.-−+eE ", r) {
-			return i + 1
-		}
-	}
-	return 1
 }
 
 // InputError is text the user typed that cannot be accepted.

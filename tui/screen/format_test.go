@@ -23,6 +23,11 @@ func TestParseEnergy(t *testing.T) {
 		{"744+-20", thermo.KJPerMol, 744, 20, true},
 		{"-100", thermo.KcalPerMol, -418.4, 0, false},
 		{"1", thermo.EVPerFormulaUnit, thermo.KJPerMolPerEV, 0, false},
+		// A unit typed after the number wins over the screen's, as on the
+		// command line (one reader, cycle.ParseQuantity).
+		{"12kJ", thermo.KcalPerMol, 12, 0, false},
+		{"-100 ± 1 kcal", thermo.KJPerMol, -418.4, 4.184, true},
+		{"5 +/- 1", thermo.KJPerMol, 5, 1, true},
 	}
 	for _, c := range cases {
 		kj, unc, has, err := ParseEnergy(c.text, c.u)
@@ -34,7 +39,7 @@ func TestParseEnergy(t *testing.T) {
 			t.Errorf("ParseEnergy(%q) = %v ± %v (%v), want %v ± %v (%v)", c.text, kj, unc, has, c.kj, c.unc, c.hasUnc)
 		}
 	}
-	for _, bad := range []string{"", "abc", "12kJ", "5 ± x", "5 ± -1", "NaN", "Inf"} {
+	for _, bad := range []string{"", "abc", "12kQ", "5 ± x", "5 ± -1", "NaN", "Inf"} {
 		_, _, _, err := ParseEnergy(bad, thermo.KJPerMol)
 		var ie *InputError
 		if !errors.As(err, &ie) {

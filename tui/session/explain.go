@@ -57,14 +57,21 @@ func Message(err error) string {
 
 // ValueError phrases the engine's refusal of a value typed as text: the
 // text, what is wrong, and what to type (a *cycle.SettingError speaks of
-// KEY=VALUE, the command line's form).
+// KEY=VALUE, the command line's form; a *cycle.ValueError of columns).
 func ValueError(text string, err error) error {
 	var se *cycle.SettingError
-	if !errors.As(err, &se) {
+	var ve *cycle.ValueError
+	var reason string
+	switch {
+	case errors.As(err, &se):
+		reason = se.Reason
+	case errors.As(err, &ve):
+		reason = ve.Reason
+	default:
 		return err
 	}
 	return fmt.Errorf("%q: %s; type a number (with ± and an uncertainty, if you like) within ±%.0f kJ/mol",
-		text, strings.TrimSuffix(se.Reason, "."), float64(cycle.MaxStepMagnitude))
+		text, strings.TrimSuffix(reason, "."), float64(cycle.MaxStepMagnitude))
 }
 
 // screenWording replaces the command-line hints of the engine's model

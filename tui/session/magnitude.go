@@ -5,7 +5,10 @@ import (
 	"math"
 	"strings"
 
+	tea "github.com/charmbracelet/bubbletea"
+
 	"enthalpath/cycle"
+	"enthalpath/cycle/analysis"
 	"enthalpath/data"
 	"enthalpath/thermo"
 	"enthalpath/tui/screen"
@@ -40,14 +43,14 @@ func DataMagnitudes(db *data.DB) Magnitudes {
 			out[s.Kind] = v
 		}
 	}
-	for _, comp := range db.Compounds() {
-		c, err := cycle.Build(db, comp.Formula, cycle.Options{})
-		if err != nil {
-			continue
-		}
-		steps := c.Steps
-		if res, err := cycle.Solve(c); err == nil {
-			steps = res.Steps
+	entries, _ := analysis.Survey(db, nil, analysis.SurveyOptions{}) // no Prepare: no error
+	for _, e := range entries {
+		var steps []cycle.Step
+		switch {
+		case e.Result != nil:
+			steps = e.Result.Steps
+		case e.Cycle != nil:
+			steps = e.Cycle.Steps
 		}
 		for i := range steps {
 			note(&steps[i])
@@ -86,10 +89,28 @@ func (m Magnitudes) Check(ctx *screen.Context, kind cycle.StepKind, text string,
 // magnitudes are computed once per session, on the first value typed, and
 // shared by every screen that takes values.
 func (s *Session) Question(ctx *screen.Context, kind cycle.StepKind, text string, kj float64) error {
-	if s.magnitudes == nil {
-		s.magnitudes = DataMagnitudes(ctx.DB)
+	return s.magnitudesOf(ctx.DB).Check(ctx, kind, text, kj)
+}
+
+// WarmMagnitudes returns the command that computes the data's magnitudes
+// (a survey of every compound, ~0.2 s) off the Update path, the first time
+// it is called in a session; nil after that. A screen returns it when a
+// value editor opens, so that Question finds them ready.
+func (s *Session) WarmMagnitudes(db *data.DB) tea.Cmd {
+	if s.magStarted {
+		return nil
 	}
-	return s.magnitudes.Check(ctx, kind, text, kj)
+	s.magStarted = true
+	return func() tea.Msg {
+		s.magnitudesOf(db)
+		return nil
+	}
+}
+
+// magnitudesOf returns the data's magnitudes, computing them once.
+func (s *Session) magnitudesOf(db *data.DB) Magnitudes {
+	s.magOnce.Do(func() { s.magnitudes = DataMagnitudes(db) })
+	return s.magnitudes
 }
 
 // Confirmer lets a questioned value through when it is typed again: Ask

@@ -2,6 +2,7 @@ package session
 
 import (
 	"fmt"
+	"sync"
 
 	tea "github.com/charmbracelet/bubbletea"
 
@@ -23,7 +24,11 @@ type Session struct {
 
 	gen, resultGen int
 	// magnitudes are the data's largest step values by kind, for the
-	// plausibility question; computed on the first value typed.
+	// plausibility question: computed once, in the command WarmMagnitudes
+	// returns when a value editor opens (or, failing that, on the first
+	// value typed); magOnce orders the command's write before every read.
+	magOnce    sync.Once
+	magStarted bool
 	magnitudes Magnitudes
 }
 

@@ -11,6 +11,7 @@ import (
 	"github.com/charmbracelet/lipgloss"
 
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 	"enthalpath/tui/screen"
 )
 
@@ -194,13 +195,13 @@ func (m *Model) open(guided bool) tea.Cmd {
 // lacks reports whether s is a formula of two or more elements that no
 // compound of the shelf has (the same composition counts as the same).
 func (m *Model) lacks(s string) bool {
-	f, err := data.ParseFormula(s)
+	f, err := notation.ParseFormula(s)
 	if err != nil || len(f.Composition()) < 2 {
 		return false
 	}
 	want := f.Hill()
 	for _, r := range m.all {
-		if g, err := data.ParseFormula(r.c.Formula); err == nil && g.Hill() == want {
+		if g, err := notation.ParseFormula(r.c.Formula); err == nil && g.Hill() == want {
 			return false
 		}
 	}

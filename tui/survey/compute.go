@@ -6,6 +6,7 @@ import (
 	tea "github.com/charmbracelet/bubbletea"
 
 	"enthalpath/cycle"
+	"enthalpath/cycle/analysis"
 	"enthalpath/data"
 	"enthalpath/thermo/lattice"
 )
@@ -35,55 +36,31 @@ func Compute(db *data.DB) tea.Cmd {
 }
 
 func computeRows(db *data.DB) []Row {
-	if db == nil {
-		return nil
-	}
-	memo := cycle.NewMemo()
+	entries, _ := analysis.Survey(db, nil, analysis.SurveyOptions{}) // no Prepare: no error
 	names := cycle.ModelNames()
-	var rows []Row
-	for _, comp := range db.Compounds() {
-		r := Row{Formula: comp.Formula, Family: comp.Family, Cycle: math.NaN()}
+	rows := make([]Row, 0, len(entries))
+	for _, e := range entries {
+		r := Row{Formula: e.Formula, Cycle: math.NaN(), Err: e.Err}
+		if e.Cycle != nil {
+			r.Family = e.Cycle.Family
+		}
 		r.Models = nanSlice(len(names))
 		r.Gaps = nanSlice(len(names))
 		r.GapPercents = nanSlice(len(names))
 		r.Verdicts = make([]lattice.Character, len(names))
-		res, err := solveOne(db, comp.Formula, memo)
-		if err != nil {
-			r.Err = err
-			rows = append(rows, r)
-			continue
-		}
-		r.Cycle = res.Lattice.In(res.Conventions.Lattice)
-		for i, name := range names {
-			if mr, ok := res.Model(name); ok && mr.OK() {
-				r.Models[i], r.Gaps[i], r.GapPercents[i] = mr.Value, mr.Gap, mr.GapPercent
-				r.Verdicts[i] = mr.Verdict.Character
+		if res := e.Result; res != nil {
+			r.Cycle = res.Lattice.In(res.Conventions.Lattice)
+			for i, name := range names {
+				if mr, ok := res.Model(name); ok && mr.OK() {
+					r.Models[i], r.Gaps[i], r.GapPercents[i] = mr.Value, mr.Gap, mr.GapPercent
+					r.Verdicts[i] = mr.Verdict.Character
+				}
 			}
 		}
 		rows = append(rows, r)
 	}
 	return rows
 }
-
-func solveOne(db *data.DB, formula string, memo *cycle.Memo) (res *cycle.Result, err error) {
-	defer func() {
-		if r := recover(); r != nil {
-			err = &panicError{formula: formula, value: r}
-		}
-	}()
-	c, err := cycle.Build(db, formula, cycle.Options{Memo: memo})
-	if err != nil {
-		return nil, err
-	}
-	return cycle.Solve(c)
-}
-
-type panicError struct {
-	formula string
-	value   any
-}
-
-func (e *panicError) Error() string { return e.formula + ": internal error while solving" }
 
 func nanSlice(n int) []float64 {
 	s := make([]float64, n)

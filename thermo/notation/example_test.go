@@ -1,13 +1,13 @@
-package data_test
+package notation_test
 
 import (
 	"fmt"
 
-	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 func ExampleParseFormula() {
-	f, err := data.ParseFormula("Ca3(PO4)2")
+	f, err := notation.ParseFormula("Ca3(PO4)2")
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -17,7 +17,7 @@ func ExampleParseFormula() {
 	}
 	fmt.Println(f.Hill(), f.Atoms())
 
-	_, err = data.ParseFormula("CuSO4·5H2O")
+	_, err = notation.ParseFormula("CuSO4·5H2O")
 	fmt.Println(err)
 	// Output:
 	// Ca 3 false

@@ -1,4 +1,4 @@
-package data
+package notation
 
 import (
 	"errors"
@@ -54,6 +54,57 @@ func (f Formula) Composition() map[string]int {
 	return out
 }
 
+// ElementCount is an element and its number of atoms.
+type ElementCount struct {
+	Symbol string
+	Count  int
+}
+
+// Counts returns the atoms of each element in order of first appearance
+// ("Ba(N3)2" → Ba 1, N 6; "NaCl" → Na 1, Cl 1), the order a reaction
+// written from the formula keeps.
+func (f Formula) Counts() []ElementCount {
+	var out []ElementCount
+	add := func(sym string, n int) {
+		for i := range out {
+			if out[i].Symbol == sym {
+				out[i].Count += n
+				return
+			}
+		}
+		out = append(out, ElementCount{sym, n})
+	}
+	for _, g := range f.Groups {
+		if g.atoms == nil {
+			add(g.Text, g.Count)
+			continue
+		}
+		for _, el := range symbolsIn(g.Text) {
+			add(el, g.atoms[el]*g.Count)
+		}
+	}
+	return out
+}
+
+// symbolsIn lists the distinct element symbols of a normalized group text
+// ("(SO4)3Cl" → S, O, Cl) in order of first appearance.
+func symbolsIn(text string) []string {
+	var out []string
+	for i := 0; i < len(text); i++ {
+		if !isUpper(rune(text[i])) {
+			continue
+		}
+		j := i + 1
+		if j < len(text) && isLower(rune(text[j])) {
+			j++
+		}
+		if sym := text[i:j]; !slices.Contains(out, sym) {
+			out = append(out, sym)
+		}
+	}
+	return out
+}
+
 // Atoms returns the number of atoms in the formula.
 func (f Formula) Atoms() int {
 	n := 0
@@ -94,11 +145,11 @@ func (f Formula) chargeText(singleElement bool, count int) string {
 	case f.Charge == 0:
 		return ""
 	case singleElement && count == 1:
-		return chargeSuffix(f.Charge, false)
+		return ChargeSuffix(f.Charge, false)
 	case singleElement:
-		return caretIonSymbol("", f.Charge)
+		return CaretIonSymbol("", f.Charge)
 	}
-	return chargeSuffix(f.Charge, true)
+	return ChargeSuffix(f.Charge, true)
 }
 
 // Hill returns the formula in Hill order: C first, then H, then the other
@@ -121,8 +172,6 @@ func (f Formula) Hill() string {
 	return b.String()
 }
 
-func (f Formula) compositionKey() string { return f.Hill() }
-
 func hillOrder(comp map[string]int) []string {
 	els := slices.Sorted(maps.Keys(comp))
 	if _, hasC := comp["C"]; !hasC {
@@ -140,35 +189,14 @@ func hillOrder(comp map[string]int) []string {
 	return out
 }
 
-// chargeSuffix writes a charge: "+", "2-", or with caret "^2-".
-func chargeSuffix(q int, caret bool) string {
-	if q == 0 {
-		return ""
-	}
-	sign := "+"
-	if q < 0 {
-		sign, q = "-", -q
-	}
-	if q == 1 {
-		return sign
-	}
-	if caret {
-		return "^" + strconv.Itoa(q) + sign
-	}
-	return strconv.Itoa(q) + sign
-}
-
-// canonicalIonSymbol writes an ion as the tables do: "Ca2+", "NH4+", "SO4^2-".
-func canonicalIonSymbol(core string, charge int, polyatomic bool) string {
-	return strings.TrimSpace(core) + chargeSuffix(charge, polyatomic)
-}
-
 var errTooManyAtoms = errors.New("too many atoms")
 
+// MaxCount is the largest count a formula may write after a part.
+const MaxCount = 999999
+
 const (
-	maxCount = 999999
 	maxDepth = 16
-	maxAtoms = maxCount // per element, so that Hill counts read back
+	maxAtoms = MaxCount // per element, so that Hill counts read back
 )
 
 // ParseFormula reads a chemical formula: element symbols with counts,
@@ -620,115 +648,4 @@ func (p *formulaParser) charge(f *Formula, lastCountDigits bool) (int, error) {
 		q = -q
 	}
 	return q, nil
-}
-
-// foldIon normalizes an ion symbol for lookup: superscripts become a caret
-// form ("O²⁻" → "O^2-"), a space before the charge becomes a caret ("SO4 2-"
-// → "SO4^2-"), other spaces go, and a sign-first charge is turned around
-// ("Fe+3" → "Fe3+", "Fe^+3" → "Fe^3+").
-func foldIon(s string) string {
-	s = strings.TrimSpace(s)
-	b := make([]rune, 0, len(s))
-	sup := false
-	for i, r := range s {
-		r = normalizeRune(r)
-		switch {
-		case isSuperscript(r):
-			if !sup {
-				b = append(b, '^')
-				sup = true
-			}
-			b = append(b, superscriptToASCII(r))
-		case r == ' ' || r == '\t':
-			rest := strings.TrimSpace(s[i:])
-			if rest != "" && strings.Trim(rest, "0123456789+-−") == "" && !slices.Contains(b, '^') {
-				b = append(b, '^')
-			}
-		default:
-			b = append(b, r)
-		}
-	}
-	// Sign then digits at the end: move the sign behind the digits.
-	i := len(b)
-	for i > 0 && isDigit(b[i-1]) {
-		i--
-	}
-	if i < len(b) && i > 0 && (b[i-1] == '+' || b[i-1] == '-') {
-		sign := b[i-1]
-		copy(b[i-1:], b[i:])
-		b[len(b)-1] = sign
-	}
-	return string(b)
-}
-
-// caretIonSymbol writes an ion with an explicit caret: "Ca^2+", "O2^-".
-func caretIonSymbol(core string, charge int) string {
-	sign := "+"
-	if charge < 0 {
-		sign, charge = "-", -charge
-	}
-	if charge == 1 {
-		return core + "^" + sign
-	}
-	return core + "^" + strconv.Itoa(charge) + sign
-}
-
-// ionReadings lists the (core, charge) pairs an ion symbol may mean, most
-// likely first: "SO42-" → (SO4, -2), (SO42, -1), (SO, -42) …
-func ionReadings(s string) []ionKey {
-	folded := foldIon(s)
-	if core, q, ok := strings.Cut(folded, "^"); ok {
-		t := []rune(q)
-		if len(t) == 0 || (t[len(t)-1] != '+' && t[len(t)-1] != '-') {
-			return nil
-		}
-		n := 1
-		if len(t) > 1 {
-			var err error
-			if n, err = strconv.Atoi(string(t[:len(t)-1])); err != nil || n == 0 {
-				return nil
-			}
-		}
-		if t[len(t)-1] == '-' {
-			n = -n
-		}
-		return []ionKey{{core, n}}
-	}
-	t := []rune(folded)
-	if len(t) < 2 {
-		return nil
-	}
-	sign := t[len(t)-1]
-	if sign != '+' && sign != '-' {
-		return nil
-	}
-	body := t[:len(t)-1]
-	signs := 1
-	for len(body) > 0 && body[len(body)-1] == sign {
-		body = body[:len(body)-1]
-		signs++
-	}
-	mul := 1
-	if sign == '-' {
-		mul = -1
-	}
-	if signs > 1 {
-		return []ionKey{{string(body), mul * signs}}
-	}
-	i := len(body)
-	for i > 0 && isDigit(body[i-1]) {
-		i--
-	}
-	var out []ionKey
-	for k := i; k < len(body); k++ {
-		if k == 0 || body[k] == '0' {
-			continue
-		}
-		q, err := strconv.Atoi(string(body[k:]))
-		if err == nil && q > 0 && q < 10 {
-			out = append(out, ionKey{string(body[:k]), mul * q})
-		}
-	}
-	out = append(out, ionKey{string(body), mul})
-	return out
 }
