@@ -212,8 +212,15 @@ func (g *generator) family(p ionPair) string {
 	if ch, ok := g.choices.get("family", p.cation.symbol); ok {
 		return ch.value
 	}
-	if p.anion.polyatomic || p.cation.polyatomic {
+	if p.anion.polyatomic {
 		return "salt of " + p.anion.symbol
+	}
+	if p.cation.polyatomic {
+		var an string
+		for e := range p.anion.comp {
+			an = e
+		}
+		return g.cationName(p.cation) + " " + anionClass[an]
 	}
 	var el string
 	for e := range p.cation.comp {
