@@ -68,7 +68,7 @@ func Build(db *data.DB, formula string, opt Options) (*Cycle, error) {
 	if formula == "" {
 		return nil, &CompoundError{Formula: formula, Reason: "the formula is empty; give one such as NaCl"}
 	}
-	c := &Cycle{memo: opt.Memo, Settings: opt.Settings.clone()}
+	c := &Cycle{memo: opt.Memo, Settings: opt.Settings.clone(), db: db}
 	if c.memo == nil {
 		c.memo = NewMemo()
 	}

@@ -84,7 +84,14 @@ func (c *Cycle) commentary(r *Result) (notes, warnings []string) {
 		warnings = append(warnings, "values entered in the data from memory (check them against the cited source): "+strings.Join(memory, ", "))
 	}
 	if c.Settings.LatticeFrom != "" {
-		notes = append(notes, "lattice step taken from the "+c.Settings.LatticeFrom+" model with its default relative uncertainty (common practice, no source)")
+		basis := "its default relative uncertainty (common practice, no source)"
+		if m, ok := r.Model(c.Settings.LatticeFrom); ok && m.UncertaintyBasis != "" {
+			basis = "σ the " + m.UncertaintyBasis
+		}
+		notes = append(notes, "lattice step taken from the "+c.Settings.LatticeFrom+" model with "+basis)
+	}
+	if m, ok := r.Model(ModelExtended); ok && m.Err == nil && m.Inputs.Extended != nil {
+		notes = append(notes, m.Inputs.Extended.Summary())
 	}
 	for _, m := range r.Models {
 		if m.Err != nil {

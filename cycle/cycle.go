@@ -57,6 +57,9 @@ type Cycle struct {
 	Fitted     []data.DerivedIon
 
 	memo *Memo
+	// db is the data the cycle was built from (for the validation of the
+	// models); nil for a cycle read from a file.
+	db *data.DB
 }
 
 // Clone returns a deep copy of c that shares only the Madelung memo and the

@@ -43,6 +43,8 @@ type MadelungValue struct {
 type Memo struct {
 	mu sync.Mutex
 	m  map[string]memoEntry
+	// sums holds the extended model's pair sums per structure (extended.go).
+	sums map[string]sumsEntry
 }
 
 type memoEntry struct {
@@ -133,29 +135,9 @@ func memoKey(st Structure, cation, anion Part, accuracy float64) string {
 }
 
 func sumStructure(st Structure, cation, anion Part, accuracy float64) (MadelungValue, error) {
-	var cell *crystal.Crystal
-	if st.Cell != nil {
-		cell = st.Cell
-	} else {
-		if st.CIF != "" {
-			return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: "the CIF file " + st.CIF + " has not been read; open it with --structure FILE.cif"}
-		}
-		if st.Prototype == "" {
-			return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: "no structure chosen"}
-		}
-		proto, err := crystal.Build(st.Prototype, st.Params)
-		if err != nil {
-			return MadelungValue{}, &ModelError{Model: ModelEwald, Reason: "cannot build the structure", Err: err}
-		}
-		ions := map[string]crystal.Ion{
-			"M": {Species: cation.Ion.Core, Charge: float64(cation.Ion.Charge)},
-			"X": {Species: anion.Ion.Core, Charge: float64(anion.Ion.Charge)},
-		}
-		cell, err = proto.WithIons(ions)
-		if err != nil {
-			return MadelungValue{}, &ModelError{Model: ModelEwald,
-				Reason: fmt.Sprintf("the %s prototype does not fit %s and %s", st.Prototype, cation.Ion.Symbol, anion.Ion.Symbol), Err: err}
-		}
+	cell, err := buildCell(st, cation, anion)
+	if err != nil {
+		return MadelungValue{}, err
 	}
 	r, err := ewald.Sum(cell, ewald.Options{Accuracy: accuracy})
 	if err != nil {
@@ -166,6 +148,34 @@ func sumStructure(st Structure, cation, anion Part, accuracy float64) (MadelungV
 	}
 	return MadelungValue{A: r.MadelungConstant, NearestDistance: r.NearestDistance, EnergyKJPerMol: r.EnergyKJPerMol,
 		Volume: cell.Volume(), FormulaUnits: cell.FormulaUnits, SitePotentials: r.SitePotentials}, nil
+}
+
+// buildCell returns the cell of st with the compound's ions on the
+// prototype's cation and anion slots (or the cell read from a file).
+func buildCell(st Structure, cation, anion Part) (*crystal.Crystal, error) {
+	if st.Cell != nil {
+		return st.Cell, nil
+	}
+	if st.CIF != "" {
+		return nil, &ModelError{Model: ModelEwald, Reason: "the CIF file " + st.CIF + " has not been read; open it with --structure FILE.cif"}
+	}
+	if st.Prototype == "" {
+		return nil, &ModelError{Model: ModelEwald, Reason: "no structure chosen"}
+	}
+	proto, err := crystal.Build(st.Prototype, st.Params)
+	if err != nil {
+		return nil, &ModelError{Model: ModelEwald, Reason: "cannot build the structure", Err: err}
+	}
+	ions := map[string]crystal.Ion{
+		"M": {Species: cation.Ion.Core, Charge: float64(cation.Ion.Charge)},
+		"X": {Species: anion.Ion.Core, Charge: float64(anion.Ion.Charge)},
+	}
+	cell, err := proto.WithIons(ions)
+	if err != nil {
+		return nil, &ModelError{Model: ModelEwald,
+			Reason: fmt.Sprintf("the %s prototype does not fit %s and %s", st.Prototype, cation.Ion.Symbol, anion.Ion.Symbol), Err: err}
+	}
+	return cell, nil
 }
 
 // cellFits checks that a cell read from a file holds the compound's ions:

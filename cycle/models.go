@@ -28,7 +28,7 @@ const ModelKapustinkii = ModelKapustinskii
 
 // ModelNames lists the models in display order.
 func ModelNames() []string {
-	return []string{ModelBornLande, ModelBornMayer, ModelKapustinskii, ModelVolume, ModelEwald}
+	return []string{ModelBornLande, ModelBornMayer, ModelKapustinskii, ModelVolume, ModelEwald, ModelExtended}
 }
 
 func isModelName(s string) bool { return slices.Contains(ModelNames(), s) }
@@ -83,6 +83,8 @@ type ModelInputs struct {
 	IonicStrength float64
 	// Fit names the volume-model equation or fit used.
 	Fit string
+	// Extended is the extended model's breakdown (that model only).
+	Extended *ExtendedBreakdown
 }
 
 // ModelResult is one lattice model's value beside the cycle's.
@@ -96,10 +98,13 @@ type ModelResult struct {
 	// Value is the lattice step in the cycle's lattice convention (U, or
 	// ΔH_L by Jenkins' correction), the number compared with the cycle.
 	Value float64
-	// Uncertainty is the model's stated default uncertainty (kJ/mol),
-	// DefaultUncertainty is always true (see ModelUncertaintyBorn …).
+	// Uncertainty is the model's σ (kJ/mol): its RMS gap over the
+	// validation (UncertaintyBasis says over which compounds), or, for a
+	// cycle without the built-in data, the default of ModelUncertaintyBorn
+	// … with DefaultUncertainty true.
 	Uncertainty        float64
 	DefaultUncertainty bool
+	UncertaintyBasis   string
 	// Citation is the model's reference.
 	Citation string
 	// Gap is cycle − model in kJ/mol (negative when the cycle binds more)
@@ -125,15 +130,22 @@ func findModel(ms []ModelResult, name string) *ModelResult {
 }
 
 // gaps fills Gap, GapPercent and Verdict of every model against the cycle
-// lattice value (in the cycle's lattice convention).
-func gaps(ms []ModelResult, cycleValue float64) []ModelResult {
+// lattice value (in the cycle's lattice convention), with each model's
+// thresholds from the validation of c's data (common-practice thresholds
+// for a cycle without data).
+func gaps(c *Cycle, ms []ModelResult, cycleValue float64) []ModelResult {
+	v := c.Validation()
 	for i := range ms {
 		m := &ms[i]
 		if m.Err != nil {
 			m.Gap, m.GapPercent = math.NaN(), math.NaN()
 			continue
 		}
-		m.Verdict = lattice.Judge(cycleValue, m.Value)
+		th, basis := lattice.DefaultThresholds(), lattice.VerdictBasis
+		if v != nil {
+			th, basis = v.Thresholds(m.Model)
+		}
+		m.Verdict = lattice.JudgeAgainst(cycleValue, m.Value, th, basis)
 		m.Gap, m.GapPercent = m.Verdict.Gap, m.Verdict.GapPercent
 	}
 	return ms
@@ -142,7 +154,62 @@ func gaps(ms []ModelResult, cycleValue float64) []ModelResult {
 // Compare evaluates every lattice model for c and compares each with
 // cycleValue, a lattice step (negative, kJ/mol) in c's lattice convention.
 func Compare(c *Cycle, cycleValue float64) []ModelResult {
-	return gaps(EvaluateModels(c), cycleValue)
+	return gaps(c, EvaluateModels(c), cycleValue)
+}
+
+// ReferenceModel returns the model c's covalency verdict is read against
+// among ms (evaluated models of c) and why: see Validation.Reference. A
+// cycle without data reads it against the extended model, else ewald, else
+// born-mayer, else kapustinskii.
+func ReferenceModel(c *Cycle, ms []ModelResult) (string, string) {
+	ok := func(name string) bool {
+		m := findModel(ms, name)
+		return m != nil && m.Err == nil
+	}
+	if v := c.Validation(); v != nil {
+		return v.Reference(ValidationFamily(c), ok)
+	}
+	for _, name := range []string{ModelExtended, ModelEwald, ModelBornMayer, ModelKapustinskii} {
+		if ok(name) {
+			return name, "first of extended, ewald, born-mayer, kapustinskii that can be evaluated (no validation without the built-in data)"
+		}
+	}
+	return "", "no model could be evaluated"
+}
+
+// ModelAuto asks for the default model of an estimate: the model c's
+// verdict would be read against (ReferenceModel).
+const ModelAuto = "auto"
+
+// DefaultModel evaluates the model an estimate of c takes its lattice step
+// from when none is asked: the one its verdict is read against, with its σ
+// from the validation. It returns the model and why it was chosen.
+func DefaultModel(c *Cycle) (ModelResult, string, error) {
+	ms := EvaluateModels(c)
+	name, why := ReferenceModel(c, ms)
+	m := findModel(ms, name)
+	if m == nil {
+		return ModelResult{}, why, &ModelError{Model: ModelAuto, Reason: "no lattice model can be evaluated for " + c.Formula}
+	}
+	return *m, why, nil
+}
+
+// calibrate sets m's uncertainty from the validation of c's data: the
+// model's RMS gap over c's family, or over the ionic family (see
+// Validation.Sigma); without it the model keeps its default.
+func calibrate(c *Cycle, m *ModelResult) {
+	if m.Err != nil {
+		return
+	}
+	v := c.Validation()
+	if v == nil {
+		return
+	}
+	if rel, basis := v.Sigma(m.Model, ValidationFamily(c)); rel > 0 {
+		m.Uncertainty = rel * math.Abs(m.Value)
+		m.DefaultUncertainty = false
+		m.UncertaintyBasis = basis
+	}
 }
 
 // evaluator evaluates the models of one cycle, sharing the radii and the
@@ -196,25 +263,32 @@ func (e *evaluator) madelung(in *ModelInputs, actual bool) (MadelungValue, error
 // order, without gaps. A model that cannot be evaluated has Err set (and the
 // others are still returned). The Ewald sums go through c's Memo.
 func EvaluateModels(c *Cycle) []ModelResult {
-	out := make([]ModelResult, 0, 5)
+	out := make([]ModelResult, 0, len(ModelNames()))
 	e := &evaluator{c: c}
 	for _, name := range ModelNames() {
 		m, err := e.evaluate(name)
 		if err != nil {
 			m = ModelResult{Model: name, Err: err}
 		}
+		calibrate(c, &m)
 		out = append(out, m)
 	}
 	return out
 }
 
-// VerdictThresholds returns the verdict's thresholds in words, marked as
-// common practice.
-func VerdictThresholds() string { return lattice.VerdictBasis }
+// VerdictThresholds says in words how the verdict's thresholds are set.
+func VerdictThresholds() string {
+	return fmt.Sprintf("thresholds %g σ and %g σ of the reference model, σ its RMS gap over the built-in %s (validation of the built-in data); without the built-in data, %s",
+		AdequateSigmas, SubstantialSigmas, IonicFamily, lattice.VerdictBasis)
+}
 
 // EvaluateModel returns one model's lattice value for c (no gap).
 func EvaluateModel(c *Cycle, name string) (ModelResult, error) {
-	return (&evaluator{c: c}).evaluate(name)
+	m, err := (&evaluator{c: c}).evaluate(name)
+	if err == nil {
+		calibrate(c, &m)
+	}
+	return m, err
 }
 
 func (e *evaluator) evaluate(name string) (ModelResult, error) {
@@ -241,6 +315,10 @@ func (e *evaluator) evaluate(name string) (ModelResult, error) {
 		m.Title = "Born–Mayer with the Ewald Madelung constant of the structure"
 		m.Citation = "P. P. Ewald, Ann. Phys. 369, 253 (1921); Born–Mayer repulsion"
 		u, err = e.bornModel(&m.Inputs, true, true)
+	case ModelExtended:
+		m.Title = "extended ionic model: Ewald Coulomb, Born–Mayer–Huggins repulsion, C/r⁶ and D/r⁸ dispersion, zero-point energy"
+		m.Citation = "M. L. Huggins and J. E. Mayer, J. Chem. Phys. 1, 643 (1933); J. E. Mayer, J. Chem. Phys. 1, 270 (1933); F. G. Fumi and M. P. Tosi, J. Phys. Chem. Solids 25, 31 (1964)"
+		u, err = e.extended(&m.Inputs)
 	case ModelKapustinskii:
 		m.Title = "Kapustinskii (1956)"
 		m.Citation = "A. F. Kapustinskii, Q. Rev. Chem. Soc. 10, 283 (1956)"
@@ -256,6 +334,12 @@ func (e *evaluator) evaluate(name string) (ModelResult, error) {
 	}
 	if err != nil {
 		var me *ModelError
+		if errors.As(err, &me) && me.Model != name {
+			// A shared input (the Madelung constant, summed once for
+			// every model that needs it) failed under another model's
+			// name: the error is this model's.
+			return m, &ModelError{Model: name, Reason: me.Reason, Err: me.Err}
+		}
 		if errors.As(err, &me) {
 			return m, err
 		}
@@ -416,6 +500,9 @@ func (e *evaluator) volumeModel(in *ModelInputs) (float64, error) {
 	if est.Form == lattice.Form1999 {
 		in.Fit += ", " + est.Fit.Name + " fit α = " + strconv.FormatFloat(est.Fit.Alpha, 'g', -1, 64) + " kJ·nm/mol, β = " +
 			strconv.FormatFloat(est.Fit.Beta, 'g', -1, 64) + " kJ/mol"
+		if est.Fit.Name == "general" {
+			in.Fit += " (no constants for this charge type among the published ones the program has: MX 1:1, MX2 2:1, M2X 1:2; the general fit is used)"
+		}
 	}
 	return est.U, nil
 }

@@ -127,6 +127,10 @@ type Result struct {
 	Conventions Conventions
 	// Models are the lattice models, each against Lattice.
 	Models []ModelResult
+	// Reference is the model the covalency verdict is read against (its
+	// Verdict in Models is the verdict; the others are shown beside it),
+	// ReferenceWhy why that one; "" when no model could be evaluated.
+	Reference, ReferenceWhy string
 	// Handbook is the data's tabulated lattice energy beside the cycle's,
 	// or nil when the data have none.
 	Handbook *Handbook
@@ -149,6 +153,15 @@ func (r *Result) Step(key string) (*Step, bool) {
 		}
 	}
 	return nil, false
+}
+
+// Verdict returns the reference model's result (nil without one).
+func (r *Result) Verdict() *ModelResult {
+	m, ok := r.Model(r.Reference)
+	if !ok {
+		return nil
+	}
+	return m
 }
 
 // Model returns the result of the model called name.
@@ -204,7 +217,8 @@ func Solve(c *Cycle) (*Result, error) {
 	if models == nil {
 		models = EvaluateModels(c)
 	}
-	res.Models = gaps(models, res.Lattice.In(w.Conventions.Lattice))
+	res.Models = gaps(c, models, res.Lattice.In(w.Conventions.Lattice))
+	res.Reference, res.ReferenceWhy = ReferenceModel(c, res.Models)
 	if res.Circular = w.circularity(); len(res.Circular) > 0 {
 		for i := range res.Models {
 			res.Models[i].Verdict.Character = lattice.Undetermined

@@ -49,6 +49,8 @@ type DB struct {
 
 	overlays []string
 	problems []string
+
+	computed sync.Map // values computed from this data set once (computed.go)
 }
 
 type ionKey struct {

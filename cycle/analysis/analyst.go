@@ -126,11 +126,15 @@ func (a *Analyst) Memo() *cycle.Memo { return a.memo }
 func SpreadFamilies() []string { return []string{"alkali halide", "alkaline-earth halide"} }
 
 // Spread is how far one lattice model strays from the Born–Haber cycle over
-// the built-in alkali and alkaline-earth halides: the basis of the model
-// uncertainty of an estimate.
+// a set of built-in salts: for an estimate, the model's validation over the
+// compound's family (cycle.Validation, Family set); for ModelSpread, the
+// alkali and alkaline-earth halides.
 type Spread struct {
 	// Model is the model name (cycle.ModelNames).
 	Model string
+	// Family is the validation family an estimate's spread is over ("" for
+	// ModelSpread's halides).
+	Family string
 	// Compounds is how many salts entered; Skipped lists those the model or
 	// the cycle could not evaluate, with the reason.
 	Compounds int
@@ -152,8 +156,25 @@ func (s Spread) Basis() string {
 	if s.basis != "" {
 		return s.basis
 	}
-	return fmt.Sprintf("%s model σ = %.1f %% of its value: RMS gap to the cycle over %d built-in alkali and alkaline-earth halides (mean %+.1f %%, largest %.1f %% for %s), computed from the data",
-		s.Model, s.RMSPercent, s.Compounds, s.MeanPercent, s.MaxPercent, s.Worst)
+	over := "alkali and alkaline-earth halides"
+	if s.Family != "" {
+		over = s.Family
+	}
+	return fmt.Sprintf("%s model σ = %.1f %% of its value: RMS gap to the cycle over %d built-in %s (mean %+.1f %%, largest %.1f %% for %s), computed from the data",
+		s.Model, s.RMSPercent, s.Compounds, over, s.MeanPercent, s.MaxPercent, s.Worst)
+}
+
+// spreadOf returns the spread an estimate of c with model takes its σ
+// from: the model's validation over c's family, or over the ionic family
+// (cycle.Validation.SigmaStats), the σ the cycle's own model results carry.
+func spreadOf(c *cycle.Cycle, model string) Spread {
+	v := c.Validation()
+	if v == nil {
+		return Spread{Model: model}
+	}
+	f := v.SigmaStats(model, cycle.ValidationFamily(c))
+	return Spread{Model: model, Family: f.Family, Compounds: f.N, MeanPercent: f.MeanPercent, RMSPercent: f.RMSPercent,
+		MaxPercent: f.MaxPercent, Worst: f.Worst}
 }
 
 // ModelSpread computes (once per Analyst and model, then remembers) the

@@ -151,7 +151,7 @@ func (br *BatchReader) Next() (BatchRow, error) {
 		}
 		row.Options.Charges = ch
 	}
-	if s := cell(ColModel); s != "" {
+	if s := cell(ColModel); s != "" && !strings.EqualFold(strings.TrimSpace(s), cycle.ModelAuto) {
 		m, err := cycle.ParseModel(s)
 		if err != nil {
 			return bad(ColModel, "unknown model", err)

@@ -32,18 +32,17 @@
 //
 // # Model uncertainty
 //
-// The lattice step of an estimate comes from a model, and the model is the
-// largest uncertainty. Its standard uncertainty is the root-mean-square
-// relative gap between that model and the cycle over the built-in alkali
-// and alkaline-earth halides that have a formation enthalpy (Spread),
-// computed from the data at first use, never typed in: see
-// Analyst.ModelSpread and the test that reports it. The σ of an estimate is
-// the root sum of squares of that model σ and the data uncertainties the
-// cycle propagates. With the built-in data at the time of writing the
-// spreads over 40 salts are: Kapustinskii (Shannon CN VI radii) RMS 6.8 %
-// (mean −5.6 %: the cycle binds more), Born–Mayer 12.2 %, Born–Landé
-// 10.7 %; volume-based 6.4 % over 37 salts with a density (go test
-// -run TestModelSpreadComputed -v prints the current figure).
+// The lattice step of an estimate comes from a model (by default the model
+// the compound's covalency verdict is read against, cycle.DefaultModel), and
+// the model is the largest uncertainty. Its standard uncertainty is the
+// root-mean-square relative gap between that model and the cycle over the
+// built-in compounds of the estimate's family (cycle.Validation.SigmaStats:
+// the family when it has at least five compounds, else the alkali halides),
+// computed from the data at first use, never typed in (Spread). The σ of an
+// estimate is the root sum of squares of that model σ and the data
+// uncertainties the cycle propagates. cycle.Validate gives every model's
+// figures. Analyst.ModelSpread, the σ of the ion fit and of solution cycles,
+// stays the RMS gap over the alkali and alkaline-earth halides.
 //
 // # Ion values fitted over a family
 //

@@ -10,13 +10,14 @@ import (
 	"enthalpath/data"
 )
 
-// DefaultModel is the lattice model of an estimate unless another is asked.
-const DefaultModel = cycle.ModelKapustinkii
+// DefaultModel is the lattice model of an estimate unless another is asked:
+// cycle.ModelAuto, the model the compound's verdict would be read against
+// (cycle.DefaultModel), the same the workshop's guided build uses.
+const DefaultModel = cycle.ModelAuto
 
-// EstimateModels are the models an estimate can take its lattice step from:
-// those that need no measured cell of the compound.
+// EstimateModels are the models an estimate can take its lattice step from.
 func EstimateModels() []string {
-	return []string{cycle.ModelKapustinkii, cycle.ModelBornMayer, cycle.ModelBornLande, cycle.ModelVolume, cycle.ModelEwald}
+	return []string{cycle.ModelAuto, cycle.ModelExtended, cycle.ModelKapustinkii, cycle.ModelBornMayer, cycle.ModelBornLande, cycle.ModelVolume, cycle.ModelEwald}
 }
 
 // EstimateOptions choose how an estimate is made; the zero value estimates
@@ -139,9 +140,11 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 	if model == "" {
 		model = DefaultModel
 	}
-	model, err := cycle.ParseModel(model)
-	if err != nil {
-		return nil, nil, err
+	var err error
+	if model = strings.ToLower(strings.TrimSpace(model)); model != cycle.ModelAuto {
+		if model, err = cycle.ParseModel(model); err != nil {
+			return nil, nil, err
+		}
 	}
 	var cation, anion string
 	if len(opt.Charges) > 0 {
@@ -201,13 +204,20 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 			return nil, nil, &InputError{Subject: formula, Field: "--set " + s.Key, Reason: "cannot be applied", Err: err}
 		}
 	}
-	m, err := cycle.EvaluateModel(c, model)
-	if err != nil {
+	var m cycle.ModelResult
+	if model == cycle.ModelAuto {
+		var why string
+		if m, why, err = cycle.DefaultModel(c); err != nil {
+			return nil, nil, &InputError{Subject: formula, Field: "lattice step", Reason: "no model can give it", Err: err}
+		}
+		model, est.Model = m.Model, m.Model
+		est.Notes = append(est.Notes, "lattice model "+m.Model+": "+why)
+	} else if m, err = cycle.EvaluateModel(c, model); err != nil {
 		return nil, nil, &InputError{Subject: formula, Field: "lattice step", Reason: "the " + model + " model cannot give it", Err: err}
 	}
-	spread, err := a.ModelSpread(model)
-	if err != nil {
-		return nil, nil, &InputError{Subject: formula, Field: "model uncertainty", Reason: "cannot measure the " + model + " model's spread", Err: err}
+	spread := spreadOf(c, model)
+	if !(spread.RMSPercent > 0) {
+		return nil, nil, &InputError{Subject: formula, Field: "model uncertainty", Reason: "the " + model + " model could not be validated on the built-in compounds"}
 	}
 	est.ModelTitle, est.ModelCitation = m.Title, m.Citation
 	est.Spread = spread

@@ -203,6 +203,12 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 			continue
 		}
 		sc.Spread = est.Spread
+		switch {
+		case sc.Model == cycle.ModelAuto || z == 1:
+			sc.Model = est.Model // the model auto chose, when every compound shares it
+		case sc.Model != est.Model && model == cycle.ModelAuto:
+			sc.Model = "auto (each compound's verdict model)"
+		}
 		cp := ScanCompound{Formula: est.Formula, Charge: z, MetalCount: mc,
 			Estimate: est.Value, EstimateUncertainty: est.Uncertainty, Measured: est.Measured,
 			Formation: est.Value, Uncertainty: est.Uncertainty, CationRadius: est.Cation.Radius, Stable: true}

@@ -61,6 +61,7 @@ func commands() []command {
 		{"ionfit", "gas-phase enthalpy of an ion fitted over its salts (SO4^2-, O2-, ...)", runIonfit},
 		{"batch", "solve many formulas from a CSV file", runBatch},
 		{"orderings", "rank orderings of ions and vacancies on mixed sites by Ewald energy", runOrderings},
+		{"trust", "how far each lattice model can be trusted: its gaps to the cycles of the built-in compounds, by family", runTrust},
 	}
 }
 

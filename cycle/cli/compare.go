@@ -27,6 +27,8 @@ type CompareRow struct {
 	// convention (NaN when absent).
 	Handbook float64
 	Models   []cycle.ModelResult
+	// Reference is the model the verdict is read against (cycle.Result).
+	Reference string
 	// Circular lists the fitted ion values fitted to this very salt: its
 	// verdicts are withheld.
 	Circular []cycle.Circularity
@@ -66,7 +68,7 @@ func compareRows(db *data.DB, formulas []string, mf *modelFlags, set map[string]
 			rows = append(rows, row)
 			continue
 		}
-		row.Lattice, row.Uncertainty, row.Models, row.Circular = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models, r.Circular
+		row.Lattice, row.Uncertainty, row.Models, row.Circular, row.Reference = r.Lattice.In(c.Conventions.Lattice), r.Lattice.Uncertainty, r.Models, r.Circular, r.Reference
 		if r.Handbook != nil {
 			row.Handbook = r.Handbook.Value
 		}
@@ -150,7 +152,7 @@ func writeCompareText(w io.Writer, rows []CompareRow, u thermoUnit, conv string)
 	for _, m := range cycle.ModelNames() {
 		head = append(head, m)
 	}
-	head = append(head, "verdict (ewald, else born-mayer)")
+	head = append(head, "verdict (read against)")
 	t := table{head: head, right: map[int]bool{2: true, 3: true, 4: true, 5: true, 6: true, 7: true}}
 	var failed []CompareRow
 	for _, r := range rows {
@@ -188,14 +190,11 @@ func modelCell(ms []cycle.ModelResult, name string) string {
 	return "—"
 }
 
-// headlineVerdict is the verdict of the structure-specific model, or of
-// Born–Mayer when there is no structure.
+// headlineVerdict is the verdict of the row's reference model.
 func headlineVerdict(r CompareRow) string {
-	for _, name := range []string{cycle.ModelEwald, cycle.ModelBornMayer, cycle.ModelKapustinskii} {
-		for _, m := range r.Models {
-			if m.Model == name && m.Err == nil {
-				return rowVerdict(r, m) + " (" + name + ")"
-			}
+	for _, m := range r.Models {
+		if m.Model == r.Reference && m.Err == nil {
+			return rowVerdict(r, m) + " (" + m.Model + ")"
 		}
 	}
 	return "no model available"
@@ -214,7 +213,7 @@ func writeCompareCSV(w io.Writer, rows []CompareRow, conv string) error {
 	for _, m := range cycle.ModelNames() {
 		head = append(head, m+"_kj_per_mol", m+"_gap_kj_per_mol", m+"_gap_percent", m+"_verdict")
 	}
-	head = append(head, "status")
+	head = append(head, "status", "reason")
 	if err := cw.Write(head); err != nil {
 		return err
 	}
@@ -233,17 +232,28 @@ func writeCompareCSV(w io.Writer, rows []CompareRow, conv string) error {
 			}
 			rec = append(rec, num(m.Value), num(m.Gap), num(m.GapPercent), rowVerdict(r, *m))
 		}
-		status := "ok"
-		if r.Err != nil {
-			status = "not closed: " + r.Err.Error()
-		}
-		rec = append(rec, status)
+		status, reason := compareStatus(r.Err)
+		rec = append(rec, status, reason)
 		if err := cw.Write(rec); err != nil {
 			return err
 		}
 	}
 	cw.Flush()
 	return cw.Error()
+}
+
+// compareStatus gives a row's short status code for the CSV status
+// column and its sentence for the reason column: "ok"; "missing-datum" when
+// a datum of the cycle is not in the data (the reason names it and the
+// step); "not-closed" for any other cause.
+func compareStatus(err error) (status, reason string) {
+	switch {
+	case err == nil:
+		return "ok", ""
+	case errors.Is(err, cycle.ErrMissingDatum):
+		return "missing-datum", err.Error()
+	}
+	return "not-closed", err.Error()
 }
 
 type compareJSONRow struct {

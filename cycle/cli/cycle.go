@@ -419,7 +419,7 @@ func printCycle(w io.Writer, c *cycle.Cycle, r *cycle.Result) {
 		mt.add(m.Model, energy(m.Value, u), energy(m.Gap, u), percent(m.GapPercent), verdictText(r, m))
 	}
 	mt.write(w, "  ")
-	fmt.Fprintf(w, "  verdict %s\n", cycle.VerdictThresholds())
+	fmt.Fprintf(w, "  %s\n", wrapText(verdictLine(r), 96, "    "))
 	fmt.Fprintln(w, "\nmodel inputs")
 	for _, m := range r.Models {
 		if m.Err != nil {
@@ -429,6 +429,7 @@ func printCycle(w io.Writer, c *cycle.Cycle, r *cycle.Result) {
 		fmt.Fprintf(w, "  %-12s %s\n", m.Model, wrapText(inputsText(m), 90, strings.Repeat(" ", 15)))
 	}
 	fmt.Fprintln(w, "  Ewald sums use conducting (tin-foil) boundary conditions.")
+	writeExtended(w, r, u)
 	fmt.Fprintln(w, "\nnotes")
 	for _, n := range r.Notes {
 		fmt.Fprintf(w, "  • %s\n", wrapText(n, 96, "    "))
@@ -479,6 +480,8 @@ func inputsText(m cycle.ModelResult) string {
 }
 
 type cycleJSON struct {
+	Formula string `json:"formula"` // the compound, the key every command uses
+	// Deprecated: the same as formula, kept for scripts that read it.
 	Compound             string          `json:"compound"`
 	Name                 string          `json:"name,omitempty"`
 	Family               string          `json:"family,omitempty"`
@@ -493,6 +496,7 @@ type cycleJSON struct {
 	Handbook             *handbookJSON   `json:"handbook,omitempty"`
 	Models               []modelJSON     `json:"models"`
 	VerdictThresholds    string          `json:"verdict_thresholds"`
+	Verdict              *verdictJSON    `json:"verdict"`
 	Notes                []string        `json:"notes"`
 	Warnings             []string        `json:"warnings"`
 	AnionValue           *anionValueJSON `json:"anion_value,omitempty"`
@@ -558,6 +562,10 @@ type modelJSON struct {
 	CationRadius jsonNumber `json:"cation_radius_angstrom,omitempty"`
 	AnionRadius  jsonNumber `json:"anion_radius_angstrom,omitempty"`
 	MolarVolume  jsonNumber `json:"molar_volume_nm3,omitempty"`
+	// Uncertainty is the model's σ and UncertaintyFrom its basis.
+	Uncertainty     jsonNumber    `json:"uncertainty_kj_per_mol,omitempty"`
+	UncertaintyFrom string        `json:"uncertainty_from,omitempty"`
+	Extended        *extendedJSON `json:"extended,omitempty"`
 }
 
 type settingsJSON struct {
@@ -569,12 +577,12 @@ type settingsJSON struct {
 }
 
 func cycleJSONOf(c *cycle.Cycle, r *cycle.Result) cycleJSON {
-	j := cycleJSON{Compound: c.Formula, Name: c.Name, Family: c.Family, Tabulated: c.Tabulated,
+	j := cycleJSON{Formula: c.Formula, Compound: c.Formula, Name: c.Name, Family: c.Family, Tabulated: c.Tabulated,
 		Cation: c.Cation.Ion.Symbol, Anion: c.Anion.Ion.Symbol,
 		Convention: r.Conventions.Lattice.Symbol(), IonizationConvention: r.Conventions.Ionization.String(),
 		Solved:            solvedJSON{Key: r.Solved.Key, KJPerMol: jsonNumber(r.Solved.Value), UncertaintyKJ: jsonNumber(r.Solved.Uncertainty)},
 		Lattice:           latticeJSON{jsonNumber(r.Lattice.Enthalpy), jsonNumber(r.Lattice.Energy), jsonNumber(r.Lattice.Uncertainty), jsonNumber(r.Lattice.Correction)},
-		VerdictThresholds: cycle.VerdictThresholds(), Notes: r.Notes, Warnings: r.Warnings,
+		VerdictThresholds: cycle.VerdictThresholds(), Verdict: verdictJSONOf(r), Notes: r.Notes, Warnings: r.Warnings,
 		Settings: settingsJSON{LatticeFrom: c.Settings.LatticeFrom, Structure: c.Settings.Structure.Name(),
 			Radius: c.Settings.Radius.String(), D0: c.Settings.Distance.String(), Units: c.Settings.Units.Key()},
 	}
@@ -611,6 +619,7 @@ func cycleJSONOf(c *cycle.Cycle, r *cycle.Result) cycleJSON {
 			mj.Madelung, mj.MadelungFrom, mj.D0, mj.D0From = jsonNumber(in.Madelung), in.MadelungFrom, jsonNumber(in.D0), in.D0From
 			mj.BornExponent, mj.Rho = jsonNumber(in.BornExponent), jsonNumber(in.Rho)
 			mj.CationRadius, mj.AnionRadius, mj.MolarVolume = jsonNumber(in.CationRadius), jsonNumber(in.AnionRadius), jsonNumber(in.MolarVolume)
+			mj.Uncertainty, mj.UncertaintyFrom, mj.Extended = jsonNumber(m.Uncertainty), m.UncertaintyBasis, extendedJSONOf(in.Extended)
 		}
 		j.Models = append(j.Models, mj)
 	}
@@ -666,7 +675,7 @@ func printAnionValue(w io.Writer, c *cycle.Cycle, e *cycle.AnionValueEffect) {
 		what = "the value fitted over its family of salts"
 		for _, f := range c.Fitted {
 			if f.Ion == c.Anion.Ion.Symbol {
-				what += fmt.Sprintf(" (ΔfH° = %.1f ± %.1f kJ/mol, %s, %d salts)", f.GasFormation.V, f.GasFormation.U, f.Model, len(f.Salts))
+				what += fmt.Sprintf(" (ΔfH° = %s kJ/mol, %s, %d salts)", plusMinus(f.GasFormation.V, f.GasFormation.U), f.Model, len(f.Salts))
 			}
 		}
 	}

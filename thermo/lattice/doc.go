@@ -76,6 +76,20 @@
 // 5000 kJ/mol in magnitude and the stoichiometry fit otherwise;
 // VolumeOptions forces either.
 //
+// Extended ionic model (Extended; Born–Mayer–Huggins form, M. L. Huggins
+// and J. E. Mayer, J. Chem. Phys. 1, 643 (1933); F. G. Fumi and M. P. Tosi,
+// J. Phys. Chem. Solids 25, 31 (1964)):
+//
+//	U(d) = −N_A·A·|z₊z₋|·e²/(4πε₀·d) + Σ B_ij·exp(−r_ij/ρ) − Σ C_ij/r_ij⁶ − Σ D_ij/r_ij⁸ + E_zp
+//
+// summed over the pairs of the real structure (thermo/crystal.PairSums) with
+// every distance scaled from its shape, minimised in d; the repulsion
+// tabulated (B_ij = c_ij·b·exp((σ_i+σ_j)/ρ), Pauling's factors c_ij) or
+// fitted so the energy is least at a reference distance; C by
+// Slater–Kirkwood (J. C. Slater and J. G. Kirkwood, Phys. Rev. 37, 682
+// (1931)) where no table gives it; E_zp = (9/8)·ν·R·θ_D with θ_D given or
+// estimated from the model's own bulk modulus.
+//
 // # Inverses
 //
 // For derived quantities (thermochemical radii, effective parameters):
@@ -103,12 +117,14 @@
 // # Covalent character
 //
 // Judge compares a cycle lattice value with a model value: gap = cycle −
-// model, in kJ/mol and in percent of |model|. Below 3 % the ionic model is
-// adequate; a cycle 3–10 % more negative than the model shows some covalent
-// character, more than 10 % substantial covalent character. These
-// thresholds are common practice, no source (VerdictBasis). A model that
-// binds more than the cycle by 3 % or more is flagged as such, not as
-// covalency.
+// model, in kJ/mol and in percent of |model|, against two thresholds: below
+// the first the ionic model is adequate; a cycle more negative than the
+// model by more shows some covalent character, beyond the second
+// substantial covalent character. Judge uses 10 % and 15 % (common
+// practice, no source: VerdictBasis); JudgeAgainst takes thresholds set
+// elsewhere (package cycle sets them from a validation of each model) with
+// their basis. A model that binds more than the cycle by the first
+// threshold is flagged as such, not as covalency.
 //
 // # Errors
 //

@@ -105,12 +105,19 @@ func Judge(cycle, model float64) Verdict {
 // set by the user. Thresholds that are not 0 < Adequate ≤ Substantial give
 // Undetermined.
 func JudgeWith(cycle, model float64, th Thresholds) Verdict {
-	v := Verdict{Basis: VerdictBasis, Gap: math.NaN(), GapPercent: math.NaN()}
+	basis := VerdictBasis
 	if th != DefaultThresholds() {
-		v.Basis = fmt.Sprintf("thresholds %g %% and %g %% of |model|: set by the user", th.Adequate, th.Substantial)
-		if !(th.Adequate > 0 && th.Adequate <= th.Substantial) || math.IsInf(th.Substantial, 0) {
-			return v
-		}
+		basis = fmt.Sprintf("thresholds %g %% and %g %% of |model|: set by the user", th.Adequate, th.Substantial)
+	}
+	return JudgeAgainst(cycle, model, th, basis)
+}
+
+// JudgeAgainst is Judge with thresholds th whose origin basis states (for
+// thresholds set from a validation of the model).
+func JudgeAgainst(cycle, model float64, th Thresholds, basis string) Verdict {
+	v := Verdict{Basis: basis, Gap: math.NaN(), GapPercent: math.NaN()}
+	if !(th.Adequate > 0 && th.Adequate <= th.Substantial) || math.IsInf(th.Substantial, 0) {
+		return v
 	}
 	if !(model < 0) || !(cycle < 0) || math.IsNaN(cycle) || math.IsNaN(model) || math.IsInf(cycle, 0) || math.IsInf(model, 0) {
 		return v

@@ -296,6 +296,7 @@ func (m *Model) flip(kj float64) string { return m.ctx.Signed(-kj) }
 func (m *Model) askExport() {
 	c := m.sess.Cycle
 	d := hessdiagram.Build(c.Formula, m.steps(), hessdiagram.ForCycle(c, hessdiagram.Options{Units: m.ctx.Units, Limit: -1, Solved: m.sess.Solved() != nil}))
+	d.Notes = drawingNotes(m.sess.Solved())
 	name := stem(c.Formula) + "-cycle.svg"
 	m.export.Open(prompt.New(m.ctx.Styles, "Export the drawing as SVG", name, "A file name; esc cancels.", m.ctx.MaxInputLen,
 		func(answer string) (tea.Cmd, error) {
@@ -312,7 +313,7 @@ func (m *Model) askExport() {
 				}
 				return screen.StatusMsg{Text: "Drawing written to " + path + "."}
 			}, nil
-		}))
+		}, prompt.WithProposal()))
 }
 
 // writeSVG writes the drawing atomically (fileio.WriteAtomic): it keeps

@@ -164,7 +164,7 @@ func (m *Model) View() string {
 	}
 	lines = append(lines, m.modelTable(res, ref)...)
 	// The explanations wrap rather than lose their end.
-	note := "gap = cycle − model (█ left of │: the cycle binds more); verdict " + cycle.VerdictThresholds()
+	note := verdictNote(res)
 	if ref != "" {
 		note = "gap = " + ref + " − model: model–model differences, no covalency verdict"
 	}
@@ -172,6 +172,7 @@ func (m *Model) View() string {
 		lines = append(lines, st.Muted.Render(l))
 	}
 	lines = append(lines, m.madelungLines(res)...)
+	lines = append(lines, m.extendedLines(res)...)
 	lines = append(lines, m.siteLines()...)
 	// The settings take the rows left; when too few, the list scrolls with
 	// the cursor and its title says which rows are shown.

@@ -1,0 +1,168 @@
+package cli
+
+import (
+	"fmt"
+	"io"
+	"strconv"
+	"strings"
+
+	"enthalpath/cycle"
+)
+
+const trustSynopsis = "trust [--json] [--list]"
+
+// runTrust prints the validation of every lattice model against the cycles
+// of the built-in compounds: per family, the mean and RMS gap, and which
+// model the verdict reads a compound of that family against.
+func runTrust(env Env, args []string) error {
+	fs := newFlagSet("trust", trustSynopsis, env.Stderr)
+	var asJSON, list bool
+	fs.BoolVar(&asJSON, "json", false, "print JSON")
+	fs.BoolVar(&list, "list", false, "list every compound a model could not evaluate, with the reason")
+	pos, help, err := parseFlags(fs, args)
+	if help || err != nil {
+		return err
+	}
+	if len(pos) > 0 {
+		return Usagef("trust takes no formula: usage: enthalpath %s", trustSynopsis)
+	}
+	db, err := loadData(env)
+	if err != nil {
+		return err
+	}
+	v := cycle.Validate(db, cycle.NewMemo())
+	if asJSON {
+		return writeJSON(env.Stdout, trustJSONOf(v))
+	}
+	writeTrust(env.Stdout, v, list)
+	return nil
+}
+
+// familyReference is the model the verdict of a compound of the family is
+// read against when the extended model cannot be evaluated for it.
+func familyReference(v *cycle.Validation, family string) (string, string) {
+	return v.Reference(family, func(name string) bool { return name != cycle.ModelExtended && v.Model(name) != nil })
+}
+
+func writeTrust(w io.Writer, v *cycle.Validation, list bool) {
+	fmt.Fprintf(w, "lattice models against the cycles of %d built-in compounds that close (ΔH_L at 298.15 K, default settings);\n", v.Compounds)
+	fmt.Fprintf(w, "gap = cycle − model in percent of |model|, negative when the cycle binds more\n\n")
+	t := table{head: []string{"family", "model", "n", "mean", "RMS", "largest", "", ""}, right: map[int]bool{2: true, 3: true, 4: true, 5: true}}
+	add := func(family string, m *cycle.ModelValidation, s cycle.FamilyStats, mark string) {
+		if s.N == 0 {
+			t.add(family, m.Model, "0", "—", "—", "—", "", mark)
+			return
+		}
+		t.add(family, m.Model, strconv.Itoa(s.N), percent(s.MeanPercent), fmt.Sprintf("%.1f %%", s.RMSPercent),
+			fmt.Sprintf("%.1f %%", s.MaxPercent), s.Worst, mark)
+	}
+	for _, fam := range append(cycle.ValidationFamilies(), "all") {
+		ref, _ := familyReference(v, fam)
+		for i := range v.Models {
+			m := &v.Models[i]
+			s, mark := m.All, ""
+			if fam != "all" {
+				s = m.Family(fam)
+				switch m.Model {
+				case cycle.ModelExtended:
+					mark = "◂ verdict where it evaluates"
+				case ref:
+					mark = "◂ verdict otherwise"
+				}
+			}
+			label := ""
+			if i == 0 {
+				label = fam
+			}
+			add(label, m, s, mark)
+		}
+	}
+	t.write(w, "")
+	fmt.Fprintln(w)
+	for _, m := range v.Models {
+		_, basis := v.Thresholds(m.Model)
+		fmt.Fprintf(w, "%-13s verdict %s\n", m.Model, wrapText(basis, 96, strings.Repeat(" ", 14)))
+	}
+	fmt.Fprintf(w, "\nA compound's verdict is read against the extended model where it can be evaluated; else against the model\n")
+	fmt.Fprintf(w, "with the smallest RMS over the compound's family (at least 5 compounds), else over the alkali halides.\n")
+	fmt.Fprintf(w, "A model's σ for an estimate is its RMS over the compound's family (at least 5 compounds), else over the alkali halides.\n")
+	fmt.Fprintf(w, "\nnot evaluated (cycle closes, model cannot be evaluated):")
+	for _, m := range v.Models {
+		fmt.Fprintf(w, " %s %d;", m.Model, len(m.NotEvaluated))
+	}
+	fmt.Fprintf(w, "\n%d compound(s) whose cycle does not close are left out", len(v.NotClosed))
+	if !list {
+		fmt.Fprintln(w, " (--list names every compound left out, with the reason)")
+		return
+	}
+	fmt.Fprintln(w, ":")
+	for _, n := range v.NotClosed {
+		fmt.Fprintf(w, "  %-10s %s\n", n.Formula, wrapText(n.Reason, 100, strings.Repeat(" ", 13)))
+	}
+	for _, m := range v.Models {
+		if len(m.NotEvaluated) == 0 {
+			continue
+		}
+		fmt.Fprintf(w, "not evaluated by %s:\n", m.Model)
+		for _, n := range m.NotEvaluated {
+			fmt.Fprintf(w, "  %-10s %s\n", n.Formula, wrapText(n.Reason, 100, strings.Repeat(" ", 13)))
+		}
+	}
+}
+
+type familyJSON struct {
+	Family      string     `json:"family"`
+	N           int        `json:"n"`
+	MeanPercent jsonNumber `json:"mean_gap_percent"`
+	RMSPercent  jsonNumber `json:"rms_gap_percent"`
+	MaxPercent  jsonNumber `json:"largest_gap_percent"`
+	Worst       string     `json:"largest_gap_compound,omitempty"`
+}
+
+type notEvaluatedJSON struct {
+	Formula string `json:"compound"`
+	Reason  string `json:"reason"`
+}
+
+type modelTrustJSON struct {
+	Model        string             `json:"model"`
+	Families     []familyJSON       `json:"families"`
+	All          familyJSON         `json:"all"`
+	Thresholds   string             `json:"verdict_thresholds"`
+	NotEvaluated []notEvaluatedJSON `json:"not_evaluated"`
+}
+
+type trustJSON struct {
+	Compounds int                `json:"compounds_closing"`
+	Models    []modelTrustJSON   `json:"models"`
+	Reference map[string]string  `json:"verdict_model_without_extended"`
+	NotClosed []notEvaluatedJSON `json:"cycle_does_not_close"`
+}
+
+func trustJSONOf(v *cycle.Validation) trustJSON {
+	fam := func(s cycle.FamilyStats) familyJSON {
+		out := familyJSON{Family: s.Family, N: s.N, MeanPercent: jsonNumber(s.MeanPercent), RMSPercent: jsonNumber(s.RMSPercent),
+			MaxPercent: jsonNumber(s.MaxPercent), Worst: s.Worst}
+		return out
+	}
+	list := func(ns []cycle.NotEvaluated) []notEvaluatedJSON {
+		out := []notEvaluatedJSON{}
+		for _, n := range ns {
+			out = append(out, notEvaluatedJSON{n.Formula, n.Reason})
+		}
+		return out
+	}
+	j := trustJSON{Compounds: v.Compounds, Reference: map[string]string{}, NotClosed: list(v.NotClosed)}
+	for _, m := range v.Models {
+		_, basis := v.Thresholds(m.Model)
+		mj := modelTrustJSON{Model: m.Model, All: fam(m.All), Thresholds: basis, NotEvaluated: list(m.NotEvaluated)}
+		for _, f := range m.Families {
+			mj.Families = append(mj.Families, fam(f))
+		}
+		j.Models = append(j.Models, mj)
+	}
+	for _, f := range cycle.ValidationFamilies() {
+		j.Reference[f], _ = familyReference(v, f)
+	}
+	return j
+}

@@ -1,0 +1,270 @@
+package cycle
+
+import (
+	"fmt"
+	"math"
+	"slices"
+	"strings"
+
+	"enthalpath/data"
+	"enthalpath/thermo"
+	"enthalpath/thermo/crystal"
+	"enthalpath/thermo/lattice"
+)
+
+// ModelExtended is the extended ionic model: the Ewald energy of the
+// structure with Born–Mayer–Huggins repulsion, dispersion and zero-point
+// energy (thermo/lattice.Extended).
+const ModelExtended = "extended"
+
+// FumiTosiB is the repulsion constant b = 0.338e-12 erg of Fumi and Tosi's
+// Huggins–Mayer form (J. Phys. Chem. Solids 25, 31 (1964); from memory,
+// agreeing with the public transcription named in data's allow-list).
+const FumiTosiB = 0.338e-12
+
+// Coefficient is one number the extended model took from a table, with
+// where it came from.
+type Coefficient struct {
+	// Name is what the number is ("ρ", "C(+ −)", "α(Na+)").
+	Name  string
+	Value float64
+	Unit  string
+	// Source is the citation key (data's model_sources.csv) and Citation
+	// the full reference; Memory marks a value typed from memory.
+	Source, Citation string
+	Memory           bool
+}
+
+// ExtendedBreakdown is the extended model's account: its terms at the
+// minimum of U(d) and at the reference distance, and where each input came
+// from.
+type ExtendedBreakdown struct {
+	// Minimum is the model at the minimum of U(d) (the model's value), and
+	// AtReference at the reference distance Reference (Å): the measured
+	// distance when ReferenceMeasured, else the radii sum.
+	Minimum, AtReference lattice.ExtendedTerms
+	Reference            float64
+	ReferenceFrom        string
+	ReferenceMeasured    bool
+	// LatticeCorrection is ΔH_L − U (kJ/mol), the n·RT term of the cycle's
+	// lattice convention (0 when the cycle compares lattice energies).
+	LatticeCorrection float64
+	// RepulsionFrom, DispersionFrom and ZeroPointFrom say how each term
+	// was obtained.
+	RepulsionFrom, DispersionFrom, ZeroPointFrom string
+	// Coefficients are the tabulated numbers used, each with its source.
+	Coefficients []Coefficient
+}
+
+// Terms returns the terms in display order with their names, kJ/mol, at the
+// minimum: Coulomb, repulsion, dispersion C/r⁶, dispersion D/r⁸,
+// zero-point, and the n·RT correction to ΔH_L.
+func (b *ExtendedBreakdown) Terms(t lattice.ExtendedTerms) []Term {
+	return []Term{
+		{"Coulomb (Ewald)", t.Coulomb},
+		{"repulsion", t.Repulsion},
+		{"dispersion C/r⁶", t.DipoleDipole},
+		{"dispersion D/r⁸", t.DipoleQuadrupole},
+		{"zero-point", t.ZP},
+		{"n·RT to ΔH_L", -b.LatticeCorrection},
+	}
+}
+
+// Summary is the breakdown in one line, kJ/mol per formula unit at the
+// least energy.
+func (b *ExtendedBreakdown) Summary() string {
+	t := b.Minimum
+	return fmt.Sprintf("extended model per formula unit at its least energy (d = %.4f Å): Coulomb %.1f, repulsion %+.1f, dispersion %.1f, zero-point %+.1f, n·RT %+.1f kJ/mol",
+		t.D, t.Coulomb, t.Repulsion, t.Dispersion(), t.ZP, -b.LatticeCorrection)
+}
+
+// Term is one named energy, kJ/mol.
+type Term struct {
+	Name  string
+	Value float64
+}
+
+// structureSums are a structure's pair sums with the compound's ions, at
+// the cell's own size.
+type structureSums struct {
+	sums        crystal.PairSums
+	dCell       float64 // nearest cation–anion distance, Å
+	volumePerFU float64 // Å³
+}
+
+// pairSums returns the pair sums of st out to lattice.ExtendedCutoff times
+// the nearest distance, and the shells out to 6 Å beyond it (the repulsion
+// needs those within 12ρ of contact: ρ up to 0.5 Å, beyond every tabulated
+// range), remembered per structure and charges.
+func (m *Memo) pairSums(st Structure, cation, anion Part) (structureSums, error) {
+	key := memoKey(st, cation, anion, 0)
+	m.mu.Lock()
+	e, ok := m.sums[key]
+	m.mu.Unlock()
+	if ok {
+		return e.v, e.err
+	}
+	v, err := computePairSums(st, cation, anion)
+	m.mu.Lock()
+	if m.sums == nil || len(m.sums) >= maxMemo {
+		m.sums = map[string]sumsEntry{}
+	}
+	m.sums[key] = sumsEntry{v, err}
+	m.mu.Unlock()
+	return v, err
+}
+
+type sumsEntry struct {
+	v   structureSums
+	err error
+}
+
+func computePairSums(st Structure, cation, anion Part) (structureSums, error) {
+	cell, err := buildCell(st, cation, anion)
+	if err != nil {
+		return structureSums{}, err
+	}
+	d, _, _ := cell.NearestCationAnion()
+	if !(d > 0) {
+		return structureSums{}, &ModelError{Model: ModelExtended, Reason: "the structure has no cation–anion pair"}
+	}
+	sums, err := cell.PairSums(lattice.ExtendedCutoff*d, min(lattice.ExtendedCutoff*d, d+lattice.ExtendedShortReach(0.5)))
+	if err != nil {
+		return structureSums{}, &ModelError{Model: ModelExtended, Reason: "cannot sum the pairs of the structure", Err: err}
+	}
+	return structureSums{sums: sums, dCell: d, volumePerFU: cell.Volume() / float64(cell.FormulaUnits)}, nil
+}
+
+// extended evaluates the extended model into in (see ModelExtended).
+func (e *evaluator) extended(in *ModelInputs) (float64, error) {
+	c := e.c
+	fail := func(reason string, err error) (float64, error) {
+		return 0, &ModelError{Model: ModelExtended, Reason: reason, Err: err}
+	}
+	if c.Cation.Ion.Polyatomic || c.Anion.Ion.Polyatomic {
+		return fail("a polyatomic ion is a point charge here, with no repulsion or dispersion coefficients for it", nil)
+	}
+	params, err := data.ExtendedModelParams()
+	if err != nil {
+		return fail("its coefficient tables cannot be read", err)
+	}
+	mad, err := e.madelung(in, false)
+	if err != nil {
+		return 0, err
+	}
+	if err := e.distance(in, true, mad.NearestDistance); err != nil {
+		return 0, err
+	}
+	st := c.Settings.Structure
+	if st.Empty() {
+		p, _, err := e.ratioRule()
+		if err != nil {
+			return 0, err
+		}
+		st = Structure{Prototype: p}
+	}
+	ps, err := c.Memo().pairSums(st, c.Cation, c.Anion)
+	if err != nil {
+		return 0, err
+	}
+	// Lattice sums of the cell, scaled to the reference distance in.D0.
+	scale := in.D0 / ps.dCell
+	sums := ps.sums
+	sums.Short = slices.Clone(sums.Short)
+	for i := range sums.Short {
+		sums.Short[i].Distance *= scale
+	}
+	for k := range 3 {
+		sums.InvPow6[k] /= math.Pow(scale, 6)
+		sums.InvPow8[k] /= math.Pow(scale, 8)
+	}
+	b := &ExtendedBreakdown{Reference: in.D0, ReferenceFrom: in.D0From, ReferenceMeasured: strings.HasPrefix(in.D0From, "nearest cation–anion distance")}
+	input := lattice.ExtendedInput{
+		Madelung: in.Madelung, ZCation: c.Cation.Ion.Charge, ZAnion: c.Anion.Ion.Charge,
+		Ions: c.Cation.Count + c.Anion.Count, D0: in.D0,
+		VolumePerFormulaUnit: ps.volumePerFU * scale * scale * scale,
+		Sums:                 sums,
+		ZeroPoint:            lattice.ZeroPoint{MolarMass: c.MolarMass},
+	}
+	cite := func(name string, v data.Value) {
+		src, _ := params.Source(v.Source)
+		b.Coefficients = append(b.Coefficients, Coefficient{Name: name, Value: v.V, Unit: v.Unit, Source: v.Source, Citation: src.Citation, Memory: v.Memory})
+	}
+	salt, hasSalt := params.Salt(c.Formula)
+	ionC, okC := params.Ion(c.Cation.Ion.Symbol)
+	ionA, okA := params.Ion(c.Anion.Ion.Symbol)
+	// Repulsion: Fumi–Tosi where the salt and both basic radii are tabulated.
+	if hasSalt && salt.Rho.Known() && okC && okA && ionC.BasicRadius.Known() && ionA.BasicRadius.Known() && ionC.OuterElectrons > 0 && ionA.OuterElectrons > 0 {
+		rho := salt.Rho.V
+		bKJ := thermo.ErgCentimetrePowerToKJPerMol(FumiTosiB, 1, 0)
+		zc, za := c.Cation.Ion.Charge, c.Anion.Ion.Charge
+		nc, na := ionC.OuterElectrons, ionA.OuterElectrons
+		sc, sa := ionC.BasicRadius.V, ionA.BasicRadius.V
+		input.Repulsion = lattice.Repulsion{Rho: rho}
+		input.Repulsion.Prefactor[crystal.CationCation] = lattice.PaulingFactor(zc, nc, zc, nc) * bKJ * math.Exp(2*sc/rho)
+		input.Repulsion.Prefactor[crystal.CationAnion] = lattice.PaulingFactor(zc, nc, za, na) * bKJ * math.Exp((sc+sa)/rho)
+		input.Repulsion.Prefactor[crystal.AnionAnion] = lattice.PaulingFactor(za, na, za, na) * bKJ * math.Exp(2*sa/rho)
+		b.RepulsionFrom = fmt.Sprintf("Born–Mayer–Huggins, Fumi–Tosi parameters: b = 0.338e-12 erg, Pauling factors c_ij = 1 + z_i/n_i + z_j/n_j (n = %d, %d), ρ = %g Å, σ = %g, %g Å; all pairs within %g ρ of contact",
+			nc, na, rho, sc, sa, 12.0)
+		cite("ρ", salt.Rho)
+		cite("σ("+c.Cation.Ion.Symbol+")", ionC.BasicRadius)
+		cite("σ("+c.Anion.Ion.Symbol+")", ionA.BasicRadius)
+	} else {
+		rho := c.Settings.Rho
+		if rho == 0 {
+			rho = lattice.DefaultRho
+		}
+		input.Repulsion = lattice.Repulsion{Rho: rho, Fitted: true}
+		b.RepulsionFrom = fmt.Sprintf("Born–Mayer B·exp(−r/ρ) on the cation–anion pairs, ρ = %g Å, B fitted so that the energy is least at the reference distance %.4f Å (no Fumi–Tosi parameters for %s)",
+			rho, in.D0, c.Formula)
+	}
+	// Dispersion: Mayer's coefficients where tabulated, else Slater–Kirkwood.
+	if hasSalt && salt.C[0].Known() {
+		for k := range 3 {
+			input.C6[k] = thermo.ErgCentimetrePowerToKJPerMol(salt.C[k].V, 1e-60, 6)
+			input.C8[k] = thermo.ErgCentimetrePowerToKJPerMol(salt.D[k].V, 1e-76, 8)
+		}
+		b.DispersionFrom = "Mayer's C and D for " + c.Formula + " (1e-60 erg·cm⁶, 1e-76 erg·cm⁸)"
+		for k, kind := range []string{"+ +", "+ −", "− −"} {
+			cite("C("+kind+")", salt.C[k])
+			cite("D("+kind+")", salt.D[k])
+		}
+	} else {
+		for _, p := range []struct {
+			ok     bool
+			symbol string
+			params data.IonModelParams
+		}{{okC, c.Cation.Ion.Symbol, ionC}, {okA, c.Anion.Ion.Symbol, ionA}} {
+			if !p.ok || !p.params.Polarizability.Known() || !(p.params.Electrons > 0) {
+				return fail("no polarizability for "+p.symbol+" in the model tables, so no dispersion estimate", nil)
+			}
+		}
+		ac, nc := ionC.Polarizability.V, ionC.Electrons
+		aa, na := ionA.Polarizability.V, ionA.Electrons
+		var err error
+		if input.C6[crystal.CationCation], err = lattice.SlaterKirkwood(ac, nc, ac, nc); err == nil {
+			if input.C6[crystal.CationAnion], err = lattice.SlaterKirkwood(ac, nc, aa, na); err == nil {
+				input.C6[crystal.AnionAnion], err = lattice.SlaterKirkwood(aa, na, aa, na)
+			}
+		}
+		if err != nil {
+			return fail("cannot estimate the dispersion coefficients", err)
+		}
+		b.DispersionFrom = fmt.Sprintf("C by Slater–Kirkwood from the polarizabilities (α = %g, %g Å³; N = %g, %g); D/r⁸ not estimated (no tabulated D for %s)",
+			ac, aa, nc, na, c.Formula)
+		cite("α("+c.Cation.Ion.Symbol+")", ionC.Polarizability)
+		cite("α("+c.Anion.Ion.Symbol+")", ionA.Polarizability)
+	}
+	res, err := lattice.Extended(input)
+	if err != nil {
+		return fail("cannot be evaluated", err)
+	}
+	b.Minimum, b.AtReference = res.Minimum, res.AtD0
+	b.ZeroPointFrom = res.ZeroPointFrom
+	if c.Conventions.Lattice == LatticeEnthalpy {
+		b.LatticeCorrection = c.LatticeCorrection()
+	}
+	in.Extended = b
+	in.Rho = input.Repulsion.Rho
+	return res.Minimum.Total(), nil
+}

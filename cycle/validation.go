@@ -1,0 +1,290 @@
+package cycle
+
+import (
+	"fmt"
+	"math"
+	"slices"
+
+	"enthalpath/data"
+	"enthalpath/thermo/lattice"
+)
+
+// The validation families: every compound falls in one, from its ions.
+const (
+	FamilyAlkaliHalides        = "alkali halides"
+	FamilyAlkalineEarthHalides = "alkaline-earth halides"
+	FamilyOxides               = "oxides"
+	FamilyChalcogenides        = "chalcogenides"
+	FamilyD10Halides           = "silver, copper(I) and thallium(I) halides"
+	FamilyTransitionHalides    = "transition-metal halides"
+	FamilyPolyatomic           = "salts of polyatomic ions"
+	FamilyOther                = "other salts"
+)
+
+// ValidationFamilies lists the families in report order.
+func ValidationFamilies() []string {
+	return []string{FamilyAlkaliHalides, FamilyAlkalineEarthHalides, FamilyOxides, FamilyChalcogenides,
+		FamilyD10Halides, FamilyTransitionHalides, FamilyPolyatomic, FamilyOther}
+}
+
+// IonicFamily is the family whose scatter sets each model's σ and the
+// verdict's thresholds: the alkali halides, the textbook ionic solids.
+const IonicFamily = FamilyAlkaliHalides
+
+// Verdict thresholds in multiples of the reference model's σ over the
+// ionic family: some covalent character beyond 3σ (a gap the ionic scatter
+// reaches by chance about once in 300 if it were normal), substantial
+// beyond 6σ (our choice, no source).
+const (
+	AdequateSigmas    = 3.0
+	SubstantialSigmas = 6.0
+)
+
+// minFamily is the fewest compounds a family needs for its own statistics
+// to stand for a model's σ or to pick the best-validated model.
+const minFamily = 5
+
+// ValidationFamily returns the family of c by its ions.
+func ValidationFamily(c *Cycle) string {
+	cat, an := c.Cation.Ion, c.Anion.Ion
+	if cat.Polyatomic || an.Polyatomic {
+		return FamilyPolyatomic
+	}
+	z := data.AtomicNumber(cat.Core)
+	switch an.Core {
+	case "F", "Cl", "Br", "I":
+		switch {
+		case isAlkali(z):
+			return FamilyAlkaliHalides
+		case isAlkalineEarth(z):
+			return FamilyAlkalineEarthHalides
+		case cat.Charge == 1 && (cat.Core == "Ag" || cat.Core == "Cu" || cat.Core == "Tl" || cat.Core == "Au"):
+			return FamilyD10Halides
+		case isTransition(z):
+			return FamilyTransitionHalides
+		}
+	case "O":
+		if an.Charge == -2 {
+			return FamilyOxides
+		}
+	case "S", "Se", "Te":
+		return FamilyChalcogenides
+	}
+	return FamilyOther
+}
+
+func isAlkali(z int) bool { return slices.Contains([]int{3, 11, 19, 37, 55, 87}, z) }
+
+func isAlkalineEarth(z int) bool { return slices.Contains([]int{4, 12, 20, 38, 56, 88}, z) }
+
+func isTransition(z int) bool {
+	return (z >= 21 && z <= 30) || (z >= 39 && z <= 48) || z == 57 || (z >= 72 && z <= 80)
+}
+
+// FamilyStats are one model's gaps over one family: 100·(cycle −
+// model)/|model| averaged (MeanPercent, negative when the cycle binds more)
+// and as root mean square, over N compounds; the largest |gap| is Worst's.
+type FamilyStats struct {
+	Family                              string
+	N                                   int
+	MeanPercent, RMSPercent, MaxPercent float64
+	Worst                               string
+}
+
+// NotEvaluated is a compound left out, with the reason.
+type NotEvaluated struct {
+	Formula, Reason string
+}
+
+// ModelValidation is one model over the built-in compounds.
+type ModelValidation struct {
+	Model    string
+	Families []FamilyStats // in ValidationFamilies order
+	All      FamilyStats
+	// NotEvaluated lists the compounds whose cycle closes but the model
+	// cannot evaluate.
+	NotEvaluated []NotEvaluated
+}
+
+// Family returns the stats of one family.
+func (m *ModelValidation) Family(name string) FamilyStats {
+	for _, f := range m.Families {
+		if f.Family == name {
+			return f
+		}
+	}
+	return FamilyStats{Family: name}
+}
+
+// Validation is every model against the cycles of the built-in compounds
+// that close, in the default conventions and settings: how far each model
+// can be trusted, by family.
+type Validation struct {
+	// Compounds is how many compounds' cycles close; NotClosed the others.
+	Compounds int
+	NotClosed []NotEvaluated
+	Models    []ModelValidation
+}
+
+// Model returns one model's validation (nil for an unknown name).
+func (v *Validation) Model(name string) *ModelValidation {
+	for i := range v.Models {
+		if v.Models[i].Model == name {
+			return &v.Models[i]
+		}
+	}
+	return nil
+}
+
+// Sigma returns the model's relative σ for a compound of family: the RMS
+// gap over that family when it has at least five compounds, else over the
+// ionic family (0 when the model was never evaluated there), and what it
+// was computed over.
+func (v *Validation) Sigma(model, family string) (float64, string) {
+	f := v.SigmaStats(model, family)
+	if f.N == 0 {
+		return 0, ""
+	}
+	return f.RMSPercent / 100, fmt.Sprintf("RMS gap of the %s model over %d built-in %s (mean %+.1f %%, largest %.1f %% for %s; validation of the built-in data)",
+		model, f.N, f.Family, f.MeanPercent, f.MaxPercent, f.Worst)
+}
+
+// SigmaStats returns the family statistics Sigma takes the model's σ from:
+// the family's when it has at least five compounds, else the ionic
+// family's (N = 0 when the model was evaluated for neither).
+func (v *Validation) SigmaStats(model, family string) FamilyStats {
+	m := v.Model(model)
+	if m == nil {
+		return FamilyStats{Family: family}
+	}
+	if f := m.Family(family); f.N >= minFamily {
+		return f
+	}
+	return m.Family(IonicFamily)
+}
+
+// Thresholds returns the verdict's thresholds for a model: 3σ and 6σ of
+// its RMS gap over the ionic family, with their basis in words. A model
+// never evaluated there keeps lattice.DefaultThresholds.
+func (v *Validation) Thresholds(model string) (lattice.Thresholds, string) {
+	m := v.Model(model)
+	if m == nil || m.Family(IonicFamily).N == 0 || !(m.Family(IonicFamily).RMSPercent > 0) {
+		return lattice.DefaultThresholds(), lattice.VerdictBasis
+	}
+	f := m.Family(IonicFamily)
+	th := lattice.Thresholds{Adequate: AdequateSigmas * f.RMSPercent, Substantial: SubstantialSigmas * f.RMSPercent}
+	return th, fmt.Sprintf("thresholds %.1f %% and %.1f %% of |model| (%g σ and %g σ; σ = %.2f %%, the %s model's RMS gap over %d built-in %s)",
+		th.Adequate, th.Substantial, AdequateSigmas, SubstantialSigmas, f.RMSPercent, model, f.N, IonicFamily)
+}
+
+// Reference picks the model the verdict of a compound of family is read
+// against, among those evaluated (ok): the extended model where it could be
+// evaluated, else the model with the smallest RMS gap over the family (at
+// least five compounds), else over the ionic family. It returns the model
+// and why.
+func (v *Validation) Reference(family string, ok func(model string) bool) (string, string) {
+	if ok(ModelExtended) {
+		return ModelExtended, "the extended model evaluates here"
+	}
+	best, bestRMS, over := "", math.Inf(1), ""
+	for _, fam := range []string{family, IonicFamily} {
+		for _, m := range v.Models {
+			f := m.Family(fam)
+			if !ok(m.Model) || f.N < minFamily && fam == family || f.N == 0 {
+				continue
+			}
+			if f.RMSPercent < bestRMS {
+				best, bestRMS, over = m.Model, f.RMSPercent, fmt.Sprintf("%d built-in %s", f.N, fam)
+			}
+		}
+		if best != "" {
+			return best, fmt.Sprintf("the extended model cannot be evaluated here; %s has the smallest RMS gap (%.1f %%) over %s", best, bestRMS, over)
+		}
+	}
+	return "", "no model could be evaluated"
+}
+
+// Validate evaluates every model for every compound of db whose cycle
+// closes, in the default conventions, with memo for the Ewald sums.
+func Validate(db *data.DB, memo *Memo) *Validation {
+	v := &Validation{}
+	families := ValidationFamilies()
+	type acc struct {
+		n                  int
+		sum, sumSq, absMax float64
+		worst              string
+	}
+	accs := make(map[string][]acc, len(ModelNames()))
+	notEval := map[string][]NotEvaluated{}
+	for _, name := range ModelNames() {
+		accs[name] = make([]acc, len(families)+1) // the last one is "all"
+	}
+	for _, comp := range db.Compounds() {
+		c, err := Build(db, comp.Formula, Options{Memo: memo})
+		if err != nil {
+			v.NotClosed = append(v.NotClosed, NotEvaluated{comp.Formula, err.Error()})
+			continue
+		}
+		c.db = nil // the verdicts of this inner solve need no validation
+		r, err := Solve(c)
+		if err != nil {
+			v.NotClosed = append(v.NotClosed, NotEvaluated{comp.Formula, err.Error()})
+			continue
+		}
+		v.Compounds++
+		cyc := r.Lattice.In(c.Conventions.Lattice)
+		fi := slices.Index(families, ValidationFamily(c))
+		for _, m := range r.Models {
+			name := m.Model
+			if m.Err != nil {
+				notEval[name] = append(notEval[name], NotEvaluated{comp.Formula, m.Err.Error()})
+				continue
+			}
+			g := 100 * (cyc - m.Value) / math.Abs(m.Value)
+			for _, k := range []int{fi, len(families)} {
+				a := &accs[name][k]
+				a.n++
+				a.sum += g
+				a.sumSq += g * g
+				if math.Abs(g) > a.absMax {
+					a.absMax, a.worst = math.Abs(g), comp.Formula
+				}
+			}
+		}
+	}
+	stats := func(fam string, a acc) FamilyStats {
+		s := FamilyStats{Family: fam, N: a.n}
+		if a.n > 0 {
+			s.MeanPercent, s.RMSPercent, s.MaxPercent, s.Worst = a.sum/float64(a.n), math.Sqrt(a.sumSq/float64(a.n)), a.absMax, a.worst
+		}
+		return s
+	}
+	for _, name := range ModelNames() {
+		mv := ModelValidation{Model: name, NotEvaluated: notEval[name], All: stats("all", accs[name][len(families)])}
+		for i, fam := range families {
+			mv.Families = append(mv.Families, stats(fam, accs[name][i]))
+		}
+		v.Models = append(v.Models, mv)
+	}
+	return v
+}
+
+// validationKey is the key of the models' validation among the values
+// derived from a data set (data.DB.Computed).
+const validationKey = "cycle.Validation"
+
+// Validation returns the validation of the models over the compounds of
+// c's data, computed once per data set (nil for a cycle built without
+// data).
+func (c *Cycle) Validation() *Validation {
+	if c.db == nil {
+		return nil
+	}
+	return c.Memo().Validation(c.db)
+}
+
+// Validation returns Validate(db, m), computed once per data set (the
+// first caller's memo does the Ewald sums).
+func (m *Memo) Validation(db *data.DB) *Validation {
+	return db.Computed(validationKey, func() any { return Validate(db, m) }).(*Validation)
+}
