@@ -19,7 +19,7 @@ const ModelExtended = "extended"
 
 // FumiTosiB is the repulsion constant b = 0.338e-12 erg of Fumi and Tosi's
 // Huggins–Mayer form (J. Phys. Chem. Solids 25, 31 (1964); from memory,
-// agreeing with the public transcription named in data's allow-list).
+// agreeing with the public digitised copy named in data's allow-list).
 const FumiTosiB = 0.338e-12
 
 // Coefficient is one number the extended model took from a table, with

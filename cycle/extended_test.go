@@ -31,15 +31,14 @@ func extendedGap(t *testing.T, formula string) (*ModelResult, *Result) {
 }
 
 // TestExtendedNaClBreakdown compares the extended model's terms for NaCl,
-// in eV per ion pair, with a published split: Coulomb −8.85, repulsion
+// in eV per ion pair, with the usual textbook split: Coulomb −8.85, repulsion
 // +1.02, van der Waals −0.125, zero-point +0.075, cohesive energy −7.9 eV
-// (Princeton University, MAE 324 course notes "Solids: Thermodynamics and
-// Bonding", page 02_17, princeton.edu/~maelabs/mae324/02/02_17.htm — the
-// usual textbook split). Our Coulomb term is at the model's own least-energy
+// (from memory, as commonly tabulated after Mayer 1933 and Huggins 1937;
+// no document at hand). Our Coulomb term is at the model's own least-energy
 // distance 2.809 Å, so 1.5 % is allowed; the repulsion of Fumi–Tosi's
 // parameters and the zero-point estimate from the curvature 15 %; the total
 // 1.5 %. The dispersion is checked separately (TestExtendedNaClDispersion):
-// Mayer's coefficients give twice the page's −0.125 eV.
+// Mayer's coefficients give twice the textbook split's −0.125 eV.
 func TestExtendedNaClBreakdown(t *testing.T) {
 	m, _ := extendedGap(t, "NaCl")
 	b := m.Inputs.Extended

@@ -9,8 +9,8 @@ import (
 // the reason it may stay so. A row marked memory=yes that is not listed
 // here, or a listed row no longer marked, fails TestModelParamsMemoryListed.
 var memoryAllowList = map[string]string{
-	"salt:*":                               "Fumi–Tosi ρ and Mayer's C and D typed from memory; compared with a public transcription of the same tables (N. Jackson and G. Sivaraman's parameter file), no copy of the papers at hand",
-	"ion:Li+ Na+ K+ Rb+ Cs+ F- Cl- Br- I-": "Fumi–Tosi basic radii and Pauling's free-ion polarizabilities typed from memory; the radii agree with the same public transcription",
+	"salt:*":                               "Fumi–Tosi ρ and Mayer's C and D typed from memory; compared with a public digitised copy of the same tables (N. Jackson and G. Sivaraman's parameter file), no copy of the papers at hand",
+	"ion:Li+ Na+ K+ Rb+ Cs+ F- Cl- Br- I-": "Fumi–Tosi basic radii and Pauling's free-ion polarizabilities typed from memory; the radii agree with the same public digitised copy",
 	"ion:Be2+ Mg2+ Ca2+ Sr2+ Ba2+ O2- S2-": "Pauling's free-ion polarizabilities typed from memory, no copy of the paper at hand",
 	"ion:Ag+ Cu+ Tl+":                      "polarizabilities of the d¹⁰ and Tl+ ions recalled with low confidence (each row's note says so): they only enter the covalency reading of these salts",
 }
@@ -76,7 +76,7 @@ func TestModelParamsLoad(t *testing.T) {
 	}
 }
 
-// Spot values against the public transcription named in memoryAllowList
+// Spot values against the public digitised copy named in memoryAllowList
 // (and the NaCl coefficients every molten-salt simulation of the
 // Fumi–Tosi potential repeats): ρ(NaCl) 0.317 Å, σ(Na+) 1.170 Å, C+- 11.2,
 // D−− 233.

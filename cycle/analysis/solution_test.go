@@ -71,7 +71,7 @@ func TestSolutionReproducesHandbook(t *testing.T) {
 		// −144.691 kJ/mol, a slipped decimal point: −1446.91 would give
 		// ΔsolH° = +26.3 kJ/mol, the value of the printed tables (from
 		// memory); the cycle with the fitted SO₄²⁻ gives +24.
-		"BaSO4": "source transcription error: ΔfH°(BaSO4, ai) −144.691 for −1446.91",
+		"BaSO4": "slipped decimal point in the digitised source: ΔfH°(BaSO4, ai) −144.691 for −1446.91",
 	}
 	a := testAnalyst(t)
 	const tol = 5.0 // kJ/mol, the bound the issue sets

@@ -171,22 +171,34 @@ func nasaAlt(s nasaSpecies) alternative {
 
 // atctFind finds an ATcT gas-phase species of a composition and charge;
 // the value returned is converted to the thermal-electron convention.
+// ATcT lists isomers under one composition (CO2 as OCO and as the
+// dioxiranylidene C(OO), 583 kJ/mol higher; NO2 as ONO and as N(OO)): the
+// species meant by a formula without structure is the ground state, the
+// isomer of lowest enthalpy of formation.
 func (g *generator) atctFind(comp map[string]float64, charge int) (alternative, bool) {
 	key := compKey(comp, charge)
+	found := false
+	var best atctSpecies
+	var bestQ int
 	for _, f := range slices.Sorted(mapKeysOf(g.atct)) {
 		s := g.atct[f]
 		c, q, ok := atctComposition(f)
 		if !ok || compKey(c, q) != key {
 			continue
 		}
-		v := s.H + float64(q)*thermalRT
-		note := fmt.Sprintf("ATcT 1.112 species %s (%s)", s.Formula, s.Name)
-		if q != 0 {
-			note += fmt.Sprintf("; %.3f kJ/mol as given (stationary electron), %+.3f = z·5/2·RT to the thermal-electron convention", s.H, float64(q)*thermalRT)
+		if !found || s.H < best.H {
+			found, best, bestQ = true, s, q
 		}
-		return alternative{v: round6(v), u: s.U, source: keyATcT, locator: locator(atctFile, s.Line), note: note}, true
 	}
-	return alternative{}, false
+	if !found {
+		return alternative{}, false
+	}
+	v := best.H + float64(bestQ)*thermalRT
+	note := fmt.Sprintf("ATcT 1.112 species %s (%s)", best.Formula, best.Name)
+	if bestQ != 0 {
+		note += fmt.Sprintf("; %.3f kJ/mol as given (stationary electron), %+.3f = z·5/2·RT to the thermal-electron convention", best.H, float64(bestQ)*thermalRT)
+	}
+	return alternative{v: round6(v), u: best.U, source: keyATcT, locator: locator(atctFile, best.Line), note: note}, true
 }
 
 func mapKeysOf[V any](m map[string]V) func(func(string) bool) {

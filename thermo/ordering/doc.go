@@ -24,7 +24,10 @@
 // with V the total potential at each mixed site: one evaluation costs O(1)
 // and an accepted swap updates V in O(M) for M mixed sites. E₀ is fixed by
 // one ewald.Sum of the first ordering, so the energies listed are absolute
-// (eV per supercell).
+// (eV per supercell). Φ and Vᶠ do not change under the lattice translations
+// of the parent, so one row of Φ is summed per translation orbit of mixed
+// sites (one row for a supercell of a cell with one mixed site) and the
+// others are copied.
 //
 // # Search
 //

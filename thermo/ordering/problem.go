@@ -157,10 +157,10 @@ func NewProblem(c *crystal.Crystal, specs []SiteSpec, opt Options) (*Problem, er
 	if math.Abs(total) > crystal.NeutralityTolerance {
 		return nil, &SpecError{Reason: fmt.Sprintf("the cell with these occupants holds %+.6g e; the charges must sum to zero: %v", total, crystal.ErrNotNeutral)}
 	}
+	p.symm = findSymmetry(p, opt.MaxSymmetry)
 	if err := p.evaluate(); err != nil {
 		return nil, err
 	}
-	p.symm = findSymmetry(p, opt.MaxSymmetry)
 	return p, nil
 }
 
@@ -199,21 +199,38 @@ func checkOccupants(sp SiteSpec) error {
 // evaluate fills phi, fixedV and offset.
 func (p *Problem) evaluate() error {
 	m, n := len(p.Mixed), len(p.Parent.Sites)
-	pairs, err := ewald.PairPotentials(p.Parent, p.Mixed, ewald.Options{Accuracy: p.options.Accuracy})
+	// Φ and Vᶠ do not change under a lattice translation of the parent,
+	// which moves every site by the same vector: Φ[t(a)][t(b)] = Φ[a][b].
+	// So only one mixed site per translation orbit needs its row summed;
+	// the others are filled by the translations.
+	translations := p.symm.translationPerms()
+	if len(translations) == 0 {
+		translations = [][]int32{identity(m)}
+	}
+	reps := orbitRepresentatives(m, translations)
+	rows := make([]int, len(reps))
+	for r, a := range reps {
+		rows[r] = p.Mixed[a]
+	}
+	pairs, err := ewald.PairPotentials(p.Parent, rows, ewald.Options{Accuracy: p.options.Accuracy})
 	if err != nil {
 		return err
 	}
 	p.phi = make([]float64, m*m)
 	p.fixedV = make([]float64, m)
-	for a := 0; a < m; a++ {
-		for b, j := range p.Mixed {
-			p.phi[a*m+b] = pairs.At(a, j)
-		}
+	for r, a0 := range reps {
 		v := 0.0
 		for j := 0; j < n; j++ {
-			v += p.charge[j] * pairs.At(a, j)
+			v += p.charge[j] * pairs.At(r, j)
 		}
-		p.fixedV[a] = v
+		for _, t := range translations {
+			a := int(t[a0])
+			p.fixedV[a] = v
+			row := p.phi[a*m : (a+1)*m]
+			for b, j := range p.Mixed {
+				row[t[b]] = pairs.At(r, j)
+			}
+		}
 	}
 	ref := p.first()
 	res, err := ewald.Sum(p.Crystal(ref), ewald.Options{Accuracy: p.options.Accuracy})

@@ -141,12 +141,11 @@ func (p *Problem) Search(opt SearchOptions) (Outcome, error) {
 
 // keeper holds the lowest distinct orderings offered, by variable energy.
 type keeper struct {
-	p         *Problem
-	size      int
-	list      []kept
-	canon     []uint8
-	scratch   []uint8
-	tolerance float64
+	p       *Problem
+	size    int
+	list    []kept
+	canon   []uint8
+	scratch []uint8
 }
 
 type kept struct {

@@ -8,9 +8,14 @@ import (
 )
 
 // symmetry holds the operations of the disordered parent as permutations
-// of the mixed sites: perm[g][a] is the image of mixed site a under g.
+// of the mixed sites, stored inverted: inv[g][b] is the mixed site that g
+// carries onto b, so the image of an ordering x under g reads
+// x[inv[g][0]], x[inv[g][1]], … in order.
 type symmetry struct {
-	perm [][]int32
+	inv [][]int32
+	// translations is the number of pure lattice translations, which come
+	// first in inv.
+	translations int
 	// translationsOnly is set when the point operations were left out to
 	// keep the table within Options.MaxSymmetry.
 	translationsOnly bool
@@ -191,7 +196,7 @@ func findSymmetry(p *Problem, maxTable int) *symmetry {
 				continue
 			}
 			if (len(perms)+len(translations))*m > maxTable {
-				return &symmetry{perm: translations, translationsOnly: true}
+				return &symmetry{inv: inverses(translations), translations: len(translations), translationsOnly: true}
 			}
 			for _, t := range translations {
 				perm := make([]int32, m)
@@ -203,7 +208,62 @@ func findSymmetry(p *Problem, maxTable int) *symmetry {
 			break
 		}
 	}
-	return &symmetry{perm: perms}
+	return &symmetry{inv: inverses(perms), translations: len(translations)}
+}
+
+// translationPerms returns the pure translations as forward permutations
+// of the m mixed sites (t[a] is the image of a); only the identity without
+// a table.
+func (s *symmetry) translationPerms() [][]int32 {
+	if s == nil {
+		return nil
+	}
+	out := make([][]int32, s.translations)
+	for k, inv := range s.inv[:s.translations] {
+		fwd := make([]int32, len(inv))
+		for b, a := range inv {
+			fwd[a] = int32(b)
+		}
+		out[k] = fwd
+	}
+	return out
+}
+
+// orbitRepresentatives returns the least mixed site of each orbit of the
+// translations (which must include the identity).
+func orbitRepresentatives(m int, translations [][]int32) []int {
+	covered := make([]bool, m)
+	var reps []int
+	for a := 0; a < m; a++ {
+		if covered[a] {
+			continue
+		}
+		reps = append(reps, a)
+		for _, t := range translations {
+			covered[t[a]] = true
+		}
+	}
+	return reps
+}
+
+func identity(m int) []int32 {
+	id := make([]int32, m)
+	for a := range id {
+		id[a] = int32(a)
+	}
+	return id
+}
+
+// inverses inverts each permutation in place and returns the list.
+func inverses(perms [][]int32) [][]int32 {
+	scratch := make([]int32, 0)
+	for _, p := range perms {
+		scratch = append(scratch[:0], p...)
+		for a, b := range scratch {
+			p[b] = int32(a)
+		}
+	}
+	return perms
 }
 
 // apply returns R·f.
@@ -269,27 +329,43 @@ func (s *symmetry) size() int {
 	if s == nil {
 		return 1
 	}
-	return len(s.perm)
+	return len(s.inv)
 }
 
 // canonical writes into dst the least, in lexicographic order, of the
 // images of x under every operation (x itself without a table), and
-// returns the number of operations that leave x unchanged.
+// returns the number of operations that leave x unchanged. An image is
+// abandoned at its first entry above the least so far (once it is known
+// not to equal x), so most cost a few comparisons, not M.
 func (s *symmetry) canonical(x, dst, scratch []uint8) (stabiliser int) {
 	copy(dst, x)
 	if s == nil {
 		return 1
 	}
-	for _, perm := range s.perm {
-		for a, b := range perm {
-			scratch[b] = x[a]
+	m := len(x)
+	for _, inv := range s.inv {
+		order, same := 0, true // order: −1 below dst, +1 above, 0 equal so far
+		for b := 0; b < m; b++ {
+			v := x[inv[b]]
+			scratch[b] = v
+			if same && v != x[b] {
+				same = false
+			}
+			if order == 0 && v != dst[b] {
+				order = 1
+				if v < dst[b] {
+					order = -1
+				}
+			}
+			if order == 1 && !same {
+				break
+			}
 		}
-		cmp := compare(scratch, dst)
-		if cmp < 0 {
-			copy(dst, scratch)
-		}
-		if string(scratch) == string(x) {
+		if same {
 			stabiliser++
+		}
+		if order < 0 {
+			copy(dst, scratch)
 		}
 	}
 	return stabiliser
