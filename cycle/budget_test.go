@@ -6,6 +6,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"enthalpath/thermo/fileio"
 )
 
 // hostileCycleFiles are cycle files of the largest size read (just under
@@ -19,7 +21,7 @@ func hostileCycleFiles() map[string]string {
 	}
 	deep.WriteString(head + "[models.params]\n")
 	for i := 0; deep.Len() < MaxFileSize-128; i++ {
-		fmt.Fprintf(&deep, "p%d = %s%s\n", i, strings.Repeat("[", 32), strings.Repeat("]", 32))
+		fmt.Fprintf(&deep, "p%d = %s%s\n", i, strings.Repeat("[", fileio.MaxTOMLNesting), strings.Repeat("]", fileio.MaxTOMLNesting))
 	}
 	return map[string]string{
 		"many-steps":             steps.String(),

@@ -214,7 +214,7 @@ func TestHostileCycleFilesRefusedEarly(t *testing.T) {
 	}{
 		{"too many steps", head + strings.Repeat(step, maxFileSteps+1), "more than 64 steps"},
 		{"a step twice", head + step + step, `step "ionization-1" is given twice (first as step[1])`},
-		{"nested too deep", head + "note = " + strings.Repeat("[", 40) + "\n", ":4: arrays or inline tables nested more than 32 deep"},
+		{"nested too deep", head + "note = " + strings.Repeat("[", 40) + "\n", ":4: arrays or inline tables nested more than 8 deep"},
 	} {
 		_, err := Unmarshal(db, []byte(tc.text))
 		if !errors.Is(err, ErrBadFile) || !strings.Contains(err.Error(), tc.want) {

@@ -6,9 +6,13 @@
 // # Provenance
 //
 // Every number is a Value: value, uncertainty, unit, the key of its citation
-// in the sources table, and flags for a value entered from memory (without
-// the document at hand), derived from a thermochemical cycle, or replaced by a
-// user overlay (the replaced built-in value travels along in Value.Replaced).
+// in the sources table, a locator into the vendored source file (file and
+// line under data/sources), and flags for a value entered from memory
+// (without the document at hand), derived from a thermochemical cycle, or
+// replaced by a user overlay (the replaced built-in value travels along in
+// Value.Replaced). The tables are written by the generator in data/gen from
+// the pinned sources; other compilations' values of a quantity travel as
+// Alternatives beside the preferred one.
 //
 // # Units and signs
 //

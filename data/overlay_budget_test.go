@@ -6,6 +6,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"enthalpath/thermo/fileio"
 )
 
 // hostileOverlays are user data files of the largest size read (just under
@@ -16,7 +18,7 @@ func hostileOverlays() map[string]string {
 	}
 	var deep strings.Builder
 	for i := 0; deep.Len() < MaxOverlaySize-128; i++ {
-		fmt.Fprintf(&deep, "a%d = %s%s\n", i, strings.Repeat("[", 32), strings.Repeat("]", 32))
+		fmt.Fprintf(&deep, "a%d = %s%s\n", i, strings.Repeat("[", fileio.MaxTOMLNesting), strings.Repeat("]", fileio.MaxTOMLNesting))
 	}
 	var rows strings.Builder
 	for i := 0; rows.Len() < MaxOverlaySize-256; i++ {

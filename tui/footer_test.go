@@ -31,6 +31,11 @@ func TestBenchDrawingKeepsLevelLabelsAt80x24(t *testing.T) {
 	m, u, _ := newRoot(t, loadDB(t), 80, 24)
 	drive.Run(u, screen.OpenMsg{Formula: "NaCl"})
 	v := m.View()
+	// The source column keeps the key and its marker ("data: crc2014-ea
+	// (defa…" was cut): the word data goes first.
+	if !strings.Contains(v, "crc2014-ea (default-σ)") {
+		t.Errorf("the attachment's source is cut at 80×24:\n%s", v)
+	}
 	for _, label := range []string{"Na⁺(g) + Cl(g)", "Na⁺(g) + ½Cl₂(g)", "Na⁺(g) + Cl⁻(g)", "Na(g) + ½Cl₂(g)", "Na(s) + ½Cl₂(g)", "NaCl(s)"} {
 		if !strings.Contains(v, "·"+label) {
 			t.Errorf("level label %q not shown whole at 80×24:\n%s", label, v)

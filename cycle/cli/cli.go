@@ -1,5 +1,5 @@
 // Package cli runs enthalpath's non-interactive subcommands (madelung, data,
-// cycle, compare, estimate, scan, solution, radius, ionfit, batch, orderings) and prints their
+// cycle, compare, estimate, scan, solution, radius, ionfit, batch, orderings, completion) and prints their
 // results as text, JSON or CSV. main hands it every subcommand except the
 // interactive ones (the TUI and serve), so this package never imports tui.
 package cli
@@ -59,6 +59,7 @@ func commands() []command {
 		{"radius", "thermochemical radius derived from a cycle lattice energy", runRadius},
 		{"ionfit", "gas-phase enthalpy of an ion fitted over its salts (SO4^2-, O2-, ...)", runIonfit},
 		{"batch", "solve many formulas from a CSV file", runBatch},
+		{"completion", "print a shell completion script: bash, zsh or fish", runCompletion},
 		{"orderings", "rank orderings of ions and vacancies on mixed sites by Ewald energy", runOrderings},
 		{"trust", "how far each lattice model can be trusted: its gaps to the cycles of the built-in compounds, by family", runTrust},
 	}

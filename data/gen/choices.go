@@ -26,6 +26,9 @@ import (
 //     from its standard state.
 //   - ionname: key an ion symbol, value its name in compound names.
 //   - noweight: key an element given no atomic weight (no stable isotope).
+//   - spelling: key an ion symbol, value other ways the NBS tables write
+//     it in a formula, separated by ";" (a formula must name both its
+//     ions, or it is read as a molecule and left out).
 type choices struct {
 	byKind map[string]map[string]choice
 }

@@ -13,6 +13,7 @@ import (
 // ionDef is a row of data/tables/ions.csv (hand-kept: symbols, charges).
 type ionDef struct {
 	symbol     string
+	core       string // as written in formulas: "NH4", "SO4", "Na"
 	charge     int
 	comp       map[string]float64
 	polyatomic bool
@@ -33,7 +34,7 @@ func (g *generator) ions() ([]ionDef, error) {
 		if !ok {
 			return nil, fmt.Errorf("ions.csv: %s: core %q", r["symbol"], r["core"])
 		}
-		out = append(out, ionDef{symbol: r["symbol"], charge: q, comp: comp, polyatomic: r["polyatomic"] == "yes"})
+		out = append(out, ionDef{symbol: r["symbol"], core: r["core"], charge: q, comp: comp, polyatomic: r["polyatomic"] == "yes"})
 	}
 	return out, nil
 }
@@ -205,8 +206,15 @@ func (g *generator) family(p ionPair) string {
 	if ch, ok := g.choices.get("family", p.cation.symbol); ok {
 		return ch.value
 	}
-	if p.anion.polyatomic || p.cation.polyatomic {
+	if p.anion.polyatomic {
 		return "salt of " + p.anion.symbol
+	}
+	if p.cation.polyatomic {
+		var an string
+		for e := range p.anion.comp {
+			an = e
+		}
+		return g.cationName(p.cation) + " " + anionClass[an]
 	}
 	var el string
 	for e := range p.cation.comp {
@@ -331,6 +339,11 @@ func (g *generator) compounds() (*table, error) {
 			}
 			p = pairs[i]
 		case len(pairs) == 0:
+			continue
+		case !g.writtenWithIons(f, pairs):
+			// An organic or other molecule whose atoms merely add up to
+			// a pair of ions ((CH3)2NNH2 as NH4+ and C2^2-): left out.
+			g.warnf("%s: no pair of ions written in the formula; left out", f)
 			continue
 		case len(pairs) > 1:
 			ch, ok := g.choices.get("ions", f)
@@ -756,4 +769,31 @@ func (g *generator) solutionEnthalpies() (*table, error) {
 			"note":    fmt.Sprintf("ΔfH°(%s, ai) %s − ΔfH°(%s, cr) %s", s.nbsFormula, aq.Original, s.nbsFormula, s.row.Original)})
 	}
 	return t, nil
+}
+
+// writtenWithIons keeps the pairs of ions whose cores both appear in the
+// formula as the NBS tables write it, and reports whether one is left
+// ("NH4Cl" names NH4; "(CH3)2NNH2" names neither NH4 nor C2).
+// A spelling choice gives an ion's other ways of being written ("CNS" for
+// SCN⁻, "Fe2O4" for two FeO2⁻ of a spinel ferrite).
+func (g *generator) writtenWithIons(f string, pairs []ionPair) bool {
+	written := func(ion ionDef) bool {
+		if strings.Contains(f, ion.core) {
+			return true
+		}
+		if ch, ok := g.choices.get("spelling", ion.symbol); ok {
+			for _, alt := range strings.Split(ch.value, ";") {
+				if strings.Contains(f, alt) {
+					return true
+				}
+			}
+		}
+		return false
+	}
+	for _, p := range pairs {
+		if written(p.cation) && written(p.anion) {
+			return true
+		}
+	}
+	return false
 }

@@ -6,7 +6,7 @@ import "fmt"
 // CheckTOMLNesting lets through: the files read here nest two or three
 // deep, and a TOML decoder recurses once per level (a 1 MiB file of
 // nested brackets took 7.6 s and 465 MB to refuse).
-const MaxTOMLNesting = 32
+const MaxTOMLNesting = 8
 
 // NestingError refuses a TOML text nested deeper than MaxTOMLNesting.
 type NestingError struct {

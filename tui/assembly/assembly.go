@@ -26,7 +26,7 @@ type Model struct {
 
 	forCycle *cycle.Cycle // the cycle the order below was made for
 	order    []string     // step keys in the order they are proposed
-	decided  []string     // what was done with each decided step
+	decided  []string     // what was done with each decided step (the rows are labelled from the cycle as it is now)
 	edit     prompt.Slot  // a value of one's own for the proposed step, while typed
 	w, h     int
 }
@@ -356,7 +356,6 @@ func (m *Model) markUnknown() tea.Cmd {
 			if err := c.Reset(prev); err != nil {
 				return err
 			}
-			m.relabel(prev, "data")
 		}
 		return c.MarkUnknown(key)
 	})
@@ -369,14 +368,6 @@ func (m *Model) markUnknown() tea.Cmd {
 		status += " " + prev + " went back to its data value (one unknown only)."
 	}
 	return tea.Batch(cmd, screen.Status(status))
-}
-
-func (m *Model) relabel(key, note string) {
-	for i, k := range m.order[:len(m.decided)] {
-		if k == key {
-			m.decided[i] = note
-		}
-	}
 }
 
 func (m *Model) back() tea.Cmd {

@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"github.com/charmbracelet/lipgloss"
+	"github.com/charmbracelet/x/ansi"
 
 	"enthalpath/cycle"
 	"enthalpath/tui/diagram"
@@ -179,7 +180,7 @@ func (m *Model) listView(h int) string {
 			value, unc = "missing", ""
 		}
 		text := fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", cursor, flag, colReaction, screen.Truncate(reaction, colReaction),
-			colMult, screen.Multiplicity(s.Multiplicity), colValue, value, colUnc, unc, colSource, screen.Truncate(sourceText(s), colSource))
+			colMult, screen.Multiplicity(s.Multiplicity), colValue, value, colUnc, unc, colSource, screen.Truncate(sourceFitting(s, colSource), colSource))
 		text = screen.Truncate(text, m.w)
 		switch {
 		case i == m.cursor:
@@ -220,6 +221,17 @@ func (m *Model) correctionRow(colReaction, colSource int) string {
 	return fmt.Sprintf("%s%s %-*s %*s %*s %*s %-*s", " ", " ", colReaction, screen.Truncate("└ ΔH_L − U (nRT)", colReaction),
 		colMult, "", colValue, m.ctx.Signed(corr), colUnc, m.ctx.Uncertainty(0), colSource,
 		screen.Truncate("U → ΔH_L, Jenkins' rule", colSource))
+}
+
+// sourceFitting is sourceText in n cells: a data row's source without the
+// word "data" when the whole does not fit (data is what a bare key means),
+// so a narrow window keeps the key and its markers.
+func sourceFitting(s *cycle.Step, n int) string {
+	t := sourceText(s)
+	if ansi.StringWidth(t) > n && s.Source.Kind == cycle.SourceData {
+		t = strings.TrimPrefix(t, "data: ")
+	}
+	return t
 }
 
 func sourceText(s *cycle.Step) string {

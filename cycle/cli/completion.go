@@ -1,0 +1,85 @@
+package cli
+
+import (
+	"fmt"
+	"strings"
+)
+
+const completionSynopsis = "completion bash|zsh|fish"
+
+// runCompletion prints a shell completion script. It is generated from the
+// command table; the flags of a command are read at completion time from
+// the command's own --help (the one list of its flags), so the script
+// never drifts from the program it completes.
+func runCompletion(env Env, args []string) error {
+	fs := newFlagSet("completion", completionSynopsis, env.Stderr)
+	pos, help, err := parseFlags(fs, args)
+	if help || err != nil {
+		return err
+	}
+	if len(pos) != 1 {
+		return Usagef("give one shell: usage: enthalpath %s", completionSynopsis)
+	}
+	script, err := completionScript(pos[0])
+	if err != nil {
+		return err
+	}
+	_, err = fmt.Fprint(env.Stdout, script)
+	return err
+}
+
+func completionScript(shell string) (string, error) {
+	// The commands main runs itself, outside the table, beside the table's.
+	names := []string{"open", "serve", "help"}
+	for _, c := range commands() {
+		names = append(names, c.name)
+	}
+	words := strings.Join(names, " ")
+	switch shell {
+	case "bash", "zsh":
+		script := strings.ReplaceAll(bashCompletion, "@COMMANDS@", words)
+		if shell == "zsh" {
+			script = "autoload -U +X bashcompinit && bashcompinit\n" + script
+		}
+		return script, nil
+	case "fish":
+		return strings.ReplaceAll(fishCompletion, "@COMMANDS@", words), nil
+	}
+	return "", Usagef("completion %q: give bash, zsh or fish", shell)
+}
+
+// bashCompletion completes the command, then its --flags (from its
+// --help), then file names. zsh runs it through bashcompinit.
+const bashCompletion = `# enthalpath completion (bash; zsh through bashcompinit)
+# Load it with:  source <(enthalpath completion bash)
+_enthalpath() {
+	local cur=${COMP_WORDS[COMP_CWORD]} cmd="" i
+	for ((i = 1; i < COMP_CWORD; i++)); do
+		case ${COMP_WORDS[i]} in
+		--data) ((i++)) ;;
+		-*) ;;
+		*) cmd=${COMP_WORDS[i]}; break ;;
+		esac
+	done
+	if [[ -z $cmd ]]; then
+		COMPREPLY=($(compgen -W "@COMMANDS@ --data --version --help" -- "$cur"))
+		return
+	fi
+	if [[ $cur == -* ]]; then
+		COMPREPLY=($(compgen -W "$(enthalpath "$cmd" --help 2>&1 | sed -n 's/^  \(--[a-z0-9-]*\).*/\1/p')" -- "$cur"))
+		return
+	fi
+	COMPREPLY=($(compgen -f -- "$cur"))
+}
+complete -o default -F _enthalpath enthalpath
+`
+
+const fishCompletion = `# enthalpath completion (fish)
+# Load it with:  enthalpath completion fish | source
+complete -c enthalpath -n __fish_use_subcommand -f -a '@COMMANDS@'
+complete -c enthalpath -n __fish_use_subcommand -l data -r -d 'user data file'
+complete -c enthalpath -n __fish_use_subcommand -l version -d 'version and commit'
+for cmd in @COMMANDS@
+	complete -c enthalpath -n "__fish_seen_subcommand_from $cmd" -a "(enthalpath $cmd --help 2>&1 | string match -r '^  --[a-z0-9-]+' | string trim)"
+end
+`
