@@ -145,7 +145,11 @@ func (m *modelFlags) structureFor(c *cycle.Cycle) (cycle.Structure, error) {
 		if len(m.params) > 0 {
 			return cycle.Structure{}, Usagef("--param applies to a prototype, not to the CIF file %s", name)
 		}
-		return readCIF(name, c)
+		st, err := readCIF(name, c)
+		if err != nil {
+			return cycle.Structure{}, Usagef("--structure: %v", err)
+		}
+		return st, nil
 	}
 	if _, err := crystal.LookupPrototype(name); err != nil {
 		return cycle.Structure{}, Usagef("--structure: %v (or give a .cif file)", err)
@@ -175,11 +179,12 @@ func (m *modelFlags) structureFor(c *cycle.Cycle) (cycle.Structure, error) {
 }
 
 // readCIF reads a CIF file for cycle c: charges the file does not give
-// are assigned with the compound's ions as the only candidates.
+// are assigned with the compound's ions as the only candidates. The error
+// names the file; the caller says where the name came from.
 func readCIF(path string, c *cycle.Cycle) (cycle.Structure, error) {
 	sf, err := cycle.OpenStructureFile(nil, path, nil, []cycle.Part{c.Cation, c.Anion})
 	if err != nil {
-		return cycle.Structure{}, Usagef("--structure %s: %v", path, err)
+		return cycle.Structure{}, err
 	}
 	return sf.Structure(path), nil
 }
@@ -232,7 +237,7 @@ func runCycle(env Env, args []string) error {
 			}
 			s, err := readCIF(p, c)
 			if err != nil {
-				return err
+				return Usagef("--open %s: the structure file it names: %v", open, err)
 			}
 			s.CIF = st.CIF
 			c.Settings.Structure = s

@@ -234,3 +234,32 @@ func BenchmarkCompareAllCSV(b *testing.B) {
 		}
 	}
 }
+
+// A cycle file whose CIF has become unreadable is refused naming the cycle
+// file and the structure file once each, not a --structure the user never
+// typed (a defect seen in review: "--structure PATH: PATH: …").
+func TestOpenWithBrokenCIFNamesTheCycleFile(t *testing.T) {
+	dir := t.TempDir()
+	cif, err := os.ReadFile(filepath.Join("..", "..", "testdata", "oxidation", "real_NaCl_rock_salt_P1.cif"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	cifPath := filepath.Join(dir, "nacl.cif")
+	if err := os.WriteFile(cifPath, cif, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(dir, "n.hesscycle")
+	if _, errOut, code := run(t, "cycle", "NaCl", "--structure", cifPath, "--save", path); code != ExitOK {
+		t.Fatalf("save: %s", errOut)
+	}
+	if err := os.WriteFile(cifPath, []byte("data_x\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	_, errOut, code := run(t, "cycle", "--open", path)
+	if code != ExitUsage {
+		t.Fatalf("exit %d, want %d: %s", code, ExitUsage, errOut)
+	}
+	if strings.Contains(errOut, "--structure") || strings.Count(errOut, "nacl.cif") != 1 || !strings.Contains(errOut, "--open "+path) {
+		t.Errorf("stderr %q: want the cycle file named with --open and nacl.cif once, no --structure", errOut)
+	}
+}
