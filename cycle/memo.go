@@ -73,10 +73,7 @@ func (m *Memo) Madelung(st Structure, cation, anion Part, accuracy float64) (Mad
 	if accuracy == 0 {
 		accuracy = DefaultAccuracy
 	}
-	key := memoKey(st, cation, anion, accuracy)
-	m.mu.Lock()
-	e, ok := m.m[key]
-	m.mu.Unlock()
+	key, e, ok := m.lookup(st, cation, anion, accuracy)
 	if ok {
 		return e.v, e.err
 	}
@@ -96,11 +93,17 @@ func (m *Memo) Remembered(st Structure, cation, anion Part, accuracy float64) (M
 	if accuracy == 0 {
 		accuracy = DefaultAccuracy
 	}
+	_, e, ok := m.lookup(st, cation, anion, accuracy)
+	return e.v, ok && e.err == nil
+}
+
+// lookup returns the memo's key for a sum and the entry kept under it.
+func (m *Memo) lookup(st Structure, cation, anion Part, accuracy float64) (string, memoEntry, bool) {
 	key := memoKey(st, cation, anion, accuracy)
 	m.mu.Lock()
 	e, ok := m.m[key]
 	m.mu.Unlock()
-	return e.v, ok && e.err == nil
+	return key, e, ok
 }
 
 func memoKey(st Structure, cation, anion Part, accuracy float64) string {
