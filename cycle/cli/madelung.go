@@ -321,7 +321,7 @@ func printCharges(w io.Writer, sf *cycle.StructureFile, nSites int) {
 	if sf.Averaged > 0 {
 		fmt.Fprintf(w, "averaged    %d of %d sites carry a mean charge (shared or partly vacant sites, or two oxidation states on one site): the averaged crystal, not an ordered one\n", sf.Averaged, nSites)
 	}
-	t := table{head: []string{"element", "sites", "labels", "charge", "bond-valence sum", "|sum − |charge||", "from"}, right: map[int]bool{1: true, 4: true, 5: true}}
+	t := table{head: []string{"element", "atoms", "labels", "charge", "bond-valence sum", "|sum − |charge||", "from"}, right: map[int]bool{1: true, 4: true, 5: true}}
 	for _, g := range a.Groups {
 		from := "assigned"
 		if g.Given {
@@ -336,7 +336,7 @@ func printCharges(w io.Writer, sf *cycle.StructureFile, nSites int) {
 		if len(g.Labels) > 6 {
 			labels = strings.Join(g.Labels[:6], " ") + fmt.Sprintf(" … (%d)", len(g.Labels))
 		}
-		t.add(g.Element, fmt.Sprintf("%.4g", g.Atoms), labels, groupCharge(g), sum, dev, from)
+		t.add(g.Element, strconv.FormatFloat(math.Round(g.Atoms*1e4)/1e4, 'f', -1, 64), labels, groupCharge(g), sum, dev, from)
 	}
 	t.write(w, "  ")
 	fmt.Fprintf(w, "  bond-valence sums: exp((R − d)/%.2f Å) over cation–anion bonds, R from %s\n", valence.B, data.BondValenceSource)

@@ -66,3 +66,24 @@ func readFileB(b *testing.B, path string) string {
 	b.Helper()
 	return mustRead(b, path)
 }
+
+// BenchmarkRefuseMillionSites: a file of 10⁶ atom-site rows (34 MB, read
+// from a reader: files on disk are capped at MaxFileSize before this) is
+// refused at row 50,001 while tokenising; -benchmem shows the memory taken
+// beyond the input itself.
+func BenchmarkRefuseMillionSites(b *testing.B) {
+	var sb strings.Builder
+	sb.WriteString("data_x\n_cell_length_a 400\n_cell_length_b 400\n_cell_length_c 400\n_cell_angle_alpha 90\n_cell_angle_beta 90\n_cell_angle_gamma 90\n")
+	sb.WriteString("loop_\n_atom_site_label\n_atom_site_fract_x\n_atom_site_fract_y\n_atom_site_fract_z\n")
+	for i := 0; i < 1000000; i++ {
+		fmt.Fprintf(&sb, "Na%d 0.%06d 0.5 0.5\n", i, i)
+	}
+	src := sb.String()
+	b.ReportAllocs()
+	b.ResetTimer()
+	for b.Loop() {
+		if _, err := cif.Read(strings.NewReader(src), "million.cif", cif.Options{}); err == nil {
+			b.Fatal("a 10⁶-site file was accepted")
+		}
+	}
+}

@@ -61,6 +61,7 @@
 // one site of the averaged crystal: its Occupants list the species and
 // occupancies, its Charge is Σ occupancy·charge and its Species names the
 // mixture ("Na0.5K0.5", "Fe0.9"). A vacancy contributes no charge.
+//
 // Every site is one atom: a molecular ion (OH⁻, SO₄²⁻) must be listed atom
 // by atom, each with its own (formal or partial) charge.
 //
@@ -69,7 +70,9 @@
 // Every operation is applied to every listed site, the images are wrapped
 // into [0,1), and images of one site closer than Options.MergeTolerance
 // (Å, shortest periodic distance, default 1e-3 Å) are kept once. Images of
-// two different sites that close are an error (ErrCollision).
+// two different sites that close share the site when both are partly
+// occupied and their occupancies sum to at most 1; otherwise they are an
+// error (ErrCollision).
 //
 // # Refused
 //

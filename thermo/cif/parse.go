@@ -125,11 +125,16 @@ func Read(r io.Reader, name string, opt Options) (*crystal.Crystal, error) {
 }
 
 func read(r io.Reader, name string, opt Options) (*reader, *crystal.Crystal, error) {
-	src, err := io.ReadAll(r)
-	if err != nil {
+	// One buffer of the input's size where it is known, and no copy of it
+	// into a string.
+	var src strings.Builder
+	if l, ok := r.(interface{ Len() int }); ok {
+		src.Grow(l.Len())
+	}
+	if _, err := io.Copy(&src, r); err != nil {
 		return nil, nil, &Error{File: name, Msg: "cannot read: " + err.Error(), Err: err}
 	}
-	toks, err := tokenize(string(src), name)
+	toks, err := tokenize(src.String(), name)
 	if err != nil {
 		return nil, nil, err
 	}

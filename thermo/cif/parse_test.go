@@ -2,6 +2,7 @@ package cif_test
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"math/rand"
 	"os"
@@ -342,4 +343,23 @@ func mustRead(t testing.TB, path string) string {
 		t.Fatal(err)
 	}
 	return string(b)
+}
+
+// TestSiteLimitWhileTokenising: an atom-site loop longer than the reader's
+// 50,000-site limit is refused at the row that crosses it, while the file
+// is tokenised, not after the whole file is held in tokens.
+func TestSiteLimitWhileTokenising(t *testing.T) {
+	var b strings.Builder
+	b.WriteString(header + sitesCsCl) // 17 lines
+	for i := 0; i < 60000; i++ {
+		fmt.Fprintf(&b, "Cs%d 0.%05d 0 0\n", i, i)
+	}
+	_, err := cif.Read(strings.NewReader(b.String()), "big.cif", cif.Options{})
+	var ce *cif.Error
+	if !errors.As(err, &ce) || !strings.Contains(ce.Msg, "more than 50000 rows") {
+		t.Fatalf("err = %v, want the atom-site loop refused", err)
+	}
+	if want := 17 + 50001; ce.Line != want {
+		t.Errorf("refused at line %d, want %d (the first row past the limit)", ce.Line, want)
+	}
 }

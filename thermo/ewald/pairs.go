@@ -66,11 +66,11 @@ func PairPotentials(c *crystal.Crystal, rows []int, opt Options) (*Pairs, error)
 		s.q[i] = 1 // unit charges: the Kolafa–Perram estimate with Q = N
 	}
 	s.q2 = float64(len(s.q))
+	p := math.Sqrt(-math.Log(math.Max(eps, FinestAccuracy) / 2))
 	alpha := opt.alpha
 	if alpha == 0 {
-		alpha = s.balancedAlpha()
+		alpha = s.chooseAlpha(p)
 	}
-	p := math.Sqrt(-math.Log(math.Max(eps, FinestAccuracy) / 2))
 	rc, kc := p/alpha, 2*alpha*p
 	n := len(s.q)
 	if w := s.work(alpha, rc, kc) * float64(len(rows)+1) / float64(n+1); w > maxTerms {
@@ -79,7 +79,8 @@ func PairPotentials(c *crystal.Crystal, rows []int, opt Options) (*Pairs, error)
 	}
 	out := &Pairs{Rows: append([]int(nil), rows...), Sites: n, Phi: make([]float64, len(rows)*n),
 		Alpha: alpha, RealCutoff: rc, RecipCutoff: kc}
-	im := newImageSum(s, alpha, rc)
+	imv := newImageSum(s, alpha, rc)
+	im := &imv
 	selfSum, _, _, _ := im.sum(crystal.Vec3{}, crystal.Vec3{}, true)
 	self := selfSum - 2*alpha/math.Sqrt(math.Pi)
 	for r, i := range rows {

@@ -70,8 +70,8 @@ type imageSum struct {
 	box        bool // few images per pair: test every index in the box
 }
 
-func newImageSum(s *system, alpha, rc float64) *imageSum {
-	im := &imageSum{alpha: alpha, rc2: rc * rc, perm: [3]int{0, 1, 2}}
+func newImageSum(s *system, alpha, rc float64) imageSum {
+	im := imageSum{alpha: alpha, rc2: rc * rc, perm: [3]int{0, 1, 2}}
 	var h [3]float64
 	for k := 0; k < 3; k++ {
 		h[k] = rc * s.recip[k].Norm()
@@ -93,7 +93,7 @@ func newImageSum(s *system, alpha, rc float64) *imageSum {
 }
 
 // boxSize bounds the number of images examined per pair.
-func (im *imageSum) boxSize() float64 {
+func (im imageSum) boxSize() float64 {
 	return (2*im.h[0] + 2) * (2*im.h[1] + 2) * (2*im.h[2] + 2)
 }
 
@@ -207,7 +207,8 @@ func (s *system) realSpace(alpha, rc float64, phi []float64) (terms int, nearest
 func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
 	n := len(s.q)
 	chunks := len(parts)
-	im := newImageSum(s, alpha, rc)
+	imv := newImageSum(s, alpha, rc)
+	im := &imv
 	// Self images: the same for every site.
 	selfSum, selfCount, _, _ := im.sum(crystal.Vec3{}, crystal.Vec3{}, true)
 	// With the cut-off below half of every distance between lattice
@@ -261,10 +262,15 @@ func (s *system) reciprocalSpace(alpha, kc float64, phi []float64) int {
 	b, mmax := s.reciprocalBox(kc)
 	// pow[k][(m+M)*n + j] = e^{2πi·m·f_jk} as (re, im).
 	var powRe, powIm [3][]float64
+	size := 0
+	for k := 0; k < 3; k++ {
+		size += 2 * (2*mmax[k] + 1) * n
+	}
+	buf := make([]float64, size) // one allocation for the six tables
 	for k := 0; k < 3; k++ {
 		width := 2*mmax[k] + 1
-		powRe[k] = make([]float64, width*n)
-		powIm[k] = make([]float64, width*n)
+		powRe[k], buf = buf[:width*n:width*n], buf[width*n:]
+		powIm[k], buf = buf[:width*n:width*n], buf[width*n:]
 		M := mmax[k]
 		for j := 0; j < n; j++ {
 			s1, c1 := math.Sincos(2 * math.Pi * s.frac[j][k])
@@ -296,10 +302,11 @@ func (s *system) reciprocalSpace(alpha, kc float64, phi []float64) int {
 	parts := make([]recipPart, chunks)
 	forChunks(n, func(c int) {
 		part := &parts[c]
-		part.phi = make([]float64, n)
+		work := make([]float64, 5*n) // the chunk's potentials and four rows
+		part.phi = work[:n:n]
 		out := part.phi
-		pRe, pIm := make([]float64, n), make([]float64, n)
-		eRe, eIm := make([]float64, n), make([]float64, n)
+		pRe, pIm := work[n:2*n:2*n], work[2*n:3*n:3*n]
+		eRe, eIm := work[3*n:4*n:4*n], work[4*n:]
 		row := -1
 		for m0 := 0; m0 <= M0; m0++ {
 			lo1 := -M1

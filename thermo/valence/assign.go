@@ -30,6 +30,10 @@ const (
 	// PoorFit: the closest neutral choice, some group 0.5 or more from its
 	// bond-valence sum.
 	PoorFit
+	// ElementMean: the one element with several states takes, on every
+	// site, the mean charge that makes the cell neutral (a vacancy-bearing
+	// or otherwise non-stoichiometric cell, such as Fe0.9O).
+	ElementMean
 )
 
 // String says in words how the charges were settled.
@@ -47,13 +51,15 @@ func (m Method) String() string {
 		return "mixed valence from bond-valence sums (sites holding two oxidation states carry their mean charge: averaged crystal)"
 	case PoorFit:
 		return "closest neutral fit to the bond-valence sums (poor: a site is 0.5 or more from its sum)"
+	case ElementMean:
+		return "mean charge from neutrality (the one element with several oxidation states carries, on every site, the mean charge the others leave: averaged crystal)"
 	}
 	return "unknown"
 }
 
 // Key is a short name of the method for machine-readable output.
 func (m Method) Key() string {
-	return [...]string{"given", "charge-balance", "charge-balance-ranked", "bond-valence", "mixed-valence", "poor-fit"}[m]
+	return [...]string{"given", "charge-balance", "charge-balance-ranked", "bond-valence", "mixed-valence", "poor-fit", "element-mean"}[m]
 }
 
 // Group is a set of sites of one element that received one charge.
@@ -77,10 +83,12 @@ type Group struct {
 	// Given marks a charge that came with the structure or the caller.
 	Given bool
 
-	members []int // indices of the group's species
+	members []int           // indices of the group's species
+	labeled map[string]bool // Labels as a set, while the group is built
 }
 
-// Mixed reports a group holding two oxidation states.
+// Mixed reports a group holding two oxidation states (or a mean between
+// its element's lowest and highest).
 func (g Group) Mixed() bool { return g.Low != g.High }
 
 // Assignment is the outcome of Assign.
@@ -293,6 +301,7 @@ func makeGroups(sp []occupant, sums []float64) []Group {
 	for gi := range groups {
 		g := &groups[gi]
 		g.Sum /= g.Atoms
+		g.labeled = nil
 	}
 	return groups
 }
@@ -312,7 +321,11 @@ func newGroup(sp []occupant, sums []float64, i int, given bool) Group {
 // makeGroups divides by Atoms.
 func (g *Group) add(sp []occupant, sums []float64, i int) {
 	s := sp[i]
-	if !slices.Contains(g.Labels, s.label) {
+	if g.labeled == nil {
+		g.labeled = map[string]bool{}
+	}
+	if !g.labeled[s.label] {
+		g.labeled[s.label] = true
 		g.Labels = append(g.Labels, s.label)
 	}
 	if n := len(g.Sites); n == 0 || g.Sites[n-1] != s.site {

@@ -21,6 +21,11 @@ var standard = softness{B, B * math.Log(1000)}
 // pair search grows as the square of the sites.
 const MaxSumSites = 5000
 
+// maxImageWork bounds the periodic images examined for one cell's sums (a
+// cell far smaller than its bonds would need millions per pair); beyond
+// it the sums are not computed.
+const maxImageWork = 5e7
+
 // Element holds one element's bond-valence parameters in the scheme of
 // O'Keeffe and Brese (1991).
 type Element struct {
@@ -84,6 +89,7 @@ func speciesSums(c *crystal.Crystal, sp []species, p Params, soft softness) []fl
 			sums[a] = math.NaN()
 		}
 	}
+	work := 0.0
 	for a := range sp {
 		if math.IsNaN(sums[a]) || sp[a].role <= 0 {
 			continue
@@ -98,6 +104,16 @@ func speciesSums(c *crystal.Crystal, sp []species, p Params, soft softness) []fl
 			df := frac[sp[b].site].Sub(frac[sp[a].site])
 			v := 0.0
 			var lo, hi [3]int
+			box := 1.0
+			for k := 0; k < 3; k++ {
+				box *= 2*rc*bLen[k] + 1
+			}
+			if work += box; !(work <= maxImageWork) {
+				for i := range sums {
+					sums[i] = math.NaN()
+				}
+				return sums
+			}
 			for k := 0; k < 3; k++ {
 				lo[k] = int(math.Ceil(-df[k] - rc*bLen[k]))
 				hi[k] = int(math.Floor(-df[k] + rc*bLen[k]))

@@ -112,6 +112,9 @@ func choose(groups []Group, free []int, fixed float64, cand Candidates, role map
 		}
 		return Assignment{Method: method}, nil
 	}
+	if a, ok := elementMean(groups, free, fixed, states); ok {
+		return a, nil
+	}
 	var st []string
 	for _, el := range elements {
 		var qs []string
@@ -121,6 +124,50 @@ func choose(groups []Group, free []int, fixed float64, cand Candidates, role map
 		st = append(st, el+" "+strings.Join(qs, ", "))
 	}
 	return Assignment{}, &NoNeutralError{States: st, Fixed: fixed}
+}
+
+// elementMean is the last step: when exactly one element has several
+// states, its atoms share the charge the rest of the cell leaves, if that
+// mean lies between its lowest and highest state.
+func elementMean(groups []Group, free []int, fixed float64, states map[string][]int) (Assignment, bool) {
+	multi := ""
+	for el, st := range states {
+		if len(st) > 1 {
+			if multi != "" {
+				return Assignment{}, false
+			}
+			multi = el
+		}
+	}
+	if multi == "" {
+		return Assignment{}, false
+	}
+	st := states[multi]
+	rest, atoms := fixed, 0.0
+	for _, gi := range free {
+		g := groups[gi]
+		if g.Element == multi {
+			atoms += g.Atoms
+			continue
+		}
+		rest += g.Atoms * float64(states[g.Element][0])
+	}
+	q := -rest / atoms
+	lo, hi := st[0], st[len(st)-1]
+	if !(atoms > 0) || q < float64(lo)-1e-9 || q > float64(hi)+1e-9 {
+		return Assignment{}, false
+	}
+	for _, gi := range free {
+		g := &groups[gi]
+		if g.Element == multi {
+			g.Charge, g.Low, g.High = q, lo, hi
+			g.HighFraction = (q - float64(lo)) / float64(hi-lo)
+			continue
+		}
+		g.Charge = float64(states[g.Element][0])
+		g.Low, g.High = states[g.Element][0], states[g.Element][0]
+	}
+	return Assignment{Method: ElementMean}, true
 }
 
 func anyMixed(groups []Group) bool {
@@ -212,6 +259,10 @@ func balance(groups []Group, free []int, fixed float64, states map[string][]int,
 	return Assignment{Method: method, Alternatives: len(found)}, true, nil
 }
 
+// maxStates bounds the running charges one step of neutral keeps; a cell
+// with more choices than that is not settled by that step.
+const maxStates = 200000
+
 // neutral picks one option per free group so that the cell is neutral at
 // the least cost, by dynamic programming over the running charge (in units
 // of 1e-6 e). Ties go to the first option listed.
@@ -235,6 +286,9 @@ func neutral(groups []Group, free []int, fixed float64, opts [][]option) ([]int,
 			qs = append(qs, q)
 		}
 		slices.Sort(qs)
+		if len(qs)*len(opts[k]) > maxStates*10 {
+			return nil, false
+		}
 		for _, q := range qs {
 			e := layers[k][q]
 			for j, o := range opts[k] {
@@ -248,6 +302,9 @@ func neutral(groups []Group, free []int, fixed float64, opts [][]option) ([]int,
 					next[nq] = entry{c: c, choice: j, prev: q}
 				}
 			}
+		}
+		if len(next) > maxStates {
+			return nil, false
 		}
 		layers[k+1] = next
 	}

@@ -35,6 +35,10 @@
 //     averaged crystal; magnetite's octahedral iron is Fe²⁺/Fe³⁺ 1:1,
 //     mean 2.5). The fewest mixed groups win, then the best fit.
 //  4. The best fit without the 0.5 limit, marked poor.
+//  5. When one element alone has several states, the mean charge that
+//     makes the cell neutral on all its sites, if it lies between its
+//     lowest and highest state (a vacancy-bearing cell such as Fe0.9O,
+//     whose iron carries 2.22).
 //
 // The fit is Σ n_g·(BVS_g − |q_g|)² over groups with a choice (n_g atoms
 // in the group); groups with one candidate have no choice and are not held

@@ -163,3 +163,31 @@ func TestAssignSteps(t *testing.T) {
 		t.Error("no states for Xe: no error")
 	}
 }
+
+// TestAssignVacancyMean: rock-salt FeO with its iron site 0.9 occupied
+// (wüstite-like, invented numbers) cannot be balanced by Fe2+/Fe3+ in
+// ratios of its four sites; its iron carries the mean 8/3.6 = 2.222 that
+// makes the cell neutral (arithmetic, no source).
+func TestAssignVacancyMean(t *testing.T) {
+	c := rockSalt("Fe", "O", 4.30)
+	for i := range c.Sites {
+		if c.Sites[i].Occupants[0].Element == "Fe" {
+			c.Sites[i].Occupants = []crystal.Occupant{{Label: "Fe1", Element: "Fe", Occupancy: 0.9}}
+		}
+	}
+	got, a, err := Assign(c, Candidates{"Fe": {2, 3}, "O": {-2}}, loadParams(t))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a.Method != ElementMean {
+		t.Errorf("method %v, want the element mean", a.Method)
+	}
+	for _, s := range got.Sites {
+		if o := s.Occupants[0]; o.Element == "Fe" && math.Abs(o.Charge-8/3.6) > 1e-12 {
+			t.Errorf("Fe charge %.6g, want %.6g", o.Charge, 8/3.6)
+		}
+	}
+	if q := got.TotalCharge(); math.Abs(q) > 1e-9 {
+		t.Errorf("net charge %g", q)
+	}
+}
