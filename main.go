@@ -8,28 +8,30 @@
 //	enthalpath [--data FILE] COMMAND [ARGS]
 //	enthalpath serve [FLAGS]        serve the workshop over SSH
 //
-// Run "enthalpath help" for the list of commands, and "enthalpath COMMAND
-// --help" for a command's flags. Exit codes: 0 success, 2 bad usage or
+// Run "enthalpath help" for the list of commands, "enthalpath COMMAND
+// --help" for a command's flags, and "enthalpath --version" for the version
+// and commit the binary was built from. Exit codes: 0 success, 2 bad usage or
 // input, 1 internal error.
 package main
 
 import (
 	"fmt"
+	"io"
 	"os"
+	"runtime/debug"
 	"strings"
 
 	"enthalpath/cycle/cli"
 )
 
 func main() {
-	os.Exit(run(os.Args[1:]))
+	os.Exit(run(cli.Env{Stdout: os.Stdout, Stderr: os.Stderr, Stdin: os.Stdin}, os.Args[1:]))
 }
 
-func run(args []string) int {
-	env := cli.Env{Stdout: os.Stdout, Stderr: os.Stderr, Stdin: os.Stdin}
+func run(env cli.Env, args []string) int {
 	args, file, err := dataFlag(args)
 	if err != nil {
-		fmt.Fprintf(os.Stderr, "enthalpath: %v\n", err)
+		fmt.Fprintf(env.Stderr, "enthalpath: %v\n", err)
 		return cli.ExitUsage
 	}
 	env.DataFile = file
@@ -38,7 +40,11 @@ func run(args []string) int {
 	}
 	switch name := args[0]; {
 	case name == "help" || name == "-h" || name == "--help":
-		usage(os.Stdout)
+		usage(env.Stdout)
+		return cli.ExitOK
+	case name == "--version" || name == "-version" || name == "version":
+		info, ok := debug.ReadBuildInfo()
+		fmt.Fprintln(env.Stdout, cli.VersionText(info, ok))
 		return cli.ExitOK
 	case name == "tui" || name == "open":
 		return runWorkshop(env, args[1:])
@@ -47,8 +53,8 @@ func run(args []string) int {
 	case cli.Has(name):
 		return cli.Run(env, name, args[1:])
 	default:
-		fmt.Fprintf(os.Stderr, "enthalpath: unknown command %q\n\n", name)
-		usage(os.Stderr)
+		fmt.Fprintf(env.Stderr, "enthalpath: unknown command %q\n\n", name)
+		usage(env.Stderr)
 		return cli.ExitUsage
 	}
 }
@@ -75,8 +81,9 @@ func dataFlag(args []string) (rest []string, file string, err error) {
 	return args, file, nil
 }
 
-func usage(w *os.File) {
+func usage(w io.Writer) {
 	fmt.Fprintln(w, "usage: enthalpath [--data FILE] [COMMAND] [ARGS]")
+	fmt.Fprintln(w, "       enthalpath --version")
 	fmt.Fprintln(w, "\nWith no command, opens the interactive workshop.\n\nCommands:")
 	fmt.Fprintln(w, "  open      the interactive workshop (optionally on a formula or cycle file)")
 	fmt.Fprintln(w, "  serve     serve the workshop over SSH")

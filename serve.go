@@ -53,7 +53,7 @@ func parseServeFlags(args []string, stderr io.Writer) (serveFlags, error) {
 	fs.SetOutput(stderr)
 	fs.Usage = func() {
 		fmt.Fprint(stderr, serveUsage)
-		fs.PrintDefaults()
+		cli.PrintFlags(stderr, fs)
 	}
 	stateDir := fs.String("state-dir", defaultStateDir(), "`DIR` holding the host key (unless --host-key) and users/<key digest>/ folders")
 	fs.StringVar(&f.listen, "listen", defaultListen, "`ADDR`ess to listen on, host:port")

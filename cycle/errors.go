@@ -203,3 +203,25 @@ func (e *FileError) Unwrap() []error {
 	}
 	return []error{ErrBadFile}
 }
+
+// PrototypeFitError reports a prototype whose sites cannot hold the
+// compound's ions: species other than one cation (M) and one anion (X), or
+// another cation-to-anion ratio.
+type PrototypeFitError struct {
+	Prototype, Formula string
+	// Species are the prototype's site species; Cations and Anions its
+	// counts of M and X per cell, Want the compound's cations and anions
+	// per formula unit.
+	Species                 []string
+	Cations, Anions         int
+	WantCations, WantAnions int
+}
+
+func (e *PrototypeFitError) Error() string {
+	if e.Cations == 0 || e.Anions == 0 || len(e.Species) != 2 {
+		return fmt.Sprintf("the %s prototype does not fit %s: its sites hold %s, not one cation (M) and one anion (X)",
+			e.Prototype, e.Formula, strings.Join(e.Species, ", "))
+	}
+	return fmt.Sprintf("the %s prototype does not fit %s: it holds cations and anions %d:%d, %s needs %d:%d",
+		e.Prototype, e.Formula, e.Cations, e.Anions, e.Formula, e.WantCations, e.WantAnions)
+}

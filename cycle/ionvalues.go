@@ -146,8 +146,8 @@ func (b *builder) singleAttachment(p Part, el data.Element, j int, v *data.Value
 // fittedSource is the provenance of a family-fitted ion value.
 func fittedSource(db *data.DB, fit data.DerivedIon) Source {
 	s := Source{Kind: SourceData, Key: data.FamilyFitSource, Derived: true, Override: fit.GasFormation.Override,
-		Note: fmt.Sprintf("family fit of ΔfH°(%s, g) = %.1f ± %.1f kJ/mol over %d salts (%s)", fit.Ion, fit.GasFormation.V,
-			fit.GasFormation.U, len(fit.Salts), fit.Model)}
+		Note: fmt.Sprintf("family fit of ΔfH°(%s, g) = %s kJ/mol over %d salts (%s)", fit.Ion, pm(fit.GasFormation.V,
+			fit.GasFormation.U), len(fit.Salts), fit.Model)}
 	if src, err := db.Source(data.FamilyFitSource); err == nil {
 		s.Citation = src.Citation
 	}
@@ -299,4 +299,13 @@ func (c *Cycle) setReference(key string, s *Step) error {
 	}
 	t.Value, t.Uncertainty, t.Source = s.Value, s.Uncertainty, s.Source
 	return nil
+}
+
+// pm writes "v ± u" by the one rule of thermo.UncertaintyDecimals.
+func pm(v, u float64) string {
+	value, unc := thermo.FormatWithUncertainty(v, u, 1)
+	if unc == "" {
+		return value
+	}
+	return value + " ± " + unc
 }

@@ -334,6 +334,12 @@ func (e *evaluator) evaluate(name string) (ModelResult, error) {
 	}
 	if err != nil {
 		var me *ModelError
+		if errors.As(err, &me) && me.Model != name {
+			// A shared input (the Madelung constant, summed once for
+			// every model that needs it) failed under another model's
+			// name: the error is this model's.
+			return m, &ModelError{Model: name, Reason: me.Reason, Err: me.Err}
+		}
 		if errors.As(err, &me) {
 			return m, err
 		}

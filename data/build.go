@@ -2,6 +2,7 @@ package data
 
 import (
 	"fmt"
+	"math"
 	"slices"
 	"sort"
 	"strconv"
@@ -886,6 +887,7 @@ func (b *builder) finish() {
 		})
 		db.radii[k] = list
 	}
+	b.absoluteHydrations()
 	db.ionKeyIdx = make(map[ionKey]int, len(db.ions))
 	db.ionFoldIdx = make(map[string]int, len(db.ions))
 	for i := range db.ions {
@@ -922,6 +924,53 @@ func (b *builder) finish() {
 		if e.Name != "" {
 			db.elementFoldIdx[strings.ToLower(e.Name)] = i
 		}
+	}
+}
+
+// absoluteHydrations gives every ion with a conventional hydration
+// enthalpy and no absolute one the absolute value
+//
+//	ΔhydH°abs(ion) = ΔhydH°conv(ion) + z·ΔhydH°abs(H⁺),
+//
+// from the absolute row of H⁺ (the one number that fixes the scale), with
+// that row's source and memory flag, marked derived. Values derived by an
+// earlier build (before an overlay) are derived again.
+func (b *builder) absoluteHydrations() {
+	db := b.db
+	var hAbs Value
+	for _, ion := range db.ions {
+		if ion.Symbol == "H+" {
+			for _, h := range ion.Hydrations {
+				if h.Scale == "absolute" {
+					hAbs = h.Value
+				}
+			}
+		}
+	}
+	for i := range db.ions {
+		ion := &db.ions[i]
+		ion.Hydrations = slices.DeleteFunc(ion.Hydrations, func(h ScaledValue) bool { return h.derivedScale })
+		if !hAbs.Known() || ion.Symbol == "H+" {
+			continue
+		}
+		var conv Value
+		hasAbs := false
+		for _, h := range ion.Hydrations {
+			switch h.Scale {
+			case "conventional":
+				conv = h.Value
+			case "absolute":
+				hasAbs = true
+			}
+		}
+		if hasAbs || !conv.Known() {
+			continue
+		}
+		z := float64(ion.Charge)
+		v := Value{V: math.Round((conv.V+z*hAbs.V)*1e6) / 1e6, U: math.Hypot(conv.U, z*hAbs.U), Unit: conv.Unit, Source: hAbs.Source,
+			Memory: hAbs.Memory || conv.Memory, Derived: true, Override: conv.Override || hAbs.Override,
+			Note: fmt.Sprintf("derived: conventional %g %+g × ΔhydH°(H+, absolute) %g kJ/mol [%s]", conv.V, z, hAbs.V, hAbs.Source)}
+		ion.Hydrations = append(ion.Hydrations, ScaledValue{Scale: "absolute", Value: v, derivedScale: true})
 	}
 }
 

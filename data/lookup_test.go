@@ -111,3 +111,21 @@ func TestSpecies(t *testing.T) {
 		t.Error("overlay lost the built-in species")
 	}
 }
+
+// Species may be asked for from several goroutines at once (SSH sessions
+// share one DB); species.csv is then read exactly once (run with -race).
+func TestSpeciesConcurrentFirstUse(t *testing.T) {
+	db := mustLoad(t)
+	done := make(chan bool)
+	for range 8 {
+		go func() {
+			sp, ok := db.Species("O2(g)")
+			done <- ok && sp.Formation.V == 0
+		}()
+	}
+	for range 8 {
+		if !<-done {
+			t.Error("O2(g) not found, or ΔfH° not 0 (its own standard state, NBS 1982)")
+		}
+	}
+}

@@ -46,7 +46,7 @@ func numbersIn(line string) []float64 {
 		}
 	}
 	for _, cell := range strings.FieldsFunc(line, func(r rune) bool { return r == ';' || r == '\t' }) {
-		add(strings.ReplaceAll(cell, ",", "."))
+		add(strings.TrimSuffix(strings.ReplaceAll(cell, ",", "."), "*")) // "*": a footnote mark of the printed tables
 	}
 	for _, cell := range strings.Split(line, ",") {
 		add(cell)

@@ -151,6 +151,9 @@ type Ion struct {
 type ScaledValue struct {
 	Scale string
 	Value Value
+	// derivedScale marks an absolute value the loader derived from the
+	// conventional one (see builder.absoluteHydrations).
+	derivedScale bool
 }
 
 // Compound is a tabulated solid.

@@ -2,6 +2,7 @@ package tui
 
 import (
 	"bytes"
+	"cmp"
 	"errors"
 	"fmt"
 	"os"
@@ -236,11 +237,9 @@ func (m *Model) askSave(thenQuit bool, thenOpen *screen.OpenMsg) tea.Cmd {
 		where = "your folder"
 	}
 	m.prompt.Open(prompt.New(m.ctx.Styles, "Save the "+snapshot.Formula+" cycle as", m.defaultFileName(),
-		"A name in "+where+"; "+cycle.FileExtension+" is added when missing. esc cancels.", m.opts.MaxInputLen,
+		"A name in "+where+"; "+cycle.FileExtension+" is added when missing. Typing replaces the proposed name, ← → edit it. esc cancels.", m.opts.MaxInputLen,
 		func(name string) (tea.Cmd, error) {
-			if name != "" && filepath.Ext(name) == "" {
-				name += cycle.FileExtension
-			}
+			name = cycleFileName(name)
 			path, err := m.ctx.ResolvePath(name)
 			if err != nil {
 				return nil, err
@@ -267,8 +266,57 @@ func (m *Model) askSave(thenQuit bool, thenOpen *screen.OpenMsg) tea.Cmd {
 				}
 				return savedMsg{path: path, err: cycle.Save(path, snapshot), thenQuit: thenQuit, thenOpen: thenOpen}
 			}, nil
-		}))
+		}, prompt.WithProposal()))
 	return nil
+}
+
+// cycleFileName is the one rule of Save and Open for a typed name: the
+// cycle file extension is added when the name has none.
+func cycleFileName(name string) string {
+	if name != "" && filepath.Ext(name) == "" {
+		return name + cycle.FileExtension
+	}
+	return name
+}
+
+// maxListed bounds the cycle files Open lists (the newest are kept).
+const maxListed = 200
+
+// cycleFiles lists the cycle files Open offers, as names to type: those in
+// the user's folder (Options.FileRoot, else the current folder), then the
+// recovery files, each group newest first.
+func (m *Model) cycleFiles() []string {
+	dir := m.opts.FileRoot
+	if dir == "" {
+		dir = "."
+	}
+	type file struct {
+		name string
+		mod  int64
+	}
+	var files []file
+	entries, _ := os.ReadDir(dir) // an unreadable folder lists nothing
+	for _, e := range entries {
+		if !e.Type().IsRegular() || filepath.Ext(e.Name()) != cycle.FileExtension || strings.HasPrefix(e.Name(), ".") {
+			continue
+		}
+		info, err := e.Info()
+		if err != nil {
+			continue
+		}
+		files = append(files, file{e.Name(), info.ModTime().UnixNano()})
+	}
+	slices.SortStableFunc(files, func(a, b file) int { return cmp.Compare(b.mod, a.mod) })
+	var out []string
+	for _, f := range files[:min(len(files), maxListed)] {
+		out = append(out, f.name)
+	}
+	for _, p := range recoveryFiles(m.opts.RecoveryPath) {
+		if n := m.name(p); n != "" && !slices.Contains(out, n) {
+			out = append(out, n)
+		}
+	}
+	return out
 }
 
 // holds reports whether a file is at path and says what it holds: "the
@@ -311,9 +359,14 @@ func (m *Model) askOpen() tea.Cmd {
 	if files := recoveryFiles(m.opts.RecoveryPath); len(files) > 0 {
 		initial = m.name(files[0]) // in a confined folder, the name to type
 	}
-	m.prompt.Open(prompt.New(m.ctx.Styles, "Open a cycle file", initial,
-		"The name of a "+cycle.FileExtension+" file. esc cancels.", m.opts.MaxInputLen,
+	files := m.cycleFiles()
+	hint := "The name of a " + cycle.FileExtension + " file (added when missing). esc cancels."
+	if len(files) == 0 {
+		hint = "No " + cycle.FileExtension + " file in this folder yet; type a name. esc cancels."
+	}
+	m.prompt.Open(prompt.New(m.ctx.Styles, "Open a cycle file", initial, hint, m.opts.MaxInputLen,
 		func(name string) (tea.Cmd, error) {
+			name = cycleFileName(name)
 			path, err := m.ctx.ResolvePath(name)
 			if err != nil {
 				return nil, err
@@ -322,7 +375,7 @@ func (m *Model) askOpen() tea.Cmd {
 				return nil, fmt.Errorf("%s: no such file", name)
 			}
 			return func() tea.Msg { return screen.OpenMsg{File: name} }, nil
-		}))
+		}, prompt.WithProposal(), prompt.WithChoices(files)))
 	return nil
 }
 

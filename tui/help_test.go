@@ -145,9 +145,10 @@ func TestHelpKeysMeanWhatTheySay(t *testing.T) {
 	if strings.Contains(m.View(), "Keys on the") {
 		t.Error("esc did not close the key list")
 	}
-	// On the shelf "?" is text; f1 opens the list there.
+	// On the shelf, while the filter holds text, "?" is text and f1 opens
+	// the list; the printable global keys are not listed then.
 	keys(u, "1")
-	drive.Run(u, drive.Text("?")...)
+	drive.Run(u, drive.Text("Na?")...)
 	if strings.Contains(m.View(), "Keys on the") {
 		t.Error("? opened the key list while the shelf was typing")
 	}
@@ -155,15 +156,33 @@ func TestHelpKeysMeanWhatTheySay(t *testing.T) {
 	if !strings.Contains(m.View(), "Keys on the Shelf screen") {
 		t.Error("f1 did not open the key list on the shelf")
 	}
-	// q is not listed on the shelf, where it is text.
 	for _, g := range m.FullHelp() {
 		for _, b := range g {
 			for _, k := range b.Keys() {
 				if len([]rune(k)) == 1 && strings.Contains("qu123456?", k) {
-					t.Errorf("the shelf's help lists the printable global key %q", k)
+					t.Errorf("the shelf's help lists the printable global key %q while the filter holds text", k)
 				}
 			}
 		}
+	}
+	// With the filter empty, they act as README says: ? lists the keys,
+	// 2 goes to the Bench, q quits (the README's rule, once broken: q and
+	// the digits went into the filter).
+	keys(u, "esc", "ctrl+u")
+	for range 3 {
+		keys(u, "backspace")
+	}
+	keys(u, "?")
+	if !strings.Contains(m.View(), "Keys on the Shelf screen") {
+		t.Errorf("? with an empty filter did not open the key list:\n%s", m.View())
+	}
+	keys(u, "esc", "2")
+	if m.Active() != screen.Bench {
+		t.Errorf("2 with an empty filter: screen %d, want the Bench", m.Active())
+	}
+	keys(u, "1")
+	if msgs := drive.Run(u, drive.Key("q")); !drive.Quit(msgs) && !strings.Contains(m.View(), "unsaved changes") {
+		t.Errorf("q with an empty filter neither quit nor asked about unsaved work:\n%s", m.View())
 	}
 }
 
@@ -215,10 +234,12 @@ func TestConventionKeys(t *testing.T) {
 }
 
 // TestStatusNamesOnlyHelpKeysThatWork: the idle status line names the keys
-// that open the key list, and on the Shelf, where ? is text, only f1.
+// that open the key list, and on the Shelf, where ? is text while the
+// filter holds some, only f1.
 func TestStatusNamesOnlyHelpKeysThatWork(t *testing.T) {
 	db := loadDB(t)
 	m, u, _ := newRoot(t, db, 100, 30)
+	drive.Run(u, drive.Text("Na")...)
 	v := m.View()
 	if strings.Contains(v, "? or f1") || !strings.Contains(v, "f1 lists every key") {
 		t.Errorf("the Shelf's status names ? (text there) or no help key:\n%s", v)

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
+	"slices"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/help"
@@ -70,6 +71,7 @@ type Model struct {
 	prompt        prompt.Slot     // a file name, asked over the screen
 	quitting      bool
 	recovered     string // path of the recovery file written, for the last frame
+	notice        string // the recovery notice of the start, while shown
 	kept          string // where the work was kept before an open, said when it is done
 	// lastKept is the recovery file keepWork wrote last and what it holds.
 	lastKept struct {
@@ -161,11 +163,21 @@ func (m *Model) checkRecovery() tea.Cmd {
 		case 1:
 			// The key first and the name last: a long local path cut at
 			// the window's edge is whole in the ctrl+o prompt.
-			return screen.StatusMsg{Text: "A recovery file from an earlier session (ctrl+o opens it): " + m.name(files[0])}
+			return recoveryNoticeMsg{text: "A recovery file from an earlier session (ctrl+o opens it): " + m.name(files[0])}
 		}
-		return screen.StatusMsg{Text: fmt.Sprintf("%d recovery files from earlier sessions (ctrl+o opens the newest): %s",
+		return recoveryNoticeMsg{text: fmt.Sprintf("%d recovery files from earlier sessions (ctrl+o opens the newest): %s",
 			len(files), m.name(files[0]))}
 	}
+}
+
+// recoveryNoticeMsg announces the recovery files found at the start.
+type recoveryNoticeMsg struct{ text string }
+
+// noticeDealtWith reports whether the recovery notice shown no longer
+// applies: a cycle is open (one of the files, or other work chosen), or
+// none of the announced files is there any more.
+func (m *Model) noticeDealtWith() bool {
+	return m.sess.Cycle != nil || len(recoveryFiles(m.opts.RecoveryPath)) == 0
 }
 
 // Update routes a message. A panic anywhere below writes the recovery file
@@ -185,6 +197,11 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 		return m.shutdown(msg.Reason)
 	case screen.StatusMsg:
 		m.status, m.statusErr = msg.Text, msg.Err
+		return nil
+	case recoveryNoticeMsg:
+		if m.sess.Cycle == nil && m.status == "" { // not over work begun meanwhile
+			m.status, m.statusErr, m.notice = msg.text, false, msg.text
+		}
 		return nil
 	case screen.SwitchMsg:
 		return m.switchTo(msg.To)
@@ -303,6 +320,9 @@ func (m *Model) switchTo(id screen.ID) tea.Cmd {
 	m.showHelp = false
 	if m.statusErr && m.opts.Validate() == nil {
 		m.status, m.statusErr = "", false // the error was about the screen left
+	}
+	if m.notice != "" && m.status == m.notice && m.noticeDealtWith() {
+		m.status, m.notice = "", "" // the recovery notice is stale
 	}
 	return m.screens[id].Update(screen.ShownMsg{})
 }
@@ -504,6 +524,16 @@ func (m *Model) helpLine() string {
 	line := m.help.ShortHelpView(m.ShortHelp())
 	wide := m.help
 	wide.Width = 0 // unbounded, to see whether it all fits
+	if !m.confirming && !m.prompt.Active() {
+		// Too narrow for every key: the screen's last keys give way, so
+		// the help and quit keys at the end stay (q quit fell off at 80).
+		b, globals := m.ShortHelp(), m.globalShortHelp()
+		screenKeys := b[:len(b)-len(globals)]
+		for len(screenKeys) > 1 && lipgloss.Width(wide.ShortHelpView(append(slices.Clip(screenKeys), globals...))) > m.width {
+			screenKeys = screenKeys[:len(screenKeys)-1]
+		}
+		line = m.help.ShortHelpView(append(slices.Clip(screenKeys), globals...))
+	}
 	if m.confirming && lipgloss.Width(wide.ShortHelpView(m.ShortHelp())) > m.width {
 		// The question's box says what follows each answer; the line
 		// keeps every key with its bare name rather than lose the last.
@@ -521,17 +551,24 @@ func (m *Model) ShortHelp() []key.Binding {
 	if m.confirming {
 		return m.confirmBindings()
 	}
-	b := m.screens[m.active].ShortHelp()
+	b := slices.Clip(m.screens[m.active].ShortHelp())
 	if len(b) == 0 && !m.screens[m.active].Capturing() {
 		b = []key.Binding{m.Keys.GoTo} // a screen with nothing to act on yet
 	}
+	return append(b, m.globalShortHelp()...)
+}
+
+// globalShortHelp is the end of the help line: the keys that open the key
+// list and quit, those that work while the screen is typing.
+func (m *Model) globalShortHelp() []key.Binding {
 	if m.screens[m.active].Capturing() {
+		var b []key.Binding
 		if h, ok := withoutPrintable(m.Keys.Help); ok {
 			b = append(b, h)
 		}
 		return append(b, m.Keys.ForceQuit)
 	}
-	return append(b, m.Keys.Help, m.Keys.Quit)
+	return []key.Binding{m.Keys.Help, m.Keys.Quit}
 }
 
 // FullHelp is the overlay's content: the screen's keys, then the global

@@ -273,3 +273,54 @@ func goldenMin(f func(float64) float64, lo, hi, tol float64) float64 {
 	}
 	return (lo + hi) / 2
 }
+
+// CounterRadiiFrom says in words where the counter-ion radii of the salts
+// used came from: the ones the caller gave (FitOptions.CounterRadii) and
+// the kinds of the data's radii for the rest, so that a fit never hides
+// which radii it stands on (a fit with other counter-radii gives another
+// radius).
+func (f *FittedRadius) CounterRadiiFrom() string {
+	var given []string
+	kinds := map[string]bool{}
+	var order []string
+	for _, s := range f.Used() {
+		if s.CounterRadius.Kind == "user" {
+			g := fmt.Sprintf("%s %.2f Å", s.Counter, s.CounterRadius.Value)
+			if !slices.Contains(given, g) {
+				given = append(given, g)
+			}
+			continue
+		}
+		if k := s.CounterRadius.Kind; !kinds[k] {
+			kinds[k] = true
+			order = append(order, counterKindWords(k))
+		}
+	}
+	var parts []string
+	if len(given) > 0 {
+		parts = append(parts, strings.Join(given, ", ")+" as given")
+	}
+	if len(order) > 0 {
+		what := "the data's"
+		if len(given) > 0 {
+			what = "the others the data's"
+		}
+		parts = append(parts, what+" ("+strings.Join(order, ", ")+")")
+	}
+	if len(parts) == 0 {
+		return "counter-ion radii: none used"
+	}
+	return "counter-ion radii: " + strings.Join(parts, "; ")
+}
+
+func counterKindWords(kind string) string {
+	switch kind {
+	case "shannon":
+		return "Shannon ionic radii"
+	case "thermochemical":
+		return "thermochemical radii"
+	case "neighbour":
+		return "a neighbouring coordination's Shannon radius"
+	}
+	return kind
+}

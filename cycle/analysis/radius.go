@@ -57,6 +57,9 @@ type DerivedRadius struct {
 	// usual 0.345 Å for comparison.
 	EffectiveRho, DefaultRho, Madelung, D0 float64
 	Structure, D0From, RhoErr              string
+	// RhoWarning, when not empty, says EffectiveRho lies outside
+	// [RhoPhysicalMin, RhoPhysicalMax]: a number, but not a physical ρ.
+	RhoWarning string
 	// Tabulated is the data's radius of the ion, when it has one.
 	Tabulated *Radius
 	Notes     []string
@@ -214,7 +217,21 @@ func (d *DerivedRadius) effectiveRho(c *cycle.Cycle, target *cycle.Part, u float
 		return
 	}
 	d.EffectiveRho = rho
+	if rho < RhoPhysicalMin || rho > RhoPhysicalMax {
+		d.RhoWarning = fmt.Sprintf("the effective ρ %.3f Å is outside %.2f–%.2f Å, the range taken as physical for the Born–Mayer repulsion (%s): "+
+			"no repulsion alone closes this gap, so read it as covalency, polarization or a wrong structure, not as a ρ",
+			rho, RhoPhysicalMin, RhoPhysicalMax, RhoRangeSource)
+	}
 }
+
+// The range of the Born–Mayer repulsion parameter ρ taken as physical. Born
+// and Mayer's 0.345 Å and the values fitted to the compressibilities of the
+// alkali halides (about 0.29–0.36 Å, from memory) lie well inside it.
+const (
+	RhoPhysicalMin = 0.20 // Å
+	RhoPhysicalMax = 0.50 // Å
+	RhoRangeSource = "common practice, no source"
+)
 
 func ionKind(p cycle.Part) lattice.IonKind {
 	sh, err := lattice.ParseShape(p.Ion.Shape)

@@ -26,7 +26,7 @@ func runBatch(env Env, args []string) error {
 	fs.Usage = func() {
 		fmt.Fprintf(env.Stderr, "usage: enthalpath %s\n\nThe input CSV has a header row; columns (only formula is required): %s, and set:KEY for a step value (e.g. set:attachment-2 with 744±20). FILE - reads standard input.\n\nflags:\n",
 			batchSynopsis, strings.Join(analysis.BatchColumns(), ", "))
-		fs.PrintDefaults()
+		PrintFlags(env.Stderr, fs)
 	}
 	pos, a, err := analysisSetup(env, fs, args)
 	if err != nil || a == nil {

@@ -213,7 +213,7 @@ func writeCompareCSV(w io.Writer, rows []CompareRow, conv string) error {
 	for _, m := range cycle.ModelNames() {
 		head = append(head, m+"_kj_per_mol", m+"_gap_kj_per_mol", m+"_gap_percent", m+"_verdict")
 	}
-	head = append(head, "status")
+	head = append(head, "status", "reason")
 	if err := cw.Write(head); err != nil {
 		return err
 	}
@@ -232,17 +232,28 @@ func writeCompareCSV(w io.Writer, rows []CompareRow, conv string) error {
 			}
 			rec = append(rec, num(m.Value), num(m.Gap), num(m.GapPercent), rowVerdict(r, *m))
 		}
-		status := "ok"
-		if r.Err != nil {
-			status = "not closed: " + r.Err.Error()
-		}
-		rec = append(rec, status)
+		status, reason := compareStatus(r.Err)
+		rec = append(rec, status, reason)
 		if err := cw.Write(rec); err != nil {
 			return err
 		}
 	}
 	cw.Flush()
 	return cw.Error()
+}
+
+// compareStatus gives a row's short status code for the CSV status
+// column and its sentence for the reason column: "ok"; "missing-datum" when
+// a datum of the cycle is not in the data (the reason names it and the
+// step); "not-closed" for any other cause.
+func compareStatus(err error) (status, reason string) {
+	switch {
+	case err == nil:
+		return "ok", ""
+	case errors.Is(err, cycle.ErrMissingDatum):
+		return "missing-datum", err.Error()
+	}
+	return "not-closed", err.Error()
 }
 
 type compareJSONRow struct {

@@ -480,6 +480,8 @@ func inputsText(m cycle.ModelResult) string {
 }
 
 type cycleJSON struct {
+	Formula string `json:"formula"` // the compound, the key every command uses
+	// Deprecated: the same as formula, kept for scripts that read it.
 	Compound             string          `json:"compound"`
 	Name                 string          `json:"name,omitempty"`
 	Family               string          `json:"family,omitempty"`
@@ -575,7 +577,7 @@ type settingsJSON struct {
 }
 
 func cycleJSONOf(c *cycle.Cycle, r *cycle.Result) cycleJSON {
-	j := cycleJSON{Compound: c.Formula, Name: c.Name, Family: c.Family, Tabulated: c.Tabulated,
+	j := cycleJSON{Formula: c.Formula, Compound: c.Formula, Name: c.Name, Family: c.Family, Tabulated: c.Tabulated,
 		Cation: c.Cation.Ion.Symbol, Anion: c.Anion.Ion.Symbol,
 		Convention: r.Conventions.Lattice.Symbol(), IonizationConvention: r.Conventions.Ionization.String(),
 		Solved:            solvedJSON{Key: r.Solved.Key, KJPerMol: jsonNumber(r.Solved.Value), UncertaintyKJ: jsonNumber(r.Solved.Uncertainty)},
@@ -673,7 +675,7 @@ func printAnionValue(w io.Writer, c *cycle.Cycle, e *cycle.AnionValueEffect) {
 		what = "the value fitted over its family of salts"
 		for _, f := range c.Fitted {
 			if f.Ion == c.Anion.Ion.Symbol {
-				what += fmt.Sprintf(" (ΔfH° = %.1f ± %.1f kJ/mol, %s, %d salts)", f.GasFormation.V, f.GasFormation.U, f.Model, len(f.Salts))
+				what += fmt.Sprintf(" (ΔfH° = %s kJ/mol, %s, %d salts)", plusMinus(f.GasFormation.V, f.GasFormation.U), f.Model, len(f.Salts))
 			}
 		}
 	}

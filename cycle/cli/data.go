@@ -1,6 +1,7 @@
 package cli
 
 import (
+	"cmp"
 	"errors"
 	"fmt"
 	"io"
@@ -158,7 +159,7 @@ func dataValueText(v data.Value) string {
 func dataNumberText(v data.Value) string {
 	s := tableNumber(v, v.V)
 	if v.U > 0 {
-		s += " ± " + tableNumber(v, v.U)
+		s = dataPlusMinus(v)
 	}
 	if v.Unit != "" && v.Unit != "1" {
 		s += " " + v.Unit
@@ -174,6 +175,30 @@ func tableNumber(v data.Value, x float64) string {
 		return strconv.FormatFloat(x, 'g', 6, 64)
 	}
 	return strconv.FormatFloat(x, 'f', -1, 64)
+}
+
+// dataPlusMinus writes a tabulated value with its uncertainty by the one
+// rule of thermo.UncertaintyDecimals (the uncertainty to two significant
+// figures, the value to the same place), except that a digit the source
+// published is never cut: "71.62 ± 0.0012" is written 71.6200 ± 0.0012,
+// "-411.153 ± 0.107" stays as published. A derived value has no published
+// digits and follows the rule alone. Signs are ASCII, as the table has them.
+func dataPlusMinus(v data.Value) string {
+	d, _ := thermo.UncertaintyDecimals(v.U)
+	if !v.Derived {
+		d = max(d, publishedDecimals(v.V), publishedDecimals(v.U))
+	}
+	return strconv.FormatFloat(v.V, 'f', d, 64) + " ± " + strconv.FormatFloat(v.U, 'f', d, 64)
+}
+
+// publishedDecimals is the number of decimals of x written as entered
+// (the shortest form that reads back as x).
+func publishedDecimals(x float64) int {
+	s := strconv.FormatFloat(x, 'f', -1, 64)
+	if i := strings.IndexByte(s, '.'); i >= 0 {
+		return len(s) - i - 1
+	}
+	return 0
 }
 
 // dataProvenance writes "[source; memory, derived, override of …]".
@@ -295,7 +320,7 @@ func dataPrintElement(w io.Writer, db *data.DB, e data.Element, cite *dataCitati
 		for i, v := range e.Ionization {
 			ev := tableNumber(v, v.V)
 			if v.U > 0 {
-				ev += " ± " + tableNumber(v, v.U)
+				ev = dataPlusMinus(v)
 			}
 			t.add(strconv.Itoa(i+1), e.Symbol+dataChargeText(i+1), ev, strconv.FormatFloat(thermo.EVToKJPerMol(v.V), 'f', 1, 64), dataProvenance(v))
 			cite.add(v)
@@ -669,7 +694,7 @@ func dataJSON(db *data.DB, rec any) any {
 			"formation_alternatives":        dataAltsOf(db, r.Formation, r.Alternatives),
 			"gibbs_formation":               dataValueOf(db, r.GibbsFormation),
 			"entropy":                       dataValueOf(db, r.Entropy),
-			"state":                         dataState(r.State),
+			"state":                         cmp.Or(r.State, "cr"),
 			"polymorph":                     r.Polymorph,
 			"molecular":                     r.Molecular,
 			"structure":                     r.Structure,

@@ -106,6 +106,8 @@ type estimateIonJSON struct {
 }
 
 type estimateJSON struct {
+	Formula string `json:"formula"` // the compound, the key every command uses
+	// Deprecated: the same as formula, kept for scripts that read it.
 	Compound  string          `json:"compound"`
 	Tabulated bool            `json:"tabulated"`
 	Cation    estimateIonJSON `json:"cation"`
@@ -144,7 +146,7 @@ func estimateJSONOf(e *analysis.Estimate) estimateJSON {
 	ion := func(u analysis.IonUse) estimateIonJSON {
 		return estimateIonJSON{Symbol: u.Symbol, Charge: u.Charge, Count: u.Count, Hypothetical: u.Hypothetical, RadiusA: u.Radius.Value, RadiusFrom: u.Radius.From}
 	}
-	out := estimateJSON{Compound: e.Formula, Tabulated: e.Tabulated, Cation: ion(e.Cation), Anion: ion(e.Anion),
+	out := estimateJSON{Formula: e.Formula, Compound: e.Formula, Tabulated: e.Tabulated, Cation: ion(e.Cation), Anion: ion(e.Anion),
 		Model: e.Model, Citation: e.ModelCitation, LatticeKJ: jsonNum(e.Lattice), LatticeEnergyKJ: jsonNum(e.LatticeEnergy),
 		ModelUncertainty: jsonNum(e.ModelUncertainty), ModelBasis: e.Spread.Basis(), Solved: e.Solved.Key,
 		ValueKJ: jsonNum(e.Value), UncertaintyKJ: jsonNum(e.Uncertainty), InputUncertainty: jsonNum(e.InputUncertainty),

@@ -111,7 +111,7 @@ func newFlagSet(name, synopsis string, w io.Writer) *flag.FlagSet {
 	fs.SetOutput(w)
 	fs.Usage = func() {
 		fmt.Fprintf(w, "usage: enthalpath %s\n\nflags:\n", synopsis)
-		fs.PrintDefaults()
+		PrintFlags(w, fs)
 	}
 	return fs
 }
@@ -135,16 +135,23 @@ func energy(kj float64, u thermo.Unit) string {
 	return strings.Replace(fmt.Sprintf("%.*f", prec, v), "-", "−", 1)
 }
 
-// energyPM formats value ± uncertainty in unit u.
+// energyPM formats value ± uncertainty in unit u, both rounded by the one
+// rule of thermo.UncertaintyDecimals; without an uncertainty, as energy.
 func energyPM(kj, unc float64, u thermo.Unit) string {
-	s := energy(kj, u)
-	if unc > 0 {
-		if v := thermo.FromKJPerMol(unc, u); v < 0.05 {
-			return s + " ± " + strconv.FormatFloat(v, 'g', 2, 64)
-		}
-		s += " ± " + energy(unc, u)
+	if math.IsNaN(kj) || !(unc > 0) {
+		return energy(kj, u)
 	}
-	return s
+	return plusMinus(thermo.FromKJPerMol(kj, u), thermo.FromKJPerMol(unc, u))
+}
+
+// plusMinus writes "v ± u" by the rule of thermo.UncertaintyDecimals, with
+// a typographic minus; without an uncertainty, v to six significant figures.
+func plusMinus(v, u float64) string {
+	value, unc := thermo.FormatWithUncertainty(v, u, 0)
+	if unc == "" {
+		return strings.Replace(strconv.FormatFloat(v, 'g', 6, 64), "-", "−", 1)
+	}
+	return strings.Replace(value, "-", "−", 1) + " ± " + unc
 }
 
 // percent formats a percentage with its sign.

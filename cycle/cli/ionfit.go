@@ -60,6 +60,8 @@ func splitComma(s string) []string {
 }
 
 type ionFitSaltJSON struct {
+	Formula string `json:"formula"` // the compound, the key every command uses
+	// Deprecated: the same as formula, kept for scripts that read it.
 	Compound           string      `json:"compound"`
 	Counter            string      `json:"counter_ion"`
 	Count              int         `json:"ions_per_formula_unit"`
@@ -113,7 +115,7 @@ func ionFitJSONOf(f *analysis.IonFit) ionFitJSON {
 		out.Builtin, out.BuiltinSE, out.BuiltinModel = &v, &u, f.Builtin.Model
 	}
 	for _, s := range f.Salts {
-		j := ionFitSaltJSON{Compound: s.Formula, Counter: s.Counter, Count: s.Count, Skipped: s.Skipped}
+		j := ionFitSaltJSON{Formula: s.Formula, Compound: s.Formula, Counter: s.Counter, Count: s.Count, Skipped: s.Skipped}
 		if s.Skipped == "" {
 			l, lu, v, u, r, z := jsonNum(s.Lattice), jsonNum(s.LatticeUncertainty), jsonNum(s.Value), jsonNum(s.Uncertainty), jsonNum(s.Residual), jsonNum(s.Normalized)
 			j.Lattice, j.LatticeUncertainty, j.LatticeFrom, j.Value, j.Uncertainty, j.Residual, j.Normalized = &l, &lu, s.LatticeFrom, &v, &u, &r, &z
@@ -154,11 +156,11 @@ func printIonFit(w io.Writer, f *analysis.IonFit) error {
 	if f.Birge > 0 {
 		birge = fmt.Sprintf("Birge ratio %.2f over %.1f effective salts", f.Birge, f.EffectiveSalts)
 	}
-	fmt.Fprintf(w, "ΔfH°(%s, g, 298.15 K) over %d of %d salts: %.1f ± %.1f kJ/mol (standard error; internal %.1f, %s)\n",
-		f.Ion, len(used), len(f.Salts), f.Value, f.SE, f.InternalSE, birge)
+	fmt.Fprintf(w, "ΔfH°(%s, g, 298.15 K) over %d of %d salts: %s kJ/mol (standard error; internal %.1f, %s)\n",
+		f.Ion, len(used), len(f.Salts), plusMinus(f.Value, f.SE), f.InternalSE, birge)
 	fmt.Fprintf(w, "lattice enthalpies from: %s (asked: %s)\n", f.Models(), f.From)
 	if b := f.Builtin; b != nil {
-		fmt.Fprintf(w, "built-in derived value: %.1f ± %.1f kJ/mol (%s, %d salts)\n", b.GasFormation.V, b.GasFormation.U, b.Model, len(b.Salts))
+		fmt.Fprintf(w, "built-in derived value: %s kJ/mol (%s, %d salts)\n", plusMinus(b.GasFormation.V, b.GasFormation.U), b.Model, len(b.Salts))
 	}
 	fmt.Fprintln(w)
 	t := &table{head: []string{"salt", "counter", "ΔH_L (kJ/mol)", "from", "ΔfH° alone", "residual", "in σ", ""}}
@@ -170,8 +172,8 @@ func printIonFit(w io.Writer, f *analysis.IonFit) error {
 		if s.CounterFitted {
 			mark = strings.TrimSpace(mark + " counter-ion fitted")
 		}
-		t.add(s.Formula, s.Counter, fmt.Sprintf("%.1f ± %.1f", s.Lattice, s.LatticeUncertainty), s.LatticeFrom,
-			fmt.Sprintf("%.1f ± %.1f", s.Value, s.Uncertainty), fmt.Sprintf("%+.1f", s.Residual), fmt.Sprintf("%+.2f", s.Normalized), mark)
+		t.add(s.Formula, s.Counter, plusMinus(s.Lattice, s.LatticeUncertainty), s.LatticeFrom,
+			plusMinus(s.Value, s.Uncertainty), fmt.Sprintf("%+.1f", s.Residual), fmt.Sprintf("%+.2f", s.Normalized), mark)
 	}
 	t.write(w, "  ")
 	if out := f.Outside(); len(out) > 0 {

@@ -57,6 +57,8 @@ func runRadius(env Env, args []string) error {
 }
 
 type radiusJSON struct {
+	Formula string `json:"formula"` // the compound, the key every command uses
+	// Deprecated: the same as formula, kept for scripts that read it.
 	Compound             string      `json:"compound"`
 	Ion                  string      `json:"ion"`
 	Counter              string      `json:"counter_ion"`
@@ -76,6 +78,7 @@ type radiusJSON struct {
 	Tabulated            *jsonNumber `json:"tabulated_radius_angstrom,omitempty"`
 	TabulatedFrom        string      `json:"tabulated_radius_from,omitempty"`
 	Problems             []string    `json:"problems,omitempty"`
+	Warnings             []string    `json:"warnings,omitempty"`
 	Notes                []string    `json:"notes"`
 }
 
@@ -88,11 +91,14 @@ func optNum(v float64) *jsonNumber {
 }
 
 func radiusJSONOf(d *analysis.DerivedRadius) radiusJSON {
-	out := radiusJSON{Compound: d.Formula, Ion: d.Ion, Counter: d.Counter, CounterRadius: d.CounterRadius.Value, CounterFrom: d.CounterRadius.From,
+	out := radiusJSON{Formula: d.Formula, Compound: d.Formula, Ion: d.Ion, Counter: d.Counter, CounterRadius: d.CounterRadius.Value, CounterFrom: d.CounterRadius.From,
 		LatticeEnergyKJ: jsonNum(d.LatticeEnergy), LatticeFrom: d.LatticeFrom,
 		Kapustinskii: optNum(d.Kapustinskii), KapustinskiiHandbook: optNum(d.KapustinskiiHandbook),
 		MolarVolume: optNum(d.MolarVolume), IonVolume: optNum(d.IonVolume), VolumeRadius: optNum(d.VolumeRadius),
 		EffectiveRho: optNum(d.EffectiveRho), Madelung: optNum(d.Madelung), D0: optNum(d.D0), D0From: d.D0From, Notes: d.Notes}
+	if d.RhoWarning != "" {
+		out.Warnings = append(out.Warnings, d.RhoWarning)
+	}
 	if d.Tabulated != nil {
 		out.Tabulated, out.TabulatedFrom = optNum(d.Tabulated.Value), d.Tabulated.From
 	}
@@ -127,6 +133,9 @@ func printRadius(w io.Writer, d *analysis.DerivedRadius) {
 	t.write(w, "  ")
 	if d.EffectiveRho > 0 {
 		fmt.Fprintf(w, "\n  ρ with A = %.5f (%s), d₀ = %.3f Å (%s); the usual ρ is %.3f Å\n", d.Madelung, d.Structure, d.D0, d.D0From, d.DefaultRho)
+	}
+	if d.RhoWarning != "" {
+		fmt.Fprintf(w, "  warning: %s\n", wrapText(d.RhoWarning, 96, "           "))
 	}
 	for _, n := range d.Notes {
 		fmt.Fprintf(w, "  note: %s\n", wrapText(n, 96, "        "))

@@ -37,6 +37,8 @@ func runRadiusFit(env Env, a *analysis.Analyst, pos []string, ion, counterRadii,
 }
 
 type radiusFitSaltJSON struct {
+	Formula string `json:"formula"` // the compound, the key every command uses
+	// Deprecated: the same as formula, kept for scripts that read it.
 	Compound        string      `json:"compound"`
 	Counter         string      `json:"counter_ion"`
 	CounterRadius   *jsonNumber `json:"counter_radius_angstrom,omitempty"`
@@ -58,13 +60,14 @@ type radiusFitJSON struct {
 	Used          int                 `json:"salts_used"`
 	Tabulated     *jsonNumber         `json:"tabulated_radius_angstrom,omitempty"`
 	TabulatedFrom string              `json:"tabulated_radius_from,omitempty"`
+	CounterRadii  string              `json:"counter_radii_from"`
 	Salts         []radiusFitSaltJSON `json:"salts"`
 	Notes         []string            `json:"notes"`
 }
 
 func radiusFitJSONOf(f *analysis.FittedRadius) radiusFitJSON {
 	out := radiusFitJSON{Ion: f.Ion, Radius: jsonNum(f.Radius), Mean: jsonNum(f.Mean),
-		RMSResidual: jsonNum(f.RMSResidual), Used: len(f.Used()), Notes: f.Notes, Salts: []radiusFitSaltJSON{}}
+		RMSResidual: jsonNum(f.RMSResidual), Used: len(f.Used()), Notes: f.Notes, CounterRadii: f.CounterRadiiFrom(), Salts: []radiusFitSaltJSON{}}
 	if f.HasSpread { // null with one salt: no spread can be given
 		sd, se := jsonNum(f.SD), jsonNum(f.SE)
 		out.SD, out.SE = &sd, &se
@@ -73,7 +76,7 @@ func radiusFitJSONOf(f *analysis.FittedRadius) radiusFitJSON {
 		out.Tabulated, out.TabulatedFrom = optNum(f.Tabulated.Value), f.Tabulated.From
 	}
 	for _, s := range f.Salts {
-		j := radiusFitSaltJSON{Compound: s.Formula, Counter: s.Counter, Skipped: s.Skipped}
+		j := radiusFitSaltJSON{Formula: s.Formula, Compound: s.Formula, Counter: s.Counter, Skipped: s.Skipped}
 		if s.Skipped == "" {
 			j.CounterRadius, j.CounterFrom = optNum(s.CounterRadius.Value), s.CounterRadius.From
 			j.LatticeEnergyKJ, j.LatticeFrom = optNum(s.LatticeEnergy), s.LatticeFrom
@@ -89,9 +92,10 @@ func printRadiusFit(w io.Writer, f *analysis.FittedRadius) {
 	used := f.Used()
 	spread := "one salt only: no spread"
 	if f.HasSpread {
-		spread = fmt.Sprintf("one-salt radii %.3f ± %.3f Å, SE %.3f Å; rms misfit %.1f kJ/mol", f.Mean, f.SD, f.SE, f.RMSResidual)
+		spread = fmt.Sprintf("one-salt radii %s Å, SE %.3f Å; rms misfit %.1f kJ/mol", plusMinus(f.Mean, f.SD), f.SE, f.RMSResidual)
 	}
 	fmt.Fprintf(w, "radius of %s fitted over %d salt(s): %.3f Å (%s)\n", f.Ion, len(used), f.Radius, spread)
+	fmt.Fprintf(w, "  %s\n", f.CounterRadiiFrom())
 	if f.Tabulated != nil {
 		fmt.Fprintf(w, "  radius in the data: %.3f Å (%s)\n", f.Tabulated.Value, f.Tabulated.From)
 	}

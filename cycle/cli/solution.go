@@ -55,6 +55,8 @@ type solutionTermJSON struct {
 }
 
 type solutionJSON struct {
+	Formula string `json:"formula"` // the compound, the key every command uses
+	// Deprecated: the same as formula, kept for scripts that read it.
 	Compound   string             `json:"compound"`
 	Scale      string             `json:"hydration_scale"`
 	ScaleNote  string             `json:"hydration_scale_note"`
@@ -69,7 +71,7 @@ func solutionJSONOf(sc *analysis.SolutionCycle) solutionJSON {
 		return solutionTermJSON{Key: t.Key, Label: t.Label, Reaction: t.Reaction, Multiplicity: t.Multiplicity,
 			KJ: jsonNum(t.Value), UncertaintyKJ: jsonNum(t.Uncertainty), Source: sourceWords(t.Source), Citation: t.Source.Citation}
 	}
-	out := solutionJSON{Compound: sc.Formula, Scale: sc.Scale, ScaleNote: sc.ScaleNote, Solved: term(sc.Solved), Notes: sc.Notes}
+	out := solutionJSON{Formula: sc.Formula, Compound: sc.Formula, Scale: sc.Scale, ScaleNote: sc.ScaleNote, Solved: term(sc.Solved), Notes: sc.Notes}
 	for _, t := range sc.Terms {
 		out.Terms = append(out.Terms, term(t))
 	}

@@ -131,7 +131,7 @@ func crossingText(r analysis.Reaction) string {
 		if r.Crossing.Below {
 			side = "goes below"
 		}
-		return fmt.Sprintf("%.0f ± %.0f K (%s)", r.Crossing.Temperature, r.Crossing.Uncertainty, side)
+		return fmt.Sprintf("%s K (%s)", plusMinus(r.Crossing.Temperature, r.Crossing.Uncertainty), side)
 	case r.Released == "":
 		return ""
 	}

@@ -70,7 +70,7 @@ func stabilitySVG(st *analysis.Stability) string {
 		label := arrow(r.Equation)
 		if r.Crossing != nil && r.Crossing.Temperature >= st.From && r.Crossing.Temperature <= st.To {
 			fmt.Fprintf(&b, `<circle cx="%.1f" cy="%.1f" r="4" fill="%s"/>`+"\n", x(r.Crossing.Temperature), y(0), col)
-			label += fmt.Sprintf(" — ΔrG = 0 at %.0f ± %.0f K", r.Crossing.Temperature, r.Crossing.Uncertainty)
+			label += " — ΔrG = 0 at " + plusMinus(r.Crossing.Temperature, r.Crossing.Uncertainty) + " K"
 		}
 		if r.Estimated {
 			label += " (uses estimates)"

@@ -24,6 +24,8 @@ import (
 //   - family: key an ion symbol, value the family name of its salts.
 //   - onestep: key an element whose atomization is written as one step
 //     from its standard state.
+//   - ionname: key an ion symbol, value its name in compound names.
+//   - noweight: key an element given no atomic weight (no stable isotope).
 type choices struct {
 	byKind map[string]map[string]choice
 }

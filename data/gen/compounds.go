@@ -623,20 +623,15 @@ func (g *generator) ionValues() (*table, error) {
 //	ΔhydH°conv(ion) = ΔfH°(ion, ao) − ΔfH°(ion, g) + z·ΔfH°(H⁺, g),
 //
 // with ΔfH°(ion, g) from the NBS gas row of a monatomic ion or the
-// preferred gas_formation value of a polyatomic one; and on the absolute
-// scale, conventional + z·ΔhydH°(H⁺, absolute) with the H⁺ value of the
-// hand-kept absolute row (Marcus 1987, recalled: those rows are memory).
-// It returns the ions it wrote.
+// preferred gas_formation value of a polyatomic one. The absolute scale
+// needs one more number, ΔhydH°(H⁺, absolute), kept by hand in
+// kept/ion_values.csv; the loader derives the other ions' absolute values
+// from it. Kept hydration rows of the ions written here are dropped, but
+// for that H⁺ row. It returns the ions it wrote.
 func (g *generator) hydration(t *table, ions []ionDef, kept []map[string]string) (map[string]bool, error) {
 	hPlus, ok := g.nbsFind("H+", "g")
 	if !ok {
 		return nil, fmt.Errorf("no NBS row for H+(g)")
-	}
-	absH := math.NaN()
-	for _, k := range kept {
-		if k["ion"] == "H+" && k["property"] == "hydration" && k["scale"] == "absolute" {
-			absH, _ = strconv.ParseFloat(k["value"], 64)
-		}
 	}
 	gas := map[string]float64{}
 	for _, r := range t.rows {
@@ -675,12 +670,6 @@ func (g *generator) hydration(t *table, ions []ionDef, kept []map[string]string)
 		t.add(map[string]string{"ion": ion.symbol, "property": "hydration", "value": numDigits(conv, 2), "unit": "kJ/mol", "scale": "conventional",
 			"source": keyNBS, "locator": locator(nbsFile, aq.Line) + "; " + locator(nbsFile, hPlus.Line), "derived": "yes",
 			"note": fmt.Sprintf("ΔfH°(%s, ao) %s − ΔfH°(%s, g) %s (%s) %+g × ΔfH°(H+, g) %s (%s)", ion.symbol, aq.Original, ion.symbol, num(gH), gLoc, z, hPlus.Original, locator(nbsFile, hPlus.Line))})
-		if !math.IsNaN(absH) && ion.symbol != "H+" {
-			abs := round6(conv + z*absH)
-			t.add(map[string]string{"ion": ion.symbol, "property": "hydration", "value": numDigits(abs, 2), "unit": "kJ/mol", "scale": "absolute",
-				"source": "marcus1987", "memory": "yes", "derived": "yes",
-				"note": fmt.Sprintf("the conventional value %s %+g × ΔhydH°(H+) %s kJ/mol, the absolute value of H+ of the cited paper (recalled)", numDigits(conv, 2), z, num(absH))})
-		}
 	}
 	return out, nil
 }

@@ -8,6 +8,7 @@
 //
 //	go run ./data/gen            # rewrite data/tables
 //	go run ./data/gen -check     # fail if a table differs from what it would write
+//	go run ./data/gen -v         # also print the notes (formulas left out, and why)
 //
 // Every generated row carries its source key and a locator (file:line in
 // data/sources, or the species' name there). Unit and electron-convention
@@ -48,6 +49,7 @@ func main() {
 	kept := flag.String("kept", "data/gen", "folder of choices.csv and kept/")
 	out := flag.String("out", "data/tables", "folder the tables are written to")
 	check := flag.Bool("check", false, "write nothing; fail when a table differs from what would be written")
+	verbose := flag.Bool("v", false, "print the notes: formulas left out, kept rows without a source row")
 	flag.Parse()
 
 	g, err := newGenerator(*sources, *kept, *out)
@@ -81,7 +83,11 @@ func main() {
 	if differ > 0 {
 		log.Fatalf("%d tables differ: run go run ./data/gen and commit the result", differ)
 	}
-	for _, w := range g.warnings {
-		fmt.Fprintln(os.Stderr, "note:", w)
+	if *verbose {
+		for _, w := range g.warnings {
+			fmt.Fprintln(os.Stderr, "note:", w)
+		}
+	} else if len(g.warnings) > 0 {
+		fmt.Fprintf(os.Stderr, "gen: %d notes (formulas left out, kept rows without a source row): -v prints them\n", len(g.warnings))
 	}
 }

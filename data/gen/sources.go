@@ -57,7 +57,8 @@ func latin1(b []byte) string {
 // nbsNumber reads a number as printed in the NBS file: decimal comma or
 // point, "-" or empty for absent, a trailing point allowed ("364.").
 func nbsNumber(s string) (v float64, digits int, ok bool) {
-	s = strings.TrimSpace(strings.ReplaceAll(s, ",", "."))
+	// A trailing "*" marks a value with a footnote in the printed tables.
+	s = strings.TrimSuffix(strings.TrimSpace(strings.ReplaceAll(s, ",", ".")), "*")
 	if s == "" || s == "-" {
 		return nanValue, 0, false
 	}

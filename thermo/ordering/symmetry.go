@@ -59,25 +59,40 @@ func newSiteIndex(frac []crystal.Vec3, kind []int) *siteIndex {
 func (x *siteIndex) find(f crystal.Vec3, k int) int {
 	f = wrap(f)
 	key := gridKey(f)
+	if i := x.match(x.at[key], f, k); i >= 0 {
+		return i
+	}
+	// The rounding may have put the site on a neighbouring grid point.
 	g := int64(gridPerUnit)
 	for d0 := int64(-1); d0 <= 1; d0++ {
 		for d1 := int64(-1); d1 <= 1; d1++ {
 			for d2 := int64(-1); d2 <= 1; d2++ {
+				if d0 == 0 && d1 == 0 && d2 == 0 {
+					continue
+				}
 				kk := [3]int64{(key[0] + d0 + g) % g, (key[1] + d1 + g) % g, (key[2] + d2 + g) % g}
-				for _, i := range x.at[kk] {
-					if x.kind[i] != k {
-						continue
-					}
-					ok := true
-					for d := 0; d < 3 && ok; d++ {
-						e := f[d] - x.frac[i][d]
-						ok = math.Abs(e-math.Round(e)) <= positionTolerance
-					}
-					if ok {
-						return i
-					}
+				if i := x.match(x.at[kk], f, k); i >= 0 {
+					return i
 				}
 			}
+		}
+	}
+	return -1
+}
+
+// match returns the site among candidates of kind k at f, or −1.
+func (x *siteIndex) match(candidates []int, f crystal.Vec3, k int) int {
+	for _, i := range candidates {
+		if x.kind[i] != k {
+			continue
+		}
+		ok := true
+		for d := 0; d < 3 && ok; d++ {
+			e := f[d] - x.frac[i][d]
+			ok = math.Abs(e-math.Round(e)) <= positionTolerance
+		}
+		if ok {
+			return i
 		}
 	}
 	return -1
@@ -134,38 +149,58 @@ func findSymmetry(p *Problem, maxTable int) *symmetry {
 		}
 	}
 	m := len(p.Mixed)
-	var perms [][]int32
-	var translations int
-	for ri, R := range rotations {
+	// try returns the permutation of the mixed sites made by f ↦ R·f + t,
+	// or false when some site does not land on a site of its kind.
+	try := func(R [3][3]int, t crystal.Vec3) ([]int32, bool) {
+		perm := make([]int32, m)
+		for i := 0; i < n; i++ {
+			img := index.find(apply(R, frac[i]).Add(t), kind[i])
+			if img < 0 {
+				return nil, false
+			}
+			if a := mixedAt[i]; a >= 0 {
+				perm[a] = int32(mixedAt[img])
+			}
+		}
+		return perm, true
+	}
+	// The pure translations first (rotations[0] is the identity).
+	var translations [][]int32
+	for j := 0; j < n; j++ {
+		if kind[j] != kind[anchor] {
+			continue
+		}
+		if perm, ok := try(rotations[0], frac[j].Sub(frac[anchor])); ok {
+			translations = append(translations, perm)
+		}
+	}
+	if len(translations)*m > maxTable {
+		return nil
+	}
+	// The operations with rotation R, if any, are the translations
+	// composed with one of them: find that one, then compose.
+	perms := append([][]int32(nil), translations...)
+	for _, R := range rotations[1:] {
 		ra := apply(R, frac[anchor])
 		for j := 0; j < n; j++ {
 			if kind[j] != kind[anchor] {
 				continue
 			}
-			t := frac[j].Sub(ra)
-			perm := make([]int32, m)
-			ok := true
-			for i := 0; i < n && ok; i++ {
-				img := index.find(apply(R, frac[i]).Add(t), kind[i])
-				if img < 0 {
-					ok = false
-				} else if a := mixedAt[i]; a >= 0 {
-					perm[a] = int32(mixedAt[img])
-				}
-			}
+			first, ok := try(R, frac[j].Sub(ra))
 			if !ok {
 				continue
 			}
-			if ri == 0 {
-				translations++
+			if (len(perms)+len(translations))*m > maxTable {
+				return &symmetry{perm: translations, translationsOnly: true}
 			}
-			perms = append(perms, perm)
-		}
-		if ri == 0 && translations*m > maxTable {
-			return nil
-		}
-		if len(perms)*m > maxTable {
-			return &symmetry{perm: perms[:translations], translationsOnly: true}
+			for _, t := range translations {
+				perm := make([]int32, m)
+				for a, b := range first {
+					perm[a] = t[b]
+				}
+				perms = append(perms, perm)
+			}
+			break
 		}
 	}
 	return &symmetry{perm: perms}

@@ -154,12 +154,14 @@ func TestSolutionAndRadiusRun(t *testing.T) {
 	}
 }
 
-// TestRadiusFitRuns: the fit over salts runs on its example, uses the given
-// counter-ion radii, lists every salt it used, and refuses a malformed
+// TestRadiusFitRuns: the fit over salts runs with given counter-ion radii,
+// uses them and says so, lists every salt it used, and refuses a malformed
 // radius list in place.
 func TestRadiusFitRuns(t *testing.T) {
 	_, m, u := setup(t)
-	drive.Run(u, drive.Key("j"), drive.Key("j"), drive.Key("j"), drive.Key("j"), drive.Key("r"))
+	drive.Run(u, drive.Key("j"), drive.Key("j"), drive.Key("j"), drive.Key("j"), drive.Key("e"), drive.Key("ctrl+u"))
+	drive.Run(u, drive.Text("NO3- K+=1.33,Na+=0.98")...)
+	drive.Run(u, drive.Key("enter"))
 	res, err := m.Result(4)
 	if err != nil {
 		t.Fatalf("radius fit %s: %v", m.Args(4), err)
@@ -175,6 +177,9 @@ func TestRadiusFitRuns(t *testing.T) {
 		if s.Counter == "K+" && s.CounterRadius.Value != 1.33 {
 			t.Errorf("K+ at %.3f Å, not the given 1.33", s.CounterRadius.Value)
 		}
+	}
+	if !strings.Contains(v, "K+ 1.33 Å") || !strings.Contains(v, "as given") {
+		t.Errorf("the view does not say which counter-radii were given:\n%s", v)
 	}
 	if len(f.Used()) < 2 || !strings.Contains(v, "fitted over") {
 		t.Errorf("fit of NO3-: %d salts\n%s", len(f.Used()), v)
@@ -261,6 +266,31 @@ func TestResultsAreNotCut(t *testing.T) {
 				drive.Run(u, drive.Key("j"))
 			}
 		}
+	}
+}
+
+// TestRadiusFitDefaultsToTheDataRadii: the workshop's radius fit, run on
+// its example as offered, uses the data's counter-radii as the command
+// line does (analysis.FitRadius with no radii, what `radius --all-salts`
+// calls) and says so; it once came pre-filled with K+=1.33,Na+=0.98
+// (Goldschmidt's) and gave another radius than the command line, silently.
+func TestRadiusFitDefaultsToTheDataRadii(t *testing.T) {
+	f, m, u := setup(t)
+	drive.Run(u, drive.Key("j"), drive.Key("j"), drive.Key("j"), drive.Key("j"), drive.Key("r"))
+	res, err := m.Result(4)
+	if err != nil {
+		t.Fatalf("radius fit %s: %v", m.Args(4), err)
+	}
+	got := res.(*analysis.FittedRadius)
+	want, err := analysis.New(f.DB).FitRadius("NO3-", analysis.FitOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got.Radius != want.Radius {
+		t.Errorf("workshop fit %.4f Å, command line's %.4f Å", got.Radius, want.Radius)
+	}
+	if v := m.View(); !strings.Contains(v, "counter-ion radii: the data's") {
+		t.Errorf("the view does not say the counter-radii are the data's:\n%s", v)
 	}
 }
 

@@ -114,7 +114,7 @@ func kinds() []kind {
 		},
 		{
 			name: "radius fit", what: "thermochemical radius of an ion fitted over every salt of it whose cycle closes",
-			syntax: "ION [COUNTER=Å,...]", example: "NO3- K+=1.33,Na+=0.98",
+			syntax: "ION [COUNTER=Å,...]", example: "NO3-",
 			prepare: func(args []string) (job, error) {
 				k := ks[4]
 				if len(args) < 1 || len(args) > 2 {

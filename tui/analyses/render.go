@@ -1,6 +1,7 @@
 package analyses
 
 import (
+	"enthalpath/tui/diagram"
 	"fmt"
 	"math"
 	"strings"
@@ -122,7 +123,7 @@ func (m *Model) solution(s *analysis.SolutionCycle) []string {
 	for _, t := range s.Terms {
 		flag := " "
 		if t.Unknown {
-			flag = "?"
+			flag = diagram.SolvedMark
 		}
 		src := t.Source.Kind.String()
 		if t.Source.Key != "" {
@@ -153,6 +154,9 @@ func (m *Model) radius(r *analysis.DerivedRadius) []string {
 		"volume-based (sphere of its volume):  " + val(r.VolumeRadius, r.VolumeErr),
 		fmt.Sprintf("effective Born–Mayer ρ:               %s (usual %.3f Å; %s, d₀ %.3f Å)", val(r.EffectiveRho, r.RhoErr), r.DefaultRho, r.Structure, r.D0),
 	}
+	if r.RhoWarning != "" {
+		lines = append(lines, st.Warn.Render(wrap("warning: "+r.RhoWarning, m.w)))
+	}
 	if r.Tabulated != nil {
 		lines = append(lines, fmt.Sprintf("the data's radius: %.3f Å (%s)", r.Tabulated.Value, r.Tabulated.From))
 	}
@@ -168,6 +172,7 @@ func (m *Model) radiusFit(f *analysis.FittedRadius) []string {
 	}
 	lines := []string{
 		st.Accent.Render(fmt.Sprintf("%s: %.3f Å fitted over %d salt(s)", f.Ion, f.Radius, len(used))) + st.Muted.Render("   "+spread),
+		wrap(f.CounterRadiiFrom(), m.w),
 	}
 	if f.Tabulated != nil {
 		lines = append(lines, fmt.Sprintf("the data's radius: %.3f Å (%s)", f.Tabulated.Value, f.Tabulated.From))

@@ -27,7 +27,6 @@ type Model struct {
 	forCycle *cycle.Cycle // the cycle the order below was made for
 	order    []string     // step keys in the order they are proposed
 	decided  []string     // what was done with each decided step
-	unknown  string       // the step chosen as the unknown, or ""
 	edit     prompt.Slot  // a value of one's own for the proposed step, while typed
 	w, h     int
 }
@@ -61,7 +60,23 @@ func (m *Model) SetSize(w, h int) {
 func (m *Model) Position() (decided, total int) { return len(m.decided), len(m.order) }
 
 // Unknown returns the key of the step chosen as the unknown so far.
-func (m *Model) Unknown() string { return m.unknown }
+func (m *Model) Unknown() string { return m.unknownKey() }
+
+// unknownKey is the step other than the lattice that the cycle holds as
+// its unknown, chosen here or on the Bench, or "". It is read from the
+// cycle each time, so work done on the Bench is never overlooked.
+func (m *Model) unknownKey() string {
+	c := m.sess.Cycle
+	if c == nil {
+		return ""
+	}
+	for _, k := range c.Unknowns() {
+		if s, _ := c.Step(k); s.Kind != cycle.KindLattice {
+			return k
+		}
+	}
+	return ""
+}
 
 // ShortHelp lists the main keys; while a value is typed, the prompt's.
 func (m *Model) ShortHelp() []key.Binding {
@@ -72,6 +87,9 @@ func (m *Model) ShortHelp() []key.Binding {
 		return nil // nothing to assemble: no key of this screen works
 	}
 	k := m.KeyMap
+	if m.Done() {
+		return []key.Binding{k.onward(), k.Back}
+	}
 	return []key.Binding{k.Accept, k.Type, k.Unknown, k.Back}
 }
 
@@ -84,6 +102,9 @@ func (m *Model) FullHelp() [][]key.Binding {
 		return nil
 	}
 	k := m.KeyMap
+	if m.Done() {
+		return [][]key.Binding{{k.onward()}, {k.Back, k.Bench}}
+	}
 	return [][]key.Binding{{k.Accept, k.Type, k.Unknown}, {k.Back, k.Bench}}
 }
 
@@ -92,7 +113,7 @@ func (m *Model) FullHelp() [][]key.Binding {
 // formation step just before it.
 func (m *Model) restart() {
 	c := m.sess.Cycle
-	m.forCycle, m.order, m.decided, m.unknown = c, nil, nil, ""
+	m.forCycle, m.order, m.decided = c, nil, nil
 	m.edit.Close()
 	if c == nil {
 		return
@@ -117,6 +138,39 @@ func (m *Model) restart() {
 	if lattice != "" {
 		m.order = append(m.order, lattice)
 	}
+}
+
+// kept says what the cycle already holds for step s that the assembly
+// keeps rather than re-proposes from the data: a value the user typed
+// (on the Bench or here), the unknown chosen on the Bench, or a model
+// filling the lattice step. "" when the step holds the data's value.
+func (m *Model) kept(s *cycle.Step) string {
+	c := m.sess.Cycle
+	switch {
+	case s.Unknown && s.Kind != cycle.KindLattice:
+		return "unknown"
+	case s.Source.Kind == cycle.SourceUser:
+		return "user"
+	case s.Kind == cycle.KindLattice && c.Settings.LatticeFrom != "":
+		return "from the " + c.Settings.LatticeFrom + " model"
+	}
+	return ""
+}
+
+// label says where a decided step's value comes from, read from the cycle
+// as it is now (the Bench may have changed it since): unknown, user, a
+// model, the data's handbook value, or data.
+func (m *Model) label(s *cycle.Step) string {
+	if s.Unknown {
+		return "unknown"
+	}
+	if k := m.kept(s); k != "" {
+		return k
+	}
+	if s.Kind == cycle.KindLattice {
+		return "data (handbook)"
+	}
+	return "data"
 }
 
 // Update handles keys and results.
@@ -193,18 +247,28 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 // cycle.Reset returns) or else a model value, or the unknown itself (the
 // lattice step otherwise).
 func (m *Model) proposal(s *cycle.Step) (text string, ok bool) {
+	switch m.kept(s) {
+	case "unknown":
+		return "keep it the unknown, as the cycle has it (one unknown only)", true
+	case "user":
+		return fmt.Sprintf("keep your value %s %s %s", m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units), true
+	case "":
+	default:
+		return "keep the " + m.sess.Cycle.Settings.LatticeFrom + " model's value, as chosen", true
+	}
 	if s.Kind == cycle.KindLattice {
-		if m.unknown == "" {
+		unknown := m.unknownKey()
+		if unknown == "" {
 			return "solve it by Hess's law from the other steps (the usual unknown)", true
 		}
 		if r := s.Reference; r != nil {
 			return fmt.Sprintf("%s %s %s, the data's handbook value from %s (%s is the unknown)", m.ctx.Signed(r.Value),
-				m.ctx.Uncertainty(r.Uncertainty), m.ctx.Units, sourceName(r.Source), m.unknown), true
+				m.ctx.Uncertainty(r.Uncertainty), m.ctx.Units, sourceName(r.Source), unknown), true
 		}
 		mr, err := m.latticeModelErr()
 		if err == nil {
 			return fmt.Sprintf("%s %s %s from the %s model (%s is the unknown)", m.ctx.Signed(mr.Value),
-				m.ctx.Uncertainty(mr.Uncertainty), m.ctx.Units, mr.Model, m.unknown), true
+				m.ctx.Uncertainty(mr.Uncertainty), m.ctx.Units, mr.Model, unknown), true
 		}
 		return "no model can give it (" + session.Message(err) + "): type a value with e", false
 	}
@@ -246,12 +310,17 @@ func (m *Model) accept() tea.Cmd {
 		return screen.Fail(fmt.Errorf("%s has nothing to accept: type a value with e or make it the unknown with x", s.Key))
 	}
 	key := s.Key
+	if kept := m.kept(s); kept != "" {
+		// What the cycle holds stays: accepting never replaces it.
+		m.decided = append(m.decided, kept)
+		return nil
+	}
 	var f func(c *cycle.Cycle) error
 	var note string
 	switch {
-	case s.Kind == cycle.KindLattice && m.unknown == "":
+	case s.Kind == cycle.KindLattice && m.unknownKey() == "":
 		f = func(c *cycle.Cycle) error { c.Settings.LatticeFrom = ""; return c.SolveFor(key) }
-		note, m.unknown = "unknown", key
+		note = "unknown"
 	case s.Kind == cycle.KindLattice && s.Reference != nil:
 		// The handbook value, as the Bench has it when another step is solved.
 		f = func(c *cycle.Cycle) error { c.Settings.LatticeFrom = ""; return c.Reset(key) }
@@ -280,7 +349,7 @@ func (m *Model) markUnknown() tea.Cmd {
 	if s == nil {
 		return nil
 	}
-	key, prev := s.Key, m.unknown
+	key, prev := s.Key, m.unknownKey()
 	cmd, err := m.sess.Change(func(c *cycle.Cycle) error {
 		if prev != "" {
 			if err := c.Reset(prev); err != nil {
@@ -293,7 +362,6 @@ func (m *Model) markUnknown() tea.Cmd {
 	if err != nil {
 		return screen.Fail(err)
 	}
-	m.unknown = key
 	m.decided = append(m.decided, "unknown")
 	status := key + " is the unknown."
 	if prev != "" {
@@ -313,10 +381,6 @@ func (m *Model) relabel(key, note string) {
 func (m *Model) back() tea.Cmd {
 	if len(m.decided) == 0 {
 		return screen.Status("Already at the first step.")
-	}
-	last := m.order[len(m.decided)-1]
-	if m.decided[len(m.decided)-1] == "unknown" && m.unknown == last {
-		m.unknown = ""
 	}
 	m.decided = m.decided[:len(m.decided)-1]
 	return nil
@@ -365,7 +429,7 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 		if err != nil {
 			return nil, session.ValueError(text, err)
 		}
-		m.decided = append(m.decided, "your value")
+		m.decided = append(m.decided, "user")
 		return cmd, nil
 	}
 }
@@ -395,17 +459,17 @@ func (m *Model) View() string {
 		s, _ := c.Step(k)
 		val := m.ctx.Signed(s.Value)
 		if s.Unknown {
-			val = "?"
+			val = "unknown"
 		}
 		if s.Kind == cycle.KindLattice && c.Settings.LatticeFrom != "" {
 			val = m.modelValue(c)
 		}
 		marker := "✓"
-		if m.decided[i] == "unknown" {
-			marker = "?"
+		if s.Unknown {
+			marker = diagram.SolvedMark
 		}
 		// The multiplicity the value enters the sum with (×½ for Cl₂ → 2Cl).
-		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s %3s %10s  %s", marker, s.Reaction, screen.Multiplicity(s.Multiplicity), val, m.decided[i]), m.w))
+		lines = append(lines, trunc(fmt.Sprintf(" %s %-34s %3s %10s  %s", marker, s.Reaction, screen.Multiplicity(s.Multiplicity), val, m.label(s)), m.w))
 	}
 	if s := m.current(); s != nil {
 		text, ok := m.proposal(s)
@@ -484,7 +548,7 @@ func (m *Model) doneLine() string {
 		return st.Error.Render("Not solved: ") + msg
 	}
 	s := m.sess.Result.Solved
-	return st.Solved.Render("? solved: ") + st.Accent.Render(fmt.Sprintf("%s = %s %s %s", s.Label, m.ctx.Signed(s.Value),
+	return st.Solved.Render(diagram.SolvedMark+" solved: ") + st.Accent.Render(fmt.Sprintf("%s = %s %s %s", s.Label, m.ctx.Signed(s.Value),
 		m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units)) + st.Muted.Render("   enter: on to the bench")
 }
 

@@ -59,7 +59,7 @@ func TestProposesEveryStepInOrderAndGrowsTheDrawing(t *testing.T) {
 		t.Fatalf("after the assembly: %+v, %v", res, f.Session.SolveErr)
 	}
 	v := m.View()
-	if !strings.Contains(v, "? solved: lattice") {
+	if !strings.Contains(v, "∴ solved: lattice") {
 		t.Errorf("no solved line at the end:\n%s", v)
 	}
 	if got := heads(v); got != len(want) {

@@ -17,3 +17,10 @@ func DefaultKeyMap() KeyMap {
 		Bench:   key.NewBinding(key.WithKeys("w"), key.WithHelp("w", "to the bench")),
 	}
 }
+
+// onward is Accept once every step is decided: its keys go on to the bench.
+func (k KeyMap) onward() key.Binding {
+	b := k.Accept
+	b.SetHelp(b.Help().Key, "on to the bench")
+	return b
+}

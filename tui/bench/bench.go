@@ -313,7 +313,7 @@ func (m *Model) askExport() {
 				}
 				return screen.StatusMsg{Text: "Drawing written to " + path + "."}
 			}, nil
-		}))
+		}, prompt.WithProposal()))
 }
 
 // writeSVG writes the drawing atomically (fileio.WriteAtomic): it keeps

@@ -66,8 +66,8 @@ func TestOpensWithLatticeSolved(t *testing.T) {
 		t.Errorf("view lacks %q:\n%s", want, view)
 	}
 	// The unknown row carries the textual marker, not only a colour.
-	if !strings.Contains(view, "›? Na⁺(g) + Cl⁻(g) → NaCl(s)") {
-		t.Errorf("lattice row lacks its ? marker:\n%s", view)
+	if !strings.Contains(view, "›∴ Na⁺(g) + Cl⁻(g) → NaCl(s)") {
+		t.Errorf("lattice row lacks its ∴ marker:\n%s", view)
 	}
 }
 
@@ -91,7 +91,7 @@ func TestMarkUnknownThenEditClosesOnTheOtherStep(t *testing.T) {
 	if want := -3.613 * thermo.KJPerMolPerEV; math.Abs(res.Solved.Value-want) > 10 {
 		t.Errorf("attachment-1 from the handbook lattice = %.1f, want ≈ %.1f", res.Solved.Value, want)
 	}
-	if v := m.View(); !strings.Contains(v, "? solved: attachment-1 = ") {
+	if v := m.View(); !strings.Contains(v, "∴ solved: attachment-1 = ") {
 		t.Errorf("view does not show the solved attachment:\n%s", v)
 	}
 
@@ -385,7 +385,7 @@ func TestDrawingClosesUnderU(t *testing.T) {
 	lat, _ := res.Step("lattice")
 	corr := -f.Session.Cycle.LatticeCorrection()
 	want := "lattice arrow ΔH_L " + f.Ctx.Signed(lat.Value+corr) + " = U " + f.Ctx.Signed(lat.Value)
-	arrow := "?" + strings.ReplaceAll(strconv.FormatFloat(math.Round(lat.Value+corr), 'f', 0, 64), "-", "−")
+	arrow := "∴" + strings.ReplaceAll(strconv.FormatFloat(math.Round(lat.Value+corr), 'f', 0, 64), "-", "−")
 	if strings.Contains(v, "from ΔfH°") || !strings.Contains(v, want) || !strings.Contains(v, arrow) {
 		t.Errorf("the drawing under U lacks %q or the arrow %q, or adds a formation level:\n%s", want, arrow, v)
 	}
@@ -409,7 +409,7 @@ func TestSolvedLineIsNotCut(t *testing.T) {
 		}
 		var line string
 		for _, l := range strings.Split(m.View(), "\n") {
-			if strings.HasPrefix(l, "? solved:") {
+			if strings.HasPrefix(l, "∴ solved:") {
 				line = strings.TrimRight(l, " ")
 			}
 		}
@@ -418,6 +418,37 @@ func TestSolvedLineIsNotCut(t *testing.T) {
 		}
 		if w == 160 && !strings.Contains(line, res.Solved.Label) {
 			t.Errorf("%d columns: the step's name is left out where it fits: %q", w, line)
+		}
+	}
+}
+
+// TestExportedSVGReadsAsATextbookDiagram: the SVG gives each value with
+// its uncertainty, marks a value the user typed over the data's, and names
+// the steps in words, not keys (½Cl₂ → Cl read "dissociation-anion").
+// NaCl's atomization of Na is 107.32 ± 0.18 kJ/mol (NBS 1982, the data's
+// pinned table); the attachment set here to −355 ± 5 is the user's.
+func TestExportedSVGReadsAsATextbookDiagram(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	if _, err := f.Session.Change(func(c *cycle.Cycle) error { return c.Set("attachment-1", -355, 5) }); err != nil {
+		t.Fatal(err)
+	}
+	drive.RunCmd(u, f.Session.Solve())
+	drive.Run(u, drive.Key("d"), drive.Key("enter"))
+	path := strings.TrimSuffix(strings.TrimPrefix(f.LastStatus(), "Drawing written to "), ".")
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (status %q, exporting %v)", err, f.LastStatus(), m.Exporting())
+	}
+	svg := string(b)
+	for _, want := range []string{"+107.32 ± 0.18", "* −355.0 ± 5.0 (your value)", "* your value, typed over the data's",
+		"first ionization", "dissociation", "(solved)"} {
+		if !strings.Contains(svg, want) {
+			t.Errorf("SVG lacks %q", want)
+		}
+	}
+	for _, key := range []string{">dissociation-anion<", ">attachment-1<", ">atomization-cation<"} {
+		if strings.Contains(svg, key) {
+			t.Errorf("SVG labels a step by its key %s", key)
 		}
 	}
 }

@@ -1,6 +1,7 @@
 package bench
 
 import (
+	"errors"
 	"fmt"
 	"strings"
 
@@ -67,6 +68,15 @@ func (m *Model) solvedLine() string {
 	if !m.sess.Fresh() {
 		return st.Muted.Render("solving…")
 	}
+	var unk *cycle.UnknownsError
+	if errors.As(m.sess.SolveErr, &unk) && len(unk.Keys) == 0 {
+		// Over-determined: every step has a value. Say by how much the
+		// cycle misses closing (the miss is drawn too).
+		r, u := cycle.Residual(m.sess.Cycle)
+		line := fmt.Sprintf("closure residual %s %s %s", m.ctx.Signed(r), m.ctx.Uncertainty(u), m.ctx.Units)
+		return st.Warn.Render("over-determined: ") + st.Accent.Render(line) +
+			st.Muted.Render(trunc(" (Σ of the steps − ΔfH°) · x on a step solves for it", max(0, m.w-len([]rune(line))-17)))
+	}
 	if m.sess.SolveErr != nil {
 		return st.Error.Render("not solved: ") + st.Text.Render(explainShort(m.sess.SolveErr, m.w-12))
 	}
@@ -85,7 +95,7 @@ func (m *Model) solvedLine() string {
 			extra += more
 		}
 	}
-	return st.Solved.Render("? solved: ") + st.Accent.Render(line) + st.Muted.Render(trunc(extra, room))
+	return st.Solved.Render(diagram.SolvedMark+" solved: ") + st.Accent.Render(line) + st.Muted.Render(trunc(extra, room))
 }
 
 func explainShort(err error, w int) string { return trunc(session.Explain(err), w) }
@@ -151,7 +161,7 @@ func (m *Model) listView(h int) string {
 		flag := " "
 		switch {
 		case s.Unknown || s.Source.Kind == cycle.SourceSolved:
-			flag = "?"
+			flag = diagram.SolvedMark
 		case s.Source.Kind == cycle.SourceMissing:
 			flag = "!"
 		case s.Source.Kind == cycle.SourceUser:
@@ -164,7 +174,7 @@ func (m *Model) listView(h int) string {
 		value, unc := m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty)
 		switch {
 		case s.Unknown && s.Source.Kind != cycle.SourceSolved:
-			value, unc = "?", ""
+			value, unc = "unknown", ""
 		case s.Source.Kind == cycle.SourceMissing:
 			value, unc = "missing", ""
 		}
@@ -174,14 +184,14 @@ func (m *Model) listView(h int) string {
 		switch {
 		case i == m.cursor:
 			text = st.Selected.Render(text)
-		case flag == "?":
+		case flag == diagram.SolvedMark:
 			text = st.Solved.Render(text)
 		case flag == "!":
 			text = st.Warn.Render(text)
 		}
 		lines = append(lines, text)
 	}
-	lines = append(lines, st.Muted.Render(trunc("? the unknown (solved)  ! no value in the data  * your value  └ sub-step", m.w)))
+	lines = append(lines, st.Muted.Render(trunc(diagram.SolvedMark+" the unknown (solved)  ! no value in the data  * your value  └ sub-step", m.w)))
 	return strings.Join(lines, "\n")
 }
 
@@ -230,7 +240,7 @@ func (m *Model) drawingView(h int) string {
 		return st.Muted.Render("(no room for the drawing; press v, or enlarge the window)")
 	}
 	d := hessdiagram.Build(m.sess.Cycle.Formula, m.steps(), hessdiagram.ForCycle(m.sess.Cycle, hessdiagram.Options{Units: m.ctx.Units, Limit: -1, Solved: m.sess.Solved() != nil}))
-	note := " · " + m.ctx.Units.String() + " per formula unit · ? marks the solved step · d exports SVG"
+	note := " · " + m.ctx.Units.String() + " per formula unit · " + diagram.SolvedMark + " marks the solved step · d exports SVG"
 	if lat, ok := latticeOf(m.steps(), m.sess.Solved() != nil); ok && m.showCorrection() {
 		// The drawing closes by Hess's law over ΔH_L: its lattice arrow is
 		// ΔH_L, the table's U plus the correction row.

@@ -23,9 +23,23 @@ type Arrow struct {
 	Tag string
 	// Value is the step's printed value, e.g. "+496" or "−787".
 	Value string
-	// Unknown marks the solved step: drawn heavier and prefixed with "?".
+	// Unknown marks the solved step: drawn heavier and marked SolvedMark.
 	Unknown bool
+	// Miss marks no step but the amount by which an over-determined cycle
+	// fails to close: drawn dotted between the two ends, its Value worded.
+	Miss bool
+	// Name is the step in words ("first ionization energy of Na") and
+	// Reading its value with the standard uncertainty ("+107.32 ± 0.18"),
+	// for the SVG ("" falls back to Tag and Value); User marks a value the
+	// user typed over the data's.
+	Name, Reading string
+	User          bool
 }
+
+// SolvedMark marks the solved step's value in the text drawing, in the
+// step lists and in the solved line: a mark of its own, distinct from the
+// help key "?" and from the charts' collision mark.
+const SolvedMark = "∴"
 
 // Diagram is a set of levels joined by arrows.
 type Diagram struct {
@@ -146,9 +160,16 @@ func (d Diagram) Layout(w, h int) Geometry {
 	lo, hi := d.span()
 	axisWidth := axisWidthFor(lo, hi, h)
 	g.AxisWidth = axisWidth
+	// The labels keep their whole width when the arrows can close up for
+	// it (at 80 columns they were cut: "Na⁺(g) + ½Cl₂(…").
+	labelNeed := minLabelWidth
+	for _, l := range d.Levels {
+		labelNeed = max(labelNeed, len([]rune(l.Label))+3)
+	}
+	labelNeed = min(labelNeed, w/2)
 	spacing := maxSpacing
 	if n > 0 {
-		spacing = (w - axisWidth - minLabelWidth - 2) / n
+		spacing = (w - axisWidth - labelNeed - 2) / n
 	}
 	spacing = max(minSpacing, min(maxSpacing, spacing))
 	for i := range n {
@@ -230,8 +251,11 @@ func (d Diagram) Render(w, h int, st Styles) string {
 		x := geo.Columns[a]
 		y0, y1 := geo.Rows[ar.From], geo.Rows[ar.To]
 		cls, shaft := clsArrow, '│'
-		if ar.Unknown {
+		switch {
+		case ar.Unknown:
 			cls, shaft = clsSolved, '┃'
+		case ar.Miss:
+			cls, shaft = clsSolved, '┊'
 		}
 		switch {
 		case y1 < y0: // up
@@ -255,8 +279,11 @@ func (d Diagram) Render(w, h int, st Styles) string {
 		}
 		label := ar.Value
 		cls := clsLabel
-		if ar.Unknown {
-			label, cls = "?"+label, clsSolved
+		switch {
+		case ar.Unknown:
+			label, cls = SolvedMark+label, clsSolved
+		case ar.Miss:
+			cls = clsSolved
 		}
 		x := geo.Columns[a] + 1
 		y0, y1 := geo.Rows[ar.From], geo.Rows[ar.To]
@@ -272,6 +299,9 @@ func (d Diagram) Render(w, h int, st Styles) string {
 	// Level labels in the right-hand column, with a dotted leader.
 	labelW := w - geo.LabelX - 2
 	for i, l := range d.Levels {
+		if l.Label == "" {
+			continue // the open end of an over-determined path: no state of its own
+		}
 		y := geo.Rows[i]
 		text := truncate(l.Label, labelW)
 		for _, dy := range []int{0, -1, 1, -2, 2} {

@@ -26,12 +26,12 @@ func sampleNaCl() Diagram {
 			{"NaCl(s)", -411},
 		},
 		Arrows: []Arrow{
-			{0, 1, "sub", "+107", false},
-			{1, 2, "IE1", "+496", false},
-			{2, 3, "diss", "+121", false},
-			{3, 4, "att", "−349", false},
-			{4, 5, "lattice", "−786", true},
-			{0, 5, "formation", "−411", false},
+			{0, 1, "sub", "+107", false, false, "", "", false},
+			{1, 2, "IE1", "+496", false, false, "", "", false},
+			{2, 3, "diss", "+121", false, false, "", "", false},
+			{3, 4, "att", "−349", false, false, "", "", false},
+			{4, 5, "lattice", "−786", true, false, "", "", false},
+			{0, 5, "formation", "−411", false, false, "", "", false},
 		},
 	}
 }
@@ -74,7 +74,7 @@ func TestRenderFitsAndMarksUnknown(t *testing.T) {
 				t.Errorf("%v: line %d is %d cells wide: %q", size, i, n, l)
 			}
 		}
-		if !strings.Contains(out, "?−786") {
+		if !strings.Contains(out, "∴−786") {
 			t.Errorf("%v: unknown step lacks its textual marker:\n%s", size, out)
 		}
 		if !strings.Contains(out, "▲") || !strings.Contains(out, "▼") {
@@ -118,7 +118,7 @@ func TestSVGIsWellFormedAndLabelled(t *testing.T) {
 		t.Fatalf("root element %q, want svg", root)
 	}
 	all := strings.Join(texts, " ")
-	for _, want := range []string{"NaCl", "kJ/mol", "Na⁺(g) + Cl⁻(g)", "+496", "? −786 (solved)", `elements <standard> & "states"`} {
+	for _, want := range []string{"NaCl", "kJ/mol", "Na⁺(g) + Cl⁻(g)", "+496", "∴ −786 (solved)", `elements <standard> & "states"`} {
 		if !strings.Contains(all, want) {
 			t.Errorf("SVG text lacks %q", want)
 		}
@@ -136,7 +136,7 @@ func TestNiceStep(t *testing.T) {
 
 func TestWideTickLabelsAreWhole(t *testing.T) {
 	d := Diagram{Levels: []Level{{"a", 0}, {"b", 12000}, {"c", -1700}},
-		Arrows: []Arrow{{0, 1, "up", "+12000", false}, {1, 2, "down", "−13700", true}}}
+		Arrows: []Arrow{{0, 1, "up", "+12000", false, false, "", "", false}, {1, 2, "down", "−13700", true, false, "", "", false}}}
 	out := d.Render(80, 20, Styles{})
 	if !strings.Contains(out, "+10000 ┤") {
 		t.Errorf("tick +10000 cut:\n%s", out)

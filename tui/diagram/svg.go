@@ -25,8 +25,10 @@ const (
 
 // WriteSVG writes the diagram as a standalone, well-formed SVG 1.1 document:
 // levels as lines labelled with their state and energy, arrows with
-// arrowheads and values, the unknown step dashed, in its own colour and
-// marked "?" and "(solved)" so it reads in greyscale too.
+// arrowheads, values with their uncertainties and the steps in words, the
+// unknown step dashed, in its own colour and marked with SolvedMark and
+// "(solved)" so it reads in greyscale too, a value the user typed marked
+// "*" and "(your value)".
 func (d Diagram) WriteSVG(w io.Writer) error {
 	var b bytes.Buffer
 	n := len(d.Arrows)
@@ -93,14 +95,36 @@ func (d Diagram) WriteSVG(w io.Writer) error {
 		x := col(a)
 		y0, y1 := y(d.Levels[ar.From].Energy), y(d.Levels[ar.To].Energy)
 		colour, marker, dash, label := "#1f3f5f", "head", "", ar.Value
-		if ar.Unknown {
-			colour, marker, dash, label = "#b04a00", "head-solved", ` stroke-dasharray="6,4"`, "? "+ar.Value+" (solved)"
+		if ar.Reading != "" {
+			label = ar.Reading
+		}
+		switch {
+		case ar.Unknown:
+			colour, marker, dash, label = "#b04a00", "head-solved", ` stroke-dasharray="6,4"`, SolvedMark+" "+label+" (solved)"
+		case ar.Miss:
+			colour, marker, dash = "#b04a00", "head-solved", ` stroke-dasharray="2,3"`
+		case ar.User:
+			label = "* " + label + " (your value)"
 		}
 		fmt.Fprintf(&b, `<line x1="%s" y1="%s" x2="%s" y2="%s" stroke="%s" stroke-width="2"%s marker-end="url(#%s)"/>`,
 			num(x), num(y0), num(x), num(y1), colour, dash, marker)
 		mid := (y0 + y1) / 2
 		fmt.Fprintf(&b, `<text x="%s" y="%s" fill="%s" font-weight="bold">%s</text>`, num(x+6), num(mid), colour, esc(label))
-		fmt.Fprintf(&b, `<text x="%s" y="%s" fill="#555555" font-size="11">%s</text>`+"\n", num(x+6), num(mid+14), esc(ar.Tag))
+		name := ar.Name
+		if name == "" {
+			name = ar.Tag
+		}
+		// The step in words, on short lines under the value.
+		fmt.Fprintf(&b, `<text x="%s" y="%s" fill="#555555" font-size="11">`, num(x+6), num(mid+14))
+		dy := 0.0
+		for _, line := range wrapWords(name, svgNameChars) {
+			fmt.Fprintf(&b, `<tspan x="%s" dy="%s">%s</tspan>`, num(x+6), num(dy), esc(line))
+			dy = 13
+		}
+		b.WriteString("</text>\n")
+	}
+	if d.hasUser() {
+		fmt.Fprintf(&b, `<text x="%s" y="%s" fill="#555555">* your value, typed over the data's</text>`+"\n", num(svgAxisX), num(height-12))
 	}
 	b.WriteString("</g>\n")
 	for i, n := range d.Notes {
@@ -110,6 +134,41 @@ func (d Diagram) WriteSVG(w io.Writer) error {
 	b.WriteString("</svg>\n")
 	_, err := w.Write(b.Bytes())
 	return err
+}
+
+// svgNameChars is the longest line of a step's name under its arrow.
+const svgNameChars = 16
+
+// wrapWords breaks s into lines of at most n runes at spaces (a longer
+// word stands alone).
+func wrapWords(s string, n int) []string {
+	var lines []string
+	line := ""
+	for _, w := range strings.Fields(s) {
+		switch {
+		case line == "":
+			line = w
+		case len([]rune(line))+1+len([]rune(w)) <= n:
+			line += " " + w
+		default:
+			lines = append(lines, line)
+			line = w
+		}
+	}
+	if line != "" {
+		lines = append(lines, line)
+	}
+	return lines
+}
+
+// hasUser reports whether an arrow carries a value the user typed.
+func (d Diagram) hasUser() bool {
+	for _, a := range d.Arrows {
+		if a.User {
+			return true
+		}
+	}
+	return false
 }
 
 func round1(v float64) float64 { return math.Round(v*10) / 10 }

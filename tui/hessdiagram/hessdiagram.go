@@ -116,24 +116,102 @@ func Build(formula string, steps []cycle.Step, opt Options) diagram.Diagram {
 		d.Levels = append(d.Levels, diagram.Level{Label: join(cation, anion), Energy: energy})
 		d.Arrows = append(d.Arrows, diagram.Arrow{
 			From: len(d.Levels) - 2, To: len(d.Levels) - 1, Tag: s.Key,
-			Value: value, Unknown: s.Unknown,
+			Value: value, Unknown: s.Unknown, Name: words(s), Reading: reading(s, known, opt.Units),
+			User: s.Source.Kind == cycle.SourceUser,
 		})
 	}
 	if formation != nil && limit == len(terms) {
 		a := &d.Arrows[0]
 		a.Unknown = formation.Unknown
 		a.Value = arrowValue(formation, hasValue(formation, opt.Solved), opt.Units)
+		a.Name, a.Reading = words(formation), reading(formation, hasValue(formation, opt.Solved), opt.Units)
+		a.User = formation.Source.Kind == cycle.SourceUser
 		target := thermo.FromKJPerMol(formation.Contribution(), opt.Units)
 		last := len(d.Levels) - 1
-		// Closed cycle: the formation arrow ends on the solid's level. When
-		// it does not close (nothing solved yet), it gets its own level.
+		// Closed cycle: the formation arrow ends on the solid's level.
 		if hasValue(formation, opt.Solved) && abs(target-d.Levels[last].Energy) > closeTolerance(opt.Units) {
-			d.Levels = append(d.Levels, diagram.Level{Label: product(formation) + " (from ΔfH°)", Energy: target})
-			last = len(d.Levels) - 1
+			if complete(steps, terms, opt.Solved) {
+				// Over-determined: every step has a value and the path
+				// misses the solid. The solid is drawn once, at ΔfH°;
+				// the path's open end is joined to it by the miss, the
+				// closure residual (Σ of the steps − ΔfH°).
+				end := last
+				d.Levels[end].Label = ""
+				d.Levels = append(d.Levels, diagram.Level{Label: product(formation), Energy: target})
+				last = len(d.Levels) - 1
+				d.Arrows = append(d.Arrows, diagram.Arrow{From: last, To: end, Tag: "closure residual",
+					Value: "miss " + signed(d.Levels[end].Energy-target, opt.Units), Miss: true})
+			} else {
+				// Not closed because a step has no value yet: the
+				// formation arrow gets its own level.
+				d.Levels = append(d.Levels, diagram.Level{Label: product(formation) + " (from ΔfH°)", Energy: target})
+				last = len(d.Levels) - 1
+			}
 		}
 		a.To = last
 	}
 	return d
+}
+
+// complete reports whether every term and the formation step have a value
+// of their own (none unknown, none missing): the cycle is over-determined.
+func complete(steps []cycle.Step, terms []int, solved bool) bool {
+	if solved {
+		return false
+	}
+	for i := range steps {
+		s := &steps[i]
+		if s.Unknown || s.Source.Kind == cycle.SourceMissing {
+			return false
+		}
+	}
+	return len(terms) > 0
+}
+
+// signed writes v (already in unit u) with its sign, as the arrows' values.
+func signed(v float64, u thermo.Unit) string {
+	prec := 1
+	if u == thermo.EVPerFormulaUnit {
+		prec = 3
+	}
+	str := strconv.FormatFloat(v, 'f', prec, 64)
+	if v > 0 {
+		str = "+" + str
+	}
+	return strings.Replace(str, "-", "−", 1)
+}
+
+// words names a step for a reader: its label without the parenthesis
+// ("first ionization energy of Na", "dissociation of Cl"), with the
+// multiplicity it enters the cycle with when that is not 1.
+func words(s *cycle.Step) string {
+	w, _, _ := strings.Cut(s.Label, " (")
+	switch {
+	case s.Multiplicity == 0.5:
+		w = "½ × " + w
+	case s.Multiplicity != 1:
+		w = strconv.FormatFloat(s.Multiplicity, 'g', -1, 64) + " × " + w
+	}
+	return w
+}
+
+// reading is a step's contribution with its standard uncertainty, in unit
+// u, by the one rule of thermo.UncertaintyDecimals ("+107.32 ± 0.18"); ""
+// when it has no value yet.
+func reading(s *cycle.Step, known bool, u thermo.Unit) string {
+	if !known {
+		return ""
+	}
+	v := thermo.FromKJPerMol(s.Contribution(), u)
+	value, unc := thermo.FormatWithUncertainty(v, thermo.FromKJPerMol(abs(s.Multiplicity)*s.Uncertainty, u), 1)
+	if v > 0 {
+		value = "+" + value
+	}
+	value = strings.Replace(value, "-", "−", 1)
+	if unc == "" {
+		return value
+	}
+	return value + " ± " + unc
 }
 
 func closeTolerance(u thermo.Unit) float64 { return thermo.FromKJPerMol(0.5, u) }

@@ -147,3 +147,44 @@ func TestClosesUnderU(t *testing.T) {
 		t.Errorf("title %q does not name ΔH_L and U", d.Title)
 	}
 }
+
+// TestOverDeterminedDrawsTheMiss: the solved lattice step given a value of
+// its own (−780 kJ/mol for NaCl, where Hess's law gives about −787) leaves
+// no unknown. The drawing then shows the solid once (it showed a second
+// level "NaCl(s) (from ΔfH°)"), and the miss as an arrow between the
+// path's end and it, worded with the closure residual of cycle.Residual.
+func TestOverDeterminedDrawsTheMiss(t *testing.T) {
+	db, err := data.Load()
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := cycle.Build(db, "NaCl", cycle.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := c.Set("lattice", -780, 8); err != nil {
+		t.Fatal(err)
+	}
+	d := Build("NaCl", c.Steps, Options{Units: thermo.KJPerMol, Limit: -1})
+	solids, misses := 0, 0
+	for _, l := range d.Levels {
+		if strings.Contains(l.Label, "NaCl(s)") {
+			solids++
+		}
+	}
+	r, _ := cycle.Residual(c)
+	for _, a := range d.Arrows {
+		if a.Miss {
+			misses++
+			if want := "miss " + signed(r, thermo.KJPerMol); a.Value != want {
+				t.Errorf("the miss reads %q, want %q", a.Value, want)
+			}
+			if e := d.Levels[a.To].Energy - d.Levels[a.From].Energy; math.Abs(e-r) > 1e-9 {
+				t.Errorf("the miss spans %.3f kJ/mol, the residual is %.3f", e, r)
+			}
+		}
+	}
+	if solids != 1 || misses != 1 {
+		t.Errorf("%d levels of the solid and %d misses, want one of each: %+v", solids, misses, d.Levels)
+	}
+}

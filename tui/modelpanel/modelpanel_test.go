@@ -300,3 +300,35 @@ func TestExplanationsAreNotCut(t *testing.T) {
 		}
 	}
 }
+
+// TestStructureThatDoesNotFitIsRefused: spinel (sites A, B, X) for NaCl is
+// refused in place when chosen (it was accepted, and then three models
+// said "no site has species M"), the structure stays as it was, and ←/→
+// step only through prototypes that hold the compound's ions.
+func TestStructureThatDoesNotFitIsRefused(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	before := f.Session.Cycle.Settings.Structure.Name()
+	moveTo(t, m, u, "structure")
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("spinel")...)
+	drive.Run(u, drive.Key("enter"))
+	if _, err := m.Editing(); err == nil || !strings.Contains(err.Error(), "does not fit NaCl") {
+		t.Errorf("spinel for NaCl: %v, want refused as not fitting", err)
+	}
+	drive.Run(u, drive.Key("esc"))
+	if got := f.Session.Cycle.Settings.Structure.Name(); got != before {
+		t.Errorf("structure %q after a refusal, want %q kept", got, before)
+	}
+	seen := map[string]bool{}
+	for range 15 {
+		drive.Run(u, drive.Key("right"))
+		n := f.Session.Cycle.Settings.Structure.Name()
+		if n == "spinel" || n == "perovskite" || n == "fluorite" {
+			t.Fatalf("→ stepped to %s, which cannot hold NaCl", n)
+		}
+		seen[n] = true
+	}
+	if len(seen) < 3 {
+		t.Errorf("→ stepped through %v only", seen)
+	}
+}

@@ -69,6 +69,9 @@ func settingsRows() []setting {
 				if _, err := crystal.LookupPrototype(text); err != nil {
 					return fmt.Errorf("%q is neither a prototype (%s) nor a .cif file", text, strings.Join(crystal.PrototypeNames(), ", "))
 				}
+				if err := cycle.PrototypeFits(c, text); err != nil {
+					return err // refused when chosen, not three models failing later
+				}
 				st := cycle.Structure{Prototype: text}
 				if text == c.Compound.Structure {
 					st.Params, st.FromData = c.Compound.Params, true
@@ -76,7 +79,16 @@ func settingsRows() []setting {
 				c.Settings.Structure = st
 				return nil
 			},
-			choices: func(c *cycle.Cycle) []string { return crystal.PrototypeNames() },
+			choices: func(c *cycle.Cycle) []string {
+				// Only the prototypes that can hold the compound's ions.
+				var out []string
+				for _, n := range crystal.PrototypeNames() {
+					if cycle.PrototypeFits(c, n) == nil {
+						out = append(out, n)
+					}
+				}
+				return out
+			},
 			reset: func(c *cycle.Cycle) {
 				c.Settings.Structure = cycle.Structure{Prototype: c.Compound.Structure, Params: c.Compound.Params, FromData: c.Compound.Structure != ""}
 			},

@@ -13,6 +13,10 @@ import (
 // list reuse them.
 const Glyphs = "ox+*#@%&=~"
 
+// Crowded marks a cell holding points of two groups: a mark of its own,
+// neither a group's glyph nor the help key "?" nor the solved-step mark.
+const Crowded = '‡'
+
 // Glyph returns the marker of group g.
 func Glyph(g int) rune {
 	r := []rune(Glyphs)
@@ -44,6 +48,10 @@ type Scatter struct {
 	Diagonal bool
 	// Zero keeps y = 0 in range and draws it (a reaction energy's sign).
 	Zero bool
+	// Log draws both axes on a logarithmic scale of |value| (for values
+	// of one sign spanning decades, such as lattice energies, whose
+	// crowded small end it spreads out); ticks keep the values' sign.
+	Log bool
 }
 
 const yAxisWidth = 8
@@ -56,8 +64,29 @@ func (s Scatter) Render(w, h int, st Styles) string {
 	if ph < 4 || pw < 10 {
 		return pad("(plot needs more room)", w, h)
 	}
+	// On a log scale the points are drawn at log10|v|; sign is the sign
+	// the tick labels carry back.
+	sign := 1.0
+	tr := func(v float64) float64 { return v }
+	if s.Log {
+		for _, p := range s.Points {
+			if finite(p.X) && p.X != 0 {
+				sign = math.Copysign(1, p.X)
+				break
+			}
+		}
+		tr = func(v float64) float64 {
+			if v == 0 || math.Copysign(1, v) != sign {
+				return math.NaN() // no place on this scale
+			}
+			return math.Log10(math.Abs(v))
+		}
+	}
+	pts := make([]Point, 0, len(s.Points))
 	xs, ys := make([]float64, 0, len(s.Points)), make([]float64, 0, len(s.Points))
 	for _, p := range s.Points {
+		p.X, p.Y = tr(p.X), tr(p.Y)
+		pts = append(pts, p)
 		if finite(p.X) && finite(p.Y) {
 			xs, ys = append(xs, p.X), append(ys, p.Y)
 		}
@@ -66,7 +95,7 @@ func (s Scatter) Render(w, h int, st Styles) string {
 		return pad("(nothing to plot yet)", w, h)
 	}
 	xlo, xhi := bounds(xs)
-	if s.Zero {
+	if s.Zero && !s.Log {
 		ys = append(ys, 0)
 	}
 	ylo, yhi := bounds(ys)
@@ -74,9 +103,29 @@ func (s Scatter) Render(w, h int, st Styles) string {
 		xlo, ylo = math.Min(xlo, ylo), math.Min(xlo, ylo)
 		xhi, yhi = math.Max(xhi, yhi), math.Max(xhi, yhi)
 	}
+	// Round numbers at the ends and on the ticks: the range widens to
+	// whole steps of 1, 2 or 5 × 10ⁿ (a log scale to whole decades or
+	// their 2 and 5 marks).
+	var yticks, xticks []float64
+	if s.Log {
+		xlo, xhi, xticks = logTicks(xlo, xhi)
+		ylo, yhi, yticks = logTicks(ylo, yhi)
+	} else {
+		xlo, xhi, xticks = niceTicks(xlo, xhi, 4)
+		ylo, yhi, yticks = niceTicks(ylo, yhi, max(2, ph/4))
+	}
+	label := func(v float64) string {
+		if s.Log {
+			return Tick(sign * math.Pow(10, v))
+		}
+		return Tick(v)
+	}
+	if s.Diagonal { // the widened ranges stay equal, so y = x stays the diagonal
+		ylo, yhi = xlo, xhi
+		yticks = xticks
+	}
 	col := func(x float64) int { return int(math.Round((x - xlo) / (xhi - xlo) * float64(pw-1))) }
 	row := func(y float64) int { return int(math.Round((yhi - y) / (yhi - ylo) * float64(ph-1))) }
-
 	cells := make([][]rune, ph)
 	kinds := make([][]byte, ph) // 0 blank, 1 guide, 2 point
 	for i := range cells {
@@ -91,12 +140,12 @@ func (s Scatter) Render(w, h int, st Styles) string {
 			}
 		}
 	}
-	if y := row(0); s.Zero && y >= 0 && y < ph {
+	if y := row(0); s.Zero && !s.Log && y >= 0 && y < ph {
 		for x := 0; x < pw; x++ {
 			cells[y][x], kinds[y][x] = '-', 1
 		}
 	}
-	for _, p := range s.Points {
+	for _, p := range pts {
 		if !finite(p.X) || !finite(p.Y) {
 			continue
 		}
@@ -106,25 +155,41 @@ func (s Scatter) Render(w, h int, st Styles) string {
 		}
 		g := Glyph(p.Group)
 		if kinds[y][x] == 2 && cells[y][x] != g {
-			g = '?' // two groups on one cell; the table has the numbers
+			g = Crowded // two groups on one cell; the table has the numbers
 		}
 		cells[y][x], kinds[y][x] = g, 2
 	}
 	var b strings.Builder
-	tickEvery := max(2, ph/4)
-	for y := range ph {
-		label := ""
-		if y%tickEvery == 0 || y == ph-1 {
-			label = Tick(yhi - (yhi-ylo)*float64(y)/float64(ph-1))
+	tickAt := map[int]string{}
+	for _, v := range yticks {
+		if y := row(v); y >= 0 && y < ph {
+			if _, taken := tickAt[y]; !taken {
+				tickAt[y] = label(v)
+			}
 		}
-		b.WriteString(st.Axis.Render(fmt.Sprintf("%*s ┤", yAxisWidth-2, label)))
+	}
+	for y := range ph {
+		mark := "│"
+		if _, ok := tickAt[y]; ok {
+			mark = "┤"
+		}
+		b.WriteString(st.Axis.Render(fmt.Sprintf("%*s %s", yAxisWidth-2, tickAt[y], mark)))
 		b.WriteString(renderRow(cells[y], kinds[y], st))
 		b.WriteByte('\n')
 	}
-	b.WriteString(st.Axis.Render(strings.Repeat(" ", yAxisWidth-1) + "└" + strings.Repeat("─", pw)))
+	axis := []rune(strings.Repeat("─", pw))
+	for _, v := range xticks {
+		if x := col(v); x >= 0 && x < pw {
+			axis[x] = '┬'
+		}
+	}
+	b.WriteString(st.Axis.Render(strings.Repeat(" ", yAxisWidth-1) + "└" + string(axis)))
 	b.WriteByte('\n')
-	left, right := Tick(xlo), Tick(xhi)
+	left, right := label(xlo), label(xhi)
 	mid := " " + s.XLabel + " "
+	if s.Log {
+		mid = " " + s.XLabel + ", log scale "
+	}
 	gap := pw - len([]rune(left)) - len([]rune(right)) - len([]rune(mid))
 	xl := left + strings.Repeat(" ", max(gap/2, 1)) + mid + strings.Repeat(" ", max(gap-gap/2, 1)) + right
 	b.WriteString(st.Label.Render(strings.Repeat(" ", yAxisWidth) + truncate(xl, pw)))
@@ -247,6 +312,61 @@ func legendLines(groups []string, w int) []string {
 	return lines
 }
 
+// niceTicks widens [lo, hi] to whole steps of 1, 2 or 5 × 10ⁿ, chosen for
+// about n intervals, and returns the ticks on those steps.
+func niceTicks(lo, hi float64, n int) (nlo, nhi float64, ticks []float64) {
+	step := niceStep((hi - lo) / float64(max(n, 1)))
+	nlo, nhi = math.Floor(lo/step+1e-9)*step, math.Ceil(hi/step-1e-9)*step
+	for v := nlo; v <= nhi+step/2; v += step {
+		ticks = append(ticks, math.Round(v/step)*step)
+	}
+	return nlo, nhi, ticks
+}
+
+// niceStep rounds raw up to 1, 2 or 5 times a power of ten.
+func niceStep(raw float64) float64 {
+	if !(raw > 0) || math.IsInf(raw, 0) {
+		return 1
+	}
+	p := math.Pow(10, math.Floor(math.Log10(raw)))
+	for _, m := range []float64{1, 2, 5, 10} {
+		if m*p >= raw*(1-1e-12) {
+			return m * p
+		}
+	}
+	return 10 * p
+}
+
+// logTicks widens [lo, hi] (log10 of |value|) to the 1, 2, 5 marks of the
+// decades around it and returns those marks inside.
+func logTicks(lo, hi float64) (nlo, nhi float64, ticks []float64) {
+	var marks []float64
+	for d := math.Floor(lo) - 1; d <= math.Ceil(hi)+1; d++ {
+		for _, m := range []float64{1, 2, 5} {
+			marks = append(marks, d+math.Log10(m))
+		}
+	}
+	nlo, nhi = lo, hi
+	for i := len(marks) - 1; i >= 0; i-- {
+		if marks[i] <= lo+1e-9 {
+			nlo = marks[i]
+			break
+		}
+	}
+	for _, v := range marks {
+		if v >= hi-1e-9 {
+			nhi = v
+			break
+		}
+	}
+	for _, v := range marks {
+		if v >= nlo-1e-9 && v <= nhi+1e-9 {
+			ticks = append(ticks, v)
+		}
+	}
+	return nlo, nhi, ticks
+}
+
 func bounds(v []float64) (lo, hi float64) {
 	lo, hi = v[0], v[0]
 	for _, x := range v {
@@ -264,6 +384,9 @@ func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 // Tick prints an axis value with three significant figures at most.
 func Tick(v float64) string {
 	a := math.Abs(v)
+	if a < 1e-9 {
+		return "0"
+	}
 	prec := 0
 	switch {
 	case a < 1:

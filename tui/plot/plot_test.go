@@ -1,6 +1,9 @@
 package plot
 
 import (
+	"math"
+	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 	"unicode/utf8"
@@ -91,5 +94,43 @@ func TestScatterZeroLine(t *testing.T) {
 	}
 	if s.Zero = false; strings.Count(s.Render(50, 14, Styles{}), "-") > 10 {
 		t.Errorf("a zero line drawn without Zero")
+	}
+}
+
+// TestScatterTicksAreRound: the axis ends and every tick are whole steps of
+// 1, 2 or 5 × 10ⁿ (they read −3758 and −7524), the axes reach every point,
+// and a log scale labels the 1, 2, 5 marks of each decade with the values'
+// sign (common practice for chart axes, no source).
+func TestScatterTicksAreRound(t *testing.T) {
+	pts := []Point{{X: -3758, Y: -3600}, {X: -7524, Y: -7300}, {X: -690, Y: -700}, {X: -15100, Y: -14800}}
+	round := regexp.MustCompile(`^(0|−?[1-9][0-9]?0*)$`) // at most two significant figures
+	for _, log := range []bool{false, true} {
+		out := Scatter{Points: pts, Diagonal: true, XLabel: "x", Log: log}.Render(80, 20, Styles{})
+		lines := strings.Split(out, "\n")
+		ticks := 0
+		for _, l := range lines {
+			if label := strings.TrimSpace(strings.SplitN(l, "┤", 2)[0]); strings.Contains(l, "┤") {
+				if !round.MatchString(label) {
+					t.Errorf("log=%v: tick %q is not a round number:\n%s", log, label, out)
+				}
+				ticks++
+			}
+		}
+		if ticks < 2 {
+			t.Errorf("log=%v: %d ticks:\n%s", log, ticks, out)
+		}
+		var xl string
+		for _, l := range lines {
+			if strings.Contains(l, " x") {
+				xl = l
+			}
+		}
+		f := strings.Fields(strings.ReplaceAll(xl, "−", "-"))
+		lo, _ := strconv.ParseFloat(f[0], 64)
+		hi, _ := strconv.ParseFloat(f[len(f)-1], 64)
+		small, big := math.Min(math.Abs(lo), math.Abs(hi)), math.Max(math.Abs(lo), math.Abs(hi))
+		if small > 690 || big < 15100 || !round.MatchString(strings.ReplaceAll(f[0], "-", "−")) {
+			t.Errorf("log=%v: x axis %v … %v does not reach the points or is not round: %q", log, lo, hi, xl)
+		}
 	}
 }

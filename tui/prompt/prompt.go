@@ -1,6 +1,8 @@
 package prompt
 
 import (
+	"fmt"
+	"slices"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/key"
@@ -16,6 +18,8 @@ import (
 // KeyMap is the prompt's keys.
 type KeyMap struct {
 	Submit, Cancel key.Binding
+	// Prev and Next move through the choices, when the prompt has any.
+	Prev, Next key.Binding
 }
 
 // DefaultKeyMap returns the prompt's keys.
@@ -23,6 +27,8 @@ func DefaultKeyMap() KeyMap {
 	return KeyMap{
 		Submit: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "accept")),
 		Cancel: key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel")),
+		Prev:   key.NewBinding(key.WithKeys("up"), key.WithHelp("↑", "previous choice")),
+		Next:   key.NewBinding(key.WithKeys("down"), key.WithHelp("↓", "next choice")),
 	}
 }
 
@@ -54,6 +60,19 @@ func WithSubmitHelp(desc string) Option {
 	return func(m *Model) { m.KeyMap.Submit.SetHelp(m.KeyMap.Submit.Help().Key, desc) }
 }
 
+// WithProposal makes the initial answer a proposal: enter accepts it as
+// it is, the first character typed replaces it whole (it is not appended
+// to), and a key that moves or deletes within it edits it instead.
+func WithProposal() Option { return func(m *Model) { m.proposed = m.input.Value() != "" } }
+
+// WithChoices lists answers to pick from under the input (the files there
+// are, for example): those containing the typed text are shown, the keys
+// Prev and Next put one into the input as a proposal.
+func WithChoices(choices []string) Option { return func(m *Model) { m.choices = choices } }
+
+// maxChoicesShown bounds the lines the choices take under the input.
+const maxChoicesShown = 6
+
 // Model is an open prompt.
 type Model struct {
 	KeyMap KeyMap
@@ -63,10 +82,14 @@ type Model struct {
 
 	input  textinput.Model
 	accept Accept
-	err    error
-	done   bool
-	width  int
-	styles *theme.Styles
+	// proposed is true while the text is a proposal that typing replaces.
+	proposed bool
+	// choices are the answers offered.
+	choices []string
+	err     error
+	done    bool
+	width   int
+	styles  *theme.Styles
 }
 
 // New opens a prompt with an initial answer; limit bounds its length.
@@ -103,11 +126,56 @@ func (m *Model) SetWidth(w int) {
 	}
 }
 
-// ShortHelp lists the prompt's keys (the help.KeyMap interface).
-func (m *Model) ShortHelp() []key.Binding { return m.KeyMap.ShortHelp() }
+// ShortHelp lists the prompt's keys (the help.KeyMap interface), with
+// the choice keys when there are choices.
+func (m *Model) ShortHelp() []key.Binding {
+	if len(m.choices) > 0 {
+		return []key.Binding{m.KeyMap.Submit, m.KeyMap.Prev, m.KeyMap.Next, m.KeyMap.Cancel}
+	}
+	return m.KeyMap.ShortHelp()
+}
 
 // FullHelp lists the prompt's keys (the help.KeyMap interface).
-func (m *Model) FullHelp() [][]key.Binding { return m.KeyMap.FullHelp() }
+func (m *Model) FullHelp() [][]key.Binding { return [][]key.Binding{m.ShortHelp()} }
+
+// Proposed reports whether the text is still a proposal typing replaces.
+func (m *Model) Proposed() bool { return m.proposed }
+
+// shownChoices returns the choices containing the typed text (all of them
+// while the text is a proposal or a picked choice).
+func (m *Model) shownChoices() []string {
+	if m.proposed {
+		return m.choices
+	}
+	var out []string
+	typed := strings.ToLower(strings.TrimSpace(m.input.Value()))
+	for _, c := range m.choices {
+		if strings.Contains(strings.ToLower(c), typed) {
+			out = append(out, c)
+		}
+	}
+	return out
+}
+
+// pick moves the choice by step and puts it into the input, as a proposal.
+func (m *Model) pick(step int) {
+	shown := m.shownChoices()
+	if len(shown) == 0 {
+		return
+	}
+	i := slices.Index(shown, m.input.Value())
+	switch {
+	case i < 0 && step < 0:
+		i = len(shown) - 1
+	case i < 0:
+		i = 0
+	default:
+		i = min(max(i+step, 0), len(shown)-1)
+	}
+	m.input.SetValue(shown[i])
+	m.input.CursorEnd()
+	m.proposed, m.err = true, nil
+}
 
 // Update handles a key; other messages go to the text input.
 func (m *Model) Update(msg tea.Msg) tea.Cmd {
@@ -124,6 +192,18 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 			}
 			m.err, m.done = nil, true
 			return cmd
+		case len(m.choices) > 0 && key.Matches(k, m.KeyMap.Prev):
+			m.pick(-1)
+			return nil
+		case len(m.choices) > 0 && key.Matches(k, m.KeyMap.Next):
+			m.pick(+1)
+			return nil
+		}
+		if m.proposed {
+			m.proposed = false
+			if k.Type == tea.KeyRunes || k.Type == tea.KeySpace {
+				m.input.SetValue("") // typing replaces the proposal
+			}
 		}
 	}
 	before := m.input.Value()
@@ -163,6 +243,19 @@ func (m *Model) View() string {
 		in.Width += lipgloss.Width(in.Prompt)
 	}
 	lines = append(lines, in.View())
+	if shown := m.shownChoices(); len(shown) > 0 {
+		for i, c := range shown {
+			if i == maxChoicesShown {
+				lines = append(lines, st.Muted.Render(fmt.Sprintf("    … %d more (type to narrow)", len(shown)-i)))
+				break
+			}
+			mark := "  "
+			if c == in.Value() {
+				mark = "› "
+			}
+			lines = append(lines, st.Muted.Render("  "+mark+c))
+		}
+	}
 	switch {
 	case m.err != nil:
 		refusal := st.Error.Render("✗ not accepted: ") + st.Text.Render(m.err.Error())

@@ -24,6 +24,9 @@ type inputGate struct {
 	maxBurst int
 	// onDrop is told of each dropped read, and whether it starts a burst.
 	onDrop func(bytes int, burstStart bool)
+	// now is the clock the burst rule reads (time.Now; a fake one in the
+	// fuzz test, so that what is dropped follows from the input alone).
+	now func() time.Time
 
 	lastInput atomic.Int64 // UnixNano of the last accepted read
 
@@ -33,14 +36,20 @@ type inputGate struct {
 }
 
 func newInputGate(src io.Reader, maxBurst int, onDrop func(bytes int, burstStart bool)) *inputGate {
+	return newInputGateClock(src, maxBurst, onDrop, time.Now)
+}
+
+// newInputGateClock is newInputGate reading the time from now.
+func newInputGateClock(src io.Reader, maxBurst int, onDrop func(bytes int, burstStart bool), now func() time.Time) *inputGate {
 	g := &inputGate{
+		now:      now,
 		chunks:   make(chan []byte, 4),
 		closed:   make(chan struct{}),
 		gone:     make(chan struct{}),
 		maxBurst: maxBurst,
 		onDrop:   onDrop,
 	}
-	g.lastInput.Store(time.Now().UnixNano())
+	g.lastInput.Store(now().UnixNano())
 	go g.pump(src)
 	return g
 }
@@ -55,7 +64,7 @@ func (g *inputGate) pump(src io.Reader) {
 	for {
 		n, err := src.Read(buf)
 		if n > 0 {
-			now := time.Now()
+			now := g.now()
 			if n > g.maxBurst || (!droppedAt.IsZero() && now.Sub(droppedAt) < burstQuiet) {
 				first := droppedAt.IsZero() || now.Sub(droppedAt) >= burstQuiet
 				droppedAt = now

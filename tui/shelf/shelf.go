@@ -59,7 +59,7 @@ func New(ctx *screen.Context) *Model {
 	}
 	ti := screen.NewInput(ctx.Styles, ctx.MaxInputLen)
 	ti.Prompt = "formula or filter › "
-	ti.Placeholder = "filter, or a new formula + ctrl+g"
+	ti.Placeholder = "filter (empty: q quits, 1–6 screens)"
 	ti.Focus()
 	m.input = ti
 	var compounds []data.Compound
@@ -92,8 +92,13 @@ func (m *Model) Init() tea.Cmd { return nil }
 // Title is the screen's name.
 func (m *Model) Title() string { return "Shelf" }
 
-// Capturing is always true: the filter line takes every printable key.
-func (m *Model) Capturing() bool { return true }
+// Capturing is true while the filter holds text: it then takes every
+// printable key. While it is empty the workshop's printable keys act (q
+// quits, 1–6 switch screens, u the units, ? the key list), as the
+// placeholder says; a filter never starts with one of them in practice
+// (formulas and names start with a letter, and q and u begin none of the
+// data's formulas).
+func (m *Model) Capturing() bool { return m.input.Value() != "" }
 
 // SetSize sets the body size.
 func (m *Model) SetSize(w, h int) {

@@ -8,6 +8,7 @@ type KeyMap struct {
 	First, Last                key.Binding
 	Filter, Sort, Reverse      key.Binding
 	Model, View, Open          key.Binding
+	Scale                      key.Binding
 	Done, Clear                key.Binding
 }
 
@@ -26,6 +27,7 @@ func DefaultKeyMap() KeyMap {
 		Model:    key.NewBinding(key.WithKeys("m"), key.WithHelp("m", "next model for gap and chart")),
 		View:     key.NewBinding(key.WithKeys("p"), key.WithHelp("p", "table → model vs cycle → gap by family")),
 		Open:     key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "open the compound's cycle")),
+		Scale:    key.NewBinding(key.WithKeys("l"), key.WithHelp("l", "log ⇄ linear axes")),
 		Done:     key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "keep the filter")),
 		Clear:    key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "clear the filter")),
 	}

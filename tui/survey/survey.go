@@ -46,6 +46,7 @@ type Model struct {
 	reverse   bool
 	model     int // index into cycle.ModelNames()
 	view      int
+	logScale  bool // the chart's axes on a log scale of |value|
 	filtering bool
 	filter    textinput.Model
 	w, h      int
@@ -94,13 +95,20 @@ func (m *Model) ShortHelp() []key.Binding {
 	if m.filtering {
 		return []key.Binding{k.Done, k.Clear}
 	}
+	if m.view == viewScatter {
+		return []key.Binding{k.Scale, k.Model, k.View, k.Filter}
+	}
 	return []key.Binding{k.Open, k.Filter, k.Sort, k.Model, k.View}
 }
 
 // FullHelp lists every key.
 func (m *Model) FullHelp() [][]key.Binding {
 	k := m.KeyMap
-	return [][]key.Binding{{k.Up, k.Down, k.PageUp, k.PageDown, k.First, k.Last}, {k.Filter, k.Sort, k.Reverse}, {k.Model, k.View, k.Open}}
+	last := []key.Binding{k.Model, k.View, k.Open}
+	if m.view == viewScatter {
+		last = append(last, k.Scale) // only the chart has axes to change
+	}
+	return [][]key.Binding{{k.Up, k.Down, k.PageUp, k.PageDown, k.First, k.Last}, {k.Filter, k.Sort, k.Reverse}, last}
 }
 
 // Update handles keys and the computed rows.
@@ -181,6 +189,8 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		}
 	case key.Matches(k, km.View):
 		m.view = (m.view + 1) % viewCount
+	case m.view == viewScatter && key.Matches(k, km.Scale):
+		m.logScale = !m.logScale
 	case key.Matches(k, km.Open):
 		if len(m.shown) == 0 {
 			return nil
@@ -467,8 +477,8 @@ func (m *Model) scatter(h int) string {
 		r := &m.rows[j]
 		pts = append(pts, plot.Point{X: m.conv(r.Cycle), Y: m.conv(r.Models[m.model]), Group: group[j]})
 	}
-	s := plot.Scatter{Points: pts, Groups: fams, XLabel: "cycle lattice (" + m.ctx.Units.String() + ")", Diagonal: true}
-	title := st.Muted.Render(trunc(m.ModelName()+" (up) against the cycle (across); dots: model = cycle; ? two groups on one cell; / filters", m.w))
+	s := plot.Scatter{Points: pts, Groups: fams, XLabel: "cycle lattice (" + m.ctx.Units.String() + ")", Diagonal: true, Log: m.logScale}
+	title := st.Muted.Render(trunc(m.ModelName()+" (up) against the cycle (across); dots: model = cycle; "+string(plot.Crowded)+" two groups on one cell; l log/linear; / filters", m.w))
 	return title + "\n" + s.Render(m.w, h-1, plot.Styles{Axis: st.Muted, Point: st.Accent, Guide: st.Rule, Label: st.Text})
 }
 

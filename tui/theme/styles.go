@@ -31,7 +31,7 @@ type Styles struct {
 	// Selected is the highlighted row of a list or table (bold as well as
 	// a background, so it still shows without colour).
 	Selected lipgloss.Style
-	// Solved marks the unknown (solved) term; always paired with a "?" marker.
+	// Solved marks the unknown (solved) term; always paired with the marker diagram.SolvedMark.
 	Solved lipgloss.Style
 	// Error and Warn are messages; they are always prefixed with a word.
 	Error lipgloss.Style
