@@ -58,6 +58,13 @@ func writeExtended(w io.Writer, r *cycle.Result, u thermo.Unit) {
 			}
 			fmt.Fprintf(w, "    %s = %g %s (%s%s)\n", k.Name, k.Value, k.Unit, k.Source, mem)
 		}
+		seen := map[string]bool{}
+		for _, k := range b.Coefficients {
+			if !seen[k.Source] && k.Citation != "" {
+				seen[k.Source] = true
+				fmt.Fprintf(w, "  %s: %s\n", k.Source, wrapText(k.Citation, 92, ind))
+			}
+		}
 	}
 }
 

@@ -1,0 +1,83 @@
+package cli
+
+import (
+	"encoding/json"
+	"strings"
+	"testing"
+
+	"enthalpath/cycle"
+)
+
+// The validation report: every model, every family, the verdict's model per
+// family, and the compounds left out, in JSON; its alkali-halide figures
+// are those the verdict's thresholds quote.
+func TestTrustJSON(t *testing.T) {
+	out, errOut, code := run(t, "trust", "--json")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc struct {
+		Compounds int `json:"compounds_closing"`
+		Models    []struct {
+			Model    string `json:"model"`
+			Families []struct {
+				Family string   `json:"family"`
+				N      int      `json:"n"`
+				RMS    *float64 `json:"rms_gap_percent"`
+			} `json:"families"`
+			Thresholds   string            `json:"verdict_thresholds"`
+			NotEvaluated []json.RawMessage `json:"not_evaluated"`
+		} `json:"models"`
+		Reference map[string]string `json:"verdict_model_without_extended"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatalf("%v\n%s", err, out)
+	}
+	if doc.Compounds < 100 || len(doc.Models) != len(cycle.ModelNames()) {
+		t.Fatalf("%d compounds, %d models", doc.Compounds, len(doc.Models))
+	}
+	for _, m := range doc.Models {
+		if len(m.Families) != len(cycle.ValidationFamilies()) {
+			t.Errorf("%s: %d families", m.Model, len(m.Families))
+		}
+		if f := m.Families[0]; f.Family != cycle.FamilyAlkaliHalides || f.N < 17 || f.RMS == nil || *f.RMS <= 0 {
+			t.Errorf("%s: alkali halides %+v", m.Model, f)
+		}
+	}
+	for _, fam := range cycle.ValidationFamilies() {
+		if doc.Reference[fam] == "" {
+			t.Errorf("no verdict model for %s", fam)
+		}
+	}
+	// The verdict of NaCl quotes the extended model's thresholds.
+	cyc, _, _ := run(t, "cycle", "NaCl", "--json")
+	var c struct {
+		Verdict struct {
+			Model      string `json:"model"`
+			Thresholds string `json:"thresholds"`
+		} `json:"verdict"`
+	}
+	if err := json.Unmarshal([]byte(cyc), &c); err != nil {
+		t.Fatal(err)
+	}
+	for _, m := range doc.Models {
+		if m.Model == cycle.ModelExtended && (c.Verdict.Model != m.Model || c.Verdict.Thresholds != m.Thresholds) {
+			t.Errorf("NaCl verdict %+v, the report says %q", c.Verdict, m.Thresholds)
+		}
+	}
+}
+
+// The cycle command prints the extended model's terms with the sources of
+// its coefficients.
+func TestCycleShowsExtendedBreakdown(t *testing.T) {
+	out, errOut, code := run(t, "cycle", "NaCl")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	for _, want := range []string{"extended model, per term", "Coulomb (Ewald)", "repulsion", "dispersion C/r⁶", "zero-point", "n·RT to ΔH_L",
+		"ρ = 0.317 Å (fumi-tosi1964, from memory)", "verdict: ionic model adequate, read against the extended model"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("cycle NaCl lacks %q", want)
+		}
+	}
+}
