@@ -527,16 +527,26 @@ func (b *builder) shannon(r record) error {
 	return nil
 }
 
-func (b *builder) ionValue(r record) error {
+// rowIon returns the ion a row's "ion" column names. An ion missing from
+// the ion table is a problem of that row (b.problem decides whether it
+// stops the load); found is false then and err what b.problem returned.
+func (b *builder) rowIon(r record) (ion *Ion, found bool, err error) {
 	sym, err := r.requiredStr("ion")
 	if err != nil {
-		return err
+		return nil, false, err
 	}
 	i, ok := b.db.ionIdx[sym]
 	if !ok {
-		return b.problem(r.errorf("ion", "ion %q is not in the ion table", sym))
+		return nil, false, b.problem(r.errorf("ion", "ion %q is not in the ion table", sym))
 	}
-	ion := &b.db.ions[i]
+	return &b.db.ions[i], true, nil
+}
+
+func (b *builder) ionValue(r record) error {
+	ion, found, err := b.rowIon(r)
+	if !found {
+		return err
+	}
 	prop, err := r.requiredStr("property")
 	if err != nil {
 		return err
@@ -572,7 +582,7 @@ func (b *builder) ionValue(r record) error {
 		for j := range ion.Hydrations {
 			if ion.Hydrations[j].Scale == scale {
 				if !b.overlay {
-					return r.errorf("scale", "%s hydration on the %s scale listed twice", sym, scale)
+					return r.errorf("scale", "%s hydration on the %s scale listed twice", r.str("ion"), scale)
 				}
 				b.set(&ion.Hydrations[j].Value, v)
 				return nil

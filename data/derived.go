@@ -76,15 +76,11 @@ func cloneDerived(d DerivedIon) DerivedIon {
 // derivedIon applies one row of derived_ions.csv (or a [[derived_ion]]
 // overlay entry, whose given fields replace those of the built-in row).
 func (b *builder) derivedIon(r record) error {
-	sym, err := r.requiredStr("ion")
-	if err != nil {
+	ion, found, err := b.rowIon(r)
+	if !found {
 		return err
 	}
-	i, ok := b.db.ionIdx[sym]
-	if !ok {
-		return b.problem(r.errorf("ion", "ion %q is not in the ion table", sym))
-	}
-	sym = b.db.ions[i].Symbol
+	sym := ion.Symbol
 	if b.db.derived == nil {
 		b.db.derived = map[string]DerivedIon{}
 	}
