@@ -33,6 +33,9 @@ var layers = []layer{
 	{prefix: "enthalpath/cycle", may: []string{"enthalpath/thermo", "enthalpath/data"}},
 	{prefix: "enthalpath/cycle/cli", may: []string{"enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
 	{prefix: "enthalpath/tui", may: []string{"enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
+	// The workshop's runners answer to the command line's table (its Env,
+	// usage errors, help and exit codes); cycle/cli never imports them.
+	{prefix: "enthalpath/tui/launch", may: []string{"enthalpath/tui", "enthalpath/cycle/cli", "enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
 	{prefix: "enthalpath", may: []string{"*"}}, // main wires the front ends together
 	// Reading and writing the files a user names (size caps, regular files
 	// only, atomic saves): the CIF reader and the data overlay need it, so
@@ -186,6 +189,9 @@ func TestArrowRules(t *testing.T) {
 		{"enthalpath/tui/bench", "enthalpath/tui/screen", true},
 		{"enthalpath/tui/bench", "enthalpath/cycle/cli", false},
 		{"enthalpath/cycle/cli", "enthalpath/cycle/analysis", true},
+		{"enthalpath/tui/launch", "enthalpath/cycle/cli", true}, // the runners answer to the command table
+		{"enthalpath/tui/launch", "enthalpath/tui", true},
+		{"enthalpath/cycle/cli", "enthalpath/tui/launch", false},
 		{"enthalpath", "enthalpath/tui", true},
 		{"enthalpath", "enthalpath/cycle/cli", true},
 		{"enthalpath/data", "enthalpath/thermo/fileio", true}, // the leaf every layer may use
