@@ -14,7 +14,9 @@ import (
 
 // The arrows of DEVELOPERS.md § Architecture, as rules on import paths of
 // this module. Each rule names the layer a package belongs to (the longest
-// matching prefix) and the layers it may import.
+// matching prefix) and the layers it may import. The picture in
+// DEVELOPERS.md is drawn from these rules and the imports themselves
+// (TestArchitecturePicture), top layer first.
 //
 //	front ends (main, tui, cycle/cli) → cycle → thermo, data
 //	data imports nothing of the project's physics; nothing imports tui;
@@ -28,15 +30,15 @@ type layer struct {
 }
 
 var layers = []layer{
-	{prefix: "enthalpath/thermo", may: nil},
-	{prefix: "enthalpath/data", may: nil},
-	{prefix: "enthalpath/cycle", may: []string{"enthalpath/thermo", "enthalpath/data"}},
-	{prefix: "enthalpath/cycle/cli", may: []string{"enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
-	{prefix: "enthalpath/tui", may: []string{"enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
+	{prefix: "enthalpath", may: []string{"*"}}, // main wires the front ends together
 	// The workshop's runners answer to the command line's table (its Env,
 	// usage errors, help and exit codes); cycle/cli never imports them.
 	{prefix: "enthalpath/tui/launch", may: []string{"enthalpath/tui", "enthalpath/cycle/cli", "enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
-	{prefix: "enthalpath", may: []string{"*"}}, // main wires the front ends together
+	{prefix: "enthalpath/tui", may: []string{"enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
+	{prefix: "enthalpath/cycle/cli", may: []string{"enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
+	{prefix: "enthalpath/cycle", may: []string{"enthalpath/thermo", "enthalpath/data"}},
+	{prefix: "enthalpath/data", may: nil},
+	{prefix: "enthalpath/thermo", may: nil},
 	// Reading and writing the files a user names (size caps, regular files
 	// only, atomic saves): the CIF reader and the data overlay need it, so
 	// it sits at the bottom, importing nothing of the project.
