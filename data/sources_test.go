@@ -63,7 +63,9 @@ func numbersIn(line string) []float64 {
 //     shifted by a whole multiple of 5/2·RT = 6.197 kJ/mol (the electron
 //     convention, converted once by the generator);
 //   - nist-asd, crc2014-ea: the value as printed;
-//   - shannon1976: 100 × the radius in Å is one of the line's radii in pm.
+//   - shannon1976: 100 × the radius in Å is one of the line's radii in pm;
+//   - ciaaw: the atomic weight as printed;
+//   - crc2014-inorganic: 1000 × the density in g/cm³ is the line's kg/m³.
 func TestValuesAtTheirLocators(t *testing.T) {
 	db := mustLoad(t)
 	pinned := pinnedLines{}
@@ -104,6 +106,10 @@ func TestValuesAtTheirLocators(t *testing.T) {
 			for _, x := range numbersIn(line) {
 				found = found || math.Abs(x-100*v.V) < 1e-6
 			}
+		case "crc2014-inorganic":
+			for _, x := range numbersIn(line) {
+				found = found || math.Abs(x-1000*v.V) < 1e-6 // kg/m³ in the file
+			}
 		default:
 			for _, x := range numbersIn(line) {
 				found = found || math.Abs(x-v.V) < 1e-9
@@ -118,6 +124,7 @@ func TestValuesAtTheirLocators(t *testing.T) {
 		check(e.Symbol+" atomization", e.Atomization)
 		check(e.Symbol+" S°", e.StandardEntropy)
 		check(e.Symbol+" EA", e.ElectronAffinity)
+		check(e.Symbol+" atomic weight", e.AtomicMass)
 		for i, v := range e.Ionization {
 			check(e.Symbol+" IE"+strconv.Itoa(i+1), v)
 		}
@@ -139,6 +146,7 @@ func TestValuesAtTheirLocators(t *testing.T) {
 		check(c.Formula+" formation", c.Formation)
 		check(c.Formula+" ΔfG°", c.GibbsFormation)
 		check(c.Formula+" S°", c.Entropy)
+		check(c.Formula+" density", c.Density)
 		for _, a := range c.Alternatives {
 			check(c.Formula+" formation (other compilation)", a)
 		}
@@ -152,7 +160,7 @@ func TestValuesAtTheirLocators(t *testing.T) {
 		}
 	}
 	t.Logf("values found at their locators, by source: %v", checked)
-	for _, src := range []string{"nbs1982", "nasa-glenn", "atct1.112", "nist-asd", "crc2014-ea", "shannon1976"} {
+	for _, src := range []string{"nbs1982", "nasa-glenn", "atct1.112", "nist-asd", "crc2014-ea", "shannon1976", "ciaaw", "crc2014-inorganic"} {
 		if checked[src] == 0 {
 			t.Errorf("no value of %s was checked at its locator", src)
 		}

@@ -26,6 +26,9 @@ import (
 //     from its standard state.
 //   - ionname: key an ion symbol, value its name in compound names.
 //   - noweight: key an element given no atomic weight (no stable isotope).
+//   - crcname: key a formula, value the compound's name in the CRC table
+//     of physical constants (crc-inorganic/) where it differs from ours
+//     beyond the spellings crcKey evens out.
 //   - spelling: key an ion symbol, value other ways the NBS tables write
 //     it in a formula, separated by ";" (a formula must name both its
 //     ions, or it is read as a molecule and left out).

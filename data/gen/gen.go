@@ -19,6 +19,8 @@ const (
 	keyASD      = "nist-asd"
 	keyCRCEA    = "crc2014-ea"
 	keyShannon  = "shannon1976"
+	keyCIAAW    = "ciaaw"
+	keyCRCInorg = "crc2014-inorganic"
 	thermalRT   = 6.197 // 5/2·R·298.15 K in kJ/mol, as the NBS tables print it for e⁻
 	maxIonStage = 8
 )
@@ -31,6 +33,7 @@ type generator struct {
 	nbsIdx  map[string][]int // formula → rows (all states)
 	nasa    []nasaSpecies
 	atct    map[string]atctSpecies
+	crc     map[string]crcRow // CRC physical constants by crcKey of the name
 	choices *choices
 
 	warnings []string
@@ -54,6 +57,9 @@ func newGenerator(sourcesDir, keptDir, tablesDir string) (*generator, error) {
 		return nil, err
 	}
 	if g.atct, err = readATcT(sourcesDir); err != nil {
+		return nil, err
+	}
+	if g.crc, err = readCRCInorganic(sourcesDir); err != nil {
 		return nil, err
 	}
 	if g.choices, err = readChoices(filepath.Join(keptDir, "choices.csv")); err != nil {
