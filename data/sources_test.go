@@ -2,6 +2,7 @@ package data
 
 import (
 	"bufio"
+	"maps"
 	"math"
 	"os"
 	"path/filepath"
@@ -66,10 +67,20 @@ func numbersIn(line string) []float64 {
 //   - shannon1976: 100 × the radius in Å is one of the line's radii in pm;
 //   - ciaaw: the atomic weight as printed;
 //   - crc2014-inorganic: 1000 × the density in g/cm³ is the line's kg/m³.
+//
+// correctedAtLocator lists the values the generator corrects on purpose (a
+// slip of the vendored copy, data/gen/choices.csv): they are not at their
+// locator as printed, and each must be checked as not found there.
+var correctedAtLocator = map[string]string{
+	"Ce4+ radius X":          "radiusslip: the copy prints 97 pm, Shannon's table 107 pm (crystal 121 − 14)",
+	"Cu3+ crystal radius VI": "radiusslip: the copy prints 60 pm, Shannon's table 68 pm (ionic 54 + 14)",
+}
+
 func TestValuesAtTheirLocators(t *testing.T) {
 	db := mustLoad(t)
 	pinned := pinnedLines{}
 	checked := map[string]int{}
+	pendingCorrections := maps.Clone(correctedAtLocator)
 	check := func(what string, v Value) {
 		if v.Locator == "" || !v.Known() {
 			return
@@ -116,6 +127,13 @@ func TestValuesAtTheirLocators(t *testing.T) {
 			}
 		}
 		checked[v.Source]++
+		if reason, corrected := correctedAtLocator[what]; corrected {
+			if found {
+				t.Errorf("%s is listed as corrected (%s) but stands at %s as printed", what, reason, v.Locator)
+			}
+			delete(pendingCorrections, what)
+			return
+		}
 		if !found {
 			t.Errorf("%s = %g [%s] not found at %s: %q", what, v.V, v.Source, v.Locator, line)
 		}
@@ -158,6 +176,9 @@ func TestValuesAtTheirLocators(t *testing.T) {
 		for _, a := range sp.Alternatives {
 			check(sp.Formula+" formation (other compilation)", a)
 		}
+	}
+	for what := range pendingCorrections {
+		t.Errorf("correctedAtLocator lists %s, which was not checked: remove it", what)
 	}
 	t.Logf("values found at their locators, by source: %v", checked)
 	for _, src := range []string{"nbs1982", "nasa-glenn", "atct1.112", "nist-asd", "crc2014-ea", "shannon1976", "ciaaw", "crc2014-inorganic"} {

@@ -182,21 +182,53 @@ func (g *generator) shannon() (*table, error) {
 		}
 		cr, _ := strconv.ParseFloat(c["crystal_radius"], 64)
 		spin := map[string]string{"High Spin": "HS", "Low Spin": "LS", "HS": "HS", "LS": "LS"}[c["spin"]]
+		note := ""
+		if ch, ok := g.choices.get("radiusslip", strings.Join([]string{c["symbol"], c["charge"], c["coordination"], spin}, "|")); ok {
+			var err error
+			if ir, cr, note, err = correctRadius(ch, ir, cr); err != nil {
+				return nil, err
+			}
+		}
 		key := c["symbol"] + c["charge"] + c["coordination"] + spin
 		if seen[key] {
 			g.warnf("shannon: %s listed twice; the first row kept", key)
 			continue
 		}
 		seen[key] = true
-		note := ""
 		if c["origin"] != "" {
-			note = "origin code " + c["origin"]
+			note = strings.TrimPrefix(note+"; origin code "+c["origin"], "; ")
 		}
 		t.add(map[string]string{"core": c["symbol"], "charge": c["charge"], "cn": c["coordination"], "spin": spin,
 			"crystal_radius": num(round6(cr / 100)), "ionic_radius": num(round6(ir / 100)), "source": keyShannon,
 			"locator": locator(shannonFile, r.Line), "note": note})
 	}
 	return t, nil
+}
+
+// correctRadius applies a radiusslip choice ("ionic_radius;97;107", pm) to
+// the radii of a Shannon row, once the row is seen to print the wrong
+// value still, and returns the note that says so.
+func correctRadius(ch choice, ir, cr float64) (float64, float64, string, error) {
+	parts := strings.Split(ch.value, ";")
+	if len(parts) != 3 {
+		return 0, 0, "", fmt.Errorf("choices.csv:%d: radiusslip value must be \"column;printed;corrected\"", ch.line)
+	}
+	printed, err1 := strconv.ParseFloat(parts[1], 64)
+	fixed, err2 := strconv.ParseFloat(parts[2], 64)
+	if err1 != nil || err2 != nil {
+		return 0, 0, "", fmt.Errorf("choices.csv:%d: radiusslip: not numbers", ch.line)
+	}
+	target := &ir
+	if parts[0] == "crystal_radius" {
+		target = &cr
+	} else if parts[0] != "ionic_radius" {
+		return 0, 0, "", fmt.Errorf("choices.csv:%d: radiusslip: unknown column %q", ch.line, parts[0])
+	}
+	if math.Abs(*target-printed) > 1e-6 {
+		return 0, 0, "", fmt.Errorf("choices.csv:%d: radiusslip: the file prints %g pm, not %g: check the correction", ch.line, *target, printed)
+	}
+	*target = fixed
+	return ir, cr, fmt.Sprintf("%s corrected from the copy's %g pm (a radiusslip choice in data/gen/choices.csv)", parts[0], printed), nil
 }
 
 // atomizationSteps writes atomization_steps.csv for the elements whose

@@ -385,10 +385,6 @@ func (g *generator) compounds() (*table, error) {
 		if molecular {
 			row["molecular"] = "yes"
 		}
-		if st == "cr" && ph.Name == "" && polymorphName(ph) == "" {
-			// One crystalline form: the CRC's density is of that form.
-			g.addCRCDensity(row, f, row["name"])
-		}
 		var alts []alternative
 		if s, ok := g.nasaPhase(comp, st); ok {
 			alts = append(alts, nasaAlt(s))
@@ -785,7 +781,7 @@ func (g *generator) solutionEnthalpies() (*table, error) {
 		d := max(aq.HDigits, s.row.HDigits)
 		t.add(map[string]string{"formula": s.formula, "solution_kj_per_mol": numDigits(aq.H-s.row.H, d), "source": keyNBS,
 			"locator": locator(nbsFile, aq.Line) + "; " + locator(nbsFile, s.row.Line),
-			"note":    fmt.Sprintf("ΔfH°(%s, ai) %s − ΔfH°(%s, cr) %s", s.nbsFormula, aq.Original, s.nbsFormula, s.row.Original)})
+			"note":    fmt.Sprintf("ΔfH°(%s, ai) %s − ΔfH°(%s, cr) %s%s", s.nbsFormula, aq.Original, s.nbsFormula, s.row.Original, slipNote(aq))})
 	}
 	return t, nil
 }
@@ -815,4 +811,12 @@ func (g *generator) writtenWithIons(f string, pairs []ionPair) bool {
 		}
 	}
 	return false
+}
+
+// slipNote says that a value of the NBS file was corrected by a slip choice.
+func slipNote(r nbsRow) string {
+	if r.Corrected == "" {
+		return ""
+	}
+	return fmt.Sprintf(" (the ai value corrected from the file's %s: a slip choice in data/gen/choices.csv)", r.Corrected)
 }

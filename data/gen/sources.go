@@ -30,20 +30,21 @@ func locator(file string, line int) string { return fmt.Sprintf("%s:%d", file, l
 
 // nbsRow is one line of the digitised NBS tables. Absent numbers are NaN.
 type nbsRow struct {
-	Line     int
-	Table    string // element of the NBS table the row is printed in
-	Formula  string
-	Solvent  string
-	Name     string
-	Desc     string  // "State Description": polymorph or mineral name
-	State    string  // cr, cr2, l, g, ai, ao …
-	Mass     float64 // molar mass, g/mol
-	H0       float64
-	H        float64 // ΔfH°(298.15 K), kJ/mol
-	G        float64 // ΔfG°(298.15 K), kJ/mol
-	S        float64 // S°(298.15 K), J/(mol·K)
-	HDigits  int     // digits after the decimal point of H as printed
-	Original string  // the H cell as printed
+	Line      int
+	Table     string // element of the NBS table the row is printed in
+	Formula   string
+	Solvent   string
+	Name      string
+	Desc      string  // "State Description": polymorph or mineral name
+	State     string  // cr, cr2, l, g, ai, ao …
+	Mass      float64 // molar mass, g/mol
+	H0        float64
+	H         float64 // ΔfH°(298.15 K), kJ/mol
+	G         float64 // ΔfG°(298.15 K), kJ/mol
+	S         float64 // S°(298.15 K), J/(mol·K)
+	HDigits   int     // digits after the decimal point of H as printed
+	Original  string  // the H cell as printed (after a slip choice: as corrected)
+	Corrected string  // the H cell as the file prints it, where a slip choice corrected it
 }
 
 // latin1 decodes ISO-8859-1 bytes (the NBS file's encoding) to UTF-8.
