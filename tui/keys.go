@@ -1,6 +1,10 @@
 package tui
 
-import "github.com/charmbracelet/bubbles/key"
+import (
+	"github.com/charmbracelet/bubbles/key"
+
+	"enthalpath/tui/nav"
+)
 
 // KeyMap is the workshop's global keys. Screens have their own; the root
 // only acts on a printable global key when the screen is not typing.
@@ -14,15 +18,15 @@ type KeyMap struct {
 // DefaultKeyMap returns the global keys.
 func DefaultKeyMap() KeyMap {
 	return KeyMap{
-		NextScreen: key.NewBinding(key.WithKeys("tab"), key.WithHelp("tab", "next screen")),
-		PrevScreen: key.NewBinding(key.WithKeys("shift+tab"), key.WithHelp("shift+tab", "previous screen")),
-		GoTo:       key.NewBinding(key.WithKeys("1", "2", "3", "4", "5", "6"), key.WithHelp("1…6", "go to screen by number")),
-		Units:      key.NewBinding(key.WithKeys("u"), key.WithHelp("u", "units kJ/mol → kcal/mol → eV")),
-		Help:       key.NewBinding(key.WithKeys("?", "f1"), key.WithHelp("?/f1", "all keys")),
-		Save:       key.NewBinding(key.WithKeys("ctrl+s"), key.WithHelp("ctrl+s", "save the cycle file")),
-		Open:       key.NewBinding(key.WithKeys("ctrl+o"), key.WithHelp("ctrl+o", "open a cycle file")),
-		Quit:       key.NewBinding(key.WithKeys("q"), key.WithHelp("q", "quit")),
-		ForceQuit:  key.NewBinding(key.WithKeys("ctrl+c"), key.WithHelp("ctrl+c", "quit (asks if unsaved)")),
+		NextScreen: nav.NextScreen.Bind("next screen"),
+		PrevScreen: nav.PrevScreen.Bind("previous screen"),
+		GoTo:       nav.New("go to screen by number", "1", "2", "3", "4", "5", "6"),
+		Units:      nav.New("units kJ/mol → kcal/mol → eV", "u"),
+		Help:       nav.Help.Bind("all keys"),
+		Save:       nav.New("save the cycle file", "ctrl+s"),
+		Open:       nav.New("open a cycle file", "ctrl+o"),
+		Quit:       nav.Quit.Bind("quit"),
+		ForceQuit:  nav.ForceQuit.Bind("quit (asks if unsaved)"),
 	}
 }
 
@@ -36,9 +40,9 @@ type ConfirmKeys struct {
 // DefaultConfirmKeys returns the keys of the unsaved-changes question.
 func DefaultConfirmKeys() ConfirmKeys {
 	return ConfirmKeys{
-		Save:    key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "save")),
-		Keep:    key.NewBinding(key.WithKeys("k"), key.WithHelp("k", "keep a recovery file")),
-		Discard: key.NewBinding(key.WithKeys("x"), key.WithHelp("x", "discard the changes")),
-		Back:    key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "back to work")),
+		Save:    nav.New("save", "s"),
+		Keep:    nav.New("keep a recovery file", "k"),
+		Discard: nav.New("discard the changes", "x"),
+		Back:    nav.Esc.Bind("back to work"),
 	}
 }

@@ -20,6 +20,7 @@ import (
 	"enthalpath/tui/assembly"
 	"enthalpath/tui/bench"
 	"enthalpath/tui/modelpanel"
+	"enthalpath/tui/nav"
 	"enthalpath/tui/prompt"
 	"enthalpath/tui/screen"
 	"enthalpath/tui/session"
@@ -270,7 +271,7 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		return tea.Batch(cmds...)
 	}
 	// While the screen is typing, printable keys are text, not commands.
-	global := func(b key.Binding) bool { return key.Matches(k, b) && !(cur.Capturing() && printable(k)) }
+	global := func(b key.Binding) bool { return key.Matches(k, b) && !(cur.Capturing() && nav.Printable(k)) }
 	switch {
 	case key.Matches(k, m.Keys.ForceQuit):
 		return m.quit()
@@ -563,7 +564,7 @@ func (m *Model) ShortHelp() []key.Binding {
 func (m *Model) globalShortHelp() []key.Binding {
 	if m.screens[m.active].Capturing() {
 		var b []key.Binding
-		if h, ok := withoutPrintable(m.Keys.Help); ok {
+		if h, ok := nav.WithoutPrintable(m.Keys.Help); ok {
 			b = append(b, h)
 		}
 		return append(b, m.Keys.ForceQuit)
@@ -582,7 +583,7 @@ func (m *Model) FullHelp() [][]key.Binding {
 		for i, g := range globals {
 			var kept []key.Binding
 			for _, b := range g {
-				if nb, ok := withoutPrintable(b); ok {
+				if nb, ok := nav.WithoutPrintable(b); ok {
 					kept = append(kept, nb)
 				}
 			}
@@ -597,30 +598,9 @@ func (m *Model) FullHelp() [][]key.Binding {
 func (m *Model) helpKeys() string {
 	b := m.Keys.Help
 	if m.screens[m.active].Capturing() {
-		b, _ = withoutPrintable(b)
+		b, _ = nav.WithoutPrintable(b)
 	}
 	return strings.Join(b.Keys(), " or ")
-}
-
-// printable reports whether k is text (a character or space).
-func printable(k tea.KeyMsg) bool { return k.Type == tea.KeyRunes || k.Type == tea.KeySpace }
-
-// withoutPrintable returns b reduced to its non-printable keys, with its
-// help key label rewritten, and false when none is left.
-func withoutPrintable(b key.Binding) (key.Binding, bool) {
-	var keys []string
-	for _, s := range b.Keys() {
-		if len([]rune(s)) > 1 && s != "space" {
-			keys = append(keys, s)
-		}
-	}
-	if len(keys) == 0 {
-		return b, false
-	}
-	if len(keys) == len(b.Keys()) {
-		return b, true
-	}
-	return key.NewBinding(key.WithKeys(keys...), key.WithHelp(strings.Join(keys, "/"), b.Help().Desc)), true
 }
 
 func (m *Model) fullHelpView() string {
