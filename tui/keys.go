@@ -29,20 +29,3 @@ func DefaultKeyMap() KeyMap {
 		ForceQuit:  nav.ForceQuit.Bind("quit (asks if unsaved)"),
 	}
 }
-
-// ConfirmKeys are the keys of the unsaved-changes question, asked before
-// quitting or opening another cycle; the question adds to each what
-// follows ("…, then quit", "…, then open MgO").
-type ConfirmKeys struct {
-	Save, Keep, Discard, Back key.Binding
-}
-
-// DefaultConfirmKeys returns the keys of the unsaved-changes question.
-func DefaultConfirmKeys() ConfirmKeys {
-	return ConfirmKeys{
-		Save:    nav.New("save", "s"),
-		Keep:    nav.New("keep a recovery file", "k"),
-		Discard: nav.New("discard the changes", "x"),
-		Back:    nav.Esc.Bind("back to work"),
-	}
-}
