@@ -352,95 +352,11 @@ func (m *Model) smallView() string {
 	box := st.Renderer().NewStyle().Width(m.width).MaxHeight(m.height)
 	switch {
 	case m.question.Active():
-		lines := m.question.Small(m.width, m.height)
-		if lines == nil {
-			return box.Render(st.Warn.Render("The window is too small to show the unsaved-changes question; enlarge it, or press " +
-				m.question.Keys.Back.Help().Key + " to go back to work."))
-		}
-		lines[0] = st.Title.Render(lines[0])
-		return box.Render(strings.Join(lines, "\n"))
+		return box.Render(m.question.SmallView(st, m.width, m.height))
 	case m.prompt.Active():
 		return box.Render(st.Warn.Render("A file name is asked; enlarge the window to see it, or press esc to cancel."))
 	}
 	msg := fmt.Sprintf("The window is %d×%d; the workshop needs at least %d×%d.\nEnlarge the window, or press %s to quit.",
 		m.width, m.height, MinWidth, MinHeight, m.Keys.Quit.Help().Key)
 	return box.Render(st.Warn.Render(msg))
-}
-
-func (m *Model) helpLine() string {
-	switch {
-	case m.prompt.Active():
-		return m.help.Plain(m.prompt.ShortHelp())
-	case m.question.Active():
-		// The question's box says what follows each answer; the line
-		// keeps every key with its bare name rather than lose the last.
-		return m.help.Answers(m.question.Bindings(), m.question.Declared())
-	}
-	return m.help.Line(m.screenShortHelp(), m.globalShortHelp())
-}
-
-// ShortHelp is the always-visible help line: the screen's main keys and
-// the few global ones; while a file name or the question is asked, their
-// keys.
-func (m *Model) ShortHelp() []key.Binding {
-	switch {
-	case m.prompt.Active():
-		return m.prompt.ShortHelp()
-	case m.question.Active():
-		return m.question.Bindings()
-	}
-	return append(m.screenShortHelp(), m.globalShortHelp()...)
-}
-
-// screenShortHelp is the start of the help line: the screen's main keys.
-func (m *Model) screenShortHelp() []key.Binding {
-	b := slices.Clip(m.screens[m.active].ShortHelp())
-	if len(b) == 0 && !m.screens[m.active].Capturing() {
-		b = []key.Binding{m.Keys.GoTo} // a screen with nothing to act on yet
-	}
-	return b
-}
-
-// globalShortHelp is the end of the help line: the keys that open the key
-// list and quit, those that work while the screen is typing.
-func (m *Model) globalShortHelp() []key.Binding {
-	if m.screens[m.active].Capturing() {
-		var b []key.Binding
-		if h, ok := nav.WithoutPrintable(m.Keys.Help); ok {
-			b = append(b, h)
-		}
-		return append(b, m.Keys.ForceQuit)
-	}
-	return []key.Binding{m.Keys.Help, m.Keys.Quit}
-}
-
-// FullHelp is the key list: the screen's keys, then the global keys —
-// while the screen is typing, only the global keys that still work (the
-// non-printable ones).
-func (m *Model) FullHelp() [][]key.Binding {
-	k := m.Keys
-	groups := m.screens[m.active].FullHelp()
-	globals := [][]key.Binding{{k.NextScreen, k.PrevScreen, k.GoTo, k.Units}, {k.Save, k.Open, k.Help, k.Quit, k.ForceQuit}}
-	if m.screens[m.active].Capturing() {
-		for i, g := range globals {
-			var kept []key.Binding
-			for _, b := range g {
-				if nb, ok := nav.WithoutPrintable(b); ok {
-					kept = append(kept, nb)
-				}
-			}
-			globals[i] = kept
-		}
-	}
-	return append(groups, globals...)
-}
-
-// helpKeys names the keys that open the key list on the screen shown ("?
-// or f1"; "f1" while the screen is typing, when ? is text).
-func (m *Model) helpKeys() string {
-	b := m.Keys.Help
-	if m.screens[m.active].Capturing() {
-		b, _ = nav.WithoutPrintable(b)
-	}
-	return strings.Join(b.Keys(), " or ")
 }

@@ -13,6 +13,7 @@ import (
 	"github.com/charmbracelet/bubbles/key"
 	"github.com/charmbracelet/lipgloss"
 
+	"enthalpath/tui/nav"
 	"enthalpath/tui/theme"
 )
 
@@ -116,4 +117,59 @@ func (m *Model) columns(groups [][]key.Binding, width int) string {
 		bands = append(bands, lipgloss.JoinHorizontal(lipgloss.Top, band...))
 	}
 	return strings.Join(bands, "\n")
+}
+
+// Screen is what the help reads of the screen shown: its keys, and
+// whether it is typing (its printable keys are then text).
+type Screen interface {
+	help.KeyMap
+	Capturing() bool
+}
+
+// Globals are the keys that act on every screen.
+type Globals struct {
+	// End closes the help line (the key list, quit); EndTyping closes it
+	// while the screen is typing, reduced to the keys that are not text.
+	End, EndTyping []key.Binding
+	// Groups follow the screen's own in the key list.
+	Groups [][]key.Binding
+	// Idle stands in the help line for a screen with no key of its own yet.
+	Idle key.Binding
+}
+
+// Short returns the help line's keys for s: its own (or Idle), then the
+// global ones that still act — while s is typing, those that are not text.
+func (g Globals) Short(s Screen) (own, globals []key.Binding) {
+	own = slices.Clip(s.ShortHelp())
+	if len(own) == 0 && !s.Capturing() {
+		own = []key.Binding{g.Idle}
+	}
+	if s.Capturing() {
+		return own, g.acting(s, g.EndTyping)
+	}
+	return own, g.End
+}
+
+// Full returns the key list for s: its groups, then the global groups,
+// each reduced to what still acts while s is typing.
+func (g Globals) Full(s Screen) [][]key.Binding {
+	groups := slices.Clip(s.FullHelp())
+	for _, gr := range g.Groups {
+		groups = append(groups, g.acting(s, gr))
+	}
+	return groups
+}
+
+// acting is b, reduced while s is typing to the keys that are not text.
+func (g Globals) acting(s Screen, b []key.Binding) []key.Binding {
+	if !s.Capturing() {
+		return b
+	}
+	var out []key.Binding
+	for _, k := range b {
+		if nk, ok := nav.WithoutPrintable(k); ok {
+			out = append(out, nk)
+		}
+	}
+	return out
 }

@@ -152,6 +152,19 @@ func (q *Question) Small(width, height int) []string {
 	return nil
 }
 
+// SmallView draws the question in a window of width×height smaller than
+// the workshop's least size: as Small has it, its title in st.Title, or
+// where it cannot be drawn the advice to enlarge the window or go back.
+func (q *Question) SmallView(st *theme.Styles, width, height int) string {
+	lines := q.Small(width, height)
+	if lines == nil {
+		return st.Warn.Render("The window is too small to show the unsaved-changes question; enlarge it, or press " +
+			q.Keys.Back.Help().Key + " to go back to work.")
+	}
+	lines[0] = st.Title.Render(lines[0])
+	return strings.Join(lines, "\n")
+}
+
 func (q *Question) title() string { return "The " + q.formula + " cycle has unsaved changes." }
 
 // View draws the question in inner cells of width; recoveryFile is the
