@@ -353,6 +353,10 @@ func (e *evaluator) evaluate(name string) (ModelResult, error) {
 	if c.Conventions.Lattice == LatticeEnthalpy {
 		m.Value = u - c.LatticeCorrection()
 	}
+	if b := m.Inputs.Extended; b != nil {
+		// The extended model carries its own heat contents to 298.15 K.
+		m.Value = b.Value(b.Minimum)
+	}
 	m.Uncertainty = rel * math.Abs(m.Value)
 	return m, nil
 }
