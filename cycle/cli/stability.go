@@ -17,7 +17,7 @@ import (
 const stabilitySynopsis = "stability FORMULA [--temperature K] [--pressure BAR] [--from K] [--to K] [--points N] [--estimate-only] [--charges M=+2,X=-1] [--model MODEL] [--structure PROTOTYPE] [--set KEY=VALUE] [--json|--csv] [--svg FILE]"
 
 func runStability(env Env, args []string) error {
-	fs := newFlagSet("stability", stabilitySynopsis, env.Stderr)
+	fs := NewFlagSet("stability")
 	var charges, model, structure, svgFile string
 	var temp, pres, from, to float64
 	var points int
