@@ -1,7 +1,6 @@
 package cli
 
 import (
-	"flag"
 	"fmt"
 	"io"
 	"path/filepath"
@@ -38,8 +37,7 @@ func runCycle(env Env, args []string) error {
 	if help || err != nil {
 		return err
 	}
-	set := map[string]bool{}
-	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
+	set := givenFlags(fs)
 	switch {
 	case open != "" && len(pos) > 0:
 		return Usagef("give either a FORMULA or --open FILE, not both")

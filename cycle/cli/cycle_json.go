@@ -138,11 +138,8 @@ func cycleJSONOf(c *cycle.Cycle, r *cycle.Result) cycleJSON {
 			jsonNumber(h.Percent), h.Source.Key, h.Source.Memory}
 	}
 	for _, m := range r.Models {
-		mj := modelJSON{Model: m.Model, KJPerMol: jsonNumber(m.Value), EnergyKJ: jsonNumber(m.Energy), Gap: jsonNumber(m.Gap), GapPercent: jsonNumber(m.GapPercent)}
-		if m.Err != nil {
-			mj.Error = commandLineText(m.Err)
-			mj.KJPerMol, mj.EnergyKJ = jsonNumber(math.NaN()), jsonNumber(math.NaN())
-		} else {
+		mj := modelJSONOf(m)
+		if m.Err == nil {
 			in := m.Inputs
 			mj.Verdict = verdictText(r, m)
 			mj.Madelung, mj.MadelungFrom, mj.D0, mj.D0From = jsonNumber(in.Madelung), in.MadelungFrom, jsonNumber(in.D0), in.D0From
@@ -153,6 +150,17 @@ func cycleJSONOf(c *cycle.Cycle, r *cycle.Result) cycleJSON {
 		j.Models = append(j.Models, mj)
 	}
 	return j
+}
+
+// modelJSONOf is the part of a model's JSON that cycle and compare share:
+// its value, energy and gap, or its error (the values then null).
+func modelJSONOf(m cycle.ModelResult) modelJSON {
+	mj := modelJSON{Model: m.Model, KJPerMol: jsonNumber(m.Value), EnergyKJ: jsonNumber(m.Energy), Gap: jsonNumber(m.Gap), GapPercent: jsonNumber(m.GapPercent)}
+	if m.Err != nil {
+		mj.Error = commandLineText(m.Err)
+		mj.KJPerMol, mj.EnergyKJ = jsonNumber(math.NaN()), jsonNumber(math.NaN())
+	}
+	return mj
 }
 
 // verdictText is a model's verdict in words, or why none is given.
