@@ -60,7 +60,7 @@ func runCycle(env Env, args []string) error {
 			if !filepath.IsAbs(p) {
 				p = filepath.Join(filepath.Dir(open), p)
 			}
-			s, err := readCIF(p, c)
+			s, err := c.ReadStructureFile(p, p)
 			if err != nil {
 				return Usagef("--open %s: the structure file it names: %v", open, err)
 			}

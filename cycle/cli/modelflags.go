@@ -3,7 +3,7 @@ package cli
 import (
 	"errors"
 	"flag"
-	"math"
+	"maps"
 	"strconv"
 	"strings"
 
@@ -137,7 +137,7 @@ func (m *modelFlags) structureFor(c *cycle.Cycle) (cycle.Structure, error) {
 		if len(m.params) > 0 {
 			return cycle.Structure{}, Usagef("--param applies to a prototype, not to the CIF file %s", name)
 		}
-		st, err := readCIF(name, c)
+		st, err := c.ReadStructureFile(name, name)
 		if err != nil {
 			return cycle.Structure{}, Usagef("--structure: %v", err)
 		}
@@ -152,14 +152,11 @@ func (m *modelFlags) structureFor(c *cycle.Cycle) (cycle.Structure, error) {
 			params[k] = v
 		}
 	}
-	for _, p := range m.params {
-		k, v, ok := strings.Cut(p, "=")
-		x, err := strconv.ParseFloat(strings.TrimSpace(v), 64)
-		if !ok || err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-			return cycle.Structure{}, Usagef("--param %q: write KEY=VALUE, e.g. a=5.64", p)
-		}
-		params[strings.TrimSpace(k)] = x
+	given, err := parseKeyValues("--param", m.params)
+	if err != nil {
+		return cycle.Structure{}, err
 	}
+	maps.Copy(params, given)
 	if _, err := crystal.Build(name, params); err != nil {
 		return cycle.Structure{}, Usagef("--structure %s: %v", name, err)
 	}
@@ -168,17 +165,6 @@ func (m *modelFlags) structureFor(c *cycle.Cycle) (cycle.Structure, error) {
 		st.Params = nil
 	}
 	return st, nil
-}
-
-// readCIF reads a CIF file for cycle c: charges the file does not give
-// are assigned with the compound's ions as the only candidates. The error
-// names the file; the caller says where the name came from.
-func readCIF(path string, c *cycle.Cycle) (cycle.Structure, error) {
-	sf, err := cycle.OpenStructureFile(nil, path, nil, []cycle.Part{c.Cation, c.Anion})
-	if err != nil {
-		return cycle.Structure{}, err
-	}
-	return sf.Structure(path), nil
 }
 
 // boundUsage words a model setting refused by the engine's bound for the
