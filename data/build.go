@@ -680,6 +680,7 @@ func (b *builder) compound(r record) error {
 		if v.V <= 0 {
 			return r.errorf("density_g_cm3", "density %g is not positive", v.V)
 		}
+		v.Locator = r.str("density_locator") // its own source's line, not the formation's
 		b.set(&c.Density, v)
 	}
 	if v, ok, err := b.value(r, "lattice_kj_per_mol", "", "lattice_source", "lattice", "kJ/mol"); err != nil {
