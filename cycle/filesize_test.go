@@ -5,6 +5,7 @@ import (
 	"io/fs"
 	"os"
 	"path/filepath"
+	"regexp"
 	"strings"
 	"testing"
 )
@@ -28,12 +29,15 @@ var longFilesBeingSplit = map[string]string{
 	"data/compounds_data_test.go": "i12",
 	"data/load_test.go":           "i12",
 	"cycle/cli/data.go":           "i12",
-	"thermo/cif/parse.go":         "i19",
+	"thermo/ewald/sums.go":        "i19",
 	"cycle/models.go":             "i15",
 	"cycle/build.go":              "i14",
 	"tui/model.go":                "i13t",
 	"tui/serve/server_test.go":    "i13",
 }
+
+// generated is the line that marks a generated Go file ("go help generate").
+var generated = regexp.MustCompile(`(?m)^// Code generated .* DO NOT EDIT\.$`)
 
 func TestNoLongFileWithoutReason(t *testing.T) {
 	root, err := filepath.Abs("..")
@@ -65,6 +69,9 @@ func TestNoLongFileWithoutReason(t *testing.T) {
 		rel = filepath.ToSlash(rel)
 		head := string(text[:min(len(text), 2000)])
 		switch {
+		case generated.MatchString(head):
+			// A generated file (the Go convention, "go help generate") is
+			// as long as what it holds.
 		case strings.Contains(head, longFileReason):
 		case longFilesBeingSplit[rel] != "":
 			t.Logf("%s: %d lines, being split (%s)", rel, lines, longFilesBeingSplit[rel])
