@@ -7,7 +7,6 @@ package data
 import (
 	"strings"
 
-	"enthalpath/thermo"
 	"enthalpath/thermo/notation"
 )
 
@@ -179,7 +178,7 @@ func (b *builder) affinity(r record) error {
 		if !ok {
 			return r.errorf("affinity_ev", "missing value (give affinity_ev or affinity_kj_per_mol)")
 		}
-		v.V = thermo.KJPerMolToEV(v.V)
+		v.V /= kJPerMolPerEV
 		if u, has, err := r.float("uncertainty_ev"); err != nil {
 			return err
 		} else if has {

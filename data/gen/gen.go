@@ -127,6 +127,7 @@ func (g *generator) run() (map[string][]byte, error) {
 		{"ion_values.csv", g.ionValues},
 		{"solution_enthalpies.csv", g.solutionEnthalpies},
 		{"atomic_weights.csv", g.atomicWeights},
+		{"heat_capacities.csv", g.heatCapacities},
 	}
 	for _, s := range steps {
 		t, err := s.fn()
