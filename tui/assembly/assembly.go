@@ -252,7 +252,7 @@ func (m *Model) proposal(s *cycle.Step) (text string, ok bool) {
 	case "unknown":
 		return "keep it the unknown, as the cycle has it (one unknown only)", true
 	case "user":
-		return fmt.Sprintf("keep your value %s %s %s", m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units), true
+		return fmt.Sprintf("keep your value %s %s", m.ctx.SignedPM(s.Value, s.Uncertainty), m.ctx.Units), true
 	case "":
 	default:
 		return "keep the " + m.sess.Cycle.Settings.LatticeFrom + " model's value, as chosen", true
@@ -263,21 +263,21 @@ func (m *Model) proposal(s *cycle.Step) (text string, ok bool) {
 			return "solve it by Hess's law from the other steps (the usual unknown)", true
 		}
 		if r := s.Reference; r != nil {
-			return fmt.Sprintf("%s %s %s, the data's handbook value from %s (%s is the unknown)", m.ctx.Signed(r.Value),
-				m.ctx.Uncertainty(r.Uncertainty), m.ctx.Units, sourceName(r.Source), unknown), true
+			return fmt.Sprintf("%s %s, the data's handbook value from %s (%s is the unknown)",
+				m.ctx.SignedPM(r.Value, r.Uncertainty), m.ctx.Units, sourceName(r.Source), unknown), true
 		}
 		mr, err := m.latticeModelErr()
 		if err == nil {
-			return fmt.Sprintf("%s %s %s from the %s model (%s is the unknown)", m.ctx.Signed(mr.Value),
-				m.ctx.Uncertainty(mr.Uncertainty), m.ctx.Units, mr.Model, unknown), true
+			return fmt.Sprintf("%s %s from the %s model (%s is the unknown)",
+				m.ctx.SignedPM(mr.Value, mr.Uncertainty), m.ctx.Units, mr.Model, unknown), true
 		}
 		return "no model can give it (" + session.Message(err) + "): type a value with e", false
 	}
 	if r := s.Reference; r != nil {
-		return fmt.Sprintf("%s %s %s from %s", m.ctx.Signed(r.Value), m.ctx.Uncertainty(r.Uncertainty), m.ctx.Units, sourceName(r.Source)), true
+		return fmt.Sprintf("%s %s from %s", m.ctx.SignedPM(r.Value, r.Uncertainty), m.ctx.Units, sourceName(r.Source)), true
 	}
 	if s.Composite && s.Source.Kind == cycle.SourceSum {
-		return fmt.Sprintf("%s %s %s, the sum of its sub-steps", m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units), true
+		return fmt.Sprintf("%s %s, the sum of its sub-steps", m.ctx.SignedPM(s.Value, s.Uncertainty), m.ctx.Units), true
 	}
 	return "the data have no value: type one (e) or make it the unknown (x)", false
 }
@@ -540,8 +540,8 @@ func (m *Model) doneLine() string {
 		return st.Error.Render("Not solved: ") + msg
 	}
 	s := m.sess.Result.Solved
-	return st.Solved.Render(diagram.SolvedMark+" solved: ") + st.Accent.Render(fmt.Sprintf("%s = %s %s %s", s.Label, m.ctx.Signed(s.Value),
-		m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units)) + st.Muted.Render("   enter: on to the bench")
+	return st.Solved.Render(diagram.SolvedMark+" solved: ") + st.Accent.Render(fmt.Sprintf("%s = %s %s", s.Label,
+		m.ctx.SignedPM(s.Value, s.Uncertainty), m.ctx.Units)) + st.Muted.Render("   enter: on to the bench")
 }
 
 func indent(s, by string) string { return by + strings.ReplaceAll(s, "\n", "\n"+by) }
