@@ -142,6 +142,8 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 			}
 		}
 		return nil
+	case session.MagnitudesMsg:
+		return m.edit.Retry(session.Pending) // a value typed before they were ready
 	case tea.KeyMsg:
 		return m.key(msg)
 	}
