@@ -277,7 +277,7 @@ func missingStep(c *cycle.Cycle) error {
 				continue // the parent's own value stands for its sub-steps
 			}
 		}
-		return &cycle.MissingError{Key: s.Key, What: s.Label}
+		return c.MissingDatum(s)
 	}
 	return nil
 }
