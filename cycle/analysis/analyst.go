@@ -24,6 +24,10 @@ type Analyst struct {
 	saltsOnce sync.Once
 	saltsOf   map[string][]data.Compound // ion symbol → its compounds (ionfit.go)
 
+	volumesOnce sync.Once
+	volumes     *IonVolumes // ionvolume.go
+	volumesErr  error
+
 	mu      sync.Mutex
 	spreads map[string]spreadEntry
 	built   map[string]builtEntry
