@@ -43,7 +43,7 @@ import (
 // holds a monatomic cation's volume near the sphere of its Shannon radius
 // (our choice: loose enough for the salts to move it, tight enough to fix
 // the split between cation and anion).
-const IonVolumeCationPrior = 0.25
+const IonVolumeCationPrior = 1.0
 
 // ligandOrder breaks ties for the ligand of a polyatomic ion: the more
 // electronegative element first (Pauling's order, from memory).
@@ -158,6 +158,9 @@ func (a *Analyst) fitIonVolumes() (*IonVolumes, error) {
 	var rows []volumeRow
 	priors := map[string]float64{}
 	for _, comp := range a.db.Compounds() {
+		if !slices.Contains(IonicCounterIons(true), comp.Cation) && !slices.Contains(IonicCounterIons(false), comp.Anion) {
+			continue
+		}
 		vm, ok := a.measuredMolarVolume(comp)
 		if !ok {
 			continue
