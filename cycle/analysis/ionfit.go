@@ -308,6 +308,8 @@ func (a *Analyst) saltIonValue(s *SaltIonValue, side cycle.Side, from string) {
 			m, volumeRel, est = a.estimatedVolumeModel(c)
 			if est == nil {
 				model, err = FitEstimatedVolume, nil
+			} else {
+				err = fmt.Errorf("%w; %v", err, est)
 			}
 		}
 		if err != nil {
