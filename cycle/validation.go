@@ -125,6 +125,10 @@ type Validation struct {
 	Compounds int
 	NotClosed []NotEvaluated
 	Models    []ModelValidation
+	// thresholds and sigmas are Thresholds and Sigma of every model (and
+	// family), worded once by Validate.
+	thresholds map[string]thresholdEntry
+	sigmas     map[[2]string]sigmaEntry
 }
 
 // Model returns one model's validation (nil for an unknown name).
@@ -142,6 +146,13 @@ func (v *Validation) Model(name string) *ModelValidation {
 // ionic family (0 when the model was never evaluated there), and what it
 // was computed over.
 func (v *Validation) Sigma(model, family string) (float64, string) {
+	if e, ok := v.sigmas[[2]string{model, family}]; ok {
+		return e.rel, e.basis
+	}
+	return v.sigma(model, family)
+}
+
+func (v *Validation) sigma(model, family string) (float64, string) {
 	f := v.SigmaStats(model, family)
 	if f.N == 0 {
 		return 0, ""
@@ -168,6 +179,13 @@ func (v *Validation) SigmaStats(model, family string) FamilyStats {
 // its RMS gap over the ionic family, with their basis in words. A model
 // never evaluated there keeps lattice.DefaultThresholds.
 func (v *Validation) Thresholds(model string) (lattice.Thresholds, string) {
+	if e, ok := v.thresholds[model]; ok {
+		return e.th, e.basis
+	}
+	return v.thresholdsOf(model)
+}
+
+func (v *Validation) thresholdsOf(model string) (lattice.Thresholds, string) {
 	m := v.Model(model)
 	if m == nil || m.Family(IonicFamily).N == 0 || !(m.Family(IonicFamily).RMSPercent > 0) {
 		return lattice.DefaultThresholds(), lattice.VerdictBasis
@@ -267,7 +285,33 @@ func Validate(db *data.DB, memo *Memo) *Validation {
 		}
 		v.Models = append(v.Models, mv)
 	}
+	v.index()
 	return v
+}
+
+// index words every model's thresholds and σ once, so that a Solve reads
+// them instead of formatting them anew.
+func (v *Validation) index() {
+	v.thresholds = map[string]thresholdEntry{}
+	v.sigmas = map[[2]string]sigmaEntry{}
+	for _, m := range v.Models {
+		th, basis := v.thresholdsOf(m.Model)
+		v.thresholds[m.Model] = thresholdEntry{th, basis}
+		for _, fam := range ValidationFamilies() {
+			rel, basis := v.sigma(m.Model, fam)
+			v.sigmas[[2]string{m.Model, fam}] = sigmaEntry{rel, basis}
+		}
+	}
+}
+
+type thresholdEntry struct {
+	th    lattice.Thresholds
+	basis string
+}
+
+type sigmaEntry struct {
+	rel   float64
+	basis string
 }
 
 // validationKey is the key of the models' validation among the values
@@ -287,5 +331,16 @@ func (c *Cycle) Validation() *Validation {
 // Validation returns Validate(db, m), computed once per data set (the
 // first caller's memo does the Ewald sums).
 func (m *Memo) Validation(db *data.DB) *Validation {
-	return db.Computed(validationKey, func() any { return Validate(db, m) }).(*Validation)
+	m.mu.Lock()
+	if m.validationOf == db && m.validation != nil {
+		v := m.validation
+		m.mu.Unlock()
+		return v
+	}
+	m.mu.Unlock()
+	v := db.Computed(validationKey, func() any { return Validate(db, m) }).(*Validation)
+	m.mu.Lock()
+	m.validationOf, m.validation = db, v
+	m.mu.Unlock()
+	return v
 }

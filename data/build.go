@@ -8,7 +8,6 @@ import (
 	"strconv"
 	"strings"
 
-	"enthalpath/thermo"
 	"enthalpath/thermo/notation"
 )
 
@@ -313,7 +312,7 @@ func (b *builder) affinity(r record) error {
 		if !ok {
 			return r.errorf("affinity_ev", "missing value (give affinity_ev or affinity_kj_per_mol)")
 		}
-		v.V = thermo.KJPerMolToEV(v.V)
+		v.V /= kJPerMolPerEV
 		if u, has, err := r.float("uncertainty_ev"); err != nil {
 			return err
 		} else if has {
@@ -683,6 +682,7 @@ func (b *builder) compound(r record) error {
 		if v.V <= 0 {
 			return r.errorf("density_g_cm3", "density %g is not positive", v.V)
 		}
+		v.Locator = r.str("density_locator") // its own source's line, not the formation's
 		b.set(&c.Density, v)
 	}
 	if v, ok, err := b.value(r, "lattice_kj_per_mol", "", "lattice_source", "lattice", "kJ/mol"); err != nil {

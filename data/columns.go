@@ -18,7 +18,7 @@ var tableColumns = map[string][]string{
 		"state", "polymorph", "molecular",
 		"formation_kj_per_mol", "formation_uncertainty", "formation_source", "locator",
 		"gibbs_kj_per_mol", "entropy_j_per_mol_k", "structure", "params", "params_source",
-		"density_g_cm3", "density_source", "lattice_kj_per_mol", "lattice_convention", "lattice_source", "memory", "note"},
+		"density_g_cm3", "density_source", "density_locator", "lattice_kj_per_mol", "lattice_convention", "lattice_source", "memory", "note"},
 	"solution_enthalpies.csv": {"formula", "solution_kj_per_mol", "uncertainty", "source", "locator", "memory", "note"},
 	"species.csv": {"formula", "name", "formation_kj_per_mol", "formation_uncertainty", "gibbs_kj_per_mol",
 		"entropy_j_per_mol_k", "source", "locator", "memory", "note"},

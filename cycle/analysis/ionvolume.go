@@ -11,6 +11,7 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/data"
 	"enthalpath/thermo"
+	"enthalpath/thermo/lsq"
 	"enthalpath/thermo/notation"
 )
 
@@ -237,7 +238,7 @@ func (a *Analyst) fitIonVolumes() (*IonVolumes, error) {
 	for i := range n {
 		ata[i*n+i] += 1e-6 * (ata[i*n+i] + 1)
 	}
-	x, err := solveSymmetric(ata, atb, n)
+	x, err := lsq.SolveSPD(ata, atb, n)
 	if err != nil {
 		return nil, fmt.Errorf("ion volumes: %w", err)
 	}
@@ -341,45 +342,6 @@ func (f *IonVolumes) Salt(db *data.DB, cation data.Ion, nc int, anion data.Ion, 
 // formula unit) and a molar mass (g/mol) imply.
 func densityFromVolume(molarMass, vm float64) float64 {
 	return molarMass / (vm * 1e-21 * thermo.Avogadro)
-}
-
-// solveSymmetric solves the symmetric positive-definite system a·x = b
-// (a n×n, row-major) by Cholesky factorisation.
-func solveSymmetric(a, b []float64, n int) ([]float64, error) {
-	l := make([]float64, n*n)
-	for i := range n {
-		for j := 0; j <= i; j++ {
-			s := a[i*n+j]
-			for k := range j {
-				s -= l[i*n+k] * l[j*n+k]
-			}
-			if i == j {
-				if !(s > 0) {
-					return nil, errors.New("normal equations not positive definite")
-				}
-				l[i*n+i] = math.Sqrt(s)
-			} else {
-				l[i*n+j] = s / l[j*n+j]
-			}
-		}
-	}
-	y := make([]float64, n)
-	for i := range n {
-		s := b[i]
-		for k := range i {
-			s -= l[i*n+k] * y[k]
-		}
-		y[i] = s / l[i*n+i]
-	}
-	x := make([]float64, n)
-	for i := n - 1; i >= 0; i-- {
-		s := y[i]
-		for k := i + 1; k < n; k++ {
-			s -= l[k*n+i] * x[k]
-		}
-		x[i] = s / l[i*n+i]
-	}
-	return x, nil
 }
 
 // estimatedVolumeModel evaluates the volume-based model for a cycle whose

@@ -77,15 +77,3 @@ func TestFitIonFallsBackToIonVolumes(t *testing.T) {
 		}
 	}
 }
-
-// solveSymmetric against a system solved by hand: [[4,2],[2,3]]·x = [2,1]
-// has x = (0.5, 0).
-func TestSolveSymmetric(t *testing.T) {
-	x, err := solveSymmetric([]float64{4, 2, 2, 3}, []float64{2, 1}, 2)
-	if err != nil || !near(x[0], 0.5, 1e-12) || !near(x[1], 0, 1e-12) {
-		t.Errorf("x = %v, %v; want (0.5, 0)", x, err)
-	}
-	if _, err := solveSymmetric([]float64{1, 2, 2, 1}, []float64{1, 1}, 2); err == nil {
-		t.Error("an indefinite matrix was factorised")
-	}
-}

@@ -80,6 +80,9 @@ type Thermo struct {
 	// AdditiveEntropy is the independent estimate of S° from single-ion
 	// contributions (absent when an ion has none).
 	AdditiveEntropy Quantity
+	// HeatCapacity is the species' NASA Glenn polynomials (nil for an
+	// estimate and for a species the source does not give).
+	HeatCapacity *HeatCapacity
 }
 
 // GibbsAt returns ΔfG at temperature t (K) with its σ: the measured ΔfG°
@@ -140,9 +143,10 @@ func (a *Analyst) knownThermo(formula string) (Thermo, bool) {
 		return Thermo{}, false
 	}
 	t := Thermo{Formula: st.Formula, Name: st.Name, State: st.State, Known: true, Molecular: st.Molecular,
-		Formation: measuredEnergy(st.Formation),
-		Entropy:   measured(st.Entropy),
-		Gibbs:     measuredEnergy(st.Gibbs)}
+		Formation:    measuredEnergy(st.Formation),
+		Entropy:      measured(st.Entropy),
+		Gibbs:        measuredEnergy(st.Gibbs),
+		HeatCapacity: heatCapacity(st.Formula+"("+st.State+")", 1)}
 	if !t.Entropy.Known() && !t.Gibbs.Known() && !t.Molecular {
 		// A measured ΔfH° without S° or ΔfG° (BaO₂): S° from the
 		// volume-based line, said so in its basis.
@@ -164,9 +168,10 @@ func (a *Analyst) gasThermo(formula string) (Thermo, bool) {
 		return Thermo{}, false
 	}
 	t := Thermo{Formula: st.Formula, Name: st.Name, State: "g", Known: true,
-		Formation: measuredEnergy(st.Formation),
-		Entropy:   measured(st.Entropy),
-		Gibbs:     measuredEnergy(st.Gibbs)}
+		Formation:    measuredEnergy(st.Formation),
+		Entropy:      measured(st.Entropy),
+		Gibbs:        measuredEnergy(st.Gibbs),
+		HeatCapacity: heatCapacity(st.Formula+"(g)", 1)}
 	a.complete(&t)
 	return t, true
 }
@@ -176,7 +181,8 @@ func (a *Analyst) elementThermo(symbol string, atoms int) Thermo {
 	t := Thermo{Formula: elementalForm(symbol), State: "std", Known: true,
 		Formation:        Quantity{Measured: true, Basis: "element in its standard state"},
 		Gibbs:            Quantity{Measured: true, Basis: "element in its standard state"},
-		FormationEntropy: Quantity{Measured: true, Basis: "element in its standard state"}}
+		FormationEntropy: Quantity{Measured: true, Basis: "element in its standard state"},
+		HeatCapacity:     a.elementHeatCapacity(symbol, atoms)}
 	if v, ok := a.standards.ElementEntropy(symbol); ok && v.Known() {
 		t.Entropy = Quantity{Value: float64(atoms) * v.V, Uncertainty: float64(atoms) * v.U, Measured: true, Basis: "measured (" + v.Source + ")"}
 	}

@@ -73,14 +73,14 @@ func compareRows(db *data.DB, formulas []string, mf *modelFlags, set map[string]
 }
 
 func runCompare(env Env, args []string) error {
-	fs := newFlagSet("compare", compareSynopsis, env.Stderr)
+	fs := NewFlagSet("compare")
 	var mf modelFlags
 	mf.register(fs)
 	var all, asCSV, asJSON bool
 	fs.BoolVar(&all, "all", false, "every built-in (and overlay) compound")
 	fs.BoolVar(&asCSV, "csv", false, "print CSV")
 	fs.BoolVar(&asJSON, "json", false, "print JSON")
-	pos, help, err := parseFlags(fs, args)
+	pos, help, err := ParseFlags(fs, args)
 	if help || err != nil {
 		return err
 	}
@@ -97,7 +97,7 @@ func runCompare(env Env, args []string) error {
 	if set["structure"] && len(pos) != 1 {
 		return Usagef("--structure applies to one compound; compare each compound's own structure by leaving it out")
 	}
-	db, err := loadData(env)
+	db, err := LoadData(env)
 	if err != nil {
 		return err
 	}

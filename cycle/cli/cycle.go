@@ -190,7 +190,7 @@ func readCIF(path string, c *cycle.Cycle) (cycle.Structure, error) {
 }
 
 func runCycle(env Env, args []string) error {
-	fs := newFlagSet("cycle", cycleSynopsis, env.Stderr)
+	fs := NewFlagSet("cycle")
 	var mf modelFlags
 	mf.register(fs)
 	var solve, sets listFlag
@@ -207,7 +207,7 @@ func runCycle(env Env, args []string) error {
 	fs.StringVar(&anion, "anion", "", "anion `ION` for a hypothetical compound, e.g. Cl-")
 	fs.BoolVar(&asJSON, "json", false, "print JSON")
 	fs.StringVar(&note, "note", "", "free `TEXT` saved with the cycle file")
-	pos, help, err := parseFlags(fs, args)
+	pos, help, err := ParseFlags(fs, args)
 	if help || err != nil {
 		return err
 	}
@@ -221,7 +221,7 @@ func runCycle(env Env, args []string) error {
 	case len(pos) > 1:
 		return Usagef("one formula at a time (got %s); use compare for several", notation.ShortInput(strings.Join(pos, " ")))
 	}
-	db, err := loadData(env)
+	db, err := LoadData(env)
 	if err != nil {
 		return err
 	}

@@ -13,7 +13,7 @@ import (
 const ionfitSynopsis = "ionfit ION [--from auto|handbook|MODEL] [--ionic-salts | --only ION,...] [--exclude FORMULA,...] [--json | --csv]"
 
 func runIonfit(env Env, args []string) error {
-	fs := newFlagSet("ionfit", ionfitSynopsis, env.Stderr)
+	fs := NewFlagSet("ionfit")
 	var from, only, exclude string
 	var asJSON, asCSV, ionic bool
 	fs.BoolVar(&ionic, "ionic-salts", false, "use only the salts the ionic models describe: of the s-block cations and NH4+ for an anion, of the halides for a cation (every salt when there are none); the rule of the built-in derived values")

@@ -33,7 +33,7 @@ neutralising background.`
 const maxListedSites = 64
 
 func runMadelung(env Env, args []string) error {
-	fs := newFlagSet("madelung", madelungSynopsis, env.Stderr)
+	fs := NewFlagSet("madelung")
 	var params, charges listFlag
 	fs.Var(&params, "param", "prototype parameter `key=value` (repeatable, or comma-separated)")
 	fs.Var(&charges, "charges", "ion charges `LABEL=Z,...`: slot labels (M, X, A, B) for a prototype; site labels, type symbols or elements for a CIF file")
@@ -41,7 +41,7 @@ func runMadelung(env Env, args []string) error {
 	accuracy := fs.Float64("accuracy", ewald.DefaultAccuracy, "relative accuracy of the Ewald sum")
 	asJSON := fs.Bool("json", false, "print one JSON object")
 	list := fs.Bool("list", false, "list the built-in prototypes with their parameters")
-	pos, help, err := parseFlags(fs, args)
+	pos, help, err := ParseFlags(fs, args)
 	if help || err != nil {
 		return err
 	}
@@ -130,7 +130,7 @@ func loadStructure(env Env, target string, params, charges listFlag, supercell s
 	}
 	job := madelungJob{target: target, params: paramMap, charges: chargeMap, supercell: n}
 	if isCIFPath(target) {
-		if job.db, err = loadData(env); err != nil {
+		if job.db, err = LoadData(env); err != nil {
 			return job, nil, err
 		}
 	}

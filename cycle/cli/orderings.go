@@ -34,7 +34,7 @@ Few orderings are all enumerated; more are searched by simulated annealing,
 which can miss the lowest.`
 
 func runOrderings(env Env, args []string) error {
-	fs := newFlagSet("orderings", orderingsSynopsis, env.Stderr)
+	fs := NewFlagSet("orderings")
 	var params, charges, sites listFlag
 	fs.Var(&sites, "site", "mixed or replaced sites `SEL=SPECIES:CHARGE:FRACTION,...` (repeatable; vac:FRACTION for vacancies)")
 	fs.Var(&params, "param", "prototype parameter `key=value` (repeatable, or comma-separated)")
@@ -48,7 +48,7 @@ func runOrderings(env Env, args []string) error {
 	cifDir := fs.String("cif-dir", "", "write each listed ordering as a CIF file into `DIR`")
 	accuracy := fs.Float64("accuracy", ewald.DefaultAccuracy, "relative accuracy of the Ewald sums")
 	asJSON := fs.Bool("json", false, "print one JSON object")
-	pos, help, err := parseFlags(fs, args)
+	pos, help, err := ParseFlags(fs, args)
 	if help || err != nil {
 		return err
 	}

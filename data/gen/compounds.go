@@ -251,7 +251,7 @@ func (g *generator) nasaPhase(comp map[string]float64, state string) (nasaSpecie
 
 var compoundHeader = "formula,name,family,cation,cation_count,anion,anion_count,state,polymorph,molecular," +
 	"formation_kj_per_mol,formation_uncertainty,formation_source,locator,gibbs_kj_per_mol,entropy_j_per_mol_k," +
-	"structure,params,params_source,density_g_cm3,density_source,lattice_kj_per_mol,lattice_convention,lattice_source,memory,note"
+	"structure,params,params_source,density_g_cm3,density_source,density_locator,lattice_kj_per_mol,lattice_convention,lattice_source,memory,note"
 
 // compounds writes compounds.csv: every NBS compound (crystal, or liquid
 // and gas for molecular ones) whose composition is a charge-balanced pair
@@ -395,7 +395,7 @@ func (g *generator) compounds() (*table, error) {
 		if isKept {
 			m.kept = ki
 			usedKept[ki] = true
-			mergeKept(row, keptList[ki], false)
+			g.mergeKept(row, keptList[ki], false)
 		}
 		g.addAlts("compound_formation", row["formula"], alts)
 		rows = append(rows, m)
@@ -410,7 +410,7 @@ func (g *generator) compounds() (*table, error) {
 			continue
 		}
 		row := map[string]string{"formula": k["formula"]}
-		mergeKept(row, k, true)
+		g.mergeKept(row, k, true)
 		g.warnf("kept compound %s: not in the NBS tables; its hand-kept formation enthalpy stays (memory)", k["formula"])
 		rows = append(rows, made{row: row, kept: i})
 	}
@@ -494,8 +494,9 @@ var keptValueFields = []struct{ memory, field string }{
 
 // mergeKept copies the hand-kept fields into a generated row. With
 // formation set it also copies the kept formation enthalpy (a compound the
-// sources do not give). The memory cell lists the kept values present.
-func mergeKept(row, k map[string]string, formation bool) {
+// sources do not give). A density the CRC table gives replaces the kept
+// one. The memory cell lists the kept values the row still carries.
+func (g *generator) mergeKept(row, k map[string]string, formation bool) {
 	for _, f := range []string{"name", "family", "cation", "cation_count", "anion", "anion_count", "structure", "params", "params_source",
 		"density_g_cm3", "density_source", "lattice_kj_per_mol", "lattice_convention", "lattice_source", "note"} {
 		if v := k[f]; v != "" || f == "note" {
@@ -518,12 +519,26 @@ func mergeKept(row, k map[string]string, formation bool) {
 		}
 		mem = append(mem, "formation")
 	}
+	sourced := g.addCRCDensity(row, k["formula"], row["name"])
 	for _, kv := range keptValueFields {
+		if kv.memory == "density" && sourced {
+			continue
+		}
 		if k[kv.field] != "" && memoryNames(k["memory"], kv.memory) {
 			mem = append(mem, kv.memory)
 		}
 	}
 	row["memory"] = strings.Join(mem, ";")
+}
+
+// addCRCDensity writes the CRC table's density of the compound into the
+// row, with its source and locator, and says whether it found one.
+func (g *generator) addCRCDensity(row map[string]string, formula, name string) bool {
+	d, loc, ok := g.crcDensity(formula, name)
+	if ok {
+		row["density_g_cm3"], row["density_source"], row["density_locator"] = d, keyCRCInorg, loc
+	}
+	return ok
 }
 
 // memoryNames reads a memory cell as the loader does: "yes" covers every
@@ -766,7 +781,7 @@ func (g *generator) solutionEnthalpies() (*table, error) {
 		d := max(aq.HDigits, s.row.HDigits)
 		t.add(map[string]string{"formula": s.formula, "solution_kj_per_mol": numDigits(aq.H-s.row.H, d), "source": keyNBS,
 			"locator": locator(nbsFile, aq.Line) + "; " + locator(nbsFile, s.row.Line),
-			"note":    fmt.Sprintf("ΔfH°(%s, ai) %s − ΔfH°(%s, cr) %s", s.nbsFormula, aq.Original, s.nbsFormula, s.row.Original)})
+			"note":    fmt.Sprintf("ΔfH°(%s, ai) %s − ΔfH°(%s, cr) %s%s", s.nbsFormula, aq.Original, s.nbsFormula, s.row.Original, slipNote(aq))})
 	}
 	return t, nil
 }
@@ -796,4 +811,12 @@ func (g *generator) writtenWithIons(f string, pairs []ionPair) bool {
 		}
 	}
 	return false
+}
+
+// slipNote says that a value of the NBS file was corrected by a slip choice.
+func slipNote(r nbsRow) string {
+	if r.Corrected == "" {
+		return ""
+	}
+	return fmt.Sprintf(" (the ai value corrected from the file's %s: a slip choice in data/gen/choices.csv)", r.Corrected)
 }

@@ -4,23 +4,28 @@ import "math"
 
 //go:generate /usr/bin/python3 erfc_gen.py
 
-// erfcxUpper is the end of the range covered by erfcxTable.
-const erfcxUpper = 0.25 * float64(len(erfcxTable))
+// Range of screenedTable: [screenedLower, screenedUpper) in steps of 1/16.
+const (
+	screenedLower = 0.5
+	screenedUpper = screenedLower + float64(len(screenedTable))/16
+)
 
-// erfc returns the complementary error function for x ≥ 0 with one
-// exponential: erfc(x) = exp(−x²)·erfcx(x), erfcx from the piecewise
-// polynomials of erfcxTable (relative error below 1e-14 against math.Erfc;
-// see TestFastErfc). Outside [0, erfcxUpper) it is math.Erfc.
-func erfc(x float64) float64 {
-	if !(x >= 0 && x < erfcxUpper) {
-		return math.Erfc(x)
+// screened returns the screened Coulomb kernel erfc(x)/x for x > 0, so that
+// a real-space Ewald term erfc(α·r)/r is α·screened(α·r): on
+// [screenedLower, screenedUpper) a piecewise polynomial of screenedTable
+// (no exponential, no division; relative error below 1e-14 against
+// math.Erfc(x)/x, see TestScreened), elsewhere math.Erfc(x)/x.
+func screened(x float64) float64 {
+	u := (x - screenedLower) * 16
+	if !(u >= 0 && x < screenedUpper) {
+		return math.Erfc(x) / x
 	}
-	k := int(x * 4)
-	t := (x-0.25*float64(k))*8 - 1 // centre of [k/4, (k+1)/4] is k/4 + 1/8
-	c := &erfcxTable[k]
+	k := int(u)
+	t := (u-float64(k))*2 - 1 // centre of the interval at t = 0
+	c := &screenedTable[k]
 	// Even and odd halves as two independent Horner chains in t².
-	u := t * t
-	even := ((((c[10]*u+c[8])*u+c[6])*u+c[4])*u+c[2])*u + c[0]
-	odd := ((((c[11]*u+c[9])*u+c[7])*u+c[5])*u+c[3])*u + c[1]
-	return math.Exp(-x*x) * (even + t*odd)
+	v := t * t
+	even := ((((c[10]*v+c[8])*v+c[6])*v+c[4])*v+c[2])*v + c[0]
+	odd := ((((c[11]*v+c[9])*v+c[7])*v+c[5])*v+c[3])*v + c[1]
+	return even + t*odd
 }

@@ -1,30 +1,31 @@
 #!/usr/bin/env python3
-"""Writes erfc_table.go: piecewise polynomial fits of the scaled
-complementary error function erfcx(x) = exp(x^2)*erfc(x) on [0, 6.5], so
-that erfc(x) = exp(-x^2)*erfcx(x) costs one exponential. Each interval
-[x0, x0 + 0.25] is fitted by Chebyshev interpolation of degree 11 at
-mpmath's 50-digit precision and stored as monomial coefficients in
-t = (x - centre)/0.125, |t| <= 1. Run with /usr/bin/python3 (needs
-python3-mpmath); the result is checked against math.Erfc by
-TestFastErfc.
+"""Writes erfc_table.go: piecewise polynomial fits of the screened Coulomb
+kernel erfc(x)/x on [0.5, 6.5], so that the real-space Ewald term
+erfc(a*r)/r = a*screened(a*r) costs no exponential and no division. Each
+interval [x0, x0 + 1/16] is fitted by Chebyshev interpolation of degree 11
+at mpmath's 50-digit precision and stored as monomial coefficients in
+t = (x - centre)*32, |t| <= 1. Run with /usr/bin/python3 (needs
+python3-mpmath); the result is checked against math.Erfc(x)/x by
+TestScreened.
 """
 import os
 import mpmath
 
 mpmath.mp.dps = 50
-WIDTH = mpmath.mpf("0.25")
+LOWER = mpmath.mpf("0.5")
+WIDTH = mpmath.mpf(1) / 16
 UPPER = mpmath.mpf("6.5")
 DEGREE = 11
 
 
-def erfcx(x):
-    return mpmath.exp(x * x) * mpmath.erfc(x)
+def screened(x):
+    return mpmath.erfc(x) / x
 
 
 def fit(lo, hi):
     c = (lo + hi) / 2
     h = (hi - lo) / 2
-    f = lambda t: erfcx(c + h * t)
+    f = lambda t: screened(c + h * t)
     n = DEGREE + 1
     nodes = [mpmath.cos(mpmath.pi * (k + mpmath.mpf("0.5")) / n) for k in range(n)]
     vals = [f(t) for t in nodes]
@@ -56,16 +57,16 @@ def main():
         "",
         "package ewald",
         "",
-        "// erfcxTable holds, for x in [k/4, (k+1)/4], the coefficients of",
-        "// erfcx(x) = exp(x²)·erfc(x) as a polynomial in t = (x − centre)·8,",
+        "// screenedTable holds, for x in [1/2 + k/16, 1/2 + (k+1)/16], the",
+        "// coefficients of erfc(x)/x as a polynomial in t = (x − centre)·32,",
         "// lowest degree first.",
-        "var erfcxTable = [...][%d]float64{" % (DEGREE + 1),
+        "var screenedTable = [...][%d]float64{" % (DEGREE + 1),
     ]
     k = 0
-    lo = mpmath.mpf(0)
+    lo = LOWER
     while lo < UPPER:
         c, mono = fit(lo, lo + WIDTH)
-        lines.append("\t{ // [%s, %s]" % (mpmath.nstr(lo, 3), mpmath.nstr(lo + WIDTH, 3)))
+        lines.append("\t{ // [%s, %s]" % (mpmath.nstr(lo, 6), mpmath.nstr(lo + WIDTH, 6)))
         for v in mono:
             lines.append("\t\t%s," % mpmath.nstr(v, 20, strip_zeros=False, min_fixed=-1, max_fixed=-1))
         lines.append("\t},")

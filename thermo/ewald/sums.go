@@ -1,8 +1,10 @@
 package ewald
 
 import (
+	"cmp"
 	"math"
 	"runtime"
+	"slices"
 	"sync"
 
 	"enthalpath/thermo/crystal"
@@ -140,7 +142,7 @@ func (im *imageSum) sum(dfLattice, base crystal.Vec3, self bool) (sum float64, c
 					continue
 				}
 				r := math.Sqrt(r2)
-				sum += erfc(im.alpha*r) / r
+				sum += im.alpha * screened(im.alpha*r)
 				count++
 				if r < shortest {
 					shortest = r
@@ -207,24 +209,64 @@ func (s *system) realSpace(alpha, rc float64, phi []float64) (terms int, nearest
 func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
 	n := len(s.q)
 	chunks := len(parts)
+	// With the cut-off below half of every distance between lattice
+	// planes, |Δfₖ + mₖ| ≤ rc·|bₖ| < ½ leaves one image per pair, the one
+	// of the rounded fractional difference (and none of a site itself).
+	minImage := true
+	for k := 0; k < 3; k++ {
+		minImage = minImage && rc*s.recip[k].Norm() < 0.5
+	}
+	if !minImage && n < listedImages {
+		s.realSpaceSearched(alpha, rc, parts)
+		return
+	}
+	var tl translationList
+	var selfSum float64
+	var selfCount int
+	if !minImage {
+		tl = s.translationsWithin(rc)
+		// Self images: the same for every site.
+		selfSum, selfCount = tl.selfSum(alpha, rc)
+	}
+	forChunks(n, func(c int) {
+		p := parts[c].reset(n)
+		if minImage {
+			for i := c; i < n; i += chunks {
+				s.minImageRow(i, alpha, rc*rc, p)
+			}
+			return
+		}
+		for i := c; i < n; i += chunks {
+			p.phi[i] += s.q[i] * selfSum
+			p.terms += selfCount
+			s.imagesRow(i, alpha, rc, &tl, p)
+		}
+	})
+}
+
+// listedImages is the smallest cell whose real-space images are found from
+// a sorted list of lattice translations (translationList); a smaller cell
+// has too few pairs to pay for the list, and each of its pairs searches the
+// box of images around it (imageSum).
+const listedImages = 16
+
+func (p *realPart) reset(n int) *realPart {
+	p.nearest, p.pair, p.overlap = math.Inf(1), [2]int{-1, -1}, [2]int{-1, -1}
+	p.phi = make([]float64, n)
+	return p
+}
+
+// realSpaceSearched is realSpacePairs for a small cell: each pair searches
+// the box of images around it.
+func (s *system) realSpaceSearched(alpha, rc float64, parts []realPart) {
+	n := len(s.q)
+	chunks := len(parts)
 	imv := newImageSum(s, alpha, rc)
 	im := &imv
 	// Self images: the same for every site.
 	selfSum, selfCount, _, _ := im.sum(crystal.Vec3{}, crystal.Vec3{}, true)
-	// With the cut-off below half of every distance between lattice
-	// planes, |Δfₖ + mₖ| ≤ rc·|bₖ| < ½ leaves one image per pair, the one
-	// of the rounded fractional difference (and none of a site itself).
-	minImage := im.h[0] < 0.5 && im.h[1] < 0.5 && im.h[2] < 0.5
 	forChunks(n, func(c int) {
-		p := &parts[c]
-		p.nearest, p.pair, p.overlap = math.Inf(1), [2]int{-1, -1}, [2]int{-1, -1}
-		p.phi = make([]float64, n)
-		if minImage {
-			for i := c; i < n; i += chunks {
-				s.minImageRow(i, alpha, im.rc2, p)
-			}
-			return
-		}
+		p := parts[c].reset(n)
 		for i := c; i < n; i += chunks {
 			qi := s.q[i]
 			acc := qi * selfSum
@@ -241,6 +283,135 @@ func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
 			p.phi[i] += acc
 		}
 	})
+}
+
+// translationList holds the lattice vectors t with |t| < rc + reach, where
+// reach bounds the length of a difference of two positions reduced to the
+// nearest image (fractional parts in [−½, ½]): every image of a pair within
+// the cut-off is d + t for one of them. They are in order of length, so
+// that the loop over them for a pair d can stop at |t| ≥ rc + |d|.
+type translationList struct {
+	x, y, z []float64
+	norm    []float64
+}
+
+// translationsWithin lists the lattice translations the real-space sum
+// with cut-off rc needs (see translationList).
+func (s *system) translationsWithin(rc float64) translationList {
+	reach := 0.0
+	for _, sg := range [4][3]float64{{1, 1, 1}, {1, 1, -1}, {1, -1, 1}, {-1, 1, 1}} {
+		v := s.lat[0].Scale(sg[0] / 2).Add(s.lat[1].Scale(sg[1] / 2)).Add(s.lat[2].Scale(sg[2] / 2))
+		reach = math.Max(reach, v.Norm())
+	}
+	limit := rc + reach
+	limit2 := limit * limit
+	a0, a1, a2 := s.lat[0], s.lat[1], s.lat[2]
+	a2sq := a2.Dot(a2)
+	m0 := int(math.Ceil(limit * s.recip[0].Norm()))
+	m1 := int(math.Ceil(limit * s.recip[1].Norm()))
+	type entry struct {
+		x, y, z, r float64
+	}
+	list := make([]entry, 0, int(4*math.Pi/3*limit*limit2/s.volume)+16)
+	for i := -m0; i <= m0; i++ {
+		for j := -m1; j <= m1; j++ {
+			fi, fj := float64(i), float64(j)
+			v := crystal.Vec3{fi*a0[0] + fj*a1[0], fi*a0[1] + fj*a1[1], fi*a0[2] + fj*a1[2]}
+			// |v + k·a2|² < limit²: a quadratic in k.
+			b := v.Dot(a2)
+			disc := b*b - a2sq*(v.Dot(v)-limit2)
+			if disc < 0 {
+				continue
+			}
+			root := math.Sqrt(disc)
+			for k := int(math.Ceil((-b - root) / a2sq)); k <= int(math.Floor((-b+root)/a2sq)); k++ {
+				fk := float64(k)
+				x, y, z := v[0]+fk*a2[0], v[1]+fk*a2[1], v[2]+fk*a2[2]
+				if r2 := x*x + y*y + z*z; r2 < limit2 {
+					list = append(list, entry{x, y, z, math.Sqrt(r2)})
+				}
+			}
+		}
+	}
+	// pdqsort is deterministic: the order, and so the order of summation,
+	// depends on the lattice only.
+	slices.SortFunc(list, func(a, b entry) int { return cmp.Compare(a.r, b.r) })
+	buf := make([]float64, 4*len(list))
+	tl := translationList{x: buf[:len(list)], y: buf[len(list) : 2*len(list)], z: buf[2*len(list) : 3*len(list)], norm: buf[3*len(list):]}
+	for k, e := range list {
+		tl.x[k], tl.y[k], tl.z[k], tl.norm[k] = e.x, e.y, e.z, e.r
+	}
+	return tl
+}
+
+// selfSum returns Σ_{t≠0, |t|<rc} erfc(α|t|)/|t| and the number of terms:
+// a site's interaction with its own images.
+func (tl *translationList) selfSum(alpha, rc float64) (sum float64, count int) {
+	for k := 1; k < len(tl.norm) && tl.norm[k] < rc; k++ {
+		sum += alpha * screened(alpha*tl.norm[k])
+		count++
+	}
+	return sum, count
+}
+
+// imagesRow adds the real-space terms of the pairs (i, j > i) at all their
+// images within the cut-off to p: the difference reduced to the nearest
+// image, d, plus each listed translation t with |t| < rc + |d|.
+func (s *system) imagesRow(i int, alpha, rc float64, tl *translationList, p *realPart) {
+	a0, a1, a2 := s.lat[0], s.lat[1], s.lat[2]
+	fi, qi := s.frac[i], s.q[i]
+	rc2 := rc * rc
+	tx, ty, tz, tn := tl.x, tl.y, tl.z, tl.norm
+	tx, ty, tz = tx[:len(tn)], ty[:len(tn)], tz[:len(tn)]
+	acc := 0.0
+	frac, q, phi := s.frac[i+1:], s.q[i+1:], p.phi[i+1:]
+	for k := range frac {
+		fj := &frac[k]
+		d0, d1, d2 := fj[0]-fi[0], fj[1]-fi[1], fj[2]-fi[2]
+		d0 -= float64(int(d0+1.5) - 1)
+		d1 -= float64(int(d1+1.5) - 1)
+		d2 -= float64(int(d2+1.5) - 1)
+		x := d0*a0[0] + d1*a1[0] + d2*a2[0]
+		y := d0*a0[1] + d1*a1[1] + d2*a2[1]
+		z := d0*a0[2] + d1*a1[2] + d2*a2[2]
+		limit := rc + math.Sqrt(x*x+y*y+z*z)
+		sum, shortest, count := 0.0, math.Inf(1), 0
+		for t, tr := range tn {
+			if tr >= limit {
+				break
+			}
+			wx, wy, wz := x+tx[t], y+ty[t], z+tz[t]
+			r2 := wx*wx + wy*wy + wz*wz
+			if r2 >= rc2 {
+				continue
+			}
+			if r2 < coincident*coincident {
+				if p.overlap[0] < 0 {
+					p.overlap = [2]int{i, i + 1 + k}
+				}
+				continue
+			}
+			r := math.Sqrt(r2)
+			sum += alpha * screened(alpha*r)
+			count++
+			shortest = min(shortest, r)
+		}
+		if count == 0 {
+			continue
+		}
+		acc += q[k] * sum
+		phi[k] += qi * sum
+		p.terms += 2 * count
+		if qi*q[k] < 0 && shortest < p.nearest {
+			p.nearest = shortest
+			if qi > 0 {
+				p.pair = [2]int{i, i + 1 + k}
+			} else {
+				p.pair = [2]int{i + 1 + k, i}
+			}
+		}
+	}
+	p.phi[i] += acc
 }
 
 // reciprocalBox returns the reciprocal lattice vectors with 2π and the
@@ -355,18 +526,11 @@ func (s *system) reciprocalSpace(alpha, kc float64, phi []float64) int {
 					part.count++
 					w := pre * gauss / k2
 					r2, i2 := powRe[2][(M2+m2)*n:(M2+m2+1)*n], powIm[2][(M2+m2)*n:(M2+m2+1)*n]
-					sRe, sIm := 0.0, 0.0
-					for j := 0; j < n; j++ {
-						er := pRe[j]*r2[j] - pIm[j]*i2[j]
-						ei := pRe[j]*i2[j] + pIm[j]*r2[j]
-						eRe[j], eIm[j] = er, ei
-						sRe += s.q[j] * er
-						sIm += s.q[j] * ei
-					}
+					sRe, sIm := structureFactor(s.q, pRe, pIm, r2, i2, eRe, eIm)
 					sRe, sIm = w*sRe, w*sIm
 					// Re(S·conj(e_j)) = sRe·eRe + sIm·eIm.
-					for j := 0; j < n; j++ {
-						out[j] += sRe*eRe[j] + sIm*eIm[j]
+					for j, er := range eRe {
+						out[j] += sRe*er + sIm*eIm[j]
 					}
 				}
 			}
@@ -412,7 +576,7 @@ func (s *system) minImageRow(i int, alpha, rc2 float64, p *realPart) {
 			continue
 		}
 		r := math.Sqrt(r2)
-		e := erfc(alpha*r) / r
+		e := alpha * screened(alpha*r)
 		acc += q[k] * e
 		phi[k] += qi * e
 		p.terms += 2
@@ -426,4 +590,39 @@ func (s *system) minImageRow(i int, alpha, rc2 float64, p *realPart) {
 		}
 	}
 	p.phi[i] += acc
+}
+
+// structureFactor sets e_j = p_j·r_j (complex, as real and imaginary
+// parts) and returns S = Σ q_j·e_j. Four partial sums of each part break the
+// chain of dependent additions, so the loop runs at the speed of its
+// multiplications; the order of summation is fixed, so the result does not
+// depend on anything but the inputs.
+func structureFactor(q, pRe, pIm, rRe, rIm, eRe, eIm []float64) (sRe, sIm float64) {
+	n := len(q)
+	pRe, pIm, rRe, rIm, eRe, eIm = pRe[:n], pIm[:n], rRe[:n], rIm[:n], eRe[:n], eIm[:n]
+	var a0, a1, a2, a3, b0, b1, b2, b3 float64
+	j := 0
+	for ; j+4 <= n; j += 4 {
+		e0r, e0i := pRe[j]*rRe[j]-pIm[j]*rIm[j], pRe[j]*rIm[j]+pIm[j]*rRe[j]
+		e1r, e1i := pRe[j+1]*rRe[j+1]-pIm[j+1]*rIm[j+1], pRe[j+1]*rIm[j+1]+pIm[j+1]*rRe[j+1]
+		e2r, e2i := pRe[j+2]*rRe[j+2]-pIm[j+2]*rIm[j+2], pRe[j+2]*rIm[j+2]+pIm[j+2]*rRe[j+2]
+		e3r, e3i := pRe[j+3]*rRe[j+3]-pIm[j+3]*rIm[j+3], pRe[j+3]*rIm[j+3]+pIm[j+3]*rRe[j+3]
+		eRe[j], eRe[j+1], eRe[j+2], eRe[j+3] = e0r, e1r, e2r, e3r
+		eIm[j], eIm[j+1], eIm[j+2], eIm[j+3] = e0i, e1i, e2i, e3i
+		a0 += q[j] * e0r
+		b0 += q[j] * e0i
+		a1 += q[j+1] * e1r
+		b1 += q[j+1] * e1i
+		a2 += q[j+2] * e2r
+		b2 += q[j+2] * e2i
+		a3 += q[j+3] * e3r
+		b3 += q[j+3] * e3i
+	}
+	for ; j < n; j++ {
+		er, ei := pRe[j]*rRe[j]-pIm[j]*rIm[j], pRe[j]*rIm[j]+pIm[j]*rRe[j]
+		eRe[j], eIm[j] = er, ei
+		a0 += q[j] * er
+		b0 += q[j] * ei
+	}
+	return (a0 + a1) + (a2 + a3), (b0 + b1) + (b2 + b3)
 }

@@ -11,6 +11,7 @@ import (
 	"github.com/charmbracelet/lipgloss"
 	"github.com/charmbracelet/x/ansi"
 
+	"enthalpath/tui/nav"
 	"enthalpath/tui/screen"
 	"enthalpath/tui/theme"
 )
@@ -25,10 +26,10 @@ type KeyMap struct {
 // DefaultKeyMap returns the prompt's keys.
 func DefaultKeyMap() KeyMap {
 	return KeyMap{
-		Submit: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "accept")),
-		Cancel: key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel")),
-		Prev:   key.NewBinding(key.WithKeys("up"), key.WithHelp("↑", "previous choice")),
-		Next:   key.NewBinding(key.WithKeys("down"), key.WithHelp("↓", "next choice")),
+		Submit: nav.Enter.TypingBind("accept"),
+		Cancel: nav.Esc.TypingBind("cancel"),
+		Prev:   nav.Up.TypingBind("previous choice"),
+		Next:   nav.Down.TypingBind("next choice"),
 	}
 }
 
