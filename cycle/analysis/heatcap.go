@@ -25,8 +25,8 @@ func heatCapacity(key string, moles float64) *HeatCapacity {
 	if err != nil {
 		return nil
 	}
-	ivs, ok := t.Species(key)
-	if !ok || len(ivs) == 0 {
+	ivs, ok, err := t.Species(key)
+	if err != nil || !ok || len(ivs) == 0 {
 		return nil
 	}
 	chain := make(gibbs.Chain, len(ivs))

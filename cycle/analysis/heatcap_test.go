@@ -32,8 +32,8 @@ func TestHeatCapacityReproducesSourceEnthalpy(t *testing.T) {
 		t.Errorf("only %d species with polynomials", tb.Len())
 	}
 	for _, key := range []string{"CO2(g)", "O2(g)", "H2O(g)", "Cl2(g)", "CaO(cr)", "CaCO3(cr)", "MgO(cr)", "MgCO3(cr)", "BaCO3(cr)", "SrCO3(cr)"} {
-		ivs, ok := tb.Species(key)
-		if !ok {
+		ivs, ok, err := tb.Species(key)
+		if err != nil || !ok {
 			t.Errorf("%s: no polynomials", key)
 			continue
 		}
