@@ -31,7 +31,6 @@ var longFilesBeingSplit = map[string]string{
 	"cycle/cli/data.go":           "i12",
 	"thermo/ewald/sums.go":        "i19",
 	"cycle/models.go":             "i15",
-	"cycle/build.go":              "i14",
 	"tui/model.go":                "i13t",
 	"tui/assembly/assembly.go":    "i13t",
 }
