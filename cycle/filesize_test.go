@@ -33,6 +33,7 @@ var longFilesBeingSplit = map[string]string{
 	"cycle/models.go":             "i15",
 	"cycle/build.go":              "i14",
 	"tui/model.go":                "i13t",
+	"tui/assembly/assembly.go":    "i13t",
 }
 
 // generated is the line that marks a generated Go file ("go help generate").
