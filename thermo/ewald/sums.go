@@ -473,12 +473,14 @@ func (s *system) reciprocalSpace(alpha, kc float64, phi []float64) int {
 	parts := make([]recipPart, chunks)
 	forChunks(n, func(c int) {
 		part := &parts[c]
-		work := make([]float64, 5*n) // the chunk's potentials and four rows
+		work := make([]float64, 7*n) // the chunk's potentials and six rows
 		part.phi = work[:n:n]
 		out := part.phi
 		pRe, pIm := work[n:2*n:2*n], work[2*n:3*n:3*n]
-		eRe, eIm := work[3*n:4*n:4*n], work[4*n:]
-		row := -1
+		eRe, eIm := work[3*n:4*n:4*n], work[4*n:5*n:5*n]
+		fRe, fIm := work[5*n:6*n:6*n], work[6*n:]
+		ks := make([]rowVector, 0, 2*M2+1)
+		rowIndex := -1
 		for m0 := 0; m0 <= M0; m0++ {
 			lo1 := -M1
 			if m0 == 0 {
@@ -486,7 +488,7 @@ func (s *system) reciprocalSpace(alpha, kc float64, phi []float64) int {
 			}
 			for m1 := lo1; m1 <= M1; m1++ {
 				// Rows (m0, m1) are dealt to the chunks in turn.
-				if row++; row%chunks != c {
+				if rowIndex++; rowIndex%chunks != c {
 					continue
 				}
 				g := b[0].Scale(float64(m0)).Add(b[1].Scale(float64(m1)))
@@ -517,20 +519,37 @@ func (s *system) reciprocalSpace(alpha, kc float64, phi []float64) int {
 				k2lo := gg + float64(lo2)*(2*gb+float64(lo2)*b2sq)
 				gauss := math.Exp(-k2lo * inv4a2)
 				step := math.Exp(-(2*gb + float64(2*lo2+1)*b2sq) * inv4a2)
+				row := ks[:0]
 				for m2 := lo2; m2 <= hi2; m2, gauss, step = m2+1, gauss*step, step*stepRatio {
 					fm := float64(m2)
 					k2 := gg + fm*(2*gb+fm*b2sq)
 					if k2 > kc2 || k2 <= 0 {
 						continue
 					}
-					part.count++
-					w := pre * gauss / k2
-					r2, i2 := powRe[2][(M2+m2)*n:(M2+m2+1)*n], powIm[2][(M2+m2)*n:(M2+m2+1)*n]
-					sRe, sIm := structureFactor(s.q, pRe, pIm, r2, i2, eRe, eIm)
-					sRe, sIm = w*sRe, w*sIm
-					// Re(S·conj(e_j)) = sRe·eRe + sIm·eIm.
+					row = append(row, rowVector{m2, pre * gauss / k2})
+				}
+				part.count += len(row)
+				// Two k-vectors of the row at a time: the phases of the
+				// row and the potentials are read once for both.
+				for k := 0; k < len(row); k += 2 {
+					a := row[k]
+					ra, ia := powRe[2][(M2+a.m2)*n:(M2+a.m2+1)*n], powIm[2][(M2+a.m2)*n:(M2+a.m2+1)*n]
+					if k+1 == len(row) {
+						sRe, sIm := structureFactor(s.q, pRe, pIm, ra, ia, eRe, eIm)
+						sRe, sIm = a.w*sRe, a.w*sIm
+						// Re(S·conj(e_j)) = sRe·eRe + sIm·eIm.
+						for j, er := range eRe {
+							out[j] += sRe*er + sIm*eIm[j]
+						}
+						break
+					}
+					b := row[k+1]
+					rb, ib := powRe[2][(M2+b.m2)*n:(M2+b.m2+1)*n], powIm[2][(M2+b.m2)*n:(M2+b.m2+1)*n]
+					saRe, saIm, sbRe, sbIm := structureFactors(s.q, pRe, pIm, ra, ia, rb, ib, eRe, eIm, fRe, fIm)
+					saRe, saIm, sbRe, sbIm = a.w*saRe, a.w*saIm, b.w*sbRe, b.w*sbIm
+					fRe, fIm := fRe[:len(eRe)], fIm[:len(eRe)]
 					for j, er := range eRe {
-						out[j] += sRe*er + sIm*eIm[j]
+						out[j] += (saRe*er + saIm*eIm[j]) + (sbRe*fRe[j] + sbIm*fIm[j])
 					}
 				}
 			}
@@ -590,6 +609,53 @@ func (s *system) minImageRow(i int, alpha, rc2 float64, p *realPart) {
 		}
 	}
 	p.phi[i] += acc
+}
+
+// rowVector is one k-vector of a row of the reciprocal sum: its last index
+// and its weight (8π/V)·exp(−k²/4α²)/k².
+type rowVector struct {
+	m2 int
+	w  float64
+}
+
+// structureFactors is structureFactor for two k-vectors that share the
+// first factor p: e_j = p_j·r_j, f_j = p_j·s_j, and the sums Σ q_j·e_j and
+// Σ q_j·f_j.
+func structureFactors(q, pRe, pIm, rRe, rIm, sRe, sIm, eRe, eIm, fRe, fIm []float64) (aRe, aIm, bRe, bIm float64) {
+	n := len(q)
+	pRe, pIm, rRe, rIm, sRe, sIm = pRe[:n], pIm[:n], rRe[:n], rIm[:n], sRe[:n], sIm[:n]
+	eRe, eIm, fRe, fIm = eRe[:n], eIm[:n], fRe[:n], fIm[:n]
+	var a0, a1, b0, b1, c0, c1, d0, d1 float64
+	j := 0
+	for ; j+2 <= n; j += 2 {
+		pr, pi, qj := pRe[j], pIm[j], q[j]
+		er, ei := pr*rRe[j]-pi*rIm[j], pr*rIm[j]+pi*rRe[j]
+		fr, fi := pr*sRe[j]-pi*sIm[j], pr*sIm[j]+pi*sRe[j]
+		eRe[j], eIm[j], fRe[j], fIm[j] = er, ei, fr, fi
+		a0 += qj * er
+		b0 += qj * ei
+		c0 += qj * fr
+		d0 += qj * fi
+		pr, pi, qj = pRe[j+1], pIm[j+1], q[j+1]
+		er, ei = pr*rRe[j+1]-pi*rIm[j+1], pr*rIm[j+1]+pi*rRe[j+1]
+		fr, fi = pr*sRe[j+1]-pi*sIm[j+1], pr*sIm[j+1]+pi*sRe[j+1]
+		eRe[j+1], eIm[j+1], fRe[j+1], fIm[j+1] = er, ei, fr, fi
+		a1 += qj * er
+		b1 += qj * ei
+		c1 += qj * fr
+		d1 += qj * fi
+	}
+	for ; j < n; j++ {
+		pr, pi, qj := pRe[j], pIm[j], q[j]
+		er, ei := pr*rRe[j]-pi*rIm[j], pr*rIm[j]+pi*rRe[j]
+		fr, fi := pr*sRe[j]-pi*sIm[j], pr*sIm[j]+pi*sRe[j]
+		eRe[j], eIm[j], fRe[j], fIm[j] = er, ei, fr, fi
+		a0 += qj * er
+		b0 += qj * ei
+		c0 += qj * fr
+		d0 += qj * fi
+	}
+	return a0 + a1, b0 + b1, c0 + c1, d0 + d1
 }
 
 // structureFactor sets e_j = p_j·r_j (complex, as real and imaginary
