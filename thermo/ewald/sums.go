@@ -625,37 +625,19 @@ func structureFactors(q, pRe, pIm, rRe, rIm, sRe, sIm, eRe, eIm, fRe, fIm []floa
 	n := len(q)
 	pRe, pIm, rRe, rIm, sRe, sIm = pRe[:n], pIm[:n], rRe[:n], rIm[:n], sRe[:n], sIm[:n]
 	eRe, eIm, fRe, fIm = eRe[:n], eIm[:n], fRe[:n], fIm[:n]
-	var a0, a1, b0, b1, c0, c1, d0, d1 float64
-	j := 0
-	for ; j+2 <= n; j += 2 {
-		pr, pi, qj := pRe[j], pIm[j], q[j]
+	// Four independent sums: no chain of dependent additions limits the
+	// loop.
+	for j, qj := range q {
+		pr, pi := pRe[j], pIm[j]
 		er, ei := pr*rRe[j]-pi*rIm[j], pr*rIm[j]+pi*rRe[j]
 		fr, fi := pr*sRe[j]-pi*sIm[j], pr*sIm[j]+pi*sRe[j]
 		eRe[j], eIm[j], fRe[j], fIm[j] = er, ei, fr, fi
-		a0 += qj * er
-		b0 += qj * ei
-		c0 += qj * fr
-		d0 += qj * fi
-		pr, pi, qj = pRe[j+1], pIm[j+1], q[j+1]
-		er, ei = pr*rRe[j+1]-pi*rIm[j+1], pr*rIm[j+1]+pi*rRe[j+1]
-		fr, fi = pr*sRe[j+1]-pi*sIm[j+1], pr*sIm[j+1]+pi*sRe[j+1]
-		eRe[j+1], eIm[j+1], fRe[j+1], fIm[j+1] = er, ei, fr, fi
-		a1 += qj * er
-		b1 += qj * ei
-		c1 += qj * fr
-		d1 += qj * fi
+		aRe += qj * er
+		aIm += qj * ei
+		bRe += qj * fr
+		bIm += qj * fi
 	}
-	for ; j < n; j++ {
-		pr, pi, qj := pRe[j], pIm[j], q[j]
-		er, ei := pr*rRe[j]-pi*rIm[j], pr*rIm[j]+pi*rRe[j]
-		fr, fi := pr*sRe[j]-pi*sIm[j], pr*sIm[j]+pi*sRe[j]
-		eRe[j], eIm[j], fRe[j], fIm[j] = er, ei, fr, fi
-		a0 += qj * er
-		b0 += qj * ei
-		c0 += qj * fr
-		d0 += qj * fi
-	}
-	return a0 + a1, b0 + b1, c0 + c1, d0 + d1
+	return aRe, aIm, bRe, bIm
 }
 
 // structureFactor sets e_j = p_j·r_j (complex, as real and imaginary
