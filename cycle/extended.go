@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"enthalpath/data"
@@ -46,36 +47,48 @@ type ExtendedBreakdown struct {
 	Reference            float64
 	ReferenceFrom        string
 	ReferenceMeasured    bool
-	// LatticeCorrection is ΔH_L − U (kJ/mol), the n·RT term of the cycle's
-	// lattice convention (0 when the cycle compares lattice energies).
-	LatticeCorrection float64
-	// RepulsionFrom, DispersionFrom and ZeroPointFrom say how each term
-	// was obtained.
-	RepulsionFrom, DispersionFrom, ZeroPointFrom string
+	// ToCycleConvention is what turns the model's lattice enthalpy at
+	// 298.15 K into the cycle's lattice convention: 0 for ΔH_L, Jenkins'
+	// ΔH_L − U (c.LatticeCorrection) when the cycle compares energies U.
+	ToCycleConvention float64
+	// RepulsionFrom, DispersionFrom, ZeroPointFrom and HeatContentFrom say
+	// how each term was obtained.
+	RepulsionFrom, DispersionFrom, ZeroPointFrom, HeatContentFrom string
 	// Coefficients are the tabulated numbers used, each with its source.
 	Coefficients []Coefficient
 }
 
-// Terms returns the terms in display order with their names, kJ/mol, at the
-// minimum: Coulomb, repulsion, dispersion C/r⁶, dispersion D/r⁸,
-// zero-point, and the n·RT correction to ΔH_L.
+// Terms returns the terms of t in display order with their names, kJ/mol:
+// Coulomb, repulsion, dispersion C/r⁶, dispersion D/r⁸, zero-point, the
+// heat contents from 0 K to 298.15 K (solid less gaseous ions), and, when
+// the cycle compares energies U, Jenkins' step back to U.
 func (b *ExtendedBreakdown) Terms(t lattice.ExtendedTerms) []Term {
-	return []Term{
+	out := []Term{
 		{"Coulomb (Ewald)", t.Coulomb},
 		{"repulsion", t.Repulsion},
 		{"dispersion C/r⁶", t.DipoleDipole},
 		{"dispersion D/r⁸", t.DipoleQuadrupole},
 		{"zero-point", t.ZP},
-		{"n·RT to ΔH_L", -b.LatticeCorrection},
+		{"heat content 0 → 298.15 K", t.ThermalStep()},
 	}
+	if b.ToCycleConvention != 0 {
+		out = append(out, Term{"to U by Jenkins' rule", b.ToCycleConvention})
+	}
+	return out
+}
+
+// Value returns the model's lattice step for terms t in the cycle's
+// lattice convention (negative, kJ/mol): the sum of Terms.
+func (b *ExtendedBreakdown) Value(t lattice.ExtendedTerms) float64 {
+	return t.Enthalpy() + b.ToCycleConvention
 }
 
 // Summary is the breakdown in one line, kJ/mol per formula unit at the
 // least energy.
 func (b *ExtendedBreakdown) Summary() string {
 	t := b.Minimum
-	return fmt.Sprintf("extended model per formula unit at its least energy (d = %.4f Å): Coulomb %.1f, repulsion %+.1f, dispersion %.1f, zero-point %+.1f, n·RT %+.1f kJ/mol",
-		t.D, t.Coulomb, t.Repulsion, t.Dispersion(), t.ZP, -b.LatticeCorrection)
+	return fmt.Sprintf("extended model per formula unit at its least energy (d = %.4f Å): Coulomb %.1f, repulsion %+.1f, dispersion %.1f, zero-point %+.1f, heat content to 298.15 K %+.1f kJ/mol",
+		t.D, t.Coulomb, t.Repulsion, t.Dispersion(), t.ZP, t.ThermalStep())
 }
 
 // Term is one named energy, kJ/mol.
@@ -163,6 +176,73 @@ func (e *evaluator) extended(in *ModelInputs) (float64, error) {
 		}
 		st = Structure{Prototype: p}
 	}
+	// The model depends on the structure, the ions, the reference distance,
+	// ρ's setting, the molar mass and the lattice convention: remembered
+	// under those, it is evaluated once per cycle, not on every Solve.
+	key := extendedKey(st, c, in, c.Settings.Rho)
+	memo := c.Memo()
+	if r, ok := memo.extendedLookup(key); ok {
+		in.Extended, in.Rho = r.b, r.rho
+		return r.u, r.err
+	}
+	u, err := e.extendedUncached(in, st, params)
+	memo.extendedStore(key, extendedEntry{u: u, b: in.Extended, rho: in.Rho, err: err})
+	return u, err
+}
+
+// extendedEntry is one remembered evaluation of the extended model; its
+// breakdown is shared and never changed.
+type extendedEntry struct {
+	u   float64
+	b   *ExtendedBreakdown
+	rho float64
+	err error
+}
+
+func extendedKey(st Structure, c *Cycle, in *ModelInputs, rho float64) string {
+	b := make([]byte, 0, 128)
+	b = append(b, memoKey(st, c.Cation, c.Anion, 0)...)
+	b = append(b, '|')
+	b = append(b, c.Formula...)
+	for _, p := range []Part{c.Cation, c.Anion} {
+		b = append(b, '|')
+		b = append(b, p.Ion.Symbol...)
+		b = append(b, 'x')
+		b = strconv.AppendInt(b, int64(p.Count), 10)
+	}
+	for _, x := range []float64{in.D0, in.Madelung, rho, c.MolarMass} {
+		b = append(b, '|')
+		b = strconv.AppendFloat(b, x, 'g', -1, 64)
+	}
+	b = append(b, '|')
+	b = append(b, in.D0From...)
+	b = strconv.AppendInt(b, int64(c.Conventions.Lattice), 10)
+	return string(b)
+}
+
+func (m *Memo) extendedLookup(key string) (extendedEntry, bool) {
+	m.mu.Lock()
+	defer m.mu.Unlock()
+	e, ok := m.ext[key]
+	return e, ok
+}
+
+func (m *Memo) extendedStore(key string, e extendedEntry) {
+	m.mu.Lock()
+	defer m.mu.Unlock()
+	if m.ext == nil || len(m.ext) >= maxMemo {
+		m.ext = map[string]extendedEntry{}
+	}
+	m.ext[key] = e
+}
+
+// extendedUncached evaluates the extended model of e's cycle in structure
+// st into in.
+func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data.ModelParams) (float64, error) {
+	c := e.c
+	fail := func(reason string, err error) (float64, error) {
+		return 0, &ModelError{Model: ModelExtended, Reason: reason, Err: err}
+	}
 	ps, err := c.Memo().pairSums(st, c.Cation, c.Anion)
 	if err != nil {
 		return 0, err
@@ -185,6 +265,7 @@ func (e *evaluator) extended(in *ModelInputs) (float64, error) {
 		VolumePerFormulaUnit: ps.volumePerFU * scale * scale * scale,
 		Sums:                 sums,
 		ZeroPoint:            lattice.ZeroPoint{MolarMass: c.MolarMass},
+		Thermal:              lattice.Thermal{Temperature: thermo.StandardTemperature},
 	}
 	cite := func(name string, v data.Value) {
 		src, _ := params.Source(v.Source)
@@ -260,9 +341,9 @@ func (e *evaluator) extended(in *ModelInputs) (float64, error) {
 		return fail("cannot be evaluated", err)
 	}
 	b.Minimum, b.AtReference = res.Minimum, res.AtD0
-	b.ZeroPointFrom = res.ZeroPointFrom
-	if c.Conventions.Lattice == LatticeEnthalpy {
-		b.LatticeCorrection = c.LatticeCorrection()
+	b.ZeroPointFrom, b.HeatContentFrom = res.ZeroPointFrom, res.HeatContentFrom
+	if c.Conventions.Lattice == LatticeEnergy {
+		b.ToCycleConvention = c.LatticeCorrection()
 	}
 	in.Extended = b
 	in.Rho = input.Repulsion.Rho

@@ -9,6 +9,7 @@ import (
 	"strings"
 	"sync"
 
+	"enthalpath/data"
 	"enthalpath/thermo/crystal"
 	"enthalpath/thermo/ewald"
 )
@@ -45,6 +46,12 @@ type Memo struct {
 	m  map[string]memoEntry
 	// sums holds the extended model's pair sums per structure (extended.go).
 	sums map[string]sumsEntry
+	// ext holds the extended model's evaluations (extended.go).
+	ext map[string]extendedEntry
+	// validation is the last data set's validation (validation.go), kept
+	// here so that a Solve asks the data set for it once.
+	validationOf *data.DB
+	validation   *Validation
 }
 
 type memoEntry struct {

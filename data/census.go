@@ -17,17 +17,23 @@ type TableCensus struct {
 }
 
 // sourceColumns are the columns that hold a source key.
-var sourceColumns = []string{"source", "formation_source", "params_source", "density_source", "lattice_source", "entropy_source"}
+var sourceColumns = []string{"source", "formation_source", "params_source", "density_source", "lattice_source", "entropy_source",
+	"rho_source", "dispersion_source", "radius_source", "polarizability_source"}
 
-// Census counts the rows of every built-in table, in reading order. A
-// compound row citing several sources counts once under each.
+// censusModelTables are the extended model's coefficient tables
+// (modelparams.go), counted after the tables of TableFiles.
+var censusModelTables = []string{"model_sources.csv", "model_salts.csv", "model_ions.csv"}
+
+// Census counts the rows of every built-in table, in reading order, then
+// the extended model's coefficient tables. A row citing several sources
+// counts once under each.
 func Census() ([]TableCensus, error) {
 	sub, err := fs.Sub(embedded, "tables")
 	if err != nil {
 		return nil, err
 	}
 	var out []TableCensus
-	for _, name := range TableFiles() {
+	for _, name := range append(TableFiles(), censusModelTables...) {
 		raw, err := fs.ReadFile(sub, name)
 		if err != nil {
 			continue

@@ -18,11 +18,12 @@ var tableColumns = map[string][]string{
 		"state", "polymorph", "molecular",
 		"formation_kj_per_mol", "formation_uncertainty", "formation_source", "locator",
 		"gibbs_kj_per_mol", "entropy_j_per_mol_k", "structure", "params", "params_source",
-		"density_g_cm3", "density_source", "lattice_kj_per_mol", "lattice_convention", "lattice_source", "memory", "note"},
+		"density_g_cm3", "density_source", "density_locator", "lattice_kj_per_mol", "lattice_convention", "lattice_source", "memory", "note"},
 	"solution_enthalpies.csv": {"formula", "solution_kj_per_mol", "uncertainty", "source", "locator", "memory", "note"},
 	"species.csv": {"formula", "name", "formation_kj_per_mol", "formation_uncertainty", "gibbs_kj_per_mol",
 		"entropy_j_per_mol_k", "source", "locator", "memory", "note"},
 	"alternatives.csv": {"kind", "key", "value", "uncertainty", "unit", "source", "locator", "note"},
+	AnionRadiiFile:     {"symbol", "radius_angstrom", "source", "locator", "memory", "note"},
 	DerivedIonsFile:    {"ion", "gas_formation_kj_per_mol", "standard_error", "model", "salts", "outside_2sigma", "skipped", "derived", "note"},
 }
 
@@ -43,6 +44,7 @@ var tableOrder = []struct {
 	{"ions.csv", "ion", false},
 	{"shannon.csv", "shannon", false},
 	{"ion_values.csv", "ion_value", true},
+	{AnionRadiiFile, "anion_radius", true},
 	{"compounds.csv", "compound", true},
 	{"solution_enthalpies.csv", "solution_enthalpy", true},
 	{"species.csv", "species", true},

@@ -19,15 +19,23 @@ func memoryKey(table string, r record) string {
 		return r.str("symbol")
 	case "born_exponents.csv":
 		return r.str("config")
+	case "model_salts.csv":
+		return r.str("formula")
+	case "model_ions.csv":
+		return r.str("ion")
 	}
 	return r.file + ":" + r.str("symbol")
 }
 
 // Every built-in row marked memory is listed in memory_allowlist.csv with
-// its reason, and every line there names a memory row; at most 400 remain
-// (382 when the tables were generated from the pinned sources: cells,
-// densities and handbook lattice energies of the 272 compounds kept by hand
-// make most of them). The bound keeps new recalled rows from creeping in.
+// its reason, and every line there names a memory row, the extended model's
+// coefficient tables included. At most 202 remain (418 counted the same way
+// before atomic weights and densities were generated from pinned sources;
+// the target is 150): cells and handbook lattice energies of the
+// compounds kept by hand make most of them. The bound only ever shrinks,
+// but for the 5 radii of anion_radii.csv (197 before them), recalled
+// because no source gives radii of P³⁻, As³⁻, Sb³⁻, C⁴⁻, Si⁴⁻ and without
+// them 103 built-in cycles cannot close.
 func TestMemoryAllowList(t *testing.T) {
 	f, err := os.Open("memory_allowlist.csv")
 	if err != nil {
@@ -83,7 +91,7 @@ func TestMemoryAllowList(t *testing.T) {
 		}
 	}
 	t.Logf("%d memory rows, all listed with a reason", total)
-	if total > 400 {
-		t.Errorf("%d memory rows; at most 400 (382 when the tables were generated)", total)
+	if total > 202 {
+		t.Errorf("%d memory rows; at most 202", total)
 	}
 }

@@ -211,8 +211,10 @@ func TestOverlayAtomicWeight(t *testing.T) {
 	if !na.AtomicMass.Override || na.AtomicMass.Source != "user" || math.Abs(na.AtomicMass.V-23.5) > 1e-12 {
 		t.Errorf("overlaid Na weight: %+v", na.AtomicMass)
 	}
-	if na.AtomicMass.Replaced == nil || math.Abs(na.AtomicMass.Replaced.V-22.990) > 1e-9 {
-		t.Errorf("overlaid Na weight should keep the built-in 22.990 (IUPAC 2021, from memory) in Replaced: %+v", na.AtomicMass.Replaced)
+	// 22.98976928: CIAAW standard atomic weight of Na (Meija et al. 2016), as
+	// vendored in data/sources/atomic-weights/atomic_weights_ciaaw.csv.
+	if na.AtomicMass.Replaced == nil || math.Abs(na.AtomicMass.Replaced.V-22.98976928) > 1e-9 {
+		t.Errorf("overlaid Na weight should keep the built-in 22.98976928 (CIAAW) in Replaced: %+v", na.AtomicMass.Replaced)
 	}
 	if _, err := db.WithOverlay(strings.NewReader("[[atomic_weight]]\nsymbol = \"Na\"\natomic_weight = -1\n"), "bad.toml"); err == nil {
 		t.Error("a negative atomic weight was accepted")

@@ -50,7 +50,8 @@ func readmeCounts(t *testing.T) string {
 	b.WriteString("\nRows marked `memory` (recalled without the document at hand):\n\n")
 	b.WriteString("| table | memory rows | rows |\n| --- | ---: | ---: |\n")
 	var sumM, sumR int
-	for _, name := range TableFiles() {
+	for _, c := range census {
+		name := c.File
 		m, ok := memory[name]
 		if !ok {
 			continue

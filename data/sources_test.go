@@ -2,6 +2,7 @@ package data
 
 import (
 	"bufio"
+	"maps"
 	"math"
 	"os"
 	"path/filepath"
@@ -63,11 +64,23 @@ func numbersIn(line string) []float64 {
 //     shifted by a whole multiple of 5/2·RT = 6.197 kJ/mol (the electron
 //     convention, converted once by the generator);
 //   - nist-asd, crc2014-ea: the value as printed;
-//   - shannon1976: 100 × the radius in Å is one of the line's radii in pm.
+//   - shannon1976: 100 × the radius in Å is one of the line's radii in pm;
+//   - ciaaw: the atomic weight as printed;
+//   - crc2014-inorganic: 1000 × the density in g/cm³ is the line's kg/m³.
+//
+// correctedAtLocator lists the values the generator corrects on purpose (a
+// slip of the vendored copy, data/gen/choices.csv): they are not at their
+// locator as printed, and each must be checked as not found there.
+var correctedAtLocator = map[string]string{
+	"Ce4+ radius X":          "radiusslip: the copy prints 97 pm, Shannon's table 107 pm (crystal 121 − 14)",
+	"Cu3+ crystal radius VI": "radiusslip: the copy prints 60 pm, Shannon's table 68 pm (ionic 54 + 14)",
+}
+
 func TestValuesAtTheirLocators(t *testing.T) {
 	db := mustLoad(t)
 	pinned := pinnedLines{}
 	checked := map[string]int{}
+	pendingCorrections := maps.Clone(correctedAtLocator)
 	check := func(what string, v Value) {
 		if v.Locator == "" || !v.Known() {
 			return
@@ -104,12 +117,23 @@ func TestValuesAtTheirLocators(t *testing.T) {
 			for _, x := range numbersIn(line) {
 				found = found || math.Abs(x-100*v.V) < 1e-6
 			}
+		case "crc2014-inorganic":
+			for _, x := range numbersIn(line) {
+				found = found || math.Abs(x-1000*v.V) < 1e-6 // kg/m³ in the file
+			}
 		default:
 			for _, x := range numbersIn(line) {
 				found = found || math.Abs(x-v.V) < 1e-9
 			}
 		}
 		checked[v.Source]++
+		if reason, corrected := correctedAtLocator[what]; corrected {
+			if found {
+				t.Errorf("%s is listed as corrected (%s) but stands at %s as printed", what, reason, v.Locator)
+			}
+			delete(pendingCorrections, what)
+			return
+		}
 		if !found {
 			t.Errorf("%s = %g [%s] not found at %s: %q", what, v.V, v.Source, v.Locator, line)
 		}
@@ -118,6 +142,7 @@ func TestValuesAtTheirLocators(t *testing.T) {
 		check(e.Symbol+" atomization", e.Atomization)
 		check(e.Symbol+" S°", e.StandardEntropy)
 		check(e.Symbol+" EA", e.ElectronAffinity)
+		check(e.Symbol+" atomic weight", e.AtomicMass)
 		for i, v := range e.Ionization {
 			check(e.Symbol+" IE"+strconv.Itoa(i+1), v)
 		}
@@ -139,6 +164,7 @@ func TestValuesAtTheirLocators(t *testing.T) {
 		check(c.Formula+" formation", c.Formation)
 		check(c.Formula+" ΔfG°", c.GibbsFormation)
 		check(c.Formula+" S°", c.Entropy)
+		check(c.Formula+" density", c.Density)
 		for _, a := range c.Alternatives {
 			check(c.Formula+" formation (other compilation)", a)
 		}
@@ -151,8 +177,11 @@ func TestValuesAtTheirLocators(t *testing.T) {
 			check(sp.Formula+" formation (other compilation)", a)
 		}
 	}
+	for what := range pendingCorrections {
+		t.Errorf("correctedAtLocator lists %s, which was not checked: remove it", what)
+	}
 	t.Logf("values found at their locators, by source: %v", checked)
-	for _, src := range []string{"nbs1982", "nasa-glenn", "atct1.112", "nist-asd", "crc2014-ea", "shannon1976"} {
+	for _, src := range []string{"nbs1982", "nasa-glenn", "atct1.112", "nist-asd", "crc2014-ea", "shannon1976", "ciaaw", "crc2014-inorganic"} {
 		if checked[src] == 0 {
 			t.Errorf("no value of %s was checked at its locator", src)
 		}

@@ -1,45 +1,40 @@
 package tui
 
 import (
-	"errors"
 	"fmt"
 	"os"
-	"path/filepath"
 	"slices"
 	"strings"
 
-	"github.com/charmbracelet/bubbles/help"
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
 	"github.com/charmbracelet/lipgloss"
-	"github.com/charmbracelet/x/ansi"
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
 	"enthalpath/tui/analyses"
 	"enthalpath/tui/assembly"
 	"enthalpath/tui/bench"
+	"enthalpath/tui/filedialog"
+	"enthalpath/tui/header"
+	"enthalpath/tui/keyhelp"
 	"enthalpath/tui/modelpanel"
+	"enthalpath/tui/nav"
 	"enthalpath/tui/prompt"
+	"enthalpath/tui/recovery"
 	"enthalpath/tui/screen"
 	"enthalpath/tui/session"
 	"enthalpath/tui/shelf"
+	"enthalpath/tui/status"
 	"enthalpath/tui/survey"
 	"enthalpath/tui/theme"
+	"enthalpath/tui/unsaved"
 )
 
 // ShutdownMsg tells the workshop to stop (the SSH server is shutting down,
 // or the local process got a signal): unsaved work goes to the recovery
 // file and the program quits.
 type ShutdownMsg struct{ Reason string }
-
-// openedMsg is the answer of an open request.
-type openedMsg struct {
-	c      *cycle.Cycle
-	path   string
-	guided bool
-	err    error
-}
 
 // savedMsg is the answer of a save.
 type savedMsg struct {
@@ -49,36 +44,32 @@ type savedMsg struct {
 	thenOpen *screen.OpenMsg // opened once saved
 }
 
-// Model is the root model of the workshop.
+// Model is the root model of the workshop: it routes messages and composes
+// the chrome's components (header, status, keyhelp, unsaved, filedialog,
+// recovery) around the screen shown.
 type Model struct {
-	// Keys are the global keys, Confirm those of the unsaved-changes question.
-	Keys    KeyMap
-	Confirm ConfirmKeys
+	// Keys are the global keys.
+	Keys KeyMap
 
-	opts    Options
-	ctx     *screen.Context
-	sess    *session.Session
-	screens []screen.Screen
-	active  screen.ID
-	help    help.Model
-
-	width, height int
-	status        string
-	statusErr     bool
-	showHelp      bool
-	confirming    bool
-	pending       *screen.OpenMsg // what the question is about: nil to quit, else this open
-	prompt        prompt.Slot     // a file name, asked over the screen
-	quitting      bool
-	recovered     string // path of the recovery file written, for the last frame
-	notice        string // the recovery notice of the start, while shown
-	kept          string // where the work was kept before an open, said when it is done
-	// lastKept is the recovery file keepWork wrote last and what it holds.
-	lastKept struct {
-		path    string
-		content []byte
-	}
-	memo *cycle.Memo
+	opts     Options
+	ctx      *screen.Context
+	sess     *session.Session
+	screens  []screen.Screen
+	active   screen.ID
+	help     *keyhelp.Model
+	status   status.Line
+	question *unsaved.Question // asked before unsaved work is lost
+	prompt   prompt.Slot       // a file name, asked over the screen
+	files    filedialog.Folder // where file names are read
+	keeper   recovery.Keeper   // writes the recovery files
+	memo     *cycle.Memo       // one Ewald memo for every cycle this session opens
+	width    int
+	height   int
+	showHelp bool
+	quitting bool
+	// recovered is the recovery file written, for the last frame; kept
+	// says where work was kept before an open, once it is done.
+	recovered, kept string
 }
 
 var _ tea.Model = (*Model)(nil)
@@ -90,18 +81,14 @@ func New(opts Options) tea.Model {
 		opts.MaxInputLen = DefaultMaxInputLen
 	}
 	st := theme.DefaultStyles(opts.Renderer)
-	m := &Model{Keys: DefaultKeyMap(), Confirm: DefaultConfirmKeys(), opts: opts, sess: &session.Session{},
-		memo: cycle.NewMemo()} // one Ewald memo for every cycle this session opens
+	m := &Model{Keys: DefaultKeyMap(), opts: opts, sess: &session.Session{}, memo: cycle.NewMemo(),
+		help: keyhelp.New(st), question: unsaved.New(opts.RecoveryPath != ""), keeper: recovery.Keeper{Path: opts.RecoveryPath}}
 	m.ctx = &screen.Context{Styles: st, Units: thermo.KJPerMol, DB: opts.DB, MaxInputLen: opts.MaxInputLen,
 		ResolvePath: opts.resolver()}
-	m.help = help.New()
-	m.help.ShortSeparator = " · "
-	m.help.Styles = help.Styles{
-		Ellipsis: st.HelpSep, ShortKey: st.HelpKey, ShortDesc: st.HelpDesc, ShortSeparator: st.HelpSep,
-		FullKey: st.HelpKey, FullDesc: st.HelpDesc, FullSeparator: st.HelpSep,
-	}
+	m.files = filedialog.Folder{Root: opts.FileRoot, Resolve: m.ctx.ResolvePath, DB: opts.DB, Styles: st,
+		MaxInputLen: opts.MaxInputLen, Recovery: m.keeper.Files}
 	if err := opts.Validate(); err != nil {
-		m.status, m.statusErr = err.Error(), true
+		m.status.Fail(err.Error())
 	}
 	m.screens = []screen.Screen{
 		screen.Shelf:    shelf.New(m.ctx),
@@ -130,7 +117,7 @@ func (m *Model) Context() *screen.Context { return m.ctx }
 
 // Init starts the screens and opens Options.Initial.
 func (m *Model) Init() tea.Cmd {
-	cmds := []tea.Cmd{m.checkRecovery()}
+	cmds := []tea.Cmd{m.keeper.Notice(m.Keys.Open.Help().Key, m.files.Name)}
 	for _, s := range m.screens {
 		cmds = append(cmds, s.Init())
 	}
@@ -150,36 +137,6 @@ func initialRequest(in string) screen.OpenMsg {
 	return screen.OpenMsg{Formula: in}
 }
 
-func (m *Model) checkRecovery() tea.Cmd {
-	p := m.opts.RecoveryPath
-	if p == "" {
-		return nil
-	}
-	return func() tea.Msg {
-		files := recoveryFiles(p)
-		switch len(files) {
-		case 0:
-			return nil
-		case 1:
-			// The key first and the name last: a long local path cut at
-			// the window's edge is whole in the ctrl+o prompt.
-			return recoveryNoticeMsg{text: "A recovery file from an earlier session (ctrl+o opens it): " + m.name(files[0])}
-		}
-		return recoveryNoticeMsg{text: fmt.Sprintf("%d recovery files from earlier sessions (ctrl+o opens the newest): %s",
-			len(files), m.name(files[0]))}
-	}
-}
-
-// recoveryNoticeMsg announces the recovery files found at the start.
-type recoveryNoticeMsg struct{ text string }
-
-// noticeDealtWith reports whether the recovery notice shown no longer
-// applies: a cycle is open (one of the files, or other work chosen), or
-// none of the announced files is there any more.
-func (m *Model) noticeDealtWith() bool {
-	return m.sess.Cycle != nil || len(recoveryFiles(m.opts.RecoveryPath)) == 0
-}
-
 // Update routes a message. A panic anywhere below writes the recovery file
 // first and then goes on up, so Bubble Tea restores the terminal.
 func (m *Model) Update(msg tea.Msg) (model tea.Model, cmd tea.Cmd) {
@@ -196,11 +153,11 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 	case ShutdownMsg:
 		return m.shutdown(msg.Reason)
 	case screen.StatusMsg:
-		m.status, m.statusErr = msg.Text, msg.Err
+		m.status.Set(msg.Text, msg.Err)
 		return nil
-	case recoveryNoticeMsg:
-		if m.sess.Cycle == nil && m.status == "" { // not over work begun meanwhile
-			m.status, m.statusErr, m.notice = msg.text, false, msg.text
+	case recovery.NoticeMsg:
+		if m.sess.Cycle == nil { // not over work begun meanwhile
+			m.status.Notice(msg.Text)
 		}
 		return nil
 	case screen.SwitchMsg:
@@ -212,7 +169,7 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 			return m.ask(&msg)
 		}
 		return m.openCmd(msg)
-	case openedMsg:
+	case session.LoadedMsg:
 		return m.opened(msg)
 	case savedMsg:
 		return m.saved(msg)
@@ -235,25 +192,29 @@ func (m *Model) broadcast(msg tea.Msg) tea.Cmd {
 	return tea.Batch(cmds...)
 }
 
-func (m *Model) key(k tea.KeyMsg) tea.Cmd {
-	if m.statusErr && m.opts.Validate() == nil {
-		// An error is answered by the next key: it does not stay on.
-		m.status, m.statusErr = "", false
+// answered takes an error off the status line: the next key answers it
+// (an error in the options stays).
+func (m *Model) answered() {
+	if m.opts.Validate() == nil {
+		m.status.ClearError()
 	}
-	if m.prompt.Active() {
+}
+
+func (m *Model) key(k tea.KeyMsg) tea.Cmd {
+	m.answered()
+	switch {
+	case m.prompt.Active():
 		if m.tooSmall() && k.Type != tea.KeyEsc {
 			return nil // not drawn: only esc (cancel) acts
 		}
 		return m.prompt.Update(k)
-	}
-	if m.confirming {
-		if m.tooSmall() && m.smallQuestion() == nil && !key.Matches(k, m.Confirm.Back) {
+	case m.question.Active():
+		if m.tooSmall() && m.question.Small(m.width, m.height) == nil && !key.Matches(k, m.question.Keys.Back) {
 			return nil // the question is not drawn: none of its answers acts
 		}
-		return m.confirmKey(k)
-	}
-	if m.tooSmall() {
-		if key.Matches(k, m.Keys.Quit, m.Keys.ForceQuit, m.Confirm.Back) {
+		return m.answer(k)
+	case m.tooSmall():
+		if key.Matches(k, m.Keys.Quit, m.Keys.ForceQuit, m.question.Keys.Back) {
 			return m.quit()
 		}
 		return nil
@@ -270,11 +231,11 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		return tea.Batch(cmds...)
 	}
 	// While the screen is typing, printable keys are text, not commands.
-	global := func(b key.Binding) bool { return key.Matches(k, b) && !(cur.Capturing() && printable(k)) }
+	global := func(b key.Binding) bool { return key.Matches(k, b) && !(cur.Capturing() && nav.Printable(k)) }
 	switch {
 	case key.Matches(k, m.Keys.ForceQuit):
 		return m.quit()
-	case m.showHelp && (global(m.Keys.Help) || key.Matches(k, m.Confirm.Back) || global(m.Keys.Quit)):
+	case m.showHelp && (global(m.Keys.Help) || key.Matches(k, m.question.Keys.Back) || global(m.Keys.Quit)):
 		m.showHelp = false
 		return nil
 	case global(m.Keys.NextScreen):
@@ -284,7 +245,8 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 	case global(m.Keys.Save):
 		return m.askSave(false, nil)
 	case global(m.Keys.Open):
-		return m.askOpen()
+		m.prompt.Open(m.files.Open())
+		return nil
 	case global(m.Keys.Help):
 		m.showHelp = !m.showHelp
 		return nil
@@ -294,8 +256,7 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 		return m.nextUnits()
 	case global(m.Keys.GoTo):
 		return m.switchTo(screen.ID(k.Runes[0] - '1'))
-	}
-	if m.showHelp {
+	case m.showHelp:
 		return nil
 	}
 	return cur.Update(k)
@@ -303,12 +264,7 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 
 func (m *Model) nextUnits() tea.Cmd {
 	units := thermo.Units()
-	for i, u := range units {
-		if u == m.ctx.Units {
-			m.ctx.Units = units[(i+1)%len(units)]
-			break
-		}
-	}
+	m.ctx.Units = units[(slices.Index(units, m.ctx.Units)+1)%len(units)]
 	return tea.Batch(screen.Status("Energies now in "+m.ctx.Units.String()+"."), m.broadcast(screen.UnitsMsg{}))
 }
 
@@ -318,65 +274,11 @@ func (m *Model) switchTo(id screen.ID) tea.Cmd {
 	}
 	m.active = id
 	m.showHelp = false
-	if m.statusErr && m.opts.Validate() == nil {
-		m.status, m.statusErr = "", false // the error was about the screen left
-	}
-	if m.notice != "" && m.status == m.notice && m.noticeDealtWith() {
-		m.status, m.notice = "", "" // the recovery notice is stale
-	}
+	m.answered() // the error was about the screen left
+	// The recovery notice is stale once a cycle is open (one of the files,
+	// or other work chosen) or none of the files is there any more.
+	m.status.DropNotice(func() bool { return m.sess.Cycle != nil || len(m.keeper.Files()) == 0 })
 	return m.screens[id].Update(screen.ShownMsg{})
-}
-
-func (m *Model) openCmd(req screen.OpenMsg) tea.Cmd {
-	db, memo := m.opts.DB, m.memo
-	resolve := m.ctx.ResolvePath
-	return func() tea.Msg {
-		if db == nil {
-			return openedMsg{err: errors.New("no data loaded")}
-		}
-		if req.File != "" {
-			path, err := resolve(req.File)
-			if err != nil {
-				return openedMsg{err: err}
-			}
-			c, err := cycle.Open(db, path)
-			if c != nil {
-				c.SetMemo(memo)
-				// A structure file the cycle file names is read beside it.
-				if st := c.Settings.Structure; err == nil && st.CIF != "" && st.Cell == nil {
-					var p string
-					if p, err = resolve(filepath.Join(filepath.Dir(req.File), st.CIF)); err == nil {
-						err = c.LoadStructureFile(p, st.CIF)
-					}
-				}
-			}
-			return openedMsg{c: c, path: path, err: err}
-		}
-		c, err := cycle.Build(db, req.Formula, cycle.Options{Memo: memo})
-		return openedMsg{c: c, guided: req.Guided, err: err}
-	}
-}
-
-func (m *Model) opened(msg openedMsg) tea.Cmd {
-	if msg.err != nil {
-		m.status, m.statusErr = strings.TrimSpace(m.kept+" "+session.Message(msg.err)), true
-		m.kept = ""
-		return nil
-	}
-	solve := m.sess.Open(msg.c, msg.path)
-	m.status, m.statusErr = "", false
-	if msg.path != "" {
-		m.status = "Opened " + m.name(msg.path) + "."
-	}
-	if m.kept != "" {
-		m.status = strings.TrimSpace(m.kept + " " + m.status)
-		m.kept = ""
-	}
-	target := screen.Bench
-	if msg.guided {
-		target = screen.Assembly
-	}
-	return tea.Batch(m.broadcast(session.OpenedMsg{}), solve, m.switchTo(target))
 }
 
 // layout hands every screen its body size.
@@ -385,7 +287,7 @@ func (m *Model) layout() {
 	for _, s := range m.screens {
 		s.SetSize(w, h)
 	}
-	m.help.Width = m.width
+	m.help.SetWidth(m.width)
 	m.prompt.SetWidth(min(w-6, 90))
 }
 
@@ -399,275 +301,62 @@ func (m *Model) tooSmall() bool {
 // status line and the help line.
 func (m *Model) View() (out string) {
 	defer m.recoverAndRepanic()
-	if m.quitting {
-		if m.recovered != "" {
-			return "Unsaved work kept in " + m.name(m.recovered) + "\n"
-		}
+	switch {
+	case m.quitting && m.recovered != "":
+		return "Unsaved work kept in " + m.files.Name(m.recovered) + "\n"
+	case m.quitting:
 		return ""
-	}
-	st := m.ctx.Styles
-	if m.width == 0 || m.height == 0 {
+	case m.width == 0 || m.height == 0:
 		return "starting…"
-	}
-	if m.tooSmall() {
+	case m.tooSmall():
 		return m.smallView()
 	}
+	st := m.ctx.Styles
 	w, h := m.bodySize()
+	inner := max(20, m.width-6) // an overlay's border and padding take 4, the margin 2
 	var body string
 	switch {
 	case m.prompt.Active():
-		body = m.centre(st.Overlay.Render(m.prompt.View()), w, h)
-	case m.confirming:
-		body = m.centre(st.Overlay.Render(m.confirmView()), w, h)
+		body = m.centre(m.prompt.View())
+	case m.question.Active():
+		body = m.centre(m.question.View(st, inner, m.files.Name(m.keeper.Next())))
 	case m.showHelp:
-		body = m.centre(st.Overlay.Render(m.fullHelpView()), w, h)
+		title := st.Title.Render("Keys on the "+m.screens[m.active].Title()+" screen, then everywhere") + st.Muted.Render(" (esc closes)")
+		body = m.centre(m.help.Overlay(title, m.FullHelp(), "While typing (Shelf, values, file names) letters are text: use tab, ctrl keys, f1, esc.", inner))
 	default:
 		body = m.screens[m.active].View()
 	}
-	body = m.ctx.Styles.Renderer().NewStyle().Width(w).Height(h).MaxHeight(h).MaxWidth(w).Render(body)
-	return lipgloss.JoinVertical(lipgloss.Left, m.header(), body, m.statusLine(), m.helpLine())
+	body = st.Renderer().NewStyle().Width(w).Height(h).MaxHeight(h).MaxWidth(w).Render(body)
+	titles := make([]string, len(m.screens))
+	for i, s := range m.screens {
+		titles[i] = s.Title()
+	}
+	top := header.Line{Titles: titles, Active: int(m.active), Unit: m.ctx.Units.String()}
+	if c := m.sess.Cycle; c != nil {
+		top.Compound, top.Unsaved = c.Formula, m.sess.Dirty
+	}
+	idle := "enthalpath workshop — " + m.helpKeys() + " lists every key"
+	return lipgloss.JoinVertical(lipgloss.Left, top.View(st, m.width), body,
+		m.status.View(st, m.width, m.files.Shown, m.files.Name(m.sess.Path), idle), m.helpLine())
 }
 
-func (m *Model) centre(box string, w, h int) string {
-	return m.ctx.Styles.Renderer().Place(w, h, lipgloss.Center, lipgloss.Center, box)
+// centre places an overlay's content, boxed, in the middle of the body.
+func (m *Model) centre(content string) string {
+	w, h := m.bodySize()
+	st := m.ctx.Styles
+	return st.Renderer().Place(w, h, lipgloss.Center, lipgloss.Center, st.Overlay.Render(content))
 }
 
 func (m *Model) smallView() string {
 	st := m.ctx.Styles
 	box := st.Renderer().NewStyle().Width(m.width).MaxHeight(m.height)
 	switch {
-	case m.confirming:
-		lines := m.smallQuestion()
-		if lines == nil {
-			return box.Render(st.Warn.Render("The window is too small to show the unsaved-changes question; enlarge it, or press esc to go back to work."))
-		}
-		lines[0] = st.Title.Render(lines[0])
-		return box.Render(strings.Join(lines, "\n"))
+	case m.question.Active():
+		return box.Render(m.question.SmallView(st, m.width, m.height))
 	case m.prompt.Active():
 		return box.Render(st.Warn.Render("A file name is asked; enlarge the window to see it, or press esc to cancel."))
 	}
-	msg := fmt.Sprintf("The window is %d×%d; the workshop needs at least %d×%d.\nEnlarge the window, or press q to quit.",
-		m.width, m.height, MinWidth, MinHeight)
+	msg := fmt.Sprintf("The window is %d×%d; the workshop needs at least %d×%d.\nEnlarge the window, or press %s to quit.",
+		m.width, m.height, MinWidth, MinHeight, m.Keys.Quit.Help().Key)
 	return box.Render(st.Warn.Render(msg))
-}
-
-func (m *Model) header() string {
-	st := m.ctx.Styles
-	right := m.ctx.Units.String()
-	if c := m.sess.Cycle; c != nil {
-		name := c.Formula
-		if m.sess.Dirty {
-			name += " (unsaved)"
-		}
-		right = name + " · " + right
-	}
-	right = st.Header.Render(right)
-	// The compound, the unsaved marker and the unit always show: when the
-	// tabs with their names leave no room, the tabs close up, and then the
-	// screens not shown keep only their numbers (the active one its name).
-	var left string
-	for level := range 3 {
-		left = m.tabs(level)
-		if lipgloss.Width(left)+lipgloss.Width(right)+1 <= m.width {
-			break
-		}
-	}
-	gap := m.width - lipgloss.Width(left) - lipgloss.Width(right)
-	if gap < 1 {
-		return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(right)
-	}
-	return left + strings.Repeat(" ", gap) + right
-}
-
-// tabs draws the screen tabs: at level 0 spaced with every name, at 1
-// closed up, at 2 closed up with the active screen's name and the other
-// screens' numbers.
-func (m *Model) tabs(level int) string {
-	st := m.ctx.Styles
-	tab, active := st.Tab, st.ActiveTab
-	if level > 0 {
-		tab, active = tab.UnsetPadding(), active.UnsetPadding()
-	}
-	var tabs []string
-	for i, s := range m.screens {
-		label := fmt.Sprintf("%d %s", i+1, s.Title())
-		if screen.ID(i) == m.active {
-			tabs = append(tabs, active.Render("["+label+"]"))
-			continue
-		}
-		if level == 2 {
-			label = fmt.Sprint(i + 1)
-		}
-		tabs = append(tabs, tab.Render(" "+label+" "))
-	}
-	return strings.Join(tabs, "")
-}
-
-func (m *Model) statusLine() string {
-	st := m.ctx.Styles
-	text := m.shown(m.status)
-	var out string
-	switch {
-	case text != "" && m.statusErr:
-		out = st.Error.Render("error: ") + st.Text.Render(text)
-	case text != "":
-		out = st.Text.Render(text)
-	case m.sess.Path != "":
-		out = st.Muted.Render("file: " + m.name(m.sess.Path))
-	default:
-		out = st.Muted.Render("enthalpath workshop — " + m.helpKeys() + " lists every key")
-	}
-	return ansi.Truncate(out, m.width, "…") // a cut shows
-}
-
-func (m *Model) helpLine() string {
-	line := m.help.ShortHelpView(m.ShortHelp())
-	wide := m.help
-	wide.Width = 0 // unbounded, to see whether it all fits
-	if !m.confirming && !m.prompt.Active() {
-		// Too narrow for every key: the screen's last keys give way, so
-		// the help and quit keys at the end stay (q quit fell off at 80).
-		b, globals := m.ShortHelp(), m.globalShortHelp()
-		screenKeys := b[:len(b)-len(globals)]
-		for len(screenKeys) > 1 && lipgloss.Width(wide.ShortHelpView(append(slices.Clip(screenKeys), globals...))) > m.width {
-			screenKeys = screenKeys[:len(screenKeys)-1]
-		}
-		line = m.help.ShortHelpView(append(slices.Clip(screenKeys), globals...))
-	}
-	if m.confirming && lipgloss.Width(wide.ShortHelpView(m.ShortHelp())) > m.width {
-		// The question's box says what follows each answer; the line
-		// keeps every key with its bare name rather than lose the last.
-		line = m.help.ShortHelpView(m.confirmKeys())
-	}
-	return m.ctx.Styles.Renderer().NewStyle().MaxWidth(m.width).Render(line)
-}
-
-// ShortHelp is the always-visible help line: the screen's main keys and
-// the few global ones; while a file name is asked, the prompt's keys.
-func (m *Model) ShortHelp() []key.Binding {
-	if m.prompt.Active() {
-		return m.prompt.ShortHelp()
-	}
-	if m.confirming {
-		return m.confirmBindings()
-	}
-	b := slices.Clip(m.screens[m.active].ShortHelp())
-	if len(b) == 0 && !m.screens[m.active].Capturing() {
-		b = []key.Binding{m.Keys.GoTo} // a screen with nothing to act on yet
-	}
-	return append(b, m.globalShortHelp()...)
-}
-
-// globalShortHelp is the end of the help line: the keys that open the key
-// list and quit, those that work while the screen is typing.
-func (m *Model) globalShortHelp() []key.Binding {
-	if m.screens[m.active].Capturing() {
-		var b []key.Binding
-		if h, ok := withoutPrintable(m.Keys.Help); ok {
-			b = append(b, h)
-		}
-		return append(b, m.Keys.ForceQuit)
-	}
-	return []key.Binding{m.Keys.Help, m.Keys.Quit}
-}
-
-// FullHelp is the overlay's content: the screen's keys, then the global
-// keys — while the screen is typing, only the global keys that still work
-// (the non-printable ones).
-func (m *Model) FullHelp() [][]key.Binding {
-	k := m.Keys
-	groups := m.screens[m.active].FullHelp()
-	globals := [][]key.Binding{{k.NextScreen, k.PrevScreen, k.GoTo, k.Units}, {k.Save, k.Open, k.Help, k.Quit, k.ForceQuit}}
-	if m.screens[m.active].Capturing() {
-		for i, g := range globals {
-			var kept []key.Binding
-			for _, b := range g {
-				if nb, ok := withoutPrintable(b); ok {
-					kept = append(kept, nb)
-				}
-			}
-			globals[i] = kept
-		}
-	}
-	return append(groups, globals...)
-}
-
-// helpKeys names the keys that open the key list on the screen shown ("?
-// or f1"; "f1" while the screen is typing, when ? is text).
-func (m *Model) helpKeys() string {
-	b := m.Keys.Help
-	if m.screens[m.active].Capturing() {
-		b, _ = withoutPrintable(b)
-	}
-	return strings.Join(b.Keys(), " or ")
-}
-
-// printable reports whether k is text (a character or space).
-func printable(k tea.KeyMsg) bool { return k.Type == tea.KeyRunes || k.Type == tea.KeySpace }
-
-// withoutPrintable returns b reduced to its non-printable keys, with its
-// help key label rewritten, and false when none is left.
-func withoutPrintable(b key.Binding) (key.Binding, bool) {
-	var keys []string
-	for _, s := range b.Keys() {
-		if len([]rune(s)) > 1 && s != "space" {
-			keys = append(keys, s)
-		}
-	}
-	if len(keys) == 0 {
-		return b, false
-	}
-	if len(keys) == len(b.Keys()) {
-		return b, true
-	}
-	return key.NewBinding(key.WithKeys(keys...), key.WithHelp(strings.Join(keys, "/"), b.Help().Desc)), true
-}
-
-func (m *Model) fullHelpView() string {
-	st := m.ctx.Styles
-	inner := max(20, m.width-6) // the box's border and padding take 4, the margin 2
-	wrap := st.Muted.Width(inner)
-	title := st.Title.Render("Keys on the "+m.screens[m.active].Title()+" screen, then everywhere") + st.Muted.Render(" (esc closes)")
-	note := wrap.Render("While typing (Shelf, values, file names) letters are text: use tab, ctrl keys, f1, esc.")
-	return title + "\n" + m.keyColumns(m.FullHelp(), inner) + "\n" + note
-}
-
-// keyColumns lays the help groups out as columns, starting a new band of
-// columns below when the next would not fit in width, so every key shows.
-func (m *Model) keyColumns(groups [][]key.Binding, width int) string {
-	st := m.ctx.Styles
-	var bands []string
-	var band []string
-	used := 0
-	for _, g := range groups {
-		kw := 0
-		for _, b := range g {
-			if b.Enabled() {
-				kw = max(kw, lipgloss.Width(b.Help().Key))
-			}
-		}
-		var lines []string
-		for _, b := range g {
-			if !b.Enabled() {
-				continue
-			}
-			h := b.Help()
-			lines = append(lines, st.HelpKey.Render(h.Key+strings.Repeat(" ", kw-lipgloss.Width(h.Key)))+" "+st.HelpDesc.Render(h.Desc))
-		}
-		if len(lines) == 0 {
-			continue
-		}
-		col := strings.Join(lines, "\n")
-		w := lipgloss.Width(col) + 3
-		if used > 0 && used+w > width {
-			bands = append(bands, lipgloss.JoinHorizontal(lipgloss.Top, band...))
-			band, used = nil, 0
-		}
-		band = append(band, m.ctx.Styles.Renderer().NewStyle().PaddingRight(3).Render(col))
-		used += w
-	}
-	if len(band) > 0 {
-		bands = append(bands, lipgloss.JoinHorizontal(lipgloss.Top, band...))
-	}
-	return strings.Join(bands, "\n")
 }

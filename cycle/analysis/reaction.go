@@ -45,6 +45,11 @@ type Reaction struct {
 	NoCrossing string
 	// Estimated is true when a species' values are estimates.
 	Estimated bool
+	// HeatCapacitySpecies names the species whose NASA Glenn polynomials
+	// ΔrG(T) includes (empty when the heat capacities are neglected);
+	// HeatCapacityMissing the species without polynomials, for which they
+	// are neglected.
+	HeatCapacitySpecies, HeatCapacityMissing []string
 }
 
 // newReaction sums the terms into ΔrH°, ΔrS° and judges the reaction at
@@ -76,6 +81,7 @@ func newReaction(kind string, reactants, products []Term, t, p float64) Reaction
 	add(reactants, -1)
 	add(products, 1)
 	r.Standard.EnthalpyUncertainty, r.Standard.EntropyUncertainty = math.Sqrt(h2), math.Sqrt(s2)
+	r.attachHeatCapacities()
 	r.Equation = side(reactants) + " -> " + side(products)
 	r.EnthalpyVerdict = gibbs.Judge(r.Standard.Enthalpy, r.Standard.EnthalpyUncertainty)
 	if !r.EntropyKnown {

@@ -3,6 +3,7 @@ package analysis
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
@@ -22,7 +23,9 @@ type StabilityOptions struct {
 	From, To float64
 	Points   int
 	// EstimateOnly leaves out the measured data of the compound itself
-	// (its ΔfH°, S°, ΔfG°) and uses the estimates; the other species keep
+	// (its ΔfH°, S°, ΔfG°) and of the solid it decomposes into, and uses
+	// the estimates of both, their lattice steps from one model
+	// (ReactionModel unless Estimate.Model names another); the gases keep
 	// their measured values.
 	EstimateOnly bool
 }
@@ -110,6 +113,12 @@ func (a *Analyst) Stability(formula string, opt StabilityOptions) (*Stability, e
 		return nil, &InputError{Subject: formula, Field: "temperature range", Reason: fmt.Sprintf("%g to %g K in %d points: give 0 < from < to and 2 to 10000 points", from, to, n)}
 	}
 	st := &Stability{Temperature: temp, Pressure: pres, From: from, To: to}
+	if opt.EstimateOnly {
+		if m := strings.ToLower(strings.TrimSpace(opt.Estimate.Model)); m == "" || m == cycle.ModelAuto {
+			opt.Estimate.Model = ReactionModel
+		}
+		st.Notes = append(st.Notes, fmt.Sprintf("estimates alone: the compound and the solid it decomposes into are both estimated, their lattice steps from the %s model, so that the model's bias and the cation's data cancel in ΔrH; the gases keep their measured values", opt.Estimate.Model))
+	}
 	c, err := a.cycleOf(formula, opt.Estimate.Charges)
 	if err != nil {
 		return nil, err
@@ -143,7 +152,7 @@ func (a *Analyst) Stability(formula string, opt StabilityOptions) (*Stability, e
 	if st.Estimate != nil {
 		st.Estimate.AdditiveEntropy = add
 	}
-	a.gasReleases(st, c, opt.Estimate)
+	a.gasReleases(st, c, opt)
 	if !c.Anion.Ion.Polyatomic && !c.Cation.Ion.Polyatomic {
 		a.stateReactions(st, c, opt)
 	}
@@ -153,8 +162,11 @@ func (a *Analyst) Stability(formula string, opt StabilityOptions) (*Stability, e
 	if len(st.Reactions) == 0 {
 		st.Notes = append(st.Notes, "no decomposition or disproportionation of "+st.Formula+" is known to the program: it builds those of carbonates, peroxides, superoxides, sulfates, hydroxides, nitrates and of binary compounds between oxidation states")
 	}
+	for _, r := range st.Reactions {
+		st.Notes = append(st.Notes, r.Equation+": heat capacities "+strings.TrimPrefix(r.HeatCapacityBasis(), "heat capacities "))
+	}
 	st.Notes = append(st.Notes,
-		fmt.Sprintf("ΔrG(T) with the heat capacities neglected: ΔrH° and ΔrS° keep their 298.15 K values, and phase changes between 298.15 K and T are not included; gases given off at %g bar", pres),
+		fmt.Sprintf("ΔrG(T): where every species of a reaction has NASA Glenn polynomials (McBride, Zehe & Gordon, NASA/TP-2002-211556; the source's phase changes included, Cp held at its last value beyond a species' last interval), ΔrH and ΔrS follow them; otherwise the heat capacities are neglected and ΔrH°, ΔrS° keep their 298.15 K values; gases given off at %g bar", pres),
 		fmt.Sprintf("a reaction is called favoured or disfavoured only when ΔrG lies more than %g σ from zero; otherwise it is undecided within the data", gibbs.Coverage))
 	return st, nil
 }
@@ -172,13 +184,24 @@ func (a *Analyst) cycleOf(formula string, ch Charges) (*cycle.Cycle, error) {
 	return a.build(formula, cation, anion)
 }
 
+// ReactionModel is the lattice model of every salt of an estimate-only
+// stability analysis unless another is asked. One model for the compound and
+// the solid it decomposes into makes the model's systematic error and the
+// cation's gas-phase data cancel in ΔrH; the per-compound default
+// (cycle.ModelAuto) would take the extended model for an oxide and the
+// volume-based one for its carbonate, whose errors do not cancel.
+// Kapustinskii takes simple and polyatomic ions alike from their radii, and
+// the data's ΔfH°(O²⁻, g) is fitted with it (derivegen/choices.csv).
+const ReactionModel = cycle.ModelKapustinskii
+
 // speciesThermo returns the compound's measured data, else its estimate;
-// the compound of the analysis itself is st.Compound.
-func (a *Analyst) speciesThermo(st *Stability, formula string, opt EstimateOptions) (Thermo, error) {
+// the compound of the analysis itself is st.Compound. With estimateOnly the
+// estimate is taken even for a compound the data hold.
+func (a *Analyst) speciesThermo(st *Stability, formula string, opt EstimateOptions, estimateOnly bool) (Thermo, error) {
 	if formula == st.Formula {
 		return st.Compound, nil
 	}
-	if t, ok := a.knownThermo(formula); ok && t.Formation.Known() {
+	if t, ok := a.knownThermo(formula); ok && t.Formation.Known() && !estimateOnly {
 		return t, nil
 	}
 	est, c, err := a.quickEstimateCycle(formula, opt)
@@ -189,7 +212,8 @@ func (a *Analyst) speciesThermo(st *Stability, formula string, opt EstimateOptio
 }
 
 // gasReleases adds the decomposition of the compound's anion giving off gas.
-func (a *Analyst) gasReleases(st *Stability, c *cycle.Cycle, opt EstimateOptions) {
+func (a *Analyst) gasReleases(st *Stability, c *cycle.Cycle, sopt StabilityOptions) {
+	opt := sopt.Estimate
 	rel, ok := releaseOf(c.Anion.Ion.Symbol, c.Cation.Ion.Charge)
 	if !ok {
 		return
@@ -210,7 +234,7 @@ func (a *Analyst) gasReleases(st *Stability, c *cycle.Cycle, opt EstimateOptions
 	}
 	pf := compoundFormula(c.Cation.Ion.Core, nM/g, product.Core, product.Polyatomic, nY/g)
 	charges := Charges{c.Cation.Ion.Core: c.Cation.Ion.Charge, product.Core: product.Charge}
-	pt, err := a.speciesThermo(st, pf, EstimateOptions{Charges: charges, Model: opt.Model, Structure: opt.Structure})
+	pt, err := a.speciesThermo(st, pf, EstimateOptions{Charges: charges, Model: opt.Model, Structure: opt.Structure}, sopt.EstimateOnly)
 	if err != nil {
 		st.Notes = append(st.Notes, fmt.Sprintf("the decomposition of %s into %s is left out: %v", st.Formula, pf, err))
 		return

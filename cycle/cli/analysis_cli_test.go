@@ -11,7 +11,7 @@ import (
 	"time"
 )
 
-func runAnalysisCmd(t testing.TB, stdin string, name string, args ...string) (stdout, stderr string, code int) {
+func runAnalysisCmd(t testing.TB, stdin string, name string, args ...string) (stdout, stderr string, code ExitCode) {
 	t.Helper()
 	var out, errb bytes.Buffer
 	code = Run(Env{Stdout: &out, Stderr: &errb, Stdin: strings.NewReader(stdin)}, name, args)

@@ -12,11 +12,11 @@ import (
 // analysisSetup parses flags for one of the analysis commands and loads
 // the data. It returns the positionals, or (nil, nil, nil) for --help.
 func analysisSetup(env Env, fs *flag.FlagSet, args []string) ([]string, *analysis.Analyst, error) {
-	pos, help, err := parseFlags(fs, args)
+	pos, help, err := ParseFlags(fs, args)
 	if help || err != nil {
 		return nil, nil, err
 	}
-	db, err := loadData(env)
+	db, err := LoadData(env)
 	if err != nil {
 		return nil, nil, err
 	}

@@ -18,16 +18,11 @@ import (
 const batchSynopsis = "batch FILE.csv [--out FILE] [--json]"
 
 func runBatch(env Env, args []string) error {
-	fs := newFlagSet("batch", batchSynopsis, env.Stderr)
+	fs := NewFlagSet("batch")
 	var out string
 	var asJSON bool
 	fs.StringVar(&out, "out", "", "write the results to `FILE` (default standard output); written to a temporary file and renamed when complete")
 	fs.BoolVar(&asJSON, "json", false, "write a JSON array instead of CSV")
-	fs.Usage = func() {
-		fmt.Fprintf(env.Stderr, "usage: enthalpath %s\n\nThe input CSV has a header row; columns (only formula is required): %s, and set:KEY for a step value (e.g. set:attachment-2 with 744±20). FILE - reads standard input.\n\nflags:\n",
-			batchSynopsis, strings.Join(analysis.BatchColumns(), ", "))
-		PrintFlags(env.Stderr, fs)
-	}
 	pos, a, err := analysisSetup(env, fs, args)
 	if err != nil || a == nil {
 		return err

@@ -12,8 +12,8 @@ const completionSynopsis = "completion bash|zsh|fish"
 // the command's own --help (the one list of its flags), so the script
 // never drifts from the program it completes.
 func runCompletion(env Env, args []string) error {
-	fs := newFlagSet("completion", completionSynopsis, env.Stderr)
-	pos, help, err := parseFlags(fs, args)
+	fs := NewFlagSet("completion")
+	pos, help, err := ParseFlags(fs, args)
 	if help || err != nil {
 		return err
 	}
@@ -29,21 +29,26 @@ func runCompletion(env Env, args []string) error {
 }
 
 func completionScript(shell string) (string, error) {
-	// The commands main runs itself, outside the table, beside the table's.
-	names := []string{"open", "serve", "help"}
-	for _, c := range commands() {
+	var names, globals, withValue, fish []string
+	for _, c := range commandTable(Interactive{}) {
 		names = append(names, c.name)
 	}
-	words := strings.Join(names, " ")
+	for _, g := range globalFlags() {
+		globals = append(globals, "--"+g.name)
+		withValue = append(withValue, "--"+g.name, "-"+g.name) // each takes a value
+		fish = append(fish, fmt.Sprintf("complete -c enthalpath -l %s -r -d %s", g.name, fishQuote(g.usage)))
+	}
+	fill := strings.NewReplacer("@COMMANDS@", strings.Join(names, " "), "@GLOBALS@", strings.Join(globals, " "),
+		"@WITHVALUE@", strings.Join(withValue, "|"), "@FISHGLOBALS@", strings.Join(fish, "\n"))
 	switch shell {
 	case "bash", "zsh":
-		script := strings.ReplaceAll(bashCompletion, "@COMMANDS@", words)
+		script := fill.Replace(bashCompletion)
 		if shell == "zsh" {
 			script = "autoload -U +X bashcompinit && bashcompinit\n" + script
 		}
 		return script, nil
 	case "fish":
-		return strings.ReplaceAll(fishCompletion, "@COMMANDS@", words), nil
+		return fill.Replace(fishCompletion), nil
 	}
 	return "", Usagef("completion %q: give bash, zsh or fish", shell)
 }
@@ -56,17 +61,17 @@ _enthalpath() {
 	local cur=${COMP_WORDS[COMP_CWORD]} cmd="" i
 	for ((i = 1; i < COMP_CWORD; i++)); do
 		case ${COMP_WORDS[i]} in
-		--data) ((i++)) ;;
+		@WITHVALUE@) ((i++)) ;;
 		-*) ;;
 		*) cmd=${COMP_WORDS[i]}; break ;;
 		esac
 	done
 	if [[ -z $cmd ]]; then
-		COMPREPLY=($(compgen -W "@COMMANDS@ --data --version --help" -- "$cur"))
+		COMPREPLY=($(compgen -W "@COMMANDS@ @GLOBALS@ --version --help" -- "$cur"))
 		return
 	fi
 	if [[ $cur == -* ]]; then
-		COMPREPLY=($(compgen -W "$(enthalpath "$cmd" --help 2>&1 | sed -n 's/^  \(--[a-z0-9-]*\).*/\1/p')" -- "$cur"))
+		COMPREPLY=($(compgen -W "$(enthalpath help "$cmd" 2>&1 | sed -n 's/^  \(--[a-z0-9-]*\).*/\1/p')" -- "$cur"))
 		return
 	fi
 	COMPREPLY=($(compgen -f -- "$cur"))
@@ -77,9 +82,14 @@ complete -o default -F _enthalpath enthalpath
 const fishCompletion = `# enthalpath completion (fish)
 # Load it with:  enthalpath completion fish | source
 complete -c enthalpath -n __fish_use_subcommand -f -a '@COMMANDS@'
-complete -c enthalpath -n __fish_use_subcommand -l data -r -d 'user data file'
+@FISHGLOBALS@
 complete -c enthalpath -n __fish_use_subcommand -l version -d 'version and commit'
 for cmd in @COMMANDS@
-	complete -c enthalpath -n "__fish_seen_subcommand_from $cmd" -a "(enthalpath $cmd --help 2>&1 | string match -r '^  --[a-z0-9-]+' | string trim)"
+	complete -c enthalpath -n "__fish_seen_subcommand_from $cmd" -a "(enthalpath help $cmd 2>&1 | string match -r '^  --[a-z0-9-]+' | string trim)"
 end
 `
+
+// fishQuote quotes s for fish in single quotes.
+func fishQuote(s string) string {
+	return "'" + strings.NewReplacer(`\`, `\\`, `'`, `\'`).Replace(s) + "'"
+}

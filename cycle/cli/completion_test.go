@@ -67,7 +67,7 @@ func TestCompletionShells(t *testing.T) {
 		if code := Run(Env{Stdout: &out, Stderr: &out}, "completion", []string{sh}); code != ExitOK {
 			t.Fatalf("completion %s: exit %d: %s", sh, code, out.String())
 		}
-		for _, c := range commands() {
+		for _, c := range commandTable(Interactive{}) {
 			if !strings.Contains(out.String(), c.name) {
 				t.Errorf("completion %s lacks %s", sh, c.name)
 			}

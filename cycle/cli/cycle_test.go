@@ -13,7 +13,7 @@ import (
 	"testing"
 )
 
-func run(t testing.TB, name string, args ...string) (stdout, stderr string, code int) {
+func run(t testing.TB, name string, args ...string) (stdout, stderr string, code ExitCode) {
 	t.Helper()
 	var o, e bytes.Buffer
 	code = Run(Env{Stdout: &o, Stderr: &e, Stdin: strings.NewReader("")}, name, args)
@@ -152,7 +152,7 @@ func TestCompareAllCSV(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	db, err := loadData(Env{})
+	db, err := LoadData(Env{})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -22,14 +22,14 @@ const dataSynopsis = `data QUERY [--kind element|ion|compound] [--json]
 // runData shows one element, ion or compound with every value, its
 // uncertainty, unit and source, or lists the keys of one table.
 func runData(env Env, args []string) error {
-	fs := newFlagSet("data", dataSynopsis, env.Stderr)
+	fs := NewFlagSet("data")
 	var asJSON, sources bool
 	var kind, list string
 	fs.BoolVar(&asJSON, "json", false, "print JSON")
 	fs.StringVar(&kind, "kind", "", "read QUERY as an `element`, ion or compound (default: an ion if it ends in a charge, else an element, else a compound)")
 	fs.StringVar(&list, "list", "", "list every `TABLE` row key: elements, ions, compounds or sources")
 	fs.BoolVar(&sources, "sources", false, "count the built-in rows citing each source, and the rows entered from memory, per table")
-	pos, help, err := parseFlags(fs, args)
+	pos, help, err := ParseFlags(fs, args)
 	if help || err != nil {
 		return err
 	}
@@ -45,7 +45,7 @@ func runData(env Env, args []string) error {
 	if list != "" && len(pos) > 0 {
 		return Usagef("--list takes no QUERY")
 	}
-	db, err := loadData(env)
+	db, err := LoadData(env)
 	if err != nil {
 		return err
 	}

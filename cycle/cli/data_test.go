@@ -13,7 +13,7 @@ import (
 // runDataCmd runs "enthalpath data ARGS" in-process with no user overlay
 // unless dataFile is given; XDG_CONFIG_HOME points at an empty directory so
 // a real ~/.config/enthalpath/data.toml cannot leak in.
-func runDataCmd(t *testing.T, dataFile string, args ...string) (code int, stdout, stderr string) {
+func runDataCmd(t *testing.T, dataFile string, args ...string) (code ExitCode, stdout, stderr string) {
 	t.Helper()
 	if os.Getenv("ENTHALPATH_TEST_KEEP_CONFIG") == "" {
 		t.Setenv("XDG_CONFIG_HOME", t.TempDir())

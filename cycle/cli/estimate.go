@@ -14,7 +14,7 @@ import (
 const estimateSynopsis = "estimate FORMULA [--charges M=+2,X=-1] [--model MODEL] [--structure PROTOTYPE] [--cation-radius Å] [--anion-radius Å] [--set KEY=VALUE] [--solve KEY] [--temperature K] [--pressure BAR] [--json]"
 
 func runEstimate(env Env, args []string) error {
-	fs := newFlagSet("estimate", estimateSynopsis, env.Stderr)
+	fs := NewFlagSet("estimate")
 	var charges, model, structure, solve string
 	var rc, ra, temp, pres float64
 	var sets listFlag

@@ -40,7 +40,7 @@ func writeExtended(w io.Writer, r *cycle.Result, u thermo.Unit) {
 		t.add(min[i].Name, energy(min[i].Value, u), ev(min[i].Value),
 			energy(ref[i].Value, u), ev(ref[i].Value))
 	}
-	tot := func(x lattice.ExtendedTerms) float64 { return x.Total() - b.LatticeCorrection }
+	tot := b.Value
 	t.add("total (the model's lattice step)", energy(tot(b.Minimum), u), ev(tot(b.Minimum)),
 		energy(tot(b.AtReference), u), ev(tot(b.AtReference)))
 	t.write(w, "  ")
@@ -49,6 +49,7 @@ func writeExtended(w io.Writer, r *cycle.Result, u thermo.Unit) {
 	fmt.Fprintf(w, "  repulsion: %s\n", wrapText(b.RepulsionFrom, 92, ind))
 	fmt.Fprintf(w, "  dispersion: %s\n", wrapText(b.DispersionFrom, 92, ind))
 	fmt.Fprintf(w, "  zero-point: θ_D = %.0f K; %s\n", b.Minimum.DebyeTemperature, wrapText(b.ZeroPointFrom, 92, ind))
+	fmt.Fprintf(w, "  heat content: %s\n", wrapText(b.HeatContentFrom, 92, ind))
 	if len(b.Coefficients) > 0 {
 		fmt.Fprintln(w, "  coefficients:")
 		for _, k := range b.Coefficients {
@@ -114,6 +115,7 @@ type extendedJSON struct {
 	RepulsionFrom  string            `json:"repulsion_from"`
 	DispersionFrom string            `json:"dispersion_from"`
 	ZeroPointFrom  string            `json:"zero_point_from"`
+	HeatFrom       string            `json:"heat_content_from"`
 	Coefficients   []coefficientJSON `json:"coefficients"`
 }
 
@@ -122,7 +124,7 @@ func extendedJSONOf(b *cycle.ExtendedBreakdown) *extendedJSON {
 		return nil
 	}
 	at := func(x lattice.ExtendedTerms) extendedAtJSON {
-		out := extendedAtJSON{D: jsonNumber(x.D), TotalKJ: jsonNumber(x.Total() - b.LatticeCorrection),
+		out := extendedAtJSON{D: jsonNumber(x.D), TotalKJ: jsonNumber(b.Value(x)),
 			DebyeTemperature: jsonNumber(x.DebyeTemperature), BulkModulusGPa: jsonNumber(x.BulkModulus)}
 		for _, t := range b.Terms(x) {
 			out.Terms = append(out.Terms, termJSON{t.Name, jsonNumber(t.Value), jsonNumber(thermo.KJPerMolToEV(t.Value))})
@@ -130,7 +132,7 @@ func extendedJSONOf(b *cycle.ExtendedBreakdown) *extendedJSON {
 		return out
 	}
 	j := &extendedJSON{Minimum: at(b.Minimum), AtReference: at(b.AtReference), ReferenceFrom: b.ReferenceFrom, Measured: b.ReferenceMeasured,
-		RepulsionFrom: b.RepulsionFrom, DispersionFrom: b.DispersionFrom, ZeroPointFrom: b.ZeroPointFrom, Coefficients: []coefficientJSON{}}
+		RepulsionFrom: b.RepulsionFrom, DispersionFrom: b.DispersionFrom, ZeroPointFrom: b.ZeroPointFrom, HeatFrom: b.HeatContentFrom, Coefficients: []coefficientJSON{}}
 	for _, k := range b.Coefficients {
 		j.Coefficients = append(j.Coefficients, coefficientJSON{k.Name, jsonNumber(k.Value), k.Unit, k.Source, k.Citation, k.Memory})
 	}

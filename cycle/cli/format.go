@@ -3,7 +3,6 @@ package cli
 import (
 	"encoding/json"
 	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"io/fs"
@@ -14,31 +13,9 @@ import (
 	"syscall"
 	"unicode/utf8"
 
-	"enthalpath/data"
 	"enthalpath/thermo"
 	"enthalpath/thermo/fileio"
 )
-
-// loadData loads the built-in tables with the user's overlay: --data FILE,
-// else the default overlay file when it exists (data.UserDataPath). A broken
-// --data file is a usage error (the user named it); a broken default file is
-// reported on stderr and the built-in data are used.
-func loadData(env Env) (*data.DB, error) {
-	path := data.UserDataPath(env.DataFile)
-	db, err := data.LoadWithUserFile(path)
-	switch {
-	case err == nil:
-		return db, nil
-	case db == nil:
-		return nil, fmt.Errorf("loading the built-in data: %w", err)
-	case env.DataFile != "":
-		return nil, &UsageError{fmt.Errorf("--data %s: %w", env.DataFile, err)}
-	}
-	// A broken default overlay must not stop the program: say so and go on
-	// with the built-in data.
-	fmt.Fprintf(env.Stderr, "enthalpath: ignoring the overlay file: %v\n", err)
-	return db, nil
-}
 
 // outputFileError words a failure to write the file a flag names: what the
 // user can fix (a folder that does not exist, a name taken by a folder, a
@@ -61,66 +38,6 @@ func outputFileError(flag, path string, err error) error {
 	}
 	return fmt.Errorf("%s %s: %w", flag, path, err)
 }
-
-// parseInterleaved parses flags that may come before, between or after the
-// positional arguments; "--" ends the flags.
-func parseInterleaved(fs *flag.FlagSet, args []string) ([]string, error) {
-	var pos []string
-	for {
-		if err := fs.Parse(args); err != nil {
-			return nil, err
-		}
-		rest := fs.Args()
-		if len(rest) == 0 {
-			return pos, nil
-		}
-		if rest[0] == "--" {
-			return append(pos, rest[1:]...), nil
-		}
-		pos = append(pos, rest[0])
-		args = rest[1:]
-	}
-}
-
-// parseFlags is parseInterleaved for a command: a parse error becomes a
-// UsageError, and help=true says --help was asked (the usage is printed;
-// the command returns nil).
-func parseFlags(fs *flag.FlagSet, args []string) (pos []string, help bool, err error) {
-	pos, err = parseInterleaved(fs, args)
-	if errors.Is(err, flag.ErrHelp) {
-		return nil, true, nil
-	}
-	if err != nil {
-		return nil, false, &UsageError{err}
-	}
-	return pos, false, nil
-}
-
-// givenFlags returns the names of the flags the command line set, so that a
-// value the user typed (0 too) is told apart from a default left alone.
-func givenFlags(fs *flag.FlagSet) map[string]bool {
-	set := map[string]bool{}
-	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
-	return set
-}
-
-// newFlagSet makes a flag set that reports errors instead of exiting and
-// prints its usage to w.
-func newFlagSet(name, synopsis string, w io.Writer) *flag.FlagSet {
-	fs := flag.NewFlagSet(name, flag.ContinueOnError)
-	fs.SetOutput(w)
-	fs.Usage = func() {
-		fmt.Fprintf(w, "usage: enthalpath %s\n\nflags:\n", synopsis)
-		PrintFlags(w, fs)
-	}
-	return fs
-}
-
-// listFlag is a repeatable string flag.
-type listFlag []string
-
-func (l *listFlag) String() string     { return strings.Join(*l, ",") }
-func (l *listFlag) Set(s string) error { *l = append(*l, s); return nil }
 
 // energy formats a value in kJ/mol in unit u with a sensible precision.
 func energy(kj float64, u thermo.Unit) string {

@@ -11,14 +11,14 @@ import (
 )
 
 // runForTest runs command with args and empty standard input.
-func runForTest(t *testing.T, command string, args ...string) (code int, stdout, stderr string) {
+func runForTest(t *testing.T, command string, args ...string) (code ExitCode, stdout, stderr string) {
 	t.Helper()
 	var out, errb bytes.Buffer
 	code = Run(Env{Stdout: &out, Stderr: &errb, Stdin: strings.NewReader("")}, command, args)
 	return code, out.String(), errb.String()
 }
 
-func runMadelungForTest(t *testing.T, args ...string) (code int, stdout, stderr string) {
+func runMadelungForTest(t *testing.T, args ...string) (code ExitCode, stdout, stderr string) {
 	t.Helper()
 	return runForTest(t, "madelung", args...)
 }

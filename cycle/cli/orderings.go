@@ -16,9 +16,10 @@ import (
 	"enthalpath/thermo/ordering"
 )
 
-const orderingsSynopsis = `orderings NAME|FILE.cif --site SEL=OCCUPANTS [--site ...] [flags]
+const orderingsSynopsis = `orderings NAME|FILE.cif --site SEL=OCCUPANTS [--site ...] [flags]`
 
-Ranks the orderings of ions and vacancies over mixed sites by their Ewald
+// orderingsAbout is the help's paragraph on what orderings does.
+const orderingsAbout = `Ranks the orderings of ions and vacancies over mixed sites by their Ewald
 (electrostatic) energy, conducting boundary conditions. The structure is a
 built-in prototype (see madelung --list) or a CIF file, repeated by
 --supercell. A CIF file's partly occupied and shared sites are mixed with
@@ -34,7 +35,7 @@ Few orderings are all enumerated; more are searched by simulated annealing,
 which can miss the lowest.`
 
 func runOrderings(env Env, args []string) error {
-	fs := newFlagSet("orderings", orderingsSynopsis, env.Stderr)
+	fs := NewFlagSet("orderings")
 	var params, charges, sites listFlag
 	fs.Var(&sites, "site", "mixed or replaced sites `SEL=SPECIES:CHARGE:FRACTION,...` (repeatable; vac:FRACTION for vacancies)")
 	fs.Var(&params, "param", "prototype parameter `key=value` (repeatable, or comma-separated)")
@@ -48,7 +49,7 @@ func runOrderings(env Env, args []string) error {
 	cifDir := fs.String("cif-dir", "", "write each listed ordering as a CIF file into `DIR`")
 	accuracy := fs.Float64("accuracy", ewald.DefaultAccuracy, "relative accuracy of the Ewald sums")
 	asJSON := fs.Bool("json", false, "print one JSON object")
-	pos, help, err := parseFlags(fs, args)
+	pos, help, err := ParseFlags(fs, args)
 	if help || err != nil {
 		return err
 	}

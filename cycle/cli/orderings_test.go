@@ -12,7 +12,7 @@ import (
 	"enthalpath/thermo/ewald"
 )
 
-func runOrderingsForTest(t *testing.T, args ...string) (code int, stdout, stderr string) {
+func runOrderingsForTest(t *testing.T, args ...string) (code ExitCode, stdout, stderr string) {
 	t.Helper()
 	return runForTest(t, "orderings", args...)
 }

@@ -10,7 +10,7 @@ import (
 const radiusSynopsis = "radius FORMULA --ion ION [--lattice U] [--counter-radius Å] [--json]\n       enthalpath radius --ion ION --all-salts [--counter-radii ION=Å,...] [--only ION,...] [--json]"
 
 func runRadius(env Env, args []string) error {
-	fs := newFlagSet("radius", radiusSynopsis, env.Stderr)
+	fs := NewFlagSet("radius")
 	var ion string
 	var u, rc float64
 	var asJSON, allSalts bool

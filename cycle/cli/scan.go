@@ -13,7 +13,7 @@ import (
 const scanSynopsis = "scan METAL NONMETAL [--max-charge N] [--anion ION] [--model MODEL] [--structure PROTOTYPE] [--temperature K] [--pressure BAR] [--json]"
 
 func runScan(env Env, args []string) error {
-	fs := newFlagSet("scan", scanSynopsis, env.Stderr)
+	fs := NewFlagSet("scan")
 	var maxCharge int
 	var anion, model, structure string
 	var temp, pres float64

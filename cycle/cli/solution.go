@@ -12,7 +12,7 @@ import (
 const solutionSynopsis = "solution FORMULA [--solve KEY] [--set KEY=VALUE[±UNC]] [--scale conventional|absolute] [--lattice-from MODEL] [--json]"
 
 func runSolution(env Env, args []string) error {
-	fs := newFlagSet("solution", solutionSynopsis, env.Stderr)
+	fs := NewFlagSet("solution")
 	var solve, scale, latticeFrom string
 	var sets listFlag
 	var asJSON bool

@@ -17,7 +17,7 @@ import (
 const stabilitySynopsis = "stability FORMULA [--temperature K] [--pressure BAR] [--from K] [--to K] [--points N] [--estimate-only] [--charges M=+2,X=-1] [--model MODEL] [--structure PROTOTYPE] [--set KEY=VALUE] [--json|--csv] [--svg FILE]"
 
 func runStability(env Env, args []string) error {
-	fs := newFlagSet("stability", stabilitySynopsis, env.Stderr)
+	fs := NewFlagSet("stability")
 	var charges, model, structure, svgFile string
 	var temp, pres, from, to float64
 	var points int
@@ -266,6 +266,7 @@ type reactionJSON struct {
 	CrossingUncK    *jsonNumber `json:"gibbs_zero_uncertainty_k,omitempty"`
 	GoesAbove       *bool       `json:"goes_above_zero_temperature,omitempty"`
 	NoCrossing      string      `json:"no_zero,omitempty"`
+	HeatCapacity    string      `json:"heat_capacities"`
 	Curve           []pointJSON `json:"curve,omitempty"`
 }
 
@@ -273,7 +274,8 @@ func numPtr(v float64) *jsonNumber { n := jsonNum(v); return &n }
 
 func reactionJSONOf(r analysis.Reaction, curve []pointJSON) reactionJSON {
 	j := reactionJSON{Equation: r.Equation, Kind: r.Kind, EnthalpyKJ: jsonNum(r.Standard.Enthalpy), EnthalpyUncKJ: jsonNum(r.Standard.EnthalpyUncertainty),
-		EnthalpyVerdict: r.EnthalpyVerdict.String(), Verdict: r.Verdict.String(), Estimated: r.Estimated, Released: r.Released, NoCrossing: r.NoCrossing, Curve: curve}
+		EnthalpyVerdict: r.EnthalpyVerdict.String(), Verdict: r.Verdict.String(), Estimated: r.Estimated, Released: r.Released, NoCrossing: r.NoCrossing,
+		HeatCapacity: r.HeatCapacityBasis(), Curve: curve}
 	if r.EntropyKnown {
 		j.EntropyJK, j.EntropyUncJK = numPtr(r.Standard.Entropy), numPtr(r.Standard.EntropyUncertainty)
 		j.GibbsKJ, j.GibbsUncKJ = numPtr(r.Gibbs), numPtr(r.GibbsUncertainty)
@@ -298,7 +300,7 @@ type stabilityJSON struct {
 
 func stabilityJSONOf(st *analysis.Stability) stabilityJSON {
 	out := stabilityJSON{Formula: st.Formula, TemperatureK: jsonNum(st.Temperature), PressureBar: jsonNum(st.Pressure),
-		HeatCapacity: "neglected", Compound: thermoJSONOf(st.Compound), Reactions: []reactionJSON{}, Notes: st.Notes}
+		HeatCapacity: st.HeatCapacitySummary(), Compound: thermoJSONOf(st.Compound), Reactions: []reactionJSON{}, Notes: st.Notes}
 	if st.Estimate != nil {
 		out.Estimate = thermoJSONOf(*st.Estimate)
 	}
@@ -320,7 +322,7 @@ func writeStabilityCSV(w io.Writer, st *analysis.Stability) error {
 	for i, r := range st.Reactions {
 		for _, p := range st.Curves[i] {
 			v := gibbs.Judge(p.Gibbs, p.Uncertainty).String()
-			cw.Write([]string{r.Equation, r.Kind, f(p.Temperature), f(p.Gibbs), f(p.Uncertainty), strconv.FormatFloat(st.Pressure, 'g', -1, 64), v, "neglected"})
+			cw.Write([]string{r.Equation, r.Kind, f(p.Temperature), f(p.Gibbs), f(p.Uncertainty), strconv.FormatFloat(st.Pressure, 'g', -1, 64), v, r.HeatCapacityBasis()})
 		}
 	}
 	cw.Flush()

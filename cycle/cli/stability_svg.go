@@ -34,7 +34,7 @@ func stabilitySVG(st *analysis.Stability) string {
 	var b strings.Builder
 	fmt.Fprintf(&b, `<svg xmlns="http://www.w3.org/2000/svg" width="%g" height="%g" viewBox="0 0 %g %g" font-family="sans-serif" font-size="12">`+"\n", w, h, w, h)
 	fmt.Fprintf(&b, `<rect width="%g" height="%g" fill="white"/>`+"\n", w, h)
-	fmt.Fprintf(&b, `<text x="%g" y="22" font-size="14">%s: ΔrG(T), gases at %g bar, heat capacities neglected; bands ±2σ</text>`+"\n", left, html.EscapeString(st.Formula), st.Pressure)
+	fmt.Fprintf(&b, `<text x="%g" y="22" font-size="14">%s: ΔrG(T), gases at %g bar, %s; bands ±2σ</text>`+"\n", left, html.EscapeString(st.Formula), st.Pressure, html.EscapeString(st.HeatCapacitySummary()))
 	for g := lo; g <= hi+step/2; g += step {
 		fmt.Fprintf(&b, `<line x1="%.1f" y1="%.1f" x2="%.1f" y2="%.1f" stroke="#e4e4e4"/>`+"\n", left, y(g), left+pw, y(g))
 		fmt.Fprintf(&b, `<text x="%.1f" y="%.1f" text-anchor="end">%g</text>`+"\n", left-6, y(g)+4, g)

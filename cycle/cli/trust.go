@@ -15,18 +15,18 @@ const trustSynopsis = "trust [--json] [--list]"
 // of the built-in compounds: per family, the mean and RMS gap, and which
 // model the verdict reads a compound of that family against.
 func runTrust(env Env, args []string) error {
-	fs := newFlagSet("trust", trustSynopsis, env.Stderr)
+	fs := NewFlagSet("trust")
 	var asJSON, list bool
 	fs.BoolVar(&asJSON, "json", false, "print JSON")
 	fs.BoolVar(&list, "list", false, "list every compound a model could not evaluate, with the reason")
-	pos, help, err := parseFlags(fs, args)
+	pos, help, err := ParseFlags(fs, args)
 	if help || err != nil {
 		return err
 	}
 	if len(pos) > 0 {
 		return Usagef("trust takes no formula: usage: enthalpath %s", trustSynopsis)
 	}
-	db, err := loadData(env)
+	db, err := LoadData(env)
 	if err != nil {
 		return err
 	}

@@ -74,7 +74,7 @@ func TestCycleShowsExtendedBreakdown(t *testing.T) {
 	if code != ExitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
-	for _, want := range []string{"extended model, per term", "Coulomb (Ewald)", "repulsion", "dispersion C/r⁶", "zero-point", "n·RT to ΔH_L",
+	for _, want := range []string{"extended model, per term", "Coulomb (Ewald)", "repulsion", "dispersion C/r⁶", "zero-point", "heat content 0 → 298.15 K",
 		"ρ = 0.317 Å (fumi-tosi1964, from memory)", "verdict: ionic model adequate, read against the extended model"} {
 		if !strings.Contains(out, want) {
 			t.Errorf("cycle NaCl lacks %q", want)

@@ -1,56 +1,9 @@
 package cli
 
 import (
-	"flag"
-	"fmt"
-	"io"
 	"runtime/debug"
 	"strings"
 )
-
-// PrintFlags writes the flags of fs as the README writes them, with two
-// dashes ("--accuracy float"), each followed by its usage and default; the
-// flag package accepts one dash or two, but its own listing shows one.
-func PrintFlags(w io.Writer, fs *flag.FlagSet) {
-	fs.VisitAll(func(f *flag.Flag) {
-		name, usage := flag.UnquoteUsage(f)
-		line := "  --" + f.Name
-		if name != "" {
-			line += " " + name
-		}
-		usage = strings.ReplaceAll(usage, "\n", "\n    \t")
-		line += "\n    \t" + usage
-		if !isZeroDefault(f) {
-			if quotedDefault(f) {
-				line += fmt.Sprintf(" (default %q)", f.DefValue)
-			} else {
-				line += fmt.Sprintf(" (default %v)", f.DefValue)
-			}
-		}
-		fmt.Fprintln(w, line)
-	})
-}
-
-// isZeroDefault reports whether f's default is its type's zero value,
-// which the listing leaves unsaid.
-func isZeroDefault(f *flag.Flag) bool {
-	switch f.DefValue {
-	case "", "0", "false", "[]", "0s":
-		return true
-	}
-	return false
-}
-
-// quotedDefault reports whether f's default is written in quotes: a
-// string flag's, as the flag package does.
-func quotedDefault(f *flag.Flag) bool {
-	getter, ok := f.Value.(flag.Getter)
-	if !ok {
-		return false
-	}
-	_, isString := getter.Get().(string)
-	return isString
-}
 
 // VersionText is the line "enthalpath --version" prints: the module
 // version the Go toolchain recorded (a tag, a pseudo-version, or "(devel)"

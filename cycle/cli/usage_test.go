@@ -36,7 +36,7 @@ func TestVersionText(t *testing.T) {
 // the README writes them, "--name", never "-name" (the flag package's own
 // listing used one dash).
 func TestHelpFlagsHaveTwoDashes(t *testing.T) {
-	for _, c := range commands() {
+	for _, c := range nonInteractive() {
 		var out, errs strings.Builder
 		if code := Run(Env{Stdout: &out, Stderr: &errs, Stdin: strings.NewReader("")}, c.name, []string{"--help"}); code != ExitOK {
 			t.Errorf("%s --help: exit %d: %s", c.name, code, errs.String())

@@ -19,6 +19,8 @@ const (
 	keyASD      = "nist-asd"
 	keyCRCEA    = "crc2014-ea"
 	keyShannon  = "shannon1976"
+	keyCIAAW    = "ciaaw"
+	keyCRCInorg = "crc2014-inorganic"
 	thermalRT   = 6.197 // 5/2·R·298.15 K in kJ/mol, as the NBS tables print it for e⁻
 	maxIonStage = 8
 )
@@ -31,6 +33,7 @@ type generator struct {
 	nbsIdx  map[string][]int // formula → rows (all states)
 	nasa    []nasaSpecies
 	atct    map[string]atctSpecies
+	crc     map[string]crcRow // CRC physical constants by crcKey of the name
 	choices *choices
 
 	warnings []string
@@ -47,8 +50,14 @@ func newGenerator(sourcesDir, keptDir, tablesDir string) (*generator, error) {
 	if g.nbs, err = readNBS(sourcesDir); err != nil {
 		return nil, err
 	}
+	if g.choices, err = readChoices(filepath.Join(keptDir, "choices.csv")); err != nil {
+		return nil, err
+	}
 	for i, r := range g.nbs {
 		g.nbsIdx[r.Formula] = append(g.nbsIdx[r.Formula], i)
+	}
+	if err := g.correctSlips(); err != nil {
+		return nil, err
 	}
 	if g.nasa, err = readNASA(sourcesDir); err != nil {
 		return nil, err
@@ -56,10 +65,43 @@ func newGenerator(sourcesDir, keptDir, tablesDir string) (*generator, error) {
 	if g.atct, err = readATcT(sourcesDir); err != nil {
 		return nil, err
 	}
-	if g.choices, err = readChoices(filepath.Join(keptDir, "choices.csv")); err != nil {
+	if g.crc, err = readCRCInorganic(sourcesDir); err != nil {
 		return nil, err
 	}
 	return g, nil
+}
+
+// correctSlips applies the slip choices: a value the digitised NBS file
+// prints wrongly (a decimal point moved) is replaced by the value the
+// choice gives, once the file is seen to print the wrong one still.
+func (g *generator) correctSlips() error {
+	for key, ch := range g.choices.byKind["slip"] {
+		formula, state, _ := strings.Cut(key, "|")
+		printed, fixed, ok := strings.Cut(ch.value, ";")
+		if !ok {
+			return fmt.Errorf("choices.csv:%d: slip %s: value must be \"printed;corrected\"", ch.line, key)
+		}
+		found := false
+		for _, i := range g.nbsIdx[formula] {
+			r := &g.nbs[i]
+			if r.State != state || r.Solvent != "" {
+				continue
+			}
+			if r.Original != printed {
+				return fmt.Errorf("choices.csv:%d: slip %s: the NBS file prints %s, not %s: check the correction", ch.line, key, r.Original, printed)
+			}
+			h, digits, ok := nbsNumber(fixed)
+			if !ok {
+				return fmt.Errorf("choices.csv:%d: slip %s: %q is not a number", ch.line, key, fixed)
+			}
+			r.H, r.HDigits, r.Original, r.Corrected = h, digits, numDigits(h, digits), printed
+			found = true
+		}
+		if !found {
+			return fmt.Errorf("choices.csv:%d: slip %s: no such NBS row", ch.line, key)
+		}
+	}
+	return nil
 }
 
 func (g *generator) warnf(format string, args ...any) {
@@ -85,6 +127,7 @@ func (g *generator) run() (map[string][]byte, error) {
 		{"ion_values.csv", g.ionValues},
 		{"solution_enthalpies.csv", g.solutionEnthalpies},
 		{"atomic_weights.csv", g.atomicWeights},
+		{"heat_capacities.csv", g.heatCapacities},
 	}
 	for _, s := range steps {
 		t, err := s.fn()

@@ -2,6 +2,7 @@ package main
 
 import (
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -90,4 +91,60 @@ func TestPairsFor(t *testing.T) {
 	if p := pairsFor(map[string]float64{"Ca": 1, "O": 1, "F": 1}, ions); len(p) != 0 {
 		t.Errorf("CaOF: %+v", p)
 	}
+}
+
+// Every slip choice is checked against the NBS file itself: the corrected
+// ΔfH° must agree with the same row's ΔfG° and S° through
+// ΔfH° = ΔfG° + T·(S° − Σ S° of the elements in their standard states),
+// the element entropies read from the same file (Ba cr, S rhombic cr,
+// O2 g: lines 10033, 526, 20). Tolerance 1 kJ/mol: the printed digits of
+// ΔfG° and the four entropies (common practice, no source).
+func TestSlipsAgreeWithTheirRow(t *testing.T) {
+	g, err := newGenerator("../sources", ".", "../tables")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(g.choices.byKind["slip"]) == 0 {
+		t.Fatal("no slip choice to check")
+	}
+	for key := range g.choices.byKind["slip"] {
+		formula, state, _ := strings.Cut(key, "|")
+		r, ok := g.nbsFind(formula, state)
+		if !ok || r.Corrected == "" {
+			t.Fatalf("slip %s: row not found or not corrected", key)
+		}
+		comp, _, ok := composition(formula)
+		if !ok {
+			t.Fatalf("slip %s: formula does not parse", key)
+		}
+		sElements := 0.0
+		for el, n := range comp {
+			std, ok := standardEntropy(g, el)
+			if !ok {
+				t.Fatalf("slip %s: no standard-state entropy of %s in the NBS file", key, el)
+			}
+			sElements += n * std
+		}
+		implied := r.G + 298.15*(r.S-sElements)/1000
+		if math.Abs(implied-r.H) > 1 {
+			t.Errorf("slip %s: corrected ΔfH° %g, the row's ΔfG° and S° imply %.2f kJ/mol", key, r.H, implied)
+		}
+	}
+}
+
+// standardEntropy is S° of an element in its standard state, read from the
+// NBS row whose ΔfH° is 0 (the reference state); for diatomic gases per atom.
+func standardEntropy(g *generator, el string) (float64, bool) {
+	for _, f := range []string{el, el + "2"} {
+		for _, i := range g.nbsIdx[f] {
+			r := g.nbs[i]
+			if r.Solvent == "" && r.H == 0 && !math.IsNaN(r.S) {
+				if f != el {
+					return r.S / 2, true
+				}
+				return r.S, true
+			}
+		}
+	}
+	return 0, false
 }

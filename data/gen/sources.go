@@ -16,32 +16,35 @@ import (
 // Paths of the vendored source files, relative to the sources folder; a
 // locator is one of these, a colon and a line number.
 const (
-	nbsFile      = "nbs-tables-1982/NBS_Tables_with_ErratumValues.csv"
-	nasaFile     = "nasa-cea-thermo/thermo.inp"
-	atctFile     = "atct-1.112/ATcT_1.112_gas.tsv"
-	asdFile      = "nist-asd-ionization/ionization_energies_nist_asd.csv"
-	affinityFile = "electron-affinities/electron_affinities.csv"
-	shannonFile  = "shannon-radii/shannon_radii.csv"
+	nbsFile          = "nbs-tables-1982/NBS_Tables_with_ErratumValues.csv"
+	nasaFile         = "nasa-cea-thermo/thermo.inp"
+	atctFile         = "atct-1.112/ATcT_1.112_gas.tsv"
+	asdFile          = "nist-asd-ionization/ionization_energies_nist_asd.csv"
+	affinityFile     = "electron-affinities/electron_affinities.csv"
+	shannonFile      = "shannon-radii/shannon_radii.csv"
+	weightsFile      = "atomic-weights/atomic_weights_ciaaw.csv"
+	crcInorganicFile = "crc-inorganic/physical_constants_inorganic.tsv"
 )
 
 func locator(file string, line int) string { return fmt.Sprintf("%s:%d", file, line) }
 
 // nbsRow is one line of the digitised NBS tables. Absent numbers are NaN.
 type nbsRow struct {
-	Line     int
-	Table    string // element of the NBS table the row is printed in
-	Formula  string
-	Solvent  string
-	Name     string
-	Desc     string  // "State Description": polymorph or mineral name
-	State    string  // cr, cr2, l, g, ai, ao …
-	Mass     float64 // molar mass, g/mol
-	H0       float64
-	H        float64 // ΔfH°(298.15 K), kJ/mol
-	G        float64 // ΔfG°(298.15 K), kJ/mol
-	S        float64 // S°(298.15 K), J/(mol·K)
-	HDigits  int     // digits after the decimal point of H as printed
-	Original string  // the H cell as printed
+	Line      int
+	Table     string // element of the NBS table the row is printed in
+	Formula   string
+	Solvent   string
+	Name      string
+	Desc      string  // "State Description": polymorph or mineral name
+	State     string  // cr, cr2, l, g, ai, ao …
+	Mass      float64 // molar mass, g/mol
+	H0        float64
+	H         float64 // ΔfH°(298.15 K), kJ/mol
+	G         float64 // ΔfG°(298.15 K), kJ/mol
+	S         float64 // S°(298.15 K), J/(mol·K)
+	HDigits   int     // digits after the decimal point of H as printed
+	Original  string  // the H cell as printed (after a slip choice: as corrected)
+	Corrected string  // the H cell as the file prints it, where a slip choice corrected it
 }
 
 // latin1 decodes ISO-8859-1 bytes (the NBS file's encoding) to UTF-8.

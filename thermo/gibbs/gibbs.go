@@ -20,6 +20,35 @@ type Reaction struct {
 	// GasMoles is Δn of the gas held at the partial pressure of Gibbs
 	// (positive when the reaction gives it off).
 	GasMoles float64
+	// HeatCapacity, when not empty, holds every species' polynomials: ΔrH
+	// and ΔrS then follow them away from 298.15 K (Kirchhoff), and the
+	// crossing is searched within the temperatures they all cover. Empty:
+	// the heat capacities are neglected (ΔrH°, ΔrS° constant).
+	HeatCapacity []Species
+}
+
+// increments returns ΔrH(t) − ΔrH° (kJ/mol) and ΔrS(t) − ΔrS° (J/(mol·K)).
+func (r Reaction) increments(t float64) (dh, ds float64) {
+	for _, sp := range r.HeatCapacity {
+		h, s := sp.Chain.Increments(t)
+		dh += sp.Coefficient * h
+		ds += sp.Coefficient * s
+	}
+	return dh, ds
+}
+
+// CoveredRange returns the temperatures every species' polynomials cover
+// (NaN without heat capacities).
+func (r Reaction) CoveredRange() (lo, hi float64) {
+	if len(r.HeatCapacity) == 0 {
+		return math.NaN(), math.NaN()
+	}
+	lo, hi = 0, math.Inf(1)
+	for _, sp := range r.HeatCapacity {
+		l, h := sp.Chain.Range()
+		lo, hi = math.Max(lo, l), math.Min(hi, h)
+	}
+	return lo, hi
 }
 
 // Point is ΔrG at one temperature with its σ.
@@ -32,7 +61,8 @@ type Point struct {
 // Gibbs returns ΔrG (kJ/mol) and its σ at temperature t (K) with the
 // released gas at partial pressure p (bar).
 func (r Reaction) Gibbs(t, p float64) (float64, float64) {
-	g := r.Enthalpy - t*r.Entropy/1000 + r.GasMoles*thermo.RT(t)*math.Log(p/StandardPressure)
+	dh, ds := r.increments(t)
+	g := r.Enthalpy + dh - t*(r.Entropy+ds)/1000 + r.GasMoles*thermo.RT(t)*math.Log(p/StandardPressure)
 	u := math.Hypot(r.EnthalpyUncertainty, t*r.EntropyUncertainty/1000)
 	return g, u
 }
@@ -68,9 +98,19 @@ type NoCrossingError struct {
 	// Sign is the sign ΔrG keeps at every positive temperature (−1, +1),
 	// or 0 when both ΔrH and the effective ΔrS are zero.
 	Sign int
+	// Lo and Hi (K), when Hi > 0, bound the temperatures searched: those
+	// the heat-capacity polynomials cover.
+	Lo, Hi float64
 }
 
 func (e *NoCrossingError) Error() string {
+	if e.Hi > 0 {
+		word := "positive"
+		if e.Sign < 0 {
+			word = "negative"
+		}
+		return fmt.Sprintf("ΔrG is %s from %.0f to %.0f K, the temperatures the heat-capacity polynomials cover", word, e.Lo, e.Hi)
+	}
 	switch e.Sign {
 	case -1:
 		return "ΔrG is negative at every temperature (ΔrH < 0 and ΔrS > 0)"
@@ -84,6 +124,9 @@ func (e *NoCrossingError) Error() string {
 // and its σ by first-order propagation,
 // σ_T² = (σ_H/S′)² + (T*·σ_S/S′)² with S′ the effective entropy.
 func (r Reaction) Zero(p float64) (Crossing, error) {
+	if len(r.HeatCapacity) > 0 {
+		return r.zeroWithHeatCapacity(p)
+	}
 	s := r.Entropy/1000 - r.GasMoles*thermo.GasConstant/1000*math.Log(p/StandardPressure) // kJ/(mol·K)
 	h := r.Enthalpy
 	if s == 0 || h == 0 || (h > 0) != (s > 0) {
@@ -105,4 +148,44 @@ func (r Reaction) Zero(p float64) (Crossing, error) {
 func (r Reaction) String() string {
 	return fmt.Sprintf("ΔrH° %.1f ± %.1f kJ/mol, ΔrS° %.1f ± %.1f J/(mol·K), Δn(gas) %g",
 		r.Enthalpy, r.EnthalpyUncertainty, r.Entropy, r.EntropyUncertainty, r.GasMoles)
+}
+
+// crossingSamples is how many temperatures the search for a sign change of
+// ΔrG takes over the covered range before bisecting.
+const crossingSamples = 400
+
+// zeroWithHeatCapacity finds the lowest temperature within the range the
+// polynomials cover where ΔrG(T, p) changes sign, by sampling and
+// bisection; σ_T = √(σ_H² + (T·σ_S)²)/|∂ΔrG/∂T| with ∂ΔrG/∂T = −ΔrS_eff(T).
+func (r Reaction) zeroWithHeatCapacity(p float64) (Crossing, error) {
+	lo, hi := r.CoveredRange()
+	lo = math.Max(lo, thermo.StandardTemperature)
+	g := func(t float64) float64 { v, _ := r.Gibbs(t, p); return v }
+	prevT, prevG := lo, g(lo)
+	for i := 1; i <= crossingSamples; i++ {
+		t := lo + (hi-lo)*float64(i)/crossingSamples
+		gt := g(t)
+		if (prevG < 0) != (gt < 0) || gt == 0 {
+			a, b, ga := prevT, t, prevG
+			for k := 0; k < 60 && b-a > 1e-9*b; k++ {
+				m := (a + b) / 2
+				if gm := g(m); (gm < 0) == (ga < 0) && gm != 0 {
+					a, ga = m, gm
+				} else {
+					b = m
+				}
+			}
+			tc := (a + b) / 2
+			_, ds := r.increments(tc)
+			slope := (r.Entropy+ds)/1000 - r.GasMoles*thermo.GasConstant/1000*math.Log(p/StandardPressure)
+			u := math.Hypot(r.EnthalpyUncertainty, tc*r.EntropyUncertainty/1000) / math.Abs(slope)
+			return Crossing{Temperature: tc, Uncertainty: u, Below: g(lo) < 0}, nil
+		}
+		prevT, prevG = t, gt
+	}
+	sign := 1
+	if prevG < 0 {
+		sign = -1
+	}
+	return Crossing{}, &NoCrossingError{Sign: sign, Lo: lo, Hi: hi}
 }

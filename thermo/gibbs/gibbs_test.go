@@ -4,6 +4,8 @@ import (
 	"errors"
 	"math"
 	"testing"
+
+	"enthalpath/thermo"
 )
 
 // NBS tables (Wagman et al. 1982, the pinned digitised copy
@@ -124,5 +126,42 @@ func TestJudge(t *testing.T) {
 	}
 	if Undecided.String() != "undecided within the data" {
 		t.Errorf("wording %q", Undecided)
+	}
+}
+
+// With a constant ΔrCp the Kirchhoff relations are exact:
+// ΔrH(T) = ΔrH° + ΔCp(T − T°), ΔrS(T) = ΔrS° + ΔCp·ln(T/T°) (any
+// thermodynamics text). A chain with a₃ alone (Cp = a₃R, b₁ and b₂ free)
+// must give them, and Zero must find the root of the exact ΔrG(T).
+func TestHeatCapacityConstantCp(t *testing.T) {
+	const r = thermo.GasConstant
+	flat := func(a3, b1, b2 float64) Chain {
+		return Chain{{TLow: 200, THigh: 6000, A: [7]float64{0, 0, a3}, B1: b1, B2: b2}}
+	}
+	// Product Cp 5R, reactant Cp 3R: ΔCp = 2R (one mole each).
+	rx := Reaction{Enthalpy: 150, Entropy: 140, GasMoles: 1,
+		HeatCapacity: []Species{{Coefficient: -1, Chain: flat(3, -100, 7)}, {Coefficient: 1, Chain: flat(5, 250, -3)}}}
+	t0 := thermo.StandardTemperature
+	exact := func(temp float64) float64 {
+		dcp := 2 * r
+		return rx.Enthalpy + dcp*(temp-t0)/1000 - temp*(rx.Entropy+dcp*math.Log(temp/t0))/1000
+	}
+	for _, temp := range []float64{298.15, 500, 1000, 2500} {
+		if g, _ := rx.Gibbs(temp, 1); math.Abs(g-exact(temp)) > 1e-9 {
+			t.Errorf("ΔrG(%g K) = %.9f, exact %.9f", temp, g, exact(temp))
+		}
+	}
+	c, err := rx.Zero(1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(exact(c.Temperature)) > 1e-6 || c.Below {
+		t.Errorf("crossing %.6f K: exact ΔrG there %.3g", c.Temperature, exact(c.Temperature))
+	}
+	// Beyond the chains' range (6000 K) no crossing: the error names the range.
+	rx.Enthalpy = 5000
+	var nc *NoCrossingError
+	if _, err := rx.Zero(1); !errors.As(err, &nc) || nc.Hi != 6000 || nc.Sign != 1 {
+		t.Errorf("no crossing within the range: %v", err)
 	}
 }

@@ -54,6 +54,17 @@ type ZeroPoint struct {
 	MolarMass float64
 }
 
+// Thermal describes the step from the model's 0 K energy to the lattice
+// enthalpy at a temperature T: ΔH_L(T) = U(0 K) + [H(T) − H(0)]_solid −
+// Σ_ions [H(T) − H(0)]_gas, each gaseous monatomic ion carrying 5/2·RT.
+type Thermal struct {
+	// Temperature in K; 0 leaves the thermal terms out.
+	Temperature float64
+	// HeatContent is the solid's measured H(T) − H(0) per formula unit in
+	// kJ/mol; 0: the Debye heat content with the zero-point term's θ_D.
+	HeatContent float64
+}
+
 // ExtendedInput is one salt in one structure.
 type ExtendedInput struct {
 	// Madelung is A referred to D0 (thermo/ewald's convention).
@@ -72,6 +83,7 @@ type ExtendedInput struct {
 	C6, C8    [3]float64
 	Repulsion Repulsion
 	ZeroPoint ZeroPoint
+	Thermal   Thermal
 }
 
 // ExtendedTerms are the model's terms at one distance, kJ/mol per formula
@@ -85,6 +97,10 @@ type ExtendedTerms struct {
 	// BulkModulus is the model's bulk modulus at D in GPa (the curvature
 	// route's input).
 	BulkModulus float64
+	// HeatContent is the solid's H(T) − H(0) and IonsHeatContent the
+	// gaseous ions' (5/2·RT each), kJ/mol per formula unit, at the
+	// Thermal temperature (both 0 without one).
+	HeatContent, IonsHeatContent float64
 }
 
 // Dispersion returns the C/r⁶ and D/r⁸ terms together.
@@ -95,8 +111,16 @@ func (t ExtendedTerms) Static() float64 {
 	return t.Coulomb + t.Repulsion + t.DipoleDipole + t.DipoleQuadrupole
 }
 
-// Total returns the lattice energy U (negative, kJ/mol).
+// Total returns the lattice energy U at 0 K (negative, kJ/mol).
 func (t ExtendedTerms) Total() float64 { return t.Static() + t.ZP }
+
+// ThermalStep returns ΔH_L(T) − U(0 K) for the step from gaseous ions to
+// the solid: the solid's heat content less the ions'.
+func (t ExtendedTerms) ThermalStep() float64 { return t.HeatContent - t.IonsHeatContent }
+
+// Enthalpy returns the lattice enthalpy of the step from gaseous ions to
+// the solid at the Thermal temperature (negative, kJ/mol).
+func (t ExtendedTerms) Enthalpy() float64 { return t.Total() + t.ThermalStep() }
 
 // ExtendedResult is the model at the minimum of U(d) and at D0.
 type ExtendedResult struct {
@@ -104,8 +128,9 @@ type ExtendedResult struct {
 	// FittedPrefactor is the cation–anion B (kJ/mol) when the repulsion was
 	// fitted.
 	FittedPrefactor float64
-	// ZeroPointFrom says how θ_D was obtained.
-	ZeroPointFrom string
+	// ZeroPointFrom says how θ_D was obtained, HeatContentFrom how the
+	// solid's heat content was.
+	ZeroPointFrom, HeatContentFrom string
 }
 
 // extendedCurve holds U(s) for s = d/D0 in closed form.
@@ -214,6 +239,7 @@ func Extended(in ExtendedInput) (ExtendedResult, error) {
 		}
 	}
 	res.ZeroPointFrom = c.zeroPointFrom()
+	res.HeatContentFrom = c.heatContentFrom()
 	res.Minimum = c.withZeroPoint(s)
 	res.AtD0 = c.withZeroPoint(1)
 	for _, t := range []ExtendedTerms{res.Minimum, res.AtD0} {
@@ -286,7 +312,30 @@ func (c *extendedCurve) withZeroPoint(s float64) ExtendedTerms {
 		t.DebyeTemperature = theta
 		t.ZP = 9.0 / 8 * float64(in.Ions) * thermo.GasConstant * theta / 1000
 	}
+	if temp := in.Thermal.Temperature; temp > 0 {
+		t.IonsHeatContent = float64(in.Ions) * 2.5 * thermo.RT(temp)
+		switch {
+		case in.Thermal.HeatContent > 0:
+			t.HeatContent = in.Thermal.HeatContent
+		case theta > 0:
+			t.HeatContent = DebyeHeatContent(theta, temp, in.Ions)
+		default:
+			// No θ_D: the classical limit 3νRT of Dulong and Petit.
+			t.HeatContent = 3 * float64(in.Ions) * thermo.RT(temp)
+		}
+	}
 	return t
+}
+
+func (c *extendedCurve) heatContentFrom() string {
+	th := c.input.Thermal
+	switch {
+	case !(th.Temperature > 0):
+		return ""
+	case th.HeatContent > 0:
+		return fmt.Sprintf("measured H(%g K) − H(0) of the solid, %g kJ/mol; gaseous ions 5/2·RT each", th.Temperature, th.HeatContent)
+	}
+	return fmt.Sprintf("Debye heat content of the solid, 3νRT·D₃(θ_D/T) at %g K with the zero-point term's θ_D (P. Debye, Ann. Phys. 344, 789 (1912)); gaseous ions 5/2·RT each", th.Temperature)
 }
 
 // PaulingFactor returns c_ij = 1 + z_i/n_i + z_j/n_j, Pauling's weight of

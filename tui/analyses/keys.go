@@ -1,6 +1,10 @@
 package analyses
 
-import "github.com/charmbracelet/bubbles/key"
+import (
+	"github.com/charmbracelet/bubbles/key"
+
+	"enthalpath/tui/nav"
+)
 
 // KeyMap is the analyses screen's keys.
 type KeyMap struct {
@@ -12,11 +16,11 @@ type KeyMap struct {
 // DefaultKeyMap returns the analyses screen's keys.
 func DefaultKeyMap() KeyMap {
 	return KeyMap{
-		Up:   key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "previous analysis")),
-		Down: key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "next analysis")),
-		Edit: key.NewBinding(key.WithKeys("e", "enter"), key.WithHelp("e/enter", "type its arguments")),
-		Run:  key.NewBinding(key.WithKeys("r"), key.WithHelp("r", "run it again")),
-		More: key.NewBinding(key.WithKeys("pgdown", "f"), key.WithHelp("pgdn/f", "scroll the result down")),
-		Back: key.NewBinding(key.WithKeys("pgup", "b"), key.WithHelp("pgup/b", "scroll the result up")),
+		Up:   nav.Up.Bind("previous analysis"),
+		Down: nav.Down.Bind("next analysis"),
+		Edit: nav.Enter.Bind("type its arguments", "e"),
+		Run:  nav.New("run it again", "r"),
+		More: nav.PageDown.Bind("scroll the result down", "f"),
+		Back: nav.PageUp.Bind("scroll the result up", "b"),
 	}
 }

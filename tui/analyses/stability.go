@@ -38,7 +38,7 @@ const stabilityPlotHeight = 14
 
 func (m *Model) stability(s *analysis.Stability) []string {
 	st := m.ctx.Styles
-	lines := []string{st.Accent.Render(fmt.Sprintf("%s at %g K, gases at %g bar (heat capacities neglected)", s.Formula, s.Temperature, s.Pressure))}
+	lines := []string{st.Accent.Render(fmt.Sprintf("%s at %g K, gases at %g bar (%s)", s.Formula, s.Temperature, s.Pressure, s.HeatCapacitySummary()))}
 	c := s.Compound
 	what := "ionic estimate"
 	switch {

@@ -1,6 +1,10 @@
 package assembly
 
-import "github.com/charmbracelet/bubbles/key"
+import (
+	"github.com/charmbracelet/bubbles/key"
+
+	"enthalpath/tui/nav"
+)
 
 // KeyMap is the assembly's keys.
 type KeyMap struct {
@@ -10,11 +14,11 @@ type KeyMap struct {
 // DefaultKeyMap returns the assembly's keys.
 func DefaultKeyMap() KeyMap {
 	return KeyMap{
-		Accept:  key.NewBinding(key.WithKeys("y", "enter"), key.WithHelp("y/enter", "accept the proposal")),
-		Type:    key.NewBinding(key.WithKeys("e"), key.WithHelp("e", "type another value")),
-		Unknown: key.NewBinding(key.WithKeys("x"), key.WithHelp("x", "make this the unknown")),
-		Back:    key.NewBinding(key.WithKeys("b", "backspace"), key.WithHelp("b", "back one step")),
-		Bench:   key.NewBinding(key.WithKeys("w"), key.WithHelp("w", "to the bench")),
+		Accept:  nav.Enter.Bind("accept the proposal", "y"),
+		Type:    nav.New("type another value", "e"),
+		Unknown: nav.New("make this the unknown", "x"),
+		Back:    nav.New("back one step", "b", "backspace"),
+		Bench:   nav.New("to the bench", "w"),
 	}
 }
 

@@ -1,6 +1,10 @@
 package bench
 
-import "github.com/charmbracelet/bubbles/key"
+import (
+	"github.com/charmbracelet/bubbles/key"
+
+	"enthalpath/tui/nav"
+)
 
 // KeyMap is the bench's keys.
 type KeyMap struct {
@@ -14,18 +18,18 @@ type KeyMap struct {
 // DefaultKeyMap returns the bench's keys.
 func DefaultKeyMap() KeyMap {
 	return KeyMap{
-		Up:        key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "previous step")),
-		Down:      key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "next step")),
-		Top:       key.NewBinding(key.WithKeys("home", "g"), key.WithHelp("g/home", "first step")),
-		Bottom:    key.NewBinding(key.WithKeys("end", "G"), key.WithHelp("G/end", "last step")),
-		Edit:      key.NewBinding(key.WithKeys("e", "enter"), key.WithHelp("e", "type a value")),
-		Unknown:   key.NewBinding(key.WithKeys("x"), key.WithHelp("x", "solve for it")),
-		Reset:     key.NewBinding(key.WithKeys("r"), key.WithHelp("r", "reset to data")),
-		Source:    key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "source")),
-		Assemble:  key.NewBinding(key.WithKeys("a"), key.WithHelp("a", "assemble step by step")),
-		Pane:      key.NewBinding(key.WithKeys("v"), key.WithHelp("v", "steps ⇄ drawing (small window)")),
-		Export:    key.NewBinding(key.WithKeys("d"), key.WithHelp("d", "export the drawing as SVG")),
-		Lattice:   key.NewBinding(key.WithKeys("c"), key.WithHelp("c", "lattice ΔH_L ⇄ U")),
-		Electrons: key.NewBinding(key.WithKeys("t"), key.WithHelp("t", "ionization 0 K ⇄ 298 K")),
+		Up:        nav.Up.Bind("previous step"),
+		Down:      nav.Down.Bind("next step"),
+		Top:       nav.First.Bind("first step"),
+		Bottom:    nav.Last.Bind("last step"),
+		Edit:      nav.Enter.Bind("type a value", "e"),
+		Unknown:   nav.New("solve for it", "x"),
+		Reset:     nav.New("reset to data", "r"),
+		Source:    nav.New("source", "s"),
+		Assemble:  nav.New("assemble step by step", "a"),
+		Pane:      nav.New("steps ⇄ drawing (small window)", "v"),
+		Export:    nav.New("export the drawing as SVG", "d"),
+		Lattice:   nav.New("lattice ΔH_L ⇄ U", "c"),
+		Electrons: nav.New("ionization 0 K ⇄ 298 K", "t"),
 	}
 }

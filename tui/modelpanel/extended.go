@@ -38,7 +38,7 @@ func (m *Model) extendedLines(res *cycle.Result) []string {
 	b := mr.Inputs.Extended
 	t := b.Minimum
 	parts := []string{"Coulomb " + m.ctx.Signed(t.Coulomb), "repulsion " + m.ctx.Signed(t.Repulsion),
-		"dispersion " + m.ctx.Signed(t.Dispersion()), "zero-point " + m.ctx.Signed(t.ZP), "n·RT " + m.ctx.Signed(-b.LatticeCorrection)}
+		"dispersion " + m.ctx.Signed(t.Dispersion()), "zero-point " + m.ctx.Signed(t.ZP), "heat content " + m.ctx.Signed(t.ThermalStep())}
 	text := fmt.Sprintf("extended: %s (least at d = %.4f Å; %.4f Å from %s)",
 		strings.Join(parts, " · "), t.D, b.Reference, refKind(b))
 	return screen.Wrap(text, m.w, "  ")

@@ -93,3 +93,19 @@ func Truncate(s string, n int) string {
 	}
 	return ansi.Truncate(s, n, "…")
 }
+
+// TruncateStart shortens s to at most n display cells by cutting its
+// start, beginning it with "…" when anything was cut: for a path, whose
+// end names the file.
+func TruncateStart(s string, n int) string {
+	w := ansi.StringWidth(s)
+	switch {
+	case n <= 0:
+		return ""
+	case w <= n:
+		return s
+	case n == 1:
+		return "…"
+	}
+	return "…" + ansi.TruncateLeft(s, w-(n-1), "")
+}

@@ -93,3 +93,26 @@ func TestTruncate(t *testing.T) {
 		t.Errorf("styled string cut to %d cells, want 5", got)
 	}
 }
+
+// TestTruncateStart: the cut is from the start, counted in display cells
+// (a CJK character is two cells wide: Unicode UAX #11, East Asian Wide),
+// the result never wider than asked.
+func TestTruncateStart(t *testing.T) {
+	cases := []struct {
+		s    string
+		n    int
+		want string
+	}{
+		{"recovery.hesscycle", 30, "recovery.hesscycle"},
+		{"/home/a/recovery.hesscycle", 19, "…recovery.hesscycle"},
+		{"/home/化学/x.hesscycle", 15, "…学/x.hesscycle"},
+		{"abc", 1, "…"},
+		{"abc", 0, ""},
+	}
+	for _, c := range cases {
+		got := TruncateStart(c.s, c.n)
+		if got != c.want || ansi.StringWidth(got) > max(c.n, 0) {
+			t.Errorf("TruncateStart(%q, %d) = %q, want %q", c.s, c.n, got, c.want)
+		}
+	}
+}

@@ -1,9 +1,13 @@
 package shelf
 
-import "github.com/charmbracelet/bubbles/key"
+import (
+	"github.com/charmbracelet/bubbles/key"
+
+	"enthalpath/tui/nav"
+)
 
 // KeyMap is the shelf's keys. Printable keys always go to the filter line,
-// so movement uses the arrows and ctrl keys.
+// so movement uses the arrows and ctrl keys (nav's typing variants).
 type KeyMap struct {
 	Up, Down, PageUp, PageDown key.Binding
 	Open, Assemble, Clear      key.Binding
@@ -12,12 +16,12 @@ type KeyMap struct {
 // DefaultKeyMap returns the shelf's keys.
 func DefaultKeyMap() KeyMap {
 	return KeyMap{
-		Up:       key.NewBinding(key.WithKeys("up", "ctrl+p"), key.WithHelp("↑/ctrl+p", "previous compound")),
-		Down:     key.NewBinding(key.WithKeys("down", "ctrl+n"), key.WithHelp("↓/ctrl+n", "next compound")),
-		PageUp:   key.NewBinding(key.WithKeys("pgup"), key.WithHelp("pgup", "page up")),
-		PageDown: key.NewBinding(key.WithKeys("pgdown"), key.WithHelp("pgdn", "page down")),
-		Open:     key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "open, lattice solved")),
-		Assemble: key.NewBinding(key.WithKeys("ctrl+g"), key.WithHelp("ctrl+g", "assemble step by step")),
-		Clear:    key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "clear the filter")),
+		Up:       nav.Up.TypingBind("previous compound"),
+		Down:     nav.Down.TypingBind("next compound"),
+		PageUp:   nav.PageUp.TypingBind("page up"),
+		PageDown: nav.PageDown.TypingBind("page down"),
+		Open:     nav.Enter.TypingBind("open, lattice solved"),
+		Assemble: nav.New("assemble step by step", "ctrl+g"),
+		Clear:    nav.Esc.TypingBind("clear the filter"),
 	}
 }

@@ -1,6 +1,6 @@
 //go:build unix
 
-package main
+package launch
 
 import (
 	"bytes"
@@ -28,6 +28,12 @@ import (
 // loopback only) and the usual command-line convention that bad usage exits
 // 2 (common practice, no source).
 
+// runServe runs "enthalpath serve ARGS" through the command line's
+// dispatcher, as main does, and returns the exit code.
+func runServe(env cli.Env, args []string) cli.ExitCode {
+	return cli.Main(env, append([]string{"serve"}, args...), cli.Interactive{Serve: Serve})
+}
+
 type lockedBuffer struct {
 	mu  sync.Mutex
 	buf bytes.Buffer
@@ -49,7 +55,7 @@ func TestServeUsage(t *testing.T) {
 	state := t.TempDir()
 	tests := []struct {
 		args []string
-		code int
+		code cli.ExitCode
 		says string
 	}{
 		{[]string{"--help"}, cli.ExitOK, "--authorized-keys"},
@@ -66,7 +72,7 @@ func TestServeUsage(t *testing.T) {
 	for _, tt := range tests {
 		t.Run(strings.Join(tt.args, " "), func(t *testing.T) {
 			var stderr lockedBuffer
-			code := runServe(cli.Env{Stdout: io.Discard, Stderr: &stderr}, tt.args)
+			code := runServe(cli.Env{Stdout: &stderr, Stderr: &stderr}, tt.args)
 			if code != tt.code || !strings.Contains(stderr.String(), tt.says) {
 				t.Errorf("runServe(%q) = %d, stderr %q; want %d mentioning %q", tt.args, code, stderr.String(), tt.code, tt.says)
 			}
@@ -94,7 +100,7 @@ func TestServeMissingKeysCreatesNothing(t *testing.T) {
 }
 
 func TestServeDefaults(t *testing.T) {
-	f, err := parseServeFlags([]string{"--state-dir", "/srv/ep"}, io.Discard)
+	f, err := parseServeFlags([]string{"--state-dir", "/srv/ep"})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -122,7 +128,7 @@ func TestServeEndToEnd(t *testing.T) {
 		t.Fatal(err)
 	}
 	var stderr lockedBuffer
-	done := make(chan int, 1)
+	done := make(chan cli.ExitCode, 1)
 	go func() {
 		done <- runServe(cli.Env{Stdout: io.Discard, Stderr: &stderr}, []string{
 			"--state-dir", filepath.Join(dir, "state"), "--listen", "127.0.0.1:0",

@@ -1,11 +1,9 @@
-package main
+package launch
 
 import (
 	"context"
 	"errors"
-	"flag"
 	"fmt"
-	"io"
 	"log/slog"
 	"os"
 	"os/signal"
@@ -29,16 +27,6 @@ const defaultListen = "127.0.0.1:2324"
 // shutdownDeadline bounds SIGINT/SIGTERM handling from signal to exit.
 const shutdownDeadline = 10 * time.Second
 
-const serveUsage = `usage: enthalpath [--data FILE] serve [FLAGS]
-
-Serves the interactive workshop over SSH. Every user connects with ssh -t
-and a public key, and works in a folder of their own under the state
-directory, named after the key. Without --authorized-keys any key is let in,
-and only loopback addresses may be served.
-
-Flags:
-`
-
 // serveFlags are the parsed command line of "enthalpath serve".
 type serveFlags struct {
 	listen    string
@@ -46,15 +34,11 @@ type serveFlags struct {
 	config    serve.Config
 }
 
-// parseServeFlags reads the command line; the error is a usage error.
-func parseServeFlags(args []string, stderr io.Writer) (serveFlags, error) {
+// parseServeFlags reads the command line: the error is the help request
+// or a UsageError.
+func parseServeFlags(args []string) (serveFlags, error) {
 	var f serveFlags
-	fs := flag.NewFlagSet("serve", flag.ContinueOnError)
-	fs.SetOutput(stderr)
-	fs.Usage = func() {
-		fmt.Fprint(stderr, serveUsage)
-		cli.PrintFlags(stderr, fs)
-	}
+	fs := cli.NewFlagSet("serve")
 	stateDir := fs.String("state-dir", defaultStateDir(), "`DIR` holding the host key (unless --host-key) and users/<key digest>/ folders")
 	fs.StringVar(&f.listen, "listen", defaultListen, "`ADDR`ess to listen on, host:port")
 	hostKey := fs.String("host-key", "", "ed25519 host key `FILE`, created (mode 0600) if missing (default DIR/host_ed25519)")
@@ -64,12 +48,12 @@ func parseServeFlags(args []string, stderr io.Writer) (serveFlags, error) {
 	fs.IntVar(&f.config.MaxInputLen, "max-line", serve.DefaultMaxInputLen, "most characters in any text a user types in a field")
 	fs.IntVar(&f.config.MaxBurst, "max-burst", serve.DefaultMaxBurst, "drop any input burst longer than this many `BYTES` (a runaway paste)")
 	fs.StringVar(&f.logFormat, "log-format", "text", "log lines on standard error as text or json")
-	if err := fs.Parse(args); err != nil {
+	pos, help, err := cli.ParseFlags(fs, args)
+	if help || err != nil {
 		return f, err
 	}
-	if fs.NArg() > 0 {
-		fs.Usage()
-		return f, fmt.Errorf("serve takes no arguments, got %q", fs.Arg(0))
+	if len(pos) > 0 {
+		return f, cli.Usagef("serve takes no arguments, got %q: usage: enthalpath %s", pos[0], cli.ServeSynopsis)
 	}
 	var problems []error
 	if f.config.MaxSessions < 1 {
@@ -94,7 +78,7 @@ func parseServeFlags(args []string, stderr io.Writer) (serveFlags, error) {
 		problems = append(problems, fmt.Errorf("--listen %s: %w; give --authorized-keys FILE to serve other addresses", f.listen, serve.ErrNotLoopback))
 	}
 	if err := errors.Join(problems...); err != nil {
-		return f, err
+		return f, &cli.UsageError{Err: err}
 	}
 	f.config.StateDir = *stateDir
 	f.config.HostKeyPath = *hostKey
@@ -119,15 +103,12 @@ func defaultStateDir() string {
 	return filepath.Join(dir, "enthalpath", "serve")
 }
 
-// runServe runs "enthalpath serve" until SIGINT or SIGTERM.
-func runServe(env cli.Env, args []string) int {
-	f, err := parseServeFlags(args, env.Stderr)
-	if errors.Is(err, flag.ErrHelp) {
-		return cli.ExitOK
-	}
+// Serve is the command "serve": the workshop over SSH until SIGINT or
+// SIGTERM.
+func Serve(env cli.Env, args []string) error {
+	f, err := parseServeFlags(args)
 	if err != nil {
-		fmt.Fprintf(env.Stderr, "enthalpath serve: %v\n", err)
-		return cli.ExitUsage
+		return err
 	}
 	var handler slog.Handler = slog.NewTextHandler(env.Stderr, nil)
 	if f.logFormat == "json" {
@@ -136,9 +117,9 @@ func runServe(env cli.Env, args []string) int {
 	log := slog.New(handler)
 
 	// The data is loaded once and shared, read-only, by every session.
-	db, code := loadUserData(env, "enthalpath serve")
-	if db == nil {
-		return code
+	db, err := cli.LoadData(env)
+	if err != nil {
+		return err
 	}
 
 	cfg := f.config
@@ -159,18 +140,15 @@ func runServe(env cli.Env, args []string) int {
 	if cfg.AuthorizedKeysPath != "" {
 		// Checked before anything is created in the state folder.
 		if _, err := os.Stat(cfg.AuthorizedKeysPath); err != nil {
-			fmt.Fprintf(env.Stderr, "enthalpath serve: --authorized-keys %s: %v\n", cfg.AuthorizedKeysPath, err)
-			return cli.ExitUsage
+			return cli.Usagef("--authorized-keys %s: %v", cfg.AuthorizedKeysPath, err)
 		}
 	}
 	if err := os.MkdirAll(cfg.StateDir, 0o700); err != nil {
-		fmt.Fprintf(env.Stderr, "enthalpath serve: --state-dir %s: %v\n", cfg.StateDir, err)
-		return cli.ExitUsage
+		return cli.Usagef("--state-dir %s: %v", cfg.StateDir, err)
 	}
 	srv, err := serve.New(cfg)
 	if err != nil {
-		fmt.Fprintf(env.Stderr, "enthalpath serve: %v\n", err)
-		return cli.ExitUsage
+		return &cli.UsageError{Err: err}
 	}
 
 	signals := make(chan os.Signal, 1)
@@ -180,11 +158,7 @@ func runServe(env cli.Env, args []string) int {
 	select {
 	case err := <-served:
 		signal.Stop(signals)
-		if err != nil {
-			fmt.Fprintf(env.Stderr, "enthalpath serve: %v\n", err)
-			return cli.ExitInternal
-		}
-		return cli.ExitOK
+		return err
 	case sig := <-signals:
 		// A second signal ends the process at once (Go's default action).
 		signal.Stop(signals)
@@ -192,14 +166,14 @@ func runServe(env cli.Env, args []string) int {
 	}
 	ctx, cancel := context.WithTimeout(context.Background(), shutdownDeadline)
 	defer cancel()
-	code = cli.ExitOK
-	if err := srv.Shutdown(ctx); err != nil {
+	err = srv.Shutdown(ctx)
+	if err != nil {
 		log.Error("shutdown incomplete", "error", err.Error())
-		code = cli.ExitInternal
+		err = fmt.Errorf("shutdown incomplete: %w", err)
 	}
 	select {
 	case <-served:
 	case <-ctx.Done():
 	}
-	return code
+	return err
 }

@@ -1,4 +1,4 @@
-package main
+package launch
 
 import (
 	"fmt"
@@ -10,37 +10,37 @@ import (
 	tea "github.com/charmbracelet/bubbletea"
 	"github.com/mattn/go-isatty"
 
-	"enthalpath/cycle"
 	"enthalpath/cycle/cli"
-	"enthalpath/data"
 	"enthalpath/tui"
 )
 
-// runWorkshop starts the terminal workshop: "enthalpath" opens the shelf on
-// the demo shortlist, "enthalpath open FORMULA|FILE" opens that compound's
-// cycle or that cycle file. SIGTERM and SIGHUP save unsaved work to the
-// recovery file before quitting; so does a crash, after the terminal is
-// restored.
-func runWorkshop(env cli.Env, args []string) int {
-	if len(args) > 1 || (len(args) == 1 && (args[0] == "-h" || args[0] == "--help")) {
-		fmt.Fprintln(env.Stderr, "usage: enthalpath [--data FILE] open [FORMULA | FILE"+cycle.FileExtension+"]")
-		if len(args) == 1 {
-			return cli.ExitOK
-		}
-		return cli.ExitUsage
+// Workshop is the command "open" (and no command at all): the terminal
+// workshop. "enthalpath" opens the shelf on the demo shortlist,
+// "enthalpath open FORMULA|FILE" opens that compound's cycle or that cycle
+// file. SIGTERM and SIGHUP save unsaved work to the recovery file before
+// quitting; so does a crash, after the terminal is restored.
+func Workshop(env cli.Env, args []string) error {
+	fs := cli.NewFlagSet("open")
+	pos, help, err := cli.ParseFlags(fs, args)
+	if help || err != nil {
+		return err
 	}
+	if len(pos) > 1 {
+		return cli.Usagef("give one formula or cycle file: usage: enthalpath %s", cli.WorkshopSynopsis)
+	}
+	// The terminal is checked before the data are loaded: a script that
+	// runs "enthalpath" by mistake learns at once what to run instead.
 	if !isTerminal(env.Stdin) || !isTerminal(env.Stdout) {
-		fmt.Fprintln(env.Stderr, "enthalpath: the workshop needs a terminal, and standard input or output is not one;"+
+		return cli.Usagef("the workshop needs a terminal, and standard input or output is not one;" +
 			" run it in a terminal, or use a command such as enthalpath cycle FORMULA (enthalpath help lists them)")
-		return cli.ExitUsage
 	}
-	db, code := loadUserData(env, "enthalpath")
-	if db == nil {
-		return code
+	db, err := cli.LoadData(env)
+	if err != nil {
+		return err
 	}
 	opts := tui.Options{DB: db, RecoveryPath: recoveryPath()}
-	if len(args) == 1 {
-		opts.Initial = args[0]
+	if len(pos) == 1 {
+		opts.Initial = pos[0]
 	}
 	model := tui.New(opts)
 	// Bubble Tea's own handler turns SIGTERM into a plain quit, which would
@@ -57,7 +57,7 @@ func runWorkshop(env cli.Env, args []string) int {
 		}
 	}()
 
-	_, err := p.Run()
+	_, err = p.Run()
 	root, _ := model.(*tui.Model)
 	if err != nil {
 		// A failure, or a terminal gone from under the program: whatever
@@ -69,15 +69,14 @@ func runWorkshop(env cli.Env, args []string) int {
 				fmt.Fprintf(env.Stderr, "enthalpath: unsaved work kept in %s\n", path)
 			}
 		}
-		fmt.Fprintf(env.Stderr, "enthalpath: %v\n", err)
-		return cli.ExitInternal
+		return err
 	}
 	if root != nil {
 		if path := root.RecoveredTo(); path != "" {
 			fmt.Fprintf(env.Stdout, "Unsaved work kept in %s; open it with: enthalpath open %s\n", path, path)
 		}
 	}
-	return cli.ExitOK
+	return nil
 }
 
 // isTerminal reports whether a stream is a terminal.
@@ -98,24 +97,4 @@ func recoveryPath() string {
 		}
 	}
 	return filepath.Join(dir, "enthalpath", "recovery.hesscycle")
-}
-
-// loadUserData loads the built-in data with the user's overlay (--data FILE,
-// else the default overlay file when it exists). A broken --data file is a
-// usage error; a broken default file is reported and the built-in data are
-// used. On failure it returns a nil DB and the exit code.
-func loadUserData(env cli.Env, who string) (*data.DB, int) {
-	db, err := data.LoadWithUserFile(data.UserDataPath(env.DataFile))
-	switch {
-	case err == nil:
-		return db, cli.ExitOK
-	case db == nil:
-		fmt.Fprintf(env.Stderr, "%s: loading the built-in data: %v\n", who, err)
-		return nil, cli.ExitInternal
-	case env.DataFile != "":
-		fmt.Fprintf(env.Stderr, "%s: --data %s: %v\n", who, env.DataFile, err)
-		return nil, cli.ExitUsage
-	}
-	fmt.Fprintf(env.Stderr, "%s: ignoring the overlay file: %v\n", who, err)
-	return db, cli.ExitOK
 }
