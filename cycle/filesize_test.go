@@ -29,7 +29,6 @@ var longFilesBeingSplit = map[string]string{
 	"data/compounds_data_test.go": "i12",
 	"data/load_test.go":           "i12",
 	"cycle/cli/data.go":           "i12",
-	"thermo/ewald/sums.go":        "i19",
 	"cycle/models.go":             "i15",
 	"tui/model.go":                "i13t",
 	"tui/assembly/assembly.go":    "i13t",
