@@ -242,9 +242,9 @@ func compareStatus(err error) (status, reason string) {
 	case err == nil:
 		return "ok", ""
 	case errors.Is(err, cycle.ErrMissingDatum):
-		return "missing-datum", err.Error()
+		return "missing-datum", commandLineText(err)
 	}
-	return "not-closed", err.Error()
+	return "not-closed", commandLineText(err)
 }
 
 type compareJSONRow struct {
