@@ -76,7 +76,7 @@ func (m *Model) answer(k tea.KeyMsg) tea.Cmd {
 		}
 		if open != nil {
 			m.kept = "The unsaved " + m.sess.Cycle.Formula + " cycle was kept in " + m.files.Name(p) + "." // said once the open is done
-			m.recovered = "" // the session goes on: its end is not in that file
+			m.recovered = ""                                                                               // the session goes on: its end is not in that file
 		}
 		return m.then(open)
 	case unsaved.Discard:
