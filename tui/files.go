@@ -75,8 +75,10 @@ func (m *Model) answer(k tea.KeyMsg) tea.Cmd {
 			return nil
 		}
 		if open != nil {
-			m.kept = "The unsaved " + m.sess.Cycle.Formula + " cycle was kept in " + m.files.Name(p) + "." // said once the open is done
-			m.recovered = ""                                                                               // the session goes on: its end is not in that file
+			// Said once the open is done; the session goes on, so its end
+			// is not in that file.
+			m.kept = "The unsaved " + m.sess.Cycle.Formula + " cycle was kept in " + m.files.Name(p) + "."
+			m.recovered = ""
 		}
 		return m.then(open)
 	case unsaved.Discard:
