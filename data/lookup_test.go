@@ -5,6 +5,8 @@ import (
 	"slices"
 	"strings"
 	"testing"
+
+	"enthalpath/thermo/notation"
 )
 
 // FindIon finds what Ion finds and reports a miss without an error. Mg+
@@ -111,6 +113,17 @@ func TestSpeciesConcurrentFirstUse(t *testing.T) {
 	for range 8 {
 		if !<-done {
 			t.Error("O2(g) not found, or ΔfH° not 0 (its own standard state, NBS 1982)")
+		}
+	}
+}
+
+// Every built-in ion's core is a formula the one reader accepts: Load skips
+// the check for the built-in tables (an overlay's ions are still checked).
+func TestIonCoresParse(t *testing.T) {
+	db := mustLoad(t)
+	for _, ion := range db.Ions() {
+		if _, err := notation.ParseFormula(ion.Core); err != nil {
+			t.Errorf("ion %s: core %q: %v", ion.Symbol, ion.Core, err)
 		}
 	}
 }
