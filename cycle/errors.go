@@ -58,6 +58,22 @@ type MissingError struct {
 	// Key is the step; What names the missing datum in words ("first
 	// electron affinity of Xe").
 	Key, What string
+	// Kind is the step's kind; Ion the symbol of the gaseous ion the step
+	// helps make ("MoO4^2-", "As3-"), "" for a step of the compound.
+	Kind StepKind
+	Ion  string
+}
+
+// MissingDatum returns the *MissingError for step s of c, which has no value.
+func (c *Cycle) MissingDatum(s *Step) *MissingError {
+	e := &MissingError{Key: s.Key, What: s.Label, Kind: s.Kind}
+	switch s.Side {
+	case SideCation:
+		e.Ion = c.Cation.Ion.Symbol
+	case SideAnion:
+		e.Ion = c.Anion.Ion.Symbol
+	}
+	return e
 }
 
 func (e *MissingError) Error() string {

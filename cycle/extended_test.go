@@ -57,6 +57,12 @@ func TestExtendedNaClBreakdown(t *testing.T) {
 			t.Errorf("NaCl %s = %.3f eV, published %.3f eV (±%.0f %%)", c.name, c.got, c.want, 100*c.rel)
 		}
 	}
+	// The Coulomb term is the Madelung energy of rock salt, A = 1.747565
+	// (the published constant, e.g. Sherman, Chem. Rev. 11, 93 (1932); to
+	// six digits), at the model's distance.
+	if want := -1.747565 * thermo.CoulombKJPerMolAngstrom / b.Minimum.D; math.Abs(b.Minimum.Coulomb-want) > 1e-6*math.Abs(want) {
+		t.Errorf("Coulomb %.4f kJ/mol, want −A·e²/(4πε₀d) = %.4f", b.Minimum.Coulomb, want)
+	}
 	if !(b.Minimum.D > 2.78 && b.Minimum.D < 2.83) {
 		// 0 K and 298 K nearest distances of NaCl, 2.79 and 2.82 Å (from memory).
 		t.Errorf("least-energy distance %.4f Å, want between the 0 K and room-temperature distances", b.Minimum.D)
@@ -66,26 +72,38 @@ func TestExtendedNaClBreakdown(t *testing.T) {
 	}
 }
 
-// TestExtendedNaClDispersion: the dispersion term of NaCl is Mayer's
-// coefficients over the rock-salt lattice sums, 6.5952/d⁶ for unlike and
-// 1.8067/d⁶ for like pairs per ion (Jones and Ingham 1925 as quoted by
-// Tosi 1964; from memory), to 0.5 % (the D/r⁸ term is summed exactly
-// here, not checked against a published sum).
+// TestExtendedNaClDispersion: the dispersion terms of NaCl are Mayer's
+// coefficients over the rock-salt lattice sums per formula unit, S₆ =
+// 6.5952/d⁶ (unlike) and 1.8067/d⁶ (like pairs, each half), S₈ = 6.1457/d⁸
+// and 0.8001/d⁸ (Jones and Ingham 1925 as quoted by Tosi 1964; from
+// memory, and a direct sum over a cube of ±40 cells gives the same four
+// digits), to 0.5 %: C/r⁶ −22.1 and D/r⁸ −2.8 kJ/mol at 2.809 Å, −0.26 eV
+// together.
+//
+// The textbook split recalled in the issue (van der Waals −0.125 eV) is
+// half of that. Mayer's own coefficients give −0.26 eV whichever way they
+// are summed, and no source for −0.125 eV was at hand, so the check
+// against it runs with ENTHALPATH_KNOWN_FAILURES=1 only: the recalled
+// figure may be another author's estimate or a misremembered one.
 func TestExtendedNaClDispersion(t *testing.T) {
 	m, _ := extendedGap(t, "NaCl")
 	b := m.Inputs.Extended
 	d := b.Minimum.D
 	c := func(v float64) float64 { return thermo.ErgCentimetrePowerToKJPerMol(v, 1e-60, 6) }
-	// Mayer's NaCl C: ++ 1.68, +− 11.2, −− 116 (1e-60 erg·cm⁶, from memory).
-	want := -(c(11.2)*6.5952 + 0.5*(c(1.68)+c(116))*1.8067) / math.Pow(d, 6)
-	if got := b.Minimum.DipoleDipole; math.Abs(got-want) > 0.005*math.Abs(want) {
-		t.Errorf("C/r⁶ term %.3f kJ/mol, want %.3f from the published lattice sums", got, want)
+	dd := func(v float64) float64 { return thermo.ErgCentimetrePowerToKJPerMol(v, 1e-76, 8) }
+	// Mayer's NaCl C: ++ 1.68, +− 11.2, −− 116 (1e-60 erg·cm⁶) and D: ++
+	// 0.8, +− 13.9, −− 233 (1e-76 erg·cm⁸), from memory (model_salts.csv).
+	want6 := -(c(11.2)*6.5952 + 0.5*(c(1.68)+c(116))*1.8067) / math.Pow(d, 6)
+	want8 := -(dd(13.9)*6.1457 + 0.5*(dd(0.8)+dd(233))*0.8001) / math.Pow(d, 8)
+	if got := b.Minimum.DipoleDipole; math.Abs(got-want6) > 0.005*math.Abs(want6) {
+		t.Errorf("C/r⁶ term %.3f kJ/mol, want %.3f from the published lattice sums", got, want6)
+	}
+	if got := b.Minimum.DipoleQuadrupole; math.Abs(got-want8) > 0.005*math.Abs(want8) {
+		t.Errorf("D/r⁸ term %.3f kJ/mol, want %.3f from the published lattice sums", got, want8)
 	}
 	if os.Getenv("ENTHALPATH_KNOWN_FAILURES") != "" {
-		// The published split's van der Waals −0.125 eV (see
-		// TestExtendedNaClBreakdown) against ours, 20 %.
 		if got := thermo.KJPerMolToEV(b.Minimum.Dispersion()); math.Abs(got+0.125) > 0.025 {
-			t.Errorf("known failure: NaCl dispersion %.3f eV, the published split says −0.125 eV; Mayer's coefficients give about twice that", got)
+			t.Errorf("known failure: NaCl dispersion %.3f eV, the recalled split says −0.125 eV; Mayer's coefficients give about twice that", got)
 		}
 	}
 }
@@ -94,8 +112,11 @@ func TestExtendedNaClDispersion(t *testing.T) {
 // extended model comes closer to the cycle than every point-charge model
 // (their RMS gaps 5–7 %), and reads each one as ionic. The issue's target,
 // within 1.5 % RMS, is not met with Fumi–Tosi's and Mayer's published
-// coefficients (RMS 2.9 %, mean −2.7 %: the cycle binds more); that check
-// runs with ENTHALPATH_KNOWN_FAILURES=1.
+// coefficients (RMS 2.4 %, mean −2.0 %: the cycle binds more; LiI −6.2 %,
+// without it 1.9 %); that check runs with ENTHALPATH_KNOWN_FAILURES=1. The
+// textbook split of NaCl recalled in the issue (−8.9 + 1.0 − 0.13 + 0.08 =
+// −7.95 eV, U = −767 kJ/mol) is itself 2.4 % short of the cycle's U₀ =
+// −786 kJ/mol (ΔH_L −787.4 less NBS's H°−H°₀ 10.6 plus 5/2·RT per ion).
 func TestExtendedAlkaliHalides(t *testing.T) {
 	rms := map[string]float64{}
 	for _, f := range rockSaltAlkaliHalides {
@@ -125,10 +146,11 @@ func TestExtendedAlkaliHalides(t *testing.T) {
 // TestExtendedCovalentHalides: the silver and copper(I) halides, the
 // textbook examples of covalent contribution (fact of the trade), lie at
 // least 3× the alkali halides' RMS gap from the extended model and read as
-// covalent. TlCl does not: with Tl⁺'s large polarizability the dispersion
-// term takes up most of its extra binding (Mayer's own conclusion of 1933
-// for the thallous halides, from memory); that check runs with
-// ENTHALPATH_KNOWN_FAILURES=1.
+// covalent. TlCl does not quite: the point-charge models leave it 14–16 %
+// short, the extended model 6.8 %, below 3σ (7.6 %). With Tl⁺'s large
+// polarizability the dispersion takes up most of its extra binding
+// (Mayer's own conclusion of 1933 for the thallous halides, from memory);
+// that check runs with ENTHALPATH_KNOWN_FAILURES=1.
 func TestExtendedCovalentHalides(t *testing.T) {
 	v := build(t, "NaCl", Options{Memo: testMemo}).Validation()
 	sigma := v.Model(ModelExtended).Family(FamilyAlkaliHalides).RMSPercent
@@ -212,5 +234,34 @@ func BenchmarkValidate(b *testing.B) {
 	b.ReportAllocs()
 	for b.Loop() {
 		Validate(db, NewMemo())
+	}
+}
+
+// TestExtendedHeatContent: the Debye heat content H(298.15 K) − H(0) of
+// the solid, with the model's own θ_D, against the measured one of the NBS
+// tables (Wagman et al. 1982, column H°−H°₀; data/sources/nbs-tables-1982,
+// the lines named). The harmonic Debye solid leaves out the work of
+// thermal expansion and the anharmonic part, which grow with temperature
+// over θ_D, so it falls short, most for the light salts; 25 % is allowed.
+// Jenkins' classical rule counts 3RT per ion, 14.9 kJ/mol for a 1:1 salt,
+// beyond every measured value here.
+func TestExtendedHeatContent(t *testing.T) {
+	for _, c := range []struct {
+		formula string
+		nbs     float64 // kJ/mol
+		line    int
+	}{
+		{"LiF", 6.473, 10413},
+		{"NaCl", 10.611, 10930},
+		{"KCl", 11.368, 12328},
+		{"KBr", 12.213, 12404},
+		{"RbCl", 12.205, 13642},
+	} {
+		m, _ := extendedGap(t, c.formula)
+		got := m.Inputs.Extended.Minimum.HeatContent
+		if math.Abs(got-c.nbs) > 0.25*c.nbs {
+			t.Errorf("%s: Debye heat content %.2f kJ/mol, NBS %.3f (line %d)", c.formula, got, c.nbs, c.line)
+		}
+		t.Logf("%s: Debye %.2f kJ/mol, NBS %.3f", c.formula, got, c.nbs)
 	}
 }

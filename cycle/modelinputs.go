@@ -57,7 +57,11 @@ func prototypeCN(name string) (int, int) {
 func (c *Cycle) radius(p Part, cn int) (r float64, used int, from string, err error) {
 	if p.Ion.Polyatomic || len(p.Ion.Radii) == 0 {
 		if p.Ion.ThermochemicalRadius.Known() {
-			return p.Ion.ThermochemicalRadius.V, 0, "thermochemical radius (" + p.Ion.ThermochemicalRadius.Source + ")", nil
+			kind := "thermochemical radius"
+			if !p.Ion.Polyatomic {
+				kind = "crystal radius, none in Shannon's table" // data/anion_radii.csv
+			}
+			return p.Ion.ThermochemicalRadius.V, 0, kind + " (" + p.Ion.ThermochemicalRadius.Source + ")", nil
 		}
 		return 0, 0, "", fmt.Errorf("no radius for %s in the data", p.Ion.Symbol)
 	}

@@ -257,7 +257,7 @@ func (w *Cycle) hess(res *Result) error {
 			continue
 		}
 		if s.Source.Kind == SourceMissing {
-			return &MissingError{Key: s.Key, What: s.Label}
+			return w.MissingDatum(s)
 		}
 		base := s.Value - w.shift(s, w.Conventions)
 		sum += hessSign(s) * s.Multiplicity * base

@@ -199,14 +199,24 @@ func (sf *StructureFile) Structure(name string) Structure {
 // another compound is refused), and makes it c's structure, recorded under
 // name. A cycle file names its CIF by path only; this reads it.
 func (c *Cycle) LoadStructureFile(path, name string) error {
-	sf, err := OpenStructureFile(nil, path, nil, []Part{c.Cation, c.Anion})
-	var ns *valence.NoStatesError
-	if errors.As(err, &ns) {
-		return &ForeignElementError{File: name, Element: ns.Element, Compound: c.Formula}
-	}
+	st, err := c.ReadStructureFile(path, name)
 	if err != nil {
 		return err
 	}
-	c.Settings.Structure = sf.Structure(name)
+	c.Settings.Structure = st
 	return nil
+}
+
+// ReadStructureFile is LoadStructureFile without making the structure c's:
+// it returns it, for a caller that checks it with other settings first.
+func (c *Cycle) ReadStructureFile(path, name string) (Structure, error) {
+	sf, err := OpenStructureFile(nil, path, nil, []Part{c.Cation, c.Anion})
+	var ns *valence.NoStatesError
+	if errors.As(err, &ns) {
+		return Structure{}, &ForeignElementError{File: name, Element: ns.Element, Compound: c.Formula}
+	}
+	if err != nil {
+		return Structure{}, err
+	}
+	return sf.Structure(name), nil
 }

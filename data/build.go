@@ -51,6 +51,8 @@ func (b *builder) apply(table string, r record) error {
 		return b.species(r)
 	case "alternatives.csv":
 		return b.alternative(r)
+	case AnionRadiiFile:
+		return b.anionRadius(r)
 	case DerivedIonsFile:
 		return b.derivedIon(r)
 	}

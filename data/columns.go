@@ -23,6 +23,7 @@ var tableColumns = map[string][]string{
 	"species.csv": {"formula", "name", "formation_kj_per_mol", "formation_uncertainty", "gibbs_kj_per_mol",
 		"entropy_j_per_mol_k", "source", "locator", "memory", "note"},
 	"alternatives.csv": {"kind", "key", "value", "uncertainty", "unit", "source", "locator", "note"},
+	AnionRadiiFile:     {"symbol", "radius_angstrom", "source", "locator", "memory", "note"},
 	DerivedIonsFile:    {"ion", "gas_formation_kj_per_mol", "standard_error", "model", "salts", "outside_2sigma", "skipped", "derived", "note"},
 }
 
@@ -43,6 +44,7 @@ var tableOrder = []struct {
 	{"ions.csv", "ion", false},
 	{"shannon.csv", "shannon", false},
 	{"ion_values.csv", "ion_value", true},
+	{AnionRadiiFile, "anion_radius", true},
 	{"compounds.csv", "compound", true},
 	{"solution_enthalpies.csv", "solution_enthalpy", true},
 	{"species.csv", "species", true},

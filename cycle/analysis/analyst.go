@@ -24,6 +24,10 @@ type Analyst struct {
 	saltsOnce sync.Once
 	saltsOf   map[string][]data.Compound // ion symbol → its compounds (ionfit.go)
 
+	volumesOnce sync.Once
+	volumes     *IonVolumes // ionvolume.go
+	volumesErr  error
+
 	mu      sync.Mutex
 	spreads map[string]spreadEntry
 	built   map[string]builtEntry
@@ -277,7 +281,7 @@ func missingStep(c *cycle.Cycle) error {
 				continue // the parent's own value stands for its sub-steps
 			}
 		}
-		return &cycle.MissingError{Key: s.Key, What: s.Label}
+		return c.MissingDatum(s)
 	}
 	return nil
 }

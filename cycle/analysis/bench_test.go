@@ -160,3 +160,41 @@ func BenchmarkStabilityCaCO3(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkFitIonEstimatedVolumes fits MoO₄²⁻ over every built-in molybdate
+// (none has a density, a cell or a radius: each takes the volume summed
+// from the fitted ion volumes) on a warm Analyst.
+func BenchmarkFitIonEstimatedVolumes(b *testing.B) {
+	db, err := data.LoadWithoutDerived()
+	if err != nil {
+		b.Fatal(err)
+	}
+	a := New(db)
+	f, err := a.FitIon("MoO4^2-", IonFitOptions{})
+	if err != nil || len(f.Used()) < 10 {
+		b.Fatalf("%v, %d salts", err, len(f.Used()))
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := a.FitIon("MoO4^2-", IonFitOptions{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(len(f.Used())), "salts")
+}
+
+// BenchmarkIonVolumes is the ion-volume fit on a fresh Analyst: building
+// the cycles of the salts with a measured volume and solving the normal
+// equations (what the first fit needing an estimated volume pays).
+func BenchmarkIonVolumes(b *testing.B) {
+	db, err := data.LoadWithoutDerived()
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := New(db).IonVolumes(); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -68,7 +68,11 @@ func (r *Reaction) attachHeatCapacities() {
 		for _, tm := range side.terms {
 			hc := tm.Thermo.HeatCapacity
 			if hc == nil {
-				without = append(without, tm.Thermo.Formula)
+				name := tm.Thermo.Formula
+				if !tm.Thermo.Formation.Measured {
+					name += " (an estimate)"
+				}
+				without = append(without, name)
 				continue
 			}
 			with = append(with, hc.Key)

@@ -14,12 +14,18 @@ import (
 // Lattice sources of an ion fit besides the model names of package cycle.
 const (
 	// FitAuto takes, per salt, the volume-based model where the salt has a
-	// measured density or cell, and Kapustinskii (thermochemical or
-	// Shannon radii) otherwise.
+	// measured density or cell, Kapustinskii (thermochemical or Shannon
+	// radii) where it has radii, and otherwise the volume-based model with
+	// V_m summed from the ion volumes fitted over the data's salts
+	// (FitEstimatedVolume, Analyst.IonVolumes).
 	FitAuto = "auto"
 	// FitHandbook takes each salt's handbook lattice energy from the data;
 	// salts without one are left out.
 	FitHandbook = "handbook"
+	// FitEstimatedVolume names, in a fit's per-salt sources, the
+	// volume-based model with V_m summed from fitted ion volumes: what
+	// FitAuto takes for a salt with neither a measured volume nor radii.
+	FitEstimatedVolume = "volume from ion volumes"
 )
 
 // IonFitSources lists what an ion fit can take its lattice values from.
@@ -294,16 +300,33 @@ func (a *Analyst) saltIonValue(s *SaltIonValue, side cycle.Side, from string) {
 		}
 	} else {
 		m, err := cycle.EvaluateModel(c, model)
+		volumeRel := 0.0
+		if err != nil && from == FitAuto {
+			// Neither a measured volume nor radii: the volume-based model
+			// with V_m summed from the fitted ion volumes (ionvolume.go).
+			var est error
+			m, volumeRel, est = a.estimatedVolumeModel(c)
+			if est == nil {
+				model, err = FitEstimatedVolume, nil
+			} else {
+				err = fmt.Errorf("%w; %v", err, est)
+			}
+		}
 		if err != nil {
 			s.Skipped = err.Error()
 			return
 		}
 		// The model's measured scatter (Analyst.ModelSpread), else its
-		// stated default, is the lattice step's uncertainty.
+		// stated default, is the lattice step's uncertainty; an estimated
+		// V_m adds its own: U ∝ V_m^(−1/3), so a third of its relative
+		// uncertainty.
 		u := m.Uncertainty
-		if sp, err := a.ModelSpread(model); err == nil && sp.Relative() > 0 {
+		if sp, err := a.ModelSpread(cycle.ModelVolume); model == FitEstimatedVolume && err == nil && sp.Relative() > 0 {
+			u = sp.Relative() * math.Abs(m.Value)
+		} else if sp, err := a.ModelSpread(model); err == nil && sp.Relative() > 0 {
 			u = sp.Relative() * math.Abs(m.Value)
 		}
+		u = math.Hypot(u, volumeRel/3*math.Abs(m.Value))
 		if err := c.Set("lattice", m.Value, u); err != nil {
 			s.Skipped = err.Error()
 			return

@@ -233,8 +233,18 @@ func TestDerivedAgainstPublishedFromMemory(t *testing.T) {
 		// lattice energies in the data imply 833 ± 17 (ionfit O2- --from
 		// handbook), which the derived value also meets.
 		{"O2-", 904, ""},
-		// CO₃²⁻ −321, from memory.
-		{"CO3^2-", -321, "the recollection is not firm, and the models spread more than the SE: over the ionic carbonates the volume equation gives −145 and Kapustinskii −150, over every carbonate −196 (ionfit CO3^2- --from …)"},
+		// CO₃²⁻ −321, from memory. The difference is the lattice
+		// energies', not the fit's: −321 needs ΔH_L(CaCO₃) ≈ −2811 and
+		// ΔH_L(MgCO₃) ≈ −3123 kJ/mol from the NBS formation enthalpies,
+		// 7–9 % weaker than every point-charge model here gives from the
+		// same salts (CaCO₃: volume −3036, Kapustinskii −3032), and no
+		// choice of salts, model or weights comes near it: alkali
+		// carbonates alone −172, alkaline-earth alone −174, Kapustinskii
+		// −192, volume −196, Born–Mayer −240 (ionfit CO3^2- --from …
+		// --only …, December 2026). The same models meet the handbook's
+		// oxide lattice energies (O²⁻ below), so the gap is specific to the
+		// carbonates' published lattice energies, or to the recollection.
+		{"CO3^2-", -321, "model difference: the published value rests on carbonate lattice energies 7–9 % weaker than the point-charge models give (see the comment)"},
 	} {
 		d, ok := db.DerivedIon(tc.ion)
 		if !ok {
@@ -245,6 +255,26 @@ func TestDerivedAgainstPublishedFromMemory(t *testing.T) {
 		if bound := map[bool]float64{true: 2, false: 3}[tc.explained == ""]; math.Abs(z) > bound {
 			t.Errorf("%s: derived %.1f ± %.1f, published %.1f (from memory): %+.1fσ, beyond %gσ %s", tc.ion, d.GasFormation.V, d.GasFormation.U, tc.published, z, bound, tc.explained)
 		}
+	}
+}
+
+// The derived O²⁻ value against the one the handbook's lattice energies of
+// MgO, CaO, SrO and BaO imply (compounds.csv, crc-lattice: Jenkins and
+// Roobottom's section of the CRC Handbook, the published route): within
+// their combined standard errors.
+func TestDerivedOxideAgainstHandbookRoute(t *testing.T) {
+	d, ok := testAnalyst(t).DB().DerivedIon("O2-")
+	if !ok {
+		t.Fatal("no derived O2-")
+	}
+	h, err := measuredAnalyst(t).FitIon("O2-", IonFitOptions{From: FitHandbook})
+	if err != nil {
+		t.Fatal(err)
+	}
+	z := (d.GasFormation.V - h.Value) / math.Hypot(d.GasFormation.U, h.SE)
+	t.Logf("O2-: derived %.1f ± %.1f (%s), from the handbook lattice energies %.1f ± %.1f over %d oxides: %+.1fσ", d.GasFormation.V, d.GasFormation.U, d.Model, h.Value, h.SE, len(h.Used()), z)
+	if len(h.Used()) != 4 || math.Abs(z) > 2 {
+		t.Errorf("O2-: derived %.1f ± %.1f against %.1f ± %.1f from %d handbook values: %+.1fσ", d.GasFormation.V, d.GasFormation.U, h.Value, h.SE, len(h.Used()), z)
 	}
 }
 
@@ -301,4 +331,34 @@ func TestFamiliesClose(t *testing.T) {
 	}
 	t.Logf("%d of %d crystalline, non-molecular built-in compounds close (%.1f %%); the rest lack, by ion: %v",
 		closed, crystals, 100*float64(closed)/float64(crystals), reasons)
+	// The target: at least 95 % of the built-in ionic solids close.
+	if float64(closed) < 0.95*float64(crystals) {
+		t.Errorf("%d of %d close (%.1f %%), under the 95 %% target", closed, crystals, 100*float64(closed)/float64(crystals))
+	}
+}
+
+// With the default (derived) O²⁻ value the cycles of MgO, CaO, SrO and BaO
+// land within 2 % of the handbook lattice energies the data carry
+// (compounds.csv, crc-lattice: Jenkins and Roobottom's section of the CRC
+// Handbook), the criterion for the default.
+func TestAlkalineEarthOxidesWithinTwoPercentOfHandbook(t *testing.T) {
+	db := testAnalyst(t).DB()
+	for _, f := range []string{"MgO", "CaO", "SrO", "BaO"} {
+		c, err := cycle.Build(db, f, cycle.Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		r, err := cycle.Solve(c)
+		if err != nil {
+			t.Fatalf("%s: %v", f, err)
+		}
+		if r.Handbook == nil {
+			t.Fatalf("%s: no handbook lattice value", f)
+		}
+		h := r.Handbook
+		t.Logf("%s: handbook %.1f kJ/mol, cycle − handbook %+.1f kJ/mol (%+.2f %%), cycle σ %.1f", f, h.Value, h.Difference, h.Percent, r.Lattice.Uncertainty)
+		if math.Abs(h.Percent) > 2 || !near(h.Percent, 100*h.Difference/math.Abs(h.Value), 1e-9) {
+			t.Errorf("%s: cycle − handbook %+.1f kJ/mol (%+.2f %%): beyond 2 %%", f, h.Difference, h.Percent)
+		}
+	}
 }

@@ -52,7 +52,7 @@ func commandTable(in Interactive) []command {
 				"the state directory, named after the key. Without --authorized-keys any key is let in, and\n" +
 				"only loopback addresses may be served.",
 			run: interactive(in.Serve)},
-		{name: "madelung", synopsis: madelungSynopsis, run: runMadelung,
+		{name: "madelung", synopsis: madelungSynopsis, about: madelungAbout, run: runMadelung,
 			summary: "Madelung constant, Ewald energy and site potentials of a structure"},
 		{name: "data", synopsis: dataSynopsis, run: runData,
 			summary: "show an element, ion or compound with values, uncertainties and sources"},
@@ -77,7 +77,7 @@ func commandTable(in Interactive) []command {
 			about: "The input CSV has a header row; columns (only formula is required): " +
 				strings.Join(analysis.BatchColumns(), ", ") +
 				", and set:KEY for a step value (e.g. set:attachment-2 with 744±20). FILE - reads standard input."},
-		{name: "orderings", synopsis: orderingsSynopsis, run: runOrderings,
+		{name: "orderings", synopsis: orderingsSynopsis, about: orderingsAbout, run: runOrderings,
 			summary: "rank orderings of ions and vacancies on mixed sites by Ewald energy"},
 		{name: "trust", synopsis: trustSynopsis, run: runTrust,
 			summary: "how far each lattice model can be trusted: its gaps to the cycles of the built-in compounds, by family"},

@@ -112,6 +112,13 @@ func TestGlobalFlagAnywhere(t *testing.T) {
 			t.Errorf("%q prints other than %q", args, [][]string{{"--data", file, "data", "Na"}})
 		}
 	}
+	// The issue's case: "cycle NaCl --data FILE" is "--data FILE cycle
+	// NaCl", and the overlay reaches the cycle (Na's atomization step).
+	_, before, _ := mainFor("--data", file, "cycle", "NaCl")
+	_, after, errs := mainFor("cycle", "NaCl", "--data", file)
+	if before != after || !strings.Contains(after, "user [override") {
+		t.Errorf("cycle NaCl --data FILE (stderr %q) differs from --data FILE cycle NaCl or lacks the overlay:\n%s\n---\n%s", errs, after, before)
+	}
 	// After "--" it is an argument of the command, not the global flag.
 	if code, _, errs := mainFor("data", "--", "--data"); code != ExitUsage || strings.Contains(errs, "needs a file name") {
 		t.Errorf("data -- --data: exit %d, %q", code, errs)

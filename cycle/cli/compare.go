@@ -3,7 +3,6 @@ package cli
 import (
 	"encoding/csv"
 	"errors"
-	"flag"
 	"fmt"
 	"io"
 	"math"
@@ -84,8 +83,7 @@ func runCompare(env Env, args []string) error {
 	if help || err != nil {
 		return err
 	}
-	set := map[string]bool{}
-	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
+	set := givenFlags(fs)
 	switch {
 	case asCSV && asJSON:
 		return Usagef("choose one of --csv and --json")
@@ -244,9 +242,9 @@ func compareStatus(err error) (status, reason string) {
 	case err == nil:
 		return "ok", ""
 	case errors.Is(err, cycle.ErrMissingDatum):
-		return "missing-datum", err.Error()
+		return "missing-datum", commandLineText(err)
 	}
-	return "not-closed", err.Error()
+	return "not-closed", commandLineText(err)
 }
 
 type compareJSONRow struct {
@@ -272,11 +270,8 @@ func writeCompareJSON(w io.Writer, rows []CompareRow, conv string) error {
 			j.Error = commandLineText(r.Err)
 		}
 		for _, m := range r.Models {
-			mj := modelJSON{Model: m.Model, KJPerMol: jsonNumber(m.Value), EnergyKJ: jsonNumber(m.Energy), Gap: jsonNumber(m.Gap), GapPercent: jsonNumber(m.GapPercent)}
-			if m.Err != nil {
-				mj.Error = commandLineText(m.Err)
-				mj.KJPerMol, mj.EnergyKJ = jsonNumber(math.NaN()), jsonNumber(math.NaN())
-			} else {
+			mj := modelJSONOf(m)
+			if m.Err == nil {
 				mj.Verdict = rowVerdict(r, m)
 			}
 			j.Models = append(j.Models, mj)

@@ -1,193 +1,19 @@
 package cli
 
 import (
-	"errors"
-	"flag"
 	"fmt"
 	"io"
-	"math"
 	"path/filepath"
 	"strconv"
 	"strings"
 
 	"enthalpath/cycle"
-	"enthalpath/thermo"
-	"enthalpath/thermo/crystal"
 	"enthalpath/thermo/notation"
 )
 
 const cycleSynopsis = `cycle FORMULA [--solve KEY] [--set KEY=VALUE[±UNC]]... [--lattice-from MODEL]
                   [--structure NAME|FILE.cif] [--units kj|kcal|ev] [--anion-value fitted|textbook] [--save FILE] [--json]
        enthalpath cycle --open FILE [flags]`
-
-// modelFlags are the settings shared by cycle and compare.
-type modelFlags struct {
-	structure, units, radii, d0, latticeAs, ionAt string
-	params                                        listFlag
-	rho, bornN, accuracy                          float64
-	cnCation, cnAnion                             int
-}
-
-func (m *modelFlags) register(fs *flag.FlagSet) {
-	fs.StringVar(&m.structure, "structure", "", "structure for the Madelung constant: a prototype name ("+strings.Join(crystal.PrototypeNames(), ", ")+") or a CIF file")
-	fs.Var(&m.params, "param", "prototype parameter `KEY=VALUE` (a, c in Å; u, x, z fractional); repeatable")
-	fs.StringVar(&m.units, "units", "kj", "energy unit of printed output and of --set values: kj, kcal or ev (JSON stays in kJ/mol, as its keys say)")
-	fs.Float64Var(&m.rho, "rho", 0, "Born–Mayer range parameter ρ in Å (default 0.345)")
-	fs.Float64Var(&m.bornN, "born-n", 0, "Born exponent n for Born–Landé (default: mean of Pauling's values)")
-	fs.StringVar(&m.radii, "radii", "ionic", "Shannon radius set: ionic or crystal")
-	fs.IntVar(&m.cnCation, "cn-cation", 0, "coordination number of the cation radius (default: the structure's)")
-	fs.IntVar(&m.cnAnion, "cn-anion", 0, "coordination number of the anion radius (default: the structure's)")
-	fs.StringVar(&m.d0, "d0", "auto", "cation–anion distance: auto, geometry, radii, or a distance in Å")
-	fs.StringVar(&m.latticeAs, "lattice-as", "enthalpy", "lattice convention: enthalpy (ΔH_L at 298.15 K) or energy (U)")
-	fs.StringVar(&m.ionAt, "ionization-at", "0k", "ionization convention: 0k (energies as published) or 298k (enthalpies, ±5/2·RT per electron)")
-	fs.Float64Var(&m.accuracy, "accuracy", 0, "relative accuracy of the Ewald sums (default 1e-8)")
-}
-
-// conventions reads the convention flags.
-func (m *modelFlags) conventions() (cycle.Conventions, error) {
-	var conv cycle.Conventions
-	var err error
-	if conv.Lattice, err = cycle.ParseLatticeConvention(m.latticeAs); err != nil {
-		return conv, Usagef("--lattice-as: %v", err)
-	}
-	if conv.Ionization, err = cycle.ParseIonizationConvention(m.ionAt); err != nil {
-		return conv, Usagef("--ionization-at: %v", err)
-	}
-	return conv, nil
-}
-
-// apply puts the flags that were given (set) into c's settings; with all
-// true every flag is applied (a fresh cycle).
-func (m *modelFlags) apply(c *cycle.Cycle, set map[string]bool, all bool) error {
-	given := func(n string) bool { return all || set[n] }
-	s := &c.Settings
-	var err error
-	if given("units") {
-		if s.Units, err = thermo.ParseUnit(m.units); err != nil {
-			return Usagef("--units: %v", err)
-		}
-	}
-	// A flag given explicitly is checked even at 0, the value that stands
-	// for "the default" only while the flag is left out.
-	if given("rho") {
-		if err := cycle.CheckSetting(cycle.SettingRho, m.rho); err != nil {
-			return boundUsage("rho", "give the Born–Mayer range in Å", err)
-		}
-		s.Rho = m.rho
-	}
-	if given("born-n") {
-		if err := cycle.CheckSetting(cycle.SettingBornExponent, m.bornN); err != nil {
-			return boundUsage("born-n", "give the Born exponent", err)
-		}
-		s.BornExponent = m.bornN
-	}
-	if given("radii") {
-		if s.Radius, err = cycle.ParseRadiusKind(m.radii); err != nil {
-			return Usagef("--radii: %v", err)
-		}
-	}
-	for _, cn := range []struct {
-		name string
-		v    int
-		dst  *int
-	}{{"cn-cation", m.cnCation, &s.CationCN}, {"cn-anion", m.cnAnion, &s.AnionCN}} {
-		if given(cn.name) {
-			if err := cycle.CheckSetting(cycle.SettingCN, float64(cn.v)); err != nil {
-				return boundUsage(cn.name, "give a whole coordination number", err)
-			}
-			*cn.dst = cn.v
-		}
-	}
-	if given("d0") {
-		if s.Distance, s.D0, err = cycle.ParseDistance(m.d0); err != nil {
-			return Usagef("--d0: %v", err)
-		}
-	}
-	if given("accuracy") {
-		if err := cycle.CheckSetting(cycle.SettingAccuracy, m.accuracy); err != nil {
-			return boundUsage("accuracy", "give the relative accuracy of the Ewald sum", err)
-		}
-		s.Accuracy = m.accuracy
-	}
-	if given("lattice-as") || given("ionization-at") {
-		conv, err := m.conventions()
-		if err != nil {
-			return err
-		}
-		if !given("lattice-as") {
-			conv.Lattice = c.Conventions.Lattice
-		}
-		if !given("ionization-at") {
-			conv.Ionization = c.Conventions.Ionization
-		}
-		c.SetConventions(conv)
-	}
-	if given("structure") && m.structure != "" || given("param") && len(m.params) > 0 {
-		st, err := m.structureFor(c)
-		if err != nil {
-			return err
-		}
-		s.Structure = st
-	}
-	return nil
-}
-
-// structureFor reads --structure and --param for cycle c.
-func (m *modelFlags) structureFor(c *cycle.Cycle) (cycle.Structure, error) {
-	name := m.structure
-	if name == "" {
-		name = c.Settings.Structure.Prototype
-		if name == "" {
-			return cycle.Structure{}, Usagef("--param needs a prototype: give --structure NAME")
-		}
-	}
-	if strings.HasSuffix(strings.ToLower(name), ".cif") {
-		if len(m.params) > 0 {
-			return cycle.Structure{}, Usagef("--param applies to a prototype, not to the CIF file %s", name)
-		}
-		st, err := readCIF(name, c)
-		if err != nil {
-			return cycle.Structure{}, Usagef("--structure: %v", err)
-		}
-		return st, nil
-	}
-	if _, err := crystal.LookupPrototype(name); err != nil {
-		return cycle.Structure{}, Usagef("--structure: %v (or give a .cif file)", err)
-	}
-	params := map[string]float64{}
-	if name == c.Compound.Structure {
-		for k, v := range c.Compound.Params {
-			params[k] = v
-		}
-	}
-	for _, p := range m.params {
-		k, v, ok := strings.Cut(p, "=")
-		x, err := strconv.ParseFloat(strings.TrimSpace(v), 64)
-		if !ok || err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-			return cycle.Structure{}, Usagef("--param %q: write KEY=VALUE, e.g. a=5.64", p)
-		}
-		params[strings.TrimSpace(k)] = x
-	}
-	if _, err := crystal.Build(name, params); err != nil {
-		return cycle.Structure{}, Usagef("--structure %s: %v", name, err)
-	}
-	st := cycle.Structure{Prototype: name, Params: params}
-	if len(params) == 0 {
-		st.Params = nil
-	}
-	return st, nil
-}
-
-// readCIF reads a CIF file for cycle c: charges the file does not give
-// are assigned with the compound's ions as the only candidates. The error
-// names the file; the caller says where the name came from.
-func readCIF(path string, c *cycle.Cycle) (cycle.Structure, error) {
-	sf, err := cycle.OpenStructureFile(nil, path, nil, []cycle.Part{c.Cation, c.Anion})
-	if err != nil {
-		return cycle.Structure{}, err
-	}
-	return sf.Structure(path), nil
-}
 
 func runCycle(env Env, args []string) error {
 	fs := NewFlagSet("cycle")
@@ -211,8 +37,7 @@ func runCycle(env Env, args []string) error {
 	if help || err != nil {
 		return err
 	}
-	set := map[string]bool{}
-	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
+	set := givenFlags(fs)
 	switch {
 	case open != "" && len(pos) > 0:
 		return Usagef("give either a FORMULA or --open FILE, not both")
@@ -235,7 +60,7 @@ func runCycle(env Env, args []string) error {
 			if !filepath.IsAbs(p) {
 				p = filepath.Join(filepath.Dir(open), p)
 			}
-			s, err := readCIF(p, c)
+			s, err := c.ReadStructureFile(p, p)
 			if err != nil {
 				return Usagef("--open %s: the structure file it names: %v", open, err)
 			}
@@ -485,189 +310,6 @@ func inputsText(m cycle.ModelResult) string {
 	return strings.Join(parts, "; ")
 }
 
-type cycleJSON struct {
-	Formula string `json:"formula"` // the compound, the key every command uses
-	// Deprecated: the same as formula, kept for scripts that read it.
-	Compound             string          `json:"compound"`
-	Name                 string          `json:"name,omitempty"`
-	Family               string          `json:"family,omitempty"`
-	Tabulated            bool            `json:"tabulated"`
-	Cation               string          `json:"cation"`
-	Anion                string          `json:"anion"`
-	Convention           string          `json:"convention"`
-	IonizationConvention string          `json:"ionization_convention"`
-	Steps                []stepJSON      `json:"steps"`
-	Solved               solvedJSON      `json:"solved"`
-	Lattice              latticeJSON     `json:"lattice"`
-	Handbook             *handbookJSON   `json:"handbook,omitempty"`
-	Models               []modelJSON     `json:"models"`
-	VerdictThresholds    string          `json:"verdict_thresholds"`
-	Verdict              *verdictJSON    `json:"verdict"`
-	Notes                []string        `json:"notes"`
-	Warnings             []string        `json:"warnings"`
-	AnionValue           *anionValueJSON `json:"anion_value,omitempty"`
-	Settings             settingsJSON    `json:"settings"`
-}
-
-type stepJSON struct {
-	Key                string     `json:"key"`
-	Label              string     `json:"label"`
-	Reaction           string     `json:"reaction"`
-	KJPerMol           jsonNumber `json:"kj_per_mol"`
-	UncertaintyKJ      jsonNumber `json:"uncertainty_kj_per_mol"`
-	Multiplicity       jsonNumber `json:"multiplicity"`
-	Source             string     `json:"source"`
-	SourceKind         string     `json:"source_kind"`
-	Citation           string     `json:"citation,omitempty"`
-	Memory             bool       `json:"memory"`
-	Derived            bool       `json:"derived"`
-	Override           bool       `json:"override"`
-	DefaultUncertainty bool       `json:"default_uncertainty"`
-	Unknown            bool       `json:"unknown"`
-	Parent             string     `json:"parent,omitempty"`
-	Missing            bool       `json:"missing"`
-}
-
-type solvedJSON struct {
-	Key           string     `json:"key"`
-	KJPerMol      jsonNumber `json:"kj_per_mol"`
-	UncertaintyKJ jsonNumber `json:"uncertainty_kj_per_mol"`
-}
-
-type latticeJSON struct {
-	EnthalpyKJ    jsonNumber `json:"enthalpy_kj_per_mol"`
-	EnergyKJ      jsonNumber `json:"energy_kj_per_mol"`
-	UncertaintyKJ jsonNumber `json:"uncertainty_kj_per_mol"`
-	CorrectionKJ  jsonNumber `json:"dh_minus_u_kj_per_mol"`
-}
-
-type handbookJSON struct {
-	Tabulated  jsonNumber `json:"tabulated_kj_per_mol"`
-	Convention string     `json:"convention"`
-	AsStep     jsonNumber `json:"as_step_kj_per_mol"`
-	Difference jsonNumber `json:"difference_kj_per_mol"`
-	Percent    jsonNumber `json:"difference_percent"`
-	Source     string     `json:"source"`
-	Memory     bool       `json:"memory"`
-}
-
-type modelJSON struct {
-	Model        string     `json:"model"`
-	KJPerMol     jsonNumber `json:"kj_per_mol"`
-	EnergyKJ     jsonNumber `json:"energy_u_kj_per_mol"`
-	Gap          jsonNumber `json:"gap_kj_per_mol"`
-	GapPercent   jsonNumber `json:"gap_percent"`
-	Verdict      string     `json:"verdict,omitempty"`
-	Error        string     `json:"error,omitempty"`
-	Madelung     jsonNumber `json:"madelung,omitempty"`
-	MadelungFrom string     `json:"madelung_from,omitempty"`
-	D0           jsonNumber `json:"d0_angstrom,omitempty"`
-	D0From       string     `json:"d0_from,omitempty"`
-	BornExponent jsonNumber `json:"born_exponent,omitempty"`
-	Rho          jsonNumber `json:"rho_angstrom,omitempty"`
-	CationRadius jsonNumber `json:"cation_radius_angstrom,omitempty"`
-	AnionRadius  jsonNumber `json:"anion_radius_angstrom,omitempty"`
-	MolarVolume  jsonNumber `json:"molar_volume_nm3,omitempty"`
-	// Uncertainty is the model's σ and UncertaintyFrom its basis.
-	Uncertainty     jsonNumber    `json:"uncertainty_kj_per_mol,omitempty"`
-	UncertaintyFrom string        `json:"uncertainty_from,omitempty"`
-	Extended        *extendedJSON `json:"extended,omitempty"`
-}
-
-type settingsJSON struct {
-	LatticeFrom string `json:"lattice_from,omitempty"`
-	Structure   string `json:"structure,omitempty"`
-	Radius      string `json:"radius"`
-	D0          string `json:"d0"`
-	Units       string `json:"units"`
-}
-
-func cycleJSONOf(c *cycle.Cycle, r *cycle.Result) cycleJSON {
-	j := cycleJSON{Formula: c.Formula, Compound: c.Formula, Name: c.Name, Family: c.Family, Tabulated: c.Tabulated,
-		Cation: c.Cation.Ion.Symbol, Anion: c.Anion.Ion.Symbol,
-		Convention: r.Conventions.Lattice.Symbol(), IonizationConvention: r.Conventions.Ionization.String(),
-		Solved:            solvedJSON{Key: r.Solved.Key, KJPerMol: jsonNumber(r.Solved.Value), UncertaintyKJ: jsonNumber(r.Solved.Uncertainty)},
-		Lattice:           latticeJSON{jsonNumber(r.Lattice.Enthalpy), jsonNumber(r.Lattice.Energy), jsonNumber(r.Lattice.Uncertainty), jsonNumber(r.Lattice.Correction)},
-		VerdictThresholds: cycle.VerdictThresholds(), Verdict: verdictJSONOf(r), Notes: r.Notes, Warnings: r.Warnings,
-		Settings: settingsJSON{LatticeFrom: c.Settings.LatticeFrom, Structure: c.Settings.Structure.Name(),
-			Radius: c.Settings.Radius.String(), D0: c.Settings.Distance.String(), Units: c.Settings.Units.Key()},
-	}
-	if j.Warnings == nil {
-		j.Warnings = []string{}
-	}
-	for _, s := range r.Steps {
-		src := s.Source.Key
-		if src == "" {
-			src = s.Source.Kind.String()
-		}
-		missing := s.Source.Kind == cycle.SourceMissing
-		v, unc := jsonNumber(s.Value), jsonNumber(s.Uncertainty)
-		if missing {
-			v, unc = jsonNumber(math.NaN()), jsonNumber(math.NaN())
-		}
-		j.Steps = append(j.Steps, stepJSON{Key: s.Key, Label: s.Label, Reaction: s.Reaction, KJPerMol: v, UncertaintyKJ: unc,
-			Multiplicity: jsonNumber(s.Multiplicity), Source: src, SourceKind: s.Source.Kind.String(), Citation: s.Source.Citation,
-			Memory: s.Source.Memory, Derived: s.Source.Derived, Override: s.Source.Override, DefaultUncertainty: s.Source.DefaultUncertainty,
-			Unknown: s.Unknown, Parent: s.Parent, Missing: missing})
-	}
-	if h := r.Handbook; h != nil {
-		j.Handbook = &handbookJSON{jsonNumber(h.Tabulated), h.Convention.Symbol(), jsonNumber(h.Value), jsonNumber(h.Difference),
-			jsonNumber(h.Percent), h.Source.Key, h.Source.Memory}
-	}
-	for _, m := range r.Models {
-		mj := modelJSON{Model: m.Model, KJPerMol: jsonNumber(m.Value), EnergyKJ: jsonNumber(m.Energy), Gap: jsonNumber(m.Gap), GapPercent: jsonNumber(m.GapPercent)}
-		if m.Err != nil {
-			mj.Error = commandLineText(m.Err)
-			mj.KJPerMol, mj.EnergyKJ = jsonNumber(math.NaN()), jsonNumber(math.NaN())
-		} else {
-			in := m.Inputs
-			mj.Verdict = verdictText(r, m)
-			mj.Madelung, mj.MadelungFrom, mj.D0, mj.D0From = jsonNumber(in.Madelung), in.MadelungFrom, jsonNumber(in.D0), in.D0From
-			mj.BornExponent, mj.Rho = jsonNumber(in.BornExponent), jsonNumber(in.Rho)
-			mj.CationRadius, mj.AnionRadius, mj.MolarVolume = jsonNumber(in.CationRadius), jsonNumber(in.AnionRadius), jsonNumber(in.MolarVolume)
-			mj.Uncertainty, mj.UncertaintyFrom, mj.Extended = jsonNumber(m.Uncertainty), m.UncertaintyBasis, extendedJSONOf(in.Extended)
-		}
-		j.Models = append(j.Models, mj)
-	}
-	return j
-}
-
-// verdictText is a model's verdict in words, or why none is given.
-func verdictText(r *cycle.Result, m cycle.ModelResult) string {
-	if len(r.Circular) > 0 {
-		return "not judged: " + r.Circular[0].Ion + " was fitted to this salt"
-	}
-	return m.Verdict.Character.String()
-}
-
-type anionValueJSON struct {
-	InForce      string      `json:"in_force"`
-	Other        string      `json:"other"`
-	Step         string      `json:"step"`
-	InForceKJ    jsonNumber  `json:"in_force_kj_per_mol"`
-	OtherKJ      jsonNumber  `json:"other_kj_per_mol"`
-	Solved       string      `json:"solved"`
-	ShiftKJ      jsonNumber  `json:"solved_shift_with_other_kj_per_mol"`
-	FittedValue  *jsonNumber `json:"fitted_gas_formation_kj_per_mol,omitempty"`
-	FittedSE     *jsonNumber `json:"fitted_standard_error_kj_per_mol,omitempty"`
-	FittedSource string      `json:"fitted_lattice_source,omitempty"`
-}
-
-func anionValueJSONOf(c *cycle.Cycle, e *cycle.AnionValueEffect) *anionValueJSON {
-	if e == nil {
-		return nil
-	}
-	j := &anionValueJSON{InForce: string(e.InForce), Other: string(e.Other), Step: e.Step, InForceKJ: jsonNum(e.InForceValue),
-		OtherKJ: jsonNum(e.OtherValue), Solved: e.Solved, ShiftKJ: jsonNum(e.Shift)}
-	for _, f := range c.Fitted {
-		if f.Ion == c.Anion.Ion.Symbol {
-			v, u := jsonNum(f.GasFormation.V), jsonNum(f.GasFormation.U)
-			j.FittedValue, j.FittedSE, j.FittedSource = &v, &u, f.Model
-		}
-	}
-	return j
-}
-
 // printAnionValue says which value of a multiply charged anion is in force
 // and how much the other would move the solved step.
 func printAnionValue(w io.Writer, c *cycle.Cycle, e *cycle.AnionValueEffect) {
@@ -692,16 +334,4 @@ func printAnionValue(w io.Writer, c *cycle.Cycle, e *cycle.AnionValueEffect) {
 	}
 	fmt.Fprintf(w, "  with the %s value (%s = %s %s; --anion-value %s) %s would move by %s %s.\n",
 		e.Other, e.Step, energy(e.OtherValue, u), u, e.Other, e.Solved, energy(e.Shift, u), u)
-}
-
-// boundUsage words a model setting refused by the engine's bound for the
-// command line: the flag and the value as typed, what to give, the bound
-// and the usual values, and how to get the default.
-func boundUsage(flag, advice string, err error) error {
-	var be *cycle.BoundError
-	if !errors.As(err, &be) {
-		return Usagef("--%s: %v", flag, err)
-	}
-	return Usagef("--%s %s: %s (%s; %s); leave the flag out for the default", flag, strconv.FormatFloat(be.Value, 'g', -1, 64),
-		advice, be.Bound.Range(be.Setting.String()), be.Bound.Usual)
 }

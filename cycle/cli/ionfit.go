@@ -18,7 +18,7 @@ func runIonfit(env Env, args []string) error {
 	var asJSON, asCSV, ionic bool
 	fs.BoolVar(&ionic, "ionic-salts", false, "use only the salts the ionic models describe: of the s-block cations and NH4+ for an anion, of the halides for a cation (every salt when there are none); the rule of the built-in derived values")
 	fs.StringVar(&from, "from", analysis.FitAuto, "where each salt's lattice enthalpy comes from: `SOURCE` "+strings.Join(analysis.IonFitSources(), ", ")+
-		" (auto: volume-based where the salt has a measured density or cell, Kapustinskii otherwise; handbook: the data's handbook lattice energies)")
+		" (auto: volume-based where the salt has a measured density or cell, Kapustinskii where it has radii, otherwise volume-based with V_m summed from ion volumes fitted over the data's salts; handbook: the data's handbook lattice energies)")
 	fs.StringVar(&only, "only", "", "use only the salts of these counter-ions, `ION,...`")
 	fs.StringVar(&exclude, "exclude", "", "leave these salts out, `FORMULA,...`")
 	fs.BoolVar(&asJSON, "json", false, "print JSON")

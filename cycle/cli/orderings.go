@@ -16,9 +16,10 @@ import (
 	"enthalpath/thermo/ordering"
 )
 
-const orderingsSynopsis = `orderings NAME|FILE.cif --site SEL=OCCUPANTS [--site ...] [flags]
+const orderingsSynopsis = `orderings NAME|FILE.cif --site SEL=OCCUPANTS [--site ...] [flags]`
 
-Ranks the orderings of ions and vacancies over mixed sites by their Ewald
+// orderingsAbout is the help's paragraph on what orderings does.
+const orderingsAbout = `Ranks the orderings of ions and vacancies over mixed sites by their Ewald
 (electrostatic) energy, conducting boundary conditions. The structure is a
 built-in prototype (see madelung --list) or a CIF file, repeated by
 --supercell. A CIF file's partly occupied and shared sites are mixed with

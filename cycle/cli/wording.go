@@ -68,7 +68,7 @@ func commandLineHint(err error) string {
 	var me *cycle.ModelError
 	switch {
 	case errors.As(err, &miss):
-		return fmt.Sprintf("--set %s=VALUE, or --solve %s", miss.Key, miss.Key)
+		return missingHint(miss)
 	case errors.As(err, &unk) && len(unk.Keys) == 0:
 		return "--solve KEY, usually --solve lattice"
 	case errors.As(err, &unk):
@@ -86,4 +86,24 @@ func commandLineHint(err error) string {
 		}
 	}
 	return ""
+}
+
+// missingHint says what supplies a missing step: the flags that set or
+// solve it, the row of a data file (--data FILE) that gives it, and for the
+// gas-phase enthalpy of an ion no table gives, the command that derives one
+// over the ion's salts.
+func missingHint(miss *cycle.MissingError) string {
+	hint := fmt.Sprintf("--set %s=VALUE, or --solve %s", miss.Key, miss.Key)
+	switch {
+	case miss.Ion != "" && (miss.Kind == cycle.KindIonFormation || miss.Kind == cycle.KindAttachment && miss.Key != "attachment-1"):
+		return fmt.Sprintf("%s; or give %s's gas-phase enthalpy in a data file (--data FILE, [[derived_ion]] ion = %q), or derive one over its salts: enthalpath ionfit '%s'",
+			hint, miss.Ion, miss.Ion, miss.Ion)
+	case miss.Kind == cycle.KindAttachment:
+		return hint + "; or give the electron affinity in a data file (--data FILE, [[affinity]])"
+	case miss.Kind == cycle.KindIonization:
+		return hint + "; or give the ionization energy in a data file (--data FILE, [[ionization]])"
+	case miss.Kind == cycle.KindFormation:
+		return hint + "; or give the compound's enthalpy of formation in a data file (--data FILE, [[compound]])"
+	}
+	return hint
 }

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"slices"
+
+	"enthalpath/thermo/lsq"
 )
 
 // Sample is one compound with a measured entropy: its ions with their
@@ -93,7 +95,7 @@ func FitIons(samples []Sample, minUses int) (*Additive, error) {
 	for i := 0; i < p; i++ {
 		ata[i*p+i] += ridge * trace / float64(p)
 	}
-	theta, err := solveSPD(ata, atb, p)
+	theta, err := lsq.SolveSPD(ata, atb, p)
 	if err != nil {
 		return nil, err
 	}
@@ -127,42 +129,3 @@ func (a *Additive) Estimate(ions map[string]int) (float64, bool) {
 }
 
 func sq(x float64) float64 { return x * x }
-
-// solveSPD solves the symmetric positive-definite system m·x = b (m is
-// p×p, row-major) by Cholesky factorisation.
-func solveSPD(m, b []float64, p int) ([]float64, error) {
-	l := make([]float64, p*p)
-	for i := 0; i < p; i++ {
-		for j := 0; j <= i; j++ {
-			s := m[i*p+j]
-			for k := 0; k < j; k++ {
-				s -= l[i*p+k] * l[j*p+k]
-			}
-			if i == j {
-				if s <= 0 {
-					return nil, errors.New("the least-squares system is singular")
-				}
-				l[i*p+i] = math.Sqrt(s)
-			} else {
-				l[i*p+j] = s / l[j*p+j]
-			}
-		}
-	}
-	y := make([]float64, p)
-	for i := 0; i < p; i++ {
-		s := b[i]
-		for k := 0; k < i; k++ {
-			s -= l[i*p+k] * y[k]
-		}
-		y[i] = s / l[i*p+i]
-	}
-	x := make([]float64, p)
-	for i := p - 1; i >= 0; i-- {
-		s := y[i]
-		for k := i + 1; k < p; k++ {
-			s -= l[k*p+i] * x[k]
-		}
-		x[i] = s / l[i*p+i]
-	}
-	return x, nil
-}

@@ -50,17 +50,18 @@ type species struct {
 	role    int // +1 cation, −1 anion, 0 neither
 }
 
-// occupantsOf lists the species of every site; a site without occupants is
-// one species named by its Species.
-func occupantsOf(c *crystal.Crystal, role func(el string) int) []species {
+// occupantsOf lists the species of every site, each with its role read
+// from its element and charge; a site without occupants is one species
+// named by its Species.
+func occupantsOf(c *crystal.Crystal, role func(element string, charge float64) int) []species {
 	var out []species
 	for i, s := range c.Sites {
 		if s.Occupants == nil {
-			out = append(out, species{site: i, element: s.Species, occ: 1, role: role(s.Species)})
+			out = append(out, species{site: i, element: s.Species, occ: 1, role: role(s.Species, s.Charge)})
 			continue
 		}
 		for _, o := range s.Occupants {
-			out = append(out, species{site: i, element: o.Element, occ: o.Occupancy, role: role(o.Element)})
+			out = append(out, species{site: i, element: o.Element, occ: o.Occupancy, role: role(o.Element, o.Charge)})
 		}
 	}
 	return out
@@ -152,16 +153,7 @@ func sums(c *crystal.Crystal, p Params, soft softness) []float64 {
 		return out
 	}
 	// Roles by the sign of each occupant's charge.
-	var sp []species
-	for i, s := range c.Sites {
-		if s.Occupants == nil {
-			sp = append(sp, species{site: i, element: s.Species, occ: 1, role: sign(s.Charge)})
-			continue
-		}
-		for _, o := range s.Occupants {
-			sp = append(sp, species{site: i, element: o.Element, occ: o.Occupancy, role: sign(o.Charge)})
-		}
-	}
+	sp := occupantsOf(c, func(_ string, charge float64) int { return sign(charge) })
 	bvs := speciesSums(c, sp, p, soft)
 	w := make([]float64, len(c.Sites))
 	for a, s := range sp {

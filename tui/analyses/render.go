@@ -32,7 +32,7 @@ func (m *Model) render(r any) []string {
 }
 
 func (m *Model) pm(v, u float64) string {
-	return m.ctx.Signed(v) + " " + m.ctx.Uncertainty(u) + " " + m.ctx.Units.String()
+	return m.ctx.SignedPM(v, u) + " " + m.ctx.Units.String()
 }
 
 func (m *Model) notes(notes []string) []string {

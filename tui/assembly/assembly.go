@@ -29,7 +29,26 @@ type Model struct {
 	decided  []string     // what was done with each decided step (the rows are labelled from the cycle as it is now)
 	edit     prompt.Slot  // a value of one's own for the proposed step, while typed
 	w, h     int
+	// model is the lattice model a lattice proposal needs, worked out in
+	// a command for one cycle and generation (cycle.DefaultModel evaluates
+	// every model: 0.6 s cold, measured on KCl); nil while it is worked out.
+	model    *modelMsg
+	modelFor struct {
+		c   *cycle.Cycle
+		gen int
+	}
 }
+
+// modelMsg is the answer of the command askModel returns.
+type modelMsg struct {
+	c      *cycle.Cycle
+	gen    int
+	result cycle.ModelResult
+	err    error
+}
+
+// errWorking says the lattice model is still being worked out.
+var errWorking = errors.New("a moment: the lattice model is being worked out")
 
 var _ screen.Screen = (*Model)(nil)
 
@@ -173,12 +192,25 @@ func (m *Model) label(s *cycle.Step) string {
 	return "data"
 }
 
-// Update handles keys and results.
+// Update handles keys and results; it asks for the lattice model when the
+// proposal comes to need it.
 func (m *Model) Update(msg tea.Msg) tea.Cmd {
+	cmd := m.update(msg)
+	return tea.Batch(cmd, m.askModel())
+}
+
+func (m *Model) update(msg tea.Msg) tea.Cmd {
 	switch msg := msg.(type) {
+	case modelMsg:
+		if msg.c == m.modelFor.c && msg.gen == m.modelFor.gen {
+			m.model = &msg
+		}
+		return nil
 	case session.OpenedMsg:
 		m.restart()
 		return nil
+	case session.MagnitudesMsg:
+		return m.edit.Retry(session.Pending) // a value typed before they were ready
 	case screen.ShownMsg:
 		if m.forCycle != m.sess.Cycle {
 			m.restart()
@@ -252,7 +284,7 @@ func (m *Model) proposal(s *cycle.Step) (text string, ok bool) {
 	case "unknown":
 		return "keep it the unknown, as the cycle has it (one unknown only)", true
 	case "user":
-		return fmt.Sprintf("keep your value %s %s %s", m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units), true
+		return fmt.Sprintf("keep your value %s %s", m.ctx.SignedPM(s.Value, s.Uncertainty), m.ctx.Units), true
 	case "":
 	default:
 		return "keep the " + m.sess.Cycle.Settings.LatticeFrom + " model's value, as chosen", true
@@ -263,21 +295,24 @@ func (m *Model) proposal(s *cycle.Step) (text string, ok bool) {
 			return "solve it by Hess's law from the other steps (the usual unknown)", true
 		}
 		if r := s.Reference; r != nil {
-			return fmt.Sprintf("%s %s %s, the data's handbook value from %s (%s is the unknown)", m.ctx.Signed(r.Value),
-				m.ctx.Uncertainty(r.Uncertainty), m.ctx.Units, sourceName(r.Source), unknown), true
+			return fmt.Sprintf("%s %s, the data's handbook value from %s (%s is the unknown)",
+				m.ctx.SignedPM(r.Value, r.Uncertainty), m.ctx.Units, sourceName(r.Source), unknown), true
 		}
 		mr, err := m.latticeModelErr()
+		if errors.Is(err, errWorking) {
+			return "working out the lattice model…", false
+		}
 		if err == nil {
-			return fmt.Sprintf("%s %s %s from the %s model (%s is the unknown)", m.ctx.Signed(mr.Value),
-				m.ctx.Uncertainty(mr.Uncertainty), m.ctx.Units, mr.Model, unknown), true
+			return fmt.Sprintf("%s %s from the %s model (%s is the unknown)",
+				m.ctx.SignedPM(mr.Value, mr.Uncertainty), m.ctx.Units, mr.Model, unknown), true
 		}
 		return "no model can give it (" + session.Message(err) + "): type a value with e", false
 	}
 	if r := s.Reference; r != nil {
-		return fmt.Sprintf("%s %s %s from %s", m.ctx.Signed(r.Value), m.ctx.Uncertainty(r.Uncertainty), m.ctx.Units, sourceName(r.Source)), true
+		return fmt.Sprintf("%s %s from %s", m.ctx.SignedPM(r.Value, r.Uncertainty), m.ctx.Units, sourceName(r.Source)), true
 	}
 	if s.Composite && s.Source.Kind == cycle.SourceSum {
-		return fmt.Sprintf("%s %s %s, the sum of its sub-steps", m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units), true
+		return fmt.Sprintf("%s %s, the sum of its sub-steps", m.ctx.SignedPM(s.Value, s.Uncertainty), m.ctx.Units), true
 	}
 	return "the data have no value: type one (e) or make it the unknown (x)", false
 }
@@ -298,14 +333,41 @@ func (m *Model) latticeModel() (cycle.ModelResult, bool) {
 }
 
 func (m *Model) latticeModelErr() (cycle.ModelResult, error) {
-	mr, _, err := cycle.DefaultModel(m.sess.Cycle)
-	return mr, err
+	if m.model == nil || m.model.c != m.sess.Cycle || m.model.gen != m.sess.Generation() {
+		return cycle.ModelResult{}, errWorking
+	}
+	return m.model.result, m.model.err
+}
+
+// needsModel reports whether the proposal for s is a lattice model's value:
+// the lattice step, another step the unknown, no handbook value.
+func (m *Model) needsModel(s *cycle.Step) bool {
+	return s != nil && s.Kind == cycle.KindLattice && m.unknownKey() != "" && s.Reference == nil
+}
+
+// askModel returns the command that works out the lattice model, off the
+// Update path, when the current step's proposal needs it and it is not
+// asked for this cycle and generation yet; else nil.
+func (m *Model) askModel() tea.Cmd {
+	c, gen := m.sess.Cycle, m.sess.Generation()
+	if !m.needsModel(m.current()) || (m.modelFor.c == c && m.modelFor.gen == gen) {
+		return nil
+	}
+	m.modelFor.c, m.modelFor.gen, m.model = c, gen, nil
+	snapshot := c.Clone()
+	return func() tea.Msg {
+		mr, _, err := cycle.DefaultModel(snapshot)
+		return modelMsg{c: c, gen: gen, result: mr, err: err}
+	}
 }
 
 func (m *Model) accept() tea.Cmd {
 	s := m.current()
 	if s == nil {
 		return nil
+	}
+	if _, err := m.latticeModelErr(); m.needsModel(s) && errors.Is(err, errWorking) {
+		return screen.Status(errWorking.Error() + "; accept again once it is shown")
 	}
 	if _, ok := m.proposal(s); !ok {
 		return screen.Fail(fmt.Errorf("%s has nothing to accept: type a value with e or make it the unknown with x", s.Key))
@@ -540,8 +602,8 @@ func (m *Model) doneLine() string {
 		return st.Error.Render("Not solved: ") + msg
 	}
 	s := m.sess.Result.Solved
-	return st.Solved.Render(diagram.SolvedMark+" solved: ") + st.Accent.Render(fmt.Sprintf("%s = %s %s %s", s.Label, m.ctx.Signed(s.Value),
-		m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units)) + st.Muted.Render("   enter: on to the bench")
+	return st.Solved.Render(diagram.SolvedMark+" solved: ") + st.Accent.Render(fmt.Sprintf("%s = %s %s", s.Label,
+		m.ctx.SignedPM(s.Value, s.Uncertainty), m.ctx.Units)) + st.Muted.Render("   enter: on to the bench")
 }
 
 func indent(s, by string) string { return by + strings.ReplaceAll(s, "\n", "\n"+by) }

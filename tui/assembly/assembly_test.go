@@ -325,3 +325,27 @@ func TestDecidedRowsShowMultiplicityAndValue(t *testing.T) {
 		}
 	}
 }
+
+// TestLatticeModelWorkedOutOffUpdate: the lattice model a proposal needs
+// (cycle.DefaultModel evaluates every model: 0.6 s cold) is worked out in
+// a command, not inside Update or View: before the command has run the
+// step shows the working state, after it the model's answer (for MgCl,
+// hypothetical, that no model can give it: no Shannon radius for Mg⁺,
+// Shannon 1976 lists none).
+func TestLatticeModelWorkedOutOffUpdate(t *testing.T) {
+	_, m, u := setup(t, "MgCl")
+	for m.currentKey() != "formation" && !m.Done() {
+		drive.Run(u, drive.Key("y"))
+	}
+	cmd := m.Update(drive.Key("x")) // the formation is the unknown: the lattice step comes next
+	if m.currentKey() != "lattice" {
+		t.Fatalf("after x the step is %q, want lattice", m.currentKey())
+	}
+	if v := m.View(); !strings.Contains(v, "working out the lattice model") {
+		t.Errorf("no working state before the command ran:\n%s", v)
+	}
+	drive.RunCmd(u, cmd)
+	if v := m.View(); strings.Contains(v, "working out") || !strings.Contains(v, "model") {
+		t.Errorf("the model's answer is not shown once worked out:\n%s", v)
+	}
+}

@@ -142,6 +142,8 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 			}
 		}
 		return nil
+	case session.MagnitudesMsg:
+		return m.edit.Retry(session.Pending) // a value typed before they were ready
 	case tea.KeyMsg:
 		return m.key(msg)
 	}
@@ -232,7 +234,7 @@ func (m *Model) startEdit() {
 	}
 	cur := "no value yet"
 	if s.Source.Kind != cycle.SourceMissing && !s.Unknown {
-		cur = "now " + m.ctx.Signed(s.Value) + " " + m.ctx.Uncertainty(s.Uncertainty)
+		cur = "now " + m.ctx.SignedPM(s.Value, s.Uncertainty)
 	}
 	p := prompt.New(m.ctx.Styles, "New value for "+s.Label, "", "", m.ctx.MaxInputLen, m.acceptValue(s.Key),
 		prompt.WithLabel(fmt.Sprintf("%s (%s) › ", s.Key, m.ctx.Units)),
@@ -270,8 +272,8 @@ func (m *Model) acceptValue(key string) prompt.Accept {
 		if err != nil {
 			return nil, session.ValueError(text, err)
 		}
-		return tea.Batch(cmd, screen.Status(fmt.Sprintf("%s set to %s %s %s (your value).", key,
-			m.ctx.Signed(kj), m.ctx.Uncertainty(unc), m.ctx.Units))), nil
+		return tea.Batch(cmd, screen.Status(fmt.Sprintf("%s set to %s %s (your value).", key,
+			m.ctx.SignedPM(kj, unc), m.ctx.Units))), nil
 	}
 }
 

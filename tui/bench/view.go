@@ -74,7 +74,7 @@ func (m *Model) solvedLine() string {
 		// Over-determined: every step has a value. Say by how much the
 		// cycle misses closing (the miss is drawn too).
 		r, u := cycle.Residual(m.sess.Cycle)
-		line := fmt.Sprintf("closure residual %s %s %s", m.ctx.Signed(r), m.ctx.Uncertainty(u), m.ctx.Units)
+		line := fmt.Sprintf("closure residual %s %s", m.ctx.SignedPM(r, u), m.ctx.Units)
 		return st.Warn.Render("over-determined: ") + st.Accent.Render(line) +
 			st.Muted.Render(screen.Truncate(" (Σ of the steps − ΔfH°) · x on a step solves for it", max(0, m.w-len([]rune(line))-17)))
 	}
@@ -83,7 +83,7 @@ func (m *Model) solvedLine() string {
 	}
 	res := m.sess.Result
 	s := res.Solved
-	line := fmt.Sprintf("%s = %s %s %s", s.Key, m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units)
+	line := fmt.Sprintf("%s = %s %s", s.Key, m.ctx.SignedPM(s.Value, s.Uncertainty), m.ctx.Units)
 	extra := ""
 	room := max(0, m.w-len([]rune(line))-10)
 	if s.Kind == cycle.KindLattice {
@@ -172,7 +172,7 @@ func (m *Model) listView(h int) string {
 		if s.Parent != "" {
 			reaction = "└ " + reaction
 		}
-		value, unc := m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty)
+		value, unc := m.ctx.Measured(s.Value, s.Uncertainty)
 		switch {
 		case s.Unknown && s.Source.Kind != cycle.SourceSolved:
 			value, unc = "unknown", ""
@@ -293,7 +293,7 @@ func (m *Model) sourceView(h int) string {
 	lines := []string{
 		st.Title.Render(s.Label) + st.Muted.Render("  ("+s.Key+")"),
 		"reaction:   " + s.Reaction,
-		fmt.Sprintf("value:      %s %s %s per reaction as written, ×%g in the sum", m.ctx.Signed(s.Value), m.ctx.Uncertainty(s.Uncertainty), m.ctx.Units, s.Multiplicity),
+		fmt.Sprintf("value:      %s %s per reaction as written, ×%g in the sum", m.ctx.SignedPM(s.Value, s.Uncertainty), m.ctx.Units, s.Multiplicity),
 		"source:     " + sourceText(s),
 	}
 	if src.Citation != "" {
@@ -312,12 +312,12 @@ func (m *Model) sourceView(h int) string {
 		lines = append(lines, st.Warn.Render("The source states no uncertainty; the default for this kind of step is used."))
 	}
 	if r := s.Reference; r != nil && (src.Kind != r.Source.Kind || r.Value != s.Value) {
-		lines = append(lines, fmt.Sprintf("data value: %s %s (%s) — r resets to it", m.ctx.Signed(r.Value), m.ctx.Uncertainty(r.Uncertainty), r.Source.Key))
+		lines = append(lines, fmt.Sprintf("data value: %s (%s) — r resets to it", m.ctx.SignedPM(r.Value, r.Uncertainty), r.Source.Key))
 	}
 	if res := m.sess.Solved(); res != nil && s.Kind == cycle.KindLattice && res.Handbook != nil {
 		hb := res.Handbook
-		lines = append(lines, fmt.Sprintf("handbook:   %s %s (%s), cycle − handbook %s (%+.1f %%)", m.ctx.Signed(hb.Value),
-			m.ctx.Uncertainty(hb.Uncertainty), hb.Source.Key, m.ctx.Signed(hb.Difference), hb.Percent))
+		lines = append(lines, fmt.Sprintf("handbook:   %s (%s), cycle − handbook %s (%+.1f %%)",
+			m.ctx.SignedPM(hb.Value, hb.Uncertainty), hb.Source.Key, m.ctx.Signed(hb.Difference), hb.Percent))
 	}
 	lines = append(lines, "", st.Muted.Render("any key closes this box"))
 	box := st.Panel.Width(w).Render(strings.Join(lines, "\n"))

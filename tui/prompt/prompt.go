@@ -178,6 +178,18 @@ func (m *Model) pick(step int) {
 	m.proposed, m.err = true, nil
 }
 
+// submit checks the answer typed: a good one closes the prompt and gives
+// its command, a refused one stays with the reason.
+func (m *Model) submit() tea.Cmd {
+	cmd, err := m.accept(strings.TrimSpace(m.input.Value()))
+	if err != nil {
+		m.err = err
+		return nil
+	}
+	m.err, m.done = nil, true
+	return cmd
+}
+
 // Update handles a key; other messages go to the text input.
 func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	if k, ok := msg.(tea.KeyMsg); ok {
@@ -186,13 +198,7 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 			m.done = true
 			return nil
 		case key.Matches(k, m.KeyMap.Submit):
-			cmd, err := m.accept(strings.TrimSpace(m.input.Value()))
-			if err != nil {
-				m.err = err
-				return nil
-			}
-			m.err, m.done = nil, true
-			return cmd
+			return m.submit()
 		case len(m.choices) > 0 && key.Matches(k, m.KeyMap.Prev):
 			m.pick(-1)
 			return nil
@@ -314,6 +320,20 @@ func (s *Slot) Update(msg tea.Msg) tea.Cmd {
 		return nil
 	}
 	cmd := s.p.Update(msg)
+	if s.p.Done() {
+		s.p = nil
+	}
+	return cmd
+}
+
+// Retry submits the open prompt's answer again when its refusal says
+// only that it had to wait (waiting reports so: a check whose data a
+// command was still working out); else it does nothing.
+func (s *Slot) Retry(waiting func(error) bool) tea.Cmd {
+	if s.p == nil || s.p.err == nil || !waiting(s.p.err) {
+		return nil
+	}
+	cmd := s.p.submit()
 	if s.p.Done() {
 		s.p = nil
 	}

@@ -186,3 +186,36 @@ func TestViewFitsItsWidth(t *testing.T) {
 		})
 	}
 }
+
+// TestRetryOnlyAfterWaiting: Retry submits again only an answer refused
+// because it had to wait; another refusal, or no prompt, is left alone.
+func TestRetryOnlyAfterWaiting(t *testing.T) {
+	errWait := errors.New("a moment")
+	ready := false
+	var s Slot
+	s.Open(New(theme.DefaultStyles(drive.Renderer()), "Q", "", "", 20, func(answer string) (tea.Cmd, error) {
+		switch {
+		case answer != "ok":
+			return nil, errors.New("only ok")
+		case !ready:
+			return nil, errWait
+		}
+		return func() tea.Msg { return "done" }, nil
+	}))
+	waiting := func(err error) bool { return errors.Is(err, errWait) }
+	send(&s, "no", "enter")
+	if s.Retry(waiting) != nil || !s.Active() {
+		t.Fatal("a refusal that did not wait was submitted again")
+	}
+	send(&s, "ctrl+u", "ok", "enter")
+	if !errors.Is(s.Err(), errWait) {
+		t.Fatalf("refusal %v, want the waiting one", s.Err())
+	}
+	ready = true
+	if cmd := s.Retry(waiting); cmd == nil || s.Active() {
+		t.Fatal("the answer that waited was not submitted again")
+	}
+	if s.Retry(waiting) != nil {
+		t.Error("Retry with no prompt open did something")
+	}
+}

@@ -39,13 +39,44 @@ func (c *Context) Uncertainty(kj float64) string {
 	return "±" + FormatEnergy(math.Abs(kj), c.Units)
 }
 
+// maxDecimals bounds the decimals of a value printed with its
+// uncertainty (Measured), so that it keeps to the step list's columns.
+const maxDecimals = 4
+
+// Measured prints kj and its standard uncertainty uncKJ in the context's
+// unit, the value signed as Signed does: both to the decimal place of the
+// uncertainty rounded to two significant figures (thermo.UncertaintyDecimals,
+// the rule of GUM 7.2.6), at most maxDecimals; with no usable uncertainty
+// (zero) to the unit's usual decimals.
+func (c *Context) Measured(kj, uncKJ float64) (value, unc string) {
+	d, ok := thermo.UncertaintyDecimals(math.Abs(thermo.FromKJPerMol(uncKJ, c.Units)))
+	if !ok {
+		d = decimals(c.Units)
+	}
+	d = min(d, maxDecimals)
+	value = formatEnergy(kj, c.Units, d)
+	if kj > 0 && !strings.HasPrefix(value, "0") {
+		value = "+" + value
+	}
+	return value, "±" + formatEnergy(math.Abs(uncKJ), c.Units, d)
+}
+
+// SignedPM is Measured as one text: "+107.32 ±0.18".
+func (c *Context) SignedPM(kj, uncKJ float64) string {
+	v, u := c.Measured(kj, uncKJ)
+	return v + " " + u
+}
+
 // FormatEnergy prints kj in unit u with the unit's usual decimals.
-func FormatEnergy(kj float64, u thermo.Unit) string {
+func FormatEnergy(kj float64, u thermo.Unit) string { return formatEnergy(kj, u, decimals(u)) }
+
+// formatEnergy prints kj in unit u with d decimals and a true minus sign.
+func formatEnergy(kj float64, u thermo.Unit, d int) string {
 	v := thermo.FromKJPerMol(kj, u)
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return "—"
 	}
-	s := strconv.FormatFloat(v, 'f', decimals(u), 64)
+	s := strconv.FormatFloat(v, 'f', d, 64)
 	if strings.Trim(s, "-0.") == "" {
 		s = strings.TrimPrefix(s, "-")
 	}

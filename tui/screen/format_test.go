@@ -103,3 +103,36 @@ func TestParseValueKeepsTheUncertainty(t *testing.T) {
 		}
 	}
 }
+
+// TestMeasuredFollowsTheUncertainty: a value and its uncertainty are
+// printed to the decimal place of the uncertainty rounded to two
+// significant figures (JCGM 100:2008, GUM, 7.2.6), at most four decimals
+// (the step list's columns: our own bound); with no uncertainty, the
+// unit's usual decimals. Inputs are NaCl's steps as the data give them
+// (Na ionization 495.845547 ± 0.000024 kJ/mol, NIST ASD; sublimation
+// 107.32 ± 0.18, NBS 1982); 1 eV = 96.485332… kJ/mol (CODATA 2018).
+func TestMeasuredFollowsTheUncertainty(t *testing.T) {
+	cases := []struct {
+		kj, unc   float64
+		u         thermo.Unit
+		value, pm string
+	}{
+		{107.32, 0.18, thermo.KJPerMol, "+107.32", "±0.18"},
+		{-348.57, 0.964853, thermo.KJPerMol, "−348.57", "±0.96"},
+		{243.4, 2, thermo.KJPerMol, "+243.4", "±2.0"},
+		{-787.44, 14.2, thermo.KJPerMol, "−787", "±14"},
+		{-787.44, 0, thermo.KJPerMol, "−787.4", "±0.0"},
+		{495.845547, 0.000024, thermo.KJPerMol, "+495.8455", "±0.0000"},
+		{495.845547, 0.000024, thermo.EVPerFormulaUnit, "+5.1391", "±0.0000"},
+		{-787.44, 1.4, thermo.EVPerFormulaUnit, "−8.161", "±0.015"},
+		{-418.4, 4.184, thermo.KcalPerMol, "−100.0", "±1.0"},
+		{0.01, 0.5, thermo.KJPerMol, "0.01", "±0.50"},
+	}
+	for _, c := range cases {
+		ctx := &Context{Units: c.u}
+		v, pm := ctx.Measured(c.kj, c.unc)
+		if v != c.value || pm != c.pm {
+			t.Errorf("Measured(%v, %v) in %v = %q %q, want %q %q", c.kj, c.unc, c.u, v, pm, c.value, c.pm)
+		}
+	}
+}

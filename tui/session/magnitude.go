@@ -1,6 +1,7 @@
 package session
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -86,16 +87,45 @@ func (m Magnitudes) Check(ctx *screen.Context, kind cycle.StepKind, text string,
 
 // Question returns the plausibility question for a value kj typed as text
 // for a step of kind (nil when the value is plausible). The data's
-// magnitudes are computed once per session, on the first value typed, and
-// shared by every screen that takes values.
+// magnitudes are computed once per session, off the Update path (see
+// WarmMagnitudes), and shared by every screen that takes values. Until
+// they are ready Question never waits for them: it returns a
+// *PendingError, the visible "working" state of the check (and starts
+// the computation if nothing has).
 func (s *Session) Question(ctx *screen.Context, kind cycle.StepKind, text string, kj float64) error {
+	if !s.magReady.Load() {
+		if !s.magStarted {
+			s.magStarted = true
+			go s.magnitudesOf(ctx.DB)
+		}
+		return &PendingError{}
+	}
 	return s.magnitudesOf(ctx.DB).Check(ctx, kind, text, kj)
+}
+
+// MagnitudesMsg says the data's magnitudes are ready: a screen whose value
+// was refused with a *PendingError submits it again (Pending).
+type MagnitudesMsg struct{}
+
+// Pending reports whether err is a *PendingError.
+func Pending(err error) bool {
+	var p *PendingError
+	return errors.As(err, &p)
+}
+
+// PendingError says a typed value cannot be checked yet: the data's
+// largest values are still being read.
+type PendingError struct{}
+
+func (*PendingError) Error() string {
+	return "a moment: the data's largest values, to check the value against, are still being read; press enter again"
 }
 
 // WarmMagnitudes returns the command that computes the data's magnitudes
 // (a survey of every compound, ~0.2 s) off the Update path, the first time
-// it is called in a session; nil after that. A screen returns it when a
-// value editor opens, so that Question finds them ready.
+// it is called in a session, answering MagnitudesMsg; nil after that. A
+// screen returns it when a value editor opens, so that Question finds them
+// ready.
 func (s *Session) WarmMagnitudes(db *data.DB) tea.Cmd {
 	if s.magStarted {
 		return nil
@@ -103,13 +133,16 @@ func (s *Session) WarmMagnitudes(db *data.DB) tea.Cmd {
 	s.magStarted = true
 	return func() tea.Msg {
 		s.magnitudesOf(db)
-		return nil
+		return MagnitudesMsg{}
 	}
 }
 
 // magnitudesOf returns the data's magnitudes, computing them once.
 func (s *Session) magnitudesOf(db *data.DB) Magnitudes {
-	s.magOnce.Do(func() { s.magnitudes = DataMagnitudes(db) })
+	s.magOnce.Do(func() {
+		s.magnitudes = DataMagnitudes(db)
+		s.magReady.Store(true)
+	})
 	return s.magnitudes
 }
 
@@ -118,8 +151,13 @@ func (s *Session) magnitudesOf(db *data.DB) Magnitudes {
 // text after that (and nil when there is no question).
 type Confirmer struct{ asked string }
 
-// Ask returns question unless text was already asked about.
+// Ask returns question unless text was already asked about. A
+// *PendingError is no question: it is returned and not remembered, so the
+// check is made once the magnitudes are ready.
 func (c *Confirmer) Ask(text string, question error) error {
+	if Pending(question) {
+		return question
+	}
 	if question == nil || c.asked == text {
 		return nil
 	}

@@ -1,11 +1,14 @@
 package session
 
 import (
+	"errors"
 	"strings"
 	"testing"
 
 	"enthalpath/cycle"
 	"enthalpath/data"
+	"enthalpath/thermo"
+	"enthalpath/tui/screen"
 )
 
 // TestMagnitudesWarmedOffUpdate: the data's magnitudes are computed by the
@@ -48,5 +51,35 @@ func TestModelRemedyOnTheModelsScreen(t *testing.T) {
 		if !strings.Contains(msg, want) || strings.Contains(msg, "--") {
 			t.Errorf("remedy %v: %q, want %q and no flag", r, msg, want)
 		}
+	}
+}
+
+// TestQuestionNeverWaits: before the data's magnitudes are ready, Question
+// answers at once with the pending state (it does not survey every
+// compound itself: were it to, the magnitudes would be ready and the
+// answer the plausibility question), and the Confirmer does not take that
+// for a question asked, so the value is checked once they are ready. An
+// attachment of −349 typed in eV is 33,700 kJ/mol, beyond 10× any
+// attachment of the data (largest |EA| below 1,000 kJ/mol: CRC Handbook,
+// from memory).
+func TestQuestionNeverWaits(t *testing.T) {
+	db, err := data.Load()
+	if err != nil {
+		t.Fatal(err)
+	}
+	ctx := &screen.Context{DB: db, Units: thermo.EVPerFormulaUnit}
+	kj := thermo.ToKJPerMol(-349, thermo.EVPerFormulaUnit)
+	s := &Session{}
+	var confirm Confirmer
+	var pending *PendingError
+	if q := confirm.Ask("-349", s.Question(ctx, cycle.KindAttachment, "-349", kj)); !errors.As(q, &pending) {
+		t.Fatalf("before the magnitudes: %v, want the pending state", q)
+	}
+	s.magnitudesOf(db) // waits for the computation the question started
+	if q := confirm.Ask("-349", s.Question(ctx, cycle.KindAttachment, "-349", kj)); q == nil || errors.As(q, &pending) {
+		t.Fatalf("once ready: %v, want the plausibility question", q)
+	}
+	if q := confirm.Ask("-349", s.Question(ctx, cycle.KindAttachment, "-349", kj)); q != nil {
+		t.Errorf("asked again on the same text: %v, want it let through", q)
 	}
 }

@@ -3,6 +3,7 @@ package session
 import (
 	"fmt"
 	"sync"
+	"sync/atomic"
 
 	tea "github.com/charmbracelet/bubbletea"
 
@@ -25,10 +26,12 @@ type Session struct {
 	gen, resultGen int
 	// magnitudes are the data's largest step values by kind, for the
 	// plausibility question: computed once, in the command WarmMagnitudes
-	// returns when a value editor opens (or, failing that, on the first
-	// value typed); magOnce orders the command's write before every read.
+	// returns when a value editor opens (or, failing that, in a goroutine
+	// the first value typed starts); magOnce orders the write before every
+	// read, magReady lets Question see without waiting that it is done.
 	magOnce    sync.Once
 	magStarted bool
+	magReady   atomic.Bool // set once magnitudes is written
 	magnitudes Magnitudes
 }
 
@@ -109,6 +112,10 @@ func (s *Session) Solved() *cycle.Result {
 	}
 	return nil
 }
+
+// Generation counts the solves asked (one per change): a value worked out
+// for one generation of the cycle is stale at the next.
+func (s *Session) Generation() int { return s.gen }
 
 // Clean marks the session saved to path.
 func (s *Session) Clean(path string) { s.Dirty, s.Path = false, path }

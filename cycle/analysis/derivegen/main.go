@@ -10,7 +10,8 @@
 //	go run ./cycle/analysis/derivegen [-out data/tables/derived_ions.csv] [-choices FILE]
 //
 // The lattice source of each ion is "auto" (volume-based where a salt has a
-// measured density or cell, Kapustinskii otherwise), over the salts of the
+// measured density or cell, Kapustinskii where it has radii, else volume-based with V_m summed
+// from the ion volumes fitted over the data's salts, analysis.IonVolumes), over the salts of the
 // ionic counter-ions (analysis.IonicCounterIons: the s-block cations and
 // NH₄⁺ for an anion, the halides for a cation; every salt when there is
 // none), unless choices.csv, kept by hand beside this file with a reason

@@ -1,0 +1,127 @@
+package cycle
+
+import (
+	"fmt"
+	"strconv"
+
+	"enthalpath/data"
+	"enthalpath/thermo/notation"
+)
+
+// Choosing a formula's ions: the data's cation and anion whose charges
+// balance its counts, or a hypothetical monatomic ion with the charge the
+// counts imply, radii lent by the neighbour rule.
+
+func countText(n int) string {
+	if n == 1 {
+		return ""
+	}
+	return strconv.Itoa(n)
+}
+
+// pickIons chooses, for a formula of two parts (elements, or a bracketed
+// group for a polyatomic ion: "Ba(N3)2"), the cation and anion of the data
+// whose charges balance its counts; when the data have no balancing cation
+// of an element it makes one with the charge the counts imply (a
+// hypothetical ion).
+func pickIons(db *data.DB, formula string, p1, p2 formulaPart, opt Options) (data.Ion, data.Ion, error) {
+	first, second := p1.core, p2.core
+	nFirst, nSecond := p1.count, p2.count
+	var cations, anions []data.Ion
+	for _, in := range db.IonsOf(first) {
+		if in.Polyatomic == p1.bracketed && in.Charge > 0 {
+			cations = append(cations, in)
+		}
+	}
+	for _, in := range db.IonsOf(second) {
+		if in.Polyatomic == p2.bracketed && in.Charge < 0 {
+			anions = append(anions, in)
+		}
+	}
+	if opt.Anion != "" {
+		a, err := db.Ion(opt.Anion)
+		if err != nil {
+			return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: "unknown anion", Err: err}
+		}
+		anions = []data.Ion{a}
+	}
+	if opt.Cation != "" {
+		a, err := db.Ion(opt.Cation)
+		if err != nil {
+			return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: "unknown cation", Err: err}
+		}
+		cations = []data.Ion{a}
+	}
+	if len(anions) == 0 && p2.bracketed {
+		return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("the data have no anion %s; give the ions with their charges", second)}
+	}
+	if len(anions) == 0 {
+		if !notation.IsElementSymbol(second) {
+			return data.Ion{}, data.Ion{}, &CompoundError{Formula: formula, Reason: fmt.Sprintf("%q is not an element", second)}
+		}
+		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("the data have no anion of %s; write the metal first, or give the cation and the anion with their charges (for example %s-)", second, second)}
+	}
+	for _, an := range anions {
+		for _, ca := range cations {
+			if nFirst*ca.Charge+nSecond*an.Charge == 0 {
+				return ca, an, nil
+			}
+		}
+	}
+	if p1.bracketed {
+		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("no cation %s in the data balances %s; give the ions with their charges", first, anions[0].Symbol)}
+	}
+	an := anions[0]
+	num := -nSecond * an.Charge
+	if num%nFirst != 0 {
+		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%d %s ions carry %d negative charges, which %d %s atoms cannot balance with a whole charge each",
+			nSecond, an.Symbol, num, nFirst, first)}
+	}
+	z := num / nFirst
+	if el, err := db.Element(first); err != nil || len(el.Ionization) < z {
+		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("%s would need the charge %+d, beyond the ionization energies in the data", first, z)}
+	}
+	sym := fmt.Sprintf("%s%s+", first, countText(z))
+	return hypotheticalIon(db, sym, first, z), an, nil
+}
+
+// NeighbourDonor returns the element whose ion of charge z lends its
+// Shannon radii to an ion of element core that has none (the neighbour
+// rule, common practice, no source): the nearest element by atomic number
+// with radii for that charge, ties going to the lighter one. It returns ""
+// when core is not an element of the data or no element qualifies.
+func NeighbourDonor(db *data.DB, core string, z int) string {
+	if _, err := db.Element(core); err != nil {
+		return ""
+	}
+	// Walk outwards from core's Z, the lighter neighbour first: a batch of
+	// hypothetical compounds calls this for every row, so no table copies.
+	at := notation.AtomicNumber(core)
+	for d := 1; d < 119; d++ {
+		for _, zz := range [2]int{at - d, at + d} {
+			if sym := notation.SymbolOfZ(zz); sym != "" && len(db.Radii(sym, z)) > 0 {
+				return sym
+			}
+		}
+	}
+	return ""
+}
+
+// hypotheticalIon is a monatomic ion the data do not have (Mg⁺ of MgCl).
+// Its radii, for the models, are those of the ion of the same charge of the
+// nearest element by atomic number that has Shannon radii (ties to the
+// lighter element): the neighbour rule, common practice, no source. Each
+// borrowed radius says so in Substituted, which the model inputs print.
+func hypotheticalIon(db *data.DB, sym, core string, z int) data.Ion {
+	in := data.Ion{Symbol: sym, Core: core, Charge: z, Shape: "monatomic", Note: "hypothetical ion, not in the data"}
+	donor := NeighbourDonor(db, core, z)
+	if donor == "" {
+		return in
+	}
+	why := "no radius for " + sym + " in the data: that of " + ionText(donor, z) + " by the neighbour rule, common practice, no source"
+	for _, r := range db.Radii(donor, z) {
+		r.Substituted = why
+		in.Radii = append(in.Radii, r)
+	}
+	return in
+}
