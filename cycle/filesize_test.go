@@ -23,10 +23,11 @@ const longFileReason = "Over 600 lines:"
 // written, each with the helper that splits it; the test logs them and
 // fails on any other. Remove a line when its file is split.
 var longFilesBeingSplit = map[string]string{
-	"thermo/ewald/sums.go": "i19",
-	"cycle/models.go":      "i15",
-	"cycle/build.go":       "i14",
-	"tui/model.go":         "i13t",
+	"thermo/ewald/sums.go":     "i19",
+	"cycle/models.go":          "i15",
+	"cycle/build.go":           "i14",
+	"tui/model.go":             "i13t",
+	"tui/assembly/assembly.go": "i13t",
 }
 
 // generated is the line that marks a generated Go file ("go help generate").
