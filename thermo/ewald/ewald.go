@@ -250,16 +250,19 @@ func newSystem(c *crystal.Crystal, detect bool) *system {
 	return s
 }
 
-// realToRecipCost is the cost of one real-space pair term (an erfc, a
-// square root, the pair loop and the image search) relative to one
-// site-by-k-vector term of the reciprocal sum, and kVectorOverhead the cost
-// of one k-vector's own set-up (its Gaussian factor, its row of phases) in
-// the same unit. BenchmarkTermCost measures both (on a loaded 2-core
-// machine: about 300 ns per real term, 22 ns per site-term and 140 ns per
-// k-vector); instruction counts of whole sums (valgrind --tool=callgrind,
-// 8 to 4,096 ions) were least with 10 and 6 among 3…40 and 0…6.
+// realToRecipCost is the cost of one real-space pair term (the kernel from
+// its table, a square root, the pair loop and the image search) relative to
+// one site-by-k-vector term of the reciprocal sum, and kVectorOverhead the
+// cost of one k-vector's own set-up (its Gaussian factor, its row of
+// phases) in the same unit. BenchmarkTermCost measures both: on a loaded
+// 2-core machine (load average about 16) about 42–44 ns per real term and
+// 6.3–7.6 ns per site-term at 216 and 1,000 ions, a ratio of 6 to 7.
+// Instruction counts of whole sums (valgrind --tool=cachegrind, rock salt
+// of 8 ions and displaced supercells of 216, 1,000 and 4,096 ions) were
+// least between 4 and 6 among 4, 6, 8 and 10, and 7 % higher at 10 for
+// 4,096 ions.
 const (
-	realToRecipCost = 10.0
+	realToRecipCost = 6.0
 	kVectorOverhead = 6.0
 )
 

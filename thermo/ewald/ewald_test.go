@@ -542,3 +542,36 @@ func TestOneImagePerPair(t *testing.T) {
 		t.Errorf("nearest pair %v %.12f and %v %.12f", a.NearestPair, a.NearestDistance, b.NearestPair, b.NearestDistance)
 	}
 }
+
+// TestListedImagesMatchSearched: the real-space sum of a displaced 64-ion
+// cell with images from the sorted translation list (cells of 16 sites and
+// more) and with the box search around each pair (smaller cells) visits the
+// same images: equal term counts, potentials to 1e-13 relative (only the
+// order of the additions differs), the same nearest pair.
+func TestListedImagesMatchSearched(t *testing.T) {
+	c := rockSaltSupercell(t, 2, 0.05)
+	if len(c.Sites) < listedImages {
+		t.Fatalf("%d sites: the list is not used", len(c.Sites))
+	}
+	s := newSystem(c, false)
+	p := math.Sqrt(-math.Log(DefaultAccuracy / 2))
+	alpha := p / (0.9 * 2 * 5.6402) // rc = 0.9 of the cell: several images per pair
+	chunks := chunksFor(len(s.q))
+	listed, searched := make([]realPart, chunks), make([]realPart, chunks)
+	s.realSpacePairs(alpha, p/alpha, listed)
+	s.realSpaceSearched(alpha, p/alpha, searched)
+	for c := range listed {
+		a, b := listed[c], searched[c]
+		if a.terms != b.terms || a.terms == 0 {
+			t.Errorf("chunk %d: %d terms from the list, %d from the search", c, a.terms, b.terms)
+		}
+		for i := range a.phi {
+			if math.Abs(a.phi[i]-b.phi[i]) > 1e-13*math.Abs(b.phi[i]) {
+				t.Errorf("chunk %d φ[%d]: %.15g listed, %.15g searched", c, i, a.phi[i], b.phi[i])
+			}
+		}
+		if a.pair != b.pair || relDiff(a.nearest, b.nearest) > 1e-13 {
+			t.Errorf("chunk %d: nearest %v %.12f listed, %v %.12f searched", c, a.pair, a.nearest, b.pair, b.nearest)
+		}
+	}
+}

@@ -116,7 +116,10 @@ func (l siteLookup) scan(f crystal.Vec3, q float64) int {
 // sameModulo reports whether d lies within translationTolerance of an
 // integer.
 func sameModulo(d float64) bool {
-	return math.Abs(d-math.Round(d)) <= translationTolerance
+	// d − ⌊d + ½⌋ is d minus its nearest integer (Floor is one instruction
+	// where math.Round is a dozen).
+	e := d - math.Floor(d+0.5)
+	return e <= translationTolerance && e >= -translationTolerance
 }
 
 // orbits finds the internal translations of the cell (fractional vectors t

@@ -1,0 +1,411 @@
+package ewald
+
+import (
+	"cmp"
+	"math"
+	"slices"
+
+	"enthalpath/thermo/crystal"
+)
+
+// This file: the real-space sum (images of each pair within the cut-off).
+
+// imageSum holds what the real-space sum needs for one pair of sites. Its
+// axes are the lattice axes reordered so that the widest index range is
+// the innermost loop, solved as a quadratic.
+type imageSum struct {
+	alpha, rc2 float64
+	perm       [3]int // perm[i] is the lattice axis of loop i
+	a          [3]crystal.Vec3
+	h          [3]float64 // rc·|bₖ|: half-width of the index range per loop
+	a2sq       float64
+	box        bool // few images per pair: test every index in the box
+}
+
+func newImageSum(s *system, alpha, rc float64) imageSum {
+	im := imageSum{alpha: alpha, rc2: rc * rc, perm: [3]int{0, 1, 2}}
+	var h [3]float64
+	for k := 0; k < 3; k++ {
+		h[k] = rc * s.recip[k].Norm()
+	}
+	// Sort the three axes by h, widest last.
+	for i := 0; i < 3; i++ {
+		for j := i + 1; j < 3; j++ {
+			if h[im.perm[j]] < h[im.perm[i]] {
+				im.perm[i], im.perm[j] = im.perm[j], im.perm[i]
+			}
+		}
+	}
+	for i, k := range im.perm {
+		im.a[i], im.h[i] = s.lat[k], h[k]
+	}
+	im.a2sq = im.a[2].Dot(im.a[2])
+	im.box = im.h[0] < 1 && im.h[1] < 1 && im.h[2] < 1
+	return im
+}
+
+// boxSize bounds the number of images examined per pair.
+func (im imageSum) boxSize() float64 {
+	return (2*im.h[0] + 2) * (2*im.h[1] + 2) * (2*im.h[2] + 2)
+}
+
+// sum visits every d = base + Σ mₖaₖ with |d| < rc, where base is the
+// Cartesian form of the fractional difference df, and returns
+// Σ erfc(α|d|)/|d|, the number of terms and the shortest |d|. A |d| below
+// coincident is skipped; unless self (a site and its own images) it also
+// reports an overlap.
+func (im *imageSum) sum(dfLattice, base crystal.Vec3, self bool) (sum float64, count int, shortest float64, overlap bool) {
+	shortest = math.Inf(1)
+	df := crystal.Vec3{dfLattice[im.perm[0]], dfLattice[im.perm[1]], dfLattice[im.perm[2]]}
+	a0, a1, a2 := im.a[0], im.a[1], im.a[2]
+	lo0, hi0 := int(math.Ceil(-df[0]-im.h[0])), int(math.Floor(-df[0]+im.h[0]))
+	lo1, hi1 := int(math.Ceil(-df[1]-im.h[1])), int(math.Floor(-df[1]+im.h[1]))
+	lo2b, hi2b := int(math.Ceil(-df[2]-im.h[2])), int(math.Floor(-df[2]+im.h[2]))
+	for m0 := lo0; m0 <= hi0; m0++ {
+		f0 := float64(m0)
+		v0 := crystal.Vec3{base[0] + f0*a0[0], base[1] + f0*a0[1], base[2] + f0*a0[2]}
+		for m1 := lo1; m1 <= hi1; m1++ {
+			f1 := float64(m1)
+			v := crystal.Vec3{v0[0] + f1*a1[0], v0[1] + f1*a1[1], v0[2] + f1*a1[2]}
+			lo2, hi2 := lo2b, hi2b
+			if !im.box {
+				// |v + m2·a2|² < rc²: solve the quadratic in m2.
+				b := v.Dot(a2)
+				disc := b*b - im.a2sq*(v.Dot(v)-im.rc2)
+				if disc < 0 {
+					continue
+				}
+				root := math.Sqrt(disc)
+				lo2, hi2 = int(math.Ceil((-b-root)/im.a2sq)), int(math.Floor((-b+root)/im.a2sq))
+			}
+			for m2 := lo2; m2 <= hi2; m2++ {
+				// Direct, not incremental: a site's own n = 0 image must
+				// come out exactly zero.
+				fm := float64(m2)
+				w0, w1, w2 := v[0]+fm*a2[0], v[1]+fm*a2[1], v[2]+fm*a2[2]
+				r2 := w0*w0 + w1*w1 + w2*w2
+				if r2 >= im.rc2 {
+					continue
+				}
+				if r2 < coincident*coincident {
+					overlap = overlap || !self
+					continue
+				}
+				r := math.Sqrt(r2)
+				sum += im.alpha * screened(im.alpha*r)
+				count++
+				if r < shortest {
+					shortest = r
+				}
+			}
+		}
+	}
+	return sum, count, shortest, overlap
+}
+
+// realPart is one chunk's share of the real-space sum.
+type realPart struct {
+	phi     []float64
+	terms   int
+	nearest float64
+	pair    [2]int
+	overlap [2]int
+}
+
+func (p *realPart) pairTerm(s *system, im *imageSum, i, j int) (float64, int) {
+	sum, count, shortest, close := im.sum(s.frac[j].Sub(s.frac[i]), s.pos[j].Sub(s.pos[i]), false)
+	if close && p.overlap[0] < 0 {
+		p.overlap = [2]int{i, j}
+	}
+	if s.q[i]*s.q[j] < 0 && shortest < p.nearest {
+		p.nearest = shortest
+		if s.q[i] > 0 {
+			p.pair = [2]int{i, j}
+		} else {
+			p.pair = [2]int{j, i}
+		}
+	}
+	return sum, count
+}
+
+// realSpace adds to phi[i] the screened sum Σⱼ Σₙ' qⱼ·erfc(α·r)/r over all
+// images within rc (the term j = i, n = 0 left out). It returns the number
+// of pair terms and the shortest cation–anion distance met, with its pair
+// (−1, −1 when none lies within rc), and a pair of coincident sites if any.
+func (s *system) realSpace(alpha, rc float64, phi []float64) (terms int, nearest float64, pair [2]int, overlap [2]int) {
+	n := len(s.q)
+	chunks := chunksFor(n)
+	parts := make([]realPart, chunks)
+	s.realSpacePairs(alpha, rc, parts)
+	nearest, pair, overlap = math.Inf(1), [2]int{-1, -1}, [2]int{-1, -1}
+	for c := range parts {
+		p := &parts[c]
+		for i, v := range p.phi {
+			phi[i] += v
+		}
+		terms += p.terms
+		if p.nearest < nearest {
+			nearest, pair = p.nearest, p.pair
+		}
+		if overlap[0] < 0 && p.overlap[0] >= 0 {
+			overlap = p.overlap
+		}
+	}
+	return terms, nearest, pair, overlap
+}
+
+// realSpacePairs is realSpace over every pair of sites, each with all its
+// images within rc.
+func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
+	n := len(s.q)
+	chunks := len(parts)
+	// With the cut-off below half of every distance between lattice
+	// planes, |Δfₖ + mₖ| ≤ rc·|bₖ| < ½ leaves one image per pair, the one
+	// of the rounded fractional difference (and none of a site itself).
+	minImage := true
+	for k := 0; k < 3; k++ {
+		minImage = minImage && rc*s.recip[k].Norm() < 0.5
+	}
+	if !minImage && n < listedImages {
+		s.realSpaceSearched(alpha, rc, parts)
+		return
+	}
+	var tl translationList
+	var selfSum float64
+	var selfCount int
+	if !minImage {
+		tl = s.translationsWithin(rc)
+		// Self images: the same for every site.
+		selfSum, selfCount = tl.selfSum(alpha, rc)
+	}
+	forChunks(n, func(c int) {
+		p := parts[c].reset(n)
+		if minImage {
+			for i := c; i < n; i += chunks {
+				s.minImageRow(i, alpha, rc*rc, p)
+			}
+			return
+		}
+		for i := c; i < n; i += chunks {
+			p.phi[i] += s.q[i] * selfSum
+			p.terms += selfCount
+			s.imagesRow(i, alpha, rc, &tl, p)
+		}
+	})
+}
+
+// listedImages is the smallest cell whose real-space images are found from
+// a sorted list of lattice translations (translationList); a smaller cell
+// has too few pairs to pay for the list, and each of its pairs searches the
+// box of images around it (imageSum).
+const listedImages = 16
+
+func (p *realPart) reset(n int) *realPart {
+	p.nearest, p.pair, p.overlap = math.Inf(1), [2]int{-1, -1}, [2]int{-1, -1}
+	p.phi = make([]float64, n)
+	return p
+}
+
+// realSpaceSearched is realSpacePairs for a small cell: each pair searches
+// the box of images around it.
+func (s *system) realSpaceSearched(alpha, rc float64, parts []realPart) {
+	n := len(s.q)
+	chunks := len(parts)
+	imv := newImageSum(s, alpha, rc)
+	im := &imv
+	// Self images: the same for every site.
+	selfSum, selfCount, _, _ := im.sum(crystal.Vec3{}, crystal.Vec3{}, true)
+	forChunks(n, func(c int) {
+		p := parts[c].reset(n)
+		for i := c; i < n; i += chunks {
+			qi := s.q[i]
+			acc := qi * selfSum
+			p.terms += selfCount
+			for j := i + 1; j < n; j++ {
+				sum, count := p.pairTerm(s, im, i, j)
+				if count == 0 {
+					continue
+				}
+				acc += s.q[j] * sum
+				p.phi[j] += qi * sum
+				p.terms += 2 * count
+			}
+			p.phi[i] += acc
+		}
+	})
+}
+
+// translationList holds the lattice vectors t with |t| < rc + reach, where
+// reach bounds the length of a difference of two positions reduced to the
+// nearest image (fractional parts in [−½, ½]): every image of a pair within
+// the cut-off is d + t for one of them. They are in order of length, so
+// that the loop over them for a pair d can stop at |t| ≥ rc + |d|.
+type translationList struct {
+	x, y, z []float64
+	norm    []float64
+}
+
+// translationsWithin lists the lattice translations the real-space sum
+// with cut-off rc needs (see translationList).
+func (s *system) translationsWithin(rc float64) translationList {
+	reach := 0.0
+	for _, sg := range [4][3]float64{{1, 1, 1}, {1, 1, -1}, {1, -1, 1}, {-1, 1, 1}} {
+		v := s.lat[0].Scale(sg[0] / 2).Add(s.lat[1].Scale(sg[1] / 2)).Add(s.lat[2].Scale(sg[2] / 2))
+		reach = math.Max(reach, v.Norm())
+	}
+	limit := rc + reach
+	limit2 := limit * limit
+	a0, a1, a2 := s.lat[0], s.lat[1], s.lat[2]
+	a2sq := a2.Dot(a2)
+	m0 := int(math.Ceil(limit * s.recip[0].Norm()))
+	m1 := int(math.Ceil(limit * s.recip[1].Norm()))
+	type entry struct {
+		x, y, z, r float64
+	}
+	list := make([]entry, 0, int(4*math.Pi/3*limit*limit2/s.volume)+16)
+	for i := -m0; i <= m0; i++ {
+		for j := -m1; j <= m1; j++ {
+			fi, fj := float64(i), float64(j)
+			v := crystal.Vec3{fi*a0[0] + fj*a1[0], fi*a0[1] + fj*a1[1], fi*a0[2] + fj*a1[2]}
+			// |v + k·a2|² < limit²: a quadratic in k.
+			b := v.Dot(a2)
+			disc := b*b - a2sq*(v.Dot(v)-limit2)
+			if disc < 0 {
+				continue
+			}
+			root := math.Sqrt(disc)
+			for k := int(math.Ceil((-b - root) / a2sq)); k <= int(math.Floor((-b+root)/a2sq)); k++ {
+				fk := float64(k)
+				x, y, z := v[0]+fk*a2[0], v[1]+fk*a2[1], v[2]+fk*a2[2]
+				if r2 := x*x + y*y + z*z; r2 < limit2 {
+					list = append(list, entry{x, y, z, math.Sqrt(r2)})
+				}
+			}
+		}
+	}
+	// pdqsort is deterministic: the order, and so the order of summation,
+	// depends on the lattice only.
+	slices.SortFunc(list, func(a, b entry) int { return cmp.Compare(a.r, b.r) })
+	buf := make([]float64, 4*len(list))
+	tl := translationList{x: buf[:len(list)], y: buf[len(list) : 2*len(list)], z: buf[2*len(list) : 3*len(list)], norm: buf[3*len(list):]}
+	for k, e := range list {
+		tl.x[k], tl.y[k], tl.z[k], tl.norm[k] = e.x, e.y, e.z, e.r
+	}
+	return tl
+}
+
+// selfSum returns Σ_{t≠0, |t|<rc} erfc(α|t|)/|t| and the number of terms:
+// a site's interaction with its own images.
+func (tl *translationList) selfSum(alpha, rc float64) (sum float64, count int) {
+	for k := 1; k < len(tl.norm) && tl.norm[k] < rc; k++ {
+		sum += alpha * screened(alpha*tl.norm[k])
+		count++
+	}
+	return sum, count
+}
+
+// imagesRow adds the real-space terms of the pairs (i, j > i) at all their
+// images within the cut-off to p: the difference reduced to the nearest
+// image, d, plus each listed translation t with |t| < rc + |d|.
+func (s *system) imagesRow(i int, alpha, rc float64, tl *translationList, p *realPart) {
+	a0, a1, a2 := s.lat[0], s.lat[1], s.lat[2]
+	fi, qi := s.frac[i], s.q[i]
+	rc2 := rc * rc
+	tx, ty, tz, tn := tl.x, tl.y, tl.z, tl.norm
+	tx, ty, tz = tx[:len(tn)], ty[:len(tn)], tz[:len(tn)]
+	acc := 0.0
+	frac, q, phi := s.frac[i+1:], s.q[i+1:], p.phi[i+1:]
+	for k := range frac {
+		fj := &frac[k]
+		d0, d1, d2 := fj[0]-fi[0], fj[1]-fi[1], fj[2]-fi[2]
+		d0 -= float64(int(d0+1.5) - 1)
+		d1 -= float64(int(d1+1.5) - 1)
+		d2 -= float64(int(d2+1.5) - 1)
+		x := d0*a0[0] + d1*a1[0] + d2*a2[0]
+		y := d0*a0[1] + d1*a1[1] + d2*a2[1]
+		z := d0*a0[2] + d1*a1[2] + d2*a2[2]
+		limit := rc + math.Sqrt(x*x+y*y+z*z)
+		sum, shortest, count := 0.0, math.Inf(1), 0
+		for t, tr := range tn {
+			if tr >= limit {
+				break
+			}
+			wx, wy, wz := x+tx[t], y+ty[t], z+tz[t]
+			r2 := wx*wx + wy*wy + wz*wz
+			if r2 >= rc2 {
+				continue
+			}
+			if r2 < coincident*coincident {
+				if p.overlap[0] < 0 {
+					p.overlap = [2]int{i, i + 1 + k}
+				}
+				continue
+			}
+			r := math.Sqrt(r2)
+			sum += alpha * screened(alpha*r)
+			count++
+			shortest = min(shortest, r)
+		}
+		if count == 0 {
+			continue
+		}
+		acc += q[k] * sum
+		phi[k] += qi * sum
+		p.terms += 2 * count
+		if qi*q[k] < 0 && shortest < p.nearest {
+			p.nearest = shortest
+			if qi > 0 {
+				p.pair = [2]int{i, i + 1 + k}
+			} else {
+				p.pair = [2]int{i + 1 + k, i}
+			}
+		}
+	}
+	p.phi[i] += acc
+}
+
+// minImageRow adds the real-space terms of the pairs (i, j > i) at their
+// one image within the cut-off (see realSpacePairs) to p.
+func (s *system) minImageRow(i int, alpha, rc2 float64, p *realPart) {
+	a0, a1, a2 := s.lat[0], s.lat[1], s.lat[2]
+	fi, qi := s.frac[i], s.q[i]
+	acc := 0.0
+	frac, q, phi := s.frac[i+1:], s.q[i+1:], p.phi[i+1:]
+	for k := range frac {
+		fj := &frac[k]
+		// Δf ∈ (−1, 1); subtracting the nearest integer, computed as
+		// trunc(Δf + 1.5) − 1 on a positive number.
+		d0, d1, d2 := fj[0]-fi[0], fj[1]-fi[1], fj[2]-fi[2]
+		d0 -= float64(int(d0+1.5) - 1)
+		d1 -= float64(int(d1+1.5) - 1)
+		d2 -= float64(int(d2+1.5) - 1)
+		x := d0*a0[0] + d1*a1[0] + d2*a2[0]
+		y := d0*a0[1] + d1*a1[1] + d2*a2[1]
+		z := d0*a0[2] + d1*a1[2] + d2*a2[2]
+		r2 := x*x + y*y + z*z
+		if r2 >= rc2 {
+			continue
+		}
+		j := i + 1 + k
+		if r2 < coincident*coincident {
+			if p.overlap[0] < 0 {
+				p.overlap = [2]int{i, j}
+			}
+			continue
+		}
+		r := math.Sqrt(r2)
+		e := alpha * screened(alpha*r)
+		acc += q[k] * e
+		phi[k] += qi * e
+		p.terms += 2
+		if qi*q[k] < 0 && r < p.nearest {
+			p.nearest = r
+			if qi > 0 {
+				p.pair = [2]int{i, j}
+			} else {
+				p.pair = [2]int{j, i}
+			}
+		}
+	}
+	p.phi[i] += acc
+}
