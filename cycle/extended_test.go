@@ -216,6 +216,10 @@ func TestValidationReportsWhatItLeavesOut(t *testing.T) {
 	}
 }
 
+// BenchmarkExtendedNaCl is the extended model of NaCl as every Solve after
+// the first asks for it: remembered in the cycle's Memo under its inputs
+// (the evaluation from scratch, pair sums and minimisation, is
+// thermo/lattice's BenchmarkExtendedNaClCold).
 func BenchmarkExtendedNaCl(b *testing.B) {
 	c := build(b, "NaCl", Options{})
 	if _, err := EvaluateModel(c, ModelExtended); err != nil { // warm the Ewald memo and the validation
