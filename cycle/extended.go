@@ -296,8 +296,8 @@ func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data
 			rho = lattice.DefaultRho
 		}
 		input.Repulsion = lattice.Repulsion{Rho: rho, Fitted: true}
-		b.RepulsionFrom = fmt.Sprintf("Born–Mayer B·exp(−r/ρ) on the cation–anion pairs, ρ = %g Å, B fitted so that the energy is least at the reference distance %.4f Å (no Fumi–Tosi parameters for %s)",
-			rho, in.D0, c.Formula)
+		b.RepulsionFrom = fmt.Sprintf("Born–Mayer B·exp(−r/ρ) on the cation–anion pairs, ρ = %g Å, B fitted (no Fumi–Tosi parameters for %s) so that the ",
+			rho, c.Formula)
 	}
 	// Dispersion: Mayer's coefficients where tabulated, else Slater–Kirkwood.
 	if hasSalt && salt.C[0].Known() {
@@ -341,6 +341,9 @@ func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data
 		return fail("cannot be evaluated", err)
 	}
 	b.Minimum, b.AtReference = res.Minimum, res.AtD0
+	if input.Repulsion.Fitted {
+		b.RepulsionFrom += fmt.Sprintf("%s; reference distance %.4f Å, B = %.4g kJ/mol", res.RepulsionFit, in.D0, res.FittedPrefactor)
+	}
 	b.ZeroPointFrom, b.HeatContentFrom = res.ZeroPointFrom, res.HeatContentFrom
 	if c.Conventions.Lattice == LatticeEnergy {
 		b.ToCycleConvention = c.LatticeCorrection()

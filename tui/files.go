@@ -69,16 +69,16 @@ func (m *Model) answer(k tea.KeyMsg) tea.Cmd {
 	case unsaved.Save:
 		return m.askSave(open == nil, open)
 	case unsaved.Keep:
-		formula := m.sess.Cycle.Formula
 		p, err := m.keepWork()
 		if err != nil {
 			m.status.Fail("could not keep a recovery file: " + err.Error())
 			return nil
 		}
-		if open == nil {
-			m.recovered = p
-		} else {
-			m.kept = "The unsaved " + formula + " cycle was kept in " + m.files.Name(p) + "." // said once the open is done
+		if open != nil {
+			// Said once the open is done; the session goes on, so its end
+			// is not in that file.
+			m.kept = "The unsaved " + m.sess.Cycle.Formula + " cycle was kept in " + m.files.Name(p) + "."
+			m.recovered = ""
 		}
 		return m.then(open)
 	case unsaved.Discard:
@@ -117,46 +117,38 @@ func (m *Model) saved(msg savedMsg) tea.Cmd {
 
 // keepWork keeps unsaved work, for every way a session ends with it (the
 // keep answer, a signal, a closed terminal or dropped connection, a server
-// shutdown, a failure): see recovery.Keeper. It returns "" when there is
-// nothing to keep.
+// shutdown, a failure): see recovery.Keeper. The file written is the one
+// RecoveredTo names; it returns "" when there is nothing to keep.
 func (m *Model) keepWork() (string, error) {
 	if !m.sess.Dirty {
 		return "", nil
 	}
-	return m.keeper.Keep(m.sess.Cycle)
-}
-
-// WriteRecovery keeps unsaved work in a recovery file, if there is any
-// (see keepWork); the program's runner calls it when the program ends
-// abnormally. Once the program has stopped it is safe to call.
-func (m *Model) WriteRecovery() (string, error) {
-	p, err := m.keepWork()
+	p, err := m.keeper.Keep(m.sess.Cycle)
 	if p != "" {
 		m.recovered = p
 	}
 	return p, err
 }
 
+// WriteRecovery keeps unsaved work in a recovery file, if there is any
+// (see keepWork); the program's runner calls it when the program ends
+// abnormally. Once the program has stopped it is safe to call.
+func (m *Model) WriteRecovery() (string, error) { return m.keepWork() }
+
 func (m *Model) shutdown(reason string) tea.Cmd {
-	p, err := m.keepWork()
 	m.quitting = true
-	if err != nil {
+	if _, err := m.keepWork(); err != nil {
 		m.status.Fail("shutdown (" + reason + "): could not write the recovery file: " + err.Error())
 	}
-	m.recovered = p
 	return tea.Quit
 }
 
 // recoverAndRepanic is deferred by Update and View: on a panic it writes the
-// recovery file, then panics on so that Bubble Tea restores the terminal
-// and reports it.
+// recovery file (RecoveredTo names it, for the runner), then panics on so
+// that Bubble Tea restores the terminal and reports it.
 func (m *Model) recoverAndRepanic() {
 	if r := recover(); r != nil {
-		// The runner says where (it asks RecoveredTo, or WriteRecovery,
-		// which returns this same file).
-		if p, err := m.keepWork(); err == nil && p != "" {
-			m.recovered = p
-		}
+		_, _ = m.keepWork()
 		panic(r)
 	}
 }

@@ -2,7 +2,6 @@ package tui
 
 import (
 	"fmt"
-	"os"
 	"slices"
 	"strings"
 
@@ -122,19 +121,9 @@ func (m *Model) Init() tea.Cmd {
 		cmds = append(cmds, s.Init())
 	}
 	if in := strings.TrimSpace(m.opts.Initial); in != "" {
-		cmds = append(cmds, m.openCmd(initialRequest(in)))
+		cmds = append(cmds, m.openCmd(session.Request(in)))
 	}
 	return tea.Batch(cmds...)
-}
-
-func initialRequest(in string) screen.OpenMsg {
-	if strings.HasSuffix(in, cycle.FileExtension) || strings.ContainsRune(in, '/') {
-		return screen.OpenMsg{File: in}
-	}
-	if st, err := os.Stat(in); err == nil && st.Mode().IsRegular() {
-		return screen.OpenMsg{File: in}
-	}
-	return screen.OpenMsg{Formula: in}
 }
 
 // Update routes a message. A panic anywhere below writes the recovery file

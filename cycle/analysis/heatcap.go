@@ -25,8 +25,8 @@ func heatCapacity(key string, moles float64) *HeatCapacity {
 	if err != nil {
 		return nil
 	}
-	ivs, ok := t.Species(key)
-	if !ok || len(ivs) == 0 {
+	ivs, ok, err := t.Species(key)
+	if err != nil || !ok || len(ivs) == 0 {
 		return nil
 	}
 	chain := make(gibbs.Chain, len(ivs))
@@ -115,4 +115,34 @@ func (st *Stability) HeatCapacitySummary() string {
 		return "heat capacities from NASA Glenn polynomials"
 	}
 	return fmt.Sprintf("heat capacities from NASA Glenn polynomials in %d of %d reactions", n, len(st.Reactions))
+}
+
+// heatCapacityNotes says which reactions include the heat capacities (one
+// note each, naming the species) and, in one note, which neglect them and
+// the species without polynomials.
+func heatCapacityNotes(rs []Reaction) []string {
+	var notes, missing []string
+	neglected := 0
+	seen := map[string]bool{}
+	for _, r := range rs {
+		if len(r.HeatCapacitySpecies) > 0 {
+			notes = append(notes, r.Equation+": heat capacities "+r.HeatCapacityBasis())
+			continue
+		}
+		neglected++
+		for _, m := range r.HeatCapacityMissing {
+			if !seen[m] {
+				seen[m] = true
+				missing = append(missing, m)
+			}
+		}
+	}
+	if neglected > 0 {
+		what := "every reaction"
+		if neglected < len(rs) {
+			what = fmt.Sprintf("%d of %d reactions", neglected, len(rs))
+		}
+		notes = append(notes, fmt.Sprintf("heat capacities neglected in %s: no NASA Glenn polynomials for %s", what, strings.Join(missing, ", ")))
+	}
+	return notes
 }

@@ -32,8 +32,8 @@ func TestHeatCapacityReproducesSourceEnthalpy(t *testing.T) {
 		t.Errorf("only %d species with polynomials", tb.Len())
 	}
 	for _, key := range []string{"CO2(g)", "O2(g)", "H2O(g)", "Cl2(g)", "CaO(cr)", "CaCO3(cr)", "MgO(cr)", "MgCO3(cr)", "BaCO3(cr)", "SrCO3(cr)"} {
-		ivs, ok := tb.Species(key)
-		if !ok {
+		ivs, ok, err := tb.Species(key)
+		if err != nil || !ok {
 			t.Errorf("%s: no polynomials", key)
 			continue
 		}
@@ -145,6 +145,41 @@ func TestCalciteWithHeatCapacities(t *testing.T) {
 	for _, r := range st.Reactions {
 		if len(r.HeatCapacitySpecies) != 0 || len(r.HeatCapacityMissing) == 0 {
 			t.Errorf("%s: Cp of %v with an estimated species", r.Equation, r.HeatCapacitySpecies)
+		}
+	}
+}
+
+// Hess's law at every temperature: with the heat capacities the formation
+// Gibbs energies of CaO, CO₂ and CaCO₃ (each from its elements' standard
+// states, Ca(cr), C(cr), O₂(g), with their polynomials) combine to the
+// decomposition's ΔrG(T), the elements cancelling, and differ from the
+// values with Cp neglected away from 298.15 K.
+func TestFormationGibbsWithHeatCapacities(t *testing.T) {
+	a := testAnalyst(t)
+	st, err := a.Stability("CaCO3", StabilityOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := st.Reactions[0]
+	var ths []Thermo
+	for _, tm := range append(append([]Term{}, r.Reactants...), r.Products...) {
+		if tm.Thermo.FormationHeatCapacity == nil {
+			t.Fatalf("%s: no polynomials for its formation reaction", tm.Thermo.Formula)
+		}
+		ths = append(ths, tm.Thermo)
+	}
+	for _, temp := range []float64{500, 1000, 1500} {
+		gc, _ := ths[0].GibbsAt(temp)
+		go1, _ := ths[1].GibbsAt(temp)
+		go2, _ := ths[2].GibbsAt(temp)
+		want, _ := r.Standard.Gibbs(temp, 1)
+		if math.Abs(go1+go2-gc-want) > 0.5 {
+			t.Errorf("%g K: ΔfG sum %.2f, ΔrG %.2f kJ/mol", temp, go1+go2-gc, want)
+		}
+		noCp := ths[0]
+		noCp.FormationHeatCapacity = nil
+		if g0, _ := noCp.GibbsAt(temp); math.Abs(g0-gc) < 0.1 {
+			t.Errorf("%g K: ΔfG(CaCO3) with and without Cp both %.2f", temp, gc)
 		}
 	}
 }

@@ -246,6 +246,16 @@ func (a *Analyst) FitIon(ion string, opt IonFitOptions) (*IonFit, error) {
 		f.Notes = append(f.Notes, "one salt only: the value is that salt's own cycle, and its σ the standard error")
 	}
 	for _, s := range used {
+		if s.LatticeFrom != FitEstimatedVolume {
+			continue
+		}
+		if v, err := a.IonVolumes(); err == nil {
+			f.Notes = append(f.Notes, fmt.Sprintf("%s: V_m summed from ion volumes fitted over the %d salts of the data with a measured volume (relative RMS %.0f %%, a third of it added to the lattice step's σ); a rough estimate for salts with no density, cell or radii",
+				FitEstimatedVolume, v.Salts, 100*v.RelativeRMS))
+		}
+		break
+	}
+	for _, s := range used {
 		if s.CounterFitted {
 			f.Notes = append(f.Notes, "some counter-ions' values are themselves family fits (marked): those salts are correlated with other fits")
 			break

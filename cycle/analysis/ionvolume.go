@@ -3,6 +3,7 @@ package analysis
 import (
 	"errors"
 	"fmt"
+	"maps"
 	"math"
 	"slices"
 	"sort"
@@ -254,10 +255,13 @@ func (a *Analyst) fitIonVolumes() (*IonVolumes, error) {
 	return f, nil
 }
 
+// sum is Σ count·volume over terms, in key order so that the result does
+// not depend on map order to the last bit (the generator's output must
+// reproduce byte for byte).
 func (f *IonVolumes) sum(terms map[string]float64) float64 {
 	v := 0.0
-	for k, x := range terms {
-		v += x * f.Params[k]
+	for _, k := range slices.Sorted(maps.Keys(terms)) {
+		v += terms[k] * f.Params[k]
 	}
 	return v
 }
@@ -279,7 +283,8 @@ func (f *IonVolumes) Ion(db *data.DB, in data.Ion) (v, borrowed float64, ok bool
 	if !ok {
 		return 0, 0, false
 	}
-	for k, n := range terms {
+	for _, k := range slices.Sorted(maps.Keys(terms)) {
+		n := terms[k]
 		if p, ok := f.Params[k]; ok {
 			v += n * p
 			continue
@@ -315,9 +320,9 @@ func (f *IonVolumes) ligandStandIn(db *data.DB, el string) (float64, bool) {
 	}
 	var sum float64
 	var n int
-	for k, p := range f.Params {
+	for _, k := range slices.Sorted(maps.Keys(f.Params)) {
 		if strings.HasPrefix(k, "ligand ") {
-			sum += p
+			sum += f.Params[k]
 			n++
 		}
 	}

@@ -256,7 +256,7 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 	sc.releases(a, an.Core == nonmetal)
 	sc.favoured()
 	if sc.Gibbs {
-		sc.Notes = append(sc.Notes, fmt.Sprintf("Gibbs energies at %s K with the heat capacities neglected (ΔrH° and ΔrS° kept at their 298.15 K values) unless every species of a reaction has NASA Glenn polynomials; a gas given off at %g bar", formatKelvin(sc.Temperature), sc.Pressure))
+		sc.Notes = append(sc.Notes, fmt.Sprintf("Gibbs energies at %s K with the heat capacities neglected (ΔrH° and ΔrS° kept at their 298.15 K values) unless every species of a reaction, or a measured compound and its elements, have NASA Glenn polynomials; a gas given off at %g bar", formatKelvin(sc.Temperature), sc.Pressure))
 	} else {
 		sc.Notes = append(sc.Notes, "entropy is not included: a standard entropy is missing, so these verdicts are on enthalpies; a disproportionation that releases little heat may still be reversed by entropy")
 	}

@@ -162,9 +162,7 @@ func (a *Analyst) Stability(formula string, opt StabilityOptions) (*Stability, e
 	if len(st.Reactions) == 0 {
 		st.Notes = append(st.Notes, "no decomposition or disproportionation of "+st.Formula+" is known to the program: it builds those of carbonates, peroxides, superoxides, sulfates, hydroxides, nitrates and of binary compounds between oxidation states")
 	}
-	for _, r := range st.Reactions {
-		st.Notes = append(st.Notes, r.Equation+": heat capacities "+strings.TrimPrefix(r.HeatCapacityBasis(), "heat capacities "))
-	}
+	st.Notes = append(st.Notes, heatCapacityNotes(st.Reactions)...)
 	st.Notes = append(st.Notes,
 		fmt.Sprintf("ΔrG(T): where every species of a reaction has NASA Glenn polynomials (McBride, Zehe & Gordon, NASA/TP-2002-211556; the source's phase changes included, Cp held at its last value beyond a species' last interval), ΔrH and ΔrS follow them; otherwise the heat capacities are neglected and ΔrH°, ΔrS° keep their 298.15 K values; gases given off at %g bar", pres),
 		fmt.Sprintf("a reaction is called favoured or disfavoured only when ΔrG lies more than %g σ from zero; otherwise it is undecided within the data", gibbs.Coverage))

@@ -198,13 +198,13 @@ func TestCarbonateOrderFromEstimate(t *testing.T) {
 }
 
 // Each estimated decomposition temperature within 250 K of the
-// measured-data one (the bound). Measured when written: 797, 1316,
-// 1595, 1782 K against 575, 1110, 1372, 1565 K, each about 215 K high: the
-// data's ΔfH°(CO₃²⁻, g) is fitted over the per-compound default models
-// (mostly the volume-based one), not over Kapustinskii, which these
-// estimates take. With a value of −321 kJ/mol (recalled, the one that goes
-// with Jenkins' thermochemical radius) and the oxides measured, the
-// estimates came out 1300 K too high.
+// measured-data one (the bound). Measured when written: 778, 1296,
+// 1509, 1757 K against 578, 1157, 1457, 1828 K from measured data with the
+// heat capacities (+200, +139, +52, −71 K); the estimates neglect Cp and
+// take Kapustinskii, while the data's ΔfH°(CO₃²⁻, g) is fitted over the
+// per-compound default models (mostly the volume-based one). With a value
+// of −321 kJ/mol (recalled, the one that goes with Jenkins' thermochemical
+// radius) and the oxides measured, the estimates came out 1300 K too high.
 func TestCarbonateTemperaturesFromEstimate(t *testing.T) {
 	got := estimatedCarbonates(t)
 	a := nbsAnalyst(t)

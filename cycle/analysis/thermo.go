@@ -8,6 +8,7 @@ import (
 	"enthalpath/data"
 	"enthalpath/thermo"
 	"enthalpath/thermo/entropy"
+	"enthalpath/thermo/gibbs"
 	"enthalpath/thermo/notation"
 )
 
@@ -84,11 +85,16 @@ type Thermo struct {
 	// HeatCapacity is the species' NASA Glenn polynomials (nil for an
 	// estimate and for a species the source does not give).
 	HeatCapacity *HeatCapacity
+	// FormationHeatCapacity holds the polynomials of the formation
+	// reaction (the species +1, its elements' standard states −n), nil
+	// unless every one of them has polynomials: GibbsAt then includes them.
+	FormationHeatCapacity []gibbs.Species
 }
 
 // GibbsAt returns ΔfG at temperature t (K) with its σ: the measured ΔfG°
-// at 298.15 K, else ΔfH° − T·ΔfS° (heat capacities neglected). NaN when
-// the entropy of formation is unknown.
+// at 298.15 K, else ΔfH° − T·ΔfS°, with the heat capacities of the
+// formation reaction where FormationHeatCapacity holds them (neglected
+// otherwise). NaN when the entropy of formation is unknown.
 func (t Thermo) GibbsAt(temp float64) (float64, float64) {
 	if temp == thermo.StandardTemperature && t.Gibbs.Measured {
 		return t.Gibbs.Value, t.Gibbs.Uncertainty
@@ -96,8 +102,30 @@ func (t Thermo) GibbsAt(temp float64) (float64, float64) {
 	if !t.FormationEntropy.Known() || !t.Formation.Known() {
 		return math.NaN(), math.NaN()
 	}
-	g := t.Formation.Value - temp*t.FormationEntropy.Value/1000
-	return g, math.Hypot(t.Formation.Uncertainty, temp*t.FormationEntropy.Uncertainty/1000)
+	r := gibbs.Reaction{Enthalpy: t.Formation.Value, EnthalpyUncertainty: t.Formation.Uncertainty,
+		Entropy: t.FormationEntropy.Value, EntropyUncertainty: t.FormationEntropy.Uncertainty, HeatCapacity: t.FormationHeatCapacity}
+	return r.Gibbs(temp, gibbs.StandardPressure)
+}
+
+// formationHeatCapacity returns the polynomials of t's formation reaction
+// from its elements' standard states, nil when one species lacks them.
+func (a *Analyst) formationHeatCapacity(t *Thermo) []gibbs.Species {
+	if t.HeatCapacity == nil {
+		return nil
+	}
+	f, err := notation.ParseFormula(t.Formula)
+	if err != nil {
+		return nil
+	}
+	out := []gibbs.Species{{Coefficient: t.HeatCapacity.Moles, Chain: t.HeatCapacity.Chain}}
+	for el, n := range f.Composition() {
+		hc := a.elementHeatCapacity(el, n)
+		if hc == nil {
+			return nil
+		}
+		out = append(out, gibbs.Species{Coefficient: -hc.Moles, Chain: hc.Chain})
+	}
+	return out
 }
 
 // elementsEntropy returns ΣS°(elements) of formula per mole (J/(mol·K)) with
@@ -119,8 +147,10 @@ func (a *Analyst) elementsEntropy(formula string) (float64, float64, bool) {
 	return s, math.Sqrt(u2), true
 }
 
-// complete fills FormationEntropy and Gibbs from what t has.
+// complete fills FormationEntropy, Gibbs and FormationHeatCapacity from
+// what t has.
 func (a *Analyst) complete(t *Thermo) {
+	t.FormationHeatCapacity = a.formationHeatCapacity(t)
 	el, elu, ok := a.elementsEntropy(t.Formula)
 	switch {
 	case t.Entropy.Known() && ok:

@@ -23,6 +23,9 @@ type command struct {
 	summary  string   // one line, in the command list and atop its help
 	about    string   // more about it, in its help only; may be ""
 	run      func(env Env, args []string) error
+	// terminal marks a command that draws on the terminal itself: it gets
+	// the process's own streams, unwrapped, to see that they are one.
+	terminal bool
 }
 
 // Interactive holds the commands that start the workshop: they live with
@@ -45,13 +48,13 @@ func commandTable(in Interactive) []command {
 	table := []command{
 		{name: "open", aliases: []string{"tui"}, synopsis: WorkshopSynopsis,
 			summary: "the interactive workshop, optionally on a compound's cycle or a cycle file (no command: on the shelf)",
-			run:     interactive(in.Workshop)},
+			run:     interactive(in.Workshop), terminal: true},
 		{name: "serve", synopsis: ServeSynopsis,
 			summary: "serve the workshop over SSH",
 			about: "Every user connects with ssh -t and a public key, and works in a folder of their own under\n" +
 				"the state directory, named after the key. Without --authorized-keys any key is let in, and\n" +
 				"only loopback addresses may be served.",
-			run: interactive(in.Serve)},
+			run: interactive(in.Serve), terminal: true},
 		{name: "madelung", synopsis: madelungSynopsis, about: madelungAbout, run: runMadelung,
 			summary: "Madelung constant, Ewald energy and site potentials of a structure"},
 		{name: "data", synopsis: dataSynopsis, run: runData,

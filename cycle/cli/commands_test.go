@@ -236,3 +236,23 @@ func TestReadmeNamesEveryCommand(t *testing.T) {
 		}
 	}
 }
+
+// TestTerminalCommandsGetTheStreams: the workshop is handed the process's
+// own streams, not a wrapper, so that it can see they are a terminal (the
+// wrapper once made "enthalpath" refuse to start in a real terminal).
+func TestTerminalCommandsGetTheStreams(t *testing.T) {
+	var out, errs strings.Builder
+	in := strings.NewReader("")
+	env := Env{Stdout: &out, Stderr: &errs, Stdin: in}
+	var got Env
+	stub := func(e Env, _ []string) error { got = e; return nil }
+	for _, args := range [][]string{nil, {"open"}, {"serve"}} {
+		got = Env{}
+		if code := Main(env, args, Interactive{Workshop: stub, Serve: stub}); code != ExitOK {
+			t.Errorf("%q: exit %d", args, code)
+		}
+		if got.Stdout != env.Stdout || got.Stderr != env.Stderr || got.Stdin != env.Stdin {
+			t.Errorf("%q: the command got other streams than the process's", args)
+		}
+	}
+}

@@ -8,9 +8,10 @@ import (
 const completionSynopsis = "completion bash|zsh|fish"
 
 // runCompletion prints a shell completion script. It is generated from the
-// command table; the flags of a command are read at completion time from
-// the command's own --help (the one list of its flags), so the script
-// never drifts from the program it completes.
+// command table and the global flags; the flags of a command are read at
+// completion time from "enthalpath help COMMAND" (the one list of its
+// flags, the global ones included), so the script never drifts from the
+// program it completes.
 func runCompletion(env Env, args []string) error {
 	fs := NewFlagSet("completion")
 	pos, help, err := ParseFlags(fs, args)

@@ -53,7 +53,9 @@ func dispatch(env Env, table []command, name string, args []string) (code ExitCo
 		}
 	}()
 	out := &checkedWriter{w: env.Stdout}
-	env.Stdout = out
+	if !c.terminal {
+		env.Stdout = out
+	}
 	err := c.run(env, args)
 	var help *helpRequest
 	if errors.As(err, &help) {

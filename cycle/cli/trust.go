@@ -83,8 +83,11 @@ func writeTrust(w io.Writer, v *cycle.Validation, list bool) {
 		_, basis := v.Thresholds(m.Model)
 		fmt.Fprintf(w, "%-13s verdict %s\n", m.Model, wrapText(basis, 96, strings.Repeat(" ", 14)))
 	}
-	fmt.Fprintf(w, "\nA compound's verdict is read against the extended model where it can be evaluated; else against the model\n")
-	fmt.Fprintf(w, "with the smallest RMS over the compound's family (at least 5 compounds), else over the alkali halides.\n")
+	fmt.Fprintf(w, "\nA compound's verdict is read against the extended model where it can be evaluated. Else, for the\n")
+	fams := cycle.ValidatingFamilies()
+	fmt.Fprintf(w, "%s and %s: the model with the smallest RMS over the compound's family (at least 5\n", strings.Join(fams[:len(fams)-1], ", "), fams[len(fams)-1])
+	fmt.Fprintf(w, "compounds); for the other families, whose covalency is the question: the model with the smallest RMS\n")
+	fmt.Fprintf(w, "over the alkali halides.\n")
 	fmt.Fprintf(w, "A model's σ for an estimate is its RMS over the compound's family (at least 5 compounds), else over the alkali halides.\n")
 	fmt.Fprintf(w, "\nnot evaluated (cycle closes, model cannot be evaluated):")
 	for _, m := range v.Models {

@@ -81,3 +81,58 @@ func TestCycleShowsExtendedBreakdown(t *testing.T) {
 		}
 	}
 }
+
+// The extended model's terms in cycle --json add up to the lattice step it
+// reports (its own consistency: the terms are the model), in both lattice
+// conventions, and say where the heat content came from; the U convention
+// carries Jenkins' step back to U as a term of its own.
+func TestCycleJSONExtendedTermsAddUp(t *testing.T) {
+	for _, conv := range []string{"enthalpy", "energy"} {
+		out, errOut, code := run(t, "cycle", "NaCl", "--json", "--lattice-as", conv)
+		if code != ExitOK {
+			t.Fatalf("exit %d: %s", code, errOut)
+		}
+		var doc struct {
+			Models []struct {
+				Model    string `json:"model"`
+				Extended *struct {
+					Least struct {
+						Terms []struct {
+							Name string  `json:"term"`
+							KJ   float64 `json:"kj_per_mol"`
+						} `json:"terms"`
+						Total float64 `json:"lattice_step_kj_per_mol"`
+					} `json:"least_energy"`
+					HeatFrom string `json:"heat_content_from"`
+				} `json:"extended"`
+			} `json:"models"`
+		}
+		if err := json.Unmarshal([]byte(out), &doc); err != nil {
+			t.Fatal(err)
+		}
+		found := false
+		for _, m := range doc.Models {
+			if m.Model != cycle.ModelExtended || m.Extended == nil {
+				continue
+			}
+			found = true
+			sum, jenkins := 0.0, false
+			for _, term := range m.Extended.Least.Terms {
+				sum += term.KJ
+				jenkins = jenkins || strings.Contains(term.Name, "Jenkins")
+			}
+			if d := sum - m.Extended.Least.Total; d > 1e-6 || d < -1e-6 {
+				t.Errorf("%s: terms sum to %.6f, the lattice step is %.6f", conv, sum, m.Extended.Least.Total)
+			}
+			if jenkins != (conv == "energy") {
+				t.Errorf("%s: Jenkins' step among the terms: %v", conv, jenkins)
+			}
+			if !strings.Contains(m.Extended.HeatFrom, "Debye") {
+				t.Errorf("%s: heat content from %q", conv, m.Extended.HeatFrom)
+			}
+		}
+		if !found {
+			t.Errorf("%s: no extended model in cycle NaCl --json", conv)
+		}
+	}
+}

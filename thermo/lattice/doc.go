@@ -85,10 +85,13 @@
 // summed over the pairs of the real structure (thermo/crystal.PairSums) with
 // every distance scaled from its shape, minimised in d; the repulsion
 // tabulated (B_ij = c_ij·b·exp((σ_i+σ_j)/ρ), Pauling's factors c_ij) or
-// fitted so the energy is least at a reference distance; C by
+// fitted so the free energy at 298.15 K of the quasi-harmonic Debye solid
+// is least at a reference distance measured at that temperature; C by
 // Slater–Kirkwood (J. C. Slater and J. G. Kirkwood, Phys. Rev. 37, 682
 // (1931)) where no table gives it; E_zp = (9/8)·ν·R·θ_D with θ_D given or
-// estimated from the model's own bulk modulus.
+// estimated from the model's own bulk modulus. The lattice enthalpy at T
+// is U + 3νRT·D₃(θ_D/T) − ν·(5/2)RT (DebyeHeatContent; P. Debye, Ann. Phys.
+// 344, 789 (1912)), not Jenkins' classical rule.
 //
 // # Inverses
 //

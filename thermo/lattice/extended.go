@@ -21,9 +21,11 @@ import (
 // M. P. Tosi, J. Phys. Chem. Solids 25, 31 (1964)). The repulsion is either
 // tabulated (Tosi–Fumi: B_ij = c_ij·b·exp((σ_i+σ_j)/ρ), c_ij Pauling's
 // factor) or fitted: one prefactor on the cation–anion pairs chosen so that
-// the static energy is stationary at the reference distance. The energy is
-// minimised in d at fixed shape; the zero-point energy is added at the
-// distance it is reported for.
+// the quasi-harmonic free energy at the Thermal temperature (the static
+// energy without one) is least at the reference distance. A tabulated
+// repulsion's energy is minimised in d at fixed shape; the zero-point
+// energy is added at the distance it is reported for, and the lattice
+// enthalpy at T adds the solid's heat content less the gaseous ions'.
 
 // Dispersion sums run over pairs out to ExtendedCutoff times the nearest
 // cation–anion distance, and a continuum tail completes them.
@@ -41,7 +43,9 @@ type Repulsion struct {
 	// φ = B·exp(−r/ρ); ignored when Fitted.
 	Prefactor [3]float64
 	// Fitted: one prefactor on the cation–anion pairs, chosen so that the
-	// static energy is stationary at the reference distance D0.
+	// free energy at the Thermal temperature is least at the reference
+	// distance D0 (the static energy without a temperature, or when the
+	// quasi-harmonic fit fails; ExtendedResult.RepulsionFit says which).
 	Fitted bool
 }
 
@@ -126,8 +130,9 @@ func (t ExtendedTerms) Enthalpy() float64 { return t.Total() + t.ThermalStep() }
 type ExtendedResult struct {
 	Minimum, AtD0 ExtendedTerms
 	// FittedPrefactor is the cation–anion B (kJ/mol) when the repulsion was
-	// fitted.
+	// fitted, and RepulsionFit the condition it was fitted to.
 	FittedPrefactor float64
+	RepulsionFit    string
 	// ZeroPointFrom says how θ_D was obtained, HeatContentFrom how the
 	// solid's heat content was.
 	ZeroPointFrom, HeatContentFrom string
@@ -141,6 +146,7 @@ type extendedCurve struct {
 	rho   float64
 	d0    float64
 	reps  []repShell // repulsive shells
+	scale float64    // factor on every repulsive prefactor (the thermal fit)
 	input *ExtendedInput
 }
 
@@ -158,7 +164,7 @@ func (c *extendedCurve) energy(s float64) (t ExtendedTerms, d1, d2 float64) {
 	d1 += -t.Coulomb / (s * d0)
 	d2 += 2 * t.Coulomb / (s * s * d0 * d0)
 	for _, r := range c.reps {
-		e := r.b * math.Exp(-s*r.r/c.rho)
+		e := c.scale * r.b * math.Exp(-s*r.r/c.rho)
 		t.Repulsion += e
 		k := r.r / (c.rho * d0) // d/dd of the exponent
 		d1 -= k * e
@@ -194,7 +200,7 @@ func Extended(in ExtendedInput) (ExtendedResult, error) {
 	if in.Ions <= 0 {
 		return res, paramErr(fn, "Ions", float64(in.Ions), ErrNotPositive, "give the number of ions per formula unit")
 	}
-	c := &extendedCurve{rho: in.Repulsion.Rho, d0: in.D0, input: &in,
+	c := &extendedCurve{rho: in.Repulsion.Rho, d0: in.D0, input: &in, scale: 1,
 		coul: -thermo.CoulombKJPerMolAngstrom * in.Madelung * float64(abs(in.ZCation)*abs(in.ZAnion)) / in.D0}
 	for k := range 3 {
 		if in.C6[k] < 0 || in.C8[k] < 0 {
@@ -229,6 +235,16 @@ func Extended(in ExtendedInput) (ExtendedResult, error) {
 		}
 		if len(c.reps) == 0 {
 			return res, paramErr(fn, "Prefactor", 0, ErrNotPositive, "give the repulsion prefactors (kJ/mol)")
+		}
+	}
+	if in.Repulsion.Fitted {
+		res.RepulsionFit = "static energy is least at the reference distance"
+		if in.Thermal.Temperature > 0 {
+			if f, ok := c.thermalFit(); ok {
+				c.scale = f
+				res.FittedPrefactor *= f
+				res.RepulsionFit = fmt.Sprintf("free energy at %g K is least at the reference distance (quasi-harmonic Debye solid: static energy + (9/8)·νRθ_D + νRT·[3·ln(1 − e^(−θ_D/T)) − D₃(θ_D/T)], θ_D(d) from the curvature)", in.Thermal.Temperature)
+			}
 		}
 	}
 	s := 1.0 // a fitted repulsion is least at D0 by construction
@@ -290,9 +306,10 @@ func (c *extendedCurve) zeroPointFrom() string {
 	return "E_zp = (9/8)·ν·R·θ_D with θ_D from the model's curvature: bulk modulus B = d²·U''/(9·V), θ_D = (ħ/k)·√(B/ρ)·(6π²n)^⅓ (bulk sound speed for the Debye mean: common practice, no source)"
 }
 
-// withZeroPoint returns the terms at s with the zero-point energy.
-func (c *extendedCurve) withZeroPoint(s float64) ExtendedTerms {
-	t, _, d2 := c.energy(s)
+// debye returns θ_D at s (K; 0 when it cannot be had) and the bulk
+// modulus there (GPa), from the tabulated θ_D or the static curvature.
+func (c *extendedCurve) debye(s float64) (theta, bulkGPa float64) {
+	_, _, d2 := c.energy(s)
 	in := c.input
 	d := s * c.d0
 	vol := in.VolumePerFormulaUnit * s * s * s // Å³
@@ -300,14 +317,26 @@ func (c *extendedCurve) withZeroPoint(s float64) ExtendedTerms {
 	perFU := d2 * 1000 / thermo.Avogadro / (thermo.MetrePerAngstrom * thermo.MetrePerAngstrom) // J/m² per formula unit
 	v := vol / (d * d * d)
 	bulk := perFU / (9 * v * d * thermo.MetrePerAngstrom) // Pa
-	t.BulkModulus = bulk / 1e9
-	theta := in.ZeroPoint.DebyeTemperature
+	theta = in.ZeroPoint.DebyeTemperature
 	if !(theta > 0) && bulk > 0 && in.ZeroPoint.MolarMass > 0 {
 		volM3 := vol * 1e-30
 		density := in.ZeroPoint.MolarMass / 1000 / thermo.Avogadro / volM3 // kg/m³
 		n := float64(in.Ions) / volM3
 		theta = thermo.ReducedPlanck / thermo.Boltzmann * math.Sqrt(bulk/density) * math.Cbrt(6*math.Pi*math.Pi*n)
 	}
+	if !(theta > 0) {
+		theta = 0
+	}
+	return theta, bulk / 1e9
+}
+
+// withZeroPoint returns the terms at s with the zero-point energy and the
+// heat contents.
+func (c *extendedCurve) withZeroPoint(s float64) ExtendedTerms {
+	t, _, _ := c.energy(s)
+	in := c.input
+	theta, bulk := c.debye(s)
+	t.BulkModulus = bulk
 	if theta > 0 {
 		t.DebyeTemperature = theta
 		t.ZP = 9.0 / 8 * float64(in.Ions) * thermo.GasConstant * theta / 1000
@@ -325,6 +354,59 @@ func (c *extendedCurve) withZeroPoint(s float64) ExtendedTerms {
 		}
 	}
 	return t
+}
+
+// freeEnergy returns the Helmholtz energy per formula unit at s and the
+// Thermal temperature T of the quasi-harmonic Debye solid, kJ/mol:
+//
+//	F = U_static + (9/8)·νRθ_D + νRT·[3·ln(1 − e^(−θ_D/T)) − D₃(θ_D/T)]
+//
+// with θ_D(s) from the curvature (NaN without one).
+func (c *extendedCurve) freeEnergy(s float64) float64 {
+	t, _, _ := c.energy(s)
+	theta, _ := c.debye(s)
+	temp := c.input.Thermal.Temperature
+	if !(theta > 0) || !(temp > 0) {
+		return math.NaN()
+	}
+	x := theta / temp
+	nu := float64(c.input.Ions)
+	vib := 9.0/8*nu*thermo.GasConstant*theta/1000 + nu*thermo.RT(temp)*(3*math.Log(-math.Expm1(-x))-DebyeFunction(x))
+	return t.Static() + vib
+}
+
+// thermalFit returns the factor on the statically fitted repulsion that
+// makes the free energy at the Thermal temperature, not the static energy,
+// least at the reference distance: a distance measured at room temperature
+// is where the thermal pressure of the lattice vibrations balances the
+// static forces (the quasi-harmonic Debye–Grüneisen picture), so the
+// static minimum lies inside it. The secant method on dF/dd at D0, from
+// the static fit (factor 1); false when it does not converge or leaves
+// (0.2, 1.5).
+func (c *extendedCurve) thermalFit() (float64, bool) {
+	const h = 1e-5
+	slope := func(f float64) float64 {
+		c.scale = f
+		defer func() { c.scale = 1 }()
+		return (c.freeEnergy(1+h) - c.freeEnergy(1-h)) / (2 * h * c.d0)
+	}
+	f0, f1 := 1.0, 0.95
+	g0, g1 := slope(f0), slope(f1)
+	for range 40 {
+		if math.IsNaN(g0) || math.IsNaN(g1) || g1 == g0 {
+			return 1, false
+		}
+		f2 := f1 - g1*(f1-f0)/(g1-g0)
+		if !(f2 > 0.2 && f2 < 1.5) {
+			return 1, false
+		}
+		if math.Abs(f2-f1) < 1e-10 {
+			return f2, true
+		}
+		f0, g0 = f1, g1
+		f1, g1 = f2, slope(f2)
+	}
+	return 1, false
 }
 
 func (c *extendedCurve) heatContentFrom() string {

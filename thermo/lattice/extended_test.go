@@ -3,6 +3,7 @@ package lattice
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 
 	"enthalpath/thermo"
@@ -191,5 +192,48 @@ func BenchmarkExtendedNaClCold(b *testing.B) {
 		if _, err := Extended(in); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// TestExtendedThermalFit: a repulsion fitted at a room-temperature
+// distance puts the free energy's minimum there, so the static minimum of
+// the same curve lies inside it, by about the thermal expansion from 0 K
+// (NaCl's nearest distance grows by about 1 % from 0 to 298 K: common
+// knowledge of its thermal expansion, α ≈ 4e-5 /K at room temperature,
+// from memory; the quasi-harmonic Debye solid with θ_D from the curvature
+// overstates it, so 0.3–2.5 % is allowed). Without a temperature the fit
+// puts the static minimum at the reference distance.
+func TestExtendedThermalFit(t *testing.T) {
+	in := naclInput(t)
+	in.Repulsion = Repulsion{Rho: 0.317, Fitted: true}
+	static, err := Extended(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	in.Thermal.Temperature = 298.15
+	thermal, err := Extended(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(thermal.RepulsionFit, "free energy") || !strings.Contains(static.RepulsionFit, "static energy") {
+		t.Fatalf("fit conditions %q and %q", static.RepulsionFit, thermal.RepulsionFit)
+	}
+	if !(thermal.FittedPrefactor < static.FittedPrefactor) {
+		t.Errorf("thermal fit B = %g not below the static fit's %g (the static forces must pull inwards at D0)", thermal.FittedPrefactor, static.FittedPrefactor)
+	}
+	twin := in
+	twin.Thermal = Thermal{}
+	twin.Repulsion = Repulsion{Rho: 0.317, Prefactor: [3]float64{0, thermal.FittedPrefactor, 0}}
+	r, err := Extended(twin)
+	if err != nil {
+		t.Fatal(err)
+	}
+	shrink := (in.D0 - r.Minimum.D) / in.D0
+	if !(shrink > 0.003 && shrink < 0.025) {
+		t.Errorf("static minimum %.4f Å, %.2f %% inside the reference %.4f Å", r.Minimum.D, 100*shrink, in.D0)
+	}
+	// Binding grows as the static curve deepens: U at D0 more negative.
+	if !(thermal.AtD0.Static() < static.AtD0.Static()) {
+		t.Errorf("static energy at D0: thermal fit %.2f, static fit %.2f", thermal.AtD0.Static(), static.AtD0.Static())
 	}
 }

@@ -15,8 +15,14 @@ import (
 	"enthalpath/tui/session"
 )
 
-// minDrawing is the least height the drawing is shown in under the list.
-const minDrawing = 8
+// minDrawing is the least height the drawing is shown in under the list;
+// below roomyDrawing the list's legend gives its line to the drawing and
+// goes into the drawing's caption (our own choice: at 80×24 NaCl's drawing
+// gets 10 rows instead of 9).
+const (
+	minDrawing   = 8
+	roomyDrawing = 12
+)
 
 // View renders the bench.
 func (m *Model) View() string {
@@ -37,12 +43,16 @@ func (m *Model) View() string {
 	case m.showSource:
 		parts = append(parts, m.sourceView(rest))
 	case m.drawing:
-		parts = append(parts, m.drawingView(rest))
-	case rest-(m.rowCount()+2) >= minDrawing:
+		parts = append(parts, m.drawingView(rest, false))
+	case rest-(m.rowCount()+1) >= minDrawing:
 		listH := m.rowCount() + 2
-		parts = append(parts, m.listView(listH), m.drawingView(rest-listH))
+		legendBelow := rest-listH >= roomyDrawing
+		if !legendBelow {
+			listH-- // the legend goes into the drawing's caption
+		}
+		parts = append(parts, m.listView(listH, legendBelow), m.drawingView(rest-listH, !legendBelow))
 	default:
-		parts = append(parts, m.listView(rest))
+		parts = append(parts, m.listView(rest, true))
 	}
 	return strings.Join(append(top, parts...), "\n")
 }
@@ -61,7 +71,7 @@ func (m *Model) titleLine() string {
 		name += " · " + s
 	}
 	conv := c.Conventions.Lattice.Symbol() + ", ionization at " + c.Conventions.Ionization.String()
-	return st.Title.Render(screen.Truncate(name, m.w-len([]rune(conv))-3)) + "   " + st.Muted.Render(conv)
+	return st.Title.Render(screen.Truncate(name, m.w-ansi.StringWidth(conv)-3)) + "   " + st.Muted.Render(conv)
 }
 
 func (m *Model) solvedLine() string {
@@ -76,7 +86,7 @@ func (m *Model) solvedLine() string {
 		r, u := cycle.Residual(m.sess.Cycle)
 		line := fmt.Sprintf("closure residual %s %s", m.ctx.SignedPM(r, u), m.ctx.Units)
 		return st.Warn.Render("over-determined: ") + st.Accent.Render(line) +
-			st.Muted.Render(screen.Truncate(" (Σ of the steps − ΔfH°) · x on a step solves for it", max(0, m.w-len([]rune(line))-17)))
+			st.Muted.Render(screen.Truncate(" (Σ of the steps − ΔfH°) · x on a step solves for it", max(0, m.w-ansi.StringWidth(line)-17)))
 	}
 	if m.sess.SolveErr != nil {
 		return st.Error.Render("not solved: ") + st.Text.Render(explainShort(m.sess.SolveErr, m.w-12))
@@ -85,14 +95,14 @@ func (m *Model) solvedLine() string {
 	s := res.Solved
 	line := fmt.Sprintf("%s = %s %s", s.Key, m.ctx.SignedPM(s.Value, s.Uncertainty), m.ctx.Units)
 	extra := ""
-	room := max(0, m.w-len([]rune(line))-10)
+	room := max(0, m.w-ansi.StringWidth(line)-10)
 	if s.Kind == cycle.KindLattice {
 		extra = fmt.Sprintf(" · ΔH_L %s · U %s", m.ctx.Signed(res.Lattice.Enthalpy), m.ctx.Signed(res.Lattice.Energy))
 	} else {
 		// The lattice value first; the step's name (in the list and the
 		// source box too) only when it fits whole.
 		extra = fmt.Sprintf(" · lattice ΔH_L %s", m.ctx.Signed(res.Lattice.Enthalpy))
-		if more := " · " + s.Label; len([]rune(extra+more)) <= room {
+		if more := " · " + s.Label; ansi.StringWidth(extra+more) <= room {
 			extra += more
 		}
 	}
@@ -109,7 +119,9 @@ const (
 	colUnc   = 8
 )
 
-func (m *Model) listView(h int) string {
+// listView draws the step list in h rows, its legend on the last when
+// legend is set.
+func (m *Model) listView(h int, legend bool) string {
 	st := m.ctx.Styles
 	steps := m.steps()
 	if h < 3 {
@@ -117,7 +129,7 @@ func (m *Model) listView(h int) string {
 	}
 	colReaction := 12
 	for i := range steps {
-		n := len([]rune(steps[i].Reaction)) + 1
+		n := ansi.StringWidth(steps[i].Reaction) + 1
 		if steps[i].Parent != "" {
 			n += 2
 		}
@@ -141,7 +153,10 @@ func (m *Model) listView(h int) string {
 			order = append(order, -1)
 		}
 	}
-	rows := h - 2
+	rows := h - 1
+	if legend {
+		rows--
+	}
 	if at < m.top {
 		m.top = at
 	}
@@ -192,8 +207,32 @@ func (m *Model) listView(h int) string {
 		}
 		lines = append(lines, text)
 	}
-	lines = append(lines, st.Muted.Render(screen.Truncate(diagram.SolvedMark+" the unknown (solved)  ! no value in the data  * your value  └ sub-step", m.w)))
+	if legend {
+		lines = append(lines, st.Muted.Render(screen.Truncate(diagram.SolvedMark+" the unknown (solved)  ! no value in the data  * your value  └ sub-step", m.w)))
+	}
 	return strings.Join(lines, "\n")
+}
+
+// marksShown is the legend of the marks the step list shows now, for the
+// drawing's caption: "∴ the unknown (solved) · └ sub-step".
+func (m *Model) marksShown() string {
+	var solved, missing, user, sub bool
+	for _, s := range m.steps() {
+		solved = solved || s.Unknown || s.Source.Kind == cycle.SourceSolved
+		missing = missing || (!s.Unknown && s.Source.Kind == cycle.SourceMissing)
+		user = user || s.Source.Kind == cycle.SourceUser
+		sub = sub || s.Parent != ""
+	}
+	var out []string
+	for _, mk := range []struct {
+		on   bool
+		text string
+	}{{solved, diagram.SolvedMark + " the unknown (solved)"}, {missing, "! no value in the data"}, {user, "* your value"}, {sub, "└ sub-step"}} {
+		if mk.on {
+			out = append(out, mk.text)
+		}
+	}
+	return strings.Join(out, " · ")
 }
 
 // showCorrection reports whether the lattice step is shown as U, which
@@ -246,19 +285,26 @@ func sourceText(s *cycle.Step) string {
 	return t
 }
 
-func (m *Model) drawingView(h int) string {
+// drawingView draws the cycle to scale in h rows under its caption, which
+// carries the step list's legend when legend is set.
+func (m *Model) drawingView(h int, legend bool) string {
 	st := m.ctx.Styles
 	if h < 6 {
 		return st.Muted.Render("(no room for the drawing; press v, or enlarge the window)")
 	}
 	d := hessdiagram.Build(m.sess.Cycle.Formula, m.steps(), hessdiagram.ForCycle(m.sess.Cycle, hessdiagram.Options{Units: m.ctx.Units, Limit: -1, Solved: m.sess.Solved() != nil}))
-	note := " · " + m.ctx.Units.String() + " per formula unit · " + diagram.SolvedMark + " marks the solved step · d exports SVG"
+	head := " · " + m.ctx.Units.String() + " per formula unit"
 	if lat, ok := latticeOf(m.steps(), m.sess.Solved() != nil); ok && m.showCorrection() {
 		// The drawing closes by Hess's law over ΔH_L: its lattice arrow is
 		// ΔH_L, the table's U plus the correction row.
 		corr := -m.sess.Cycle.LatticeCorrection()
-		note = fmt.Sprintf(" · lattice arrow ΔH_L %s = U %s %s · d exports SVG", m.ctx.Signed(lat.Value+corr), m.ctx.Signed(lat.Value), m.ctx.Signed(corr))
+		head = fmt.Sprintf(" · lattice arrow ΔH_L %s = U %s %s", m.ctx.Signed(lat.Value+corr), m.ctx.Signed(lat.Value), m.ctx.Signed(corr))
 	}
+	marks := diagram.SolvedMark + " marks the solved step"
+	if shown := m.marksShown(); legend && shown != "" {
+		marks = shown
+	}
+	note := head + " · " + marks + " · d exports SVG"
 	title := st.Title.Render("Drawn to scale") + st.Muted.Render(screen.Truncate(note, m.w-14))
 	return title + "\n" + d.Render(m.w, h-1, m.diagramStyles())
 }

@@ -2,7 +2,9 @@ package session
 
 import (
 	"errors"
+	"os"
 	"path/filepath"
+	"strings"
 
 	tea "github.com/charmbracelet/bubbletea"
 
@@ -10,6 +12,19 @@ import (
 	"enthalpath/data"
 	"enthalpath/tui/screen"
 )
+
+// Request reads what is named to open at the start: a cycle file (a name
+// with the cycle file extension or a folder in it, or a regular file that
+// is there), else a formula.
+func Request(in string) screen.OpenMsg {
+	if strings.HasSuffix(in, cycle.FileExtension) || strings.ContainsRune(in, '/') {
+		return screen.OpenMsg{File: in}
+	}
+	if st, err := os.Stat(in); err == nil && st.Mode().IsRegular() {
+		return screen.OpenMsg{File: in}
+	}
+	return screen.OpenMsg{Formula: in}
+}
 
 // LoadedMsg is the answer of Load: the cycle asked for, the file it was
 // read from ("" when built from the data), whether it is to be assembled

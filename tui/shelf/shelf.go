@@ -104,7 +104,7 @@ func (m *Model) Capturing() bool { return m.input.Value() != "" }
 // SetSize sets the body size.
 func (m *Model) SetSize(w, h int) {
 	m.w, m.h = w, h
-	m.input.Width = max(10, w-len([]rune(m.input.Prompt))-2)
+	m.input.Width = max(10, w-lipgloss.Width(m.input.Prompt)-2)
 	m.clampScroll()
 }
 

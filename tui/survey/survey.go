@@ -11,6 +11,7 @@ import (
 	"github.com/charmbracelet/bubbles/textinput"
 	tea "github.com/charmbracelet/bubbletea"
 	"github.com/charmbracelet/lipgloss"
+	"github.com/charmbracelet/x/ansi"
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
@@ -374,7 +375,7 @@ func (m *Model) table(h int) []string {
 			if verdictW >= len("no cycle") {
 				verdict = "no cycle"
 			}
-			if full := "no cycle: " + session.Message(r.Err); len([]rune(full)) <= verdictW {
+			if full := "no cycle: " + session.Message(r.Err); ansi.StringWidth(full) <= verdictW {
 				verdict = full
 			}
 		case !math.IsNaN(r.Models[m.model]):
