@@ -104,7 +104,9 @@ func (b *builder) value(r record, field, uncField, srcField, memName, unit strin
 	if err != nil || !ok {
 		return Value{}, false, err
 	}
-	v = Value{V: x, Unit: unit, Note: r.str("note"), Locator: r.str("locator")}
+	v = Value{V: x, Unit: unit}
+	v.Note, _ = r.sharedStr(noteColumn, "note")
+	v.Locator, _ = r.sharedStr(locatorColumn, "locator")
 	if uncField != "" {
 		u, ok, err := r.float(uncField)
 		if err != nil {
@@ -136,7 +138,7 @@ func (b *builder) value(r record, field, uncField, srcField, memName, unit strin
 	if v.Memory, err = r.memoryOf(memName); err != nil {
 		return Value{}, false, err
 	}
-	if _, has := r.get("derived"); has {
+	if _, has := r.sharedStr(derivedColumn, "derived"); has {
 		if v.Derived, err = r.flag("derived"); err != nil {
 			return Value{}, false, err
 		}

@@ -24,6 +24,42 @@ type record struct {
 	lines map[string]int
 	// trimmed is set when every cell is already free of surrounding space.
 	trimmed bool
+	// shared holds the indexes of the columns every value of a row reads
+	// (note, locator, memory, derived), found once per CSV table; nil for
+	// overlay records, whose columns differ from record to record.
+	shared *sharedColumns
+}
+
+// sharedColumns are the indexes of a table's row-wide columns, -1 where the
+// table has none: Load reads them for every value, and a lookup by name for
+// each costs a fifth of it.
+type sharedColumns struct{ note, locator, memory, derived int }
+
+func newSharedColumns(cols map[string]int) *sharedColumns {
+	at := func(name string) int {
+		if i, ok := cols[name]; ok {
+			return i
+		}
+		return -1
+	}
+	return &sharedColumns{note: at("note"), locator: at("locator"), memory: at("memory"), derived: at("derived")}
+}
+
+// sharedStr returns the cell of a row-wide column by its index in shared,
+// or by name for a record without shared columns.
+func (r record) sharedStr(i func(*sharedColumns) int, field string) (string, bool) {
+	if r.shared == nil {
+		v, has := r.get(field)
+		return strings.TrimSpace(v), has
+	}
+	k := i(r.shared)
+	if k < 0 {
+		return "", false
+	}
+	if k >= len(r.cells) {
+		return "", true
+	}
+	return r.cells[k], true
 }
 
 // get returns the raw cell of field and whether the row has that column.
@@ -131,14 +167,14 @@ func (r record) flag(field string) (bool, error) {
 // memory cell is "yes" (all values of the row) or a ";"-separated list of
 // value names.
 func (r record) memoryOf(name string) (bool, error) {
-	s := r.str("memory")
-	switch strings.ToLower(s) {
-	case "", "no", "false":
+	s, _ := r.sharedStr(memoryColumn, "memory")
+	switch {
+	case s == "" || strings.EqualFold(s, "no") || strings.EqualFold(s, "false"):
 		return false, nil
-	case "yes", "true":
+	case strings.EqualFold(s, "yes") || strings.EqualFold(s, "true"):
 		return true, nil
 	}
-	for _, part := range strings.Split(s, ";") {
+	for part := range strings.SplitSeq(s, ";") { // no slice: Load reads every value's memory cell
 		if strings.TrimSpace(part) == name {
 			return true, nil
 		}
@@ -182,6 +218,7 @@ func eachCSV(file string, rd io.Reader, known []string, fn func(record) error) e
 			return &TableError{File: file, Line: 1, Field: header[i], Err: fmt.Errorf("unknown column (known: %s)", strings.Join(known, ", "))}
 		}
 	}
+	shared := newSharedColumns(cols)
 	for {
 		row, err := cr.Read()
 		if errors.Is(err, io.EOF) {
@@ -200,7 +237,7 @@ func eachCSV(file string, rd io.Reader, known []string, fn func(record) error) e
 		for i, c := range row {
 			row[i] = strings.TrimSpace(c)
 		}
-		if err := fn(record{file: file, line: line, cols: cols, cells: row, trimmed: true}); err != nil {
+		if err := fn(record{file: file, line: line, cols: cols, cells: row, trimmed: true, shared: shared}); err != nil {
 			return err
 		}
 	}
@@ -222,3 +259,8 @@ func contains(list []string, s string) bool {
 	}
 	return false
 }
+
+func noteColumn(c *sharedColumns) int    { return c.note }
+func locatorColumn(c *sharedColumns) int { return c.locator }
+func memoryColumn(c *sharedColumns) int  { return c.memory }
+func derivedColumn(c *sharedColumns) int { return c.derived }
