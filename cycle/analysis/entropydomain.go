@@ -40,13 +40,36 @@ func (d EntropyDomain) String() string {
 	}
 }
 
-// entropyDomain judges the compound of c against the volume line's domain.
+// entropyDomain judges the compound of c against the volume line's domain,
+// evaluating the extended model on it.
 func entropyDomain(c *cycle.Cycle) EntropyDomain {
 	if c == nil {
 		return EntropyDomain{}
 	}
 	m, err := cycle.EvaluateModel(c, cycle.ModelExtended)
-	if err != nil || m.Inputs.Extended == nil {
+	if err != nil {
+		return EntropyDomain{}
+	}
+	return domainOf(&m, c.Cation.Count+c.Anion.Count)
+}
+
+// resultDomain judges a solved cycle from the extended model it already
+// evaluated (no new evaluation).
+func resultDomain(r *cycle.Result, ions int) EntropyDomain {
+	if r == nil {
+		return EntropyDomain{}
+	}
+	m, ok := r.Model(cycle.ModelExtended)
+	if !ok || m.Err != nil {
+		return EntropyDomain{}
+	}
+	return domainOf(m, ions)
+}
+
+// domainOf reads θ_D from the extended model's result m of a compound of
+// ions ions per formula unit.
+func domainOf(m *cycle.ModelResult, ions int) EntropyDomain {
+	if m.Inputs.Extended == nil {
 		return EntropyDomain{}
 	}
 	theta := m.Inputs.Extended.Minimum.DebyeTemperature
@@ -54,8 +77,6 @@ func entropyDomain(c *cycle.Cycle) EntropyDomain {
 	if !ok {
 		return EntropyDomain{}
 	}
-	d := EntropyDomain{Judged: true, Inside: in, DebyeTemperature: theta}
-	d.Ions = c.Cation.Count + c.Anion.Count
-	d.DebyeEntropy = entropy.DebyeEntropy(theta, thermo.StandardTemperature, d.Ions)
-	return d
+	return EntropyDomain{Judged: true, Inside: in, DebyeTemperature: theta, Ions: ions,
+		DebyeEntropy: entropy.DebyeEntropy(theta, thermo.StandardTemperature, ions)}
 }
