@@ -16,8 +16,9 @@ type EntropyDomain struct {
 	// Judged is false when no θ_D could be had (the extended model does
 	// not run on the compound): then the domain is not known.
 	Judged, Inside bool
-	// DebyeTemperature in K (0 when not judged).
+	// DebyeTemperature in K (0 when not judged); DebyeFrom says whence.
 	DebyeTemperature float64
+	DebyeFrom        string
 	// DebyeEntropy is the Debye lattice entropy at θ_D (J/(mol·K)) of the
 	// formula unit's ions, each a vibrating unit (a polyatomic ion's
 	// internal modes left out), the estimate offered outside the domain; 0
@@ -34,49 +35,73 @@ func (d EntropyDomain) String() string {
 	case !d.Judged:
 		return "domain not judged (no θ_D)"
 	case d.Inside:
-		return fmt.Sprintf("inside the line's domain (θ_D %.0f K ≤ %.0f K)", d.DebyeTemperature, limit)
+		return fmt.Sprintf("inside the line's domain (θ_D %.0f K ≤ %.0f K, %s)", d.DebyeTemperature, limit, d.DebyeFrom)
 	default:
-		return fmt.Sprintf("OUTSIDE the line's domain (θ_D %.0f K > %.0f K: vibrations partly frozen at 298 K, the line overestimates); Debye lattice entropy %.0f J/(mol·K) over %d ions", d.DebyeTemperature, limit, d.DebyeEntropy, d.Ions)
+		return fmt.Sprintf("OUTSIDE the line's domain (θ_D %.0f K > %.0f K, %s: vibrations partly frozen at 298 K, the line overestimates); Debye lattice entropy %.0f J/(mol·K) over %d ions", d.DebyeTemperature, limit, d.DebyeFrom, d.DebyeEntropy, d.Ions)
 	}
 }
 
-// entropyDomain judges the compound of c against the volume line's domain,
-// evaluating the extended model on it.
+// Whence θ_D comes, for EntropyDomain.DebyeFrom.
+const (
+	debyeFromExtended = "θ_D from the extended model's curvature"
+	debyeFromVolume   = "θ_D from the Born–Mayer curvature of the volume-based lattice energy"
+)
+
+// entropyDomain judges the compound of c against the volume line's domain:
+// θ_D from the extended model where it runs on c, else from the volume
+// model's lattice energy and V_m (entropy.DebyeTemperatureFromVolume).
 func entropyDomain(c *cycle.Cycle) EntropyDomain {
 	if c == nil {
 		return EntropyDomain{}
 	}
-	m, err := cycle.EvaluateModel(c, cycle.ModelExtended)
+	ions := c.Cation.Count + c.Anion.Count
+	if m, err := cycle.EvaluateModel(c, cycle.ModelExtended); err == nil {
+		if d := domainOf(extendedTheta(&m), debyeFromExtended, ions); d.Judged {
+			return d
+		}
+	}
+	m, err := cycle.EvaluateModel(c, cycle.ModelVolume)
 	if err != nil {
 		return EntropyDomain{}
 	}
-	return domainOf(&m, c.Cation.Count+c.Anion.Count)
+	return domainOf(volumeTheta(&m, c.MolarMass, ions), debyeFromVolume, ions)
 }
 
-// resultDomain judges a solved cycle from the extended model it already
-// evaluated (no new evaluation).
-func resultDomain(r *cycle.Result, ions int) EntropyDomain {
+// resultDomain judges a solved cycle from the models it already evaluated
+// (no new evaluation), as entropyDomain does.
+func resultDomain(r *cycle.Result, molarMass float64, ions int) EntropyDomain {
 	if r == nil {
 		return EntropyDomain{}
 	}
-	m, ok := r.Model(cycle.ModelExtended)
-	if !ok || m.Err != nil {
-		return EntropyDomain{}
+	if m, ok := r.Model(cycle.ModelExtended); ok && m.Err == nil {
+		if d := domainOf(extendedTheta(m), debyeFromExtended, ions); d.Judged {
+			return d
+		}
 	}
-	return domainOf(m, ions)
+	if m, ok := r.Model(cycle.ModelVolume); ok && m.Err == nil {
+		return domainOf(volumeTheta(m, molarMass, ions), debyeFromVolume, ions)
+	}
+	return EntropyDomain{}
 }
 
-// domainOf reads θ_D from the extended model's result m of a compound of
-// ions ions per formula unit.
-func domainOf(m *cycle.ModelResult, ions int) EntropyDomain {
+func extendedTheta(m *cycle.ModelResult) float64 {
 	if m.Inputs.Extended == nil {
-		return EntropyDomain{}
+		return 0
 	}
-	theta := m.Inputs.Extended.Minimum.DebyeTemperature
+	return m.Inputs.Extended.Minimum.DebyeTemperature
+}
+
+func volumeTheta(m *cycle.ModelResult, molarMass float64, ions int) float64 {
+	return entropy.DebyeTemperatureFromVolume(m.Energy, m.Inputs.MolarVolume, molarMass, ions)
+}
+
+// domainOf judges θ_D (K; 0 when none) of a compound of ions ions per
+// formula unit.
+func domainOf(theta float64, from string, ions int) EntropyDomain {
 	in, ok := entropy.InVolumeDomain(theta, thermo.StandardTemperature)
 	if !ok {
 		return EntropyDomain{}
 	}
-	return EntropyDomain{Judged: true, Inside: in, DebyeTemperature: theta, Ions: ions,
+	return EntropyDomain{Judged: true, Inside: in, DebyeTemperature: theta, DebyeFrom: from, Ions: ions,
 		DebyeEntropy: entropy.DebyeEntropy(theta, thermo.StandardTemperature, ions)}
 }

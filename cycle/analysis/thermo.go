@@ -231,7 +231,7 @@ func (a *Analyst) estimatedThermo(est *Estimate, c *cycle.Cycle) Thermo {
 	t := Thermo{Formula: est.Formula, State: "cr",
 		Formation: Quantity{Value: est.Value, Uncertainty: est.Uncertainty, Basis: "estimate (" + est.Model + " lattice step)"}}
 	t.Volume = a.formulaVolume(est, c)
-	d := resultDomain(est.Result, est.Cation.Count+est.Anion.Count)
+	d := resultDomain(est.Result, molarMassOf(c), est.Cation.Count+est.Anion.Count)
 	t.Entropy, t.EntropyDomain = volumeEntropy(t.Volume, d), &d
 	a.complete(&t)
 	return t
@@ -251,6 +251,13 @@ func volumeEntropy(v Quantity, d EntropyDomain) Quantity {
 	line := entropy.LineFor(entropy.Salt)
 	return Quantity{Value: s, Uncertainty: math.Hypot(EntropyRelativeUncertainty*s, line.K*v.Uncertainty),
 		Basis: fmt.Sprintf("volume-based estimate, %g·V_m + %g (%s), V_m %.4f nm³ from %s; %s", line.K, line.C, line.Citation, v.Value, v.Basis, d)}
+}
+
+func molarMassOf(c *cycle.Cycle) float64 {
+	if c == nil {
+		return 0
+	}
+	return c.MolarMass
 }
 
 // formulaVolume returns V_m (nm³) of the estimated compound (radii as the
