@@ -53,7 +53,7 @@ func entropyErrorsByDomain(t *testing.T) (map[string]float64, []string, map[stri
 		}
 		rel[cp.Formula] = (s - st.Entropy.V) / st.Entropy.V
 		names = append(names, cp.Formula)
-		d := entropyDomain(c)
+		d := entropyDomain(c, v.Value)
 		salts[cp.Formula] = entropySalt{domain: d, debyeRel: (d.DebyeEntropy - st.Entropy.V) / st.Entropy.V}
 	}
 	if len(rel) < 100 {

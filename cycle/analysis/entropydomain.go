@@ -49,8 +49,10 @@ const (
 
 // entropyDomain judges the compound of c against the volume line's domain:
 // θ_D from the extended model where it runs on c, else from the volume
-// model's lattice energy and V_m (entropy.DebyeTemperatureFromVolume).
-func entropyDomain(c *cycle.Cycle) EntropyDomain {
+// model's lattice energy and V_m (entropy.DebyeTemperatureFromVolume), else,
+// for a compound with no volume of its own, from Kapustinskii's lattice
+// energy and the volume vm (nm³) the entropy estimate used.
+func entropyDomain(c *cycle.Cycle, vm float64) EntropyDomain {
 	if c == nil {
 		return EntropyDomain{}
 	}
@@ -60,28 +62,30 @@ func entropyDomain(c *cycle.Cycle) EntropyDomain {
 			return d
 		}
 	}
-	m, err := cycle.EvaluateModel(c, cycle.ModelVolume)
-	if err != nil {
-		return EntropyDomain{}
+	if m, err := cycle.EvaluateModel(c, cycle.ModelVolume); err == nil {
+		return domainOf(entropy.DebyeTemperatureFromVolume(m.Energy, m.Inputs.MolarVolume, c.MolarMass, ions), debyeFromVolume, ions)
 	}
-	return domainOf(volumeTheta(&m, c.MolarMass, ions), debyeFromVolume, ions)
-}
-
-// resultDomain judges a solved cycle from the models it already evaluated
-// (no new evaluation), as entropyDomain does.
-func resultDomain(r *cycle.Result, molarMass float64, ions int) EntropyDomain {
-	if r == nil {
-		return EntropyDomain{}
-	}
-	if m, ok := r.Model(cycle.ModelExtended); ok && m.Err == nil {
-		if d := domainOf(extendedTheta(m), debyeFromExtended, ions); d.Judged {
-			return d
-		}
-	}
-	if m, ok := r.Model(cycle.ModelVolume); ok && m.Err == nil {
-		return domainOf(volumeTheta(m, molarMass, ions), debyeFromVolume, ions)
+	if m, err := cycle.EvaluateModel(c, cycle.ModelKapustinskii); err == nil {
+		return domainOf(entropy.DebyeTemperatureFromVolume(m.Energy, vm, c.MolarMass, ions), "θ_D from the Born–Mayer curvature of the kapustinskii lattice energy", ions)
 	}
 	return EntropyDomain{}
+}
+
+// estimateDomain judges an estimated compound from what its estimate
+// already has (no new model evaluation): the extended model's θ_D when the
+// solved cycle evaluated it, else θ_D from the estimate's own lattice
+// energy, formula-unit volume vm (nm³) and molar mass.
+func estimateDomain(est *Estimate, vm, molarMass float64) EntropyDomain {
+	ions := est.Cation.Count + est.Anion.Count
+	if est.Result != nil {
+		if m, ok := est.Result.Model(cycle.ModelExtended); ok && m.Err == nil {
+			if d := domainOf(extendedTheta(m), debyeFromExtended, ions); d.Judged {
+				return d
+			}
+		}
+	}
+	theta := entropy.DebyeTemperatureFromVolume(est.LatticeEnergy, vm, molarMass, ions)
+	return domainOf(theta, fmt.Sprintf("θ_D from the Born–Mayer curvature of the %s lattice energy", est.Model), ions)
 }
 
 func extendedTheta(m *cycle.ModelResult) float64 {
@@ -89,10 +93,6 @@ func extendedTheta(m *cycle.ModelResult) float64 {
 		return 0
 	}
 	return m.Inputs.Extended.Minimum.DebyeTemperature
-}
-
-func volumeTheta(m *cycle.ModelResult, molarMass float64, ions int) float64 {
-	return entropy.DebyeTemperatureFromVolume(m.Energy, m.Inputs.MolarVolume, molarMass, ions)
 }
 
 // domainOf judges θ_D (K; 0 when none) of a compound of ions ions per

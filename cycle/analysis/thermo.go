@@ -194,7 +194,7 @@ func (a *Analyst) knownThermo(formula string) (Thermo, bool) {
 			rc, _ := a.ionRadius(c.Cation.Ion)
 			ra, _ := a.ionRadius(c.Anion.Ion)
 			t.Volume = a.volume(c, c.Cation.Count, rc.Value, c.Anion.Count, ra.Value)
-			d := entropyDomain(c)
+			d := entropyDomain(c, t.Volume.Value)
 			t.Entropy, t.EntropyDomain = volumeEntropy(t.Volume, d), &d
 		}
 	}
@@ -237,7 +237,7 @@ func (a *Analyst) estimatedThermo(est *Estimate, c *cycle.Cycle) Thermo {
 	t := Thermo{Formula: est.Formula, State: "cr",
 		Formation: Quantity{Value: est.Value, Uncertainty: est.Uncertainty, Basis: "estimate (" + est.Model + " lattice step)"}}
 	t.Volume = a.formulaVolume(est, c)
-	d := resultDomain(est.Result, molarMassOf(c), est.Cation.Count+est.Anion.Count)
+	d := estimateDomain(est, t.Volume.Value, molarMassOf(c))
 	t.Entropy, t.EntropyDomain = volumeEntropy(t.Volume, d), &d
 	a.complete(&t)
 	return t
