@@ -52,3 +52,28 @@ func TestStabilityView(t *testing.T) {
 		}
 	}
 }
+
+// The stability view says when the compound's volume-based S° lies outside
+// the line's domain: MgO₂ as an ionic estimate is a light, stiff lattice
+// (θ_D far above 2·298 K, as MgO's calorimetric 946 K is; from memory).
+func TestStabilityViewEntropyDomain(t *testing.T) {
+	_, m, u := setup(t)
+	i := kindIndex(t, "stability")
+	for range i {
+		drive.Run(u, drive.Key("j"))
+	}
+	drive.Run(u, drive.Key("e"), drive.Key("ctrl+u"))
+	drive.Run(u, drive.Text("MgO2 298")...)
+	drive.Run(u, drive.Key("enter"))
+	res, err := m.Result(i)
+	if err != nil {
+		t.Fatal(err)
+	}
+	st := res.(*analysis.Stability)
+	if d := st.Compound.EntropyDomain; d == nil || !d.Judged || d.Inside {
+		t.Fatalf("MgO2's domain %+v", d)
+	}
+	if v := m.View(); !strings.Contains(v, "S°: OUTSIDE the line's domain") {
+		t.Errorf("view does not say the domain:\n%s", v)
+	}
+}
