@@ -48,7 +48,8 @@ const (
 )
 
 // entropyDomain judges the compound of c against the volume line's domain:
-// θ_D from the extended model where it runs on c, else from the volume
+// θ_D from the extended model where it runs on the compound's own
+// structure from the data, else from the volume
 // model's lattice energy and V_m (entropy.DebyeTemperatureFromVolume), else,
 // for a compound with no volume of its own, from Kapustinskii's lattice
 // energy and the volume vm (nm³) the entropy estimate used.
@@ -57,9 +58,11 @@ func entropyDomain(c *cycle.Cycle, vm float64) EntropyDomain {
 		return EntropyDomain{}
 	}
 	ions := c.Cation.Count + c.Anion.Count
-	if m, err := cycle.EvaluateModel(c, cycle.ModelExtended); err == nil {
-		if d := domainOf(extendedTheta(&m), debyeFromExtended, ions); d.Judged {
-			return d
+	if c.Settings.Structure.FromData { // the extended model sums the compound's own structure only
+		if m, err := cycle.EvaluateModel(c, cycle.ModelExtended); err == nil {
+			if d := domainOf(extendedTheta(&m), debyeFromExtended, ions); d.Judged {
+				return d
+			}
 		}
 	}
 	if m, err := cycle.EvaluateModel(c, cycle.ModelVolume); err == nil {
