@@ -21,9 +21,12 @@ import (
 // calibrationFamilyAll is the family of a model's row over every family.
 const calibrationFamilyAll = "all"
 
-// calibrationDigits is the decimals of the percentages in the table: 1e-4
-// percentage points, far below the tenth the σ and thresholds are quoted to.
-const calibrationDigits = 4
+// calibrationDigits is the decimals of the percentages in the table: 1e-6
+// percentage points, so that the σ and thresholds, quoted to a tenth or a
+// hundredth, read as a live validation's short of a chance in 10⁴ per value
+// of the last digit falling on the other side, and far above the Ewald
+// sums' 1e-8 and the last bits a platform may round differently.
+const calibrationDigits = 6
 
 // WriteCalibration writes v as the calibration table: per model, a row per
 // family and one over all of them, with the σ a compound of the family

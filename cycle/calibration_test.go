@@ -11,7 +11,7 @@ import (
 // TestBuiltinCalibrationStandsForTheLiveValidation: a solve over the
 // built-in data reads its σ, thresholds and verdict model from the table
 // (cycle/calibgen), and they are those of a live validation of the same
-// data to the table's rounding (1e-4 percentage points per statistic).
+// data to the table's rounding (1e-6 percentage points per statistic).
 // The byte-for-byte check of the table is cycle/calibgen's test; this one
 // checks that what the engine rebuilds from the table reads the same.
 func TestBuiltinCalibrationStandsForTheLiveValidation(t *testing.T) {
