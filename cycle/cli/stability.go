@@ -235,12 +235,32 @@ type thermoJSON struct {
 	FormationEntJK *quantityJSON `json:"formation_entropy_j_per_mol_k"`
 	VolumeNM3      *quantityJSON `json:"formula_unit_volume_nm3,omitempty"`
 	AdditiveJK     *quantityJSON `json:"additive_entropy_j_per_mol_k,omitempty"`
+	// EntropyDomain is set when the entropy is the volume-based estimate.
+	EntropyDomain *entropyDomainJSON `json:"volume_entropy_domain,omitempty"`
+}
+
+// entropyDomainJSON is the volume line's domain verdict (analysis.EntropyDomain).
+type entropyDomainJSON struct {
+	Judged       bool       `json:"judged"`
+	Inside       bool       `json:"inside"`
+	DebyeK       jsonNumber `json:"debye_temperature_k,omitempty"`
+	DebyeEntropy jsonNumber `json:"debye_lattice_entropy_j_per_mol_k,omitempty"`
+	Verdict      string     `json:"verdict"`
 }
 
 func thermoJSONOf(t analysis.Thermo) *thermoJSON {
 	return &thermoJSON{Formula: t.Formula, Name: t.Name, State: t.State, Known: t.Known, Molecular: t.Molecular,
 		FormationKJ: quantityJSONOf(t.Formation), EntropyJK: quantityJSONOf(t.Entropy), GibbsKJ: quantityJSONOf(t.Gibbs),
-		FormationEntJK: quantityJSONOf(t.FormationEntropy), VolumeNM3: quantityJSONOf(t.Volume), AdditiveJK: quantityJSONOf(t.AdditiveEntropy)}
+		FormationEntJK: quantityJSONOf(t.FormationEntropy), VolumeNM3: quantityJSONOf(t.Volume), AdditiveJK: quantityJSONOf(t.AdditiveEntropy),
+		EntropyDomain: entropyDomainJSONOf(t.EntropyDomain)}
+}
+
+func entropyDomainJSONOf(d *analysis.EntropyDomain) *entropyDomainJSON {
+	if d == nil {
+		return nil
+	}
+	return &entropyDomainJSON{Judged: d.Judged, Inside: d.Inside, DebyeK: jsonNumber(d.DebyeTemperature),
+		DebyeEntropy: jsonNumber(d.DebyeEntropy), Verdict: d.String()}
 }
 
 type pointJSON struct {
