@@ -3,8 +3,9 @@ package cycle
 import "enthalpath/data"
 
 // coreMass returns the molar mass of an ion core ("Na", "SO4") in g/mol
-// from the data's standard atomic weights (atomic_weights.csv, IUPAC 2021
-// conventional values), or 0 when an element has none. The mass serves
+// from the data's standard atomic weights (atomic_weights.csv, CIAAW
+// values, conventional where the weight is an interval), or 0 when an
+// element has none. The mass serves
 // only the molar volume V_m = M/(ρ·N_A) of the volume-based model, whose
 // own uncertainty is percent-level.
 func coreMass(db *data.DB, core string) float64 {

@@ -94,7 +94,7 @@ func LoadFS(fsys fs.FS) (*DB, error) {
 			return nil, &TableError{File: t.file, Err: err}
 		}
 		b.reserve(t.file, bytes.Count(raw, []byte{'\n'}))
-		err = eachCSV(t.file, bytes.NewReader(raw), tableColumns[t.file], func(r record) error { return b.apply(t.file, r) })
+		err = eachCSVText(t.file, string(raw), tableColumns[t.file], func(r record) error { return b.apply(t.file, r) })
 		if err != nil {
 			return nil, err
 		}

@@ -2,10 +2,13 @@ package data
 
 import (
 	"bytes"
+	"encoding/csv"
 	"errors"
 	"fmt"
 	"maps"
+	"math"
 	"slices"
+	"strconv"
 	"strings"
 	"sync"
 )
@@ -39,7 +42,6 @@ type HeatCapacityInterval struct {
 // indexes the rows by species; a species' numbers are read when it is asked
 // for (most runs ask for a handful of the 778).
 type HeatCapacityTable struct {
-	header  []string
 	species map[string][]heatCapacityRow
 }
 
@@ -63,23 +65,13 @@ func (t *HeatCapacityTable) Species(key string) ([]HeatCapacityInterval, bool, e
 	if !ok {
 		return nil, false, nil
 	}
-	var text strings.Builder
-	text.WriteString(strings.Join(t.header, ",") + "\n")
+	out := make([]HeatCapacityInterval, 0, len(rows))
 	for _, r := range rows {
-		text.WriteString(r.text + "\n")
-	}
-	var out []HeatCapacityInterval
-	err := eachCSV(heatCapacityFile, strings.NewReader(text.String()), heatCapacityColumns, func(r record) error {
 		iv, err := readHeatCapacityRow(r, out)
 		if err != nil {
-			err.Line = rows[len(out)].line
-			return err
+			return nil, false, err
 		}
 		out = append(out, iv)
-		return nil
-	})
-	if err != nil {
-		return nil, false, err
 	}
 	return out, true, nil
 }
@@ -103,6 +95,7 @@ func loadHeatCapacities() (*HeatCapacityTable, error) {
 		return nil, &TableError{File: heatCapacityFile, Err: err}
 	}
 	t := &HeatCapacityTable{species: map[string][]heatCapacityRow{}}
+	header := false
 	for i := 0; len(raw) > 0; i++ {
 		end := bytes.IndexByte(raw, '\n')
 		if end < 0 {
@@ -114,9 +107,9 @@ func loadHeatCapacities() (*HeatCapacityTable, error) {
 			continue
 		}
 		line := string(b)
-		if t.header == nil {
-			t.header = strings.Split(line, ",")
-			if !slices.Equal(t.header, heatCapacityColumns) {
+		if !header {
+			header = true
+			if !slices.Equal(strings.Split(line, ","), heatCapacityColumns) {
 				return nil, &TableError{File: heatCapacityFile, Line: i + 1, Err: fmt.Errorf("columns %q, want %q", line, strings.Join(heatCapacityColumns, ","))}
 			}
 			continue
@@ -127,39 +120,42 @@ func loadHeatCapacities() (*HeatCapacityTable, error) {
 		}
 		t.species[key] = append(t.species[key], heatCapacityRow{line: i + 1, text: line})
 	}
-	if t.header == nil {
+	if !header {
 		return nil, &TableError{File: heatCapacityFile, Err: errors.New("empty table: no header row")}
 	}
 	return t, nil
 }
 
-// readHeatCapacityRow reads one interval; prev are the species' intervals
+// readHeatCapacityRow reads one interval from its row; prev are the species' intervals
 // read before it, which it must continue.
-func readHeatCapacityRow(r record, prev []HeatCapacityInterval) (HeatCapacityInterval, *TableError) {
-	iv := HeatCapacityInterval{Record: r.str("record"), Source: r.str("source"), Locator: r.str("locator")}
-	fields := map[string]*float64{"t_low": &iv.TLow, "t_high": &iv.THigh, "b1": &iv.B1, "b2": &iv.B2, "formation_j_per_mol": &iv.Formation}
-	for k := range iv.A {
-		fields[fmt.Sprintf("a%d", k+1)] = &iv.A[k]
+func readHeatCapacityRow(r heatCapacityRow, prev []HeatCapacityInterval) (HeatCapacityInterval, error) {
+	fail := func(field string, format string, args ...any) error {
+		return &TableError{File: heatCapacityFile, Line: r.line, Field: field, Err: fmt.Errorf(format, args...)}
 	}
-	for _, name := range heatCapacityColumns {
-		dst, ok := fields[name]
-		if !ok {
-			continue
+	cells := strings.Split(r.text, ",")
+	if strings.Contains(r.text, `"`) { // a quoted field: a record name with a comma
+		var err error
+		if cells, err = csv.NewReader(strings.NewReader(r.text)).Read(); err != nil {
+			return HeatCapacityInterval{}, fail("", "%v", err)
 		}
-		v, present, err := r.float(name)
-		if err != nil {
-			return iv, r.errorf(name, "%v", err)
+	}
+	if len(cells) != len(heatCapacityColumns) {
+		return HeatCapacityInterval{}, fail("", "%d fields, want %d", len(cells), len(heatCapacityColumns))
+	}
+	iv := HeatCapacityInterval{Record: cells[1], Source: cells[14], Locator: cells[15]}
+	dst := []*float64{&iv.TLow, &iv.THigh, &iv.A[0], &iv.A[1], &iv.A[2], &iv.A[3], &iv.A[4], &iv.A[5], &iv.A[6], &iv.B1, &iv.B2, &iv.Formation}
+	for k, d := range dst {
+		v, err := strconv.ParseFloat(cells[2+k], 64)
+		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
+			return iv, fail(heatCapacityColumns[2+k], "%q is not a finite number", cells[2+k])
 		}
-		if !present {
-			return iv, r.errorf(name, "a polynomial needs every coefficient and both bounds")
-		}
-		*dst = v
+		*d = v
 	}
 	if len(prev) > 0 && prev[len(prev)-1].THigh != iv.TLow {
-		return iv, r.errorf("t_low", "interval starts at %g K, not where the previous one ends (%g K)", iv.TLow, prev[len(prev)-1].THigh)
+		return iv, fail("t_low", "interval starts at %g K, not where the previous one ends (%g K)", iv.TLow, prev[len(prev)-1].THigh)
 	}
 	if !(iv.THigh > iv.TLow) {
-		return iv, r.errorf("t_high", "interval %g–%g K is empty", iv.TLow, iv.THigh)
+		return iv, fail("t_high", "interval %g–%g K is empty", iv.TLow, iv.THigh)
 	}
 	return iv, nil
 }

@@ -202,6 +202,26 @@ func eachCSV(file string, rd io.Reader, known []string, fn func(record) error) e
 	cr.Comment = '#'
 	cr.FieldsPerRecord = -1
 	cr.ReuseRecord = true
+	return eachRow(file, csvRows{cr}, known, fn)
+}
+
+// eachCSVText is eachCSV over a text in memory: its cells are substrings of
+// text (csvText), unless text holds a carriage return, which encoding/csv
+// handles.
+func eachCSVText(file, text string, known []string, fn func(record) error) error {
+	if strings.IndexByte(text, '\r') >= 0 {
+		return eachCSV(file, strings.NewReader(text), known, fn)
+	}
+	return eachRow(file, &csvText{s: text, line: 1}, known, fn)
+}
+
+// rowSource is a reader of CSV records: encoding/csv's or csvText.
+type rowSource interface {
+	Read() ([]string, error)
+	recordLine() int
+}
+
+func eachRow(file string, cr rowSource, known []string, fn func(record) error) error {
 	header, err := cr.Read()
 	if err != nil {
 		if errors.Is(err, io.EOF) {
@@ -227,7 +247,7 @@ func eachCSV(file string, rd io.Reader, known []string, fn func(record) error) e
 		if err != nil {
 			return csvError(file, err)
 		}
-		line, _ := cr.FieldPos(0)
+		line := cr.recordLine()
 		if len(row) > len(header) {
 			return &TableError{File: file, Line: line, Err: fmt.Errorf("%d cells but the header has %d", len(row), len(header))}
 		}

@@ -6,13 +6,13 @@
 // New returns the root model: it owns the shared context, the session's
 // cycle and the screens (shelf, bench, assembly, models, survey, analyses,
 // each in its own package), routes messages and composes the views of the
-// chrome, whose components live in packages of their own: header (tabs,
-// compound, unit), status (the status line), keyhelp (the help line and the
-// key list), unsaved (the question before work is lost), filedialog (the
-// save and open prompts), recovery (the recovery files), and nav (the
-// shared keys). The logic of each screen lives in its package. The same
-// model serves a local terminal and an SSH session: every style is built
-// from Options.Renderer.
+// chrome, whose components live in packages of their own: frame (the
+// window's rows and overlays), header (tabs, compound, unit), status (the
+// status line), keyhelp (the help line and the key list), unsaved (the
+// question before work is lost), filedialog (the save and open prompts),
+// recovery (the recovery files), and nav (the shared keys). The logic of
+// each screen lives in its package. The same model serves a local
+// terminal and an SSH session: every style is built from Options.Renderer.
 //
 // # Shape
 //

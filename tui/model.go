@@ -1,13 +1,11 @@
 package tui
 
 import (
-	"fmt"
 	"slices"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
-	"github.com/charmbracelet/lipgloss"
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
@@ -15,6 +13,7 @@ import (
 	"enthalpath/tui/assembly"
 	"enthalpath/tui/bench"
 	"enthalpath/tui/filedialog"
+	"enthalpath/tui/frame"
 	"enthalpath/tui/header"
 	"enthalpath/tui/keyhelp"
 	"enthalpath/tui/modelpanel"
@@ -62,8 +61,7 @@ type Model struct {
 	files    filedialog.Folder // where file names are read
 	keeper   recovery.Keeper   // writes the recovery files
 	memo     *cycle.Memo       // one Ewald memo for every cycle this session opens
-	width    int
-	height   int
+	win      frame.Window      // the terminal's size
 	showHelp bool
 	quitting bool
 	// recovered is the recovery file written, for the last frame; kept
@@ -97,7 +95,7 @@ func New(opts Options) tea.Model {
 		screen.Survey:   survey.New(m.ctx),
 		screen.Analyses: analyses.New(m.ctx, m.sess),
 	}
-	m.width, m.height = opts.Width, opts.Height
+	m.win = frame.Window{Width: opts.Width, Height: opts.Height, MinWidth: MinWidth, MinHeight: MinHeight}
 	m.layout()
 	return m
 }
@@ -136,7 +134,7 @@ func (m *Model) Update(msg tea.Msg) (model tea.Model, cmd tea.Cmd) {
 func (m *Model) update(msg tea.Msg) tea.Cmd {
 	switch msg := msg.(type) {
 	case tea.WindowSizeMsg:
-		m.width, m.height = msg.Width, msg.Height
+		m.win.Width, m.win.Height = msg.Width, msg.Height
 		m.layout()
 		return nil
 	case ShutdownMsg:
@@ -193,16 +191,16 @@ func (m *Model) key(k tea.KeyMsg) tea.Cmd {
 	m.answered()
 	switch {
 	case m.prompt.Active():
-		if m.tooSmall() && k.Type != tea.KeyEsc {
+		if m.win.TooSmall() && k.Type != tea.KeyEsc {
 			return nil // not drawn: only esc (cancel) acts
 		}
 		return m.prompt.Update(k)
 	case m.question.Active():
-		if m.tooSmall() && m.question.Small(m.width, m.height) == nil && !key.Matches(k, m.question.Keys.Back) {
+		if m.win.TooSmall() && m.question.Small(m.win.Width, m.win.Height) == nil && !key.Matches(k, m.question.Keys.Back) {
 			return nil // the question is not drawn: none of its answers acts
 		}
 		return m.answer(k)
-	case m.tooSmall():
+	case m.win.TooSmall():
 		if key.Matches(k, m.Keys.Quit, m.Keys.ForceQuit, m.question.Keys.Back) {
 			return m.quit()
 		}
@@ -272,80 +270,53 @@ func (m *Model) switchTo(id screen.ID) tea.Cmd {
 
 // layout hands every screen its body size.
 func (m *Model) layout() {
-	w, h := m.bodySize()
+	w, h := m.win.Body()
 	for _, s := range m.screens {
 		s.SetSize(w, h)
 	}
-	m.help.SetWidth(m.width)
+	m.help.SetWidth(m.win.Width)
 	m.prompt.SetWidth(min(w-6, 90))
-}
-
-func (m *Model) bodySize() (int, int) { return max(m.width, 1), max(m.height-3, 1) }
-
-func (m *Model) tooSmall() bool {
-	return m.width > 0 && m.height > 0 && (m.width < MinWidth || m.height < MinHeight)
 }
 
 // View draws the header, the body (screen, help, question or prompt), the
 // status line and the help line.
 func (m *Model) View() (out string) {
 	defer m.recoverAndRepanic()
+	st := m.ctx.Styles
 	switch {
 	case m.quitting && m.recovered != "":
 		return "Unsaved work kept in " + m.files.Name(m.recovered) + "\n"
 	case m.quitting:
 		return ""
-	case m.width == 0 || m.height == 0:
+	case !m.win.Known():
 		return "starting…"
-	case m.tooSmall():
-		return m.smallView()
+	case m.win.TooSmall() && m.question.Active():
+		return m.win.Small(st, m.question.SmallView(st, m.win.Width, m.win.Height))
+	case m.win.TooSmall() && m.prompt.Active():
+		return m.win.Small(st, st.Warn.Render("A file name is asked; enlarge the window to see it, or press esc to cancel."))
+	case m.win.TooSmall():
+		return m.win.Small(st, st.Warn.Render(m.win.TooSmallText(m.Keys.Quit.Help().Key)))
 	}
-	st := m.ctx.Styles
-	w, h := m.bodySize()
-	inner := max(20, m.width-6) // an overlay's border and padding take 4, the margin 2
 	var body string
 	switch {
 	case m.prompt.Active():
-		body = m.centre(m.prompt.View())
+		body = m.win.Overlay(st, m.prompt.View())
 	case m.question.Active():
-		body = m.centre(m.question.View(st, inner, m.files.Name(m.keeper.Next())))
+		body = m.win.Overlay(st, m.question.View(st, m.win.OverlayWidth(), m.files.Name(m.keeper.Next())))
 	case m.showHelp:
 		title := st.Title.Render("Keys on the "+m.screens[m.active].Title()+" screen, then everywhere") + st.Muted.Render(" (esc closes)")
-		body = m.centre(m.help.Overlay(title, m.FullHelp(), "While typing (Shelf, values, file names) letters are text: use tab, ctrl keys, f1, esc.", inner))
+		body = m.win.Overlay(st, m.help.Overlay(title, m.FullHelp(), "While typing (Shelf, values, file names) letters are text: use tab, ctrl keys, f1, esc.", m.win.OverlayWidth()))
 	default:
 		body = m.screens[m.active].View()
 	}
-	body = st.Renderer().NewStyle().Width(w).Height(h).MaxHeight(h).MaxWidth(w).Render(body)
-	titles := make([]string, len(m.screens))
-	for i, s := range m.screens {
-		titles[i] = s.Title()
+	top := header.Line{Active: int(m.active), Unit: m.ctx.Units.String()}
+	for _, s := range m.screens {
+		top.Titles = append(top.Titles, s.Title())
 	}
-	top := header.Line{Titles: titles, Active: int(m.active), Unit: m.ctx.Units.String()}
 	if c := m.sess.Cycle; c != nil {
 		top.Compound, top.Unsaved = c.Formula, m.sess.Dirty
 	}
 	idle := "enthalpath workshop — " + m.helpKeys() + " lists every key"
-	return lipgloss.JoinVertical(lipgloss.Left, top.View(st, m.width), body,
-		m.status.View(st, m.width, m.files.Shown, m.files.Name(m.sess.Path), idle), m.helpLine())
-}
-
-// centre places an overlay's content, boxed, in the middle of the body.
-func (m *Model) centre(content string) string {
-	w, h := m.bodySize()
-	st := m.ctx.Styles
-	return st.Renderer().Place(w, h, lipgloss.Center, lipgloss.Center, st.Overlay.Render(content))
-}
-
-func (m *Model) smallView() string {
-	st := m.ctx.Styles
-	box := st.Renderer().NewStyle().Width(m.width).MaxHeight(m.height)
-	switch {
-	case m.question.Active():
-		return box.Render(m.question.SmallView(st, m.width, m.height))
-	case m.prompt.Active():
-		return box.Render(st.Warn.Render("A file name is asked; enlarge the window to see it, or press esc to cancel."))
-	}
-	msg := fmt.Sprintf("The window is %d×%d; the workshop needs at least %d×%d.\nEnlarge the window, or press %s to quit.",
-		m.width, m.height, MinWidth, MinHeight, m.Keys.Quit.Help().Key)
-	return box.Render(st.Warn.Render(msg))
+	return m.win.Compose(st, top.View(st, m.win.Width), body,
+		m.status.View(st, m.win.Width, m.files.Shown, m.files.Name(m.sess.Path), idle), m.helpLine())
 }

@@ -76,7 +76,7 @@ func (r *Reaction) attachHeatCapacities() {
 				continue
 			}
 			with = append(with, hc.Key)
-			species = append(species, gibbs.Species{Coefficient: side.sign * tm.Coefficient * hc.Moles, Chain: hc.Chain})
+			species = append(species, gibbs.NewSpecies(side.sign*tm.Coefficient*hc.Moles, hc.Chain))
 		}
 	}
 	if len(without) > 0 {

@@ -117,13 +117,13 @@ func (a *Analyst) formationHeatCapacity(t *Thermo) []gibbs.Species {
 	if err != nil {
 		return nil
 	}
-	out := []gibbs.Species{{Coefficient: t.HeatCapacity.Moles, Chain: t.HeatCapacity.Chain}}
+	out := []gibbs.Species{gibbs.NewSpecies(t.HeatCapacity.Moles, t.HeatCapacity.Chain)}
 	for el, n := range f.Composition() {
 		hc := a.elementHeatCapacity(el, n)
 		if hc == nil {
 			return nil
 		}
-		out = append(out, gibbs.Species{Coefficient: -hc.Moles, Chain: hc.Chain})
+		out = append(out, gibbs.NewSpecies(-hc.Moles, hc.Chain))
 	}
 	return out
 }

@@ -28,7 +28,8 @@ func (s *system) primitive() (*system, bool) {
 		}
 		den = den / notation.GCD(den, d) * d
 	}
-	cols := [][3]int64{{den, 0, 0}, {0, den, 0}, {0, 0, den}}
+	cols := make([][3]int64, 3, 3+len(s.generators))
+	cols[0], cols[1], cols[2] = [3]int64{den, 0, 0}, [3]int64{0, den, 0}, [3]int64{0, 0, den}
 	for _, t := range s.generators {
 		var c [3]int64
 		for k := range t {
@@ -47,7 +48,7 @@ func (s *system) primitive() (*system, bool) {
 		}
 	}
 	lat = crystal.ReduceBasis(lat)
-	prim := &crystal.Crystal{Name: s.c.Name + " (primitive)", Lattice: lat, FormulaUnits: 1}
+	prim := &crystal.Crystal{Name: s.c.Name + " (primitive)", Lattice: lat, FormulaUnits: 1, Sites: make([]crystal.Site, 0, len(s.reps))}
 	if v := prim.Volume(); math.Abs(v*float64(s.g)-s.volume) > 1e-9*s.volume {
 		return nil, false
 	}

@@ -194,6 +194,12 @@ func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
 	})
 }
 
+// roundingShift is 1.5·2⁵²: for |x| < 2⁵¹, (x + roundingShift) −
+// roundingShift is x rounded to the nearest integer (ties to even) in two
+// additions, as float64 addition rounds at the unit place there. Go does
+// not reassociate floating-point arithmetic, so the two stay.
+const roundingShift = 0x1.8p52
+
 // listedImages is the smallest cell whose real-space images are found from
 // a sorted list of lattice translations (translationList); a smaller cell
 // has too few pairs to pay for the list, and each of its pairs searches the
@@ -318,9 +324,9 @@ func (s *system) imagesRow(i int, alpha, rc float64, tl *translationList, p *rea
 	for k := range frac {
 		fj := &frac[k]
 		d0, d1, d2 := fj[0]-fi[0], fj[1]-fi[1], fj[2]-fi[2]
-		d0 -= float64(int(d0+1.5) - 1)
-		d1 -= float64(int(d1+1.5) - 1)
-		d2 -= float64(int(d2+1.5) - 1)
+		d0 -= (d0 + roundingShift) - roundingShift
+		d1 -= (d1 + roundingShift) - roundingShift
+		d2 -= (d2 + roundingShift) - roundingShift
 		x := d0*a0[0] + d1*a1[0] + d2*a2[0]
 		y := d0*a0[1] + d1*a1[1] + d2*a2[1]
 		z := d0*a0[2] + d1*a1[2] + d2*a2[2]
@@ -367,22 +373,22 @@ func (s *system) imagesRow(i int, alpha, rc float64, tl *translationList, p *rea
 // minImageRow adds the real-space terms of the pairs (i, j > i) at their
 // one image within the cut-off (see realSpacePairs) to p.
 func (s *system) minImageRow(i int, alpha, rc2 float64, p *realPart) {
+	// |Σ dₖaₖ|² from the metric tensor gₖₗ = aₖ·aₗ of the (reduced) basis:
+	// 9 multiplications instead of 12.
 	a0, a1, a2 := s.lat[0], s.lat[1], s.lat[2]
+	g00, g11, g22 := a0.Dot(a0), a1.Dot(a1), a2.Dot(a2)
+	h01, h02, h12 := 2*a0.Dot(a1), 2*a0.Dot(a2), 2*a1.Dot(a2)
 	fi, qi := s.frac[i], s.q[i]
 	acc := 0.0
 	frac, q, phi := s.frac[i+1:], s.q[i+1:], p.phi[i+1:]
 	for k := range frac {
 		fj := &frac[k]
-		// Δf ∈ (−1, 1); subtracting the nearest integer, computed as
-		// trunc(Δf + 1.5) − 1 on a positive number.
+		// Δf ∈ (−1, 1); subtracting the nearest integer (roundingShift).
 		d0, d1, d2 := fj[0]-fi[0], fj[1]-fi[1], fj[2]-fi[2]
-		d0 -= float64(int(d0+1.5) - 1)
-		d1 -= float64(int(d1+1.5) - 1)
-		d2 -= float64(int(d2+1.5) - 1)
-		x := d0*a0[0] + d1*a1[0] + d2*a2[0]
-		y := d0*a0[1] + d1*a1[1] + d2*a2[1]
-		z := d0*a0[2] + d1*a1[2] + d2*a2[2]
-		r2 := x*x + y*y + z*z
+		d0 -= (d0 + roundingShift) - roundingShift
+		d1 -= (d1 + roundingShift) - roundingShift
+		d2 -= (d2 + roundingShift) - roundingShift
+		r2 := d0*(g00*d0+h01*d1+h02*d2) + d1*(g11*d1+h12*d2) + g22*d2*d2
 		if r2 >= rc2 {
 			continue
 		}

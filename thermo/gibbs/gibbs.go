@@ -30,7 +30,7 @@ type Reaction struct {
 // increments returns ΔrH(t) − ΔrH° (kJ/mol) and ΔrS(t) − ΔrS° (J/(mol·K)).
 func (r Reaction) increments(t float64) (dh, ds float64) {
 	for _, sp := range r.HeatCapacity {
-		h, s := sp.Chain.Increments(t)
+		h, s := sp.increments(t)
 		dh += sp.Coefficient * h
 		ds += sp.Coefficient * s
 	}
@@ -152,7 +152,7 @@ func (r Reaction) String() string {
 
 // crossingSamples is how many temperatures the search for a sign change of
 // ΔrG takes over the covered range before bisecting.
-const crossingSamples = 400
+const crossingSamples = 120
 
 // zeroWithHeatCapacity finds the lowest temperature within the range the
 // polynomials cover where ΔrG(T, p) changes sign, by sampling and

@@ -90,8 +90,26 @@ func (c Chain) Extrapolated(t float64) bool {
 }
 
 // Species is one species' chain with its signed coefficient in a
-// reaction (negative for a reactant).
+// reaction (negative for a reactant). NewSpecies also keeps the chain's
+// values at 298.15 K, which every increment is taken from.
 type Species struct {
 	Coefficient float64
 	Chain       Chain
+	based       bool
+	h0, s0      float64
+}
+
+// NewSpecies returns the species with its 298.15 K values kept.
+func NewSpecies(coefficient float64, chain Chain) Species {
+	h0, s0 := chain.state(thermo.StandardTemperature)
+	return Species{Coefficient: coefficient, Chain: chain, based: true, h0: h0, s0: s0}
+}
+
+// increments is Chain.Increments with the kept 298.15 K values.
+func (sp Species) increments(t float64) (dh, ds float64) {
+	if !sp.based {
+		return sp.Chain.Increments(t)
+	}
+	h, s := sp.Chain.state(t)
+	return (h - sp.h0) / 1000, s - sp.s0
 }

@@ -47,9 +47,12 @@ const maxDecimals = 4
 // unit, the value signed as Signed does: both to the decimal place of the
 // uncertainty rounded to two significant figures (thermo.UncertaintyDecimals,
 // the rule of GUM 7.2.6), at most maxDecimals; with no usable uncertainty
-// (zero) to the unit's usual decimals.
+// (zero) to the unit's usual decimals. An uncertainty that maxDecimals
+// would print as zero is bounded instead ("±<0.0001"): a nonzero
+// uncertainty is never shown as none.
 func (c *Context) Measured(kj, uncKJ float64) (value, unc string) {
-	d, ok := thermo.UncertaintyDecimals(math.Abs(thermo.FromKJPerMol(uncKJ, c.Units)))
+	u := math.Abs(thermo.FromKJPerMol(uncKJ, c.Units))
+	d, ok := thermo.UncertaintyDecimals(u)
 	if !ok {
 		d = decimals(c.Units)
 	}
@@ -58,7 +61,11 @@ func (c *Context) Measured(kj, uncKJ float64) (value, unc string) {
 	if kj > 0 && !strings.HasPrefix(value, "0") {
 		value = "+" + value
 	}
-	return value, "±" + formatEnergy(math.Abs(uncKJ), c.Units, d)
+	unc = "±" + formatEnergy(math.Abs(uncKJ), c.Units, d)
+	if ok && strings.Trim(unc, "±0.") == "" {
+		unc = "±<" + strconv.FormatFloat(math.Pow(10, -float64(d)), 'f', d, 64)
+	}
+	return value, unc
 }
 
 // SignedPM is Measured as one text: "+107.32 ±0.18".

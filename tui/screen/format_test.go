@@ -107,7 +107,8 @@ func TestParseValueKeepsTheUncertainty(t *testing.T) {
 // TestMeasuredFollowsTheUncertainty: a value and its uncertainty are
 // printed to the decimal place of the uncertainty rounded to two
 // significant figures (JCGM 100:2008, GUM, 7.2.6), at most four decimals
-// (the step list's columns: our own bound); with no uncertainty, the
+// (the step list's columns: our own bound), an uncertainty below that
+// shown as a bound ("±<0.0001", never as zero); with no uncertainty, the
 // unit's usual decimals. Inputs are NaCl's steps as the data give them
 // (Na ionization 495.845547 ± 0.000024 kJ/mol, NIST ASD; sublimation
 // 107.32 ± 0.18, NBS 1982); 1 eV = 96.485332… kJ/mol (CODATA 2018).
@@ -122,8 +123,10 @@ func TestMeasuredFollowsTheUncertainty(t *testing.T) {
 		{243.4, 2, thermo.KJPerMol, "+243.4", "±2.0"},
 		{-787.44, 14.2, thermo.KJPerMol, "−787", "±14"},
 		{-787.44, 0, thermo.KJPerMol, "−787.4", "±0.0"},
-		{495.845547, 0.000024, thermo.KJPerMol, "+495.8455", "±0.0000"},
-		{495.845547, 0.000024, thermo.EVPerFormulaUnit, "+5.1391", "±0.0000"},
+		{495.845547, 0.000024, thermo.KJPerMol, "+495.8455", "±<0.0001"},
+		{495.845547, 0.000024, thermo.EVPerFormulaUnit, "+5.1391", "±<0.0001"},
+		{100, 0.00004, thermo.KJPerMol, "+100.0000", "±<0.0001"},
+		{100, 0.00006, thermo.KJPerMol, "+100.0000", "±0.0001"},
 		{-787.44, 1.4, thermo.EVPerFormulaUnit, "−8.161", "±0.015"},
 		{-418.4, 4.184, thermo.KcalPerMol, "−100.0", "±1.0"},
 		{0.01, 0.5, thermo.KJPerMol, "0.01", "±0.50"},
