@@ -52,8 +52,6 @@ func drawArchitecture(edges map[string][]string, pkgs []string) string {
 		switch {
 		case l.leaf:
 			may = "a leaf: imports nothing of the project; every layer may import it"
-		case slices.Contains(l.may, "*"):
-			may = "may import any layer"
 		case len(l.may) == 0 && l.only:
 			may = "may import only the leaves"
 		case len(l.may) == 0:
