@@ -11,7 +11,6 @@ import (
 
 	"enthalpath/cycle/analysis"
 	"enthalpath/thermo"
-	"enthalpath/thermo/gibbs"
 )
 
 const stabilitySynopsis = "stability FORMULA [--temperature K] [--pressure BAR] [--from K] [--to K] [--points N] [--estimate-only] [--charges M=+2,X=-1] [--model MODEL] [--structure PROTOTYPE] [--set KEY=VALUE] [--json|--csv] [--svg FILE]"
@@ -341,7 +340,7 @@ func writeStabilityCSV(w io.Writer, st *analysis.Stability) error {
 	f := func(v float64) string { return strconv.FormatFloat(v, 'f', 3, 64) }
 	for i, r := range st.Reactions {
 		for _, p := range st.Curves[i] {
-			v := gibbs.Judge(p.Gibbs, p.Uncertainty).String()
+			v := analysis.CurveVerdict(p).String()
 			cw.Write([]string{r.Equation, r.Kind, f(p.Temperature), f(p.Gibbs), f(p.Uncertainty), strconv.FormatFloat(st.Pressure, 'g', -1, 64), v, r.HeatCapacityBasis()})
 		}
 	}
