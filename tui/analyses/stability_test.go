@@ -19,16 +19,24 @@ func kindIndex(t *testing.T, name string) int {
 	return -1
 }
 
-// The stability analysis runs in the screen's job (off Update), shows the
-// reactions with their verdicts and draws ΔrG(T); a temperature that is
-// not a positive number is refused in place.
-func TestStabilityView(t *testing.T) {
+// openStability selects the stability analysis and opens its input,
+// emptied; it returns the screen, its updater and the analysis's index.
+func openStability(t *testing.T) (*Model, drive.Updater, int) {
+	t.Helper()
 	_, m, u := setup(t)
 	i := kindIndex(t, "stability")
 	for range i {
 		drive.Run(u, drive.Key("j"))
 	}
 	drive.Run(u, drive.Key("e"), drive.Key("ctrl+u"))
+	return m, u, i
+}
+
+// The stability analysis runs in the screen's job (off Update), shows the
+// reactions with their verdicts and draws ΔrG(T); a temperature that is
+// not a positive number is refused in place.
+func TestStabilityView(t *testing.T) {
+	m, u, i := openStability(t)
 	drive.Run(u, drive.Text("MgCl3 -4")...)
 	drive.Run(u, drive.Key("enter"))
 	if editing, err := m.Editing(); !editing || err == nil {
@@ -57,12 +65,7 @@ func TestStabilityView(t *testing.T) {
 // the line's domain: MgO₂ as an ionic estimate is a light, stiff lattice
 // (θ_D far above 2·298 K, as MgO's calorimetric 946 K is; from memory).
 func TestStabilityViewEntropyDomain(t *testing.T) {
-	_, m, u := setup(t)
-	i := kindIndex(t, "stability")
-	for range i {
-		drive.Run(u, drive.Key("j"))
-	}
-	drive.Run(u, drive.Key("e"), drive.Key("ctrl+u"))
+	m, u, i := openStability(t)
 	drive.Run(u, drive.Text("MgO2 298")...)
 	drive.Run(u, drive.Key("enter"))
 	res, err := m.Result(i)
