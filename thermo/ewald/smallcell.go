@@ -51,10 +51,14 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 		}
 	}
 	q := s.q[:n:n]
-	var out, pRe, pIm [smallSites]float64
+	var out, pRe, pIm, eRe, eIm [smallSites]float64
 	kc2 := kc * kc
 	inv4a2 := 1 / (4 * alpha * alpha)
 	pre := 8 * math.Pi / s.volume // both members of each ±k pair
+	// The metric of the reciprocal basis: k² = Σ mₖmₗ·(bₖ·bₗ) needs no
+	// vector arithmetic per row.
+	b00, b01, b02 := b[0].Dot(b[0]), b[0].Dot(b[1]), b[0].Dot(b[2])
+	b11, b12 := b[1].Dot(b[1]), b[1].Dot(b[2])
 	b2sq := b[2].Dot(b[2])
 	stepRatio := math.Exp(-2 * b2sq * inv4a2)
 	count := 0
@@ -65,9 +69,10 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 		}
 		r0, i0 := &pw.re[0][smallOrder+m0], &pw.im[0][smallOrder+m0]
 		for m1 := lo1; m1 <= mmax[1]; m1++ {
-			g := b[0].Scale(float64(m0)).Add(b[1].Scale(float64(m1)))
-			gb := g.Dot(b[2])
-			gg := g.Dot(g)
+			// g = m₀b₀ + m₁b₁: gb = g·b₂ and gg = g·g.
+			f0, f1 := float64(m0), float64(m1)
+			gb := f0*b02 + f1*b12
+			gg := f0*(f0*b00+2*f1*b01) + f1*f1*b11
 			disc := gb*gb - b2sq*(gg-kc2)
 			if disc < 0 {
 				continue
@@ -99,7 +104,6 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 				count++
 				w := pre * gauss / k2
 				r2, i2 := &pw.re[2][smallOrder+m2], &pw.im[2][smallOrder+m2]
-				var eRe, eIm [smallSites]float64
 				var sRe, sIm float64
 				for j := 0; j < n; j++ {
 					er := pRe[j]*r2[j] - pIm[j]*i2[j]
