@@ -52,8 +52,8 @@ func drawArchitecture(edges map[string][]string, pkgs []string) string {
 		switch {
 		case l.leaf:
 			may = "a leaf: imports nothing of the project; every layer may import it"
-		case slices.Contains(l.may, "*"):
-			may = "may import any layer"
+		case len(l.may) == 0 && l.only:
+			may = "may import only the leaves"
 		case len(l.may) == 0:
 			may = "may import only its own packages and the leaves"
 		default:
@@ -63,7 +63,14 @@ func drawArchitecture(edges map[string][]string, pkgs []string) string {
 			}
 			may = "may import " + strings.Join(names, ", ") + " and the leaves"
 		}
-		b.WriteString(short(l.prefix) + ": " + may + "\n")
+		name := short(l.prefix)
+		switch {
+		case strings.HasSuffix(l.prefix, "/*"):
+			name += " (the physics packages below thermo)"
+		case l.only:
+			name += " (the root package alone: units, rounding)"
+		}
+		b.WriteString(name + ": " + may + "\n")
 		b.WriteString(wrapPictureLine("    packages: "+strings.Join(mine, ", "), 100) + "\n")
 		if len(uses) > 0 {
 			b.WriteString(wrapPictureLine("    ─► "+strings.Join(uses, ", "), 100) + "\n")

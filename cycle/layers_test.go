@@ -19,26 +19,41 @@ import (
 // (TestArchitecturePicture), top layer first.
 //
 //	front ends (main, tui, cycle/cli) → cycle → thermo, data
-//	data imports nothing of the project's physics; nothing imports tui;
-//	the engine never imports its command line.
+//	front ends import thermo's vocabulary (the root package: units,
+//	rounding) but none of its physics packages; data imports nothing of
+//	the project's physics; nothing imports tui; the engine never imports
+//	its command line.
 type layer struct {
-	prefix string   // import path prefix of the layer's packages
-	may    []string // other layers (their prefixes) it may import; "*" any
+	// prefix is the import path of the layer's packages and those below
+	// it; ending in "/*", only those strictly below it.
+	prefix string
+	may    []string // other layers (their prefixes) it may import
+	// only marks a layer of the one package prefix, not those below it.
+	only bool
 	// leaf marks a package of no physics and no data that imports nothing
 	// of the project, which every layer may import.
 	leaf bool
 }
 
 var layers = []layer{
-	{prefix: "enthalpath", may: []string{"*"}}, // main wires the front ends together
+	// main wires the front ends together; a front end itself, it imports no
+	// physics package either.
+	{prefix: "enthalpath", may: []string{"enthalpath/tui/launch", "enthalpath/tui", "enthalpath/cycle/cli", "enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
 	// The workshop's runners answer to the command line's table (its Env,
 	// usage errors, help and exit codes); cycle/cli never imports them.
 	{prefix: "enthalpath/tui/launch", may: []string{"enthalpath/tui", "enthalpath/cycle/cli", "enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
+	// The front ends reach physics through the engine (cycle, cycle/analysis,
+	// cycle/cells); of thermo they import only its vocabulary and the leaves.
 	{prefix: "enthalpath/tui", may: []string{"enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
 	{prefix: "enthalpath/cycle/cli", may: []string{"enthalpath/cycle", "enthalpath/thermo", "enthalpath/data"}},
-	{prefix: "enthalpath/cycle", may: []string{"enthalpath/thermo", "enthalpath/data"}},
+	{prefix: "enthalpath/cycle", may: []string{"enthalpath/thermo/*", "enthalpath/thermo", "enthalpath/data"}},
 	{prefix: "enthalpath/data", may: nil},
-	{prefix: "enthalpath/thermo", may: nil},
+	// thermo's physics packages: crystal, cif, ewald, lattice, valence,
+	// ordering, entropy, gibbs, lsq.
+	{prefix: "enthalpath/thermo/*", may: []string{"enthalpath/thermo"}},
+	// thermo's vocabulary: CODATA constants, energy units, the rounding of
+	// a value with its uncertainty; what a front end needs to print.
+	{prefix: "enthalpath/thermo", may: nil, only: true},
 	// Reading and writing the files a user names (size caps, regular files
 	// only, atomic saves): the CIF reader and the data overlay need it, so
 	// it sits at the bottom, importing nothing of the project.
@@ -54,12 +69,20 @@ var layers = []layer{
 // occurs (so the list only shrinks).
 var knownCrossings = map[string]string{}
 
+// holds says whether pkg belongs to l, leaving aside longer prefixes.
+func (l layer) holds(pkg string) bool {
+	if below, ok := strings.CutSuffix(l.prefix, "/*"); ok {
+		return strings.HasPrefix(pkg, below+"/")
+	}
+	return pkg == l.prefix || (!l.only && strings.HasPrefix(pkg, l.prefix+"/"))
+}
+
 // layerOf returns the rule for a package: the layer with the longest prefix
-// that is the package itself or one of its parents.
+// that holds it.
 func layerOf(pkg string) layer {
 	best := layer{prefix: "\x00"}
 	for _, l := range layers {
-		if (pkg == l.prefix || strings.HasPrefix(pkg, l.prefix+"/")) && (best.prefix == "\x00" || len(l.prefix) > len(best.prefix)) {
+		if l.holds(pkg) && (best.prefix == "\x00" || len(l.prefix) > len(best.prefix)) {
 			best = l
 		}
 	}
@@ -72,7 +95,7 @@ func allowed(from, to string) bool {
 		return true
 	}
 	for _, p := range lf.may {
-		if p == "*" || p == lt.prefix {
+		if p == lt.prefix {
 			return true
 		}
 	}
@@ -198,6 +221,23 @@ func TestArrowRules(t *testing.T) {
 		{"enthalpath/thermo/cif", "enthalpath/thermo/fileio", true},
 		{"enthalpath/thermo/fileio", "enthalpath/thermo", false}, // and it uses nothing of the project
 		{"enthalpath/thermo/fileio", "enthalpath/data", false},
+		// Front ends import thermo's vocabulary, never its physics.
+		{"enthalpath/tui/survey", "enthalpath/thermo", true},
+		{"enthalpath/cycle/cli", "enthalpath/thermo", true},
+		{"enthalpath/cycle/cli", "enthalpath/thermo/notation", true},
+		{"enthalpath/tui/modelpanel", "enthalpath/thermo/crystal", false},
+		{"enthalpath/tui/screen", "enthalpath/thermo/lattice", false},
+		{"enthalpath/cycle/cli", "enthalpath/thermo/ewald", false},
+		{"enthalpath/cycle/cli", "enthalpath/thermo/gibbs", false},
+		{"enthalpath/tui/launch", "enthalpath/thermo/cif", false},
+		{"enthalpath", "enthalpath/thermo/ewald", false}, // main is a front end too
+		{"enthalpath", "enthalpath/thermo", true},
+		{"enthalpath/cycle/cells", "enthalpath/thermo/ordering", true},
+		{"enthalpath/cycle/analysis", "enthalpath/thermo/gibbs", true},
+		{"enthalpath/thermo/lattice", "enthalpath/thermo", true},  // physics uses the units
+		{"enthalpath/thermo", "enthalpath/thermo/lattice", false}, // the vocabulary holds no physics
+		{"enthalpath/thermo/lattice", "enthalpath/thermo/crystal", true},
+		{"enthalpath/data", "enthalpath/thermo/crystal", false},
 	}
 	for _, c := range cases {
 		if got := allowed(c.from, c.to); got != c.ok {

@@ -126,6 +126,12 @@ type Validation struct {
 	Compounds int
 	NotClosed []NotEvaluated
 	Models    []ModelValidation
+	// Builtin is true when the validation was read from the built-in
+	// calibration (data/tables/model_calibration.csv) rather than computed:
+	// it then has the statistics but no lists of compounds left out.
+	Builtin bool
+	// note ends every σ's and threshold's basis (overlayNote).
+	note string
 	// thresholds and sigmas are Thresholds and Sigma of every model (and
 	// family), worded once by Validate.
 	thresholds map[string]thresholdEntry
@@ -158,8 +164,8 @@ func (v *Validation) sigma(model, family string) (float64, string) {
 	if f.N == 0 {
 		return 0, ""
 	}
-	return f.RMSPercent / 100, fmt.Sprintf("RMS gap of the %s model over %d built-in %s (mean %+.1f %%, largest %.1f %% for %s; validation of the built-in data)",
-		model, f.N, f.Family, f.MeanPercent, f.MaxPercent, f.Worst)
+	return f.RMSPercent / 100, fmt.Sprintf("RMS gap of the %s model over %d built-in %s (mean %+.1f %%, largest %.1f %% for %s; validation of the built-in data%s)",
+		model, f.N, f.Family, f.MeanPercent, f.MaxPercent, f.Worst, v.note)
 }
 
 // SigmaStats returns the family statistics Sigma takes the model's σ from:
@@ -193,8 +199,8 @@ func (v *Validation) thresholdsOf(model string) (lattice.Thresholds, string) {
 	}
 	f := m.Family(IonicFamily)
 	th := lattice.Thresholds{Adequate: AdequateSigmas * f.RMSPercent, Substantial: SubstantialSigmas * f.RMSPercent}
-	return th, fmt.Sprintf("thresholds %.1f %% and %.1f %% of |model| (%g σ and %g σ; σ = %.2f %%, the %s model's RMS gap over %d built-in %s)",
-		th.Adequate, th.Substantial, AdequateSigmas, SubstantialSigmas, f.RMSPercent, model, f.N, IonicFamily)
+	return th, fmt.Sprintf("thresholds %.1f %% and %.1f %% of |model| (%g σ and %g σ; σ = %.2f %%, the %s model's RMS gap over %d built-in %s%s)",
+		th.Adequate, th.Substantial, AdequateSigmas, SubstantialSigmas, f.RMSPercent, model, f.N, IonicFamily, v.note)
 }
 
 // ValidatingFamilies are the families whose salts are taken as ionic, so
@@ -356,8 +362,11 @@ func (c *Cycle) Validation() *Validation {
 	return c.Memo().Validation(c.db)
 }
 
-// Validation returns Validate(db, m), computed once per data set (the
-// first caller's memo does the Ewald sums).
+// Validation returns the validation of the models for db, once per data
+// set: the built-in calibration for the built-in data, with or without
+// overlays (data.DB.Calibrated; an overlay's σ and thresholds say they are
+// the built-in data's), else Validate(db, m) (the first caller's memo does
+// the Ewald sums).
 func (m *Memo) Validation(db *data.DB) *Validation {
 	m.mu.Lock()
 	if m.validationOf == db && m.validation != nil {
@@ -366,7 +375,16 @@ func (m *Memo) Validation(db *data.DB) *Validation {
 		return v
 	}
 	m.mu.Unlock()
-	v := db.Computed(validationKey, func() any { return Validate(db, m) }).(*Validation)
+	v := db.Computed(validationKey, func() any {
+		if db.Calibrated() {
+			if cal, err := data.ModelCalibration(); err == nil {
+				if v, err := validationOf(cal, overlayNote(db.Overlays())); err == nil {
+					return v
+				}
+			}
+		}
+		return Validate(db, m)
+	}).(*Validation)
 	m.mu.Lock()
 	m.validationOf, m.validation = db, v
 	m.mu.Unlock()

@@ -47,6 +47,8 @@ type DB struct {
 	problems []string
 
 	computed sync.Map // values computed from this data set once (computed.go)
+
+	builtIn bool // the embedded tables, perhaps with overlays (calibration.go)
 }
 
 type ionKey struct {
@@ -74,7 +76,12 @@ func Load() (*DB, error) {
 	if err != nil {
 		return nil, err
 	}
-	return LoadFS(sub)
+	db, err := LoadFS(sub)
+	if err != nil {
+		return nil, err
+	}
+	db.builtIn = true
+	return db, nil
 }
 
 // LoadFS reads the tables from the root of fsys (sources.csv, elements.csv
@@ -135,6 +142,7 @@ func (db *DB) clone() *DB {
 		derived:     maps.Clone(db.derived),
 		overlays:    slices.Clone(db.overlays),
 		problems:    slices.Clone(db.problems),
+		builtIn:     db.builtIn,
 	}
 	for i, e := range db.elements {
 		c.elements[i] = copyElement(e)

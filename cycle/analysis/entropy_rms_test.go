@@ -17,8 +17,23 @@ import (
 // against its indexed abstract at core.ac.uk/display/1356412). Every such
 // salt counts, whether or not the program can estimate its ΔfH°.
 func entropyErrors(t *testing.T) (map[string]float64, []string) {
+	rel, names, _ := entropyErrorsByDomain(t)
+	return rel, names
+}
+
+// entropySalt is one salt of entropyErrorsByDomain: its domain verdict
+// and the relative error of the Debye lattice entropy where judged.
+type entropySalt struct {
+	domain   EntropyDomain
+	debyeRel float64
+}
+
+// entropyErrorsByDomain is entropyErrors with each salt's domain verdict
+// (EntropyDomain: θ_D/T ≤ 2 at 298.15 K, θ_D from the extended model).
+func entropyErrorsByDomain(t *testing.T) (map[string]float64, []string, map[string]entropySalt) {
 	a := testAnalyst(t)
 	rel := map[string]float64{}
+	salts := map[string]entropySalt{}
 	var names []string
 	for _, cp := range a.DB().Compounds() {
 		st, ok := a.standards.Compound(cp.Formula)
@@ -39,11 +54,13 @@ func entropyErrors(t *testing.T) (map[string]float64, []string) {
 		}
 		rel[cp.Formula] = (s - st.Entropy.V) / st.Entropy.V
 		names = append(names, cp.Formula)
+		d := entropyDomain(c)
+		salts[cp.Formula] = entropySalt{domain: d, debyeRel: (d.DebyeEntropy - st.Entropy.V) / st.Entropy.V}
 	}
 	if len(rel) < 100 {
 		t.Fatalf("only %d salts with a measured S° and a volume of their own", len(rel))
 	}
-	return rel, names
+	return rel, names, salts
 }
 
 func rmsOf(rel map[string]float64) float64 {
@@ -78,45 +95,93 @@ func TestEntropyScatterCovered(t *testing.T) {
 }
 
 // TestEntropyEstimateRMS holds the issue's bound: RMS relative error below
-// 20 % over at least 100 salts.
+// 20 % over at least 100 salts, inside the volume line's a-priori domain
+// (TestEntropyDomainRMS).
 //
-// Status: a known failure, skipped unless ENTHALPATH_KNOWN_FAILURES=1. Over
-// the 236 salts of the data it is 22.3 % (median 11.4 %). By family the line
-// holds where the paper fitted it (alkali halides 13 %, sulfates 13 %,
-// carbonates 14 %, nitrates 15 % RMS) and fails on light, hard solids, whose
-// vibrations are not all excited at 298 K: the alkaline-earth oxides
-// (+48 % on average: BeO +139 %, MgO +50 %), the hydrides (LiH +91 %, MgH₂
-// +83 %, CaH₂ +69 %), AlN (+115 %); and it underestimates soft ones (Ag₂S
-// −36 %, Cu₂S −35 %, NaO₂ −38 %). BeO and AlN alone make 28 % of the sum of
-// squares. The constants are the paper's (checked), the volumes the
-// compounds' own cells or densities, hydrates absent from the data,
-// molecular compounds and gases left out. Leaving out BeO and AlN
-// (tetrahedral, strongly covalent solids, arguably not "ionic salts") would
-// give 19.3 % over 234: not done, as it would pick the salts by their
-// misfit. The bound is not loosened.
-// The σ of the estimate covers the measured scatter
-// (TestEntropyScatterCovered).
+// Status: a known failure, skipped unless ENTHALPATH_KNOWN_FAILURES=1.
+// Over the full set of 236 salts the line misses by 22.3 % (median 11.4 %):
+// it holds where the paper fitted it (alkali halides 13 %, sulfates 13 %,
+// carbonates 14 %, nitrates 15 % RMS) and fails on light, hard solids whose
+// vibrations are not all excited at 298 K (BeO +139 %, MgO +50 %, LiH
+// +91 %, AlN +115 %). The a-priori domain θ_D/T ≤ 2 brings it to 19.6 %,
+// but the extended model gives θ_D for only 62 of the 236 salts (those
+// with a structure it can sum), so only 52 are judged inside: short of
+// the 100 asked. Picking the rest by their misfit (leaving out BeO and AlN
+// gives 19.3 % over 234) is not done; the bound is not loosened.
 func TestEntropyEstimateRMS(t *testing.T) {
 	if os.Getenv("ENTHALPATH_KNOWN_FAILURES") == "" {
-		t.Skip("known failure: the volume-based S° misses by 22.3 % RMS over the data's salts; set ENTHALPATH_KNOWN_FAILURES=1 to run")
+		t.Skip("known failure: only 52 salts have a θ_D that puts them inside the volume line's domain (100 asked); set ENTHALPATH_KNOWN_FAILURES=1 to run")
 	}
-	rel, names := entropyErrors(t)
-	rms := rmsOf(rel)
-	for _, n := range names {
-		if math.Abs(rel[n]) > 0.3 {
-			t.Logf("%-10s %+.0f %%", n, 100*rel[n])
-		}
+	inside, _ := entropyByDomain(t)
+	if len(inside) < 100 {
+		t.Errorf("only %d salts inside the domain, the issue asks for at least 100", len(inside))
 	}
-	if rms >= 0.20 {
-		t.Errorf("RMS relative error %.1f %% over %d salts ≥ 20 %%", 100*rms, len(rel))
+	if rms := rmsOf(inside); rms >= 0.20 {
+		t.Errorf("RMS relative error %.1f %% over %d salts inside the domain ≥ 20 %%", 100*rms, len(inside))
 	}
 }
 
-// TestAdditiveOverData: the single-ion contributions are fitted over at
-// least 100 ionic compounds of the data with a measured S° (NBS 1982), and
-// in-sample they reproduce them better than the volume-based line does
-// (a fit with one parameter per ion against a line with two; the figure
-// is reported, the comparison is common practice, no source).
+// entropyByDomain splits the salts of entropyErrorsByDomain by their
+// domain verdict, logs each group's RMS and, outside the domain, the Debye
+// lattice entropy's RMS beside the line's on the same salts.
+func entropyByDomain(t *testing.T) (inside, outside map[string]float64) {
+	rel, names, salts := entropyErrorsByDomain(t)
+	inside, outside = map[string]float64{}, map[string]float64{}
+	unjudged, debye := map[string]float64{}, map[string]float64{}
+	for _, n := range names {
+		d := salts[n].domain
+		switch {
+		case !d.Judged:
+			unjudged[n] = rel[n]
+		case d.Inside:
+			inside[n] = rel[n]
+		default:
+			outside[n] = rel[n]
+			debye[n] = salts[n].debyeRel
+			t.Logf("outside: %-10s θ_D %4.0f K  line %+4.0f %%  Debye %+4.0f %%", n, d.DebyeTemperature, 100*rel[n], 100*salts[n].debyeRel)
+		}
+	}
+	report := func(what string, m map[string]float64) {
+		if len(m) == 0 {
+			t.Logf("%s: no salts", what)
+			return
+		}
+		t.Logf("%s: %d salts, RMS relative error %.1f %%", what, len(m), 100*rmsOf(m))
+	}
+	report("volume line, full set", rel)
+	report("volume line, inside the domain (θ_D ≤ 2T)", inside)
+	report("volume line, outside the domain (θ_D > 2T)", outside)
+	report("volume line, domain not judged (no θ_D)", unjudged)
+	report("Debye lattice entropy, outside the domain", debye)
+	return inside, outside
+}
+
+// TestEntropyDomainRMS: inside the volume line's domain, set a priori
+// (thermo/entropy.MaxReducedDebye: θ_D/T ≤ 2 at 298.15 K, θ_D from the
+// extended model's repulsion curvature; the bound of one half of θ_D is
+// common practice, no source), the line's RMS relative error against the
+// measured S° (NBS 1982) is below the issue's 20 %, with the constants of
+// Jenkins & Glasser (Inorg. Chem. 42, 8702 (2003), abstract); and the salts
+// the criterion puts outside miss by more than those inside (the physical
+// reason of the criterion: frozen vibrations; common practice, no source).
+// Measured when written: 19.6 % over 52 salts inside, 51.3 % over 10
+// outside (Debye lattice entropy there 29.5 %, too low: the model's θ_D is
+// from the bulk sound speed, an upper bound of the Debye mean), 20.2 % over
+// the 174 the extended model cannot judge, 22.3 % over all 236.
+// TestEntropyEstimateRMS keeps the issue's count of 100 salts.
+func TestEntropyDomainRMS(t *testing.T) {
+	inside, outside := entropyByDomain(t)
+	if len(inside) < 30 || len(outside) < 5 {
+		t.Fatalf("the domain judged %d salts inside and %d outside: too few to compare", len(inside), len(outside))
+	}
+	if rms := rmsOf(inside); rms >= 0.20 {
+		t.Errorf("inside the domain: RMS relative error %.1f %% over %d salts ≥ 20 %%", 100*rms, len(inside))
+	}
+	if rmsOf(outside) <= rmsOf(inside) {
+		t.Errorf("outside the domain RMS %.3f not above inside %.3f: the criterion does not separate", rmsOf(outside), rmsOf(inside))
+	}
+}
+
 func TestAdditiveOverData(t *testing.T) {
 	a := testAnalyst(t)
 	fit, err := a.AdditiveEntropies()

@@ -79,6 +79,9 @@ type Thermo struct {
 	Formation, Entropy, FormationEntropy, Gibbs Quantity
 	// Volume is the formula-unit volume (nm³) the entropy estimate used.
 	Volume Quantity
+	// EntropyDomain is the volume line's domain verdict for the compound,
+	// set when Entropy is the volume-based estimate (nil otherwise).
+	EntropyDomain *EntropyDomain
 	// AdditiveEntropy is the independent estimate of S° from single-ion
 	// contributions (absent when an ion has none).
 	AdditiveEntropy Quantity
@@ -185,7 +188,8 @@ func (a *Analyst) knownThermo(formula string) (Thermo, bool) {
 			rc, _ := a.ionRadius(c.Cation.Ion)
 			ra, _ := a.ionRadius(c.Anion.Ion)
 			t.Volume = a.volume(c, c.Cation.Count, rc.Value, c.Anion.Count, ra.Value)
-			t.Entropy = volumeEntropy(t.Volume)
+			d := entropyDomain(c)
+			t.Entropy, t.EntropyDomain = volumeEntropy(t.Volume, d), &d
 		}
 	}
 	a.complete(&t)
@@ -227,14 +231,16 @@ func (a *Analyst) estimatedThermo(est *Estimate, c *cycle.Cycle) Thermo {
 	t := Thermo{Formula: est.Formula, State: "cr",
 		Formation: Quantity{Value: est.Value, Uncertainty: est.Uncertainty, Basis: "estimate (" + est.Model + " lattice step)"}}
 	t.Volume = a.formulaVolume(est, c)
-	t.Entropy = volumeEntropy(t.Volume)
+	d := resultDomain(est.Result, est.Cation.Count+est.Anion.Count)
+	t.Entropy, t.EntropyDomain = volumeEntropy(t.Volume, d), &d
 	a.complete(&t)
 	return t
 }
 
 // volumeEntropy is the volume-based S° of a formula-unit volume, with the
-// method's σ and the volume's; absent without a volume.
-func volumeEntropy(v Quantity) Quantity {
+// method's σ and the volume's, its basis saying the domain verdict d;
+// absent without a volume.
+func volumeEntropy(v Quantity, d EntropyDomain) Quantity {
 	if !v.Known() {
 		return Quantity{}
 	}
@@ -244,7 +250,7 @@ func volumeEntropy(v Quantity) Quantity {
 	}
 	line := entropy.LineFor(entropy.Salt)
 	return Quantity{Value: s, Uncertainty: math.Hypot(EntropyRelativeUncertainty*s, line.K*v.Uncertainty),
-		Basis: fmt.Sprintf("volume-based estimate, %g·V_m + %g (%s), V_m %.4f nm³ from %s", line.K, line.C, line.Citation, v.Value, v.Basis)}
+		Basis: fmt.Sprintf("volume-based estimate, %g·V_m + %g (%s), V_m %.4f nm³ from %s; %s", line.K, line.C, line.Citation, v.Value, v.Basis, d)}
 }
 
 // formulaVolume returns V_m (nm³) of the estimated compound (radii as the

@@ -7,7 +7,6 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
-	"enthalpath/thermo/lattice"
 )
 
 // ev writes kJ/mol as eV per formula unit with a true minus sign.
@@ -123,7 +122,7 @@ func extendedJSONOf(b *cycle.ExtendedBreakdown) *extendedJSON {
 	if b == nil {
 		return nil
 	}
-	at := func(x lattice.ExtendedTerms) extendedAtJSON {
+	at := func(x cycle.ExtendedTerms) extendedAtJSON {
 		out := extendedAtJSON{D: jsonNumber(x.D), TotalKJ: jsonNumber(b.Value(x)),
 			DebyeTemperature: jsonNumber(x.DebyeTemperature), BulkModulusGPa: jsonNumber(x.BulkModulus)}
 		for _, t := range b.Terms(x) {

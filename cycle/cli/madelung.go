@@ -10,10 +10,8 @@ import (
 	"strings"
 
 	"enthalpath/cycle"
+	"enthalpath/cycle/cells"
 	"enthalpath/data"
-	"enthalpath/thermo/crystal"
-	"enthalpath/thermo/ewald"
-	"enthalpath/thermo/valence"
 )
 
 const madelungSynopsis = `madelung NAME|FILE.cif [flags]
@@ -39,7 +37,7 @@ func runMadelung(env Env, args []string) error {
 	fs.Var(&params, "param", "prototype parameter `key=value` (repeatable, or comma-separated)")
 	fs.Var(&charges, "charges", "ion charges `LABEL=Z,...`: slot labels (M, X, A, B) for a prototype; site labels, type symbols or elements for a CIF file")
 	supercell := fs.String("supercell", "", "repeat the cell: `n` for n×n×n, or n1xn2xn3")
-	accuracy := fs.Float64("accuracy", ewald.DefaultAccuracy, "relative accuracy of the Ewald sum")
+	accuracy := fs.Float64("accuracy", cells.DefaultAccuracy, "relative accuracy of the Ewald sum")
 	asJSON := fs.Bool("json", false, "print one JSON object")
 	list := fs.Bool("list", false, "list the built-in prototypes with their parameters")
 	pos, help, err := ParseFlags(fs, args)
@@ -65,12 +63,12 @@ func runMadelung(env Env, args []string) error {
 	if err != nil {
 		return err
 	}
-	res, bg, sumErr := ewald.SumCharged(c, ewald.Options{Accuracy: *accuracy})
-	var accErr *ewald.AccuracyError
+	res, bg, sumErr := cells.SumCharged(c, *accuracy)
+	var accErr *cells.AccuracyError
 	switch {
 	case errors.As(sumErr, &accErr):
 		fmt.Fprintf(env.Stderr, "enthalpath madelung: warning: %v\n", accErr)
-	case errors.Is(sumErr, ewald.ErrBadOptions):
+	case errors.Is(sumErr, cells.ErrBadOptions):
 		return &UsageError{fmt.Errorf("--accuracy %g: %w", *accuracy, sumErr)}
 	case sumErr != nil:
 		return &UsageError{fmt.Errorf("%s: %w", pos[0], sumErr)}
@@ -78,9 +76,9 @@ func runMadelung(env Env, args []string) error {
 	mean, meanErr := c.MeanCationAnionDistance()
 	warnings := geometryWarnings(c, res, meanErr)
 	if bg.NetCharge != 0 {
-		warnings = append(warnings, fmt.Sprintf("%s (net charge %+.6g e per cell, background term %.6g eV)", ewald.BackgroundConvention, bg.NetCharge, bg.EnergyEV))
+		warnings = append(warnings, fmt.Sprintf("%s (net charge %+.6g e per cell, background term %.6g eV)", cells.BackgroundConvention, bg.NetCharge, bg.EnergyEV))
 	}
-	if sf := job.file; sf != nil && sf.Assignment.Method == valence.PoorFit {
+	if sf := job.file; sf != nil && sf.Assignment.Method == cells.PoorFit {
 		warnings = append(warnings, "the assigned charges fit the bond-valence sums poorly; check them or give --charges")
 	}
 	for _, w := range warnings {
@@ -96,27 +94,27 @@ func runMadelung(env Env, args []string) error {
 }
 
 // geometryWarnings says when a structure that can be summed is unlike any
-// real solid: its nearest cation and anion closer than crystal.ShortestBond
+// real solid: its nearest cation and anion closer than cells.ShortestBond
 // (wurtzite with u = 0.9 puts them 0.52 Å apart). The Madelung constant
 // of such a cell is a number about point charges, not about a crystal.
-func geometryWarnings(c *crystal.Crystal, r ewald.Result, meanErr error) []string {
+func geometryWarnings(c *cells.Crystal, r cells.EwaldResult, meanErr error) []string {
 	var out []string
 	if meanErr != nil {
 		out = append(out, meanErr.Error()+"; no mean bond length is given")
 	}
 	i, j := r.NearestPair[0], r.NearestPair[1]
-	if i < 0 || j < 0 || !(r.NearestDistance < crystal.ShortestBond) {
+	if i < 0 || j < 0 || !(r.NearestDistance < cells.ShortestBond) {
 		return out
 	}
 	return append(out, fmt.Sprintf("the nearest cation and anion (site %d %s and site %d %s) are %.3g Å apart, below %g Å, shorter than any real bond "+
 		"(threshold: common practice, no source); the Madelung constant refers to that distance; check the parameters or the file",
-		i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, r.NearestDistance, crystal.ShortestBond))
+		i+1, c.Sites[i].Species, j+1, c.Sites[j].Species, r.NearestDistance, cells.ShortestBond))
 }
 
 // loadStructure reads the structure flags that madelung and orderings
 // share (--param, --charges, --supercell) and builds the crystal of target,
 // a prototype name or a CIF file.
-func loadStructure(env Env, target string, params, charges listFlag, supercell string) (madelungJob, *crystal.Crystal, error) {
+func loadStructure(env Env, target string, params, charges listFlag, supercell string) (madelungJob, *cells.Crystal, error) {
 	chargeMap, err := parseKeyValues("--charges", charges)
 	if err != nil {
 		return madelungJob{}, nil, err
@@ -146,7 +144,7 @@ type madelungJob struct {
 	charges   map[string]float64
 	supercell [3]int
 	db        *data.DB
-	prototype *crystal.Prototype // nil for a CIF file
+	prototype *cells.Prototype   // nil for a CIF file
 	values    map[string]float64 // the prototype parameters used
 	file      *cycle.StructureFile
 }
@@ -157,8 +155,8 @@ func isCIFPath(s string) bool {
 
 // crystal builds the structure: prototype with parameters and charges, or
 // CIF file, then the supercell.
-func (j *madelungJob) crystal() (*crystal.Crystal, error) {
-	var c *crystal.Crystal
+func (j *madelungJob) crystal() (*cells.Crystal, error) {
+	var c *cells.Crystal
 	if isCIFPath(j.target) {
 		if len(j.params) > 0 {
 			return nil, Usagef("%s: --param applies to prototypes only; a CIF file gives its own geometry", j.target)
@@ -173,12 +171,12 @@ func (j *madelungJob) crystal() (*crystal.Crystal, error) {
 		}
 		j.file, c = sf, sf.Cell
 	} else {
-		p, err := crystal.LookupPrototype(j.target)
+		p, err := cells.LookupPrototype(j.target)
 		if err != nil {
 			return nil, &UsageError{fmt.Errorf("%w (or give a path ending in .cif)", err)}
 		}
 		j.prototype = &p
-		c, err = crystal.Build(p.Name, j.params)
+		c, err = cells.Build(p.Name, j.params)
 		if err != nil {
 			return nil, &UsageError{err}
 		}
@@ -187,7 +185,7 @@ func (j *madelungJob) crystal() (*crystal.Crystal, error) {
 			j.values[k] = v
 		}
 		if len(j.charges) > 0 {
-			ions := map[string]crystal.Ion{}
+			ions := map[string]cells.Ion{}
 			for label, z := range j.charges {
 				known := false
 				for _, s := range p.Slots {
@@ -196,7 +194,7 @@ func (j *madelungJob) crystal() (*crystal.Crystal, error) {
 				if !known {
 					return nil, Usagef("--charges: %s has no slot %q (slots: %s)", p.Name, label, slotLabels(p))
 				}
-				ions[label] = crystal.Ion{Charge: z}
+				ions[label] = cells.Ion{Charge: z}
 			}
 			if c, err = c.WithIons(ions); err != nil {
 				return nil, &UsageError{fmt.Errorf("--charges: %w", err)}
@@ -212,7 +210,7 @@ func (j *madelungJob) crystal() (*crystal.Crystal, error) {
 	return c, nil
 }
 
-func slotLabels(p crystal.Prototype) string {
+func slotLabels(p cells.Prototype) string {
 	var s []string
 	for _, sl := range p.Slots {
 		s = append(s, sl.Label)
@@ -274,7 +272,7 @@ func minus(s string) string { return strings.Replace(s, "-", "−", 1) }
 
 // siteSums returns the bond-valence sum of every site of c (a supercell
 // repeats the file's cell), or nil for a prototype.
-func (j *madelungJob) siteSums(c *crystal.Crystal) []float64 {
+func (j *madelungJob) siteSums(c *cells.Crystal) []float64 {
 	if j.file == nil {
 		return nil
 	}
@@ -287,7 +285,7 @@ func (j *madelungJob) siteSums(c *crystal.Crystal) []float64 {
 }
 
 // groupCharge writes a group's charge, with the two states of a mixed one.
-func groupCharge(g valence.Group) string {
+func groupCharge(g cells.ChargeGroup) string {
 	q := minus(fmt.Sprintf("%+.4g", g.Charge))
 	if g.Mixed() {
 		lo, hi := 1-g.HighFraction, g.HighFraction
@@ -302,10 +300,10 @@ func printCharges(w io.Writer, sf *cycle.StructureFile, nSites int) {
 	fmt.Fprintf(w, "formula     %s per formula unit (from the occupancies)\n", sf.Formula)
 	a := sf.Assignment
 	fmt.Fprintf(w, "charges     %s\n", a.Method)
-	if a.Method == valence.ChargeBalanceRanked {
+	if a.Method == cells.ChargeBalanceRanked {
 		fmt.Fprintf(w, "            %d neutral combinations; the one fitting the bond-valence sums best is used\n", a.Alternatives)
 	}
-	if a.Method != valence.Given {
+	if a.Method != cells.GivenCharges {
 		var offered []string
 		els := make([]string, 0, len(sf.Candidates))
 		for el := range sf.Candidates {
@@ -342,10 +340,10 @@ func printCharges(w io.Writer, sf *cycle.StructureFile, nSites int) {
 		t.add(g.Element, strconv.FormatFloat(math.Round(g.Atoms*1e4)/1e4, 'f', -1, 64), labels, groupCharge(g), sum, dev, from)
 	}
 	t.write(w, "  ")
-	fmt.Fprintf(w, "  bond-valence sums: exp((R − d)/%.2f Å) over cation–anion bonds, R from %s\n", valence.B, data.BondValenceSource)
+	fmt.Fprintf(w, "  bond-valence sums: exp((R − d)/%.2f Å) over cation–anion bonds, R from %s\n", cells.BondValenceB, data.BondValenceSource)
 }
 
-func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Result, mean float64, bg ewald.Background) {
+func printMadelung(w io.Writer, job madelungJob, c *cells.Crystal, r cells.EwaldResult, mean float64, bg cells.Background) {
 	if p := job.prototype; p != nil {
 		fmt.Fprintf(w, "structure   %s: %s (example %s)\n", p.Name, p.Description, p.Example)
 		var ps []string
@@ -383,7 +381,7 @@ func printMadelung(w io.Writer, job madelungJob, c *crystal.Crystal, r ewald.Res
 	if bg.NetCharge != 0 {
 		fmt.Fprintf(w, "  charged cell: net charge %s e; neutralising background term %s eV per cell, included above\n",
 			minus(fmt.Sprintf("%+.6g", bg.NetCharge)), minus(fmt.Sprintf("%.8f", bg.EnergyEV)))
-		fmt.Fprintf(w, "  warning: %s\n", ewald.BackgroundConvention)
+		fmt.Fprintf(w, "  warning: %s\n", cells.BackgroundConvention)
 	}
 	fmt.Fprintf(w, "  accuracy: requested %.3g, estimated %.2g (α = %.4f Å⁻¹, real cut-off %.3f Å, reciprocal cut-off %.3f Å⁻¹, %d + %d terms)\n\n",
 		r.Accuracy, r.EstimatedError, r.Alpha, r.RealCutoff, r.RecipCutoff, r.RealTerms, r.RecipTerms)
@@ -460,7 +458,7 @@ func bvsText(x float64) string {
 	return fmt.Sprintf("%.3f", x)
 }
 
-func cellParameters(c *crystal.Crystal) (abc, angles [3]float64) {
+func cellParameters(c *cells.Crystal) (abc, angles [3]float64) {
 	for k := 0; k < 3; k++ {
 		abc[k] = c.Lattice[k].Norm()
 		u, v := c.Lattice[(k+1)%3], c.Lattice[(k+2)%3]
@@ -470,7 +468,7 @@ func cellParameters(c *crystal.Crystal) (abc, angles [3]float64) {
 }
 
 // ionSummary lists "Species charge ×count" in order of first appearance.
-func ionSummary(c *crystal.Crystal) string {
+func ionSummary(c *cells.Crystal) string {
 	type key struct {
 		sp string
 		q  float64

@@ -5,10 +5,8 @@ import (
 	"io"
 	"strings"
 
+	"enthalpath/cycle/cells"
 	"enthalpath/data"
-	"enthalpath/thermo/crystal"
-	"enthalpath/thermo/ewald"
-	"enthalpath/thermo/valence"
 )
 
 // The JSON of "enthalpath madelung" and of its --list.
@@ -117,7 +115,7 @@ type madelungOutput struct {
 
 // madelungJSON builds the output; mean is NaN (JSON null) when there is no
 // mean bond length (the warnings say why).
-func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, mean float64, bg ewald.Background, reached bool) madelungOutput {
+func madelungJSON(job madelungJob, c *cells.Crystal, r cells.EwaldResult, mean float64, bg cells.Background, reached bool) madelungOutput {
 	abc, ang := cellParameters(c)
 	st := madelungStructure{
 		Name: c.Name, Source: "cif", Supercell: job.supercell,
@@ -161,13 +159,13 @@ func madelungJSON(job madelungJob, c *crystal.Crystal, r ewald.Result, mean floa
 			RealTerms: r.RealTerms, RecipTerms: r.RecipTerms},
 	}
 	if bg.NetCharge != 0 {
-		out.Background = &madelungBackground{bg.NetCharge, bg.EnergyEV, bg.PotentialShiftV, ewald.BackgroundConvention}
+		out.Background = &madelungBackground{bg.NetCharge, bg.EnergyEV, bg.PotentialShiftV, cells.BackgroundConvention}
 	}
 	if sf := job.file; sf != nil {
 		ch := &madelungCharges{Method: sf.Assignment.Method.Key(), Description: sf.Assignment.Method.String(),
 			Alternatives: sf.Assignment.Alternatives, Formula: sf.Formula, AveragedSites: sf.Averaged,
-			BondValenceFit: fmt.Sprintf("exp((R - d)/%.2f), R from %s", valence.B, data.BondValenceSource)}
-		if sf.Assignment.Method != valence.Given {
+			BondValenceFit: fmt.Sprintf("exp((R - d)/%.2f), R from %s", cells.BondValenceB, data.BondValenceSource)}
+		if sf.Assignment.Method != cells.GivenCharges {
 			ch.Offered, ch.OfferedFrom = sf.Candidates, sf.From
 		}
 		for _, g := range sf.Assignment.Groups {
@@ -205,7 +203,7 @@ type prototypeJSON struct {
 }
 
 func listPrototypes(w io.Writer, asJSON bool) error {
-	protos := crystal.Prototypes()
+	protos := cells.Prototypes()
 	if asJSON {
 		var out []prototypeJSON
 		for _, p := range protos {

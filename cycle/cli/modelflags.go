@@ -9,7 +9,6 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
-	"enthalpath/thermo/crystal"
 )
 
 // modelFlags are the settings shared by cycle and compare.
@@ -21,7 +20,7 @@ type modelFlags struct {
 }
 
 func (m *modelFlags) register(fs *flag.FlagSet) {
-	fs.StringVar(&m.structure, "structure", "", "structure for the Madelung constant: a prototype name ("+strings.Join(crystal.PrototypeNames(), ", ")+") or a CIF file")
+	fs.StringVar(&m.structure, "structure", "", "structure for the Madelung constant: a prototype name ("+strings.Join(cycle.PrototypeNames(), ", ")+") or a CIF file")
 	fs.Var(&m.params, "param", "prototype parameter `KEY=VALUE` (a, c in Å; u, x, z fractional); repeatable")
 	fs.StringVar(&m.units, "units", "kj", "energy unit of printed output and of --set values: kj, kcal or ev (JSON stays in kJ/mol, as its keys say)")
 	fs.Float64Var(&m.rho, "rho", 0, "Born–Mayer range parameter ρ in Å (default 0.345)")
@@ -143,7 +142,7 @@ func (m *modelFlags) structureFor(c *cycle.Cycle) (cycle.Structure, error) {
 		}
 		return st, nil
 	}
-	if _, err := crystal.LookupPrototype(name); err != nil {
+	if err := cycle.CheckPrototype(name); err != nil {
 		return cycle.Structure{}, Usagef("--structure: %v (or give a .cif file)", err)
 	}
 	params := map[string]float64{}
@@ -157,7 +156,7 @@ func (m *modelFlags) structureFor(c *cycle.Cycle) (cycle.Structure, error) {
 		return cycle.Structure{}, err
 	}
 	maps.Copy(params, given)
-	if _, err := crystal.Build(name, params); err != nil {
+	if err := cycle.CheckPrototypeParams(name, params); err != nil {
 		return cycle.Structure{}, Usagef("--structure %s: %v", name, err)
 	}
 	st := cycle.Structure{Prototype: name, Params: params}

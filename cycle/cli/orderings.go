@@ -11,9 +11,7 @@ import (
 	"strings"
 
 	"enthalpath/cycle"
-	"enthalpath/thermo/cif"
-	"enthalpath/thermo/ewald"
-	"enthalpath/thermo/ordering"
+	"enthalpath/cycle/cells"
 )
 
 const orderingsSynopsis = `orderings NAME|FILE.cif --site SEL=OCCUPANTS [--site ...] [flags]`
@@ -41,13 +39,13 @@ func runOrderings(env Env, args []string) error {
 	fs.Var(&params, "param", "prototype parameter `key=value` (repeatable, or comma-separated)")
 	fs.Var(&charges, "charges", "ion charges `LABEL=Z,...` for the parent structure, as for madelung")
 	supercell := fs.String("supercell", "", "repeat the cell: `n` for n×n×n, or n1xn2xn3")
-	keep := fs.Int("keep", ordering.DefaultKeep, "list the `n` lowest distinct orderings")
+	keep := fs.Int("keep", cells.DefaultKeep, "list the `n` lowest distinct orderings")
 	method := fs.String("method", "auto", "`auto`, enumerate or anneal")
 	seed := fs.Int64("seed", 1, "random seed of the annealing")
-	sweeps := fs.Int("sweeps", ordering.DefaultSweeps, "annealing sweeps (mixed-site count of swaps each) per restart")
-	restarts := fs.Int("restarts", ordering.DefaultRestarts, "annealing restarts from random orderings")
+	sweeps := fs.Int("sweeps", cells.DefaultSweeps, "annealing sweeps (mixed-site count of swaps each) per restart")
+	restarts := fs.Int("restarts", cells.DefaultRestarts, "annealing restarts from random orderings")
 	cifDir := fs.String("cif-dir", "", "write each listed ordering as a CIF file into `DIR`")
-	accuracy := fs.Float64("accuracy", ewald.DefaultAccuracy, "relative accuracy of the Ewald sums")
+	accuracy := fs.Float64("accuracy", cells.DefaultAccuracy, "relative accuracy of the Ewald sums")
 	asJSON := fs.Bool("json", false, "print one JSON object")
 	pos, help, err := ParseFlags(fs, args)
 	if help || err != nil {
@@ -63,13 +61,13 @@ func runOrderings(env Env, args []string) error {
 	if err := cycle.CheckSetting(cycle.SettingAccuracy, *accuracy); err != nil {
 		return boundUsage("accuracy", "give the relative accuracy of the Ewald sums", err)
 	}
-	var m ordering.Method
+	var m cells.OrderingMethod
 	switch *method {
 	case "auto":
 	case "enumerate":
-		m = ordering.Enumerate
+		m = cells.Enumerate
 	case "anneal":
-		m = ordering.Anneal
+		m = cells.Anneal
 	default:
 		return Usagef("--method %q: want auto, enumerate or anneal", *method)
 	}
@@ -81,11 +79,11 @@ func runOrderings(env Env, args []string) error {
 	if err != nil {
 		return err
 	}
-	specs = append(specs, ordering.OccupancySpecs(c, specs)...)
+	specs = append(specs, cells.OccupancySpecs(c, specs)...)
 	if len(specs) == 0 {
 		return Usagef("orderings: %s has no partly occupied or shared site; give the mixed sites with --site, e.g. --site M=Li:+1:0.5,vac:0.5", pos[0])
 	}
-	p, err := ordering.NewProblem(c, specs, ordering.Options{Accuracy: *accuracy})
+	p, err := cells.NewProblem(c, specs, *accuracy)
 	if err != nil {
 		return orderingError(err)
 	}
@@ -93,7 +91,7 @@ func runOrderings(env Env, args []string) error {
 	var done, total float64
 	bar.status = func() (float64, string) { return done / total, fmt.Sprintf("%.3g of %.3g", done, total) }
 	progress := func(d, t float64) { done, total = d, t; bar.tick() }
-	out, err := p.Search(ordering.SearchOptions{Keep: *keep, Method: m, Seed: *seed, Sweeps: *sweeps, Restarts: *restarts, Progress: progress})
+	out, err := p.Search(cells.SearchOptions{Keep: *keep, Method: m, Seed: *seed, Sweeps: *sweeps, Restarts: *restarts, Progress: progress})
 	bar.finish()
 	if err != nil {
 		return orderingError(err)
@@ -112,29 +110,29 @@ func runOrderings(env Env, args []string) error {
 }
 
 func orderingError(err error) error {
-	if errors.Is(err, ordering.ErrSpec) || errors.Is(err, ewald.ErrTooLarge) {
+	if errors.Is(err, cells.ErrSpec) || errors.Is(err, cells.ErrTooLarge) {
 		return &UsageError{err}
 	}
 	return err
 }
 
 // parseSiteSpecs reads --site SEL=SPECIES:CHARGE:FRACTION,...
-func parseSiteSpecs(items []string) ([]ordering.SiteSpec, error) {
-	var specs []ordering.SiteSpec
+func parseSiteSpecs(items []string) ([]cells.SiteSpec, error) {
+	var specs []cells.SiteSpec
 	for _, item := range items {
 		sel, rest, ok := strings.Cut(item, "=")
 		sel = strings.TrimSpace(sel)
 		if !ok || sel == "" || strings.TrimSpace(rest) == "" {
 			return nil, Usagef("--site %q: want SEL=SPECIES:CHARGE:FRACTION,... (e.g. M=Li:+1:0.5,vac:0.5)", item)
 		}
-		spec := ordering.SiteSpec{Match: sel}
+		spec := cells.SiteSpec{Match: sel}
 		parts := strings.Split(rest, ",")
 		for _, part := range parts {
 			f := strings.Split(strings.TrimSpace(part), ":")
 			bad := func(why string) error {
 				return Usagef("--site %q: occupant %q: %s", item, part, why)
 			}
-			var o ordering.Occupant
+			var o cells.Occupant
 			switch {
 			case strings.EqualFold(f[0], "vac") && len(f) == 2:
 				x, err := parseFraction(f[1])
@@ -186,7 +184,7 @@ func parseFraction(s string) (float64, error) {
 
 // writeOrderingCIFs writes ordering-NN.cif files into dir and returns their
 // paths.
-func writeOrderingCIFs(dir string, p *ordering.Problem, out ordering.Outcome) ([]string, error) {
+func writeOrderingCIFs(dir string, p *cells.Problem, out cells.Outcome) ([]string, error) {
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return nil, Usagef("--cif-dir %s: %v", dir, err)
 	}
@@ -201,7 +199,7 @@ func writeOrderingCIFs(dir string, p *ordering.Problem, out ordering.Outcome) ([
 			fmt.Sprintf("enthalpath orderings: rank %d of %s, Ewald energy %.10f eV per cell (conducting boundary), multiplicity %d",
 				k+1, p.Parent.Name, o.EnergyEV, o.Multiplicity),
 		}
-		err = cif.Write(f, p.Crystal(o.Assignment), comment)
+		err = cells.WriteCIF(f, p.Crystal(o.Assignment), comment)
 		if cerr := f.Close(); err == nil {
 			err = cerr
 		}
@@ -213,14 +211,14 @@ func writeOrderingCIFs(dir string, p *ordering.Problem, out ordering.Outcome) ([
 	return files, nil
 }
 
-func occupantLabel(o ordering.Occupant) string {
+func occupantLabel(o cells.Occupant) string {
 	if o.Vacant() {
 		return "vacancy"
 	}
 	return o.Species + minus(fmt.Sprintf("%+g", o.Charge))
 }
 
-func printOrderings(w io.Writer, p *ordering.Problem, out ordering.Outcome, files []string, seed int64, sweeps, restarts int) {
+func printOrderings(w io.Writer, p *cells.Problem, out cells.Outcome, files []string, seed int64, sweeps, restarts int) {
 	fmt.Fprintf(w, "structure   %s, %d sites, %d of them mixed\n", p.Parent.Name, len(p.Parent.Sites), len(p.Mixed))
 	for _, g := range p.Groups {
 		var occ []string
@@ -237,13 +235,13 @@ func printOrderings(w io.Writer, p *ordering.Problem, out ordering.Outcome, file
 	}
 	fmt.Fprintf(w, "orderings   %.6g in all, counting symmetry-equivalent ones; %s\n", out.Total, sym)
 	switch out.Method {
-	case ordering.Enumerate:
+	case cells.Enumerate:
 		fmt.Fprintf(w, "search      enumeration of all %d orderings\n", out.Visited)
 	default:
 		fmt.Fprintf(w, "search      simulated annealing, %d restarts × %d sweeps, seed %d: %d swaps tried\n", restarts, sweeps, seed, out.Visited)
 		fmt.Fprintln(w, "            annealing can miss the lowest ordering: compare runs with other seeds")
 	}
-	fmt.Fprintf(w, "energy      Ewald, point charges, %s; eV per cell\n\n", ewald.Boundary)
+	fmt.Fprintf(w, "energy      Ewald, point charges, %s; eV per cell\n\n", cells.Boundary)
 	head := []string{"rank", "energy / eV", "above lowest / meV", "multiplicity"}
 	if files != nil {
 		head = append(head, "file")
@@ -296,10 +294,10 @@ type orderingsOutput struct {
 	Translations bool                `json:"translations_only,omitempty"`
 }
 
-func orderingsJSON(p *ordering.Problem, out ordering.Outcome, files []string, seed int64) orderingsOutput {
+func orderingsJSON(p *cells.Problem, out cells.Outcome, files []string, seed int64) orderingsOutput {
 	o := orderingsOutput{Structure: p.Parent.Name, SiteCount: len(p.Parent.Sites), Total: out.Total, Operations: out.Operations,
-		Method: string(out.Method), Visited: out.Visited, Boundary: ewald.Boundary, Translations: out.TranslationsOnly}
-	if out.Method == ordering.Anneal {
+		Method: string(out.Method), Visited: out.Visited, Boundary: cells.Boundary, Translations: out.TranslationsOnly}
+	if out.Method == cells.Anneal {
 		o.Seed = &seed
 	}
 	for _, g := range p.Groups {

@@ -11,7 +11,6 @@ import (
 
 	"enthalpath/cycle/analysis"
 	"enthalpath/thermo"
-	"enthalpath/thermo/gibbs"
 )
 
 const stabilitySynopsis = "stability FORMULA [--temperature K] [--pressure BAR] [--from K] [--to K] [--points N] [--estimate-only] [--charges M=+2,X=-1] [--model MODEL] [--structure PROTOTYPE] [--set KEY=VALUE] [--json|--csv] [--svg FILE]"
@@ -235,12 +234,32 @@ type thermoJSON struct {
 	FormationEntJK *quantityJSON `json:"formation_entropy_j_per_mol_k"`
 	VolumeNM3      *quantityJSON `json:"formula_unit_volume_nm3,omitempty"`
 	AdditiveJK     *quantityJSON `json:"additive_entropy_j_per_mol_k,omitempty"`
+	// EntropyDomain is set when the entropy is the volume-based estimate.
+	EntropyDomain *entropyDomainJSON `json:"volume_entropy_domain,omitempty"`
+}
+
+// entropyDomainJSON is the volume line's domain verdict (analysis.EntropyDomain).
+type entropyDomainJSON struct {
+	Judged       bool       `json:"judged"`
+	Inside       bool       `json:"inside"`
+	DebyeK       jsonNumber `json:"debye_temperature_k,omitempty"`
+	DebyeEntropy jsonNumber `json:"debye_lattice_entropy_j_per_mol_k,omitempty"`
+	Verdict      string     `json:"verdict"`
 }
 
 func thermoJSONOf(t analysis.Thermo) *thermoJSON {
 	return &thermoJSON{Formula: t.Formula, Name: t.Name, State: t.State, Known: t.Known, Molecular: t.Molecular,
 		FormationKJ: quantityJSONOf(t.Formation), EntropyJK: quantityJSONOf(t.Entropy), GibbsKJ: quantityJSONOf(t.Gibbs),
-		FormationEntJK: quantityJSONOf(t.FormationEntropy), VolumeNM3: quantityJSONOf(t.Volume), AdditiveJK: quantityJSONOf(t.AdditiveEntropy)}
+		FormationEntJK: quantityJSONOf(t.FormationEntropy), VolumeNM3: quantityJSONOf(t.Volume), AdditiveJK: quantityJSONOf(t.AdditiveEntropy),
+		EntropyDomain: entropyDomainJSONOf(t.EntropyDomain)}
+}
+
+func entropyDomainJSONOf(d *analysis.EntropyDomain) *entropyDomainJSON {
+	if d == nil {
+		return nil
+	}
+	return &entropyDomainJSON{Judged: d.Judged, Inside: d.Inside, DebyeK: jsonNumber(d.DebyeTemperature),
+		DebyeEntropy: jsonNumber(d.DebyeEntropy), Verdict: d.String()}
 }
 
 type pointJSON struct {
@@ -321,7 +340,7 @@ func writeStabilityCSV(w io.Writer, st *analysis.Stability) error {
 	f := func(v float64) string { return strconv.FormatFloat(v, 'f', 3, 64) }
 	for i, r := range st.Reactions {
 		for _, p := range st.Curves[i] {
-			v := gibbs.Judge(p.Gibbs, p.Uncertainty).String()
+			v := analysis.CurveVerdict(p).String()
 			cw.Write([]string{r.Equation, r.Kind, f(p.Temperature), f(p.Gibbs), f(p.Uncertainty), strconv.FormatFloat(st.Pressure, 'g', -1, 64), v, r.HeatCapacityBasis()})
 		}
 	}

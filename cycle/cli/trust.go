@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"enthalpath/cycle"
+	"enthalpath/data"
 )
 
 const trustSynopsis = "trust [--json] [--list]"
@@ -31,11 +32,35 @@ func runTrust(env Env, args []string) error {
 		return err
 	}
 	v := cycle.Validate(db, cycle.NewMemo())
+	matches, err := cycle.MatchesBuiltinCalibration(v)
+	if err != nil {
+		return err
+	}
 	if asJSON {
-		return writeJSON(env.Stdout, trustJSONOf(v))
+		j := trustJSONOf(v)
+		j.CalibrationMatches, j.Overlays = matches, db.Overlays()
+		return writeJSON(env.Stdout, j)
 	}
 	writeTrust(env.Stdout, v, list)
+	writeCalibrationCheck(env.Stdout, matches, db.Overlays())
 	return nil
+}
+
+// writeCalibrationCheck says whether the built-in calibration, where the
+// other commands take their σ and thresholds from, matches this report.
+func writeCalibrationCheck(w io.Writer, matches bool, overlays []string) {
+	fmt.Fprintln(w)
+	const table = "the built-in calibration (data/tables/" + data.CalibrationFile + "), which the verdicts and estimates read their σ and thresholds from,"
+	switch {
+	case len(overlays) > 0 && matches:
+		fmt.Fprintf(w, "%s\nmatches this report: the data file %s does not change it.\n", table, strings.Join(overlays, ", "))
+	case len(overlays) > 0:
+		fmt.Fprintf(w, "%s\ndiffers from this report, which includes the data file %s; the verdicts keep the built-in calibration.\n", table, strings.Join(overlays, ", "))
+	case matches:
+		fmt.Fprintf(w, "%s\nmatches this report.\n", table)
+	default:
+		fmt.Fprintf(w, "%s\ndiffers from this report: the program was built with a stale table (go run ./cycle/calibgen rewrites it).\n", table)
+	}
 }
 
 // familyReference is the model the verdict of a compound of the family is
@@ -140,6 +165,9 @@ type trustJSON struct {
 	Models    []modelTrustJSON   `json:"models"`
 	Reference map[string]string  `json:"verdict_model_without_extended"`
 	NotClosed []notEvaluatedJSON `json:"cycle_does_not_close"`
+	// CalibrationMatches: the built-in calibration equals this report.
+	CalibrationMatches bool     `json:"builtin_calibration_matches"`
+	Overlays           []string `json:"data_files,omitempty"`
 }
 
 func trustJSONOf(v *cycle.Validation) trustJSON {

@@ -49,6 +49,9 @@ func (m *Model) stability(s *analysis.Stability) []string {
 	}
 	lines = append(lines, m.row(fmt.Sprintf("  %s (%s): ΔfH° %s · S° %s J/(mol·K) · ΔfG°(298 K) %s", c.Formula, what,
 		quantityPM(m, c.Formation), entropyPM(c.Entropy), quantityPM(m, c.Gibbs))))
+	if d := c.EntropyDomain; d != nil && d.Judged && !d.Inside {
+		lines = append(lines, m.row("  S°: "+d.String()))
+	}
 	if len(s.Reactions) > 0 {
 		lines = append(lines, st.Title.Render(fmt.Sprintf("  %-30s %24s %24s  %s", "reaction", "ΔrH°", fmt.Sprintf("ΔrG(%g K)", s.Temperature), "verdict")))
 	}

@@ -7,7 +7,6 @@ import (
 	"strings"
 
 	"enthalpath/cycle"
-	"enthalpath/thermo/crystal"
 )
 
 // setting is one editable row: how to show it, parse a typed value, step
@@ -69,8 +68,8 @@ func settingsRows() []setting {
 					// compound's ions, so a plain structure file works too.
 					return c.LoadStructureFile(path, text)
 				}
-				if _, err := crystal.LookupPrototype(text); err != nil {
-					return fmt.Errorf("%q is neither a prototype (%s) nor a .cif file", text, strings.Join(crystal.PrototypeNames(), ", "))
+				if err := cycle.CheckPrototype(text); err != nil {
+					return fmt.Errorf("%q is neither a prototype (%s) nor a .cif file", text, strings.Join(cycle.PrototypeNames(), ", "))
 				}
 				if err := cycle.PrototypeFits(c, text); err != nil {
 					return err // refused when chosen, not three models failing later
@@ -85,7 +84,7 @@ func settingsRows() []setting {
 			choices: func(c *cycle.Cycle) []string {
 				// Only the prototypes that can hold the compound's ions.
 				var out []string
-				for _, n := range crystal.PrototypeNames() {
+				for _, n := range cycle.PrototypeNames() {
 					if cycle.PrototypeFits(c, n) == nil {
 						out = append(out, n)
 					}

@@ -6,14 +6,14 @@ import (
 
 	"github.com/charmbracelet/x/ansi"
 
-	"enthalpath/thermo/lattice"
+	"enthalpath/cycle"
 )
 
 // TestVerdictFitsAndIsExplained: every verdict has a wording that fits a
 // column of VerdictCodeWidth, a wider column gets the words of
 // thermo/lattice unchanged, and every code is explained by the legend.
 func TestVerdictFitsAndIsExplained(t *testing.T) {
-	for _, c := range []lattice.Character{lattice.Undetermined, lattice.IonicAdequate, lattice.SomeCovalent, lattice.SubstantialCovalent, lattice.ModelOverbinds} {
+	for _, c := range []cycle.Character{cycle.Undetermined, cycle.IonicAdequate, cycle.SomeCovalent, cycle.SubstantialCovalent, cycle.ModelOverbinds} {
 		if w, _ := Verdict(c, 200); w != c.String() {
 			t.Errorf("%v at width 200: %q, want lattice's %q", c, w, c.String())
 		}

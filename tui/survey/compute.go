@@ -8,7 +8,6 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/cycle/analysis"
 	"enthalpath/data"
-	"enthalpath/thermo/lattice"
 )
 
 // Row is one compound of the survey. Energies are kJ/mol, lattice steps
@@ -23,7 +22,7 @@ type Row struct {
 	// available); Gaps[i] and GapPercents[i] its gap to the cycle.
 	Models, Gaps, GapPercents []float64
 	// Verdicts[i] is model i's verdict (Undetermined when not available).
-	Verdicts []lattice.Character
+	Verdicts []cycle.Character
 }
 
 // ComputedMsg carries the survey's rows.
@@ -47,7 +46,7 @@ func computeRows(db *data.DB) []Row {
 		r.Models = nanSlice(len(names))
 		r.Gaps = nanSlice(len(names))
 		r.GapPercents = nanSlice(len(names))
-		r.Verdicts = make([]lattice.Character, len(names))
+		r.Verdicts = make([]cycle.Character, len(names))
 		if res := e.Result; res != nil {
 			r.Cycle = res.Lattice.In(res.Conventions.Lattice)
 			for i, name := range names {

@@ -15,7 +15,6 @@ import (
 
 	"enthalpath/cycle"
 	"enthalpath/thermo"
-	"enthalpath/thermo/lattice"
 	"enthalpath/tui/plot"
 	"enthalpath/tui/screen"
 	"enthalpath/tui/session"
@@ -336,7 +335,7 @@ func (m *Model) table(h int) []string {
 	b.WriteString("verdict")
 	out := []string{st.Title.Render(screen.Truncate(b.String(), m.w))}
 	note := "gap = cycle − model; negative: the cycle binds more than the ionic model"
-	if _, code := screen.Verdict(lattice.SubstantialCovalent, verdictW); code {
+	if _, code := screen.Verdict(cycle.SubstantialCovalent, verdictW); code {
 		note = "gap = cycle − model · " + screen.VerdictLegend
 	}
 	footer := func(rows int) []string {
