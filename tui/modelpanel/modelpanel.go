@@ -24,7 +24,9 @@ type Model struct {
 	rows   []setting
 	cursor int
 	edit   prompt.Slot // the highlighted setting, while typed
-	w, h   int
+	// reading is the structure file being read by a command, "" if none.
+	reading string
+	w, h    int
 }
 
 var _ screen.Screen = (*Model)(nil)
@@ -81,8 +83,11 @@ func (m *Model) FullHelp() [][]key.Binding {
 	return [][]key.Binding{{k.Up, k.Down}, {k.Edit, k.Next, k.Prev, k.Default}}
 }
 
-// Update handles keys.
+// Update handles keys and the answer of a structure file read.
 func (m *Model) Update(msg tea.Msg) tea.Cmd {
+	if r, ok := msg.(structureReadMsg); ok {
+		return m.structureRead(r)
+	}
 	k, ok := msg.(tea.KeyMsg)
 	if !ok || m.edit.Active() {
 		return m.edit.Update(msg)
@@ -99,8 +104,7 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	case key.Matches(k, km.Down):
 		m.cursor = min(len(m.rows)-1, m.cursor+1)
 	case key.Matches(k, km.Edit):
-		m.edit.Open(prompt.New(m.ctx.Styles, "", "", "", m.ctx.MaxInputLen, m.acceptSetting(row),
-			prompt.WithLabel(row.name+" › "), prompt.WithPlaceholder(row.hint)))
+		m.openEdit(row, "")
 	case key.Matches(k, km.Next), key.Matches(k, km.Prev):
 		d := 1
 		if key.Matches(k, km.Prev) {
@@ -118,11 +122,21 @@ func (m *Model) Update(msg tea.Msg) tea.Cmd {
 	return nil
 }
 
+// openEdit opens the prompt to type row's value, starting from text.
+func (m *Model) openEdit(row setting, text string, opts ...prompt.Option) {
+	opts = append([]prompt.Option{prompt.WithLabel(row.name + " › "), prompt.WithPlaceholder(row.hint)}, opts...)
+	m.edit.Open(prompt.New(m.ctx.Styles, "", text, "", m.ctx.MaxInputLen, m.acceptSetting(row), opts...))
+}
+
 // acceptSetting applies text typed for row through its parse, which
 // refuses what the setting cannot take; the status line says the result.
+// A structure file is read by a command instead (structurefile.go).
 func (m *Model) acceptSetting(row setting) prompt.Accept {
 	return func(text string) (tea.Cmd, error) {
-		cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return row.parse(c, text, m.ctx.ResolvePath) })
+		if row.file && isStructureFile(text) {
+			return m.readStructure(row, text)
+		}
+		cmd, err := m.sess.Change(func(c *cycle.Cycle) error { return row.parse(c, text) })
 		if err != nil {
 			return nil, err
 		}
@@ -144,16 +158,16 @@ func (m *Model) View() string {
 	case res != nil && ref != "":
 		// The lattice step is a model's: the reference is named for what
 		// it is, and the gaps below are one model against another.
-		head := fmt.Sprintf("%s: lattice from the %s model %s = %s %s %s", c.Formula, ref, c.Conventions.Lattice.Symbol(),
-			m.ctx.Signed(res.Lattice.In(c.Conventions.Lattice)), m.ctx.Uncertainty(res.Lattice.Uncertainty), m.ctx.Units)
+		head := fmt.Sprintf("%s: lattice from the %s model %s = %s %s", c.Formula, ref, c.Conventions.Lattice.Symbol(),
+			m.ctx.SignedPM(res.Lattice.In(c.Conventions.Lattice), res.Lattice.Uncertainty), m.ctx.Units)
 		if more := " · " + res.Solved.Key + " solved from it"; len([]rune(head+more)) <= m.w {
 			head += more
 		}
 		lines = append(lines, st.Title.Render(screen.Truncate(head, m.w)))
 	case res != nil:
 		cycleValue := res.Lattice.In(c.Conventions.Lattice)
-		lines = append(lines, st.Title.Render(fmt.Sprintf("%s: cycle lattice %s = %s %s %s", c.Formula, c.Conventions.Lattice.Symbol(),
-			m.ctx.Signed(cycleValue), m.ctx.Uncertainty(res.Lattice.Uncertainty), m.ctx.Units)))
+		lines = append(lines, st.Title.Render(fmt.Sprintf("%s: cycle lattice %s = %s %s", c.Formula, c.Conventions.Lattice.Symbol(),
+			m.ctx.SignedPM(cycleValue, res.Lattice.Uncertainty), m.ctx.Units)))
 	case !m.sess.Fresh():
 		lines = append(lines, st.Muted.Render("solving…"))
 	default:
@@ -177,8 +191,11 @@ func (m *Model) View() string {
 	// The settings take the rows left; when too few, the list scrolls with
 	// the cursor and its title says which rows are shown.
 	var edit []string
-	if m.edit.Active() {
+	switch {
+	case m.edit.Active():
 		edit = strings.Split(m.edit.View(), "\n")
+	case m.reading != "":
+		edit = []string{st.Muted.Render(screen.Truncate("reading "+m.reading+" and assigning its charges…", m.w))}
 	}
 	room := m.h - len(lines) - 2 - len(edit)
 	if room < len(m.rows) {

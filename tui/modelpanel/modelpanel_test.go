@@ -207,6 +207,53 @@ func TestStructureFromACIFFile(t *testing.T) {
 	}
 }
 
+// TestStructureFileReadOffUpdate: reading a CIF and assigning its charges
+// runs in a command, not inside Update: before the command has run the
+// structure is unchanged and the panel says it is reading the file; after
+// it the file's structure is the cycle's. A file that cannot be read comes
+// back to the prompt with the reason, the structure kept.
+func TestStructureFileReadOffUpdate(t *testing.T) {
+	f, m, u := setup(t, "NaCl")
+	src, err := os.ReadFile("../../testdata/cif/real_NaCl_rocksalt_Fm-3m.cif")
+	if err != nil {
+		t.Skipf("no rock-salt CIF in testdata/cif: %v", err)
+	}
+	dir := filepath.Dir(must(f.Ctx.ResolvePath("x")))
+	for name, text := range map[string][]byte{"salt.cif": src, "junk.cif": []byte("not a structure\n")} {
+		if err := os.WriteFile(filepath.Join(dir, name), text, 0o600); err != nil {
+			t.Fatal(err)
+		}
+	}
+	before := f.Session.Cycle.Settings.Structure.Name()
+	moveTo(t, m, u, "structure")
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("salt.cif")...)
+	cmd := u(drive.Key("enter"))
+	if got := f.Session.Cycle.Settings.Structure.Name(); got != before {
+		t.Fatalf("structure %q inside Update, want %q until the command has run", got, before)
+	}
+	if v := m.View(); !strings.Contains(v, "reading salt.cif") {
+		t.Errorf("no reading state before the command ran:\n%s", v)
+	}
+	drive.RunCmd(u, cmd)
+	if got := f.Session.Cycle.Settings.Structure.Name(); got != "salt.cif" {
+		t.Errorf("structure %q after the command, want salt.cif", got)
+	}
+	if v := m.View(); strings.Contains(v, "reading salt.cif") {
+		t.Errorf("still reading once read:\n%s", v)
+	}
+
+	drive.Run(u, drive.Key("e"))
+	drive.Run(u, drive.Text("junk.cif")...)
+	drive.RunCmd(u, u(drive.Key("enter")))
+	if editing, err := m.Editing(); !editing || err == nil {
+		t.Errorf("junk.cif: editing %v, refusal %v; want the prompt back with the reason", editing, err)
+	}
+	if got := f.Session.Cycle.Settings.Structure.Name(); got != "salt.cif" {
+		t.Errorf("structure %q after a refused file, want salt.cif kept", got)
+	}
+}
+
 func must(s string, err error) string {
 	if err != nil {
 		panic(err)
@@ -330,7 +377,7 @@ func TestSettingsTakeTheEngineBounds(t *testing.T) {
 		r := find(tc.row)
 		for _, v := range tc.values {
 			c := f.Session.Cycle.Clone()
-			err := r.parse(c, strconv.FormatFloat(v, 'g', -1, 64), nil)
+			err := r.parse(c, strconv.FormatFloat(v, 'g', -1, 64))
 			if want := cycle.CheckSetting(tc.setting, v) == nil; (err == nil) != want {
 				t.Errorf("%s row, %g: %v; engine bound accepts: %v", tc.row, v, err, want)
 			}

@@ -15,11 +15,14 @@ type setting struct {
 	name string
 	show func(s *cycle.Settings) string
 	// parse applies typed text; nil for choice-only settings.
-	parse func(c *cycle.Cycle, text string, resolve func(string) (string, error)) error
+	parse func(c *cycle.Cycle, text string) error
 	// choices, when set, are stepped through with ←/→ (text forms).
 	choices func(c *cycle.Cycle) []string
 	reset   func(c *cycle.Cycle)
 	hint    string
+	// file is true for the setting whose typed value may name a structure
+	// file: such a value is read by a command (structurefile.go), not parse.
+	file bool
 }
 
 // bounded reads a number typed for a model setting and checks it against
@@ -57,17 +60,8 @@ func settingsRows() []setting {
 				}
 				return n
 			},
-			parse: func(c *cycle.Cycle, text string, resolve func(string) (string, error)) error {
+			parse: func(c *cycle.Cycle, text string) error {
 				text = strings.TrimSpace(text)
-				if strings.HasSuffix(strings.ToLower(text), ".cif") {
-					path, err := resolve(text)
-					if err != nil {
-						return err
-					}
-					// Charges the file does not state are assigned from the
-					// compound's ions, so a plain structure file works too.
-					return c.LoadStructureFile(path, text)
-				}
 				if err := cycle.CheckPrototype(text); err != nil {
 					return fmt.Errorf("%q is neither a prototype (%s) nor a .cif file", text, strings.Join(cycle.PrototypeNames(), ", "))
 				}
@@ -95,6 +89,7 @@ func settingsRows() []setting {
 				c.Settings.Structure = cycle.Structure{Prototype: c.Compound.Structure, Params: c.Compound.Params, FromData: c.Compound.Structure != ""}
 			},
 			hint: "a prototype name (←/→ steps through them) or the name of a .cif file",
+			file: true,
 		},
 		{
 			name: "ρ (Born–Mayer range)",
@@ -104,7 +99,7 @@ func settingsRows() []setting {
 				}
 				return autoOr(s.Rho, " Å")
 			},
-			parse: func(c *cycle.Cycle, text string, _ func(string) (string, error)) error {
+			parse: func(c *cycle.Cycle, text string) error {
 				v, err := bounded(cycle.SettingRho, text)
 				if err == nil {
 					c.Settings.Rho = v
@@ -122,7 +117,7 @@ func settingsRows() []setting {
 				}
 				return autoOr(s.BornExponent, "")
 			},
-			parse: func(c *cycle.Cycle, text string, _ func(string) (string, error)) error {
+			parse: func(c *cycle.Cycle, text string) error {
 				v, err := bounded(cycle.SettingBornExponent, text)
 				if err == nil {
 					c.Settings.BornExponent = v
@@ -135,7 +130,7 @@ func settingsRows() []setting {
 		{
 			name: "radii",
 			show: func(s *cycle.Settings) string { return s.Radius.String() + " (Shannon 1976)" },
-			parse: func(c *cycle.Cycle, text string, _ func(string) (string, error)) error {
+			parse: func(c *cycle.Cycle, text string) error {
 				k, err := cycle.ParseRadiusKind(text)
 				if err == nil {
 					c.Settings.Radius = k
@@ -156,7 +151,7 @@ func settingsRows() []setting {
 				}
 				return s.Distance.String()
 			},
-			parse: func(c *cycle.Cycle, text string, _ func(string) (string, error)) error {
+			parse: func(c *cycle.Cycle, text string) error {
 				d, v, err := cycle.ParseDistance(text)
 				if err == nil {
 					c.Settings.Distance, c.Settings.D0 = d, v
@@ -175,7 +170,7 @@ func settingsRows() []setting {
 				}
 				return s.LatticeFrom + " model (another step is solved)"
 			},
-			parse: func(c *cycle.Cycle, text string, _ func(string) (string, error)) error {
+			parse: func(c *cycle.Cycle, text string) error {
 				text = strings.TrimSpace(text)
 				if text == "" || text == "cycle" {
 					c.Settings.LatticeFrom = ""
@@ -203,7 +198,7 @@ func cnRow(name string, field func(s *cycle.Settings) *int) setting {
 			}
 			return strconv.Itoa(*field(s))
 		},
-		parse: func(c *cycle.Cycle, text string, _ func(string) (string, error)) error {
+		parse: func(c *cycle.Cycle, text string) error {
 			v, err := strconv.Atoi(strings.TrimSpace(text))
 			if err != nil {
 				return fmt.Errorf("%s: %q is not a coordination number (a whole number)", name, text)
@@ -236,5 +231,5 @@ func step(s setting, c *cycle.Cycle, d int) error {
 	} else {
 		i = (i + d + len(ch)) % len(ch)
 	}
-	return s.parse(c, ch[i], func(n string) (string, error) { return n, nil })
+	return s.parse(c, ch[i])
 }

@@ -71,6 +71,11 @@ func WithProposal() Option { return func(m *Model) { m.proposed = m.input.Value(
 // Prev and Next put one into the input as a proposal.
 func WithChoices(choices []string) Option { return func(m *Model) { m.choices = choices } }
 
+// WithRefusal opens the prompt showing err, as if its initial answer had
+// just been refused (an answer checked by a command, off the Update path,
+// comes back to the prompt this way).
+func WithRefusal(err error) Option { return func(m *Model) { m.err = err } }
+
 // maxChoicesShown bounds the lines the choices take under the input.
 const maxChoicesShown = 6
 
