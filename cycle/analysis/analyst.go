@@ -32,6 +32,13 @@ type Analyst struct {
 	spreads map[string]spreadEntry
 	built   map[string]builtEntry
 	radii   map[ionKey]radiusEntry
+	symbols map[chargeKey]string // ionSymbol's answers
+}
+
+// chargeKey names an ion by its core and charge (ionSymbol's memo).
+type chargeKey struct {
+	core   string
+	charge int
 }
 
 // ionKey names an ion in the radius memo.
@@ -112,7 +119,7 @@ func WithStandards(s Standards) Option { return func(a *Analyst) { a.standards =
 
 // New returns an Analyst over db (which it only reads).
 func New(db *data.DB, opts ...Option) *Analyst {
-	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[ionKey]radiusEntry{}}
+	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[ionKey]radiusEntry{}, symbols: map[chargeKey]string{}}
 	for _, o := range opts {
 		o(a)
 	}

@@ -296,11 +296,29 @@ func (a *Analyst) ionsFromCharges(formula string, ch Charges) (string, string, e
 	return cat, an, nil
 }
 
+// ionSymbol is the symbol of the data's ion of core with charge z, or the
+// symbol of a hypothetical one; remembered per Analyst, since a lookup that
+// misses words its suggestions over every ion of the data.
 func (a *Analyst) ionSymbol(core string, z int) string {
-	if in, err := a.db.IonByCharge(core, z); err == nil {
-		return in.Symbol
+	key := chargeKey{core, z}
+	a.mu.Lock()
+	sym, ok := a.symbols[key]
+	a.mu.Unlock()
+	if ok {
+		return sym
 	}
-	return core + notation.ChargeSuffix(z, false)
+	if in, err := a.db.IonByCharge(core, z); err == nil {
+		sym = in.Symbol
+	} else {
+		sym = core + notation.ChargeSuffix(z, false)
+	}
+	a.mu.Lock()
+	if len(a.symbols) >= maxBuilt {
+		clear(a.symbols)
+	}
+	a.symbols[key] = sym
+	a.mu.Unlock()
+	return sym
 }
 
 // dataIon returns the symbol of the data's monatomic ion of element el with
