@@ -33,6 +33,8 @@ type Analyst struct {
 	built   map[string]builtEntry
 	radii   map[ionKey]radiusEntry
 	symbols map[chargeKey]string // ionSymbol's answers
+	// familySpreads are spreadFor's answers by model and family.
+	familySpreads map[[2]string]Spread
 }
 
 // chargeKey names an ion by its core and charge (ionSymbol's memo).
@@ -119,7 +121,7 @@ func WithStandards(s Standards) Option { return func(a *Analyst) { a.standards =
 
 // New returns an Analyst over db (which it only reads).
 func New(db *data.DB, opts ...Option) *Analyst {
-	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[ionKey]radiusEntry{}, symbols: map[chargeKey]string{}}
+	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[ionKey]radiusEntry{}, symbols: map[chargeKey]string{}, familySpreads: map[[2]string]Spread{}}
 	for _, o := range opts {
 		o(a)
 	}
@@ -186,6 +188,25 @@ func spreadOf(c *cycle.Cycle, model string) Spread {
 	f := v.SigmaStats(model, cycle.ValidationFamily(c))
 	return Spread{Model: model, Family: f.Family, Compounds: f.N, MeanPercent: f.MeanPercent, RMSPercent: f.RMSPercent,
 		MaxPercent: f.MaxPercent, Worst: f.Worst}
+}
+
+// spreadFor is spreadOf with its basis worded, once per Analyst, model and
+// family: the validation c reads is the Analyst's data's (c is built from
+// them), so the spread depends on nothing else.
+func (a *Analyst) spreadFor(c *cycle.Cycle, model string) Spread {
+	key := [2]string{model, cycle.ValidationFamily(c)}
+	a.mu.Lock()
+	s, ok := a.familySpreads[key]
+	a.mu.Unlock()
+	if ok {
+		return s
+	}
+	s = spreadOf(c, model)
+	s.basis = s.Basis()
+	a.mu.Lock()
+	a.familySpreads[key] = s // bounded: models × families
+	a.mu.Unlock()
+	return s
 }
 
 // ModelSpread computes (once per Analyst and model, then remembers) the

@@ -216,7 +216,7 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 	} else if m, err = cycle.EvaluateModel(c, model); err != nil {
 		return nil, nil, &InputError{Subject: formula, Field: "lattice step", Reason: "the " + model + " model cannot give it", Err: err}
 	}
-	spread := spreadOf(c, model)
+	spread := a.spreadFor(c, model)
 	if !(spread.RMSPercent > 0) {
 		return nil, nil, &InputError{Subject: formula, Field: "model uncertainty", Reason: "the " + model + " model could not be validated on the built-in compounds"}
 	}
