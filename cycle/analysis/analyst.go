@@ -87,6 +87,12 @@ const maxBuilt = 1024
 // built once per Analyst: a data lookup of a formula the data do not have
 // is far slower than copying the cycle built the first time.
 func (a *Analyst) build(formula, cation, anion string) (*cycle.Cycle, error) {
+	return a.buildInto(formula, cation, anion, nil)
+}
+
+// buildInto is build copying the cycle into into's storage when into is
+// not nil (see cycle.Cycle.CloneInto): a batch worker's one scratch cycle.
+func (a *Analyst) buildInto(formula, cation, anion string, into *cycle.Cycle) (*cycle.Cycle, error) {
 	key := formula + "|" + cation + "|" + anion
 	a.mu.Lock()
 	e, ok := a.built[key]
@@ -104,7 +110,10 @@ func (a *Analyst) build(formula, cation, anion string) (*cycle.Cycle, error) {
 	if e.err != nil {
 		return nil, e.err
 	}
-	return e.c.Clone(), nil
+	if into == nil {
+		return e.c.Clone(), nil
+	}
+	return e.c.CloneInto(into), nil
 }
 
 type spreadEntry struct {

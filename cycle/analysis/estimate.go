@@ -107,7 +107,14 @@ func (a *Analyst) quickEstimate(formula string, opt EstimateOptions) (*Estimate,
 
 // quickEstimateCycle is quickEstimate with the cycle it solved.
 func (a *Analyst) quickEstimateCycle(formula string, opt EstimateOptions) (*Estimate, *cycle.Cycle, error) {
-	c, est, err := a.prepare(formula, opt)
+	return a.quickEstimateInto(formula, opt, nil)
+}
+
+// quickEstimateInto is quickEstimateCycle building the cycle in into's
+// storage when into is not nil (see buildInto): the estimate's Solved step
+// then refers into into, valid until into is used again.
+func (a *Analyst) quickEstimateInto(formula string, opt EstimateOptions, into *cycle.Cycle) (*Estimate, *cycle.Cycle, error) {
+	c, est, err := a.prepareInto(formula, opt, into)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -137,6 +144,12 @@ func isCIFPath(s string) bool { return strings.HasSuffix(strings.ToLower(s), ".c
 
 // prepare builds the cycle with the model's lattice step and the unknown.
 func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *Estimate, error) {
+	return a.prepareInto(formula, opt, nil)
+}
+
+// prepareInto is prepare building the cycle in into's storage when into is
+// not nil (see buildInto).
+func (a *Analyst) prepareInto(formula string, opt EstimateOptions, into *cycle.Cycle) (*cycle.Cycle, *Estimate, error) {
 	model := opt.Model
 	if model == "" {
 		model = DefaultModel
@@ -154,7 +167,7 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 			return nil, nil, err
 		}
 	}
-	c, err := a.build(formula, cation, anion)
+	c, err := a.buildInto(formula, cation, anion, into)
 	if err != nil {
 		return nil, nil, err
 	}
