@@ -125,6 +125,10 @@ type Validation struct {
 	// Compounds is how many compounds' cycles close; NotClosed the others.
 	Compounds int
 	NotClosed []NotEvaluated
+	// Molecular are the built-in compounds known to be molecular (CO2(g),
+	// TiCl4(l) …), left out: the models describe ionic solids, and a
+	// molecule's "gap" would measure nothing but that it is no salt.
+	Molecular []string
 	Models    []ModelValidation
 	// Builtin is true when the validation was read from the built-in
 	// calibration (data/tables/model_calibration.csv) rather than computed:
@@ -273,6 +277,10 @@ func Validate(db *data.DB, memo *Memo) *Validation {
 		accs[name] = make([]acc, len(families)+1) // the last one is "all"
 	}
 	for _, comp := range db.Compounds() {
+		if comp.Molecular {
+			v.Molecular = append(v.Molecular, comp.Formula)
+			continue
+		}
 		c, err := Build(db, comp.Formula, Options{Memo: memo})
 		if err != nil {
 			v.NotClosed = append(v.NotClosed, NotEvaluated{comp.Formula, err.Error()})

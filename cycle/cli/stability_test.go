@@ -229,3 +229,30 @@ func TestScanNamesKnownAndUndecided(t *testing.T) {
 		t.Errorf("2 CsF2 -> CsF + CsF3 found %d times", n)
 	}
 }
+
+// stability MgO --estimate-only --json: the estimate's volume-based S°
+// carries the volume line's domain verdict; MgO (calorimetric θ_D about
+// 946 K, from memory) is outside θ_D ≤ 2·298.15 K.
+func TestStabilityEntropyDomainJSON(t *testing.T) {
+	out, errs, code := runAnalysisCmd(t, "", "stability", "MgO", "--estimate-only", "--json")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var j struct {
+		Compound struct {
+			Domain *struct {
+				Judged  bool    `json:"judged"`
+				Inside  bool    `json:"inside"`
+				Debye   float64 `json:"debye_temperature_k"`
+				Verdict string  `json:"verdict"`
+			} `json:"volume_entropy_domain"`
+		} `json:"compound"`
+	}
+	if err := json.Unmarshal([]byte(out), &j); err != nil {
+		t.Fatal(err)
+	}
+	d := j.Compound.Domain
+	if d == nil || !d.Judged || d.Inside || !(d.Debye > 596.3) || !strings.Contains(d.Verdict, "OUTSIDE") {
+		t.Fatalf("MgO's estimate: domain %+v\n%s", d, out)
+	}
+}

@@ -118,6 +118,9 @@ func writeTrust(w io.Writer, v *cycle.Validation, list bool) {
 	for _, m := range v.Models {
 		fmt.Fprintf(w, " %s %d;", m.Model, len(m.NotEvaluated))
 	}
+	if len(v.Molecular) > 0 {
+		fmt.Fprintf(w, "\n%d known molecular compound(s) are left out: the models describe ionic solids", len(v.Molecular))
+	}
 	fmt.Fprintf(w, "\n%d compound(s) whose cycle does not close are left out", len(v.NotClosed))
 	if !list {
 		fmt.Fprintln(w, " (--list names every compound left out, with the reason)")
@@ -165,6 +168,8 @@ type trustJSON struct {
 	Models    []modelTrustJSON   `json:"models"`
 	Reference map[string]string  `json:"verdict_model_without_extended"`
 	NotClosed []notEvaluatedJSON `json:"cycle_does_not_close"`
+	// Molecular: the known molecular compounds left out of the statistics.
+	Molecular []string `json:"molecular_left_out"`
 	// CalibrationMatches: the built-in calibration equals this report.
 	CalibrationMatches bool     `json:"builtin_calibration_matches"`
 	Overlays           []string `json:"data_files,omitempty"`
@@ -183,7 +188,8 @@ func trustJSONOf(v *cycle.Validation) trustJSON {
 		}
 		return out
 	}
-	j := trustJSON{Compounds: v.Compounds, Reference: map[string]string{}, NotClosed: list(v.NotClosed)}
+	j := trustJSON{Compounds: v.Compounds, Reference: map[string]string{}, NotClosed: list(v.NotClosed),
+		Molecular: append([]string{}, v.Molecular...)}
 	for _, m := range v.Models {
 		_, basis := v.Thresholds(m.Model)
 		mj := modelTrustJSON{Model: m.Model, All: fam(m.All), Thresholds: basis, NotEvaluated: list(m.NotEvaluated)}

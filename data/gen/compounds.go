@@ -232,8 +232,9 @@ func (g *generator) mergeKept(row, k map[string]string, formation bool) {
 		mem = append(mem, "formation")
 	}
 	sourced := g.addCRCDensity(row, k["formula"], row["name"])
+	cellSourced := g.addDepositedCell(row, k)
 	for _, kv := range keptValueFields {
-		if kv.memory == "density" && sourced {
+		if kv.memory == "density" && sourced || kv.memory == "params" && cellSourced {
 			continue
 		}
 		if k[kv.field] != "" && memoryNames(k["memory"], kv.memory) {
@@ -249,6 +250,17 @@ func (g *generator) addCRCDensity(row map[string]string, formula, name string) b
 	d, loc, ok := g.crcDensity(formula, name)
 	if ok {
 		row["density_g_cm3"], row["density_source"], row["density_locator"] = d, keyCRCInorg, loc
+	}
+	return ok
+}
+
+// addDepositedCell writes the cell a deposited structure gives into the
+// row, keeping the typed one in the note, and says whether it found one.
+func (g *generator) addDepositedCell(row, k map[string]string) bool {
+	p, note, ok := g.depositedParams(k)
+	if ok {
+		row["params"], row["params_source"] = p, keyCODCells
+		row["note"] = strings.TrimPrefix(row["note"]+"; "+note, "; ")
 	}
 	return ok
 }

@@ -33,7 +33,8 @@ type generator struct {
 	nbsIdx  map[string][]int // formula → rows (all states)
 	nasa    []nasaSpecies
 	atct    map[string]atctSpecies
-	crc     map[string]crcRow // CRC physical constants by crcKey of the name
+	crc     map[string]crcRow        // CRC physical constants by crcKey of the name
+	cells   map[string]depositedCell // deposited structures by composition key
 	choices *choices
 
 	warnings []string
@@ -66,6 +67,9 @@ func newGenerator(sourcesDir, keptDir, tablesDir string) (*generator, error) {
 		return nil, err
 	}
 	if g.crc, err = readCRCInorganic(sourcesDir); err != nil {
+		return nil, err
+	}
+	if g.cells, err = readDepositedCells(sourcesDir); err != nil {
 		return nil, err
 	}
 	return g, nil

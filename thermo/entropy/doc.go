@@ -20,6 +20,8 @@
 // (the constants as stated in the paper's abstract). The paper's scatter
 // about the line is of the order of 10 %; the engine measures the scatter
 // of the line against the measured entropies it has and uses that as σ.
+// The line's domain (InVolumeDomain) is set by θ_D/T: a light, stiff
+// lattice has far less entropy at 298 K than its volume suggests.
 //
 // # Additive estimate
 //

@@ -21,8 +21,19 @@ func (s *system) reciprocalBox(kc float64) (b [3]crystal.Vec3, mmax [3]int) {
 // reciprocalSpace adds to phi[i] the reciprocal-space potential
 // (4π/V)·Σ_{k≠0} exp(−k²/4α²)/k²·Re(S(k)·e^{−ik·rᵢ}), S(k) = Σⱼ qⱼe^{ik·rⱼ},
 // over |k| ≤ kc, and returns the number of ±k pairs used. Each e^{ik·r} is
-// built from per-site powers of e^{2πi·fₐ}, by multiplication only.
+// built from per-site powers of e^{2πi·fₐ}, by multiplication only. A small
+// cell takes reciprocalSmall (smallcell.go), every other one
+// reciprocalGeneral.
 func (s *system) reciprocalSpace(alpha, kc float64, phi []float64) int {
+	if count, ok := s.reciprocalSmall(alpha, kc, phi); ok {
+		return count
+	}
+	return s.reciprocalGeneral(alpha, kc, phi)
+}
+
+// reciprocalGeneral is reciprocalSpace for a cell of any size, on tables
+// sized to the cell and in chunks that may run in parallel.
+func (s *system) reciprocalGeneral(alpha, kc float64, phi []float64) int {
 	n := len(s.q)
 	b, mmax := s.reciprocalBox(kc)
 	// pow[k][(m+M)*n + j] = e^{2πi·m·f_jk} as (re, im).

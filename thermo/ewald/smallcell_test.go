@@ -1,0 +1,89 @@
+package ewald
+
+import (
+	"math"
+	"math/rand"
+	"testing"
+
+	"enthalpath/thermo/crystal"
+)
+
+// TestReciprocalSmallEqualsGeneral: on random neutral cells of 2 to
+// smallSites sites (random lattice shapes, positions and charges, several
+// splitting parameters), the small-cell reciprocal sum gives the same
+// potentials as the general one to 1e-12 of the largest of them. The
+// reference is the package's general path, itself checked against
+// pymatgen in reference_test.go.
+func TestReciprocalSmallEqualsGeneral(t *testing.T) {
+	rng := rand.New(rand.NewSource(19))
+	checked := 0
+	for trial := 0; trial < 300; trial++ {
+		n := 2 + rng.Intn(smallSites-1)
+		c := &crystal.Crystal{Name: "random small cell", FormulaUnits: 1}
+		for k := 0; k < 3; k++ {
+			c.Lattice[k][k] = 3 + 4*rng.Float64()
+			for d := 0; d < 3; d++ {
+				if d != k {
+					c.Lattice[k][d] = 1.5 * (rng.Float64() - 0.5)
+				}
+			}
+		}
+		total := 0.0
+		for j := 0; j < n; j++ {
+			q := float64(1 + rng.Intn(3))
+			if j%2 == 1 {
+				q = -q
+			}
+			if j == n-1 {
+				q = -total
+			}
+			total += q
+			c.Sites = append(c.Sites, crystal.Site{Species: "X", Charge: q,
+				Frac: crystal.Vec3{rng.Float64(), rng.Float64(), rng.Float64()}})
+		}
+		s := newSystem(c, false)
+		alpha := s.balancedAlpha() * (0.7 + 0.6*rng.Float64())
+		p := math.Sqrt(-math.Log(DefaultAccuracy / 2))
+		kc := 2 * alpha * p
+		small := make([]float64, n)
+		count, ok := s.reciprocalSmall(alpha, kc, small)
+		if !ok {
+			continue // indices beyond smallOrder: the general path only
+		}
+		general := make([]float64, n)
+		want := s.reciprocalGeneral(alpha, kc, general)
+		if count != want {
+			t.Errorf("trial %d (%d sites): %d k-vectors, general path %d", trial, n, count, want)
+		}
+		scale := 0.0
+		for _, v := range general {
+			scale = math.Max(scale, math.Abs(v))
+		}
+		for j := range general {
+			if d := math.Abs(small[j] - general[j]); !(d <= 1e-12*scale) {
+				t.Errorf("trial %d (%d sites), site %d: small path %.17g, general %.17g (difference %.3g of %.3g)",
+					trial, n, j, small[j], general[j], d, scale)
+			}
+		}
+		checked++
+	}
+	if checked < 200 {
+		t.Errorf("only %d of 300 random cells took the small-cell path", checked)
+	}
+}
+
+// TestReciprocalSmallDeclines: a cell of more than smallSites sites is left
+// to the general path, with phi untouched.
+func TestReciprocalSmallDeclines(t *testing.T) {
+	c := rockSaltSupercell(t, 2, 0.02) // 64 ions, no internal translations
+	s := newSystem(c, false)
+	phi := make([]float64, len(s.q))
+	if _, ok := s.reciprocalSmall(s.balancedAlpha(), 5, phi); ok {
+		t.Fatalf("a %d-site cell took the small-cell path", len(s.q))
+	}
+	for j, v := range phi {
+		if v != 0 {
+			t.Fatalf("phi[%d] = %g after a declined small-cell sum", j, v)
+		}
+	}
+}
