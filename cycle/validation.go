@@ -1,6 +1,7 @@
 package cycle
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"slices"
@@ -140,8 +141,10 @@ type Validation struct {
 	// family), worded once by Validate.
 	thresholds map[string]thresholdEntry
 	sigmas     map[[2]string]sigmaEntry
-	// whys are Reference's whys, worded once by index.
-	whys map[whyKey]string
+	// whys are Reference's whys, worded once by index; rmsOrder byRMS's
+	// answers by family.
+	whys     map[whyKey]string
+	rmsOrder map[string][]int
 }
 
 // Model returns one model's validation (nil for an unknown name).
@@ -234,15 +237,17 @@ func (v *Validation) Reference(family string, ok func(model string) bool) (strin
 	if ok(ModelExtended) {
 		return ModelExtended, "the extended model evaluates here"
 	}
+	// The model of smallest RMS gap over fam (the first in v.Models among
+	// equals) that can be evaluated: the models in order of that RMS, the
+	// first that ok accepts, so that ok (which may evaluate the model) is
+	// asked as little as possible.
 	pick := func(fam string, least int) string {
-		best, bs := "", math.Inf(1)
-		for _, m := range v.Models {
-			f := m.Family(fam)
-			if f.N >= max(least, 1) && f.RMSPercent < bs && ok(m.Model) { // ok last: it may evaluate the model
-				best, bs = m.Model, f.RMSPercent
+		for _, i := range v.byRMS(fam) {
+			if v.Models[i].Family(fam).N >= max(least, 1) && ok(v.Models[i].Model) {
+				return v.Models[i].Model
 			}
 		}
-		return best
+		return ""
 	}
 	if slices.Contains(ValidatingFamilies(), family) {
 		if best := pick(family, minFamily); best != "" {
@@ -254,6 +259,25 @@ func (v *Validation) Reference(family string, ok func(model string) bool) (strin
 		return "", "no model could be evaluated"
 	}
 	return best, v.referenceWhy(best, family, false)
+}
+
+// byRMS returns the indices in v.Models of the models with a finite RMS gap
+// over fam, smallest first (stable: v.Models order among equals), from
+// index's table when it has the family.
+func (v *Validation) byRMS(fam string) []int {
+	if order, ok := v.rmsOrder[fam]; ok {
+		return order
+	}
+	var order []int
+	for i := range v.Models {
+		if r := v.Models[i].Family(fam).RMSPercent; r < math.Inf(1) {
+			order = append(order, i)
+		}
+	}
+	slices.SortStableFunc(order, func(i, j int) int {
+		return cmp.Compare(v.Models[i].Family(fam).RMSPercent, v.Models[j].Family(fam).RMSPercent)
+	})
+	return order
 }
 
 // whyKey names a why of Reference: the model picked, the compound's family
@@ -364,6 +388,10 @@ func (v *Validation) index() {
 	v.thresholds = map[string]thresholdEntry{}
 	v.sigmas = map[[2]string]sigmaEntry{}
 	v.whys = map[whyKey]string{}
+	v.rmsOrder = map[string][]int{}
+	for _, fam := range ValidationFamilies() {
+		v.rmsOrder[fam] = v.byRMS(fam)
+	}
 	for _, m := range v.Models {
 		for _, fam := range append(ValidationFamilies(), IonicFamily) {
 			for _, own := range []bool{false, true} {
