@@ -236,6 +236,27 @@ func (m *Memo) extendedStore(key string, e extendedEntry) {
 	m.ext[key] = e
 }
 
+// extendedLacksDispersion reports that the extended model cannot be
+// evaluated for c whatever its structure: neither Mayer's coefficients for
+// the salt nor a polarizability for each ion (extendedUncached's test,
+// asked before any lattice sum, so that DefaultModel passes over the
+// model at the cost of three table lookups).
+func extendedLacksDispersion(c *Cycle) bool {
+	params, err := data.ExtendedModelParams()
+	if err != nil {
+		return true
+	}
+	if salt, ok := params.Salt(c.Formula); ok && salt.C[0].Known() {
+		return false
+	}
+	for _, symbol := range []string{c.Cation.Ion.Symbol, c.Anion.Ion.Symbol} {
+		if p, ok := params.Ion(symbol); !ok || !p.Polarizability.Known() || !(p.Electrons > 0) {
+			return true
+		}
+	}
+	return false
+}
+
 // extendedUncached evaluates the extended model of e's cycle in structure
 // st into in.
 func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data.ModelParams) (float64, error) {

@@ -212,7 +212,7 @@ func DefaultModel(c *Cycle) (ModelResult, string, error) {
 		return &done[len(done)-1]
 	}
 	ok := func(name string) bool {
-		if !isModelName(name) {
+		if !isModelName(name) || (name == ModelExtended && extendedLacksDispersion(c)) {
 			return false
 		}
 		return get(name).Err == nil
