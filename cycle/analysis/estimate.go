@@ -148,7 +148,8 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 }
 
 // prepareInto is prepare building the cycle in into's storage when into is
-// not nil (see buildInto).
+// not nil (see buildInto): a batch row, which writes numbers only, so the
+// estimate's notes and the lattice step's source note are not worded.
 func (a *Analyst) prepareInto(formula string, opt EstimateOptions, into *cycle.Cycle) (*cycle.Cycle, *Estimate, error) {
 	model := opt.Model
 	if model == "" {
@@ -225,7 +226,9 @@ func (a *Analyst) prepareInto(formula string, opt EstimateOptions, into *cycle.C
 			return nil, nil, &InputError{Subject: formula, Field: "lattice step", Reason: "no model can give it", Err: err}
 		}
 		model, est.Model = m.Model, m.Model
-		est.Notes = append(est.Notes, "lattice model "+m.Model+": "+why)
+		if into == nil {
+			est.Notes = append(est.Notes, "lattice model "+m.Model+": "+why)
+		}
 	} else if m, err = cycle.EvaluateModel(c, model); err != nil {
 		return nil, nil, &InputError{Subject: formula, Field: "lattice step", Reason: "the " + model + " model cannot give it", Err: err}
 	}
@@ -245,8 +248,10 @@ func (a *Analyst) prepareInto(formula string, opt EstimateOptions, into *cycle.C
 		return nil, nil, err
 	}
 	if s, ok := c.Step("lattice"); ok {
-		s.Source = cycle.Source{Kind: cycle.SourceModel, Key: model, Citation: m.Citation,
-			Note: "lattice step from the " + model + " model; σ: " + spread.Basis()}
+		s.Source = cycle.Source{Kind: cycle.SourceModel, Key: model, Citation: m.Citation}
+		if into == nil {
+			s.Source.Note = "lattice step from the " + model + " model; σ: " + spread.Basis()
+		}
 	}
 	solve := opt.Solve
 	if solve == "" {
@@ -267,7 +272,9 @@ func (a *Analyst) prepareInto(formula string, opt EstimateOptions, into *cycle.C
 		return nil, nil, err
 	}
 	est.Solved = *s
-	est.Notes = append(est.Notes, "entropy is not included: these are enthalpies, and stability is decided by free energies")
+	if into == nil {
+		est.Notes = append(est.Notes, "entropy is not included: these are enthalpies, and stability is decided by free energies")
+	}
 	return c, est, nil
 }
 
