@@ -4,7 +4,6 @@ package data
 // solution, species and other compilations' values (alternatives).
 
 import (
-	"slices"
 	"strconv"
 	"strings"
 
@@ -254,6 +253,12 @@ func (b *builder) alternative(r record) error {
 	if err != nil {
 		return err
 	}
+	if kind == "species_formation" && b.db.species.deferred() && !b.overlay {
+		// species.csv is read on first use, and this row with it
+		// (speciesMap reads alternatives.csv again for its species rows).
+		b.db.species.hasAlts = true
+		return nil
+	}
 	v, ok, err := b.value(r, "value", "uncertainty", "source", "value", unit)
 	if err != nil {
 		return err
@@ -285,12 +290,6 @@ func (b *builder) alternative(r record) error {
 		}
 		b.db.ions[i].GasFormationAlternatives = append(b.db.ions[i].GasFormationAlternatives, v)
 	case "species_formation":
-		if b.db.species.fsys != nil && !b.overlay && b.db.species.m == nil {
-			// species.csv is read on first use: keep the row until then.
-			r.cells = slices.Clone(r.cells) // eachCSV reuses the slice
-			b.db.species.pendingAlts = append(b.db.species.pendingAlts, r)
-			return nil
-		}
 		sp, ok := b.db.species.m[key]
 		if !ok {
 			return missing()

@@ -1,12 +1,12 @@
 package data
 
 import (
-	"bytes"
 	"embed"
 	"errors"
 	"io/fs"
 	"maps"
 	"slices"
+	"strings"
 	"sync"
 )
 
@@ -19,24 +19,22 @@ type DB struct {
 	sources   []Source
 	sourceIdx map[string]int
 
-	elements       []Element
-	elementIdx     map[string]int
-	elementFoldIdx map[string]int // lower-case symbol or name
+	elements   []Element
+	elementIdx map[string]int
 
 	steps map[string][]AtomizationStep
 	born  map[string]Value
 
-	ions       []Ion
-	ionIdx     map[string]int // symbol as written in ions.csv
-	ionKeyIdx  map[ionKey]int
-	ionFoldIdx map[string]int // folded symbol (see foldIon)
+	ions      []Ion
+	ionIdx    map[string]int // symbol as written in ions.csv
+	ionKeyIdx map[ionKey]int
 
 	radii map[ionKey][]ShannonRadius
 
-	compounds       []Compound
-	compoundIdx     map[string]int // formula as written
-	compoundFoldIdx map[string]int // lower-case formula
-	comp            *compositions  // composition keys, built on first use
+	compounds   []Compound
+	compoundIdx map[string]int // formula as written
+	comp        *compositions  // composition keys, built on first use
+	fold        *foldIndexes   // folded spellings, built on first use
 
 	solutions map[string]Value      // tabulated formula → ΔsolH° at infinite dilution
 	derived   map[string]DerivedIon // ion symbol → family-fitted gas-phase enthalpy (derived.go)
@@ -72,7 +70,7 @@ func newDB() *DB {
 
 // Load reads the tables embedded in the program.
 func Load() (*DB, error) {
-	sub, err := fs.Sub(embedded, "tables")
+	sub, err := newEmbeddedTables(embedded)
 	if err != nil {
 		return nil, err
 	}
@@ -93,15 +91,15 @@ func LoadFS(fsys fs.FS) (*DB, error) {
 			b.db.species.fsys, b.db.species.m = fsys, nil // read on first use (speciesMap)
 			continue
 		}
-		raw, err := fs.ReadFile(fsys, t.file)
+		text, err := readText(fsys, t.file)
 		if err != nil {
 			if t.optional && isNotExist(err) {
 				continue
 			}
 			return nil, &TableError{File: t.file, Err: err}
 		}
-		b.reserve(t.file, bytes.Count(raw, []byte{'\n'}))
-		err = eachCSVText(t.file, string(raw), tableColumns[t.file], func(r record) error { return b.apply(t.file, r) })
+		b.reserve(t.file, strings.Count(text, "\n"))
+		err = eachCSVText(t.file, text, tableColumns[t.file], func(r record) error { return b.apply(t.file, r) })
 		if err != nil {
 			return nil, err
 		}
