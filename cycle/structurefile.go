@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"path/filepath"
 	"sort"
 	"strconv"
 	"strings"
@@ -205,6 +206,30 @@ func (c *Cycle) LoadStructureFile(path, name string) error {
 	}
 	c.Settings.Structure = st
 	return nil
+}
+
+// ReopenStructureFile reads the CIF file a cycle file names, when the
+// cycle as opened holds the file's name but not its cell: the name is taken
+// relative to the cycle file's folder unless it is absolute, and the path is
+// passed through resolve (nil takes it as it is; the workshop confines it to
+// the user's folder). It does nothing when the cycle names no CIF file or
+// already holds its cell. The one home of that rule for every front end.
+func (c *Cycle) ReopenStructureFile(cycleFile string, resolve func(string) (string, error)) error {
+	st := c.Settings.Structure
+	if st.CIF == "" || st.Cell != nil {
+		return nil
+	}
+	p := st.CIF
+	if !filepath.IsAbs(p) {
+		p = filepath.Join(filepath.Dir(cycleFile), p)
+	}
+	if resolve != nil {
+		var err error
+		if p, err = resolve(p); err != nil {
+			return err
+		}
+	}
+	return c.LoadStructureFile(p, st.CIF)
 }
 
 // ReadStructureFile is LoadStructureFile without making the structure c's:

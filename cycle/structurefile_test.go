@@ -153,3 +153,47 @@ func TestStructureFileCompoundIons(t *testing.T) {
 		t.Fatalf("charges given: %v, method %v", err, sf)
 	}
 }
+
+// A cycle file names its CIF by a path relative to its own folder; the one
+// reopening rule reads it from there, passes the joined path through the
+// front end's resolver, and leaves a cycle without a CIF alone. The
+// structure is checked against pymatgen's CifWriter file of NaCl
+// (testdata/oxidation, written by testdata/gen_oxidation.py).
+func TestReopenStructureFileBesideTheCycleFile(t *testing.T) {
+	db := loadDB(t)
+	dir := t.TempDir()
+	cif, err := os.ReadFile("../testdata/oxidation/real_NaCl_rock_salt_P1.cif")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := os.MkdirAll(filepath.Join(dir, "cells"), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(dir, "cells", "nacl.cif"), cif, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	c, err := Build(db, "NaCl", Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := c.ReopenStructureFile(filepath.Join(dir, "n.hesscycle"), nil); err != nil || c.Settings.Structure.Cell != nil {
+		t.Fatalf("no CIF named: err %v, cell %v; want nothing done", err, c.Settings.Structure.Cell)
+	}
+	c.Settings.Structure = Structure{CIF: filepath.Join("cells", "nacl.cif")}
+	var asked string
+	resolve := func(p string) (string, error) { asked = p; return p, nil }
+	if err := c.ReopenStructureFile(filepath.Join(dir, "n.hesscycle"), resolve); err != nil {
+		t.Fatal(err)
+	}
+	if want := filepath.Join(dir, "cells", "nacl.cif"); asked != want {
+		t.Errorf("resolver asked for %q, want %q (beside the cycle file)", asked, want)
+	}
+	if st := c.Settings.Structure; st.Cell == nil || st.CIF != filepath.Join("cells", "nacl.cif") {
+		t.Errorf("structure %+v: want the file's cell, recorded under the name the cycle file gave", st)
+	}
+	refused := errors.New("outside the folder")
+	c.Settings.Structure = Structure{CIF: "../elsewhere.cif"}
+	if err := c.ReopenStructureFile(filepath.Join(dir, "n.hesscycle"), func(string) (string, error) { return "", refused }); !errors.Is(err, refused) {
+		t.Errorf("err = %v, want the resolver's refusal", err)
+	}
+}

@@ -4,7 +4,7 @@ package data
 // solution, species and other compilations' values (alternatives).
 
 import (
-	"strconv"
+	"errors"
 	"strings"
 
 	"enthalpath/thermo/notation"
@@ -140,27 +140,18 @@ func (b *builder) compound(r record) error {
 	return nil
 }
 
-// parseParams reads "a=5.64;c=3.2" into a map.
+// parseParams reads "a=5.64;c=3.2" into a map (notation.ParseAssignments).
 func parseParams(r record) (map[string]float64, error) {
 	out := map[string]float64{}
-	for _, part := range strings.Split(r.str("params"), ";") {
-		part = strings.TrimSpace(part)
-		if part == "" {
-			continue
+	if err := notation.ParseAssignments(r.str("params"), ";", out); err != nil {
+		var ae *notation.AssignmentError
+		if errors.As(err, &ae) && ae.Problem == notation.GivenTwice {
+			return nil, r.errorf("params", "parameter %q given twice", ae.Name)
 		}
-		k, v, ok := strings.Cut(part, "=")
-		k = strings.TrimSpace(k)
-		if !ok || k == "" {
-			return nil, r.errorf("params", "%q is not name=value", part)
+		if errors.As(err, &ae) && ae.Problem == notation.NotANumber {
+			return nil, r.errorf("params", "%q: %q is not a number", ae.Name, ae.Value)
 		}
-		x, err := strconv.ParseFloat(strings.TrimSpace(v), 64)
-		if err != nil {
-			return nil, r.errorf("params", "%q: %q is not a number", k, strings.TrimSpace(v))
-		}
-		if _, dup := out[k]; dup {
-			return nil, r.errorf("params", "parameter %q given twice", k)
-		}
-		out[k] = x
+		return nil, r.errorf("params", "%q is not name=value", ae.Item)
 	}
 	return out, nil
 }

@@ -55,17 +55,10 @@ func runCycle(env Env, args []string) error {
 		if c, err = cycle.Open(db, open); err != nil {
 			return &UsageError{err}
 		}
-		if st := c.Settings.Structure; st.CIF != "" && st.Cell == nil && !set["structure"] {
-			p := st.CIF
-			if !filepath.IsAbs(p) {
-				p = filepath.Join(filepath.Dir(open), p)
-			}
-			s, err := c.ReadStructureFile(p, p)
-			if err != nil {
+		if !set["structure"] {
+			if err := c.ReopenStructureFile(open, nil); err != nil {
 				return Usagef("--open %s: the structure file it names: %v", open, err)
 			}
-			s.CIF = st.CIF
-			c.Settings.Structure = s
 		}
 		if err := mf.apply(c, set, false); err != nil {
 			return err

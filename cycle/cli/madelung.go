@@ -12,6 +12,7 @@ import (
 	"enthalpath/cycle"
 	"enthalpath/cycle/cells"
 	"enthalpath/data"
+	"enthalpath/thermo/notation"
 )
 
 const madelungSynopsis = `madelung NAME|FILE.cif [flags]
@@ -218,28 +219,21 @@ func slotLabels(p cells.Prototype) string {
 	return strings.Join(s, ", ")
 }
 
-// parseKeyValues reads repeated or comma-separated key=value items.
+// parseKeyValues reads repeated or comma-separated key=value items
+// (notation.ParseAssignments), worded for the flag that gave them.
 func parseKeyValues(flagName string, items []string) (map[string]float64, error) {
 	m := map[string]float64{}
 	for _, item := range items {
-		for _, part := range strings.Split(item, ",") {
-			part = strings.TrimSpace(part)
-			if part == "" {
-				continue
+		var ae *notation.AssignmentError
+		if err := notation.ParseAssignments(item, ",", m); errors.As(err, &ae) {
+			switch ae.Problem {
+			case notation.GivenTwice:
+				return nil, Usagef("%s: %s given twice", flagName, ae.Name)
+			case notation.NotANumber:
+				return nil, Usagef("%s %q: %q is not a number", flagName, ae.Item, ae.Value)
+			default:
+				return nil, Usagef("%s %q: want key=value", flagName, ae.Item)
 			}
-			k, v, ok := strings.Cut(part, "=")
-			k = strings.TrimSpace(k)
-			if !ok || k == "" {
-				return nil, Usagef("%s %q: want key=value", flagName, part)
-			}
-			x, err := strconv.ParseFloat(strings.TrimSpace(strings.Replace(v, "−", "-", 1)), 64)
-			if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-				return nil, Usagef("%s %q: %q is not a number", flagName, part, v)
-			}
-			if _, dup := m[k]; dup {
-				return nil, Usagef("%s: %s given twice", flagName, k)
-			}
-			m[k] = x
 		}
 	}
 	return m, nil

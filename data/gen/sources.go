@@ -1,7 +1,6 @@
 package main
 
 import (
-	"bufio"
 	"encoding/csv"
 	"errors"
 	"fmt"
@@ -155,17 +154,8 @@ func compKey(comp map[string]float64, charge int) string {
 }
 
 func readNASA(dir string) ([]nasaSpecies, error) {
-	f, err := os.Open(filepath.Join(dir, nasaFile))
+	lines, err := readLines(filepath.Join(dir, nasaFile))
 	if err != nil {
-		return nil, err
-	}
-	defer f.Close()
-	var lines []string
-	sc := bufio.NewScanner(f)
-	for sc.Scan() {
-		lines = append(lines, sc.Text())
-	}
-	if err := sc.Err(); err != nil {
 		return nil, err
 	}
 	var out []nasaSpecies

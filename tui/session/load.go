@@ -3,7 +3,6 @@ package session
 import (
 	"errors"
 	"os"
-	"path/filepath"
 	"strings"
 
 	tea "github.com/charmbracelet/bubbletea"
@@ -56,11 +55,8 @@ func Load(db *data.DB, memo *cycle.Memo, resolve func(string) (string, error), r
 		c, err := cycle.Open(db, path)
 		if c != nil {
 			c.SetMemo(memo)
-			if st := c.Settings.Structure; err == nil && st.CIF != "" && st.Cell == nil {
-				var p string
-				if p, err = resolve(filepath.Join(filepath.Dir(req.File), st.CIF)); err == nil {
-					err = c.LoadStructureFile(p, st.CIF)
-				}
+			if err == nil {
+				err = c.ReopenStructureFile(req.File, resolve)
 			}
 		}
 		return LoadedMsg{Cycle: c, Path: path, Err: err}
