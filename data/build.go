@@ -76,10 +76,6 @@ func (b *builder) reserve(table string, n int) {
 		if len(b.db.elementIdx) == 0 {
 			b.db.elementIdx = make(map[string]int, n)
 		}
-	case "solution_enthalpies.csv":
-		if len(b.db.solutions) == 0 {
-			b.db.solutions = make(map[string]Value, n)
-		}
 	}
 }
 

@@ -170,12 +170,12 @@ func (b *builder) solutionEnthalpy(r record) error {
 	if !ok {
 		return r.errorf("solution_kj_per_mol", "missing value")
 	}
-	if _, dup := b.db.solutions[formula]; dup && !b.overlay {
+	if _, dup := b.db.solutions.m[formula]; dup && !b.overlay {
 		return r.errorf("formula", "enthalpy of solution of %s listed twice", formula)
 	}
-	old := b.db.solutions[formula]
+	old := b.db.solutions.m[formula]
 	b.set(&old, v)
-	b.db.solutions[formula] = old
+	b.db.solutions.m[formula] = old
 	return nil
 }
 

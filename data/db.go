@@ -36,7 +36,7 @@ type DB struct {
 	comp        *compositions  // composition keys, built on first use
 	fold        *foldIndexes   // folded spellings, built on first use
 
-	solutions map[string]Value      // tabulated formula → ΔsolH° at infinite dilution
+	solutions *solutionTable        // tabulated formula → ΔsolH° at infinite dilution, read on first use
 	derived   map[string]DerivedIon // ion symbol → family-fitted gas-phase enthalpy (derived.go)
 
 	species *speciesTable // "CO2(g)" → species, read on first use
@@ -63,7 +63,7 @@ func newDB() *DB {
 		ionIdx:      map[string]int{},
 		radii:       map[ionKey][]ShannonRadius{},
 		compoundIdx: map[string]int{},
-		solutions:   map[string]Value{},
+		solutions:   &solutionTable{m: map[string]Value{}},
 		species:     &speciesTable{m: map[string]Species{}},
 	}
 }
@@ -87,8 +87,12 @@ func Load() (*DB, error) {
 func LoadFS(fsys fs.FS) (*DB, error) {
 	b := &builder{db: newDB()}
 	for _, t := range tableOrder {
-		if t.file == "species.csv" {
+		switch t.file {
+		case "species.csv":
 			b.db.species.fsys, b.db.species.m = fsys, nil // read on first use (speciesMap)
+			continue
+		case "solution_enthalpies.csv":
+			b.db.solutions.fsys, b.db.solutions.m = fsys, nil // read on first use (solutionMap)
 			continue
 		}
 		text, err := readText(fsys, t.file)
@@ -115,7 +119,8 @@ func isNotExist(err error) bool { return errors.Is(err, fs.ErrNotExist) }
 // compounds that name an ion missing from the ion table. Empty for good data.
 func (db *DB) Problems() []string {
 	db.speciesMap()
-	return append(slices.Clone(db.problems), db.species.problems...)
+	db.solutionMap()
+	return slices.Concat(db.problems, db.species.problems, db.solutions.problems)
 }
 
 // Overlays names the overlay files applied to this DB, in order.
@@ -135,7 +140,7 @@ func (db *DB) clone() *DB {
 		radii:       make(map[ionKey][]ShannonRadius, len(db.radii)),
 		compounds:   make([]Compound, len(db.compounds)),
 		compoundIdx: maps.Clone(db.compoundIdx),
-		solutions:   maps.Clone(db.solutions),
+		solutions:   &solutionTable{},
 		species:     &speciesTable{},
 		derived:     maps.Clone(db.derived),
 		overlays:    slices.Clone(db.overlays),
@@ -157,7 +162,9 @@ func (db *DB) clone() *DB {
 	for i, cp := range db.compounds {
 		c.compounds[i] = copyCompound(cp)
 	}
-	c.species.once.Do(func() {}) // the clone's table is complete from the start
+	c.species.once.Do(func() {}) // the clone's tables are complete from the start
+	c.solutions.once.Do(func() {})
+	c.solutions.m = maps.Clone(db.solutionMap())
 	base := db.speciesMap()
 	c.species.m = make(map[string]Species, len(base))
 	for k, sp := range base {

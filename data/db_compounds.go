@@ -53,7 +53,7 @@ func (db *DB) SolutionEnthalpy(formula string) (Value, error) {
 	if !ok {
 		return Value{}, &NotFoundError{Kind: "compound", Query: formula, Suggestions: db.SuggestCompounds(formula)}
 	}
-	v, ok := db.solutions[c.Formula]
+	v, ok := db.solutionMap()[c.Formula]
 	if !ok {
 		return Value{}, &NotFoundError{Kind: "enthalpy of solution", Query: c.Formula,
 			Detail: "solution_enthalpies.csv has no row for it; add one in your data file as [[solution_enthalpy]]"}

@@ -158,3 +158,82 @@ func TestEmbeddedTextsAreTheFiles(t *testing.T) {
 		t.Error("no table is embedded as a string")
 	}
 }
+
+// The enthalpies of solution, read on first use, are those of reading
+// solution_enthalpies.csv eagerly through encoding/csv into a fresh table;
+// an overlay applied before the first use replaces a built-in value and
+// adds a row, and the base DB keeps its own.
+func TestLazySolutionsEqualEager(t *testing.T) {
+	db := mustLoad(t)
+	if db.solutions.m != nil {
+		t.Fatal("Load read solution_enthalpies.csv already: nothing lazy to compare")
+	}
+	f, err := embedded.Open("tables/solution_enthalpies.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	recs, err := readCSV("solution_enthalpies.csv", f, tableColumns["solution_enthalpies.csv"])
+	f.Close()
+	if err != nil {
+		t.Fatal(err)
+	}
+	eager := &DB{sourceIdx: db.sourceIdx, compoundIdx: db.compoundIdx, solutions: &solutionTable{m: map[string]Value{}}}
+	b := &builder{db: eager}
+	for _, r := range recs {
+		if err := b.apply("solution_enthalpies.csv", r); err != nil {
+			t.Errorf("eager read: %v", err)
+		}
+	}
+	lazy := db.solutionMap()
+	if len(eager.solutions.m) < 300 || !reflect.DeepEqual(lazy, eager.solutions.m) {
+		t.Errorf("lazy %d enthalpies of solution, eager %d (the table has over 300 rows), or their values differ", len(lazy), len(eager.solutions.m))
+	}
+	if len(db.solutions.problems) != 0 || len(eager.problems) != 0 {
+		t.Errorf("problems: lazy %q, eager %q", db.solutions.problems, eager.problems)
+	}
+}
+
+func TestOverlayOnLazySolutions(t *testing.T) {
+	db := mustLoad(t)
+	if db.solutions.m != nil {
+		t.Fatal("Load read solution_enthalpies.csv already: the overlay would not meet a lazy table")
+	}
+	base := eagerSolution(t, "NaCl")
+	over, err := db.WithOverlay(strings.NewReader("[[solution_enthalpy]]\nformula = \"NaCl\"\nsolution_kj_per_mol = 4.0\n"), "sol.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	v, err := over.SolutionEnthalpy("NaCl")
+	if err != nil || v.V != 4.0 || !v.Override || v.Replaced == nil || v.Replaced.V != base {
+		t.Errorf("overlay NaCl ΔsolH° = %+v, %v; want 4.0 replacing %v", v, err, base)
+	}
+	if v, err := db.SolutionEnthalpy("NaCl"); err != nil || v.V != base {
+		t.Errorf("base NaCl ΔsolH° = %v, %v; want %v", v.V, err, base)
+	}
+}
+
+// eagerSolution reads formula's enthalpy of solution straight from the
+// embedded CSV text.
+func eagerSolution(t *testing.T, formula string) float64 {
+	t.Helper()
+	f, err := embedded.Open("tables/solution_enthalpies.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	recs, err := readCSV("solution_enthalpies.csv", f, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, r := range recs {
+		if r.str("formula") == formula {
+			v, _, err := r.float("solution_kj_per_mol")
+			if err != nil {
+				t.Fatal(err)
+			}
+			return v
+		}
+	}
+	t.Fatalf("%s not in solution_enthalpies.csv", formula)
+	return 0
+}
