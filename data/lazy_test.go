@@ -7,28 +7,31 @@ import (
 	"testing"
 )
 
+// embeddedRecords reads an embedded table through encoding/csv (readCSV),
+// the reference path the lazily read tables are compared with.
+func embeddedRecords(t *testing.T, file string) []record {
+	t.Helper()
+	f, err := embedded.Open("tables/" + file)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	recs, err := readCSV(file, f, tableColumns[file])
+	if err != nil {
+		t.Fatal(err)
+	}
+	return recs
+}
+
 // speciesEagerly reads species.csv and the species rows of alternatives.csv
 // from the embedded tables in table order, as Load did before it left them
 // for the first use: the reference the lazily read table must equal.
 func speciesEagerly(t *testing.T, db *DB) (map[string]Species, []string) {
 	t.Helper()
-	sub, err := fs.Sub(embedded, "tables")
-	if err != nil {
-		t.Fatal(err)
-	}
 	tmp := &DB{sourceIdx: db.sourceIdx, species: &speciesTable{m: map[string]Species{}}}
 	b := &builder{db: tmp}
 	for _, file := range []string{"species.csv", "alternatives.csv"} {
-		f, err := sub.Open(file)
-		if err != nil {
-			t.Fatal(err)
-		}
-		recs, err := readCSV(file, f, tableColumns[file])
-		f.Close()
-		if err != nil {
-			t.Fatal(err)
-		}
-		for _, r := range recs {
+		for _, r := range embeddedRecords(t, file) {
 			if file == "alternatives.csv" && r.str("kind") != "species_formation" {
 				continue
 			}
@@ -168,15 +171,7 @@ func TestLazySolutionsEqualEager(t *testing.T) {
 	if db.solutions.m != nil {
 		t.Fatal("Load read solution_enthalpies.csv already: nothing lazy to compare")
 	}
-	f, err := embedded.Open("tables/solution_enthalpies.csv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	recs, err := readCSV("solution_enthalpies.csv", f, tableColumns["solution_enthalpies.csv"])
-	f.Close()
-	if err != nil {
-		t.Fatal(err)
-	}
+	recs := embeddedRecords(t, "solution_enthalpies.csv")
 	eager := &DB{sourceIdx: db.sourceIdx, compoundIdx: db.compoundIdx, solutions: &solutionTable{m: map[string]Value{}}}
 	b := &builder{db: eager}
 	for _, r := range recs {
@@ -216,16 +211,7 @@ func TestOverlayOnLazySolutions(t *testing.T) {
 // embedded CSV text.
 func eagerSolution(t *testing.T, formula string) float64 {
 	t.Helper()
-	f, err := embedded.Open("tables/solution_enthalpies.csv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	recs, err := readCSV("solution_enthalpies.csv", f, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	for _, r := range recs {
+	for _, r := range embeddedRecords(t, "solution_enthalpies.csv") {
 		if r.str("formula") == formula {
 			v, _, err := r.float("solution_kj_per_mol")
 			if err != nil {
