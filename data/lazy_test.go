@@ -1,6 +1,7 @@
 package data
 
 import (
+	"fmt"
 	"io/fs"
 	"reflect"
 	"strings"
@@ -222,4 +223,31 @@ func eagerSolution(t *testing.T, formula string) float64 {
 	}
 	t.Fatalf("%s not in solution_enthalpies.csv", formula)
 	return 0
+}
+
+// The tables and indexes read on first use may be first asked for from
+// several goroutines at once (SSH sessions share one DB): each is built
+// once (run with -race). NaCl's ΔsolH° is compared with the embedded row.
+func TestLazyConcurrentFirstUse(t *testing.T) {
+	db := mustLoad(t)
+	want := eagerSolution(t, "NaCl")
+	done := make(chan string)
+	for range 8 {
+		go func() {
+			if v, err := db.SolutionEnthalpy("nacl"); err != nil || v.V != want {
+				done <- fmt.Sprintf("NaCl ΔsolH° = %v, %v; want %v", v.V, err, want)
+				return
+			}
+			if e, err := db.Element("SODIUM"); err != nil || e.Symbol != "Na" {
+				done <- "element SODIUM not found"
+				return
+			}
+			done <- ""
+		}()
+	}
+	for range 8 {
+		if msg := <-done; msg != "" {
+			t.Error(msg)
+		}
+	}
 }
