@@ -57,6 +57,8 @@ type Cycle struct {
 	Fitted     []data.DerivedIon
 
 	memo *Memo
+	// refs holds the steps' copies of their references (CloneInto).
+	refs []Entry
 	// db is the data the cycle was built from (for the validation of the
 	// models); nil for a cycle read from a file.
 	db *data.DB
@@ -66,26 +68,56 @@ type Cycle struct {
 // ions' tables of Shannon radii, which nothing changes in place (they are
 // replaced whole; their capacity is clipped so that an append copies).
 func (c *Cycle) Clone() *Cycle {
-	d := *c
-	d.Steps = slices.Clone(c.Steps)
+	return c.CloneInto(new(Cycle))
+}
+
+// CloneInto makes d the deep copy of c that Clone returns, reusing d's
+// storage (its steps, their references and parameter maps) so that a
+// worker filling many cycles one after the other allocates little; it
+// returns d. Whatever pointed into d before (its steps' references, its
+// parameter maps) now sees the copy of c: pass only a cycle nothing else
+// holds.
+func (c *Cycle) CloneInto(d *Cycle) *Cycle {
+	steps, refs := d.Steps[:0], d.refs[:0]
+	params, stParams := d.Compound.Params, d.Settings.Structure.Params
+	*d = *c
+	d.Steps = append(steps, c.Steps...)
+	if d.Steps == nil && c.Steps != nil {
+		d.Steps = []Step{}
+	}
 	n := 0
 	for i := range d.Steps {
 		if d.Steps[i].Reference != nil {
 			n++
 		}
 	}
-	refs := make([]Entry, 0, n) // one allocation for every step's copy
+	refs = slices.Grow(refs, n) // one allocation for every step's copy
 	for i := range d.Steps {
 		if r := d.Steps[i].Reference; r != nil {
 			refs = append(refs, *r)
 			d.Steps[i].Reference = &refs[len(refs)-1]
 		}
 	}
+	d.refs = refs
 	d.Cation.Ion.Radii = slices.Clip(c.Cation.Ion.Radii)
 	d.Anion.Ion.Radii = slices.Clip(c.Anion.Ion.Radii)
-	d.Compound.Params = maps.Clone(c.Compound.Params)
-	d.Settings = c.Settings.clone()
-	return &d
+	d.Compound.Params = cloneInto(params, c.Compound.Params)
+	d.Settings.Structure = c.Settings.Structure.cloneInto(stParams)
+	return d
+}
+
+// cloneInto returns a copy of src in dst's storage (nil for a nil src, as
+// maps.Clone gives).
+func cloneInto[K comparable, V any](dst, src map[K]V) map[K]V {
+	if src == nil {
+		return nil
+	}
+	if dst == nil {
+		return maps.Clone(src)
+	}
+	clear(dst)
+	maps.Copy(dst, src)
+	return dst
 }
 
 // Memo returns the Madelung memo the cycle uses (never nil after Build).

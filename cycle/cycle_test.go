@@ -547,3 +547,38 @@ func TestReactionText(t *testing.T) {
 		t.Errorf("no keys")
 	}
 }
+
+// CloneInto over a scratch cycle that held another compound gives the
+// cycle Clone gives (the solved formation enthalpy of each, NIST-JANAF and
+// CODATA values through the built-in data), and leaves the original
+// independent of the copy.
+func TestCloneIntoReusesScratch(t *testing.T) {
+	scratch := new(Cycle)
+	for _, f := range []string{"MgO", "NaCl", "CaF2", "MgO"} {
+		c := build(t, f, Options{})
+		d := c.CloneInto(scratch)
+		if d != scratch {
+			t.Fatalf("%s: CloneInto returned another cycle", f)
+		}
+		want := solve(t, c.Clone()).Solved
+		got := solve(t, d).Solved
+		if got.Key != want.Key || got.Value != want.Value || got.Uncertainty != want.Uncertainty {
+			t.Errorf("%s: solved %s %g ± %g into the scratch, %s %g ± %g from Clone", f, got.Key, got.Value, got.Uncertainty, want.Key, want.Value, want.Uncertainty)
+		}
+		d.Set("formation", -1, 1)
+		if d.Settings.Structure.Params != nil {
+			d.Settings.Structure.Params["a"] = 99
+		}
+		for i := range d.Steps {
+			if r := d.Steps[i].Reference; r != nil {
+				r.Value = 12345
+			}
+		}
+		if s, _ := c.Step("formation"); s.Value == -1 || (s.Reference != nil && s.Reference.Value == 12345) {
+			t.Errorf("%s: a change to the scratch copy changed the original", f)
+		}
+		if c.Settings.Structure.Params["a"] == 99 {
+			t.Errorf("%s: the scratch copy shares its structure parameters", f)
+		}
+	}
+}

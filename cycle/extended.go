@@ -170,7 +170,7 @@ func (e *evaluator) extended(in *ModelInputs) (float64, error) {
 	}
 	st := c.Settings.Structure
 	if st.Empty() {
-		p, _, err := e.ratioRule()
+		p, _, err := e.ratioPick()
 		if err != nil {
 			return 0, err
 		}

@@ -292,6 +292,20 @@ func formatParams(p map[string]float64) string {
 // r₊/r₋ (CN VI radii): the radius-ratio rule of Pauling (common practice,
 // no source for the exact cut-offs 0.414 and 0.732).
 func (e *evaluator) ratioRule() (string, string, error) {
+	pick, ratio, err := e.ratioPick()
+	if err != nil {
+		return "", "", err
+	}
+	why := "no structure in the data: " + pick + " guessed by the radius-ratio rule"
+	if !math.IsNaN(ratio) {
+		why += " (r₊/r₋ = " + strconv.FormatFloat(ratio, 'f', 3, 64) + ")"
+	}
+	return pick, why, nil
+}
+
+// ratioPick is ratioRule's prototype and the radius ratio it read (NaN
+// without radii), without the words.
+func (e *evaluator) ratioPick() (string, float64, error) {
 	c := e.c
 	a, b := c.Cation.Count, c.Anion.Count
 	var in ModelInputs
@@ -321,11 +335,7 @@ func (e *evaluator) ratioRule() (string, string, error) {
 		pick = "corundum"
 	}
 	if pick == "" {
-		return "", "", &ModelError{Model: "Madelung", Reason: fmt.Sprintf("no structure for %s and no prototype fits a %d:%d formula; choose a CIF file", c.Formula, a, b)}
+		return "", ratio, &ModelError{Model: "Madelung", Reason: fmt.Sprintf("no structure for %s and no prototype fits a %d:%d formula; choose a CIF file", c.Formula, a, b)}
 	}
-	why := fmt.Sprintf("no structure in the data: %s guessed by the radius-ratio rule", pick)
-	if !math.IsNaN(ratio) {
-		why += fmt.Sprintf(" (r₊/r₋ = %.3f)", ratio)
-	}
-	return pick, why, nil
+	return pick, ratio, nil
 }

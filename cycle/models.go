@@ -161,10 +161,15 @@ func Compare(c *Cycle, cycleValue float64) []ModelResult {
 // cycle without data reads it against the extended model, else ewald, else
 // born-mayer, else kapustinskii.
 func ReferenceModel(c *Cycle, ms []ModelResult) (string, string) {
-	ok := func(name string) bool {
+	return referenceModel(c, func(name string) bool {
 		m := findModel(ms, name)
 		return m != nil && m.Err == nil
-	}
+	})
+}
+
+// referenceModel is ReferenceModel with ok saying whether a model can be
+// evaluated (asked only of the models the choice needs).
+func referenceModel(c *Cycle, ok func(model string) bool) (string, string) {
 	if v := c.Validation(); v != nil {
 		return v.Reference(ValidationFamily(c), ok)
 	}
@@ -183,14 +188,40 @@ const ModelAuto = "auto"
 // DefaultModel evaluates the model an estimate of c takes its lattice step
 // from when none is asked: the one its verdict is read against, with its σ
 // from the validation. It returns the model and why it was chosen.
+//
+// Only the models the choice needs are evaluated, each once, as the choice
+// asks whether it can be (the extended model first, which is the reference
+// wherever it evaluates): a batch row costs one model or a few, not six.
+// The choice and its value are those of ReferenceModel over EvaluateModels.
 func DefaultModel(c *Cycle) (ModelResult, string, error) {
-	ms := EvaluateModels(c)
-	name, why := ReferenceModel(c, ms)
-	m := findModel(ms, name)
-	if m == nil {
+	e := &evaluator{c: c}
+	var (
+		ms   [8]ModelResult
+		done = ms[:0]
+	)
+	get := func(name string) *ModelResult {
+		if m := findModel(done, name); m != nil {
+			return m
+		}
+		m, err := e.evaluate(name)
+		if err != nil {
+			m = ModelResult{Model: name, Err: err}
+		}
+		calibrate(c, &m)
+		done = append(done, m)
+		return &done[len(done)-1]
+	}
+	ok := func(name string) bool {
+		if !isModelName(name) {
+			return false
+		}
+		return get(name).Err == nil
+	}
+	name, why := referenceModel(c, ok)
+	if name == "" {
 		return ModelResult{}, why, &ModelError{Model: ModelAuto, Reason: "no lattice model can be evaluated for " + c.Formula}
 	}
-	return *m, why, nil
+	return *get(name), why, nil
 }
 
 // calibrate sets m's uncertainty from the validation of c's data: the

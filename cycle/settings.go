@@ -2,7 +2,6 @@ package cycle
 
 import (
 	"fmt"
-	"maps"
 	"strings"
 
 	"enthalpath/thermo"
@@ -208,9 +207,12 @@ func (s Structure) Name() string {
 	return s.Prototype
 }
 
-func (s Structure) clone() Structure {
+func (s Structure) clone() Structure { return s.cloneInto(nil) }
+
+// cloneInto is clone with the parameters copied into params' storage.
+func (s Structure) cloneInto(params map[string]float64) Structure {
 	d := s
-	d.Params = maps.Clone(s.Params)
+	d.Params = cloneInto(params, s.Params)
 	if s.Cell != nil {
 		d.Cell = s.Cell.Clone()
 	}

@@ -1,6 +1,7 @@
 package cycle
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"slices"
@@ -140,6 +141,10 @@ type Validation struct {
 	// family), worded once by Validate.
 	thresholds map[string]thresholdEntry
 	sigmas     map[[2]string]sigmaEntry
+	// whys are Reference's whys, worded once by index; rmsOrder byRMS's
+	// answers by family.
+	whys     map[whyKey]string
+	rmsOrder map[string][]int
 }
 
 // Model returns one model's validation (nil for an unknown name).
@@ -232,33 +237,79 @@ func (v *Validation) Reference(family string, ok func(model string) bool) (strin
 	if ok(ModelExtended) {
 		return ModelExtended, "the extended model evaluates here"
 	}
-	pick := func(fam string, least int) (string, FamilyStats) {
-		best, bs := "", FamilyStats{RMSPercent: math.Inf(1)}
-		for _, m := range v.Models {
-			f := m.Family(fam)
-			if ok(m.Model) && f.N >= max(least, 1) && f.RMSPercent < bs.RMSPercent {
-				best, bs = m.Model, f
+	// The model of smallest RMS gap over fam (the first in v.Models among
+	// equals) that can be evaluated: the models in order of that RMS, the
+	// first that ok accepts, so that ok (which may evaluate the model) is
+	// asked as little as possible.
+	pick := func(fam string, least int) string {
+		for _, i := range v.byRMS(fam) {
+			if v.Models[i].Family(fam).N >= max(least, 1) && ok(v.Models[i].Model) {
+				return v.Models[i].Model
 			}
 		}
-		return best, bs
+		return ""
 	}
 	if slices.Contains(ValidatingFamilies(), family) {
-		if best, f := pick(family, minFamily); best != "" {
-			return best, fmt.Sprintf("the extended model cannot be evaluated here; %s has the smallest RMS gap (%.1f %%) over %d built-in %s", best, f.RMSPercent, f.N, family)
+		if best := pick(family, minFamily); best != "" {
+			return best, v.referenceWhy(best, family, true)
 		}
 	}
-	best, f := pick(IonicFamily, 1)
+	best := pick(IonicFamily, 1)
 	if best == "" {
 		return "", "no model could be evaluated"
 	}
-	why := fmt.Sprintf("the extended model cannot be evaluated here; %s has the smallest RMS gap (%.1f %%) over %d built-in %s", best, f.RMSPercent, f.N, IonicFamily)
-	if family != IonicFamily && !slices.Contains(ValidatingFamilies(), family) {
+	return best, v.referenceWhy(best, family, false)
+}
+
+// byRMS returns the indices in v.Models of the models with a finite RMS gap
+// over fam, smallest first (stable: v.Models order among equals), from
+// index's table when it has the family.
+func (v *Validation) byRMS(fam string) []int {
+	if order, ok := v.rmsOrder[fam]; ok {
+		return order
+	}
+	var order []int
+	for i := range v.Models {
+		if r := v.Models[i].Family(fam).RMSPercent; r < math.Inf(1) {
+			order = append(order, i)
+		}
+	}
+	slices.SortStableFunc(order, func(i, j int) int {
+		return cmp.Compare(v.Models[i].Family(fam).RMSPercent, v.Models[j].Family(fam).RMSPercent)
+	})
+	return order
+}
+
+// whyKey names a why of Reference: the model picked, the compound's family
+// and whether the model was picked over that family (else the ionic one).
+type whyKey struct {
+	model, family string
+	own           bool
+}
+
+// referenceWhy is Reference's why for best, worded once by index.
+func (v *Validation) referenceWhy(best, family string, own bool) string {
+	if w, ok := v.whys[whyKey{best, family, own}]; ok {
+		return w
+	}
+	return v.referenceWhyOf(best, family, own)
+}
+
+func (v *Validation) referenceWhyOf(best, family string, own bool) string {
+	m := v.Model(best)
+	over := IonicFamily
+	if own {
+		over = family
+	}
+	f := m.Family(over)
+	why := fmt.Sprintf("the extended model cannot be evaluated here; %s has the smallest RMS gap (%.1f %%) over %d built-in %s", best, f.RMSPercent, f.N, over)
+	if !own && family != IonicFamily && !slices.Contains(ValidatingFamilies(), family) {
 		why += "; " + family + " do not choose their own model (their covalent character is what is asked)"
-		if own := v.Model(best).Family(family); own.N > 0 {
+		if own := m.Family(family); own.N > 0 {
 			why += fmt.Sprintf("; over %d built-in %s it is off by %s on average (RMS %.1f %%)", own.N, family, strings.Replace(fmt.Sprintf("%+.1f %%", own.MeanPercent), "-", "−", 1), own.RMSPercent)
 		}
 	}
-	return best, why
+	return why
 }
 
 // Validate evaluates every model for every compound of db whose cycle
@@ -336,7 +387,18 @@ func Validate(db *data.DB, memo *Memo) *Validation {
 func (v *Validation) index() {
 	v.thresholds = map[string]thresholdEntry{}
 	v.sigmas = map[[2]string]sigmaEntry{}
+	v.whys = map[whyKey]string{}
+	v.rmsOrder = map[string][]int{}
+	for _, fam := range ValidationFamilies() {
+		v.rmsOrder[fam] = v.byRMS(fam)
+	}
 	for _, m := range v.Models {
+		for _, fam := range append(ValidationFamilies(), IonicFamily) {
+			for _, own := range []bool{false, true} {
+				k := whyKey{m.Model, fam, own}
+				v.whys[k] = v.referenceWhyOf(k.model, k.family, k.own)
+			}
+		}
 		th, basis := v.thresholdsOf(m.Model)
 		v.thresholds[m.Model] = thresholdEntry{th, basis}
 		for _, fam := range ValidationFamilies() {

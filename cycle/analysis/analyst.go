@@ -32,6 +32,15 @@ type Analyst struct {
 	spreads map[string]spreadEntry
 	built   map[string]builtEntry
 	radii   map[ionKey]radiusEntry
+	symbols map[chargeKey]string // ionSymbol's answers
+	// familySpreads are spreadFor's answers by model and family.
+	familySpreads map[[2]string]Spread
+}
+
+// chargeKey names an ion by its core and charge (ionSymbol's memo).
+type chargeKey struct {
+	core   string
+	charge int
 }
 
 // ionKey names an ion in the radius memo.
@@ -78,6 +87,12 @@ const maxBuilt = 1024
 // built once per Analyst: a data lookup of a formula the data do not have
 // is far slower than copying the cycle built the first time.
 func (a *Analyst) build(formula, cation, anion string) (*cycle.Cycle, error) {
+	return a.buildInto(formula, cation, anion, nil)
+}
+
+// buildInto is build copying the cycle into into's storage when into is
+// not nil (see cycle.Cycle.CloneInto): a batch worker's one scratch cycle.
+func (a *Analyst) buildInto(formula, cation, anion string, into *cycle.Cycle) (*cycle.Cycle, error) {
 	key := formula + "|" + cation + "|" + anion
 	a.mu.Lock()
 	e, ok := a.built[key]
@@ -95,7 +110,10 @@ func (a *Analyst) build(formula, cation, anion string) (*cycle.Cycle, error) {
 	if e.err != nil {
 		return nil, e.err
 	}
-	return e.c.Clone(), nil
+	if into == nil {
+		return e.c.Clone(), nil
+	}
+	return e.c.CloneInto(into), nil
 }
 
 type spreadEntry struct {
@@ -112,7 +130,7 @@ func WithStandards(s Standards) Option { return func(a *Analyst) { a.standards =
 
 // New returns an Analyst over db (which it only reads).
 func New(db *data.DB, opts ...Option) *Analyst {
-	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[ionKey]radiusEntry{}}
+	a := &Analyst{db: db, memo: cycle.NewMemo(), standards: dbStandards{db}, spreads: map[string]spreadEntry{}, built: map[string]builtEntry{}, radii: map[ionKey]radiusEntry{}, symbols: map[chargeKey]string{}, familySpreads: map[[2]string]Spread{}}
 	for _, o := range opts {
 		o(a)
 	}
@@ -179,6 +197,25 @@ func spreadOf(c *cycle.Cycle, model string) Spread {
 	f := v.SigmaStats(model, cycle.ValidationFamily(c))
 	return Spread{Model: model, Family: f.Family, Compounds: f.N, MeanPercent: f.MeanPercent, RMSPercent: f.RMSPercent,
 		MaxPercent: f.MaxPercent, Worst: f.Worst}
+}
+
+// spreadFor is spreadOf with its basis worded, once per Analyst, model and
+// family: the validation c reads is the Analyst's data's (c is built from
+// them), so the spread depends on nothing else.
+func (a *Analyst) spreadFor(c *cycle.Cycle, model string) Spread {
+	key := [2]string{model, cycle.ValidationFamily(c)}
+	a.mu.Lock()
+	s, ok := a.familySpreads[key]
+	a.mu.Unlock()
+	if ok {
+		return s
+	}
+	s = spreadOf(c, model)
+	s.basis = s.Basis()
+	a.mu.Lock()
+	a.familySpreads[key] = s // bounded: models × families
+	a.mu.Unlock()
+	return s
 }
 
 // ModelSpread computes (once per Analyst and model, then remembers) the

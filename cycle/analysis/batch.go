@@ -289,9 +289,13 @@ type BatchSummary struct {
 }
 
 // Row estimates one batch row.
-func (a *Analyst) Row(row BatchRow) BatchResult {
+func (a *Analyst) Row(row BatchRow) BatchResult { return a.rowInto(row, nil) }
+
+// rowInto is Row building the row's cycle in scratch's storage when scratch
+// is not nil (one per batch worker: a row's cycle is not kept).
+func (a *Analyst) rowInto(row BatchRow, scratch *cycle.Cycle) BatchResult {
 	out := BatchResult{Line: row.Line, Formula: row.Formula}
-	est, err := a.quickEstimate(row.Formula, row.Options)
+	est, _, err := a.quickEstimateInto(row.Formula, row.Options, scratch)
 	if err != nil {
 		out.Error = oneLine(err.Error())
 		return out
@@ -372,10 +376,11 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
+			scratch := new(cycle.Cycle) // every row's cycle, in turn
 			for blk := range jobs {
 				for i := range blk.rows {
 					if blk.results[i].Error == "" { // not a cell fault found while reading
-						blk.results[i] = a.Row(blk.rows[i])
+						blk.results[i] = a.rowInto(blk.rows[i], scratch)
 					}
 				}
 				close(blk.done)

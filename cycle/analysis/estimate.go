@@ -107,7 +107,14 @@ func (a *Analyst) quickEstimate(formula string, opt EstimateOptions) (*Estimate,
 
 // quickEstimateCycle is quickEstimate with the cycle it solved.
 func (a *Analyst) quickEstimateCycle(formula string, opt EstimateOptions) (*Estimate, *cycle.Cycle, error) {
-	c, est, err := a.prepare(formula, opt)
+	return a.quickEstimateInto(formula, opt, nil)
+}
+
+// quickEstimateInto is quickEstimateCycle building the cycle in into's
+// storage when into is not nil (see buildInto): the estimate's Solved step
+// then refers into into, valid until into is used again.
+func (a *Analyst) quickEstimateInto(formula string, opt EstimateOptions, into *cycle.Cycle) (*Estimate, *cycle.Cycle, error) {
+	c, est, err := a.prepareInto(formula, opt, into)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -137,6 +144,12 @@ func isCIFPath(s string) bool { return strings.HasSuffix(strings.ToLower(s), ".c
 
 // prepare builds the cycle with the model's lattice step and the unknown.
 func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *Estimate, error) {
+	return a.prepareInto(formula, opt, nil)
+}
+
+// prepareInto is prepare building the cycle in into's storage when into is
+// not nil (see buildInto).
+func (a *Analyst) prepareInto(formula string, opt EstimateOptions, into *cycle.Cycle) (*cycle.Cycle, *Estimate, error) {
 	model := opt.Model
 	if model == "" {
 		model = DefaultModel
@@ -154,7 +167,7 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 			return nil, nil, err
 		}
 	}
-	c, err := a.build(formula, cation, anion)
+	c, err := a.buildInto(formula, cation, anion, into)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -216,7 +229,7 @@ func (a *Analyst) prepare(formula string, opt EstimateOptions) (*cycle.Cycle, *E
 	} else if m, err = cycle.EvaluateModel(c, model); err != nil {
 		return nil, nil, &InputError{Subject: formula, Field: "lattice step", Reason: "the " + model + " model cannot give it", Err: err}
 	}
-	spread := spreadOf(c, model)
+	spread := a.spreadFor(c, model)
 	if !(spread.RMSPercent > 0) {
 		return nil, nil, &InputError{Subject: formula, Field: "model uncertainty", Reason: "the " + model + " model could not be validated on the built-in compounds"}
 	}
@@ -296,11 +309,29 @@ func (a *Analyst) ionsFromCharges(formula string, ch Charges) (string, string, e
 	return cat, an, nil
 }
 
+// ionSymbol is the symbol of the data's ion of core with charge z, or the
+// symbol of a hypothetical one; remembered per Analyst, since a lookup that
+// misses words its suggestions over every ion of the data.
 func (a *Analyst) ionSymbol(core string, z int) string {
-	if in, err := a.db.IonByCharge(core, z); err == nil {
-		return in.Symbol
+	key := chargeKey{core, z}
+	a.mu.Lock()
+	sym, ok := a.symbols[key]
+	a.mu.Unlock()
+	if ok {
+		return sym
 	}
-	return core + notation.ChargeSuffix(z, false)
+	if in, err := a.db.IonByCharge(core, z); err == nil {
+		sym = in.Symbol
+	} else {
+		sym = core + notation.ChargeSuffix(z, false)
+	}
+	a.mu.Lock()
+	if len(a.symbols) >= maxBuilt {
+		clear(a.symbols)
+	}
+	a.symbols[key] = sym
+	a.mu.Unlock()
+	return sym
 }
 
 // dataIon returns the symbol of the data's monatomic ion of element el with

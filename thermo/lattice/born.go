@@ -150,8 +150,7 @@ var paulingExponents = map[string]float64{
 // configurations "[Ar]3d10" 9, "[Kr]4d10" 10, "[Xe]4f14 5d10" 12
 // (case, brackets and spaces are ignored).
 func PaulingExponent(config string) (float64, error) {
-	key := strings.NewReplacer("[", "", "]", "", " ", "", "\t", "").Replace(strings.ToLower(config))
-	n, ok := paulingExponents[key]
+	n, ok, key := paulingLookup(config)
 	if !ok && key == "" {
 		return 0, &ParamError{Func: "PaulingExponent", Param: "config", Err: ErrUnknownName,
 			Hint: `none given (an ion without a noble-gas or d10 core has no Pauling exponent); give n yourself`}
@@ -161,6 +160,32 @@ func PaulingExponent(config string) (float64, error) {
 			Hint: `use He, Ne, Ar, Kr, Xe, [Ar]3d10, [Kr]4d10 or [Xe]4f14 5d10, or give n yourself`}
 	}
 	return n, nil
+}
+
+// paulingLookup finds config in paulingExponents with case, brackets and
+// spaces ignored, without allocating for a short ASCII configuration (a
+// batch asks it for every row); it returns the key it looked up.
+func paulingLookup(config string) (float64, bool, string) {
+	var buf [32]byte
+	k := buf[:0]
+	for i := 0; i < len(config); i++ {
+		b := config[i]
+		switch {
+		case b >= 0x80 || len(k) == len(buf):
+			key := strings.NewReplacer("[", "", "]", "", " ", "", "\t", "").Replace(strings.ToLower(config))
+			n, ok := paulingExponents[key]
+			return n, ok, key
+		case b == '[' || b == ']' || b == ' ' || b == '\t':
+		case 'A' <= b && b <= 'Z':
+			k = append(k, b+'a'-'A')
+		default:
+			k = append(k, b)
+		}
+	}
+	if n, ok := paulingExponents[string(k)]; ok {
+		return n, true, ""
+	}
+	return 0, false, string(k)
 }
 
 // BornExponent returns the Born exponent for a formula unit: pass one

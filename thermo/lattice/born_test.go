@@ -231,3 +231,28 @@ func TestKapustinskiiIsBornMayerForRockSalt(t *testing.T) {
 		checkNear(t, "Kapustinskii vs Born–Mayer", k, b, 0, 1e-13)
 	}
 }
+
+// Pauling's exponents by configuration, read whatever the case, brackets
+// and spaces (L. Pauling, The Nature of the Chemical Bond, 3rd ed., 1960,
+// ch. 13: He 5, Ne 7, Ar and Cu⁺ 9, Kr and Ag⁺ 10, Xe and Au⁺ 12; from
+// memory), and a configuration longer than the lookup's short buffer.
+func TestPaulingExponentSpellings(t *testing.T) {
+	for _, tc := range []struct {
+		config string
+		want   float64
+	}{
+		{"He", 5}, {"ne", 7}, {"NE", 7}, {"[Ar]", 9}, {" kr ", 10}, {"Xe", 12},
+		{"[Ar]3d10", 9}, {"[ar] 3D10", 9}, {"[Kr]4d10", 10}, {"[Xe]4f14 5d10", 12}, {"[xe]\t4f14\t5d10", 12},
+		{"[Xe]      4f14                  5d10", 12},
+	} {
+		got, err := PaulingExponent(tc.config)
+		if err != nil || got != tc.want {
+			t.Errorf("PaulingExponent(%q) = %g, %v; want %g", tc.config, got, err, tc.want)
+		}
+	}
+	for _, bad := range []string{"", "Rn", "[Ar]3d9", "Ñe"} {
+		if _, err := PaulingExponent(bad); err == nil {
+			t.Errorf("PaulingExponent(%q) gave no error", bad)
+		}
+	}
+}
