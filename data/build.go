@@ -5,9 +5,6 @@ import (
 	"math"
 	"slices"
 	"sort"
-	"strings"
-
-	"enthalpath/thermo/notation"
 )
 
 // builder applies table rows to a DB under construction. With overlay set,
@@ -78,10 +75,6 @@ func (b *builder) reserve(table string, n int) {
 		b.db.elements = slices.Grow(b.db.elements, n)
 		if len(b.db.elementIdx) == 0 {
 			b.db.elementIdx = make(map[string]int, n)
-		}
-	case "solution_enthalpies.csv":
-		if len(b.db.solutions) == 0 {
-			b.db.solutions = make(map[string]Value, n)
 		}
 	}
 }
@@ -160,7 +153,7 @@ func (b *builder) set(dst *Value, nv Value) {
 }
 
 // finish sorts the radii, attaches them and the Born exponents to the ions,
-// and builds the lookup indexes.
+// and builds the lookup indexes (the folded ones on first use: folds.go).
 func (b *builder) finish() {
 	db := b.db
 	for k, list := range db.radii {
@@ -177,7 +170,6 @@ func (b *builder) finish() {
 	}
 	b.absoluteHydrations()
 	db.ionKeyIdx = make(map[ionKey]int, len(db.ions))
-	db.ionFoldIdx = make(map[string]int, len(db.ions))
 	for i := range db.ions {
 		ion := &db.ions[i]
 		ion.Radii = db.radii[ionKey{ion.Core, ion.Charge}]
@@ -192,27 +184,9 @@ func (b *builder) finish() {
 		if _, dup := db.ionKeyIdx[k]; !dup {
 			db.ionKeyIdx[k] = i
 		}
-		for _, key := range []string{notation.FoldIon(ion.Symbol), notation.CaretIonSymbol(ion.Core, ion.Charge)} {
-			if _, dup := db.ionFoldIdx[key]; !dup {
-				db.ionFoldIdx[key] = i
-			}
-		}
-		if !ion.Polyatomic {
-			db.ionFoldIdx[notation.IonSymbol(ion.Core, ion.Charge, false)] = i
-		}
-	}
-	db.compoundFoldIdx = make(map[string]int, len(db.compounds))
-	for i, c := range db.compounds {
-		db.compoundFoldIdx[strings.ToLower(c.Formula)] = i
 	}
 	db.comp = &compositions{}
-	db.elementFoldIdx = make(map[string]int, len(db.elements))
-	for i, e := range db.elements {
-		db.elementFoldIdx[strings.ToLower(e.Symbol)] = i
-		if e.Name != "" {
-			db.elementFoldIdx[strings.ToLower(e.Name)] = i
-		}
-	}
+	db.fold = &foldIndexes{}
 }
 
 // absoluteHydrations gives every ion with a conventional hydration

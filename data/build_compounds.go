@@ -5,7 +5,6 @@ package data
 
 import (
 	"errors"
-	"slices"
 	"strings"
 
 	"enthalpath/thermo/notation"
@@ -171,12 +170,12 @@ func (b *builder) solutionEnthalpy(r record) error {
 	if !ok {
 		return r.errorf("solution_kj_per_mol", "missing value")
 	}
-	if _, dup := b.db.solutions[formula]; dup && !b.overlay {
+	if _, dup := b.db.solutions.m[formula]; dup && !b.overlay {
 		return r.errorf("formula", "enthalpy of solution of %s listed twice", formula)
 	}
-	old := b.db.solutions[formula]
+	old := b.db.solutions.m[formula]
 	b.set(&old, v)
-	b.db.solutions[formula] = old
+	b.db.solutions.m[formula] = old
 	return nil
 }
 
@@ -245,6 +244,12 @@ func (b *builder) alternative(r record) error {
 	if err != nil {
 		return err
 	}
+	if kind == "species_formation" && b.db.species.deferred() && !b.overlay {
+		// species.csv is read on first use, and this row with it
+		// (speciesMap reads alternatives.csv again for its species rows).
+		b.db.species.hasAlts = true
+		return nil
+	}
 	v, ok, err := b.value(r, "value", "uncertainty", "source", "value", unit)
 	if err != nil {
 		return err
@@ -276,12 +281,6 @@ func (b *builder) alternative(r record) error {
 		}
 		b.db.ions[i].GasFormationAlternatives = append(b.db.ions[i].GasFormationAlternatives, v)
 	case "species_formation":
-		if b.db.species.fsys != nil && !b.overlay && b.db.species.m == nil {
-			// species.csv is read on first use: keep the row until then.
-			r.cells = slices.Clone(r.cells) // eachCSV reuses the slice
-			b.db.species.pendingAlts = append(b.db.species.pendingAlts, r)
-			return nil
-		}
 		sp, ok := b.db.species.m[key]
 		if !ok {
 			return missing()

@@ -1,12 +1,12 @@
 package data
 
 import (
-	"bytes"
 	"embed"
 	"errors"
 	"io/fs"
 	"maps"
 	"slices"
+	"strings"
 	"sync"
 )
 
@@ -19,26 +19,24 @@ type DB struct {
 	sources   []Source
 	sourceIdx map[string]int
 
-	elements       []Element
-	elementIdx     map[string]int
-	elementFoldIdx map[string]int // lower-case symbol or name
+	elements   []Element
+	elementIdx map[string]int
 
 	steps map[string][]AtomizationStep
 	born  map[string]Value
 
-	ions       []Ion
-	ionIdx     map[string]int // symbol as written in ions.csv
-	ionKeyIdx  map[ionKey]int
-	ionFoldIdx map[string]int // folded symbol (see foldIon)
+	ions      []Ion
+	ionIdx    map[string]int // symbol as written in ions.csv
+	ionKeyIdx map[ionKey]int
 
 	radii map[ionKey][]ShannonRadius
 
-	compounds       []Compound
-	compoundIdx     map[string]int // formula as written
-	compoundFoldIdx map[string]int // lower-case formula
-	comp            *compositions  // composition keys, built on first use
+	compounds   []Compound
+	compoundIdx map[string]int // formula as written
+	comp        *compositions  // composition keys, built on first use
+	fold        *foldIndexes   // folded spellings, built on first use
 
-	solutions map[string]Value      // tabulated formula → ΔsolH° at infinite dilution
+	solutions *solutionTable        // tabulated formula → ΔsolH° at infinite dilution, read on first use
 	derived   map[string]DerivedIon // ion symbol → family-fitted gas-phase enthalpy (derived.go)
 
 	species *speciesTable // "CO2(g)" → species, read on first use
@@ -65,14 +63,14 @@ func newDB() *DB {
 		ionIdx:      map[string]int{},
 		radii:       map[ionKey][]ShannonRadius{},
 		compoundIdx: map[string]int{},
-		solutions:   map[string]Value{},
+		solutions:   &solutionTable{m: map[string]Value{}},
 		species:     &speciesTable{m: map[string]Species{}},
 	}
 }
 
 // Load reads the tables embedded in the program.
 func Load() (*DB, error) {
-	sub, err := fs.Sub(embedded, "tables")
+	sub, err := newEmbeddedTables(embedded)
 	if err != nil {
 		return nil, err
 	}
@@ -89,19 +87,23 @@ func Load() (*DB, error) {
 func LoadFS(fsys fs.FS) (*DB, error) {
 	b := &builder{db: newDB()}
 	for _, t := range tableOrder {
-		if t.file == "species.csv" {
+		switch t.file {
+		case "species.csv":
 			b.db.species.fsys, b.db.species.m = fsys, nil // read on first use (speciesMap)
 			continue
+		case "solution_enthalpies.csv":
+			b.db.solutions.fsys, b.db.solutions.m = fsys, nil // read on first use (solutionMap)
+			continue
 		}
-		raw, err := fs.ReadFile(fsys, t.file)
+		text, err := readText(fsys, t.file)
 		if err != nil {
 			if t.optional && isNotExist(err) {
 				continue
 			}
 			return nil, &TableError{File: t.file, Err: err}
 		}
-		b.reserve(t.file, bytes.Count(raw, []byte{'\n'}))
-		err = eachCSVText(t.file, string(raw), tableColumns[t.file], func(r record) error { return b.apply(t.file, r) })
+		b.reserve(t.file, strings.Count(text, "\n"))
+		err = eachCSVText(t.file, text, tableColumns[t.file], func(r record) error { return b.apply(t.file, r) })
 		if err != nil {
 			return nil, err
 		}
@@ -117,7 +119,8 @@ func isNotExist(err error) bool { return errors.Is(err, fs.ErrNotExist) }
 // compounds that name an ion missing from the ion table. Empty for good data.
 func (db *DB) Problems() []string {
 	db.speciesMap()
-	return append(slices.Clone(db.problems), db.species.problems...)
+	db.solutionMap()
+	return slices.Concat(db.problems, db.species.problems, db.solutions.problems)
 }
 
 // Overlays names the overlay files applied to this DB, in order.
@@ -137,7 +140,7 @@ func (db *DB) clone() *DB {
 		radii:       make(map[ionKey][]ShannonRadius, len(db.radii)),
 		compounds:   make([]Compound, len(db.compounds)),
 		compoundIdx: maps.Clone(db.compoundIdx),
-		solutions:   maps.Clone(db.solutions),
+		solutions:   &solutionTable{},
 		species:     &speciesTable{},
 		derived:     maps.Clone(db.derived),
 		overlays:    slices.Clone(db.overlays),
@@ -159,7 +162,9 @@ func (db *DB) clone() *DB {
 	for i, cp := range db.compounds {
 		c.compounds[i] = copyCompound(cp)
 	}
-	c.species.once.Do(func() {}) // the clone's table is complete from the start
+	c.species.once.Do(func() {}) // the clone's tables are complete from the start
+	c.solutions.once.Do(func() {})
+	c.solutions.m = maps.Clone(db.solutionMap())
 	base := db.speciesMap()
 	c.species.m = make(map[string]Species, len(base))
 	for k, sp := range base {

@@ -34,7 +34,7 @@ func (db *DB) FindCompound(formula string) (Compound, bool) {
 	if i, ok := db.compoundIdx[s]; ok {
 		return copyCompound(db.compounds[i]), true
 	}
-	if i, ok := db.compoundFoldIdx[strings.ToLower(s)]; ok {
+	if i, ok := db.folds().compounds[strings.ToLower(s)]; ok {
 		return copyCompound(db.compounds[i]), true
 	}
 	if f, err := notation.ParseFormula(s); err == nil {
@@ -53,7 +53,7 @@ func (db *DB) SolutionEnthalpy(formula string) (Value, error) {
 	if !ok {
 		return Value{}, &NotFoundError{Kind: "compound", Query: formula, Suggestions: db.SuggestCompounds(formula)}
 	}
-	v, ok := db.solutions[c.Formula]
+	v, ok := db.solutionMap()[c.Formula]
 	if !ok {
 		return Value{}, &NotFoundError{Kind: "enthalpy of solution", Query: c.Formula,
 			Detail: "solution_enthalpies.csv has no row for it; add one in your data file as [[solution_enthalpy]]"}
@@ -166,15 +166,19 @@ func (db *DB) compositions() *compositions {
 
 // speciesTable is species.csv, read on the first lookup of a species: it
 // is the largest table and most runs never ask for a species. The
-// alternatives of its rows wait in pendingAlts until then.
+// species rows of alternatives.csv are read then too (hasAlts: Load met
+// some), from the same file system.
 type speciesTable struct {
-	once        sync.Once
-	fsys        fs.FS // where species.csv is read from; nil: nothing to read
-	m           map[string]Species
-	pendingAlts []record
-	problems    []string
-	err         error
+	once     sync.Once
+	fsys     fs.FS // where species.csv is read from; nil: nothing to read
+	m        map[string]Species
+	hasAlts  bool
+	problems []string
+	err      error
 }
+
+// deferred reports whether the table waits for its first use.
+func (t *speciesTable) deferred() bool { return t.fsys != nil && t.m == nil }
 
 // speciesMap returns the species, reading species.csv first if needed.
 func (db *DB) speciesMap() map[string]Species {
@@ -204,17 +208,37 @@ func (db *DB) speciesMap() map[string]Species {
 			return
 		}
 		t.m = make(map[string]Species, len(recs))
-		for _, r := range append(recs, t.pendingAlts...) {
-			table := "species.csv"
-			if r.file == "alternatives.csv" {
-				table = "alternatives.csv"
-			}
-			if err := b.apply(table, r); err != nil {
+		for _, r := range recs {
+			if err := b.apply("species.csv", r); err != nil {
 				t.problems = append(t.problems, err.Error())
 			}
 		}
-		t.pendingAlts = nil
+		if t.hasAlts {
+			t.readAlternatives(b)
+		}
 		t.problems = append(t.problems, tmp.problems...)
 	})
 	return t.m
+}
+
+// readAlternatives applies the species rows of alternatives.csv, which
+// Load left for the first use of the species (the others it applied).
+func (t *speciesTable) readAlternatives(b *builder) {
+	text, err := readText(t.fsys, "alternatives.csv")
+	if err != nil {
+		t.problems = append(t.problems, (&TableError{File: "alternatives.csv", Err: err}).Error())
+		return
+	}
+	err = eachCSVText("alternatives.csv", text, tableColumns["alternatives.csv"], func(r record) error {
+		if r.str("kind") != "species_formation" {
+			return nil
+		}
+		if err := b.apply("alternatives.csv", r); err != nil {
+			t.problems = append(t.problems, err.Error())
+		}
+		return nil
+	})
+	if err != nil {
+		t.problems = append(t.problems, err.Error())
+	}
 }

@@ -19,7 +19,7 @@ func (db *DB) Element(sym string) (Element, error) {
 	if i, ok := db.elementIdx[s]; ok {
 		return sharedElement(db.elements[i]), nil
 	}
-	if i, ok := db.elementFoldIdx[strings.ToLower(s)]; ok {
+	if i, ok := db.folds().elements[strings.ToLower(s)]; ok {
 		return sharedElement(db.elements[i]), nil
 	}
 	return Element{}, &NotFoundError{Kind: "element", Query: sym, Suggestions: db.suggestElements(s)}

@@ -37,7 +37,7 @@ func (db *DB) FindIon(symbol string) (Ion, bool) {
 	if i, ok := db.ionIdx[s]; ok {
 		return sharedIon(db.ions[i]), true
 	}
-	if i, ok := db.ionFoldIdx[notation.FoldIon(s)]; ok {
+	if i, ok := db.folds().ions[notation.FoldIon(s)]; ok {
 		return sharedIon(db.ions[i]), true
 	}
 	for _, cand := range notation.IonReadings(s) {

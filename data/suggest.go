@@ -80,7 +80,7 @@ func (db *DB) suggestElements(q string) []string {
 		}
 	}
 	for _, nm := range suggest(q, names, 2) {
-		if i, ok := db.elementFoldIdx[strings.ToLower(nm)]; ok {
+		if i, ok := db.folds().elements[strings.ToLower(nm)]; ok {
 			out = appendNew(out, db.elements[i].Symbol)
 		}
 	}
