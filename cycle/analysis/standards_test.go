@@ -1,6 +1,7 @@
 package analysis
 
 import (
+	"math"
 	"strings"
 	"testing"
 
@@ -92,4 +93,52 @@ func (nbsFixture) ElementEntropy(el string) (data.Value, bool) {
 func nbsAnalyst(t testing.TB) *Analyst {
 	t.Helper()
 	return New(testAnalyst(t).DB(), WithStandards(nbsFixture{}))
+}
+
+// The fixture was typed from the pinned NBS file; the built-in tables are
+// generated from the same file by data/gen and read through dbStandards,
+// the Standards every command uses. Every fixture value must equal what
+// dbStandards gives (to the NBS file's printed rounding), so a typing slip
+// in the fixture, or a wrong per-atom division of an element's S°, cannot
+// pass unseen. Source: NBS 1982 (Wagman et al.), the pinned digitised copy,
+// through both routes.
+func TestNBSFixtureIsTheGeneratedTable(t *testing.T) {
+	tables := dbStandards{testAnalyst(t).DB()}
+	const tol = 0.006 // the NBS file prints at most two decimals of kJ/mol
+	near := func(what string, got data.Value, want float64) {
+		t.Helper()
+		if got.Source != "nbs1982" || math.Abs(got.V-want) > tol {
+			t.Errorf("%s: tables %.3f (%s), fixture %.3f", what, got.V, got.Source, want)
+		}
+	}
+	same := func(f string, got Standard, ok bool, r nbsRow) {
+		t.Helper()
+		if !ok {
+			t.Errorf("%s not in the tables", f)
+			return
+		}
+		near(f+" ΔfH°", got.Formation, r.h)
+		near(f+" ΔfG°", got.Gibbs, r.g)
+		near(f+" S°", got.Entropy, r.s)
+		if got.Molecular != r.molecular || got.State != r.state {
+			t.Errorf("%s: tables molecular %v state %q, fixture %v %q", f, got.Molecular, got.State, r.molecular, r.state)
+		}
+	}
+	for f, r := range nbsCompounds {
+		got, ok := tables.Compound(f)
+		same(f, got, ok, r)
+	}
+	for f, r := range nbsGases {
+		got, ok := tables.Gas(f)
+		got.Molecular = true // a gas is molecular; the Standard of a gas does not say it
+		same(f+"(g)", got, ok, r)
+	}
+	for sym, want := range nbsElements {
+		v, ok := tables.ElementEntropy(sym)
+		if !ok {
+			t.Errorf("%s: no S° in the tables", sym)
+			continue
+		}
+		near(sym+" S° per atom", v, want)
+	}
 }

@@ -1,5 +1,8 @@
 //go:build !unix
 
+// Platform shims for the tests of this package, not tests themselves:
+// where named pipes and file locks do not exist, the tests that need them
+// are told so by these errors and skip.
 package fileio_test
 
 import (

@@ -1,5 +1,8 @@
 //go:build unix
 
+// Platform shims for the tests of this package, not tests themselves: a
+// named pipe (for the refusal of FIFOs) and an exclusive lock (for the
+// stale-temporary-file rule), checked by the tests that call them.
 package fileio_test
 
 import (
