@@ -5,10 +5,7 @@ import (
 	"strings"
 	"testing"
 
-	tea "github.com/charmbracelet/bubbletea"
-
 	"enthalpath/cycle"
-	"enthalpath/tui"
 	"enthalpath/tui/internal/drive"
 	"enthalpath/tui/screen"
 
@@ -79,17 +76,7 @@ func TestQuestionHelpLineFitsAt80(t *testing.T) {
 func TestConfinedFolderShowsTypableNames(t *testing.T) {
 	db := loadDB(t)
 	dir := t.TempDir()
-	old, err := cycle.Build(db, "MgO", cycle.Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	if err := cycle.Save(filepath.Join(dir, "recovery.hesscycle"), old); err != nil {
-		t.Fatal(err)
-	}
-	m := tui.New(tui.Options{Renderer: drive.Renderer(), DB: db, FileRoot: dir, RecoveryPath: dir + "/recovery.hesscycle"}).(*tui.Model)
-	u := drive.Model(m)
-	drive.Run(u, tea.WindowSizeMsg{Width: 80, Height: 24})
-	drive.RunCmd(u, m.Init())
+	m, u := startWithRecoveryFile(t, db, dir, 80, 24)
 	noDir := func(when string) string {
 		t.Helper()
 		v := m.View()

@@ -9,6 +9,7 @@ import (
 	tea "github.com/charmbracelet/bubbletea"
 
 	"enthalpath/cycle"
+	"enthalpath/data"
 	"enthalpath/tui"
 	"enthalpath/tui/internal/drive"
 	"enthalpath/tui/screen"
@@ -22,17 +23,7 @@ func TestRecoveryNoticeClearedOnceDealtWith(t *testing.T) {
 	db := loadDB(t)
 	for _, how := range []string{"open it", "open a compound", "remove it", "switch screens"} {
 		dir := t.TempDir()
-		c, err := cycle.Build(db, "MgO", cycle.Options{})
-		if err != nil {
-			t.Fatal(err)
-		}
-		if err := cycle.Save(filepath.Join(dir, "recovery.hesscycle"), c); err != nil {
-			t.Fatal(err)
-		}
-		m := tui.New(tui.Options{Renderer: drive.Renderer(), DB: db, FileRoot: dir, RecoveryPath: dir + "/recovery.hesscycle"}).(*tui.Model)
-		u := drive.Model(m)
-		drive.Run(u, tea.WindowSizeMsg{Width: 120, Height: 40})
-		drive.RunCmd(u, m.Init())
+		m, u := startWithRecoveryFile(t, db, dir, 120, 40)
 		if !strings.Contains(m.View(), "recovery file") {
 			t.Fatalf("no notice at the start:\n%s", m.View())
 		}
@@ -59,4 +50,23 @@ func TestRecoveryNoticeClearedOnceDealtWith(t *testing.T) {
 			}
 		}
 	}
+}
+
+// startWithRecoveryFile starts the workshop in the confined folder dir,
+// which holds a recovery file of MgO, in a width×height window, its first
+// commands run.
+func startWithRecoveryFile(t *testing.T, db *data.DB, dir string, width, height int) (*tui.Model, drive.Updater) {
+	t.Helper()
+	c, err := cycle.Build(db, "MgO", cycle.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := cycle.Save(filepath.Join(dir, "recovery.hesscycle"), c); err != nil {
+		t.Fatal(err)
+	}
+	m := tui.New(tui.Options{Renderer: drive.Renderer(), DB: db, FileRoot: dir, RecoveryPath: dir + "/recovery.hesscycle"}).(*tui.Model)
+	u := drive.Model(m)
+	drive.Run(u, tea.WindowSizeMsg{Width: width, Height: height})
+	drive.RunCmd(u, m.Init())
+	return m, u
 }
