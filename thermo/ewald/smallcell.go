@@ -41,9 +41,9 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 		return 0, false
 	}
 	M0, M1, M2 := mmax[0], mmax[1], mmax[2]
-	// Per site and axis, e^{2πi·fₖ}; per pair i < j, the phase steps along
-	// axes 0 and 1, the start of the m₁ loop e^{−2πi·M₁·d₁} and the powers
-	// e^{2πi·m·d₂}, m = 0…M₂ (negative m by conjugation).
+	// Per pair i < j, the phase steps e^{2πi·dₖ} of d = fⱼ − fᵢ along each
+	// axis, e^{2πi·fⱼ}·conj(e^{2πi·fᵢ}) from one sine and cosine per site
+	// and axis.
 	var cs, sn [3][smallSites]float64
 	for j := 0; j < n; j++ {
 		for k := 0; k < 3; k++ {
@@ -51,139 +51,166 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 		}
 	}
 	np := n * (n - 1) / 2
-	var u0r, u0i, u1r, u1i, s1r, s1i, p0r, p0i, c [smallPairs]float64
-	var t2r, t2i [smallOrder + 1][smallPairs]float64
-	pp := 0
-	for i := 0; i < n; i++ {
-		for j := i + 1; j < n; j++ {
-			// e^{2πi·(fⱼ−fᵢ)} = e^{2πi·fⱼ}·conj(e^{2πi·fᵢ}).
-			u0r[pp], u0i[pp] = cs[0][j]*cs[0][i]+sn[0][j]*sn[0][i], sn[0][j]*cs[0][i]-cs[0][j]*sn[0][i]
-			u1r[pp], u1i[pp] = cs[1][j]*cs[1][i]+sn[1][j]*sn[1][i], sn[1][j]*cs[1][i]-cs[1][j]*sn[1][i]
-			u2r, u2i := cs[2][j]*cs[2][i]+sn[2][j]*sn[2][i], sn[2][j]*cs[2][i]-cs[2][j]*sn[2][i]
-			re, im := 1.0, 0.0
-			t2r[0][pp] = 1
-			for m := 1; m <= M2; m++ {
-				re, im = re*u2r-im*u2i, re*u2i+im*u2r
-				t2r[m][pp], t2i[m][pp] = re, im
+	var ph smallPhases
+	for i, pp := 0, 0; i < n; i++ {
+		for j := i + 1; j < n; j, pp = j+1, pp+1 {
+			for k := 0; k < 3; k++ {
+				ph.ur[k][pp] = cs[k][j]*cs[k][i] + sn[k][j]*sn[k][i]
+				ph.ui[k][pp] = sn[k][j]*cs[k][i] - cs[k][j]*sn[k][i]
 			}
-			re, im = 1.0, 0.0
-			for m := 1; m <= M1; m++ {
-				re, im = re*u1r[pp]-im*u1i[pp], re*u1i[pp]+im*u1r[pp]
-			}
-			s1r[pp], s1i[pp] = re, -im
-			p0r[pp] = 1
-			pp++
+			ph.p0r[pp] = 1
 		}
 	}
-	u0r2, u0i2, u1r2, u1i2 := u0r[:np:np], u0i[:np:np], u1r[:np:np], u1i[:np:np]
-	p0r2, p0i2, c2 := p0r[:np:np], p0i[:np:np], c[:np:np]
 
-	// The metric of the reciprocal basis: k² = Σ mₖmₗ·(bₖ·bₗ).
+	// The metric of the reciprocal basis, k² = Σ mₖmₗ·gₖₗ, and the
+	// exponentials every Gaussian factor is a product of.
 	g00, g01, g02 := b[0].Dot(b[0]), b[0].Dot(b[1]), b[0].Dot(b[2])
 	g11, g12, g22 := b[1].Dot(b[1]), b[1].Dot(b[2]), b[2].Dot(b[2])
 	c4 := 1 / (4 * alpha * alpha)
-	kc2, inv22 := kc*kc, 1/g22
-	e22 := math.Exp(-c4 * g22)
-	e22sq, e11sq, x12 := e22*e22, math.Exp(-2*c4*g11), math.Exp(-2*c4*g12)
-	wsum := 0.0
-	count := 0
-	for m0 := 0; m0 <= M0; m0++ {
-		lo1 := -M1
-		if m0 == 0 {
-			lo1 = 0
-		}
-		// Along m₁ at m₂ = 0: the phase, the Gaussian factor rowG, its
-		// ratio to the next m₁, and y = exp(−2c₄·g·b₂) for g = m₀b₀ + m₁b₁.
-		var ar, ai [smallPairs]float64
-		for p := range p0r2 {
-			if lo1 == 0 {
-				ar[p], ai[p] = p0r2[p], p0i2[p]
-			} else {
-				ar[p], ai[p] = p0r2[p]*s1r[p]-p0i2[p]*s1i[p], p0r2[p]*s1i[p]+p0i2[p]*s1r[p]
+	kc2 := kc * kc
+	e00, e11, e22 := math.Exp(-c4*g00), math.Exp(-c4*g11), math.Exp(-c4*g22)
+	x01, x02, x12 := math.Exp(-2*c4*g01), math.Exp(-2*c4*g02), math.Exp(-2*c4*g12)
+	e11sq, e22sq, ix12 := e11*e11, e22*e22, 1/x12
+	ie22sq := 1 / e22sq
+	// The extent in m₁ of the plane m₀ within kc: the quadratic in m₁ of
+	// the shortest k over real m₂.
+	ea, eb, ec := g11-g12*g12/g22, g01-g02*g12/g22, g00-g02*g02/g22
+
+	wsum, count := 0.0, 0
+	var wrow [2*smallOrder + 1]float64 // the weights of one row
+	c := ph.c[:np:np]
+	// At m₁ = 0 of plane m₀: exp(−c₄m₀²g₀₀) (plane), its ratio to the next
+	// plane, x₀₁^m₀ and x₀₂^m₀.
+	plane, planeStep, x01m, x02m := 1.0, e00, 1.0, 1.0
+	for m0 := 0; m0 <= M0; m0, plane, planeStep, x01m, x02m = m0+1, plane*planeStep, planeStep*e00*e00, x01m*x01, x02m*x02 {
+		f0 := float64(m0)
+		disc1 := eb*eb*f0*f0 - ea*(ec*f0*f0-kc2)
+		if disc1 >= 0 {
+			root := math.Sqrt(disc1)
+			lo1 := max(int(math.Ceil((-eb*f0-root)/ea)), -M1)
+			hi1 := min(int(math.Floor((-eb*f0+root)/ea)), M1)
+			if m0 == 0 {
+				lo1 = max(lo1, 0)
 			}
-		}
-		f0, fl := float64(m0), float64(lo1)
-		rowG := math.Exp(-c4 * (f0*(f0*g00+2*fl*g01) + fl*fl*g11))
-		rowStep := math.Exp(-c4 * ((2*fl+1)*g11 + 2*f0*g01))
-		y := math.Exp(-2 * c4 * (f0*g02 + fl*g12))
-		for m1 := lo1; m1 <= M1; m1, rowG, rowStep, y = m1+1, rowG*rowStep, rowStep*e11sq, y*x12 {
-			f1 := float64(m1)
-			gb := f0*g02 + f1*g12
-			gg := f0*(f0*g00+2*f1*g01) + f1*f1*g11
-			disc := gb*gb - g22*(gg-kc2)
-			lo2, hi2 := 1, 0
-			if disc >= 0 {
-				root := math.Sqrt(disc)
-				lo2 = max(int(math.Ceil((-gb-root)*inv22)), -M2)
-				hi2 = min(int(math.Floor((-gb+root)*inv22)), M2)
-				if m0 == 0 && m1 == 0 {
-					lo2 = max(lo2, 1)
+			if lo1 <= hi1 {
+				// Row values at m₁ = lo1, m₂ = 0: rowG = exp(−c₄|g|²) for
+				// g = m₀b₀ + m₁b₁, its ratio to the next m₁ and
+				// y = exp(−2c₄·g·b₂); the phases, pair by pair.
+				rowG, rowStep, y := plane, e11*x01m, x02m
+				down := e11 / x01m
+				ph.start(np, lo1)
+				for m := 0; m < lo1; m++ {
+					rowG, rowStep, y = rowG*rowStep, rowStep*e11sq, y*x12
+				}
+				for m := 0; m > lo1; m-- {
+					rowG, down, rowStep, y = rowG*down, down*e11sq, rowStep/e11sq, y*ix12
+				}
+				for m1 := lo1; m1 <= hi1; m1, rowG, rowStep, y = m1+1, rowG*rowStep, rowStep*e11sq, y*x12 {
+					f1 := float64(m1)
+					gb := f0*g02 + f1*g12
+					gg := f0*(f0*g00+2*f1*g01) + f1*f1*g11
+					lo2, hi2 := 1, 0
+					if disc := gb*gb - g22*(gg-kc2); disc >= 0 {
+						root := math.Sqrt(disc)
+						lo2 = max(int(math.Ceil((-gb-root)/g22)), -M2)
+						hi2 = min(int(math.Floor((-gb+root)/g22)), M2)
+						if m0 == 0 && m1 == 0 {
+							lo2 = max(lo2, 1)
+						}
+					}
+					if lo2 <= hi2 {
+						// The weights of the row: exp(−c₄k²) from rowG by the
+						// ratios up = y·e₂₂^(2m₂+1) to the next m₂ (down =
+						// e₂₂^(1−2m₂)/y to the one before), each changing by
+						// e₂₂² per step. A k-vector beyond kc by rounding
+						// keeps its place with weight 0.
+						gauss, up, down := rowG, y*e22, e22/y
+						for m := 0; m < lo2; m++ {
+							gauss, up = gauss*up, up*e22sq
+						}
+						for m := 0; m > lo2; m-- {
+							gauss, down, up = gauss*down, down*e22sq, up*ie22sq
+						}
+						weights := wrow[:hi2-lo2+1]
+						for k := range weights {
+							fm := float64(lo2 + k)
+							w := 0.0
+							if k2 := gg + fm*(2*gb+fm*g22); k2 <= kc2 && k2 > 0 {
+								w = gauss / k2
+								count++
+							}
+							weights[k] = w
+							wsum += w
+							gauss, up = gauss*up, up*e22sq
+						}
+						// Each pair's phase from m₂ = 0 to lo2, then along the
+						// row by e^{2πi·d₂}.
+						for p := 0; p < np; p++ {
+							br, bi, ur, ui := ph.ar[p], ph.ai[p], ph.ur[2][p], ph.ui[2][p]
+							for m := 0; m < lo2; m++ {
+								br, bi = br*ur-bi*ui, br*ui+bi*ur
+							}
+							for m := 0; m > lo2; m-- {
+								br, bi = br*ur+bi*ui, bi*ur-br*ui
+							}
+							sum := 0.0
+							for _, w := range weights {
+								sum += w * br
+								br, bi = br*ur-bi*ui, br*ui+bi*ur
+							}
+							c[p] += sum
+						}
+					}
+					ph.step(np, 1)
 				}
 			}
-			if lo2 <= hi2 {
-				pr, pi := ar[:np:np], ai[:np:np] // the phase of the row at m₂ = 0
-				// m₂ ≥ 0: exp(−c₄k²) rises from rowG by ratios y·e₂₂^(2m₂+1).
-				if hi2 >= 0 {
-					gauss, up := rowG, y*e22
-					first := max(lo2, 0)
-					for m := 0; m < first; m++ {
-						gauss, up = gauss*up, up*e22sq
-					}
-					for m2 := first; m2 <= hi2; m2, gauss, up = m2+1, gauss*up, up*e22sq {
-						fm := float64(m2)
-						k2 := gg + fm*(2*gb+fm*g22)
-						if k2 > kc2 || k2 <= 0 {
-							continue
-						}
-						count++
-						w := gauss / k2
-						wsum += w
-						tr, ti := t2r[m2][:np:np], t2i[m2][:np:np]
-						for p := range c2 {
-							c2[p] += w * (pr[p]*tr[p] - pi[p]*ti[p])
-						}
-					}
-				}
-				// m₂ < 0: ratios e₂₂^(1−2m₂)/y going down, phases conjugated.
-				if lo2 < 0 {
-					gauss, down := rowG, e22/y
-					first := min(hi2, -1)
-					for m := 0; m > first; m-- {
-						gauss, down = gauss*down, down*e22sq
-					}
-					for m2 := first; m2 >= lo2; m2, gauss, down = m2-1, gauss*down, down*e22sq {
-						fm := float64(m2)
-						k2 := gg + fm*(2*gb+fm*g22)
-						if k2 > kc2 || k2 <= 0 {
-							continue
-						}
-						count++
-						w := gauss / k2
-						wsum += w
-						tr, ti := t2r[-m2][:np:np], t2i[-m2][:np:np]
-						for p := range c2 {
-							c2[p] += w * (pr[p]*tr[p] + pi[p]*ti[p])
-						}
-					}
-				}
-			}
-			for p := range u1r2 {
-				ar[p], ai[p] = ar[p]*u1r2[p]-ai[p]*u1i2[p], ar[p]*u1i2[p]+ai[p]*u1r2[p]
-			}
 		}
-		for p := range u0r2 {
-			p0r2[p], p0i2[p] = p0r2[p]*u0r2[p]-p0i2[p]*u0i2[p], p0r2[p]*u0i2[p]+p0i2[p]*u0r2[p]
-		}
+		ph.step(np, 0)
 	}
 	pre := 8 * math.Pi / s.volume // both members of each ±k pair
-	pp = 0
-	for i := 0; i < n; i++ {
+	for i, pp := 0, 0; i < n; i++ {
 		phi[i] += pre * s.q[i] * wsum
-		for j := i + 1; j < n; j++ {
-			phi[i] += pre * s.q[j] * c[pp]
-			phi[j] += pre * s.q[i] * c[pp]
-			pp++
+		for j := i + 1; j < n; j, pp = j+1, pp+1 {
+			phi[i] += pre * s.q[j] * ph.c[pp]
+			phi[j] += pre * s.q[i] * ph.c[pp]
 		}
 	}
 	return count, true
+}
+
+// smallPhases holds, per pair of sites, the phase steps along the three
+// reciprocal axes (ur, ui), the phase at the current m₀ and m₂ = 0 (p0),
+// at the start of the current row (ar, ai) and the accumulated Σₖ wₖ·cos(k·dᵢⱼ) (c).
+type smallPhases struct {
+	ur, ui   [3][smallPairs]float64
+	p0r, p0i [smallPairs]float64
+	ar, ai   [smallPairs]float64
+	c        [smallPairs]float64
+}
+
+// start sets the row phases to those of m₁ = m1 in the current plane.
+func (ph *smallPhases) start(np, m1 int) {
+	for p := 0; p < np; p++ {
+		re, im := ph.p0r[p], ph.p0i[p]
+		ur, ui := ph.ur[1][p], ph.ui[1][p]
+		if m1 < 0 {
+			ui = -ui
+		}
+		for m := 0; m < m1 || m < -m1; m++ {
+			re, im = re*ur-im*ui, re*ui+im*ur
+		}
+		ph.ar[p], ph.ai[p] = re, im
+	}
+}
+
+// step advances the plane phases (axis 0) or the row phases (axis 1).
+func (ph *smallPhases) step(np, axis int) {
+	ur, ui := ph.ur[axis][:np:np], ph.ui[axis][:np:np]
+	re, im := ph.ar[:np:np], ph.ai[:np:np]
+	if axis == 0 {
+		re, im = ph.p0r[:np:np], ph.p0i[:np:np]
+	}
+	for p := range ur {
+		re[p], im[p] = re[p]*ur[p]-im[p]*ui[p], re[p]*ui[p]+im[p]*ur[p]
+	}
 }

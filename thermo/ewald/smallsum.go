@@ -25,9 +25,9 @@ const smallGenerators = 4
 // permutations of its sites. A translation is named by the image of site
 // 0 under it.
 type smallGroup struct {
-	size  int                          // number of translations g, the identity included
+	size  int                         // number of translations g, the identity included
 	perm  [smallFull][smallFull]uint8 // perm[e][i]: the image of site i under translation e
-	named [smallFull]int8              // named[j]: the translation taking site 0 to site j, or −1
+	named [smallFull]int8             // named[j]: the translation taking site 0 to site j, or −1
 	gens  [smallGenerators]crystal.Vec3
 	nGen  int
 }
