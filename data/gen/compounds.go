@@ -257,9 +257,9 @@ func (g *generator) addCRCDensity(row map[string]string, formula, name string) b
 // addDepositedCell writes the cell a deposited structure gives into the
 // row, keeping the typed one in the note, and says whether it found one.
 func (g *generator) addDepositedCell(row, k map[string]string) bool {
-	p, note, ok := g.depositedParams(k)
+	p, source, note, ok := g.depositedParams(k)
 	if ok {
-		row["params"], row["params_source"] = p, keyCODCells
+		row["params"], row["params_source"] = p, source
 		row["note"] = strings.TrimPrefix(row["note"]+"; "+note, "; ")
 	}
 	return ok
