@@ -67,14 +67,15 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 	g00, g01, g02 := b[0].Dot(b[0]), b[0].Dot(b[1]), b[0].Dot(b[2])
 	g11, g12, g22 := b[1].Dot(b[1]), b[1].Dot(b[2]), b[2].Dot(b[2])
 	c4 := 1 / (4 * alpha * alpha)
-	kc2 := kc * kc
+	kc2, inv22 := kc*kc, 1/g22
 	e00, e11, e22 := math.Exp(-c4*g00), math.Exp(-c4*g11), math.Exp(-c4*g22)
 	x01, x02, x12 := math.Exp(-2*c4*g01), math.Exp(-2*c4*g02), math.Exp(-2*c4*g12)
 	e11sq, e22sq, ix12 := e11*e11, e22*e22, 1/x12
 	ie22sq := 1 / e22sq
 	// The extent in m₁ of the plane m₀ within kc: the quadratic in m₁ of
 	// the shortest k over real m₂.
-	ea, eb, ec := g11-g12*g12/g22, g01-g02*g12/g22, g00-g02*g02/g22
+	ea, eb, ec := g11-g12*g12*inv22, g01-g02*g12*inv22, g00-g02*g02*inv22
+	iea := 1 / ea
 
 	wsum, count := 0.0, 0
 	var wrow [2*smallOrder + 1]float64 // the weights of one row
@@ -87,8 +88,8 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 		disc1 := eb*eb*f0*f0 - ea*(ec*f0*f0-kc2)
 		if disc1 >= 0 {
 			root := math.Sqrt(disc1)
-			lo1 := max(int(math.Ceil((-eb*f0-root)/ea)), -M1)
-			hi1 := min(int(math.Floor((-eb*f0+root)/ea)), M1)
+			lo1 := max(int(math.Ceil((-eb*f0-root)*iea)), -M1)
+			hi1 := min(int(math.Floor((-eb*f0+root)*iea)), M1)
 			if m0 == 0 {
 				lo1 = max(lo1, 0)
 			}
@@ -105,15 +106,17 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 				for m := 0; m > lo1; m-- {
 					rowG, down, rowStep, y = rowG*down, down*e11sq, rowStep/e11sq, y*ix12
 				}
+				// g·b₂ = gbA + m₁g₁₂ and |g|² = ggA + m₁(ggB + m₁g₁₁).
+				gbA, ggA, ggB := f0*g02, f0*f0*g00, 2*f0*g01
 				for m1 := lo1; m1 <= hi1; m1, rowG, rowStep, y = m1+1, rowG*rowStep, rowStep*e11sq, y*x12 {
 					f1 := float64(m1)
-					gb := f0*g02 + f1*g12
-					gg := f0*(f0*g00+2*f1*g01) + f1*f1*g11
+					gb := gbA + f1*g12
+					gg := ggA + f1*(ggB+f1*g11)
 					lo2, hi2 := 1, 0
 					if disc := gb*gb - g22*(gg-kc2); disc >= 0 {
 						root := math.Sqrt(disc)
-						lo2 = max(int(math.Ceil((-gb-root)/g22)), -M2)
-						hi2 = min(int(math.Floor((-gb+root)/g22)), M2)
+						lo2 = max(int(math.Ceil((-gb-root)*inv22)), -M2)
+						hi2 = min(int(math.Floor((-gb+root)*inv22)), M2)
 						if m0 == 0 && m1 == 0 {
 							lo2 = max(lo2, 1)
 						}
@@ -132,16 +135,16 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 							gauss, down, up = gauss*down, down*e22sq, up*ie22sq
 						}
 						weights := wrow[:hi2-lo2+1]
+						fm, tgb := float64(lo2), 2*gb
 						for k := range weights {
-							fm := float64(lo2 + k)
 							w := 0.0
-							if k2 := gg + fm*(2*gb+fm*g22); k2 <= kc2 && k2 > 0 {
+							if k2 := gg + fm*(tgb+fm*g22); k2 <= kc2 && k2 > 0 {
 								w = gauss / k2
 								count++
 							}
 							weights[k] = w
 							wsum += w
-							gauss, up = gauss*up, up*e22sq
+							gauss, up, fm = gauss*up, up*e22sq, fm+1
 						}
 						// Each pair's phase from m₂ = 0 to lo2, then along the
 						// row by e^{2πi·d₂}.

@@ -67,11 +67,15 @@ func (sp *sphere) images(D [3]float64, half bool, e [3]int) (sum float64, count 
 		if zero0 {
 			lo1 = max(lo1, (1-e[1])>>1)
 		}
+		// For w = (w₀, w₁, D₂): |w + m₂e₂|² = ww + 2m₂·wb + m₂²·g₂₂ with
+		// ww = a + w₁·(b + g₁₁w₁) and wb = c + g₁₂w₁.
+		a := w0*(sp.g00*w0+2*sp.g02*D[2]) + sp.g22*D[2]*D[2]
+		b := 2 * (sp.g01*w0 + sp.g12*D[2])
+		c := sp.g02*w0 + sp.g22*D[2]
 		for m1 := lo1; m1 <= hi1; m1++ {
 			w1 := D[1] + float64(m1)
-			// |w + m₂e₂|² = ww + 2m₂·wb + m₂²·g₂₂ for w = (w₀, w₁, D₂).
-			wb := sp.g02*w0 + sp.g12*w1 + sp.g22*D[2]
-			ww := w0*(sp.g00*w0+2*sp.g01*w1+2*sp.g02*D[2]) + w1*(sp.g11*w1+2*sp.g12*D[2]) + sp.g22*D[2]*D[2]
+			wb := c + sp.g12*w1
+			ww := a + w1*(b+sp.g11*w1)
 			disc := wb*wb - sp.g22*(ww-sp.rc2)
 			if disc < 0 {
 				continue
@@ -94,7 +98,9 @@ func (sp *sphere) images(D [3]float64, half bool, e [3]int) (sum float64, count 
 				r := math.Sqrt(r2)
 				sum += screened(sp.alpha * r)
 				count++
-				shortest = min(shortest, r)
+				if r < shortest {
+					shortest = r
+				}
 			}
 		}
 	}
