@@ -78,6 +78,8 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 	iea := 1 / ea
 
 	wsum, count := 0.0, 0
+	u0r, u0i, u1r, u1i := ph.ur[0][:np:np], ph.ui[0][:np:np], ph.ur[1][:np:np], ph.ui[1][:np:np]
+	p0r, p0i := ph.p0r[:np:np], ph.p0i[:np:np]
 	var wrow [2*smallOrder + 1]float64 // the weights of one row
 	c := ph.c[:np:np]
 	// At m₁ = 0 of plane m₀: exp(−c₄m₀²g₀₀) (plane), its ratio to the next
@@ -100,6 +102,7 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 				rowG, rowStep, y := plane, e11*x01m, x02m
 				down := e11 / x01m
 				ph.start(np, lo1)
+				ar, ai := ph.ar[:np:np], ph.ai[:np:np]
 				for m := 0; m < lo1; m++ {
 					rowG, rowStep, y = rowG*rowStep, rowStep*e11sq, y*x12
 				}
@@ -164,11 +167,15 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 							c[p] += sum
 						}
 					}
-					ph.step(np, 1)
+					for p := range ar {
+						ar[p], ai[p] = ar[p]*u1r[p]-ai[p]*u1i[p], ar[p]*u1i[p]+ai[p]*u1r[p]
+					}
 				}
 			}
 		}
-		ph.step(np, 0)
+		for p := range p0r {
+			p0r[p], p0i[p] = p0r[p]*u0r[p]-p0i[p]*u0i[p], p0r[p]*u0i[p]+p0i[p]*u0r[p]
+		}
 	}
 	pre := 8 * math.Pi / s.volume // both members of each ±k pair
 	for i, pp := 0, 0; i < n; i++ {
@@ -203,17 +210,5 @@ func (ph *smallPhases) start(np, m1 int) {
 			re, im = re*ur-im*ui, re*ui+im*ur
 		}
 		ph.ar[p], ph.ai[p] = re, im
-	}
-}
-
-// step advances the plane phases (axis 0) or the row phases (axis 1).
-func (ph *smallPhases) step(np, axis int) {
-	ur, ui := ph.ur[axis][:np:np], ph.ui[axis][:np:np]
-	re, im := ph.ar[:np:np], ph.ai[:np:np]
-	if axis == 0 {
-		re, im = ph.p0r[:np:np], ph.p0i[:np:np]
-	}
-	for p := range ur {
-		re[p], im[p] = re[p]*ur[p]-im[p]*ui[p], re[p]*ui[p]+im[p]*ur[p]
 	}
 }
