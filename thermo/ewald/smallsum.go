@@ -234,7 +234,7 @@ func sumSmall(c *crystal.Crystal, eps, target, forcedAlpha float64) (Result, boo
 	if !ok {
 		return Result{}, false
 	}
-	recipTerms, ok := sub.reciprocalSmall(alpha, kc, a.phiRec[:m])
+	recipTerms, ok := sub.reciprocalPairs(alpha, kc, a.phiRec[:m])
 	if !ok {
 		return Result{}, false
 	}
