@@ -20,10 +20,14 @@ func countText(n int) string {
 }
 
 // pickIons chooses, for a formula of two parts (elements, or a bracketed
-// group for a polyatomic ion: "Ba(N3)2"), the cation and anion of the data
-// whose charges balance its counts; when the data have no balancing cation
-// of an element it makes one with the charge the counts imply (a
-// hypothetical ion).
+// group for a polyatomic ion: "Ba(N3)2"), the ions in this order of
+// likelihood: a cation and an anion of the data whose charges balance its
+// counts (the data's ions are those of real compounds, so their charges
+// are the element's known oxidation states); else a cation of the data
+// with a homonuclear group anion of the data that the counts allow (MgO₂
+// is Mg²⁺ with peroxide O₂²⁻, not Mg⁴⁺ with O²⁻); only then a cation with
+// the charge the counts imply that the data do not have (a hypothetical
+// ion, MgCl of Mg⁺). The ranking is common practice, no source.
 func pickIons(db *data.DB, formula string, p1, p2 formulaPart, opt Options) (data.Ion, data.Ion, error) {
 	first, second := p1.core, p2.core
 	nFirst, nSecond := p1.count, p2.count
@@ -68,6 +72,15 @@ func pickIons(db *data.DB, formula string, p1, p2 formulaPart, opt Options) (dat
 			}
 		}
 	}
+	if opt.Anion == "" && !p2.bracketed {
+		// The second reading: a homonuclear group anion of the element
+		// (O₂²⁻ of BaO₂, O₂⁻ of KO₂, S₂²⁻ of FeS₂, N₃⁻ of NaN₃, C₂²⁻ of
+		// CaC₂) with a cation of the data, before any charge the data do
+		// not know.
+		if ca, an, ok := groupAnionReading(db, cations, second, nFirst, nSecond); ok {
+			return ca, an, nil
+		}
+	}
 	if p1.bracketed {
 		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("no cation %s in the data balances %s; give the ions with their charges", first, anions[0].Symbol)}
 	}
@@ -83,6 +96,30 @@ func pickIons(db *data.DB, formula string, p1, p2 formulaPart, opt Options) (dat
 	}
 	sym := fmt.Sprintf("%s%s+", first, countText(z))
 	return hypotheticalIon(db, sym, first, z), an, nil
+}
+
+// groupAnionReading looks for a homonuclear group anion of element el
+// (core el₂, el₃, …) that the data hold and that, with one of the data's
+// cations, balances nFirst cations and nSecond atoms of el: the first such
+// pair, group anions of two atoms first (peroxide before any longer
+// chain).
+func groupAnionReading(db *data.DB, cations []data.Ion, el string, nFirst, nSecond int) (data.Ion, data.Ion, bool) {
+	for k := 2; k <= nSecond; k++ {
+		if nSecond%k != 0 {
+			continue
+		}
+		for _, an := range db.IonsOf(el + strconv.Itoa(k)) {
+			if !an.Polyatomic || an.Charge >= 0 {
+				continue
+			}
+			for _, ca := range cations {
+				if nFirst*ca.Charge+nSecond/k*an.Charge == 0 {
+					return ca, an, true
+				}
+			}
+		}
+	}
+	return data.Ion{}, data.Ion{}, false
 }
 
 // NeighbourDonor returns the element whose ion of charge z lends its
