@@ -9,17 +9,14 @@ import "testing"
 // the ions its row names. Those rows follow the NBS tables' names
 // ("barium peroxide", "potassium superoxide", "sodium azide"; NBS 1982,
 // pinned copy in data/sources/nbs-tables-1982). The ion table holds each
-// real compound's own ions, so this checks the ranking between readings
-// (the plain one, the group anion, a charge the data lack), not the
-// finding of an ion the data miss.
+// real compound's own ions, and the crystals that rank the readings
+// include the compound itself, so this checks the ranking between
+// readings (the plain one, the group anion, a charge the data lack), not
+// the finding of an ion the data miss.
 //
 // Known misreadings, each with its reason; one that comes right fails the
 // test until it is taken off the list:
 var knownMisreadings = map[string]string{
-	// Fe⁴⁺ is in the data (FeSi, "iron(IV) silicide", a formal charge of
-	// an intermetallic), so Fe⁴⁺ + 2 S²⁻ balances and ranks first; pyrite's
-	// Fe²⁺ + S₂²⁻ takes chemistry the ranking does not know.
-	"FeS2": "Fe4+ S2-",
 	// Hg⁺ is in the data (the gaseous HgF, HgCl, HgI rows) and a group
 	// cation (Hg₂²⁺) is not among an element's readings.
 	"Hg2Cl2": "Hg+ Cl-",
