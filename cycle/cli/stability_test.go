@@ -256,3 +256,38 @@ func TestStabilityEntropyDomainJSON(t *testing.T) {
 		t.Fatalf("MgO's estimate: domain %+v\n%s", d, out)
 	}
 }
+
+// stability MgO2 --estimate-only --json reads magnesium peroxide (a real
+// compound: Mg²⁺ with O₂²⁻, common knowledge) and its one decomposition
+// into MgO and O₂, marked as combining the estimates' σ by the correlation
+// rule (uncertainty_correlated); the keys of before are kept.
+func TestStabilityPeroxideEstimateJSON(t *testing.T) {
+	out, errs, code := runAnalysisCmd(t, "", "stability", "MgO2", "--estimate-only", "--json")
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	var j struct {
+		Reactions []struct {
+			Reaction   string   `json:"reaction"`
+			Enthalpy   float64  `json:"enthalpy_kj_per_mol"`
+			Sigma      float64  `json:"enthalpy_uncertainty_kj_per_mol"`
+			Estimated  bool     `json:"uses_estimates"`
+			Correlated *bool    `json:"uncertainty_correlated"`
+			Gibbs      *float64 `json:"gibbs_kj_per_mol"`
+		} `json:"reactions"`
+		Notes []string `json:"notes"`
+	}
+	if err := json.Unmarshal([]byte(out), &j); err != nil {
+		t.Fatal(err)
+	}
+	if len(j.Reactions) != 1 {
+		t.Fatalf("JSON %s", out)
+	}
+	r := j.Reactions[0]
+	if r.Reaction != "MgO2 -> MgO + ½ O2(g)" || !r.Estimated || r.Correlated == nil || !*r.Correlated || r.Gibbs == nil || !(r.Sigma > 0) {
+		t.Errorf("reaction %+v", r)
+	}
+	if !strings.Contains(strings.Join(j.Notes, "\n"), "correlated at 0.5 between salts of the same cation") {
+		t.Errorf("no note states the rule: %q", j.Notes)
+	}
+}
