@@ -134,6 +134,35 @@ func TestExtendedFitted(t *testing.T) {
 	}
 }
 
+// A fitted repulsion with tabulated prefactors keeps their ratios and
+// scales them all by one factor that makes D0 the minimum of the static
+// energy; the same prefactors scaled by hand, minimised, land on D0.
+func TestExtendedFittedShape(t *testing.T) {
+	in := naclInput(t)
+	tab := in.Repulsion.Prefactor
+	in.Repulsion.Fitted = true
+	res, err := Extended(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	f := res.FittedPrefactor / tab[crystal.CationAnion]
+	if !(f > 0.5 && f < 1.5) {
+		t.Fatalf("scale %g on Fumi–Tosi's prefactors, want near 1 (their own fit to the same distance)", f)
+	}
+	twin := in
+	twin.Repulsion = Repulsion{Rho: in.Repulsion.Rho, Prefactor: [3]float64{f * tab[0], f * tab[1], f * tab[2]}}
+	got, err := Extended(twin)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(got.Minimum.D-in.D0) > 1e-9 {
+		t.Errorf("minimum at %.10f Å with the scaled prefactors, want D0 = %.10f Å", got.Minimum.D, in.D0)
+	}
+	if math.Abs(got.Minimum.Static()-res.Minimum.Static()) > 1e-9*math.Abs(res.Minimum.Static()) {
+		t.Errorf("static energy %.6f with the scaled prefactors, %.6f fitted", got.Minimum.Static(), res.Minimum.Static())
+	}
+}
+
 // naclInputFitted fixes the fitted prefactor B on the cation–anion pairs.
 func naclInputFitted(in ExtendedInput, b float64) ExtendedInput {
 	in.Repulsion = Repulsion{Rho: in.Repulsion.Rho, Prefactor: [3]float64{0, b, 0}}
