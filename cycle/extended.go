@@ -98,6 +98,11 @@ type ExtendedBreakdown struct {
 	// 298.15 K into the cycle's lattice convention: 0 for ΔH_L, Jenkins'
 	// ΔH_L − U (c.LatticeCorrection) when the cycle compares energies U.
 	ToCycleConvention float64
+	// Dispersion is the dispersion set asked for, and RepulsionFitted
+	// reports a repulsion fitted at the reference distance: Minimum is then
+	// where the fit puts the least (free) energy, the reference itself.
+	Dispersion      DispersionSet
+	RepulsionFitted bool
 	// RepulsionFrom, DispersionFrom, ZeroPointFrom and HeatContentFrom say
 	// how each term was obtained.
 	RepulsionFrom, DispersionFrom, ZeroPointFrom, HeatContentFrom string
@@ -328,7 +333,8 @@ func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data
 		sums.InvPow6[k] /= math.Pow(scale, 6)
 		sums.InvPow8[k] /= math.Pow(scale, 8)
 	}
-	b := &ExtendedBreakdown{Reference: in.D0, ReferenceFrom: in.D0From, ReferenceMeasured: strings.HasPrefix(in.D0From, "nearest cation–anion distance")}
+	b := &ExtendedBreakdown{Reference: in.D0, ReferenceFrom: in.D0From, ReferenceMeasured: strings.HasPrefix(in.D0From, "nearest cation–anion distance"),
+		Dispersion: c.Settings.Dispersion}
 	input := lattice.ExtendedInput{
 		Madelung: in.Madelung, ZCation: c.Cation.Ion.Charge, ZAnion: c.Anion.Ion.Charge,
 		Ions: c.Cation.Count + c.Anion.Count, D0: in.D0,
@@ -452,6 +458,7 @@ func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data
 		return fail("cannot be evaluated", err)
 	}
 	b.Minimum, b.AtReference = res.Minimum, res.AtD0
+	b.RepulsionFitted = input.Repulsion.Fitted
 	if input.Repulsion.Fitted {
 		b.RepulsionFrom += fmt.Sprintf("%s; reference distance %.4f Å, B = %.4g kJ/mol", res.RepulsionFit, in.D0, res.FittedPrefactor)
 		if fumiTosi {
