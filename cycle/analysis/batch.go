@@ -2,6 +2,7 @@ package analysis
 
 import (
 	"bufio"
+	"bytes"
 	"encoding/csv"
 	"encoding/json"
 	"errors"
@@ -48,6 +49,9 @@ type BatchRow struct {
 	Line    int
 	Formula string
 	Options EstimateOptions
+	// cells is the row's cells joined by NUL (a byte no accepted cell
+	// holds): rows with the same cells have the same result.
+	cells string
 }
 
 // BatchReader reads batch rows from CSV one at a time (streaming: memory
@@ -57,6 +61,11 @@ type BatchReader struct {
 	header []string
 	col    map[string]int
 	sets   []int // columns set:KEY
+	// read holds the rows read so far by their cells (at most
+	// rowMemoSize), so that a repeated row is not read again; cells is
+	// the scratch its keys are built in.
+	read  map[string]BatchRow
+	cells []byte
 }
 
 // NewBatchReader reads the header row from r. Lines starting with '#' are
@@ -74,7 +83,7 @@ func NewBatchReader(r io.Reader) (*BatchReader, error) {
 	if err != nil {
 		return nil, csvErr(err, nil)
 	}
-	br := &BatchReader{r: cr, col: map[string]int{}}
+	br := &BatchReader{r: cr, col: map[string]int{}, read: map[string]BatchRow{}}
 	for i, h := range head {
 		h = strings.ToLower(strings.TrimSpace(strings.TrimPrefix(h, "\ufeff")))
 		br.header = append(br.header, h)
@@ -110,6 +119,8 @@ func isBatchColumn(h string) bool {
 
 // Next returns the next row, or io.EOF after the last. A malformed row is a
 // *CSVError naming its line and column; the reader can go on after it.
+// Rows with the same cells share their Options' charges and step values:
+// read them, do not change them.
 func (br *BatchReader) Next() (BatchRow, error) {
 	rec, err := br.r.Read()
 	if err == io.EOF {
@@ -122,6 +133,17 @@ func (br *BatchReader) Next() (BatchRow, error) {
 	row := BatchRow{Line: line}
 	if len(rec) != len(br.header) {
 		return row, &CSVError{Line: line, Reason: fmt.Sprintf("%d columns where the header has %d", len(rec), len(br.header))}
+	}
+	br.cells = br.cells[:0]
+	for i, v := range rec {
+		if i > 0 {
+			br.cells = append(br.cells, 0)
+		}
+		br.cells = append(br.cells, v...)
+	}
+	if seen, ok := br.read[string(br.cells)]; ok { // not a copy: no allocation
+		seen.Line = line
+		return seen, nil
 	}
 	cell := func(name string) string {
 		if i, ok := br.col[name]; ok {
@@ -140,6 +162,7 @@ func (br *BatchReader) Next() (BatchRow, error) {
 			return bad(br.header[i], fmt.Sprintf("control character U+%04X in the cell; remove it", r), nil)
 		}
 	}
+	row.cells = string(br.cells)
 	row.Formula = cell(ColFormula)
 	if row.Formula == "" {
 		return bad(ColFormula, "empty formula", nil)
@@ -184,6 +207,9 @@ func (br *BatchReader) Next() (BatchRow, error) {
 			return bad(br.header[i], "cannot read the value", err)
 		}
 		row.Options.Sets = append(row.Options.Sets, st)
+	}
+	if len(br.read) < rowMemoSize {
+		br.read[row.cells] = row
 	}
 	return row, nil
 }
@@ -231,16 +257,137 @@ func (l *lineLimiter) Read(p []byte) (int, error) {
 // batchBlockRows is the number of rows handed to a worker at once.
 const batchBlockRows = 64
 
-// batchBlock is a run of consecutive rows and their results; done is
-// closed when every result is in.
+// batchBlock is a run of consecutive rows and, once done is closed, their
+// output: the reader fills rows (and faults, a cell the row cannot be
+// read by), a worker estimates and writes them into out, the writer
+// copies out in input order.
 type batchBlock struct {
-	rows    []BatchRow
-	results []BatchResult
-	done    chan struct{}
+	rows   []BatchRow
+	faults []string // a row's cell fault, worded; "" for a readable row
+	out    []byte   // the rows' output, CSV records or ",\n  "-led JSON objects
+	failed int      // rows with an error
+	err    error    // a row that could not be written
+	done   chan struct{}
 }
 
 func newBatchBlock() *batchBlock {
-	return &batchBlock{rows: make([]BatchRow, 0, batchBlockRows), results: make([]BatchResult, 0, batchBlockRows), done: make(chan struct{})}
+	return &batchBlock{rows: make([]BatchRow, 0, batchBlockRows), faults: make([]string, 0, batchBlockRows), done: make(chan struct{})}
+}
+
+// batchWorker estimates blocks and writes their rows' output; each of a
+// batch's workers has its own.
+type batchWorker struct {
+	a       *Analyst
+	scratch *cycle.Cycle // every row's cycle, in turn
+	format  rowFormat
+	seen    map[string]seenRow // see seenRow
+}
+
+// seenRow is a row's output without its line, kept by the row's cells. A
+// screening list repeats rows (a formula under several models, a list
+// stretched over a family), a row's cycle, model, solve and wording cost
+// microseconds, and the same cells give the same output but for the line:
+// that work is done once per distinct row and worker. At most rowMemoSize
+// rows are held, so that memory does not grow with the file; past that,
+// rows are estimated afresh.
+type seenRow struct {
+	rest   []byte // the output after the line number
+	failed bool
+}
+
+// rowMemoSize bounds the rows a batch remembers (by reader and by worker).
+const rowMemoSize = 1 << 14
+
+func newBatchWorker(a *Analyst, asJSON bool) *batchWorker {
+	return &batchWorker{a: a, scratch: new(cycle.Cycle), format: newRowFormat(asJSON), seen: map[string]seenRow{}}
+}
+
+// block estimates blk's rows and writes their output into blk.out.
+func (w *batchWorker) block(blk *batchBlock) {
+	defer close(blk.done)
+	for i := range blk.rows {
+		row := &blk.rows[i]
+		if blk.faults[i] != "" { // a cell fault found while reading
+			blk.failed++
+			if blk.out, blk.err = w.format.write(blk.out, &BatchResult{Line: row.Line, Formula: row.Formula, Error: blk.faults[i]}); blk.err != nil {
+				return
+			}
+			continue
+		}
+		if s, ok := w.seen[row.cells]; ok && row.cells != "" {
+			blk.out = w.format.appendLine(blk.out, row.Line)
+			blk.out = append(blk.out, s.rest...)
+			if s.failed {
+				blk.failed++
+			}
+			continue
+		}
+		res := w.a.rowInto(*row, w.scratch)
+		start := len(blk.out)
+		if blk.out, blk.err = w.format.write(blk.out, &res); blk.err != nil {
+			return
+		}
+		if res.Error != "" {
+			blk.failed++
+		}
+		lead := w.format.appendLine(nil, row.Line)
+		if out := blk.out[start:]; row.cells != "" && len(w.seen) < rowMemoSize && bytes.HasPrefix(out, lead) {
+			w.seen[row.cells] = seenRow{rest: bytes.Clone(out[len(lead):]), failed: res.Error != ""}
+		}
+	}
+}
+
+// rowFormat writes BatchResults as CSV records (encoding/csv's quoting)
+// or as JSON objects (encoding/json), each JSON object led by ",\n  ".
+type rowFormat struct {
+	json bool
+	buf  bytes.Buffer
+	cw   *csv.Writer
+	rec  []string
+}
+
+// jsonLead is what a JSON row starts with up to its line number
+// (BatchResult's first field).
+const jsonLead = ",\n  {\"line\":"
+
+func newRowFormat(asJSON bool) rowFormat {
+	return rowFormat{json: asJSON, rec: make([]string, len(batchCSVHeader))}
+}
+
+// write appends res's output to dst.
+func (f *rowFormat) write(dst []byte, res *BatchResult) ([]byte, error) {
+	if f.json {
+		b, err := json.Marshal(res)
+		if err != nil {
+			return dst, err
+		}
+		return append(append(dst, ",\n  "...), b...), nil
+	}
+	res.fill(f.rec)
+	return f.csv(dst, f.rec)
+}
+
+// csv appends rec as one CSV record to dst.
+func (f *rowFormat) csv(dst []byte, rec []string) ([]byte, error) {
+	if f.cw == nil {
+		f.cw = csv.NewWriter(&f.buf)
+	}
+	f.buf.Reset()
+	f.cw.Write(rec)
+	f.cw.Flush()
+	if err := f.cw.Error(); err != nil {
+		return dst, err
+	}
+	return append(dst, f.buf.Bytes()...), nil
+}
+
+// appendLine appends the start of a row's output up to and with its line
+// number: what write puts before a row's other fields.
+func (f *rowFormat) appendLine(dst []byte, line int) []byte {
+	if f.json {
+		dst = append(dst, jsonLead...)
+	}
+	return strconv.AppendInt(dst, int64(line), 10)
 }
 
 // BatchResult is one output row.
@@ -338,33 +485,30 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 		return sum, err
 	}
 	bw := bufio.NewWriterSize(w, 64<<10)
-	var cw *csv.Writer
 	if opt.JSON {
 		bw.WriteString("[")
 	} else {
-		cw = csv.NewWriter(bw)
-		cw.Write(batchCSVHeader)
+		f := newRowFormat(false)
+		head, err := f.csv(nil, batchCSVHeader)
+		if err != nil {
+			return sum, err
+		}
+		bw.Write(head)
 	}
-	rec := make([]string, len(batchCSVHeader))
 	finish := func() error {
 		if opt.JSON {
 			if sum.Rows > 0 {
 				bw.WriteString("\n")
 			}
 			bw.WriteString("]\n")
-		} else {
-			cw.Flush()
-			if err := cw.Error(); err != nil {
-				return err
-			}
 		}
 		return bw.Flush()
 	}
-	// Rows are read into blocks, estimated by workers block by block and
-	// written in input order: a bounded queue of blocks keeps at most
-	// cap(queue) blocks in flight, so memory does not grow with the file,
-	// and a block's rows share one hand-over (rows take microseconds, a
-	// hand-over per row would cost as much).
+	// Rows are read into blocks, estimated and written out by workers
+	// block by block, and copied to w in input order: a bounded queue of
+	// blocks keeps at most cap(queue) blocks in flight, so memory does not
+	// grow with the file, and a block's rows share one hand-over (rows
+	// take microseconds, a hand-over per row would cost as much).
 	workers := opt.Workers
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
@@ -376,14 +520,9 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			scratch := new(cycle.Cycle) // every row's cycle, in turn
+			bw := newBatchWorker(a, opt.JSON)
 			for blk := range jobs {
-				for i := range blk.rows {
-					if blk.results[i].Error == "" { // not a cell fault found while reading
-						blk.results[i] = a.rowInto(blk.rows[i], scratch)
-					}
-				}
-				close(blk.done)
+				bw.block(blk)
 			}
 		}()
 	}
@@ -406,7 +545,7 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 			if errors.As(err, &ce) && ce.Column != "" {
 				// A cell fault is this row's result, like a failed estimate.
 				blk.rows = append(blk.rows, row)
-				blk.results = append(blk.results, BatchResult{Line: row.Line, Formula: row.Formula, Error: oneLine(err.Error())})
+				blk.faults = append(blk.faults, oneLine(err.Error()))
 			} else if err != nil {
 				readErr = err
 				break
@@ -415,7 +554,7 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 					row.Options.Structure = filepath.Join(opt.Dir, st)
 				}
 				blk.rows = append(blk.rows, row)
-				blk.results = append(blk.results, BatchResult{})
+				blk.faults = append(blk.faults, "")
 			}
 			if len(blk.rows) == batchBlockRows {
 				send()
@@ -428,33 +567,22 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 	var writeErr error
 	for blk := range queue {
 		<-blk.done
-		for k := range blk.results {
-			res := &blk.results[k]
-			if writeErr != nil {
-				break // drain
-			}
+		if writeErr != nil {
+			continue // drain
+		}
+		if writeErr = blk.err; writeErr != nil {
+			continue
+		}
+		out := blk.out
+		if opt.JSON && sum.Rows == 0 {
+			out = out[1:] // the first object has no comma before it
+		}
+		if _, writeErr = bw.Write(out); writeErr != nil {
+			continue
+		}
+		sum.Failed += blk.failed
+		for range blk.rows {
 			sum.Rows++
-			if res.Error != "" {
-				sum.Failed++
-			}
-			if opt.JSON {
-				b, err := json.Marshal(res)
-				if err != nil {
-					writeErr = err
-					continue
-				}
-				if sum.Rows > 1 {
-					bw.WriteString(",")
-				}
-				bw.WriteString("\n  ")
-				bw.Write(b)
-			} else {
-				res.fill(rec)
-				if err := cw.Write(rec); err != nil {
-					writeErr = err
-					continue
-				}
-			}
 			if opt.Progress != nil {
 				opt.Progress(sum.Rows)
 			}
