@@ -64,8 +64,9 @@ type BatchReader struct {
 	// read holds the rows read so far by their cells (at most
 	// rowMemoSize), so that a repeated row is not read again; cells is
 	// the scratch its keys are built in.
-	read  map[string]BatchRow
-	cells []byte
+	read     map[string]BatchRow
+	readSize int
+	cells    []byte
 }
 
 // NewBatchReader reads the header row from r. Lines starting with '#' are
@@ -83,7 +84,7 @@ func NewBatchReader(r io.Reader) (*BatchReader, error) {
 	if err != nil {
 		return nil, csvErr(err, nil)
 	}
-	br := &BatchReader{r: cr, col: map[string]int{}, read: map[string]BatchRow{}}
+	br := &BatchReader{r: cr, col: map[string]int{}, read: map[string]BatchRow{}, readSize: rowMemoSize}
 	for i, h := range head {
 		h = strings.ToLower(strings.TrimSpace(strings.TrimPrefix(h, "\ufeff")))
 		br.header = append(br.header, h)
@@ -208,7 +209,7 @@ func (br *BatchReader) Next() (BatchRow, error) {
 		}
 		row.Options.Sets = append(row.Options.Sets, st)
 	}
-	if len(br.read) < rowMemoSize {
+	if len(br.read) < br.readSize {
 		br.read[row.cells] = row
 	}
 	return row, nil
@@ -281,6 +282,7 @@ type batchWorker struct {
 	scratch *cycle.Cycle // every row's cycle, in turn
 	format  rowFormat
 	seen    map[string]seenRow // see seenRow
+	size    int                // at most this many rows in seen
 }
 
 // seenRow is a row's output without its line, kept by the row's cells. A
@@ -298,8 +300,8 @@ type seenRow struct {
 // rowMemoSize bounds the rows a batch remembers (by reader and by worker).
 const rowMemoSize = 1 << 14
 
-func newBatchWorker(a *Analyst, asJSON bool) *batchWorker {
-	return &batchWorker{a: a, scratch: new(cycle.Cycle), format: newRowFormat(asJSON), seen: map[string]seenRow{}}
+func newBatchWorker(a *Analyst, asJSON bool, size int) *batchWorker {
+	return &batchWorker{a: a, scratch: new(cycle.Cycle), format: newRowFormat(asJSON), seen: map[string]seenRow{}, size: size}
 }
 
 // block estimates blk's rows and writes their output into blk.out.
@@ -331,7 +333,7 @@ func (w *batchWorker) block(blk *batchBlock) {
 			blk.failed++
 		}
 		lead := w.format.appendLine(nil, row.Line)
-		if out := blk.out[start:]; row.cells != "" && len(w.seen) < rowMemoSize && bytes.HasPrefix(out, lead) {
+		if out := blk.out[start:]; row.cells != "" && len(w.seen) < w.size && bytes.HasPrefix(out, lead) {
 			w.seen[row.cells] = seenRow{rest: bytes.Clone(out[len(lead):]), failed: res.Error != ""}
 		}
 	}
@@ -428,6 +430,9 @@ type BatchOptions struct {
 	// Dir is the folder a relative CIF path in the structure column is
 	// read from (the batch file's); "" is the working directory.
 	Dir string
+	// memoRows bounds the rows remembered by the reader and by each
+	// worker (0: rowMemoSize); tests set it small to cross the bound.
+	memoRows int
 }
 
 // BatchSummary counts the rows.
@@ -484,6 +489,11 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 	if err != nil {
 		return sum, err
 	}
+	memoRows := rowMemoSize
+	if opt.memoRows > 0 {
+		memoRows = opt.memoRows
+	}
+	br.readSize = memoRows
 	bw := bufio.NewWriterSize(w, 64<<10)
 	if opt.JSON {
 		bw.WriteString("[")
@@ -520,7 +530,7 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			bw := newBatchWorker(a, opt.JSON)
+			bw := newBatchWorker(a, opt.JSON, memoRows)
 			for blk := range jobs {
 				bw.block(blk)
 			}
