@@ -131,9 +131,8 @@ func (br *BatchReader) Next() (BatchRow, error) {
 		return BatchRow{}, csvErr(err, br.header)
 	}
 	line, _ := br.r.FieldPos(0)
-	row := BatchRow{Line: line}
 	if len(rec) != len(br.header) {
-		return row, &CSVError{Line: line, Reason: fmt.Sprintf("%d columns where the header has %d", len(rec), len(br.header))}
+		return BatchRow{Line: line}, &CSVError{Line: line, Reason: fmt.Sprintf("%d columns where the header has %d", len(rec), len(br.header))}
 	}
 	br.cells = br.cells[:0]
 	for i, v := range rec {
@@ -146,6 +145,12 @@ func (br *BatchReader) Next() (BatchRow, error) {
 		seen.Line = line
 		return seen, nil
 	}
+	return br.parse(rec, line)
+}
+
+// parse reads the cells of a row not read before.
+func (br *BatchReader) parse(rec []string, line int) (BatchRow, error) {
+	row := BatchRow{Line: line}
 	cell := func(name string) string {
 		if i, ok := br.col[name]; ok {
 			return strings.TrimSpace(rec[i])
@@ -258,21 +263,28 @@ func (l *lineLimiter) Read(p []byte) (int, error) {
 // batchBlockRows is the number of rows handed to a worker at once.
 const batchBlockRows = 64
 
-// batchBlock is a run of consecutive rows and, once done is closed, their
-// output: the reader fills rows (and faults, a cell the row cannot be
-// read by), a worker estimates and writes them into out, the writer
-// copies out in input order.
+// batchBlock is a run of consecutive rows and, once done is signalled,
+// their output: the reader fills rows (and faults, a cell the row cannot
+// be read by), a worker estimates and writes them into out, the writer
+// copies out in input order and hands the block back to the reader.
 type batchBlock struct {
 	rows   []BatchRow
 	faults []string // a row's cell fault, worded; "" for a readable row
 	out    []byte   // the rows' output, CSV records or ",\n  "-led JSON objects
 	failed int      // rows with an error
 	err    error    // a row that could not be written
-	done   chan struct{}
+	done   chan struct{} // one value when out is complete
 }
 
 func newBatchBlock() *batchBlock {
-	return &batchBlock{rows: make([]BatchRow, 0, batchBlockRows), faults: make([]string, 0, batchBlockRows), done: make(chan struct{})}
+	return &batchBlock{rows: make([]BatchRow, 0, batchBlockRows), faults: make([]string, 0, batchBlockRows), done: make(chan struct{}, 1)}
+}
+
+// reuse empties blk for the next run of rows, keeping its storage.
+func (blk *batchBlock) reuse() {
+	clear(blk.rows) // let go of the rows' strings and options
+	blk.rows, blk.faults, blk.out = blk.rows[:0], blk.faults[:0], blk.out[:0]
+	blk.failed, blk.err = 0, nil
 }
 
 // batchWorker estimates blocks and writes their rows' output; each of a
@@ -306,7 +318,7 @@ func newBatchWorker(a *Analyst, asJSON bool, size int) *batchWorker {
 
 // block estimates blk's rows and writes their output into blk.out.
 func (w *batchWorker) block(blk *batchBlock) {
-	defer close(blk.done)
+	defer func() { blk.done <- struct{}{} }()
 	for i := range blk.rows {
 		row := &blk.rows[i]
 		if blk.faults[i] != "" { // a cell fault found while reading
@@ -525,6 +537,7 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 	}
 	queue := make(chan *batchBlock, 4*workers)
 	jobs := make(chan *batchBlock, 4*workers)
+	spare := make(chan *batchBlock, 4*workers+2) // written blocks, for the reader to fill again
 	var wg sync.WaitGroup
 	for range workers {
 		wg.Add(1)
@@ -540,25 +553,35 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 	go func() {
 		defer close(queue)
 		defer close(jobs)
-		blk := newBatchBlock()
+		next := func() *batchBlock {
+			select {
+			case blk := <-spare:
+				blk.reuse()
+				return blk
+			default:
+				return newBatchBlock()
+			}
+		}
+		blk := next()
 		send := func() {
 			queue <- blk
 			jobs <- blk
-			blk = newBatchBlock()
+			blk = next()
 		}
 		for {
 			row, err := br.Next()
 			if err == io.EOF {
 				break
 			}
-			var ce *CSVError
-			if errors.As(err, &ce) && ce.Column != "" {
+			if err != nil {
+				var ce *CSVError
+				if !errors.As(err, &ce) || ce.Column == "" {
+					readErr = err
+					break
+				}
 				// A cell fault is this row's result, like a failed estimate.
 				blk.rows = append(blk.rows, row)
 				blk.faults = append(blk.faults, oneLine(err.Error()))
-			} else if err != nil {
-				readErr = err
-				break
 			} else {
 				if st := row.Options.Structure; isCIFPath(st) && !filepath.IsAbs(st) {
 					row.Options.Structure = filepath.Join(opt.Dir, st)
@@ -596,6 +619,10 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 			if opt.Progress != nil {
 				opt.Progress(sum.Rows)
 			}
+		}
+		select {
+		case spare <- blk:
+		default:
 		}
 	}
 	wg.Wait()
