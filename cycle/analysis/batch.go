@@ -269,10 +269,10 @@ const batchBlockRows = 64
 // copies out in input order and hands the block back to the reader.
 type batchBlock struct {
 	rows   []BatchRow
-	faults []string // a row's cell fault, worded; "" for a readable row
-	out    []byte   // the rows' output, CSV records or ",\n  "-led JSON objects
-	failed int      // rows with an error
-	err    error    // a row that could not be written
+	faults []string      // a row's cell fault, worded; "" for a readable row
+	out    []byte        // the rows' output, CSV records or ",\n  "-led JSON objects
+	failed int           // rows with an error
+	err    error         // a row that could not be written
 	done   chan struct{} // one value when out is complete
 }
 
