@@ -11,6 +11,7 @@ import (
 	"math"
 	"path/filepath"
 	"runtime"
+	"slices"
 	"strconv"
 	"strings"
 	"sync"
@@ -66,6 +67,7 @@ type BatchReader struct {
 	// the scratch its keys are built in.
 	read     map[string]BatchRow
 	readSize int
+	readHits int // rows found in read
 	cells    []byte
 }
 
@@ -142,6 +144,7 @@ func (br *BatchReader) Next() (BatchRow, error) {
 		br.cells = append(br.cells, v...)
 	}
 	if seen, ok := br.read[string(br.cells)]; ok { // not a copy: no allocation
+		br.readHits++
 		seen.Line = line
 		return seen, nil
 	}
@@ -214,7 +217,7 @@ func (br *BatchReader) parse(rec []string, line int) (BatchRow, error) {
 		}
 		row.Options.Sets = append(row.Options.Sets, st)
 	}
-	if len(br.read) < br.readSize {
+	if worthRemembering(len(br.read), br.readHits, br.readSize) {
 		br.read[row.cells] = row
 	}
 	return row, nil
@@ -288,37 +291,75 @@ func (blk *batchBlock) reuse() {
 }
 
 // batchWorker estimates blocks and writes their rows' output; each of a
-// batch's workers has its own.
+// batch's workers has its own, and they share seen.
 type batchWorker struct {
 	a       *Analyst
 	scratch *cycle.Cycle // every row's cycle, in turn
 	format  rowFormat
-	seen    map[string]seenRow // see seenRow
-	size    int                // at most this many rows in seen
+	seen    *seenRows
+	hits    []seenRow // the block's rows found in seen; rest nil where not
+	fresh   []fresh   // the block's rows estimated here, for seen
+	lead    []byte    // scratch: a row's output up to its line number
 }
 
-// seenRow is a row's output without its line, kept by the row's cells. A
-// screening list repeats rows (a formula under several models, a list
-// stretched over a family), a row's cycle, model, solve and wording cost
-// microseconds, and the same cells give the same output but for the line:
-// that work is done once per distinct row and worker. At most rowMemoSize
-// rows are held, so that memory does not grow with the file; past that,
-// rows are estimated afresh.
+// seenRows holds the output of the rows a batch's workers have estimated,
+// without their line, by the rows' cells. A screening list repeats rows
+// (a formula under several models, a list stretched over a family), a
+// row's cycle, model, solve and wording cost microseconds, and the same
+// cells give the same output but for the line: that work is done once per
+// distinct row (twice at most when two workers meet the same new row at
+// once). At most size rows are held, so that memory does not grow with
+// the file; past that, rows are estimated afresh. Workers take the lock
+// once per block.
+type seenRows struct {
+	mu   sync.RWMutex
+	rows map[string]seenRow
+	size int
+	hits int // rows found in rows
+}
+
 type seenRow struct {
 	rest   []byte // the output after the line number
 	failed bool
 }
 
-// rowMemoSize bounds the rows a batch remembers (by reader and by worker).
+type fresh struct {
+	cells string
+	row   seenRow
+}
+
+// rowMemoSize bounds the rows a batch remembers (by reader and workers).
 const rowMemoSize = 1 << 14
 
-func newBatchWorker(a *Analyst, asJSON bool, size int) *batchWorker {
-	return &batchWorker{a: a, scratch: new(cycle.Cycle), format: newRowFormat(asJSON), seen: map[string]seenRow{}, size: size}
+// worthRemembering says whether a memory of n rows (of at most size),
+// in which hits rows were found, takes a new one: while it holds fewer
+// than 1,024, or while it is found at least once per four rows it holds.
+// A list whose rows do not repeat (a sweep of a radius, say) then stops
+// paying for a memory it does not use, about a microsecond a row.
+func worthRemembering(n, hits, size int) bool {
+	return n < size && (n < 1024 || 4*hits >= n)
+}
+
+func newBatchWorker(a *Analyst, asJSON bool, seen *seenRows) *batchWorker {
+	return &batchWorker{a: a, scratch: new(cycle.Cycle), format: newRowFormat(asJSON), seen: seen}
 }
 
 // block estimates blk's rows and writes their output into blk.out.
 func (w *batchWorker) block(blk *batchBlock) {
 	defer func() { blk.done <- struct{}{} }()
+	w.hits = slices.Grow(w.hits[:0], len(blk.rows))[:len(blk.rows)]
+	hits := 0
+	w.seen.mu.RLock()
+	for i := range blk.rows {
+		w.hits[i] = w.seen.rows[blk.rows[i].cells] // cells "" (a cell fault) is never stored
+		if w.hits[i].rest != nil {
+			hits++
+		}
+	}
+	remembering := worthRemembering(len(w.seen.rows), w.seen.hits, w.seen.size)
+	w.seen.mu.RUnlock()
+	w.fresh = w.fresh[:0]
+	defer w.remember(hits)
 	for i := range blk.rows {
 		row := &blk.rows[i]
 		if blk.faults[i] != "" { // a cell fault found while reading
@@ -328,7 +369,7 @@ func (w *batchWorker) block(blk *batchBlock) {
 			}
 			continue
 		}
-		if s, ok := w.seen[row.cells]; ok && row.cells != "" {
+		if s := w.hits[i]; s.rest != nil {
 			blk.out = w.format.appendLine(blk.out, row.Line)
 			blk.out = append(blk.out, s.rest...)
 			if s.failed {
@@ -344,11 +385,31 @@ func (w *batchWorker) block(blk *batchBlock) {
 		if res.Error != "" {
 			blk.failed++
 		}
-		lead := w.format.appendLine(nil, row.Line)
-		if out := blk.out[start:]; row.cells != "" && len(w.seen) < w.size && bytes.HasPrefix(out, lead) {
-			w.seen[row.cells] = seenRow{rest: bytes.Clone(out[len(lead):]), failed: res.Error != ""}
+		if !remembering || row.cells == "" {
+			continue
+		}
+		w.lead = w.format.appendLine(w.lead[:0], row.Line)
+		if out := blk.out[start:]; bytes.HasPrefix(out, w.lead) {
+			w.fresh = append(w.fresh, fresh{row.cells, seenRow{rest: bytes.Clone(out[len(w.lead):]), failed: res.Error != ""}})
 		}
 	}
+}
+
+// remember counts the block's hits and puts the rows the worker
+// estimated into seen while it is worth it.
+func (w *batchWorker) remember(hits int) {
+	if hits == 0 && len(w.fresh) == 0 {
+		return
+	}
+	s := w.seen
+	s.mu.Lock()
+	s.hits += hits
+	for _, f := range w.fresh {
+		if worthRemembering(len(s.rows), s.hits, s.size) {
+			s.rows[f.cells] = f.row
+		}
+	}
+	s.mu.Unlock()
 }
 
 // rowFormat writes BatchResults as CSV records (encoding/csv's quoting)
@@ -538,12 +599,13 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 	queue := make(chan *batchBlock, 4*workers)
 	jobs := make(chan *batchBlock, 4*workers)
 	spare := make(chan *batchBlock, 4*workers+2) // written blocks, for the reader to fill again
+	seen := &seenRows{rows: map[string]seenRow{}, size: memoRows}
 	var wg sync.WaitGroup
 	for range workers {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			bw := newBatchWorker(a, opt.JSON, memoRows)
+			bw := newBatchWorker(a, opt.JSON, seen)
 			for blk := range jobs {
 				bw.block(blk)
 			}
