@@ -230,6 +230,13 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 			other = true
 			cp.Notes = append([]string{fmt.Sprintf("%s in the data is %s (%s with %s); this row is the hypothetical compound of %s with %s, a different substance",
 				real.Formula, real.Name, real.Cation, real.Anion, cation, an.Symbol)}, cp.Notes...)
+		} else if !ok {
+			// Not in the data, but the formula alone reads otherwise (MgO₂
+			// as magnesium peroxide, Mg²⁺ with O₂²⁻).
+			if read, err := a.build(est.Formula, "", ""); err == nil && (read.Cation.Ion.Symbol != cation || read.Anion.Ion.Symbol != an.Symbol) {
+				cp.Notes = append([]string{fmt.Sprintf("%s as written reads as %s with %s (the estimate and stability analyses take that reading); this row is the hypothetical compound of %s with %s, a different substance",
+					est.Formula, read.Cation.Ion.Symbol, read.Anion.Ion.Symbol, cation, an.Symbol)}, cp.Notes...)
+			}
 		}
 		if known, ok := a.knownThermo(est.Formula); ok && !other && known.Formation.Known() {
 			// The real compound enters with its measured values, ionic or not.
