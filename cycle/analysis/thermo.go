@@ -189,7 +189,7 @@ func (a *Analyst) knownThermo(formula string) (Thermo, bool) {
 		Formation:    measuredEnergy(st.Formation),
 		Entropy:      measured(st.Entropy),
 		Gibbs:        measuredEnergy(st.Gibbs),
-		HeatCapacity: heatCapacity(st.Formula+"("+st.State+")", 1)}
+		HeatCapacity: a.heatCapacity(st.Formula+"("+st.State+")", 1)}
 	if !t.Entropy.Known() && !t.Gibbs.Known() && !t.Molecular {
 		// A measured ΔfH° without S° or ΔfG° (BaO₂): S° from the
 		// volume-based line, said so in its basis.
@@ -215,7 +215,7 @@ func (a *Analyst) gasThermo(formula string) (Thermo, bool) {
 		Formation:    measuredEnergy(st.Formation),
 		Entropy:      measured(st.Entropy),
 		Gibbs:        measuredEnergy(st.Gibbs),
-		HeatCapacity: heatCapacity(st.Formula+"(g)", 1)}
+		HeatCapacity: a.heatCapacity(st.Formula+"(g)", 1)}
 	a.complete(&t)
 	return t, true
 }
