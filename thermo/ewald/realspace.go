@@ -186,6 +186,7 @@ func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
 	}
 	forChunks(n, func(c int) {
 		p := parts[c].reset(n)
+		p.room(0, n)
 		if minImage {
 			for i := c; i < n; i += chunks {
 				s.minImageRow(fixed, i, alpha, rc*rc, p)
@@ -237,7 +238,6 @@ const listedImages = 16
 func (p *realPart) reset(n int) *realPart {
 	p.nearest, p.pair, p.overlap = math.Inf(1), [2]int{-1, -1}, [2]int{-1, -1}
 	p.phi = make([]float64, n)
-	p.within, p.dist2, p.term = make([]int32, n), make([]float64, n), make([]float64, n)
 	return p
 }
 
