@@ -164,13 +164,7 @@ func (s *system) realSpace(alpha, rc float64, phi []float64) (terms int, nearest
 func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
 	n := len(s.q)
 	chunks := len(parts)
-	// With the cut-off below half of every distance between lattice
-	// planes, |Δfₖ + mₖ| ≤ rc·|bₖ| < ½ leaves one image per pair, the one
-	// of the rounded fractional difference (and none of a site itself).
-	minImage := true
-	for k := 0; k < 3; k++ {
-		minImage = minImage && rc*s.recip[k].Norm() < 0.5
-	}
+	minImage := s.oneImage(rc)
 	if !minImage && n < listedImages {
 		s.realSpaceSearched(alpha, rc, parts)
 		return
@@ -221,6 +215,19 @@ func (s *system) fixedPositions() []fixedFrac {
 		}
 	}
 	return out
+}
+
+// oneImage reports whether the cut-off rc is below half of every distance
+// between lattice planes: then |Δfₖ + mₖ| ≤ rc·|bₖ| < ½ leaves each pair
+// one image within rc, the one of the rounded fractional difference (and a
+// site none of itself).
+func (s *system) oneImage(rc float64) bool {
+	for k := 0; k < 3; k++ {
+		if !(rc*s.recip[k].Norm() < 0.5) {
+			return false
+		}
+	}
+	return true
 }
 
 // roundingShift is 1.5·2⁵²: for |x| < 2⁵¹, (x + roundingShift) −
