@@ -1,28 +1,32 @@
 package main
 
 // Cell parameters read from deposited structures: Crystallography Open
-// Database entries as converted into the NCrystal data library
-// (data/sources/cod-cells/*.ncmat). Each file names its COD entry and the
-// journal reference in its comment lines; its @CELL section gives the
-// cell and @ATOMPOSITIONS the atoms of the conventional cell. A deposited
-// cell replaces the cell typed from Wyckoff (1963) in kept/compounds.csv
-// when it gives every parameter the typed one gives and agrees with it
-// within cellTolerance; the typed value stays in the row's note.
+// Database entries, as converted into the NCrystal data library
+// (data/sources/cod-cells/*.ncmat) and as deposited CIF files (and one
+// NCMAT file) shipped in Debian packages (data/sources/cod-debian/). Each
+// file names its COD entry and the journal reference; its cell and atoms
+// give the parameters of the conventional cell. A deposited cell replaces
+// the cell typed from Wyckoff (1963) in kept/compounds.csv when it gives
+// every parameter the typed one gives and agrees with it within
+// cellTolerance; the typed value stays in the row's note.
 
 import (
 	"fmt"
 	"math"
 	"os"
 	"path/filepath"
+	"regexp"
 	"slices"
 	"strconv"
 	"strings"
 )
 
-const (
-	keyCODCells = "cod-ncrystal"
-	codCellsDir = "cod-cells"
-)
+// cellFolders are the folders of deposited structures under the sources
+// folder, each with the source key its cells cite.
+var cellFolders = []struct{ dir, key string }{
+	{"cod-cells", "cod-ncrystal"},
+	{"cod-debian", "cod-debian"},
+}
 
 // cellTolerance is how far a deposited cell may lie from the typed one and
 // still replace it: 1 % on lengths (room-temperature refinements of these
@@ -31,11 +35,17 @@ const (
 // of the two, to be looked at by hand; the typed value then stays.
 var cellTolerance = struct{ length, fraction float64 }{0.01, 0.01}
 
+// positionTolerance is how close two fractional coordinates must be to be
+// the same: CIF files print 1/3 as 0.33333.
+const positionTolerance = 1e-4
+
 // depositedCell is one structure file: its cell and atoms as printed.
 type depositedCell struct {
 	file     string // relative to the sources folder
-	cellLine int    // line of the @CELL keyword
+	source   string // source key of sources.csv
+	cellLine int    // line of the @CELL keyword or of _cell_length_a
 	entry    string // COD entry number
+	measured string // the temperature of the measurement as printed ("T = 473 K"), if stated
 	lengths  [3]float64
 	angles   [3]float64
 	atoms    []cellAtom
@@ -47,39 +57,62 @@ type cellAtom struct {
 	x       [3]float64
 }
 
-// readDepositedCells reads every structure file of cod-cells/, by the
-// composition key its file name gives ("MgO2H2_sg164_…" is Mg(OH)2).
+// readDepositedCells reads every structure file of the cell folders, by
+// composition key: an NCMAT file's from its file name ("MgO2H2_sg164_…" is
+// Mg(OH)2), a CIF's from its _chemical_formula_sum.
 func readDepositedCells(sourcesDir string) (map[string]depositedCell, error) {
-	names, err := filepath.Glob(filepath.Join(sourcesDir, codCellsDir, "*.ncmat"))
-	if err != nil {
-		return nil, err
-	}
 	out := map[string]depositedCell{}
-	for _, name := range names {
-		base := filepath.Base(name)
-		formula, _, _ := strings.Cut(base, "_")
-		formula, _, _ = strings.Cut(formula, "-")
-		comp, _, ok := composition(formula)
-		if !ok {
-			return nil, fmt.Errorf("%s: %q is not a formula", base, formula)
-		}
-		raw, err := os.ReadFile(name)
+	for _, folder := range cellFolders {
+		names, err := filepath.Glob(filepath.Join(sourcesDir, folder.dir, "*"))
 		if err != nil {
 			return nil, err
 		}
-		c, err := parseNCMATCell(string(raw))
-		if err != nil {
-			return nil, fmt.Errorf("%s: %w", base, err)
+		for _, name := range names {
+			base := filepath.Base(name)
+			var formula string
+			var c depositedCell
+			switch filepath.Ext(base) {
+			case ".ncmat":
+				raw, err := os.ReadFile(name)
+				if err != nil {
+					return nil, err
+				}
+				formula, _, _ = strings.Cut(base, "_")
+				formula, _, _ = strings.Cut(formula, "-")
+				c, err = parseNCMATCell(string(raw))
+				if err != nil {
+					return nil, fmt.Errorf("%s: %w", base, err)
+				}
+			case ".cif":
+				raw, err := os.ReadFile(name)
+				if err != nil {
+					return nil, err
+				}
+				c, formula, err = parseCIFCell(string(raw))
+				if err != nil {
+					return nil, fmt.Errorf("%s: %w", base, err)
+				}
+			default:
+				continue
+			}
+			comp, _, ok := composition(formula)
+			if !ok {
+				return nil, fmt.Errorf("%s: %q is not a formula", base, formula)
+			}
+			c.file, c.source = folder.dir+"/"+base, folder.key
+			key := compKey(comp, 0)
+			if prev, dup := out[key]; dup {
+				return nil, fmt.Errorf("%s and %s give the same composition", prev.file, c.file)
+			}
+			out[key] = c
 		}
-		c.file = codCellsDir + "/" + base
-		key := compKey(comp, 0)
-		if prev, dup := out[key]; dup {
-			return nil, fmt.Errorf("%s and %s give the same composition", prev.file, c.file)
-		}
-		out[key] = c
 	}
 	return out, nil
 }
+
+// measuredAt finds the temperature of a measurement in a comment line
+// ("… at T = 473 K", "T = 25 C, P = 0.0 kbar").
+var measuredAt = regexp.MustCompile(`T = [0-9.]+ ?[KC]\b`)
 
 // parseNCMATCell reads the COD entry, @CELL and @ATOMPOSITIONS of an
 // NCMAT file. "!!" in a lengths line repeats the length before it.
@@ -98,6 +131,9 @@ func parseNCMATCell(text string) (depositedCell, error) {
 			}
 			if _, after, ok := strings.Cut(line, "crystallography.net/cod/"); ok && c.entry == "" {
 				c.entry = strings.TrimSuffix(strings.Fields(after)[0], ".html")
+			}
+			if m := measuredAt.FindString(line); m != "" && c.measured == "" {
+				c.measured = m
 			}
 			continue
 		}
@@ -198,6 +234,7 @@ func (c depositedCell) params(structure string, names []string, cation, anion st
 	shapeOK := map[string]bool{
 		"rock-salt": cubic, "fluorite": cubic, "antifluorite": cubic, "caesium-chloride": cubic, "zinc-blende": cubic,
 		"rutile": tetragonal && !cubic, "wurtzite": hexagonal, "cadmium-iodide": hexagonal, "corundum": hexagonal,
+		"cadmium-chloride": hexagonal, "nickel-arsenide": hexagonal,
 	}[structure]
 	if !shapeOK {
 		return nil, false
@@ -247,7 +284,7 @@ func (c depositedCell) find(el string, fits func([3]float64) bool, k int) (float
 	return 0, false
 }
 
-func near(a, b float64) bool { return math.Abs(a-b) < 1e-6 }
+func near(a, b float64) bool { return math.Abs(a-b) < positionTolerance }
 
 // elementOf is the element of a monatomic ion symbol ("Mg2+" → "Mg"); ""
 // for a polyatomic ion.
@@ -297,31 +334,31 @@ func cellGap(typed, deposited map[string]float64) (length, fraction float64) {
 // for a kept compound, and the note that records the typed value beside
 // it. ok is false when no structure file fits, or its cell lies outside
 // cellTolerance of the typed one (then a warning names the gap).
-func (g *generator) depositedParams(k map[string]string) (params, note string, ok bool) {
+func (g *generator) depositedParams(k map[string]string) (params, source, note string, ok bool) {
 	if k["params"] == "" || k["params_source"] != "wyckoff1963" {
-		return "", "", false
+		return "", "", "", false
 	}
 	comp, _, okc := composition(k["formula"])
 	if !okc {
-		return "", "", false
+		return "", "", "", false
 	}
 	c, found := g.cells[compKey(comp, 0)]
 	if !found {
-		return "", "", false
+		return "", "", "", false
 	}
 	names, typed, err := parseParams(k["params"])
 	if err != nil {
 		g.warnf("kept compound %s: %v", k["formula"], err)
-		return "", "", false
+		return "", "", "", false
 	}
 	dep, fits := c.params(k["structure"], names, elementOf(k["cation"]), elementOf(k["anion"]))
 	if !fits {
 		g.warnf("kept compound %s: %s does not give every parameter of %s (%s)", k["formula"], c.file, k["structure"], k["params"])
-		return "", "", false
+		return "", "", "", false
 	}
 	if l, f := cellGap(typed, dep); l > cellTolerance.length || f > cellTolerance.fraction {
 		g.warnf("kept compound %s: %s (COD %s) lies %.2f %% / %.4f from the typed cell %s: typed value kept", k["formula"], c.file, c.entry, 100*l, f, k["params"])
-		return "", "", false
+		return "", "", "", false
 	}
 	parts := make([]string, len(names))
 	for i, n := range names {
@@ -331,6 +368,10 @@ func (g *generator) depositedParams(k map[string]string) (params, note string, o
 		}
 		parts[i] = n + "=" + v
 	}
-	note = fmt.Sprintf("cell: COD %s (%s:%d); Wyckoff 1963 typed %s", c.entry, c.file, c.cellLine, k["params"])
-	return strings.Join(parts, ";"), note, true
+	entry := c.entry
+	if c.measured != "" {
+		entry += " at " + c.measured
+	}
+	note = fmt.Sprintf("cell: COD %s (%s:%d); Wyckoff 1963 typed %s", entry, c.file, c.cellLine, k["params"])
+	return strings.Join(parts, ";"), c.source, note, true
 }

@@ -66,7 +66,7 @@ func TestDepositedCells(t *testing.T) {
 	if len(matched) != len(g.cells) {
 		t.Errorf("%d vendored cells, %d matched a kept compound", len(g.cells), len(matched))
 	}
-	if len(g.cells) < 27 {
+	if len(g.cells) < 50 {
 		t.Errorf("only %d vendored cells read", len(g.cells))
 	}
 }

@@ -164,15 +164,24 @@ func (g *generator) compounds() (*table, error) {
 			g.solids = append(g.solids, solid{formula: row["formula"], nbsFormula: f, row: ph})
 		}
 	}
-	// Kept compounds the NBS tables do not list keep their hand-kept
-	// formation enthalpy (memory).
+	// Kept compounds the NBS tables do not list take NASA Glenn's
+	// formation enthalpy of the crystal where it has one, else keep their
+	// hand-kept one (memory).
 	for i, k := range keptList {
 		if usedKept[i] {
 			continue
 		}
 		row := map[string]string{"formula": k["formula"]}
-		g.mergeKept(row, k, true)
-		g.warnf("kept compound %s: not in the NBS tables; its hand-kept formation enthalpy stays (memory)", k["formula"])
+		comp, _, _ := composition(k["formula"])
+		if s, ok := g.nasaPhase(comp, "cr"); ok {
+			g.mergeKept(row, k, false)
+			a := nasaAlt(s)
+			row["formation_kj_per_mol"], row["formation_source"], row["locator"], row["state"] = num(a.v), a.source, a.locator, "cr"
+			row["note"] = strings.TrimPrefix(row["note"]+"; formation: "+a.note+"; not in the NBS tables", "; ")
+		} else {
+			g.mergeKept(row, k, true)
+			g.warnf("kept compound %s: not in the NBS tables nor NASA Glenn's; its hand-kept formation enthalpy stays (memory)", k["formula"])
+		}
 		rows = append(rows, made{row: row, kept: i})
 	}
 	// Kept compounds first, in their order, then the others in NBS order.
@@ -257,9 +266,9 @@ func (g *generator) addCRCDensity(row map[string]string, formula, name string) b
 // addDepositedCell writes the cell a deposited structure gives into the
 // row, keeping the typed one in the note, and says whether it found one.
 func (g *generator) addDepositedCell(row, k map[string]string) bool {
-	p, note, ok := g.depositedParams(k)
+	p, source, note, ok := g.depositedParams(k)
 	if ok {
-		row["params"], row["params_source"] = p, keyCODCells
+		row["params"], row["params_source"] = p, source
 		row["note"] = strings.TrimPrefix(row["note"]+"; "+note, "; ")
 	}
 	return ok

@@ -1,0 +1,137 @@
+package main
+
+import (
+	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// The CIF reader against what each vendored CIF prints apart from the
+// cell and atoms it reads: the cell volume (_cell_volume, printed by the
+// depositor) from the lengths and angles, and the number of atoms of the
+// conventional cell from the prototype's formula units Z and the formula
+// (rock salt and fluorite types 4 per cubic cell, zinc blende 4, wurtzite
+// and rutile 2, corundum 6 and CdCl2 3 per hexagonal cell; the prototypes'
+// standard descriptions, from memory). A symmetry operation read wrongly
+// gives too many or too few atoms.
+func TestCIFCellsAgainstTheirPrintedVolume(t *testing.T) {
+	names, err := filepath.Glob("../sources/cod-debian/*.cif")
+	if err != nil || len(names) < 20 {
+		t.Fatalf("%d CIF files, err %v", len(names), err)
+	}
+	atomsPerCell := map[string]int{ // formula units × atoms per formula unit
+		"AlN.cif": 2 * 2, "CdCl2.cif": 3 * 3, "CdO-Monteponite.cif": 4 * 2, "CdS-Greenockite.cif": 2 * 2,
+		"CdTe.cif": 4 * 2, "CoO.cif": 4 * 2, "Cr2O3-Eskolaite.cif": 6 * 5, "FeO-Wustite.cif": 4 * 2,
+		"K2O.cif": 4 * 3, "KCl-Sylvite.cif": 4 * 2, "KH.cif": 4 * 2, "MnO-Manganosite.cif": 4 * 2,
+		"MnO2-Pyrolusite.cif": 2 * 3, "Na2O.cif": 4 * 3, "NaH.cif": 4 * 2, "NiO-Bunsenite.cif": 4 * 2,
+		"PbSe-Clausthalite.cif": 4 * 2, "PbTe-Altaite.cif": 4 * 2, "Rb2O.cif": 4 * 3, "SnO2-Cassiterite.cif": 2 * 3,
+		"SrO.cif": 4 * 2, "V2O3-Karelianite.cif": 6 * 5,
+	}
+	for _, name := range names {
+		base := filepath.Base(name)
+		raw, err := os.ReadFile(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		c, formula, err := parseCIFCell(string(raw))
+		if err != nil {
+			t.Errorf("%s: %v", base, err)
+			continue
+		}
+		d, _ := parseCIF(string(raw))
+		printed, err := strconv.ParseFloat(strings.Split(d.items["_cell_volume"].value, "(")[0], 64)
+		if err != nil {
+			t.Errorf("%s: no printed volume: %v", base, err)
+			continue
+		}
+		if v := cellVolume(c); math.Abs(v-printed)/printed > 2e-4 {
+			t.Errorf("%s: volume %.3f Å³ from the cell read, the file prints %.3f", base, v, printed)
+		}
+		want, ok := atomsPerCell[base]
+		if !ok {
+			t.Errorf("%s (%s): no expected atom count: add it", base, formula)
+			continue
+		}
+		if len(c.atoms) != want {
+			t.Errorf("%s: %d atoms in the conventional cell, want %d", base, len(c.atoms), want)
+		}
+	}
+}
+
+// cellVolume is the volume of a triclinic cell from its lengths and angles.
+func cellVolume(c depositedCell) float64 {
+	var cos [3]float64
+	for i, a := range c.angles {
+		cos[i] = math.Cos(a * math.Pi / 180)
+	}
+	return c.lengths[0] * c.lengths[1] * c.lengths[2] *
+		math.Sqrt(1-cos[0]*cos[0]-cos[1]*cos[1]-cos[2]*cos[2]+2*cos[0]*cos[1]*cos[2])
+}
+
+// The parameters read from CIFs, against the atom sites each file prints
+// (the site lines quoted): rutile's O at (x, x, 0), wurtzite's u as the
+// anion's z over the cation's on the same column, corundum's parameters
+// from the sites of the hexagonal setting.
+func TestCIFParameters(t *testing.T) {
+	g, err := newGenerator("../sources", ".", "../tables")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		formula, structure, cation, anion string
+		want                              map[string]float64
+		site                              string
+	}{
+		{"MnO2", "rutile", "Mn", "O", map[string]float64{"a": 4.396, "c": 2.871, "x": 0.302}, "O 0.30200 0.30200 0.00000"},
+		{"AlN", "wurtzite", "Al", "N", map[string]float64{"a": 3.111, "c": 4.978, "u": 0.385}, "N 0.33333 0.66667 0.38500"},
+		{"Cr2O3", "corundum", "Cr", "O", map[string]float64{"a": 4.9607, "c": 13.599, "z_cation": 0.3475, "x_anion": 0.306},
+			"Cr 0.00000 0.00000 0.34750; O 0.30600 0.00000 0.25000"},
+		{"CdCl2", "cadmium-chloride", "Cd", "Cl", map[string]float64{"a": 3.85, "c": 17.46}, "Cd 0 0 0; Cl 0 0 0.25"},
+	} {
+		comp, _, _ := composition(c.formula)
+		cell, ok := g.cells[compKey(comp, 0)]
+		if !ok {
+			t.Errorf("%s: no vendored cell", c.formula)
+			continue
+		}
+		var names []string
+		for k := range c.want {
+			names = append(names, k)
+		}
+		got, ok := cell.params(c.structure, names, c.cation, c.anion)
+		if !ok {
+			t.Errorf("%s: parameters not read from %s", c.formula, cell.file)
+			continue
+		}
+		for k, w := range c.want {
+			if math.Abs(got[k]-w) > 1e-9 {
+				t.Errorf("%s: %s = %g, %s prints %g (%s)", c.formula, k, got[k], cell.file, w, c.site)
+			}
+		}
+	}
+}
+
+func TestParseSymOp(t *testing.T) {
+	op, err := parseSymOp("-x+y, 1/2+y ,-z+1/3")
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := op.apply([3]float64{0.1, 0.2, 0.3})
+	want := [3]float64{0.1, 0.7, 1.0/3 - 0.3}
+	for k := range 3 {
+		if math.Abs(got[k]-want[k]) > 1e-12 {
+			t.Errorf("coordinate %d: %g, want %g", k, got[k], want[k])
+		}
+	}
+	for _, bad := range []string{"x,y", "x,,z", "x,y,q"} {
+		if _, err := parseSymOp(bad); err == nil {
+			t.Errorf("%q read without error", bad)
+		}
+	}
+	if _, _, err := parseCIFCell("data_x\n_cell_length_a 4\n"); err == nil {
+		t.Error("a CIF without cell angles or atoms read without error")
+	}
+}
