@@ -18,6 +18,53 @@ import (
 // energy (thermo/lattice.Extended).
 const ModelExtended = "extended"
 
+// DispersionSet chooses the extended model's dispersion coefficients and,
+// with them, how its tabulated repulsion is used.
+type DispersionSet int
+
+const (
+	// DispersionInCrystal (the default): C by Slater–Kirkwood from the
+	// polarizabilities of ions in crystals (Tessman, Kahn and Shockley 1953)
+	// where both ions have one, and D from Mayer's ratio D/C of the same
+	// pair where Mayer tabulates the salt. Fumi and Tosi fitted their
+	// repulsion together with Mayer's dispersion, to the equilibrium
+	// distance; with other dispersion coefficients that condition is
+	// applied again: their repulsion keeps its shape (ρ, σ, Pauling's
+	// factors) and its scale b is refitted so that the free energy is least
+	// at the reference distance. Ions without a polarizability in crystals
+	// fall back to DispersionMayer's choices.
+	DispersionInCrystal DispersionSet = iota
+	// DispersionMayer: Mayer's C and D (1933) where he tabulates the salt,
+	// with Fumi and Tosi's repulsion as published (1964) and the energy
+	// minimised in d; Slater–Kirkwood from free-ion polarizabilities
+	// otherwise. The classical evaluation.
+	DispersionMayer
+)
+
+// String returns "crystal" or "mayer".
+func (d DispersionSet) String() string {
+	if d == DispersionMayer {
+		return "mayer"
+	}
+	return "crystal"
+}
+
+// DispersionSetNames lists the names ParseDispersionSet reads.
+func DispersionSetNames() []string {
+	return []string{DispersionInCrystal.String(), DispersionMayer.String()}
+}
+
+// ParseDispersionSet reads "crystal" or "mayer".
+func ParseDispersionSet(s string) (DispersionSet, error) {
+	switch strings.ToLower(strings.TrimSpace(s)) {
+	case "crystal", "":
+		return DispersionInCrystal, nil
+	case "mayer":
+		return DispersionMayer, nil
+	}
+	return 0, fmt.Errorf("unknown dispersion set %q: use crystal (polarizabilities of ions in crystals) or mayer (Mayer 1933 with Fumi–Tosi 1964)", s)
+}
+
 // FumiTosiB is the repulsion constant b = 0.338e-12 erg of Fumi and Tosi's
 // Huggins–Mayer form (J. Phys. Chem. Solids 25, 31 (1964); from memory,
 // agreeing with the public digitised copy named in data's allow-list).
@@ -51,6 +98,11 @@ type ExtendedBreakdown struct {
 	// 298.15 K into the cycle's lattice convention: 0 for ΔH_L, Jenkins'
 	// ΔH_L − U (c.LatticeCorrection) when the cycle compares energies U.
 	ToCycleConvention float64
+	// Dispersion is the dispersion set asked for, and RepulsionFitted
+	// reports a repulsion fitted at the reference distance: Minimum is then
+	// where the fit puts the least (free) energy, the reference itself.
+	Dispersion      DispersionSet
+	RepulsionFitted bool
 	// RepulsionFrom, DispersionFrom, ZeroPointFrom and HeatContentFrom say
 	// how each term was obtained.
 	RepulsionFrom, DispersionFrom, ZeroPointFrom, HeatContentFrom string
@@ -217,6 +269,8 @@ func extendedKey(st Structure, c *Cycle, in *ModelInputs, rho float64) string {
 	b = append(b, '|')
 	b = append(b, in.D0From...)
 	b = strconv.AppendInt(b, int64(c.Conventions.Lattice), 10)
+	b = append(b, '|')
+	b = strconv.AppendInt(b, int64(c.Settings.Dispersion), 10)
 	return string(b)
 }
 
@@ -279,7 +333,8 @@ func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data
 		sums.InvPow6[k] /= math.Pow(scale, 6)
 		sums.InvPow8[k] /= math.Pow(scale, 8)
 	}
-	b := &ExtendedBreakdown{Reference: in.D0, ReferenceFrom: in.D0From, ReferenceMeasured: strings.HasPrefix(in.D0From, "nearest cation–anion distance")}
+	b := &ExtendedBreakdown{Reference: in.D0, ReferenceFrom: in.D0From, ReferenceMeasured: strings.HasPrefix(in.D0From, "nearest cation–anion distance"),
+		Dispersion: c.Settings.Dispersion}
 	input := lattice.ExtendedInput{
 		Madelung: in.Madelung, ZCation: c.Cation.Ion.Charge, ZAnion: c.Anion.Ion.Charge,
 		Ions: c.Cation.Count + c.Anion.Count, D0: in.D0,
@@ -295,14 +350,20 @@ func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data
 	salt, hasSalt := params.Salt(c.Formula)
 	ionC, okC := params.Ion(c.Cation.Ion.Symbol)
 	ionA, okA := params.Ion(c.Anion.Ion.Symbol)
-	// Repulsion: Fumi–Tosi where the salt and both basic radii are tabulated.
-	if hasSalt && salt.Rho.Known() && okC && okA && ionC.BasicRadius.Known() && ionA.BasicRadius.Known() && ionC.OuterElectrons > 0 && ionA.OuterElectrons > 0 {
+	inCrystal := c.Settings.Dispersion == DispersionInCrystal && okC && okA &&
+		ionC.CrystalPolarizability.Known() && ionA.CrystalPolarizability.Known() && ionC.Electrons > 0 && ionA.Electrons > 0
+	mayer := hasSalt && salt.C[0].Known()
+	// Repulsion: Fumi–Tosi where the salt and both basic radii are
+	// tabulated, as published with Mayer's dispersion, its scale refitted
+	// with any other.
+	fumiTosi := hasSalt && salt.Rho.Known() && okC && okA && ionC.BasicRadius.Known() && ionA.BasicRadius.Known() && ionC.OuterElectrons > 0 && ionA.OuterElectrons > 0
+	if fumiTosi {
 		rho := salt.Rho.V
 		bKJ := thermo.ErgCentimetrePowerToKJPerMol(FumiTosiB, 1, 0)
 		zc, za := c.Cation.Ion.Charge, c.Anion.Ion.Charge
 		nc, na := ionC.OuterElectrons, ionA.OuterElectrons
 		sc, sa := ionC.BasicRadius.V, ionA.BasicRadius.V
-		input.Repulsion = lattice.Repulsion{Rho: rho}
+		input.Repulsion = lattice.Repulsion{Rho: rho, Fitted: inCrystal}
 		input.Repulsion.Prefactor[crystal.CationCation] = lattice.PaulingFactor(zc, nc, zc, nc) * bKJ * math.Exp(2*sc/rho)
 		input.Repulsion.Prefactor[crystal.CationAnion] = lattice.PaulingFactor(zc, nc, za, na) * bKJ * math.Exp((sc+sa)/rho)
 		input.Repulsion.Prefactor[crystal.AnionAnion] = lattice.PaulingFactor(za, na, za, na) * bKJ * math.Exp(2*sa/rho)
@@ -320,18 +381,59 @@ func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data
 		b.RepulsionFrom = fmt.Sprintf("Born–Mayer B·exp(−r/ρ) on the cation–anion pairs, ρ = %g Å, B fitted (no Fumi–Tosi parameters for %s) so that the ",
 			rho, c.Formula)
 	}
-	// Dispersion: Mayer's coefficients where tabulated, else Slater–Kirkwood.
-	if hasSalt && salt.C[0].Known() {
+	// Dispersion: Slater–Kirkwood from the polarizabilities in crystals,
+	// else Mayer's coefficients where tabulated, else Slater–Kirkwood from
+	// the free ions'.
+	slaterKirkwood := func(ac, nc, aa, na float64) error {
+		var err error
+		if input.C6[crystal.CationCation], err = lattice.SlaterKirkwood(ac, nc, ac, nc); err == nil {
+			if input.C6[crystal.CationAnion], err = lattice.SlaterKirkwood(ac, nc, aa, na); err == nil {
+				input.C6[crystal.AnionAnion], err = lattice.SlaterKirkwood(aa, na, aa, na)
+			}
+		}
+		return err
+	}
+	pairNames := [3]string{"+ +", "+ −", "− −"}
+	switch {
+	case inCrystal:
+		ac, nc := ionC.CrystalPolarizability.V, ionC.Electrons
+		aa, na := ionA.CrystalPolarizability.V, ionA.Electrons
+		if err := slaterKirkwood(ac, nc, aa, na); err != nil {
+			return fail("cannot estimate the dispersion coefficients", err)
+		}
+		b.DispersionFrom = fmt.Sprintf("C by Slater–Kirkwood from the polarizabilities of the ions in crystals (α = %g, %g Å³, Tessman–Kahn–Shockley; N = %g, %g)",
+			ac, aa, nc, na)
+		cite("α("+c.Cation.Ion.Symbol+", in crystals)", ionC.CrystalPolarizability)
+		cite("α("+c.Anion.Ion.Symbol+", in crystals)", ionA.CrystalPolarizability)
+		if mayer {
+			// D_ij = C_ij · (D_ij/C_ij)_Mayer: the ratio C₈/C₆ of a pair
+			// rests on the ions' ⟨r⁴⟩/⟨r²⟩, not on their polarizabilities
+			// (the relation C₈ = 3·C₆·√(Q_i·Q_j) of S. Grimme et al., J.
+			// Chem. Phys. 132, 154104 (2010); from memory), so Mayer's
+			// ratios carry over to the new C.
+			for k := range 3 {
+				input.C8[k] = input.C6[k] * thermo.ErgCentimetrePowerToKJPerMol(salt.D[k].V, 1e-76, 8) / thermo.ErgCentimetrePowerToKJPerMol(salt.C[k].V, 1e-60, 6)
+				cite("C("+pairNames[k]+"), Mayer, for D/C", salt.C[k])
+				cite("D("+pairNames[k]+"), Mayer, for D/C", salt.D[k])
+			}
+			b.DispersionFrom += "; D = C·(D/C) with Mayer's ratio for each pair of " + c.Formula + " (C₈/C₆ rests on ⟨r⁴⟩/⟨r²⟩, not on α: our assumption, after Grimme et al. 2010)"
+		} else {
+			b.DispersionFrom += fmt.Sprintf("; D/r⁸ not estimated (no tabulated D for %s)", c.Formula)
+		}
+		if fumiTosi {
+			b.RepulsionFrom += "; Fumi and Tosi fitted b with Mayer's dispersion, so with these coefficients b is refitted: their shape kept, one scale chosen so that the "
+		}
+	case mayer:
 		for k := range 3 {
 			input.C6[k] = thermo.ErgCentimetrePowerToKJPerMol(salt.C[k].V, 1e-60, 6)
 			input.C8[k] = thermo.ErgCentimetrePowerToKJPerMol(salt.D[k].V, 1e-76, 8)
 		}
 		b.DispersionFrom = "Mayer's C and D for " + c.Formula + " (1e-60 erg·cm⁶, 1e-76 erg·cm⁸)"
-		for k, kind := range []string{"+ +", "+ −", "− −"} {
+		for k, kind := range pairNames {
 			cite("C("+kind+")", salt.C[k])
 			cite("D("+kind+")", salt.D[k])
 		}
-	} else {
+	default:
 		for _, p := range []struct {
 			ok     bool
 			symbol string
@@ -343,13 +445,7 @@ func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data
 		}
 		ac, nc := ionC.Polarizability.V, ionC.Electrons
 		aa, na := ionA.Polarizability.V, ionA.Electrons
-		var err error
-		if input.C6[crystal.CationCation], err = lattice.SlaterKirkwood(ac, nc, ac, nc); err == nil {
-			if input.C6[crystal.CationAnion], err = lattice.SlaterKirkwood(ac, nc, aa, na); err == nil {
-				input.C6[crystal.AnionAnion], err = lattice.SlaterKirkwood(aa, na, aa, na)
-			}
-		}
-		if err != nil {
+		if err := slaterKirkwood(ac, nc, aa, na); err != nil {
 			return fail("cannot estimate the dispersion coefficients", err)
 		}
 		b.DispersionFrom = fmt.Sprintf("C by Slater–Kirkwood from the polarizabilities (α = %g, %g Å³; N = %g, %g); D/r⁸ not estimated (no tabulated D for %s)",
@@ -362,8 +458,12 @@ func (e *evaluator) extendedUncached(in *ModelInputs, st Structure, params *data
 		return fail("cannot be evaluated", err)
 	}
 	b.Minimum, b.AtReference = res.Minimum, res.AtD0
+	b.RepulsionFitted = input.Repulsion.Fitted
 	if input.Repulsion.Fitted {
 		b.RepulsionFrom += fmt.Sprintf("%s; reference distance %.4f Å, B = %.4g kJ/mol", res.RepulsionFit, in.D0, res.FittedPrefactor)
+		if fumiTosi {
+			b.RepulsionFrom += fmt.Sprintf(" on the cation–anion pairs, %.4f × Fumi–Tosi's", res.FittedPrefactor/input.Repulsion.Prefactor[crystal.CationAnion])
+		}
 	}
 	b.ZeroPointFrom, b.HeatContentFrom = res.ZeroPointFrom, res.HeatContentFrom
 	if c.Conventions.Lattice == LatticeEnergy {

@@ -166,6 +166,9 @@ type fileModels struct {
 	CIF          string             `toml:"cif,omitempty"`
 	Accuracy     float64            `toml:"accuracy,omitzero"`
 	Units        string             `toml:"units"`
+	// Dispersion is the extended model's dispersion set, left out for the
+	// default.
+	Dispersion string `toml:"dispersion,omitempty"`
 }
 
 type fileStepDoc struct {
@@ -201,6 +204,9 @@ func Marshal(c *Cycle) ([]byte, error) {
 		CationCN: st.CationCN, AnionCN: st.AnionCN, D0: st.Distance.String(), Accuracy: st.Accuracy, Units: st.Units.Key()}
 	if st.Distance == DistanceUser {
 		m.D0 = strconv.FormatFloat(st.D0, 'g', -1, 64)
+	}
+	if st.Dispersion != DispersionInCrystal {
+		m.Dispersion = st.Dispersion.String()
 	}
 	if st.Structure.Cell != nil || st.Structure.CIF != "" {
 		m.CIF = st.Structure.CIF
@@ -428,6 +434,9 @@ func (m fileModels) settings(text, path string) (Settings, *FileError) {
 		if s.Radius, err = ParseRadiusKind(m.Radius); err != nil {
 			return bad("radius", err.Error())
 		}
+	}
+	if s.Dispersion, err = ParseDispersionSet(m.Dispersion); err != nil {
+		return bad("dispersion", err.Error())
 	}
 	s.CationCN, s.AnionCN = m.CationCN, m.AnionCN
 	if m.D0 != "" {

@@ -247,6 +247,9 @@ type Settings struct {
 	Accuracy float64
 	// Units is the unit values are printed in (and --set values read in).
 	Units thermo.Unit
+	// Dispersion chooses the extended model's dispersion coefficients
+	// (DispersionInCrystal by default).
+	Dispersion DispersionSet
 
 	// noStructure keeps Build from filling in the compound's own structure
 	// (a cycle file that chose none).

@@ -22,7 +22,7 @@ var sourceColumns = []string{"source", "formation_source", "params_source", "den
 
 // censusModelTables are the extended model's coefficient tables
 // (modelparams.go), counted after the tables of TableFiles.
-var censusModelTables = []string{"model_sources.csv", "model_salts.csv", "model_ions.csv"}
+var censusModelTables = []string{"model_sources.csv", "model_salts.csv", "model_ions.csv", "model_crystal_polarizabilities.csv"}
 
 // Census counts the rows of every built-in table, in reading order, then
 // the extended model's coefficient tables. A row citing several sources

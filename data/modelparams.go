@@ -9,7 +9,8 @@ import (
 // The extended ionic model's coefficient tables: model_sources.csv,
 // model_salts.csv (per salt: repulsion range ρ, dispersion C and D) and
 // model_ions.csv (per ion: basic radius σ, Pauling's outer-electron count,
-// polarizability). They are read apart from the main tables, values as
+// free-ion polarizability) and model_crystal_polarizabilities.csv (per ion:
+// the polarizability in crystals of Tessman, Kahn and Shockley). They are read apart from the main tables, values as
 // published with their sources; the physics lives in thermo/lattice.
 
 // Pair kinds of the per-salt dispersion coefficients, in table order.
@@ -41,6 +42,9 @@ type IonModelParams struct {
 	// effective electron number N (0: not given).
 	Polarizability Value
 	Electrons      float64
+	// CrystalPolarizability is α of the ion in crystals in Å³ (Unit "Å3"),
+	// from model_crystal_polarizabilities.csv; unknown when absent.
+	CrystalPolarizability Value
 }
 
 // ModelParams holds the extended model's tables.
@@ -107,6 +111,7 @@ var modelTableColumns = map[string][]string{
 		"dispersion_source", "memory", "note"},
 	"model_ions.csv": {"ion", "basic_radius_angstrom", "radius_source", "outer_electrons", "polarizability_a3",
 		"polarizability_source", "sk_electrons", "memory", "note"},
+	"model_crystal_polarizabilities.csv": {"ion", "polarizability_a3", "polarizability_source", "locator", "memory", "note"},
 }
 
 func readModelTable(name string) ([]record, error) {
@@ -195,6 +200,26 @@ func loadModelParams() (*ModelParams, error) {
 		if _, dup := p.ions[in.Ion]; dup || in.Ion == "" {
 			return nil, r.errorf("ion", "%q is empty or repeated", in.Ion)
 		}
+		p.ions[in.Ion] = in
+	}
+	if recs, err = readModelTable("model_crystal_polarizabilities.csv"); err != nil {
+		return nil, err
+	}
+	for _, r := range recs {
+		in, ok := p.ions[r.str("ion")]
+		if !ok {
+			return nil, r.errorf("ion", "%q has no row in model_ions.csv (its Slater–Kirkwood electron number)", r.str("ion"))
+		}
+		if in.CrystalPolarizability.Known() {
+			return nil, r.errorf("ion", "%q is repeated", in.Ion)
+		}
+		if in.CrystalPolarizability, err = value(r, "polarizability_a3", "polarizability_source", "Å3"); err != nil {
+			return nil, err
+		}
+		if !in.CrystalPolarizability.Known() {
+			return nil, r.errorf("polarizability_a3", "a row needs its polarizability")
+		}
+		in.CrystalPolarizability.Locator = r.str("locator")
 		p.ions[in.Ion] = in
 	}
 	return p, nil

@@ -57,7 +57,7 @@ func TestModelParamsLoad(t *testing.T) {
 		if _, err := db.Ion(in.Ion); err != nil {
 			t.Errorf("ion %s is not an ion of the data: %v", in.Ion, err)
 		}
-		for _, v := range []Value{in.BasicRadius, in.Polarizability} {
+		for _, v := range []Value{in.BasicRadius, in.Polarizability, in.CrystalPolarizability} {
 			if v.Known() {
 				used[v.Source] = true
 				if v.Memory && !allowed("ion", in.Ion) {
@@ -96,6 +96,35 @@ func TestModelParamsNaCl(t *testing.T) {
 	}{{"ρ", s.Rho.V, 0.317}, {"σ(Na+)", na.BasicRadius.V, 1.170}, {"C+-", s.C[PairCationAnion].V, 11.2}, {"D--", s.D[PairAnionAnion].V, 233}} {
 		if c.got != c.want {
 			t.Errorf("%s = %g, want %g", c.name, c.got, c.want)
+		}
+	}
+}
+
+// TestCrystalPolarizabilities holds model_crystal_polarizabilities.csv to
+// the list in the abstract of J. R. Tessman, A. H. Kahn and W. Shockley,
+// Phys. Rev. 92, 890 (1953): "The best values for the sodium D line in A3
+// are Li+ 0.03, Na+ 0.41, K+ 1.33, Rb+ 1.98, Cs+ 3.34, F- 0.64, Cl- 2.96,
+// Br- 4.16, I- 6.43, Ca++ 1.1, Sr++ 1.6, Ba++ 2.5, […] Ag+ 2.4, Cu+ 1.6"
+// (the abstract as published; the ions of the list without a Slater–Kirkwood
+// row in model_ions.csv, and those it gives as a range, are not kept).
+// Every other ion of model_ions.csv has none.
+func TestCrystalPolarizabilities(t *testing.T) {
+	p, err := ExtendedModelParams()
+	if err != nil {
+		t.Fatal(err)
+	}
+	abstract := map[string]float64{"Li+": 0.03, "Na+": 0.41, "K+": 1.33, "Rb+": 1.98, "Cs+": 3.34, "F-": 0.64, "Cl-": 2.96,
+		"Br-": 4.16, "I-": 6.43, "Ca2+": 1.1, "Sr2+": 1.6, "Ba2+": 2.5, "Ag+": 2.4, "Cu+": 1.6}
+	for _, in := range p.IonParams() {
+		want, listed := abstract[in.Ion]
+		v := in.CrystalPolarizability
+		switch {
+		case listed && !v.Known():
+			t.Errorf("%s: no polarizability in crystals, the abstract gives %g Å³", in.Ion, want)
+		case !listed && v.Known():
+			t.Errorf("%s: polarizability in crystals %g Å³, the abstract gives none", in.Ion, v.V)
+		case listed && (v.V != want || v.Source != "tks1953" || v.Memory || v.Unit != "Å3"):
+			t.Errorf("%s: %+v, want %g Å³ from tks1953, not from memory", in.Ion, v, want)
 		}
 	}
 }

@@ -2,245 +2,226 @@ package analysis
 
 import (
 	"bufio"
+	"bytes"
 	"encoding/csv"
 	"encoding/json"
 	"errors"
-	"fmt"
 	"io"
 	"math"
 	"path/filepath"
 	"runtime"
+	"slices"
 	"strconv"
 	"strings"
 	"sync"
-	"unicode"
-	"unicode/utf8"
 
 	"enthalpath/cycle"
-	"enthalpath/thermo"
 )
-
-// Batch input columns (a header row names them; order is free; only
-// formula is required). A column "set:KEY" gives step KEY a value
-// ("744±20", kJ/mol per reaction as written), as a step value is given.
-const (
-	ColFormula      = "formula"
-	ColCharges      = "charges"
-	ColModel        = "model"
-	ColStructure    = "structure"
-	ColCationRadius = "cation_radius"
-	ColAnionRadius  = "anion_radius"
-	colSetPrefix    = "set:"
-)
-
-// BatchColumns lists the recognized input columns (besides set:KEY).
-func BatchColumns() []string {
-	return []string{ColFormula, ColCharges, ColModel, ColStructure, ColCationRadius, ColAnionRadius}
-}
-
-// MaxBatchLine is the longest input line (bytes) a batch accepts, so that
-// memory stays bounded whatever the file holds.
-const MaxBatchLine = 64 << 10
-
-// BatchRow is one input row: the formula and its estimate options.
-type BatchRow struct {
-	// Line is the 1-based line of the row in the input.
-	Line    int
-	Formula string
-	Options EstimateOptions
-}
-
-// BatchReader reads batch rows from CSV one at a time (streaming: memory
-// does not grow with the file).
-type BatchReader struct {
-	r      *csv.Reader
-	header []string
-	col    map[string]int
-	sets   []int // columns set:KEY
-}
-
-// NewBatchReader reads the header row from r. Lines starting with '#' are
-// comments. Errors are *CSVError with the line and column.
-func NewBatchReader(r io.Reader) (*BatchReader, error) {
-	cr := csv.NewReader(&lineLimiter{r: bufio.NewReader(r)})
-	cr.Comment = '#'
-	cr.FieldsPerRecord = -1
-	cr.TrimLeadingSpace = true
-	cr.ReuseRecord = true
-	head, err := cr.Read()
-	if err == io.EOF {
-		return nil, &CSVError{Line: 1, Reason: "empty file: the first line must name the columns, e.g. formula,charges,model"}
-	}
-	if err != nil {
-		return nil, csvErr(err, nil)
-	}
-	br := &BatchReader{r: cr, col: map[string]int{}}
-	for i, h := range head {
-		h = strings.ToLower(strings.TrimSpace(strings.TrimPrefix(h, "\ufeff")))
-		br.header = append(br.header, h)
-		if _, dup := br.col[h]; dup {
-			return nil, &CSVError{Line: 1, Column: h, Reason: "column named twice"}
-		}
-		br.col[h] = i
-		switch {
-		case strings.HasPrefix(h, colSetPrefix):
-			if strings.TrimSpace(h[len(colSetPrefix):]) == "" {
-				return nil, &CSVError{Line: 1, Column: h, Reason: "set: needs a step key, e.g. set:attachment-2"}
-			}
-			br.sets = append(br.sets, i)
-		case isBatchColumn(h):
-		default:
-			return nil, &CSVError{Line: 1, Column: h, Reason: "unknown column; use " + strings.Join(BatchColumns(), ", ") + " or set:KEY"}
-		}
-	}
-	if _, ok := br.col[ColFormula]; !ok {
-		return nil, &CSVError{Line: 1, Column: ColFormula, Reason: "no formula column in the header"}
-	}
-	return br, nil
-}
-
-func isBatchColumn(h string) bool {
-	for _, c := range BatchColumns() {
-		if c == h {
-			return true
-		}
-	}
-	return false
-}
-
-// Next returns the next row, or io.EOF after the last. A malformed row is a
-// *CSVError naming its line and column; the reader can go on after it.
-func (br *BatchReader) Next() (BatchRow, error) {
-	rec, err := br.r.Read()
-	if err == io.EOF {
-		return BatchRow{}, io.EOF
-	}
-	if err != nil {
-		return BatchRow{}, csvErr(err, br.header)
-	}
-	line, _ := br.r.FieldPos(0)
-	row := BatchRow{Line: line}
-	if len(rec) != len(br.header) {
-		return row, &CSVError{Line: line, Reason: fmt.Sprintf("%d columns where the header has %d", len(rec), len(br.header))}
-	}
-	cell := func(name string) string {
-		if i, ok := br.col[name]; ok {
-			return strings.TrimSpace(rec[i])
-		}
-		return ""
-	}
-	bad := func(name, reason string, err error) (BatchRow, error) {
-		return row, &CSVError{Line: line, Column: name, Reason: reason, Err: err}
-	}
-	for i, v := range rec {
-		// A control character (a NUL, for one) would be copied into the
-		// output's formula cell: the row is refused before it is echoed.
-		if j := strings.IndexFunc(v, func(r rune) bool { return unicode.IsControl(r) && r != '\t' }); j >= 0 {
-			r, _ := utf8.DecodeRuneInString(v[j:])
-			return bad(br.header[i], fmt.Sprintf("control character U+%04X in the cell; remove it", r), nil)
-		}
-	}
-	row.Formula = cell(ColFormula)
-	if row.Formula == "" {
-		return bad(ColFormula, "empty formula", nil)
-	}
-	if s := cell(ColCharges); s != "" {
-		ch, err := ParseCharges(s, row.Formula)
-		if err != nil {
-			return bad(ColCharges, "cannot read the charges", err)
-		}
-		row.Options.Charges = ch
-	}
-	if s := cell(ColModel); s != "" && !strings.EqualFold(strings.TrimSpace(s), cycle.ModelAuto) {
-		m, err := cycle.ParseModel(s)
-		if err != nil {
-			return bad(ColModel, "unknown model", err)
-		}
-		row.Options.Model = m
-	}
-	row.Options.Structure = cell(ColStructure)
-	for _, rc := range []struct {
-		name string
-		dst  *float64
-	}{{ColCationRadius, &row.Options.CationRadius}, {ColAnionRadius, &row.Options.AnionRadius}} {
-		s := cell(rc.name)
-		if s == "" {
-			continue
-		}
-		v, err := strconv.ParseFloat(s, 64)
-		if err != nil || !(v > 0) || math.IsInf(v, 0) {
-			return bad(rc.name, fmt.Sprintf("%q is not a positive radius in Å", s), nil)
-		}
-		*rc.dst = v
-	}
-	for _, i := range br.sets {
-		s := strings.TrimSpace(rec[i])
-		if s == "" {
-			continue
-		}
-		key := strings.TrimSpace(br.header[i][len(colSetPrefix):])
-		st, err := cycle.ParseSetting(key+"="+s, thermo.KJPerMol)
-		if err != nil {
-			return bad(br.header[i], "cannot read the value", err)
-		}
-		row.Options.Sets = append(row.Options.Sets, st)
-	}
-	return row, nil
-}
-
-func csvErr(err error, header []string) error {
-	var pe *csv.ParseError
-	if errors.As(err, &pe) {
-		return &CSVError{Line: pe.Line, Reason: fmt.Sprintf("malformed CSV at byte %d of the line", pe.Column), Err: pe.Err}
-	}
-	var le *lineTooLong
-	if errors.As(err, &le) {
-		return &CSVError{Line: le.line, Reason: fmt.Sprintf("line longer than %d bytes", MaxBatchLine)}
-	}
-	return &CSVError{Reason: "cannot read the input", Err: err}
-}
-
-// lineLimiter passes bytes through but fails on a line longer than
-// MaxBatchLine, so that a file without newlines cannot fill memory.
-type lineLimiter struct {
-	r    *bufio.Reader
-	run  int
-	line int
-}
-
-type lineTooLong struct{ line int }
-
-func (e *lineTooLong) Error() string { return fmt.Sprintf("line %d too long", e.line) }
-
-func (l *lineLimiter) Read(p []byte) (int, error) {
-	n, err := l.r.Read(p)
-	for i := 0; i < n; i++ {
-		if p[i] == '\n' {
-			l.run = 0
-			l.line++
-			continue
-		}
-		l.run++
-		if l.run > MaxBatchLine {
-			return i, &lineTooLong{line: l.line + 1}
-		}
-	}
-	return n, err
-}
 
 // batchBlockRows is the number of rows handed to a worker at once.
 const batchBlockRows = 64
 
-// batchBlock is a run of consecutive rows and their results; done is
-// closed when every result is in.
+// batchBlock is a run of consecutive rows and, once done is signalled,
+// their output: the reader fills rows (and faults, a cell the row cannot
+// be read by), a worker estimates and writes them into out, the writer
+// copies out in input order and hands the block back to the reader.
 type batchBlock struct {
-	rows    []BatchRow
-	results []BatchResult
-	done    chan struct{}
+	rows   []BatchRow
+	faults []string      // a row's cell fault, worded; "" for a readable row
+	out    []byte        // the rows' output, CSV records or ",\n  "-led JSON objects
+	failed int           // rows with an error
+	err    error         // a row that could not be written
+	done   chan struct{} // one value when out is complete
 }
 
 func newBatchBlock() *batchBlock {
-	return &batchBlock{rows: make([]BatchRow, 0, batchBlockRows), results: make([]BatchResult, 0, batchBlockRows), done: make(chan struct{})}
+	return &batchBlock{rows: make([]BatchRow, 0, batchBlockRows), faults: make([]string, 0, batchBlockRows), done: make(chan struct{}, 1)}
+}
+
+// reuse empties blk for the next run of rows, keeping its storage.
+func (blk *batchBlock) reuse() {
+	clear(blk.rows) // let go of the rows' strings and options
+	blk.rows, blk.faults, blk.out = blk.rows[:0], blk.faults[:0], blk.out[:0]
+	blk.failed, blk.err = 0, nil
+}
+
+// batchWorker estimates blocks and writes their rows' output; each of a
+// batch's workers has its own, and they share seen.
+type batchWorker struct {
+	a       *Analyst
+	scratch *cycle.Cycle // every row's cycle, in turn
+	format  rowFormat
+	seen    *seenRows
+	hits    []seenRow // the block's rows found in seen; rest nil where not
+	fresh   []fresh   // the block's rows estimated here, for seen
+	lead    []byte    // scratch: a row's output up to its line number
+}
+
+// seenRows holds the output of the rows a batch's workers have estimated,
+// without their line, by the rows' cells. A screening list repeats rows
+// (a formula under several models, a list stretched over a family), a
+// row's cycle, model, solve and wording cost microseconds, and the same
+// cells give the same output but for the line: that work is done once per
+// distinct row (twice at most when two workers meet the same new row at
+// once). At most size rows are held, so that memory does not grow with
+// the file; past that, rows are estimated afresh. Workers take the lock
+// once per block.
+type seenRows struct {
+	mu   sync.RWMutex
+	rows map[string]seenRow
+	size int
+	hits int // rows found in rows
+}
+
+type seenRow struct {
+	rest   []byte // the output after the line number
+	failed bool
+}
+
+type fresh struct {
+	cells string
+	row   seenRow
+}
+
+// rowMemoSize bounds the rows a batch remembers (by reader and workers).
+const rowMemoSize = 1 << 14
+
+// worthRemembering says whether a memory of n rows (of at most size),
+// in which hits rows were found, takes a new one: while it holds fewer
+// than 1,024, or while it is found at least once per four rows it holds.
+// A list whose rows do not repeat (a sweep of a radius, say) then stops
+// paying for a memory it does not use, about a microsecond a row.
+func worthRemembering(n, hits, size int) bool {
+	return n < size && (n < 1024 || 4*hits >= n)
+}
+
+func newBatchWorker(a *Analyst, asJSON bool, seen *seenRows) *batchWorker {
+	return &batchWorker{a: a, scratch: new(cycle.Cycle), format: newRowFormat(asJSON), seen: seen}
+}
+
+// block estimates blk's rows and writes their output into blk.out.
+func (w *batchWorker) block(blk *batchBlock) {
+	defer func() { blk.done <- struct{}{} }()
+	w.hits = slices.Grow(w.hits[:0], len(blk.rows))[:len(blk.rows)]
+	hits := 0
+	w.seen.mu.RLock()
+	for i := range blk.rows {
+		w.hits[i] = w.seen.rows[blk.rows[i].cells] // a row with a cell fault is never stored
+		if w.hits[i].rest != nil {
+			hits++
+		}
+	}
+	remembering := worthRemembering(len(w.seen.rows), w.seen.hits, w.seen.size)
+	w.seen.mu.RUnlock()
+	w.fresh = w.fresh[:0]
+	defer w.remember(hits)
+	for i := range blk.rows {
+		row := &blk.rows[i]
+		if blk.faults[i] != "" { // a cell fault found while reading
+			blk.failed++
+			if blk.out, blk.err = w.format.write(blk.out, &BatchResult{Line: row.Line, Formula: row.Formula, Error: blk.faults[i]}); blk.err != nil {
+				return
+			}
+			continue
+		}
+		if s := w.hits[i]; s.rest != nil {
+			blk.out = w.format.appendLine(blk.out, row.Line)
+			blk.out = append(blk.out, s.rest...)
+			if s.failed {
+				blk.failed++
+			}
+			continue
+		}
+		res := w.a.rowInto(*row, w.scratch)
+		start := len(blk.out)
+		if blk.out, blk.err = w.format.write(blk.out, &res); blk.err != nil {
+			return
+		}
+		if res.Error != "" {
+			blk.failed++
+		}
+		if !remembering || row.cells == "" {
+			continue
+		}
+		w.lead = w.format.appendLine(w.lead[:0], row.Line)
+		if out := blk.out[start:]; bytes.HasPrefix(out, w.lead) {
+			w.fresh = append(w.fresh, fresh{row.cells, seenRow{rest: bytes.Clone(out[len(w.lead):]), failed: res.Error != ""}})
+		}
+	}
+}
+
+// remember counts the block's hits and puts the rows the worker
+// estimated into seen while it is worth it.
+func (w *batchWorker) remember(hits int) {
+	if hits == 0 && len(w.fresh) == 0 {
+		return
+	}
+	s := w.seen
+	s.mu.Lock()
+	s.hits += hits
+	for _, f := range w.fresh {
+		if worthRemembering(len(s.rows), s.hits, s.size) {
+			s.rows[f.cells] = f.row
+		}
+	}
+	s.mu.Unlock()
+}
+
+// rowFormat writes BatchResults as CSV records (encoding/csv's quoting)
+// or as JSON objects (encoding/json), each JSON object led by ",\n  ".
+type rowFormat struct {
+	json bool
+	buf  bytes.Buffer
+	cw   *csv.Writer
+	rec  []string
+}
+
+// jsonRowLead is what a JSON row starts with (the writer drops the
+// comma of the first), jsonLead the same up to its line number
+// (BatchResult's first field).
+const (
+	jsonRowLead = ",\n  "
+	jsonLead    = jsonRowLead + `{"line":`
+)
+
+func newRowFormat(asJSON bool) rowFormat {
+	return rowFormat{json: asJSON, rec: make([]string, len(batchCSVHeader))}
+}
+
+// write appends res's output to dst.
+func (f *rowFormat) write(dst []byte, res *BatchResult) ([]byte, error) {
+	if f.json {
+		b, err := json.Marshal(res)
+		if err != nil {
+			return dst, err
+		}
+		return append(append(dst, jsonRowLead...), b...), nil
+	}
+	res.fill(f.rec)
+	return f.csv(dst, f.rec)
+}
+
+// csv appends rec as one CSV record to dst.
+func (f *rowFormat) csv(dst []byte, rec []string) ([]byte, error) {
+	if f.cw == nil {
+		f.cw = csv.NewWriter(&f.buf)
+	}
+	f.buf.Reset()
+	f.cw.Write(rec)
+	f.cw.Flush()
+	if err := f.cw.Error(); err != nil {
+		return dst, err
+	}
+	return append(dst, f.buf.Bytes()...), nil
+}
+
+// appendLine appends the start of a row's output up to and with its line
+// number: what write puts before a row's other fields.
+func (f *rowFormat) appendLine(dst []byte, line int) []byte {
+	if f.json {
+		dst = append(dst, jsonLead...)
+	}
+	return strconv.AppendInt(dst, int64(line), 10)
 }
 
 // BatchResult is one output row.
@@ -281,6 +262,9 @@ type BatchOptions struct {
 	// Dir is the folder a relative CIF path in the structure column is
 	// read from (the batch file's); "" is the working directory.
 	Dir string
+	// memoRows bounds the rows remembered by the reader and by each
+	// worker (0: rowMemoSize); tests set it small to cross the bound.
+	memoRows int
 }
 
 // BatchSummary counts the rows.
@@ -337,53 +321,52 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 	if err != nil {
 		return sum, err
 	}
+	memoRows := rowMemoSize
+	if opt.memoRows > 0 {
+		memoRows = opt.memoRows
+	}
+	br.readSize = memoRows
 	bw := bufio.NewWriterSize(w, 64<<10)
-	var cw *csv.Writer
 	if opt.JSON {
 		bw.WriteString("[")
 	} else {
-		cw = csv.NewWriter(bw)
-		cw.Write(batchCSVHeader)
+		f := newRowFormat(false)
+		head, err := f.csv(nil, batchCSVHeader)
+		if err != nil {
+			return sum, err
+		}
+		bw.Write(head)
 	}
-	rec := make([]string, len(batchCSVHeader))
 	finish := func() error {
 		if opt.JSON {
 			if sum.Rows > 0 {
 				bw.WriteString("\n")
 			}
 			bw.WriteString("]\n")
-		} else {
-			cw.Flush()
-			if err := cw.Error(); err != nil {
-				return err
-			}
 		}
 		return bw.Flush()
 	}
-	// Rows are read into blocks, estimated by workers block by block and
-	// written in input order: a bounded queue of blocks keeps at most
-	// cap(queue) blocks in flight, so memory does not grow with the file,
-	// and a block's rows share one hand-over (rows take microseconds, a
-	// hand-over per row would cost as much).
+	// Rows are read into blocks, estimated and written out by workers
+	// block by block, and copied to w in input order: a bounded queue of
+	// blocks keeps at most cap(queue) blocks in flight, so memory does not
+	// grow with the file, and a block's rows share one hand-over (rows
+	// take microseconds, a hand-over per row would cost as much).
 	workers := opt.Workers
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
 	queue := make(chan *batchBlock, 4*workers)
 	jobs := make(chan *batchBlock, 4*workers)
+	spare := make(chan *batchBlock, 4*workers+2) // written blocks, for the reader to fill again
+	seen := &seenRows{rows: map[string]seenRow{}, size: memoRows}
 	var wg sync.WaitGroup
 	for range workers {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			scratch := new(cycle.Cycle) // every row's cycle, in turn
+			bw := newBatchWorker(a, opt.JSON, seen)
 			for blk := range jobs {
-				for i := range blk.rows {
-					if blk.results[i].Error == "" { // not a cell fault found while reading
-						blk.results[i] = a.rowInto(blk.rows[i], scratch)
-					}
-				}
-				close(blk.done)
+				bw.block(blk)
 			}
 		}()
 	}
@@ -391,31 +374,41 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 	go func() {
 		defer close(queue)
 		defer close(jobs)
-		blk := newBatchBlock()
+		next := func() *batchBlock {
+			select {
+			case blk := <-spare:
+				blk.reuse()
+				return blk
+			default:
+				return newBatchBlock()
+			}
+		}
+		blk := next()
 		send := func() {
 			queue <- blk
 			jobs <- blk
-			blk = newBatchBlock()
+			blk = next()
 		}
 		for {
 			row, err := br.Next()
 			if err == io.EOF {
 				break
 			}
-			var ce *CSVError
-			if errors.As(err, &ce) && ce.Column != "" {
+			if err != nil {
+				var ce *CSVError
+				if !errors.As(err, &ce) || ce.Column == "" {
+					readErr = err
+					break
+				}
 				// A cell fault is this row's result, like a failed estimate.
 				blk.rows = append(blk.rows, row)
-				blk.results = append(blk.results, BatchResult{Line: row.Line, Formula: row.Formula, Error: oneLine(err.Error())})
-			} else if err != nil {
-				readErr = err
-				break
+				blk.faults = append(blk.faults, oneLine(err.Error()))
 			} else {
 				if st := row.Options.Structure; isCIFPath(st) && !filepath.IsAbs(st) {
 					row.Options.Structure = filepath.Join(opt.Dir, st)
 				}
 				blk.rows = append(blk.rows, row)
-				blk.results = append(blk.results, BatchResult{})
+				blk.faults = append(blk.faults, "")
 			}
 			if len(blk.rows) == batchBlockRows {
 				send()
@@ -428,36 +421,29 @@ func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummar
 	var writeErr error
 	for blk := range queue {
 		<-blk.done
-		for k := range blk.results {
-			res := &blk.results[k]
-			if writeErr != nil {
-				break // drain
-			}
+		if writeErr != nil {
+			continue // drain
+		}
+		if writeErr = blk.err; writeErr != nil {
+			continue
+		}
+		out := blk.out
+		if opt.JSON && sum.Rows == 0 {
+			out = out[1:] // the first object has no comma before it
+		}
+		if _, writeErr = bw.Write(out); writeErr != nil {
+			continue
+		}
+		sum.Failed += blk.failed
+		for range blk.rows {
 			sum.Rows++
-			if res.Error != "" {
-				sum.Failed++
-			}
-			if opt.JSON {
-				b, err := json.Marshal(res)
-				if err != nil {
-					writeErr = err
-					continue
-				}
-				if sum.Rows > 1 {
-					bw.WriteString(",")
-				}
-				bw.WriteString("\n  ")
-				bw.Write(b)
-			} else {
-				res.fill(rec)
-				if err := cw.Write(rec); err != nil {
-					writeErr = err
-					continue
-				}
-			}
 			if opt.Progress != nil {
 				opt.Progress(sum.Rows)
 			}
+		}
+		select {
+		case spare <- blk:
+		default:
 		}
 	}
 	wg.Wait()

@@ -7,6 +7,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"reflect"
 	"strings"
 	"testing"
 )
@@ -152,8 +153,9 @@ func TestBatchLongLine(t *testing.T) {
 	}
 }
 
-// FuzzBatchReader: no input makes the reader panic or loop, and every
-// error is a *CSVError with a line.
+// FuzzBatchReader: no input makes the reader panic or loop, every error
+// is a *CSVError with a line, and a reader that remembers the rows it has
+// read returns what one that remembers nothing returns, row by row.
 func FuzzBatchReader(f *testing.F) {
 	for _, s := range []string{
 		"formula\nNaCl\n",
@@ -162,6 +164,7 @@ func FuzzBatchReader(f *testing.F) {
 		"formula,set:\nx,1\n",
 		"\ufeffFormula\r\nKCl\r\n",
 		"formula,charges\nMgCl,M=2;X=-1\n",
+		"formula,charges,set:lattice\nMgCl,Mg=+1,-700\nMgCl,Mg=+1,-700\nMgCl,Mg=+x,\nMgCl,Mg=+x,\n",
 	} {
 		f.Add([]byte(s))
 	}
@@ -174,8 +177,14 @@ func FuzzBatchReader(f *testing.F) {
 			}
 			return
 		}
+		fresh, _ := NewBatchReader(bytes.NewReader(b))
+		fresh.readSize = 0
 		for i := 0; i < 10000; i++ {
 			row, err := br.Next()
+			want, wantErr := fresh.Next()
+			if !reflect.DeepEqual(row, want) || fmt.Sprint(err) != fmt.Sprint(wantErr) {
+				t.Fatalf("row %d: remembered %+v (%v), read afresh %+v (%v)", i+1, row, err, want, wantErr)
+			}
 			if err == io.EOF {
 				return
 			}
@@ -223,6 +232,101 @@ func TestBatchSameOnEveryCore(t *testing.T) {
 			}
 			if !bytes.Equal(out.Bytes(), want) {
 				t.Errorf("JSON %v: %d workers write other bytes than one", asJSON, workers)
+			}
+		}
+	}
+}
+
+// TestBatchRepeatsAsIfFresh: a batch remembers rows by their cells (the
+// reader its parsed rows, each worker its output), so its output must be
+// what each row gives on its own: every row of an invented list (demo
+// data) with repeated formulas, repeated failing rows and repeated
+// unreadable cells is read alone (behind comment lines, so that its line
+// number is kept), estimated with Row and written with encoding/csv or
+// encoding/json as the batch's format says; the batch's bytes must equal
+// these, with the memory bound crossed (2 rows) and not (the default),
+// on one worker and two.
+func TestBatchRepeatsAsIfFresh(t *testing.T) {
+	a := testAnalyst(t)
+	const header = "formula,charges,anion_radius\n"
+	var in bytes.Buffer
+	in.WriteString(header)
+	body := strings.SplitAfter(string(batchInput(400)), "\n")
+	for _, line := range body[1 : len(body)-1] {
+		in.WriteString(strings.TrimSuffix(line, "\n") + ",\n")
+	}
+	for range 3 {
+		in.WriteString("Qx2,,\nMgCl,Mg=+x,\nNaCl,,big\nKCl,,1.9\n KCl,,1.9\n")
+	}
+	lines := strings.SplitAfter(in.String(), "\n")
+	lines = lines[1 : len(lines)-1]
+	for _, asJSON := range []bool{false, true} {
+		var want bytes.Buffer
+		failed := 0
+		cw := csv.NewWriter(&want)
+		if asJSON {
+			want.WriteString("[")
+		} else {
+			cw.Write(batchCSVHeader)
+		}
+		for i, line := range lines {
+			br, err := NewBatchReader(strings.NewReader(header + strings.Repeat("#\n", i) + line))
+			if err != nil {
+				t.Fatal(err)
+			}
+			row, err := br.Next()
+			var res BatchResult
+			switch {
+			case err != nil:
+				res = BatchResult{Line: row.Line, Formula: row.Formula, Error: oneLine(err.Error())}
+			default:
+				res = a.Row(row)
+			}
+			if res.Error != "" {
+				failed++
+			}
+			if res.Line != i+2 {
+				t.Fatalf("line %d read as line %d", i+2, res.Line)
+			}
+			if asJSON {
+				b, err := json.Marshal(res)
+				if err != nil {
+					t.Fatal(err)
+				}
+				if i > 0 {
+					want.WriteString(",")
+				}
+				want.WriteString("\n  ")
+				want.Write(b)
+				continue
+			}
+			rec := make([]string, len(batchCSVHeader))
+			res.fill(rec)
+			cw.Write(rec)
+		}
+		cw.Flush()
+		if asJSON {
+			want.WriteString("\n]\n")
+		}
+		for _, memo := range []int{2, 0} {
+			for _, workers := range []int{1, 2} {
+				var got bytes.Buffer
+				sum, err := a.Batch(bytes.NewReader(in.Bytes()), &got, BatchOptions{JSON: asJSON, Workers: workers, memoRows: memo})
+				if err != nil {
+					t.Fatal(err)
+				}
+				if sum.Rows != len(lines) || sum.Failed != failed || failed < 9 {
+					t.Errorf("JSON %v, memory %d, %d workers: %+v, want %d rows, %d failed (9 or more)", asJSON, memo, workers, sum, len(lines), failed)
+				}
+				if !bytes.Equal(got.Bytes(), want.Bytes()) {
+					g, w := strings.Split(got.String(), "\n"), strings.Split(want.String(), "\n")
+					for k := range min(len(g), len(w)) {
+						if g[k] != w[k] {
+							t.Errorf("JSON %v, memory %d, %d workers: output line %d\n got %s\nwant %s", asJSON, memo, workers, k+1, g[k], w[k])
+							break
+						}
+					}
+				}
 			}
 		}
 	}

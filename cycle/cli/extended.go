@@ -32,7 +32,11 @@ func writeExtended(w io.Writer, r *cycle.Result, u thermo.Unit) {
 	}
 	b := m.Inputs.Extended
 	fmt.Fprintf(w, "\nextended model, per term (%s; and eV per formula unit)\n", u)
-	t := table{head: []string{"term", fmt.Sprintf("least U, d = %.4f Å", b.Minimum.D), "", fmt.Sprintf("at d₀ = %.4f Å", b.AtReference.D), ""},
+	first := "least U"
+	if b.RepulsionFitted {
+		first = "repulsion fitted"
+	}
+	t := table{head: []string{"term", fmt.Sprintf("%s, d = %.4f Å", first, b.Minimum.D), "", fmt.Sprintf("at d₀ = %.4f Å", b.AtReference.D), ""},
 		right: map[int]bool{1: true, 2: true, 3: true, 4: true}}
 	min, ref := b.Terms(b.Minimum), b.Terms(b.AtReference)
 	for i := range min {
@@ -111,6 +115,8 @@ type extendedJSON struct {
 	AtReference    extendedAtJSON    `json:"at_reference_distance"`
 	ReferenceFrom  string            `json:"reference_distance_from"`
 	Measured       bool              `json:"reference_distance_measured"`
+	DispersionSet  string            `json:"dispersion_set"`
+	Fitted         bool              `json:"repulsion_fitted"`
 	RepulsionFrom  string            `json:"repulsion_from"`
 	DispersionFrom string            `json:"dispersion_from"`
 	ZeroPointFrom  string            `json:"zero_point_from"`
@@ -131,6 +137,7 @@ func extendedJSONOf(b *cycle.ExtendedBreakdown) *extendedJSON {
 		return out
 	}
 	j := &extendedJSON{Minimum: at(b.Minimum), AtReference: at(b.AtReference), ReferenceFrom: b.ReferenceFrom, Measured: b.ReferenceMeasured,
+		DispersionSet: b.Dispersion.String(), Fitted: b.RepulsionFitted,
 		RepulsionFrom: b.RepulsionFrom, DispersionFrom: b.DispersionFrom, ZeroPointFrom: b.ZeroPointFrom, HeatFrom: b.HeatContentFrom, Coefficients: []coefficientJSON{}}
 	for _, k := range b.Coefficients {
 		j.Coefficients = append(j.Coefficients, coefficientJSON{k.Name, jsonNumber(k.Value), k.Unit, k.Source, k.Citation, k.Memory})

@@ -13,10 +13,10 @@ import (
 
 // modelFlags are the settings shared by cycle and compare.
 type modelFlags struct {
-	structure, units, radii, d0, latticeAs, ionAt string
-	params                                        listFlag
-	rho, bornN, accuracy                          float64
-	cnCation, cnAnion                             int
+	structure, units, radii, d0, latticeAs, ionAt, dispersion string
+	params                                                    listFlag
+	rho, bornN, accuracy                                      float64
+	cnCation, cnAnion                                         int
 }
 
 func (m *modelFlags) register(fs *flag.FlagSet) {
@@ -32,6 +32,7 @@ func (m *modelFlags) register(fs *flag.FlagSet) {
 	fs.StringVar(&m.latticeAs, "lattice-as", "enthalpy", "lattice convention: enthalpy (ΔH_L at 298.15 K) or energy (U)")
 	fs.StringVar(&m.ionAt, "ionization-at", "0k", "ionization convention: 0k (energies as published) or 298k (enthalpies, ±5/2·RT per electron)")
 	fs.Float64Var(&m.accuracy, "accuracy", 0, "relative accuracy of the Ewald sums (default 1e-8)")
+	fs.StringVar(&m.dispersion, "dispersion", "crystal", "the extended model's dispersion: crystal (Slater–Kirkwood from polarizabilities of ions in crystals, Fumi–Tosi repulsion refitted to the measured distance) or mayer (Mayer 1933 with Fumi–Tosi 1964 as published)")
 }
 
 // conventions reads the convention flags.
@@ -87,6 +88,11 @@ func (m *modelFlags) apply(c *cycle.Cycle, set map[string]bool, all bool) error 
 				return boundUsage(cn.name, "give a whole coordination number", err)
 			}
 			*cn.dst = cn.v
+		}
+	}
+	if given("dispersion") {
+		if s.Dispersion, err = cycle.ParseDispersionSet(m.dispersion); err != nil {
+			return Usagef("--dispersion: %v", err)
 		}
 	}
 	if given("d0") {

@@ -20,9 +20,10 @@ import (
 // 643 (1933); J. E. Mayer, J. Chem. Phys. 1, 270 (1933); F. G. Fumi and
 // M. P. Tosi, J. Phys. Chem. Solids 25, 31 (1964)). The repulsion is either
 // tabulated (Tosi–Fumi: B_ij = c_ij·b·exp((σ_i+σ_j)/ρ), c_ij Pauling's
-// factor) or fitted: one prefactor on the cation–anion pairs chosen so that
-// the quasi-harmonic free energy at the Thermal temperature (the static
-// energy without one) is least at the reference distance. A tabulated
+// factor) or fitted: one factor on the tabulated prefactors (or one
+// prefactor on the cation–anion pairs) chosen so that the quasi-harmonic
+// free energy at the Thermal temperature (the static energy without one) is
+// least at the reference distance. A tabulated
 // repulsion's energy is minimised in d at fixed shape; the zero-point
 // energy is added at the distance it is reported for, and the lattice
 // enthalpy at T adds the solid's heat content less the gaseous ions'.
@@ -40,12 +41,13 @@ type Repulsion struct {
 	// Rho is the range ρ in Å.
 	Rho float64
 	// Prefactor[k] is B for pairs of kind k (crystal.PairKind) in kJ/mol,
-	// φ = B·exp(−r/ρ); ignored when Fitted.
+	// φ = B·exp(−r/ρ); when Fitted, only their ratios count.
 	Prefactor [3]float64
-	// Fitted: one prefactor on the cation–anion pairs, chosen so that the
-	// free energy at the Thermal temperature is least at the reference
-	// distance D0 (the static energy without a temperature, or when the
-	// quasi-harmonic fit fails; ExtendedResult.RepulsionFit says which).
+	// Fitted: one factor on the prefactors (on the cation–anion pairs
+	// alone when Prefactor is all zero), chosen so that the free energy at
+	// the Thermal temperature is least at the reference distance D0 (the
+	// static energy without a temperature, or when the quasi-harmonic fit
+	// fails; ExtendedResult.RepulsionFit says which).
 	Fitted bool
 }
 
@@ -130,7 +132,8 @@ func (t ExtendedTerms) Enthalpy() float64 { return t.Total() + t.ThermalStep() }
 type ExtendedResult struct {
 	Minimum, AtD0 ExtendedTerms
 	// FittedPrefactor is the cation–anion B (kJ/mol) when the repulsion was
-	// fitted, and RepulsionFit the condition it was fitted to.
+	// fitted (the fitted factor times Prefactor's when those were given),
+	// and RepulsionFit the condition it was fitted to.
 	FittedPrefactor float64
 	RepulsionFit    string
 	// ZeroPointFrom says how θ_D was obtained, HeatContentFrom how the
@@ -210,31 +213,41 @@ func Extended(in ExtendedInput) (ExtendedResult, error) {
 		c.w8 += in.C8[k] * in.Sums.InvPow8[k]
 	}
 	reach := in.D0 + ExtendedShortReach(in.Repulsion.Rho)
+	// The repulsive shells: the tabulated prefactors, or, for a fitted
+	// repulsion without them, unit weights on the cation–anion pairs; a
+	// fitted repulsion then scales them all by one factor.
+	shaped := in.Repulsion.Prefactor != [3]float64{}
+	for _, sh := range in.Sums.Short {
+		b := in.Repulsion.Prefactor[sh.Kind]
+		if !shaped && in.Repulsion.Fitted && sh.Kind == crystal.CationAnion {
+			b = 1
+		}
+		if b > 0 && sh.Distance <= reach {
+			c.reps = append(c.reps, repShell{b: sh.Count * b, r: sh.Distance})
+		}
+	}
+	if len(c.reps) == 0 {
+		if in.Repulsion.Fitted {
+			return res, paramErr(fn, "Sums", float64(len(in.Sums.Short)), ErrNoSolution, "no pairs within reach to carry the fitted repulsion")
+		}
+		return res, paramErr(fn, "Prefactor", 0, ErrNotPositive, "give the repulsion prefactors (kJ/mol)")
+	}
 	if in.Repulsion.Fitted {
 		num := (-c.coul + 6*c.w6 + 8*c.w8) / in.D0 // dU/dd of the attractive terms at D0 (kJ/mol/Å)
 		den := 0.0
-		for _, sh := range in.Sums.Short {
-			if sh.Kind == crystal.CationAnion && sh.Distance <= reach {
-				den += sh.Count * sh.Distance / (in.Repulsion.Rho * in.D0) * math.Exp(-sh.Distance/in.Repulsion.Rho)
-			}
+		for _, r := range c.reps {
+			den += r.b * r.r / (in.Repulsion.Rho * in.D0) * math.Exp(-r.r/in.Repulsion.Rho)
 		}
 		if !(den > 0) || !(num > 0) {
-			return res, paramErr(fn, "Sums", float64(len(in.Sums.Short)), ErrNoSolution, "no cation–anion pairs to carry the fitted repulsion")
+			return res, paramErr(fn, "Sums", float64(len(in.Sums.Short)), ErrNoSolution, "no pairs within reach to carry the fitted repulsion")
 		}
-		res.FittedPrefactor = num / den
-		for _, sh := range in.Sums.Short {
-			if sh.Kind == crystal.CationAnion && sh.Distance <= reach {
-				c.reps = append(c.reps, repShell{b: sh.Count * res.FittedPrefactor, r: sh.Distance})
-			}
+		f := num / den
+		for i := range c.reps {
+			c.reps[i].b *= f
 		}
-	} else {
-		for _, sh := range in.Sums.Short {
-			if b := in.Repulsion.Prefactor[sh.Kind]; b > 0 && sh.Distance <= reach {
-				c.reps = append(c.reps, repShell{b: sh.Count * b, r: sh.Distance})
-			}
-		}
-		if len(c.reps) == 0 {
-			return res, paramErr(fn, "Prefactor", 0, ErrNotPositive, "give the repulsion prefactors (kJ/mol)")
+		res.FittedPrefactor = f
+		if shaped {
+			res.FittedPrefactor = f * in.Repulsion.Prefactor[crystal.CationAnion]
 		}
 	}
 	if in.Repulsion.Fitted {

@@ -41,6 +41,10 @@ func (m *Model) extendedLines(res *cycle.Result) []string {
 		"dispersion " + m.ctx.Signed(t.Dispersion()), "zero-point " + m.ctx.Signed(t.ZP), "heat content " + m.ctx.Signed(t.ThermalStep())}
 	text := fmt.Sprintf("extended: %s (least at d = %.4f Å; %.4f Å from %s)",
 		strings.Join(parts, " · "), t.D, b.Reference, refKind(b))
+	if b.RepulsionFitted {
+		text = fmt.Sprintf("extended: %s (repulsion fitted to d = %.4f Å from %s)",
+			strings.Join(parts, " · "), b.Reference, refKind(b))
+	}
 	return screen.Wrap(text, m.w, "  ")
 }
 

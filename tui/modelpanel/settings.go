@@ -186,6 +186,25 @@ func settingsRows() []setting {
 			reset:   func(c *cycle.Cycle) { c.Settings.LatticeFrom = "" },
 			hint:    "cycle, or a model name: then mark another step unknown on the bench (x)",
 		},
+		{
+			name: "dispersion (extended)",
+			show: func(s *cycle.Settings) string {
+				if s.Dispersion == cycle.DispersionMayer {
+					return "mayer (Mayer 1933, Fumi–Tosi 1964)"
+				}
+				return "crystal (ions in crystals, TKS 1953)"
+			},
+			parse: func(c *cycle.Cycle, text string) error {
+				d, err := cycle.ParseDispersionSet(text)
+				if err == nil {
+					c.Settings.Dispersion = d
+				}
+				return err
+			},
+			choices: func(*cycle.Cycle) []string { return cycle.DispersionSetNames() },
+			reset:   func(c *cycle.Cycle) { c.Settings.Dispersion = cycle.DispersionInCrystal },
+			hint:    "crystal or mayer",
+		},
 	}
 }
 
