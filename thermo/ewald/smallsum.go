@@ -17,6 +17,10 @@ import (
 // qualify.
 const smallFull = 16
 
+// smallSkew bounds |aₖ|⁶/V² for the lattice vectors aₖ of a cell on the
+// small path: no vector longer than 100 times the cube root of the volume.
+const smallSkew = 1e12
+
 // smallGenerators bounds the generators of the translation group of a
 // cell of smallFull sites: each generator at least doubles the group.
 const smallGenerators = 4
@@ -180,6 +184,15 @@ func sumSmall(c *crystal.Crystal, eps, target, forcedAlpha float64) (Result, boo
 		return Result{}, false
 	}
 	volume := c.Volume()
+	// A lattice given by vectors far longer than the cell is wide (a needle
+	// or a skewed basis of a compact cell) loses digits in the positions
+	// and translations computed from them here; the general path works in
+	// its reduced basis throughout.
+	for _, a := range c.Lattice {
+		if d2 := a.Dot(a); d2*d2*d2 > smallSkew*volume*volume {
+			return Result{}, false
+		}
+	}
 	var lat [3]crystal.Vec3
 	if g > 1 {
 		var ok bool
