@@ -7,6 +7,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"reflect"
 	"strings"
 	"testing"
 )
@@ -152,8 +153,9 @@ func TestBatchLongLine(t *testing.T) {
 	}
 }
 
-// FuzzBatchReader: no input makes the reader panic or loop, and every
-// error is a *CSVError with a line.
+// FuzzBatchReader: no input makes the reader panic or loop, every error
+// is a *CSVError with a line, and a reader that remembers the rows it has
+// read returns what one that remembers nothing returns, row by row.
 func FuzzBatchReader(f *testing.F) {
 	for _, s := range []string{
 		"formula\nNaCl\n",
@@ -162,6 +164,7 @@ func FuzzBatchReader(f *testing.F) {
 		"formula,set:\nx,1\n",
 		"\ufeffFormula\r\nKCl\r\n",
 		"formula,charges\nMgCl,M=2;X=-1\n",
+		"formula,charges,set:lattice\nMgCl,Mg=+1,-700\nMgCl,Mg=+1,-700\nMgCl,Mg=+x,\nMgCl,Mg=+x,\n",
 	} {
 		f.Add([]byte(s))
 	}
@@ -174,8 +177,14 @@ func FuzzBatchReader(f *testing.F) {
 			}
 			return
 		}
+		fresh, _ := NewBatchReader(bytes.NewReader(b))
+		fresh.readSize = 0
 		for i := 0; i < 10000; i++ {
 			row, err := br.Next()
+			want, wantErr := fresh.Next()
+			if !reflect.DeepEqual(row, want) || fmt.Sprint(err) != fmt.Sprint(wantErr) {
+				t.Fatalf("row %d: remembered %+v (%v), read afresh %+v (%v)", i+1, row, err, want, wantErr)
+			}
 			if err == io.EOF {
 				return
 			}
