@@ -72,7 +72,8 @@
 // # Models
 //
 // Compare evaluates the lattice models named by the ModelNames constants —
-// born-lande, born-mayer, kapustinskii, volume and ewald — from the
+// born-lande, born-mayer, kapustinskii, volume, ewald and extended (its
+// dispersion set chosen by Settings.Dispersion) — from the
 // compound's structure, radii and settings, and reports each one's gap to
 // the cycle and a verdict on covalent character from thermo/lattice.
 package cycle

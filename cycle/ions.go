@@ -3,6 +3,7 @@ package cycle
 import (
 	"fmt"
 	"strconv"
+	"strings"
 
 	"enthalpath/data"
 	"enthalpath/thermo/notation"
@@ -20,10 +21,16 @@ func countText(n int) string {
 }
 
 // pickIons chooses, for a formula of two parts (elements, or a bracketed
-// group for a polyatomic ion: "Ba(N3)2"), the cation and anion of the data
-// whose charges balance its counts; when the data have no balancing cation
-// of an element it makes one with the charge the counts imply (a
-// hypothetical ion).
+// group for a polyatomic ion: "Ba(N3)2"), the ions in this order of
+// likelihood: a cation and an anion of the data whose charges balance its
+// counts (the data's ions are those of real compounds, so their charges
+// are the element's known oxidation states), or a cation of the data with
+// a homonuclear group anion of the data that the counts allow (MgO₂ is
+// Mg²⁺ with peroxide O₂²⁻, not Mg⁴⁺ with O²⁻), the first of these whose
+// cation the data's crystals show with the same anion element, the plain
+// anion before the group one; only then a cation with the charge the
+// counts imply that the data do not have (a hypothetical ion, MgCl of Mg⁺).
+// The ranking is common practice, no source.
 func pickIons(db *data.DB, formula string, p1, p2 formulaPart, opt Options) (data.Ion, data.Ion, error) {
 	first, second := p1.core, p2.core
 	nFirst, nSecond := p1.count, p2.count
@@ -61,12 +68,24 @@ func pickIons(db *data.DB, formula string, p1, p2 formulaPart, opt Options) (dat
 		}
 		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("the data have no anion of %s; write the metal first, or give the cation and the anion with their charges (for example %s-)", second, second)}
 	}
+	var readings []ionReading
 	for _, an := range anions {
 		for _, ca := range cations {
 			if nFirst*ca.Charge+nSecond*an.Charge == 0 {
-				return ca, an, nil
+				readings = append(readings, ionReading{ca, an})
 			}
 		}
+	}
+	if opt.Anion == "" && !p2.bracketed {
+		// The second reading: a homonuclear group anion of the element
+		// (O₂²⁻ of BaO₂, O₂⁻ of KO₂, S₂²⁻ of FeS₂, N₃⁻ of NaN₃, C₂²⁻ of
+		// CaC₂) with a cation of the data, before any charge the data do
+		// not know.
+		readings = append(readings, groupAnionReadings(db, cations, second, nFirst, nSecond)...)
+	}
+	if len(readings) > 0 {
+		r := likeliest(db, readings, second)
+		return r.cation, r.anion, nil
 	}
 	if p1.bracketed {
 		return data.Ion{}, data.Ion{}, &ChargeError{Formula: formula, Detail: fmt.Sprintf("no cation %s in the data balances %s; give the ions with their charges", first, anions[0].Symbol)}
@@ -83,6 +102,82 @@ func pickIons(db *data.DB, formula string, p1, p2 formulaPart, opt Options) (dat
 	}
 	sym := fmt.Sprintf("%s%s+", first, countText(z))
 	return hypotheticalIon(db, sym, first, z), an, nil
+}
+
+// ionReading is one way of reading a formula as a cation and an anion.
+type ionReading struct{ cation, anion data.Ion }
+
+// groupAnionReadings returns the readings with a homonuclear group anion
+// of element el (core el₂, el₃, …) that the data hold and that, with one of
+// the data's cations, balances nFirst cations and nSecond atoms of el;
+// group anions of two atoms first.
+func groupAnionReadings(db *data.DB, cations []data.Ion, el string, nFirst, nSecond int) []ionReading {
+	var out []ionReading
+	for k := 2; k <= nSecond; k++ {
+		if nSecond%k != 0 {
+			continue
+		}
+		for _, an := range db.IonsOf(el + strconv.Itoa(k)) {
+			if !an.Polyatomic || an.Charge >= 0 {
+				continue
+			}
+			for _, ca := range cations {
+				if nFirst*ca.Charge+nSecond/k*an.Charge == 0 {
+					out = append(out, ionReading{ca, an})
+				}
+			}
+		}
+	}
+	return out
+}
+
+// likeliest returns the first reading whose cation the data's ionic
+// crystals show with an anion of element el or with oxide, the anion a
+// high charge is most often held against (so FeS₂ is Fe²⁺ with S₂²⁻: the
+// data show Fe⁴⁺ only in FeSi; SnS₂ is Sn⁴⁺ with S²⁻ as SnO₂ is Sn⁴⁺
+// oxide), else the first reading. Common practice, no source.
+func likeliest(db *data.DB, readings []ionReading, el string) ionReading {
+	if len(readings) == 1 {
+		return readings[0]
+	}
+	seen := crystalPartners(db)
+	for _, r := range readings {
+		if p := seen[r.cation.Symbol]; p[el] || p["O"] {
+			return r
+		}
+	}
+	return readings[0]
+}
+
+// crystalPartnersKey is the key of crystalPartners among the values
+// derived from a data set (data.DB.Computed).
+const crystalPartnersKey = "cycle.crystalPartners"
+
+// crystalPartners returns, for each cation symbol, the elements of the
+// monatomic and homonuclear anions it forms ionic crystals with in the
+// data (Fe²⁺: O, S, Cl, …), once per data set.
+func crystalPartners(db *data.DB) map[string]map[string]bool {
+	return db.Computed(crystalPartnersKey, func() any {
+		out := map[string]map[string]bool{}
+		for _, c := range db.Compounds() {
+			if c.Molecular || c.State != "cr" {
+				continue
+			}
+			an, ok := db.FindIon(c.Anion)
+			if !ok {
+				continue
+			}
+			el := strings.TrimRight(an.Core, "0123456789")
+			if !notation.IsElementSymbol(el) {
+				continue
+			}
+			if out[c.Cation] == nil {
+				out[c.Cation] = map[string]bool{}
+			}
+			out[c.Cation][el] = true
+		}
+		return out
+	}).(map[string]map[string]bool)
 }
 
 // NeighbourDonor returns the element whose ion of charge z lends its

@@ -347,7 +347,7 @@ func (e *evaluator) evaluate(name string) (ModelResult, error) {
 		u, err = e.bornModel(&m.Inputs, true, true)
 	case ModelExtended:
 		m.Title = "extended ionic model: Ewald Coulomb, Born–Mayer–Huggins repulsion, C/r⁶ and D/r⁸ dispersion, zero-point energy"
-		m.Citation = "M. L. Huggins and J. E. Mayer, J. Chem. Phys. 1, 643 (1933); J. E. Mayer, J. Chem. Phys. 1, 270 (1933); F. G. Fumi and M. P. Tosi, J. Phys. Chem. Solids 25, 31 (1964)"
+		m.Citation = "M. L. Huggins and J. E. Mayer, J. Chem. Phys. 1, 643 (1933); J. E. Mayer, J. Chem. Phys. 1, 270 (1933); F. G. Fumi and M. P. Tosi, J. Phys. Chem. Solids 25, 31 (1964); J. C. Slater and J. G. Kirkwood, Phys. Rev. 37, 682 (1931); J. R. Tessman, A. H. Kahn and W. Shockley, Phys. Rev. 92, 890 (1953)"
 		u, err = e.extended(&m.Inputs)
 	case ModelKapustinskii:
 		m.Title = "Kapustinskii (1956)"

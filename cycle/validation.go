@@ -315,6 +315,12 @@ func (v *Validation) referenceWhyOf(best, family string, own bool) string {
 // Validate evaluates every model for every compound of db whose cycle
 // closes, in the default conventions, with memo for the Ewald sums.
 func Validate(db *data.DB, memo *Memo) *Validation {
+	return ValidateWithDispersion(db, memo, DispersionInCrystal)
+}
+
+// ValidateWithDispersion is Validate with the extended model's dispersion
+// set d (the built-in calibration is Validate's, the default set's).
+func ValidateWithDispersion(db *data.DB, memo *Memo, d DispersionSet) *Validation {
 	v := &Validation{}
 	families := ValidationFamilies()
 	type acc struct {
@@ -338,6 +344,7 @@ func Validate(db *data.DB, memo *Memo) *Validation {
 			continue
 		}
 		c.db = nil // the verdicts of this inner solve need no validation
+		c.Settings.Dispersion = d
 		r, err := Solve(c)
 		if err != nil {
 			v.NotClosed = append(v.NotClosed, NotEvaluated{comp.Formula, err.Error()})

@@ -41,6 +41,8 @@ type DB struct {
 
 	species *speciesTable // "CO2(g)" → species, read on first use
 
+	heatCaps *heatCapacityTable // NASA Glenn polynomials, read on first use (heatcap.go)
+
 	overlays []string
 	problems []string
 
@@ -65,6 +67,7 @@ func newDB() *DB {
 		compoundIdx: map[string]int{},
 		solutions:   &solutionTable{m: map[string]Value{}},
 		species:     &speciesTable{m: map[string]Species{}},
+		heatCaps:    &heatCapacityTable{},
 	}
 }
 
@@ -142,6 +145,7 @@ func (db *DB) clone() *DB {
 		compoundIdx: maps.Clone(db.compoundIdx),
 		solutions:   &solutionTable{},
 		species:     &speciesTable{},
+		heatCaps:    db.heatCaps, // read-only: shared
 		derived:     maps.Clone(db.derived),
 		overlays:    slices.Clone(db.overlays),
 		problems:    slices.Clone(db.problems),

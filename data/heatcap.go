@@ -51,11 +51,22 @@ type heatCapacityRow struct {
 	text string
 }
 
-var heatCapacityOnce = sync.OnceValues(loadHeatCapacities)
+// heatCapacityTable is the DB's heat-capacity table, read from the
+// embedded file on first use.
+type heatCapacityTable struct {
+	once  sync.Once
+	table *HeatCapacityTable
+	err   error
+}
 
 // HeatCapacities returns the heat-capacity table, read from the embedded
-// file once (the result is shared and never changed).
-func HeatCapacities() (*HeatCapacityTable, error) { return heatCapacityOnce() }
+// file on the first call (the result is shared by the DB's clones and never
+// changed).
+func (db *DB) HeatCapacities() (*HeatCapacityTable, error) {
+	h := db.heatCaps
+	h.once.Do(func() { h.table, h.err = loadHeatCapacities() })
+	return h.table, h.err
+}
 
 // Species returns the intervals of the species with this key, lowest
 // temperatures first; false when the source has none. An error names a row

@@ -13,7 +13,7 @@ import (
 // (NASA Glenn, data/sources/nasa-cea-thermo): the locator's line starts
 // with the interval's bounds as the source prints them.
 func TestHeatCapacitiesAtTheirLocators(t *testing.T) {
-	tb, err := HeatCapacities()
+	tb, err := mustLoad(t).HeatCapacities()
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -117,6 +117,12 @@ func TestValuesAtTheirLocators(t *testing.T) {
 			for _, x := range numbersIn(line) {
 				found = found || math.Abs(x-100*v.V) < 1e-6
 			}
+		case "cod-debian", "cod-ncrystal":
+			// A density computed from a deposited structure (the X-ray
+			// density Z·M/(N_A·V); data/gen's TestXrayDensity checks that
+			// computation against the densities the CIFs print): the
+			// locator is the structure's cell.
+			found = strings.HasSuffix(what, " density") && (strings.TrimSpace(line) == "@CELL" || strings.HasPrefix(line, "_cell_length_a"))
 		case "crc2014-inorganic":
 			for _, x := range numbersIn(line) {
 				found = found || math.Abs(x-1000*v.V) < 1e-6 // kg/m³ in the file

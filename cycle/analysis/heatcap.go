@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"strings"
 
-	"enthalpath/data"
 	"enthalpath/thermo/gibbs"
 	"enthalpath/thermo/notation"
 )
@@ -20,8 +19,8 @@ type HeatCapacity struct {
 
 // heatCapacity returns the polynomials of the species key ("CaCO3(cr)",
 // "CO2(g)") for moles of it per formula unit; nil when the table has none.
-func heatCapacity(key string, moles float64) *HeatCapacity {
-	t, err := data.HeatCapacities()
+func (a *Analyst) heatCapacity(key string, moles float64) *HeatCapacity {
+	t, err := a.db.HeatCapacities()
 	if err != nil {
 		return nil
 	}
@@ -53,7 +52,7 @@ func (a *Analyst) elementHeatCapacity(symbol string, atoms int) *HeatCapacity {
 	if n == 0 {
 		return nil
 	}
-	return heatCapacity(formula+"("+state+")", float64(atoms)/float64(n))
+	return a.heatCapacity(formula+"("+state+")", float64(atoms)/float64(n))
 }
 
 // attachHeatCapacities gives r's ΔrG(T) the heat capacities when every

@@ -5,14 +5,13 @@ import (
 	"strings"
 	"testing"
 
-	"enthalpath/data"
 	"enthalpath/thermo"
 	"enthalpath/thermo/gibbs"
 )
 
 func chainOf(t *testing.T, key string) gibbs.Chain {
 	t.Helper()
-	hc := heatCapacity(key, 1)
+	hc := testAnalyst(t).heatCapacity(key, 1)
 	if hc == nil {
 		t.Fatalf("no polynomials for %s", key)
 	}
@@ -24,7 +23,7 @@ func chainOf(t *testing.T, key string) gibbs.Chain {
 // first interval is ΔfH° by the source's convention (within 0.05 kJ/mol; the
 // solids' first interval starts at 300 K and is extrapolated 1.85 K).
 func TestHeatCapacityReproducesSourceEnthalpy(t *testing.T) {
-	tb, err := data.HeatCapacities()
+	tb, err := testAnalyst(t).db.HeatCapacities()
 	if err != nil {
 		t.Fatal(err)
 	}

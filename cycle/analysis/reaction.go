@@ -45,6 +45,10 @@ type Reaction struct {
 	NoCrossing string
 	// Estimated is true when a species' values are estimates.
 	Estimated bool
+	// Correlated is true when two or more estimates enter and their σ are
+	// combined with their shared data and correlated model errors
+	// (correlation.go) rather than as independent.
+	Correlated bool
 	// HeatCapacitySpecies names the species whose NASA Glenn polynomials
 	// ΔrG(T) includes (empty when the heat capacities are neglected);
 	// HeatCapacityMissing the species without polynomials, for which they
@@ -56,13 +60,16 @@ type Reaction struct {
 // temperature t (K) and pressure p (bar) of the gas given off.
 func newReaction(kind string, reactants, products []Term, t, p float64) Reaction {
 	r := Reaction{Kind: kind, Reactants: reactants, Products: products, Temperature: t, Pressure: p, EntropyKnown: true}
-	var h2, s2 float64
+	var s2 float64
+	coefs := make([]float64, 0, len(reactants)+len(products))
+	ths := make([]*Thermo, 0, len(reactants)+len(products))
 	add := func(terms []Term, sign float64) {
-		for _, tm := range terms {
+		for i := range terms {
+			tm := &terms[i]
 			c := sign * tm.Coefficient
-			th := tm.Thermo
+			th := &tm.Thermo
 			r.Standard.Enthalpy += c * th.Formation.Value
-			h2 += sq(c * th.Formation.Uncertainty)
+			coefs, ths = append(coefs, c), append(ths, th)
 			if th.Entropy.Known() {
 				r.Standard.Entropy += c * th.Entropy.Value
 				s2 += sq(c * th.Entropy.Uncertainty)
@@ -80,7 +87,8 @@ func newReaction(kind string, reactants, products []Term, t, p float64) Reaction
 	}
 	add(reactants, -1)
 	add(products, 1)
-	r.Standard.EnthalpyUncertainty, r.Standard.EntropyUncertainty = math.Sqrt(h2), math.Sqrt(s2)
+	r.Standard.EnthalpyUncertainty, r.Correlated = enthalpySigma(coefs, ths)
+	r.Standard.EntropyUncertainty = math.Sqrt(s2)
 	r.attachHeatCapacities()
 	r.Equation = side(reactants) + " -> " + side(products)
 	r.EnthalpyVerdict = gibbs.Judge(r.Standard.Enthalpy, r.Standard.EnthalpyUncertainty)

@@ -262,9 +262,31 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 	}
 	sc.Notes = append(sc.Notes,
 		fmt.Sprintf("a reaction is called favoured or disfavoured only when it lies more than %g σ from zero; otherwise it is undecided within the data", gibbs.Coverage),
-		"each compound uses its measured values where the data have them (ionic or molecular), else the ionic estimate (entropy from the volume-based line)",
-		"uncertainties of a reaction combine its compounds' σ as if independent (model errors of neighbouring states are in fact correlated)")
+		"each compound uses its measured values where the data have them (ionic or molecular), else the ionic estimate (entropy from the volume-based line)")
+	if sc.correlated() {
+		sc.Notes = append(sc.Notes, "σ of a reaction between estimates: a datum two estimates share counts once, the lattice model's family bias is one error for all of them, and its scatter about that bias is independent between oxidation states (different cations)")
+	} else {
+		sc.Notes = append(sc.Notes, "uncertainties of a reaction combine its compounds' σ as independent")
+	}
 	return sc, nil
+}
+
+// correlated reports whether some reaction of the scan combined the σ of
+// two or more estimates (correlation.go).
+func (sc *Scan) correlated() bool {
+	for _, d := range sc.Disproportionations {
+		if d.Energies.Correlated {
+			return true
+		}
+	}
+	for _, c := range sc.Compounds {
+		for _, r := range c.Releases {
+			if r.Correlated {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // formatKelvin writes a temperature without needless decimals.

@@ -3,6 +3,7 @@ package analysis
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strings"
 
 	"enthalpath/cycle"
@@ -117,7 +118,7 @@ func (a *Analyst) Stability(formula string, opt StabilityOptions) (*Stability, e
 		if m := strings.ToLower(strings.TrimSpace(opt.Estimate.Model)); m == "" || m == cycle.ModelAuto {
 			opt.Estimate.Model = ReactionModel
 		}
-		st.Notes = append(st.Notes, fmt.Sprintf("estimates alone: the compound and the solid it decomposes into are both estimated, their lattice steps from the %s model, so that the model's bias and the cation's data cancel in ΔrH; the gases keep their measured values", opt.Estimate.Model))
+		st.Notes = append(st.Notes, fmt.Sprintf("estimates alone: the compound and the solid it decomposes into are both estimated, their lattice steps from the %s model, so that the model's bias and the cation's data cancel in ΔrH and in its σ; the gases keep their measured values", opt.Estimate.Model))
 	}
 	c, err := a.cycleOf(formula, opt.Estimate.Charges)
 	if err != nil {
@@ -161,6 +162,9 @@ func (a *Analyst) Stability(formula string, opt StabilityOptions) (*Stability, e
 	}
 	if len(st.Reactions) == 0 {
 		st.Notes = append(st.Notes, "no decomposition or disproportionation of "+st.Formula+" is known to the program: it builds those of carbonates, peroxides, superoxides, sulfates, hydroxides, nitrates and of binary compounds between oxidation states")
+	}
+	if slices.ContainsFunc(st.Reactions, func(r Reaction) bool { return r.Correlated }) {
+		st.Notes = append(st.Notes, correlationNote())
 	}
 	st.Notes = append(st.Notes, heatCapacityNotes(st.Reactions)...)
 	st.Notes = append(st.Notes,
@@ -270,16 +274,78 @@ func (a *Analyst) stateReactions(st *Stability, c *cycle.Cycle, opt StabilityOpt
 			return
 		}
 	}
+	// Products: the metal and the compounds of the charges the data know
+	// for the element (its ions); a state beyond them (Mg⁴⁺ of MgCl₄) is no
+	// product a practitioner would weigh.
+	known := a.knownCharges(c.Cation.Ion.Core)
+	product := map[string]bool{sc.Metal: true}
+	var left []string
+	for _, cp := range sc.Compounds {
+		if known[cp.Charge] {
+			product[cp.Formula] = true
+		} else if cp.Charge != z {
+			left = append(left, cp.Formula)
+		}
+	}
 	for _, d := range sc.Disproportionations {
-		if d.From == z {
+		if d.From == z && productsAmong(d.Energies, product) {
 			st.Reactions = append(st.Reactions, d.Energies)
 		}
 	}
 	for _, cp := range sc.Compounds {
-		if cp.Charge == z {
-			st.Reactions = append(st.Reactions, cp.Releases...)
+		if cp.Charge != z {
+			continue
+		}
+		for _, r := range cp.Releases {
+			if productsAmong(r, product) {
+				st.Reactions = append(st.Reactions, r)
+			}
 		}
 	}
+	if len(left) > 0 {
+		st.Notes = append(st.Notes, fmt.Sprintf("products are %s and its compounds at the charges the data know for it (%s); %s, at charges the data do not know, are not taken as products",
+			sc.Metal, chargeList(known), strings.Join(left, ", ")))
+	}
+}
+
+// knownCharges returns the charges of the element's monatomic cations in
+// the data: the oxidation states its real compounds show.
+func (a *Analyst) knownCharges(el string) map[int]bool {
+	out := map[int]bool{}
+	for _, in := range a.db.IonsOf(el) {
+		if !in.Polyatomic && in.Charge > 0 {
+			out[in.Charge] = true
+		}
+	}
+	return out
+}
+
+// chargeList writes charges in increasing order ("+1, +2"; "none").
+func chargeList(ch map[int]bool) string {
+	var zs []int
+	for z := range ch {
+		zs = append(zs, z)
+	}
+	if len(zs) == 0 {
+		return "none"
+	}
+	slices.Sort(zs)
+	parts := make([]string, len(zs))
+	for i, z := range zs {
+		parts[i] = fmt.Sprintf("%+d", z)
+	}
+	return strings.Join(parts, ", ")
+}
+
+// productsAmong reports whether every solid product of r is among the
+// allowed formulas (gases given off are always allowed).
+func productsAmong(r Reaction, allowed map[string]bool) bool {
+	for _, p := range r.Products {
+		if !p.Released && p.Thermo.State != "g" && !allowed[p.Thermo.Formula] {
+			return false
+		}
+	}
+	return true
 }
 
 // compoundFormula writes M_m X_x with counts of 1 left out and a

@@ -94,6 +94,9 @@ type Thermo struct {
 	// HeatCapacity is the species' NASA Glenn polynomials (nil for an
 	// estimate and for a species the source does not give).
 	HeatCapacity *HeatCapacity
+	// Budget is how an estimated ΔfH° came by its σ (nil for a measured
+	// value): a reaction between estimates combines budgets (correlation.go).
+	Budget *ErrorBudget
 	// FormationHeatCapacity holds the polynomials of the formation
 	// reaction (the species +1, its elements' standard states −n), nil
 	// unless every one of them has polynomials: GibbsAt then includes them.
@@ -186,7 +189,7 @@ func (a *Analyst) knownThermo(formula string) (Thermo, bool) {
 		Formation:    measuredEnergy(st.Formation),
 		Entropy:      measured(st.Entropy),
 		Gibbs:        measuredEnergy(st.Gibbs),
-		HeatCapacity: heatCapacity(st.Formula+"("+st.State+")", 1)}
+		HeatCapacity: a.heatCapacity(st.Formula+"("+st.State+")", 1)}
 	if !t.Entropy.Known() && !t.Gibbs.Known() && !t.Molecular {
 		// A measured ΔfH° without S° or ΔfG° (BaO₂): S° from the
 		// volume-based line, said so in its basis.
@@ -212,7 +215,7 @@ func (a *Analyst) gasThermo(formula string) (Thermo, bool) {
 		Formation:    measuredEnergy(st.Formation),
 		Entropy:      measured(st.Entropy),
 		Gibbs:        measuredEnergy(st.Gibbs),
-		HeatCapacity: heatCapacity(st.Formula+"(g)", 1)}
+		HeatCapacity: a.heatCapacity(st.Formula+"(g)", 1)}
 	a.complete(&t)
 	return t, true
 }
@@ -235,7 +238,8 @@ func (a *Analyst) elementThermo(symbol string, atoms int) Thermo {
 // density, else from its ions' sphere volumes).
 func (a *Analyst) estimatedThermo(est *Estimate, c *cycle.Cycle) Thermo {
 	t := Thermo{Formula: est.Formula, State: "cr",
-		Formation: Quantity{Value: est.Value, Uncertainty: est.Uncertainty, Basis: "estimate (" + est.Model + " lattice step)"}}
+		Formation: Quantity{Value: est.Value, Uncertainty: est.Uncertainty, Basis: "estimate (" + est.Model + " lattice step)"},
+		Budget:    budgetOf(est, c)}
 	t.Volume = a.formulaVolume(est, c)
 	d := estimateDomain(est, t.Volume.Value, molarMassOf(c))
 	t.Entropy, t.EntropyDomain = volumeEntropy(t.Volume, d), &d

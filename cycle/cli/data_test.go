@@ -93,6 +93,10 @@ func TestDataText(t *testing.T) {
 		{[]string{"Ca 2+"}, []string{"Ca2+", "Shannon radii"}},
 		{[]string{"sodium"}, []string{"Na  sodium"}},
 		{[]string{"ClNa"}, []string{"NaCl", "Formation ΔfH°", "nbs1982"}},
+		// The density's line in its vendored source, and a cell read from a
+		// deposited structure with the file and line it stands on.
+		{[]string{"NaCl"}, []string{"Density  2.17", "  at crc-inorganic/physical_constants_inorganic.tsv:"}},
+		{[]string{"NiO"}, []string{"a = 4.1684", "[cod-debian]", "COD 9008693", "cod-debian/NiO-Bunsenite.cif:"}},
 		{[]string{"--kind", "element", "Co"}, []string{"Co  cobalt"}},
 		{[]string{"--list", "sources"}, []string{"shannon1976", "Acta Crystallogr."}},
 		{[]string{"--list", "ions", "--json"}, []string{`"Na+"`}},

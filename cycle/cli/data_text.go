@@ -319,6 +319,7 @@ func dataPrintCompound(w io.Writer, db *data.DB, c data.Compound, cite *dataCita
 	}
 	if c.Density.Known() {
 		fmt.Fprintf(w, "Density  %s\n", dataValueText(c.Density))
+		dataPrintAlternatives(w, c.Density, nil, cite)
 		cite.add(c.Density)
 	}
 	if c.HandbookLattice.Known() {

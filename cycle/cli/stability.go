@@ -280,6 +280,7 @@ type reactionJSON struct {
 	EnthalpyVerdict string      `json:"enthalpy_verdict"`
 	Verdict         string      `json:"verdict"`
 	Estimated       bool        `json:"uses_estimates"`
+	Correlated      bool        `json:"uncertainty_correlated"`
 	Released        string      `json:"gas_given_off,omitempty"`
 	CrossingK       *jsonNumber `json:"gibbs_zero_k,omitempty"`
 	CrossingUncK    *jsonNumber `json:"gibbs_zero_uncertainty_k,omitempty"`
@@ -293,7 +294,7 @@ func numPtr(v float64) *jsonNumber { n := jsonNum(v); return &n }
 
 func reactionJSONOf(r analysis.Reaction, curve []pointJSON) reactionJSON {
 	j := reactionJSON{Equation: r.Equation, Kind: r.Kind, EnthalpyKJ: jsonNum(r.Standard.Enthalpy), EnthalpyUncKJ: jsonNum(r.Standard.EnthalpyUncertainty),
-		EnthalpyVerdict: r.EnthalpyVerdict.String(), Verdict: r.Verdict.String(), Estimated: r.Estimated, Released: r.Released, NoCrossing: r.NoCrossing,
+		EnthalpyVerdict: r.EnthalpyVerdict.String(), Verdict: r.Verdict.String(), Estimated: r.Estimated, Correlated: r.Correlated, Released: r.Released, NoCrossing: r.NoCrossing,
 		HeatCapacity: r.HeatCapacityBasis(), Curve: curve}
 	if r.EntropyKnown {
 		j.EntropyJK, j.EntropyUncJK = numPtr(r.Standard.Entropy), numPtr(r.Standard.EntropyUncertainty)

@@ -160,10 +160,6 @@ func TestStabilityCalciteJSON(t *testing.T) {
 // text says its ionic estimate is not the real compound; scan Cs F never
 // calls 2 CsF₂ → CsF + CsF₃ (−317 ± 474 kJ/mol) favoured.
 func TestScanNamesKnownAndUndecided(t *testing.T) {
-	out, errs, code := runAnalysisCmd(t, "", "scan", "Ti", "Cl", "--json")
-	if code != ExitOK {
-		t.Fatalf("exit %d: %s", code, errs)
-	}
 	var ti struct {
 		Compounds []struct {
 			Formula  string `json:"formula"`
@@ -180,9 +176,7 @@ func TestScanNamesKnownAndUndecided(t *testing.T) {
 			} `json:"compared"`
 		} `json:"compounds"`
 	}
-	if err := json.Unmarshal([]byte(out), &ti); err != nil {
-		t.Fatal(err)
-	}
+	out := analysisJSON(t, &ti, "scan", "Ti", "Cl", "--json")
 	found := false
 	for _, c := range ti.Compounds {
 		if c.Formula == "TiCl4" {
@@ -200,10 +194,6 @@ func TestScanNamesKnownAndUndecided(t *testing.T) {
 	if !strings.Contains(text, "molecular liquid") || !strings.Contains(text, "not the real compound") {
 		t.Errorf("the text does not name TiCl4 a molecular liquid:\n%s", text)
 	}
-	out, errs, code = runAnalysisCmd(t, "", "scan", "Cs", "F", "--json")
-	if code != ExitOK {
-		t.Fatalf("exit %d: %s", code, errs)
-	}
 	var cs struct {
 		Disproportionations []struct {
 			Reaction string `json:"reaction"`
@@ -213,9 +203,7 @@ func TestScanNamesKnownAndUndecided(t *testing.T) {
 			} `json:"energies"`
 		} `json:"disproportionations"`
 	}
-	if err := json.Unmarshal([]byte(out), &cs); err != nil {
-		t.Fatal(err)
-	}
+	out = analysisJSON(t, &cs, "scan", "Cs", "F", "--json")
 	n := 0
 	for _, d := range cs.Disproportionations {
 		if d.Reaction == "2 CsF2 -> CsF + CsF3" {
@@ -255,4 +243,47 @@ func TestStabilityEntropyDomainJSON(t *testing.T) {
 	if d == nil || !d.Judged || d.Inside || !(d.Debye > 596.3) || !strings.Contains(d.Verdict, "OUTSIDE") {
 		t.Fatalf("MgO's estimate: domain %+v\n%s", d, out)
 	}
+}
+
+// stability MgO2 --estimate-only --json reads magnesium peroxide (a real
+// compound: Mg²⁺ with O₂²⁻, common knowledge) and its one decomposition
+// into MgO and O₂, marked as combining the estimates' σ by the correlation
+// rule (uncertainty_correlated); the keys of before are kept.
+func TestStabilityPeroxideEstimateJSON(t *testing.T) {
+	var j struct {
+		Reactions []struct {
+			Reaction   string   `json:"reaction"`
+			Enthalpy   float64  `json:"enthalpy_kj_per_mol"`
+			Sigma      float64  `json:"enthalpy_uncertainty_kj_per_mol"`
+			Estimated  bool     `json:"uses_estimates"`
+			Correlated *bool    `json:"uncertainty_correlated"`
+			Gibbs      *float64 `json:"gibbs_kj_per_mol"`
+		} `json:"reactions"`
+		Notes []string `json:"notes"`
+	}
+	out := analysisJSON(t, &j, "stability", "MgO2", "--estimate-only", "--json")
+	if len(j.Reactions) != 1 {
+		t.Fatalf("JSON %s", out)
+	}
+	r := j.Reactions[0]
+	if r.Reaction != "MgO2 -> MgO + ½ O2(g)" || !r.Estimated || r.Correlated == nil || !*r.Correlated || r.Gibbs == nil || !(r.Sigma > 0) {
+		t.Errorf("reaction %+v", r)
+	}
+	if !strings.Contains(strings.Join(j.Notes, "\n"), "correlated at 0.5 between salts of the same cation") {
+		t.Errorf("no note states the rule: %q", j.Notes)
+	}
+}
+
+// analysisJSON runs an analysis command that must succeed and reads its
+// JSON into v; it returns the output for messages.
+func analysisJSON(t *testing.T, v any, name string, args ...string) string {
+	t.Helper()
+	out, errs, code := runAnalysisCmd(t, "", name, args...)
+	if code != ExitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	if err := json.Unmarshal([]byte(out), v); err != nil {
+		t.Fatal(err)
+	}
+	return out
 }

@@ -240,7 +240,7 @@ func (g *generator) mergeKept(row, k map[string]string, formation bool) {
 		}
 		mem = append(mem, "formation")
 	}
-	sourced := g.addCRCDensity(row, k["formula"], row["name"])
+	sourced := g.addCRCDensity(row, k["formula"], row["name"]) || g.addXrayDensity(row, k)
 	cellSourced := g.addDepositedCell(row, k)
 	for _, kv := range keptValueFields {
 		if kv.memory == "density" && sourced || kv.memory == "params" && cellSourced {

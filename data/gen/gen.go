@@ -35,6 +35,7 @@ type generator struct {
 	atct    map[string]atctSpecies
 	crc     map[string]crcRow        // CRC physical constants by crcKey of the name
 	cells   map[string]depositedCell // deposited structures by composition key
+	weights map[string]float64       // CIAAW standard atomic weights by symbol (X-ray densities)
 	choices *choices
 
 	warnings []string
@@ -70,6 +71,9 @@ func newGenerator(sourcesDir, keptDir, tablesDir string) (*generator, error) {
 		return nil, err
 	}
 	if g.cells, err = readDepositedCells(sourcesDir); err != nil {
+		return nil, err
+	}
+	if g.weights, err = readAtomicWeights(sourcesDir); err != nil {
 		return nil, err
 	}
 	return g, nil

@@ -41,6 +41,9 @@ type Options struct {
 	// charged lets a cell with a net charge through to the sums; only
 	// SumCharged sets it, and adds the background term (background.go).
 	charged bool
+	// general, set only by the package's tests, keeps a small cell off
+	// the small-cell path (sumSmall) so the two can be compared.
+	general bool
 }
 
 // Result is the outcome of an Ewald sum.
@@ -130,6 +133,11 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 		return Result{}, fmt.Errorf("Ewald sum: forced splitting parameter α = %g: %w", opt.alpha, ErrBadOptions)
 	}
 	target := math.Max(eps, FinestAccuracy)
+	if !opt.general {
+		if res, ok := sumSmall(c, eps, target, opt.alpha); ok {
+			return res, nil
+		}
+	}
 
 	full := newSystem(c, true)
 	s := full
@@ -162,7 +170,7 @@ func Sum(c *crystal.Crystal, opt Options) (Result, error) {
 		// Relative truncation estimate of the cell actually summed (the
 		// primitive one carries 1/g of the energy).
 		trunc = s.truncationError(alpha, rc, kc) * float64(len(s.q)) / float64(len(full.q)) / math.Abs(parts.total())
-		res = full.result(parts, alpha, rc, kc, eps, math.Max(trunc, math.Exp(-p*p)))
+		res = newResult(c, parts, alpha, rc, kc, eps, math.Max(trunc, math.Exp(-p*p)))
 		if !(trunc > target) || attempt == 3 {
 			break
 		}
@@ -324,10 +332,16 @@ func (s *system) work(alpha, rc, kc float64) float64 {
 //
 // with Q = Σ qᵢ².
 func (s *system) truncationError(alpha, rc, kc float64) float64 {
+	return kolafaPerram(s.q2, s.volume, alpha, rc, kc)
+}
+
+// kolafaPerram is truncationError for Q = q2 and cell volume V.
+func kolafaPerram(q2, volume, alpha, rc, kc float64) float64 {
 	ar := alpha * rc
-	dr := s.q2 * math.Sqrt(rc/(2*s.volume)) * math.Exp(-ar*ar) / (ar * ar)
+	dr := q2 * math.Sqrt(rc/(2*volume)) * math.Exp(-ar*ar) / (ar * ar)
 	kk := kc / (2 * math.Pi)
-	dk := s.q2 * alpha / (math.Pi * math.Pi) * math.Pow(kk, -1.5) / math.Sqrt(s.volume) * math.Exp(-math.Pow(math.Pi*kk/alpha, 2))
+	x := math.Pi * kk / alpha
+	dk := q2 * alpha / (math.Pi * math.Pi) / (kk * math.Sqrt(kk*volume)) * math.Exp(-x*x)
 	return dr + dk
 }
 
@@ -394,11 +408,10 @@ func (s *system) evaluate(alpha, rc, kc float64) partialSums {
 	return ps
 }
 
-// result converts the partial sums of s into a Result; truncation is the
-// relative truncation error estimated for them.
-func (s *system) result(ps partialSums, alpha, rc, kc, eps, truncation float64) Result {
+// newResult converts the partial sums of crystal c into a Result;
+// truncation is the relative truncation error estimated for them.
+func newResult(c *crystal.Crystal, ps partialSums, alpha, rc, kc, eps, truncation float64) Result {
 	ke := thermo.CoulombEVAngstrom
-	c := s.c
 	r := Result{
 		EnergyEV:       ke * ps.total(),
 		SitePotentials: make([]float64, len(ps.phi)),
@@ -421,10 +434,10 @@ func (s *system) result(ps partialSums, alpha, rc, kc, eps, truncation float64) 
 		d, i, j = c.NearestCationAnion()
 	}
 	r.NearestDistance, r.NearestPair = d, [2]int{i, j}
-	zz := s.q[i] * -s.q[j]
+	zz := c.Sites[i].Charge * -c.Sites[j].Charge
 	r.MadelungConstant = -r.EnergyPerFormulaUnitEV * d / (zz * ke)
 	total := math.Abs(ps.total())
-	terms := float64(ps.realTerms + ps.recipTerms*len(s.q) + len(s.q))
+	terms := float64(ps.realTerms + ps.recipTerms*len(ps.phi) + len(ps.phi))
 	rounding := 4 * 0x1p-53 * math.Sqrt(terms) * ps.magnitude / total
 	r.EstimatedError = truncation + rounding
 	return r

@@ -18,40 +18,11 @@ func (s *system) primitive() (*system, bool) {
 	if s.g < 2 || len(s.generators) == 0 {
 		return nil, false
 	}
-	// Common denominator D of the generators' fractional coordinates: the
-	// order of any translation divides g.
-	den := int64(1)
-	for _, t := range s.generators {
-		d, ok := denominator(t, int64(s.g))
-		if !ok {
-			return nil, false
-		}
-		den = den / notation.GCD(den, d) * d
-	}
-	cols := make([][3]int64, 3, 3+len(s.generators))
-	cols[0], cols[1], cols[2] = [3]int64{den, 0, 0}, [3]int64{0, den, 0}, [3]int64{0, 0, den}
-	for _, t := range s.generators {
-		var c [3]int64
-		for k := range t {
-			c[k] = int64(math.Round(t[k] * float64(den)))
-		}
-		cols = append(cols, c)
-	}
-	basis, ok := hermiteBasis(cols)
+	lat, ok := primitiveLattice(s.lat, s.generators, s.g, s.volume)
 	if !ok {
 		return nil, false
 	}
-	var lat [3]crystal.Vec3
-	for i := 0; i < 3; i++ {
-		for k := 0; k < 3; k++ {
-			lat[i] = lat[i].Add(s.lat[k].Scale(float64(basis[i][k]) / float64(den)))
-		}
-	}
-	lat = crystal.ReduceBasis(lat)
 	prim := &crystal.Crystal{Name: s.c.Name + " (primitive)", Lattice: lat, FormulaUnits: 1, Sites: make([]crystal.Site, 0, len(s.reps))}
-	if v := prim.Volume(); math.Abs(v*float64(s.g)-s.volume) > 1e-9*s.volume {
-		return nil, false
-	}
 	for _, r := range s.reps {
 		site := s.c.Sites[r]
 		site.Frac = prim.Fractional(s.pos[r])
@@ -60,6 +31,51 @@ func (s *system) primitive() (*system, bool) {
 	p := newSystem(prim, false)
 	p.origin = s.reps
 	return p, true
+}
+
+// primitiveLattice returns a reduced basis of the lattice spanned by the
+// vectors of lat and the translations generators (fractional coordinates
+// in lat), of which there are g in all (the identity included). It
+// reports false when the basis cannot be found reliably: a generator
+// without a denominator up to g, or a cell whose volume is not volume/g.
+func primitiveLattice(lat [3]crystal.Vec3, generators []crystal.Vec3, g int, volume float64) ([3]crystal.Vec3, bool) {
+	// Common denominator D of the generators' fractional coordinates: the
+	// order of any translation divides g.
+	den := int64(1)
+	for _, t := range generators {
+		d, ok := denominator(t, int64(g))
+		if !ok {
+			return lat, false
+		}
+		den = den / notation.GCD(den, d) * d
+	}
+	// Room for the generators of any group a cell can hold (each at least
+	// doubles the group) without an allocation.
+	var room [3 + 24][3]int64
+	cols := room[:3]
+	cols[0], cols[1], cols[2] = [3]int64{den, 0, 0}, [3]int64{0, den, 0}, [3]int64{0, 0, den}
+	for _, t := range generators {
+		var c [3]int64
+		for k := range t {
+			c[k] = int64(math.Round(t[k] * float64(den)))
+		}
+		cols = append(cols, c)
+	}
+	basis, ok := hermiteBasis(cols)
+	if !ok {
+		return lat, false
+	}
+	var prim [3]crystal.Vec3
+	for i := 0; i < 3; i++ {
+		for k := 0; k < 3; k++ {
+			prim[i] = prim[i].Add(lat[k].Scale(float64(basis[i][k]) / float64(den)))
+		}
+	}
+	prim = crystal.ReduceBasis(prim)
+	if v := math.Abs(prim[0].Dot(prim[1].Cross(prim[2]))); math.Abs(v*float64(g)-volume) > 1e-9*volume {
+		return lat, false
+	}
+	return prim, true
 }
 
 // denominator returns the smallest d ≤ limit with d·t integral.

@@ -85,7 +85,8 @@
 // summed over the pairs of the real structure (thermo/crystal.PairSums) with
 // every distance scaled from its shape, minimised in d; the repulsion
 // tabulated (B_ij = c_ij·b·exp((σ_i+σ_j)/ρ), Pauling's factors c_ij) or
-// fitted so the free energy at 298.15 K of the quasi-harmonic Debye solid
+// fitted (one factor on the tabulated B_ij, or one B on the cation–anion
+// pairs) so the free energy at 298.15 K of the quasi-harmonic Debye solid
 // is least at a reference distance measured at that temperature; C by
 // Slater–Kirkwood (J. C. Slater and J. G. Kirkwood, Phys. Rev. 37, 682
 // (1931)) where no table gives it; E_zp = (9/8)·ν·R·θ_D with θ_D given or
