@@ -84,14 +84,17 @@ func BenchmarkScaling(b *testing.B) {
 }
 
 // BenchmarkTermCost is the calibration of the splitting parameter (see
-// balancedAlpha): it times the two sums of Sum separately at the α Sum
-// chooses and 1e-10, on a 2-ion cell (caesium chloride) and on displaced
-// rock-salt supercells, and reports the cost of one real-space term
-// (ns/real-term: one ordered pair-image within the cut-off, the pair loop
-// and image search included) and of the reciprocal sum per k-vector
-// (ns/k-vector) and per k-vector and site (ns/recip-site-term). The
-// reciprocal cost is c₀ + c₁·N per k-vector: c₁ from the large cells, c₀
-// from the 2-ion one.
+// realToRecipCost): it times the two sums of Sum separately at the α Sum
+// chooses at 1e-10, on a 2-ion cell (caesium chloride) and on displaced
+// rock-salt supercells of 216, 1,000 and 4,096 ions, and reports the cost of
+// one real-space term (ns/real-term: one ordered pair-image within the
+// cut-off, with its share of the distance checks, the kernel and the
+// potentials) and of the reciprocal sum per k-vector (ns/k-vector) and per
+// k-vector and site (ns/recip-site-term). The reciprocal cost is c₀ + c₁·N
+// per k-vector: c₁ from the large cells, c₀ from the 2-ion one. The name
+// says which real-space path ran: one image per pair (min-image), the
+// sorted list of translations (listed) or the image box of each pair
+// (searched).
 func BenchmarkTermCost(b *testing.B) {
 	cells := []*crystal.Crystal{}
 	cs, err := crystal.Build("caesium-chloride", nil)
@@ -99,16 +102,23 @@ func BenchmarkTermCost(b *testing.B) {
 		b.Fatal(err)
 	}
 	cells = append(cells, cs)
-	for _, n := range []int{3, 5} {
+	for _, n := range []int{3, 5, 8} {
 		cells = append(cells, rockSaltSupercell(b, n, 0.02))
 	}
 	for _, c := range cells {
 		s := newSystem(c, false)
-		alpha := s.balancedAlpha()
 		p := math.Sqrt(-math.Log(DefaultAccuracy / 2))
+		alpha := s.chooseAlpha(p)
 		rc, kc := p/alpha, 2*alpha*p
+		path := "listed"
+		switch {
+		case s.oneImage(rc):
+			path = "min-image"
+		case len(s.q) < listedImages:
+			path = "searched"
+		}
 		phi := make([]float64, len(s.q))
-		b.Run(fmt.Sprintf("real/N=%d", len(s.q)), func(b *testing.B) {
+		b.Run(fmt.Sprintf("real/N=%d/%s", len(s.q), path), func(b *testing.B) {
 			terms := 0
 			for i := 0; i < b.N; i++ {
 				terms, _, _, _ = s.realSpace(alpha, rc, phi)
