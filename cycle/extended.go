@@ -169,12 +169,23 @@ func (m *Memo) pairSums(st Structure, cation, anion Part) (structureSums, error)
 	if ok {
 		return e.v, e.err
 	}
+	fkey := failureKey(key, cation, anion) // a failure may name the ions
+	m.mu.Lock()
+	e, ok = m.sums[fkey]
+	m.mu.Unlock()
+	if ok {
+		return e.v, e.err
+	}
 	v, err := computePairSums(st, cation, anion)
 	m.mu.Lock()
 	if m.sums == nil || len(m.sums) >= maxMemo {
 		m.sums = map[string]sumsEntry{}
 	}
-	m.sums[key] = sumsEntry{v, err}
+	if err == nil {
+		m.sums[key] = sumsEntry{v, nil}
+	} else {
+		m.sums[fkey] = sumsEntry{v, err}
+	}
 	m.mu.Unlock()
 	return v, err
 }

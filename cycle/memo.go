@@ -87,14 +87,35 @@ func (m *Memo) Madelung(st Structure, cation, anion Part, accuracy float64) (Mad
 	if ok {
 		return e.v, e.err
 	}
+	fkey := failureKey(key, cation, anion)
+	m.mu.Lock()
+	e, ok = m.m[fkey]
+	m.mu.Unlock()
+	if ok {
+		return e.v, e.err
+	}
 	v, err := m.sumByShape(st, cation, anion, accuracy)
 	m.mu.Lock()
 	if len(m.m) >= maxMemo {
 		clear(m.m)
 	}
-	m.m[key] = memoEntry{v, err}
+	if err == nil {
+		m.m[key] = memoEntry{v, nil}
+	} else {
+		m.m[fkey] = memoEntry{v, err}
+	}
 	m.mu.Unlock()
 	return v, err
+}
+
+// failureKey is where a sum that failed is remembered: under the sum's key
+// and the ions' symbols, since its error may name the ions (a prototype
+// that does not fit them) while the sum's key holds only their charges. A
+// failure remembered under the sum's key alone would be worded with the
+// ions of whichever compound met it first: with the batch's workers, not
+// the same compound from one run to the next.
+func failureKey(key string, cation, anion Part) string {
+	return key + "\x00" + cation.Ion.Symbol + "\x00" + anion.Ion.Symbol
 }
 
 // Remembered returns the sum Madelung would return if it has been

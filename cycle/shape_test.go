@@ -2,6 +2,7 @@ package cycle
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"enthalpath/data"
@@ -156,5 +157,25 @@ func TestShapeSumsOrderFree(t *testing.T) {
 	// (Johnson and Templeton, J. Chem. Phys. 34, 2004 (1961); from memory).
 	if math.Abs(after.A-1.747565) > 1e-6 {
 		t.Errorf("rock salt A = %.8f, want 1.747565", after.A)
+	}
+}
+
+// TestMemoFailureNamesItsIons: a structure that does not fit the ions
+// fails with the ions of the compound asked, not those of an earlier
+// compound of the same charges (the memo keys sums by charges; batch
+// output may not depend on which worker met a row first).
+func TestMemoFailureNamesItsIons(t *testing.T) {
+	ion := func(core, sym string, q int) Part { return Part{Ion: data.Ion{Symbol: sym, Core: core, Charge: q}, Count: 1} }
+	rutile := Structure{Prototype: "rutile"} // M⁴⁺X²⁻₂: no home for a 2+/2− pair
+	m := NewMemo()
+	for _, ions := range [][2]Part{{ion("Sr", "Sr2+", 2), ion("S", "S2-", -2)}, {ion("Be", "Be2+", 2), ion("O", "O2-", -2)}} {
+		_, err := m.Madelung(rutile, ions[0], ions[1], 0)
+		if err == nil || !strings.Contains(err.Error(), ions[0].Ion.Symbol+" and "+ions[1].Ion.Symbol) {
+			t.Errorf("Madelung with %s, %s: %v", ions[0].Ion.Symbol, ions[1].Ion.Symbol, err)
+		}
+		_, err = m.pairSums(rutile, ions[0], ions[1])
+		if err == nil || !strings.Contains(err.Error(), ions[0].Ion.Symbol+" and "+ions[1].Ion.Symbol) {
+			t.Errorf("pair sums with %s, %s: %v", ions[0].Ion.Symbol, ions[1].Ion.Symbol, err)
+		}
 	}
 }

@@ -14,6 +14,7 @@ import (
 	"strconv"
 	"strings"
 	"sync"
+	"unicode"
 
 	"enthalpath/cycle"
 )
@@ -307,7 +308,26 @@ func num(v float64) *float64 {
 	return &r
 }
 
-func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
+// oneLine joins s's words with single spaces (strings.Fields, then Join).
+// Most messages are one line already: those are returned as they are,
+// without the copy (a failed row's message is worded anew per row).
+func oneLine(s string) string {
+	space := true // a leading space is not kept
+	for _, r := range s {
+		if unicode.IsSpace(r) {
+			if r != ' ' || space {
+				return strings.Join(strings.Fields(s), " ")
+			}
+			space = true
+		} else {
+			space = false
+		}
+	}
+	if space && s != "" { // a trailing space
+		return strings.Join(strings.Fields(s), " ")
+	}
+	return s
+}
 
 // Batch reads rows from r and writes one result per row to w as it goes
 // (CSV, or a JSON array). A row that cannot be estimated, or has a cell

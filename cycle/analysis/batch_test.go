@@ -368,3 +368,49 @@ func TestLineLimiter(t *testing.T) {
 		}
 	}
 }
+
+// TestOneLine: oneLine is strings.Join(strings.Fields(s), " ") (the Go
+// standard library as the reference), on messages already one line and on
+// every kind of space it must fold.
+func TestOneLine(t *testing.T) {
+	for _, s := range []string{"", " ", "a", "a b", " a", "a ", "a  b", "a\nb", "a\tb", "a\u00a0b", "a\u2003b", "a\u0085b",
+		"lattice step ZnS: the volume model cannot give it", "x\xffy z", "\xff ", "ΔH ≈ 3 kJ/mol", "a\r\n  b\v\fc"} {
+		if got, want := oneLine(s), strings.Join(strings.Fields(s), " "); got != want {
+			t.Errorf("oneLine(%q) = %q, want %q", s, got, want)
+		}
+	}
+}
+
+func FuzzOneLine(f *testing.F) {
+	for _, s := range []string{"a b", "a  b", " a\n", "a\u00a0b"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		if got, want := oneLine(s), strings.Join(strings.Fields(s), " "); got != want {
+			t.Errorf("oneLine(%q) = %q, want %q", s, got, want)
+		}
+	})
+}
+
+// TestBatchDistinctAnyWorkers: on rows that do not repeat (the distinct
+// demo input, 20,000 rows, half of them failing in ways that name their
+// ions), the output is the same bytes on one worker and on four.
+func TestBatchDistinctAnyWorkers(t *testing.T) {
+	a := testAnalyst(t)
+	in := distinctBatchInput(a.DB(), 20000)
+	var outs [2]bytes.Buffer
+	for i, workers := range []int{1, 4} {
+		if _, err := New(a.DB()).Batch(bytes.NewReader(in), &outs[i], BatchOptions{Workers: workers}); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if !bytes.Equal(outs[0].Bytes(), outs[1].Bytes()) {
+		a, b := strings.Split(outs[0].String(), "\n"), strings.Split(outs[1].String(), "\n")
+		for i := range min(len(a), len(b)) {
+			if a[i] != b[i] {
+				t.Fatalf("line %d differs:\n1 worker:  %s\n4 workers: %s", i+1, a[i], b[i])
+			}
+		}
+		t.Fatalf("outputs of %d and %d lines", len(a), len(b))
+	}
+}
