@@ -165,7 +165,9 @@ func TestShapeSumsOrderFree(t *testing.T) {
 // compound of the same charges (the memo keys sums by charges; batch
 // output may not depend on which worker met a row first).
 func TestMemoFailureNamesItsIons(t *testing.T) {
-	ion := func(core, sym string, q int) Part { return Part{Ion: data.Ion{Symbol: sym, Core: core, Charge: q}, Count: 1} }
+	ion := func(core, sym string, q int) Part {
+		return Part{Ion: data.Ion{Symbol: sym, Core: core, Charge: q}, Count: 1}
+	}
 	rutile := Structure{Prototype: "rutile"} // M⁴⁺X²⁻₂: no home for a 2+/2− pair
 	m := NewMemo()
 	for _, ions := range [][2]Part{{ion("Sr", "Sr2+", 2), ion("S", "S2-", -2)}, {ion("Be", "Be2+", 2), ion("O", "O2-", -2)}} {
