@@ -46,13 +46,63 @@ func benchSum(b *testing.B, c *crystal.Crystal, opt Options) {
 }
 
 // BenchmarkRockSalt: conventional 8-ion cell at the default accuracy 1e-10
-// (target ≤ 50 µs per evaluation).
+// on the small path (target ≤ 5 µs per evaluation).
 func BenchmarkRockSalt(b *testing.B) {
 	c, err := crystal.Build("rock-salt", nil)
 	if err != nil {
 		b.Fatal(err)
 	}
 	benchSum(b, c, Options{})
+}
+
+// BenchmarkRockSaltGeneral: the same cell kept on the general path, for the
+// ratio of the two paths measured in one run.
+func BenchmarkRockSaltGeneral(b *testing.B) {
+	c, err := crystal.Build("rock-salt", nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	benchSum(b, c, Options{general: true})
+}
+
+// BenchmarkSmallTermCost is the calibration of smallAlpha: on the primitive
+// cells of rock salt, fluorite, wurtzite and perovskite (2, 3, 4 and 5
+// sites) at the α the small path chooses and 1e-10, it times the two sums
+// of the small path separately and reports the cost of one real-space term
+// as Result.RealTerms counts them (ns/real-term) and of one k-vector of the
+// half space (ns/k-vector). Under valgrind --tool=cachegrind with a fixed
+// -test.benchtime the same runs give instructions per term.
+func BenchmarkSmallTermCost(b *testing.B) {
+	for _, name := range []string{"rock-salt", "fluorite", "wurtzite", "perovskite"} {
+		c, err := crystal.Build(name, nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		full := newSystem(c, true)
+		s := full
+		if prim, ok := full.primitive(); ok {
+			s = prim
+		}
+		n := len(s.q)
+		alpha := smallAlpha(n, s.volume)
+		p := math.Sqrt(-math.Log(DefaultAccuracy / 2))
+		rc, kc := p/alpha, 2*alpha*p
+		phi := make([]float64, n)
+		b.Run(fmt.Sprintf("%s/real/N=%d", name, n), func(b *testing.B) {
+			terms := 0
+			for i := 0; i < b.N; i++ {
+				terms, _, _, _ = s.realSmall(alpha, rc, phi)
+			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(terms), "ns/real-term")
+		})
+		b.Run(fmt.Sprintf("%s/recip/N=%d", name, n), func(b *testing.B) {
+			vectors := 0
+			for i := 0; i < b.N; i++ {
+				vectors, _ = s.reciprocalPairs(alpha, kc, phi)
+			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(vectors), "ns/k-vector")
+		})
+	}
 }
 
 // BenchmarkPrototypes: every built-in prototype at 1e-10.

@@ -67,12 +67,25 @@
 // supercell) is summed on its primitive cell, found from those
 // translations, and the result scaled back. Large cells are summed on
 // several goroutines in a fixed number of chunks reduced in a fixed order,
-// so results do not depend on the number of processors. A cell of at most
-// smallSites (8) sites after that reduction, whose reciprocal indices stay
-// within smallOrder (8), has its reciprocal sum on fixed-size stack arrays
-// with no allocation and the row sums taken from the reciprocal metric
-// (reciprocalSmall, smallcell.go); it agrees with the general sum to 1e-12
-// (TestReciprocalSmallEqualsGeneral).
+// so results do not depend on the number of processors.
+//
+// A cell of at most smallFull (16) sites whose primitive cell has at most
+// smallSites (5) takes the small path (sumSmall, smallsum.go) from the
+// translation search to the result on fixed-size arrays, with one
+// allocation (the returned potentials): the translations are found as
+// permutations of the sites (bit sets for the orbits, no group table), the
+// primitive basis is three translations spanning 1/g of the volume, the
+// real-space sum walks each pair's sphere of images row by row from the
+// metric (smallreal.go; a pair half a lattice vector apart, and a site with
+// its own images, on half the sphere), and the reciprocal sum works on
+// pairs, Σₖ wₖ·cos(k·dᵢⱼ), with the Gaussian factors and phases by
+// recurrence (reciprocalPairs, smallcell.go). A cell of up to 8 sites on
+// the general path has its reciprocal sum on stack arrays by structure
+// factors (reciprocalSmall). Its splitting parameter
+// balances the two sums with the small path's own costs (smallAlpha). It
+// agrees with the general path to 1e-10 (TestSmallPathEqualsGeneral) and
+// leaves to it every cell outside its arrays, two sites at one position
+// and a first attempt that misses the accuracy.
 //
 // The pair loop visits all N²/2 pairs (there are no cell lists): up to
 // about 10⁴ ions the balanced real-space cut-off is close to half the cell,
@@ -91,8 +104,7 @@
 // plane spacings (chooseAlpha). The translation search that finds the primitive cell
 // scans the sites of a small cell and bisects a sorted list in a large
 // one; no hash map is built. Set-up and the real-space sum allocate a few
-// slices per call (23 allocations for the 8-ion rock salt; see
-// BenchmarkRockSalt).
+// slices per call on the general path.
 //
 // PairPotentials gives the Ewald interaction Φᵢⱼ of unit charges on chosen
 // sites with every site, the bilinear form of the same sum, for searches

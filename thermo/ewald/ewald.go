@@ -226,7 +226,9 @@ func newSystem(c *crystal.Crystal, detect bool) *system {
 	s.frac, s.pos = vecs[:n:n], vecs[n:]
 	s.q = make([]float64, n)
 	for i, site := range c.Sites {
-		r := c.Cartesian(site.Frac)
+		// Wrapped first: a coordinate far outside [0, 1) on long lattice
+		// vectors would otherwise lose digits in the Cartesian position.
+		r := c.Cartesian(wrapFrac(site.Frac))
 		f := crystal.Vec3{s.recip[0].Dot(r), s.recip[1].Dot(r), s.recip[2].Dot(r)}
 		for k := range f {
 			f[k] -= math.Floor(f[k])
