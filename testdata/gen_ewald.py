@@ -6,7 +6,8 @@ Debian's python3-pymatgen (pymatgen.analysis.ewald.EwaldSummation).
 The prototype structures are built here independently of the Go code, from
 their space groups and Wyckoff positions with pymatgen's
 Structure.from_spacegroup, with the same parameters as the Go defaults (and
-a few variants). The Go test checks that it builds the same lattice and the
+a few variants); "displaced" holds a 216-ion rock-salt supercell whose ions
+are moved at random (seeded), read by the Go test from its sites. The Go test checks that it builds the same lattice and the
 same set of sites (up to a global translation) and that its energies match.
 
 Run with /usr/bin/python3 from any directory; output is deterministic
@@ -17,6 +18,7 @@ import glob
 import json
 import math
 import os
+import random
 import re
 import subprocess
 import warnings
@@ -198,6 +200,22 @@ def main():
             rec2.update(ewald(big))
             records.append(rec2)
 
+    # A displaced supercell (no internal translation left): the general path
+    # of the Go sum, which the Go test takes with one image per pair and with
+    # several by forcing the splitting parameter.
+    displaced = []
+    rock = [r for r in prototypes() if r["key"] == "rock-salt"][0]
+    big = Structure.from_spacegroup(rock["group"], rock["lattice"], rock["species"], rock["coords"])
+    big.make_supercell([3, 3, 3])
+    rng = random.Random(19)
+    for i in range(len(big)):
+        big.translate_sites([i], [rng.uniform(-0.0125, 0.0125) for _ in range(3)], frac_coords=True)
+    rec = {"key": "rock-salt-3x3x3-displaced", "prototype": rock["name"], "params": rock["params"],
+           "ions": rock["ions"], "supercell": [3, 3, 3]}
+    rec.update(describe(big))
+    rec.update(ewald(big))
+    displaced.append(rec)
+
     cifs = []
     for path in sorted(glob.glob(os.path.join(HERE, "cif", "*.cif"))):
         rel = os.path.relpath(path, HERE)
@@ -229,6 +247,7 @@ def main():
         "note": "EwaldSummation with acc_factor as given; structures from Structure.from_spacegroup; "
                 "site potentials are 2*site_energy/charge",
         "prototypes": records,
+        "displaced": displaced,
         "cif": cifs,
     }
     with open(OUT, "w") as f:

@@ -262,8 +262,9 @@ type BatchOptions struct {
 	// Dir is the folder a relative CIF path in the structure column is
 	// read from (the batch file's); "" is the working directory.
 	Dir string
-	// memoRows bounds the rows remembered by the reader and by each
-	// worker (0: rowMemoSize); tests set it small to cross the bound.
+	// memoRows bounds the rows remembered by the reader and by the
+	// workers together (0: rowMemoSize); tests set it small to cross the
+	// bound.
 	memoRows int
 }
 
@@ -314,7 +315,9 @@ func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
 // error in the error column and the batch goes on; only a file that cannot
 // be read as the table its header declares (malformed CSV, a row with the
 // wrong number of columns, an over-long line) stops the batch, with a
-// *CSVError naming its line.
+// *CSVError naming its line. Rows are estimated on opt.Workers cores and
+// written in input order; rows with the same cells are estimated once
+// (see seenRows), so the output is the same whatever the workers.
 func (a *Analyst) Batch(r io.Reader, w io.Writer, opt BatchOptions) (BatchSummary, error) {
 	var sum BatchSummary
 	br, err := NewBatchReader(r)

@@ -1,6 +1,7 @@
 package analysis
 
 import (
+	"bufio"
 	"bytes"
 	"encoding/csv"
 	"encoding/json"
@@ -10,6 +11,7 @@ import (
 	"reflect"
 	"strings"
 	"testing"
+	"testing/iotest"
 )
 
 func TestBatchCSV(t *testing.T) {
@@ -327,6 +329,41 @@ func TestBatchRepeatsAsIfFresh(t *testing.T) {
 						}
 					}
 				}
+			}
+		}
+	}
+}
+
+// TestLineLimiter: a line of MaxBatchLine bytes passes and one byte more
+// stops the reading at that byte, naming its line, whether the bytes come
+// in one read or one at a time (the limit's definition, no outside
+// source).
+func TestLineLimiter(t *testing.T) {
+	long := strings.Repeat("x", MaxBatchLine)
+	cases := []struct {
+		name, in string
+		line     int // 0: no error
+	}{
+		{"at the limit", "a\n" + long + "\nb\n", 0},
+		{"at the limit, no final newline", long, 0},
+		{"one over on line 2", "a\n" + long + "y\nb\n", 2},
+		{"one over on line 3", "a\n\n" + long + "yz", 3},
+	}
+	for _, tc := range cases {
+		for _, slow := range []bool{false, true} {
+			var src io.Reader = strings.NewReader(tc.in)
+			if slow {
+				src = iotest.OneByteReader(src)
+			}
+			got, err := io.ReadAll(&lineLimiter{r: bufio.NewReader(src)})
+			var ll *lineTooLong
+			switch {
+			case tc.line == 0 && (err != nil || string(got) != tc.in):
+				t.Errorf("%s (one byte at a time %v): %d of %d bytes, %v", tc.name, slow, len(got), len(tc.in), err)
+			case tc.line != 0 && (!errors.As(err, &ll) || ll.line != tc.line):
+				t.Errorf("%s (one byte at a time %v): %v, want line %d too long", tc.name, slow, err, tc.line)
+			case tc.line != 0 && len(got) != strings.Index(tc.in, long)+MaxBatchLine:
+				t.Errorf("%s (one byte at a time %v): %d bytes passed, want %d (up to the byte over)", tc.name, slow, len(got), strings.Index(tc.in, long)+MaxBatchLine)
 			}
 		}
 	}

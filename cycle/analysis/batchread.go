@@ -4,6 +4,7 @@ package analysis
 
 import (
 	"bufio"
+	"bytes"
 	"encoding/csv"
 	"errors"
 	"fmt"
@@ -245,16 +246,22 @@ func (e *lineTooLong) Error() string { return fmt.Sprintf("line %d too long", e.
 
 func (l *lineLimiter) Read(p []byte) (int, error) {
 	n, err := l.r.Read(p)
-	for i := 0; i < n; i++ {
-		if p[i] == '\n' {
-			l.run = 0
-			l.line++
-			continue
+	for i := 0; i < n; {
+		j := bytes.IndexByte(p[i:n], '\n')
+		run := j // the bytes of the line in p[i:n]
+		if j < 0 {
+			run = n - i
 		}
-		l.run++
-		if l.run > MaxBatchLine {
-			return i, &lineTooLong{line: l.line + 1}
+		if l.run+run > MaxBatchLine {
+			return i + MaxBatchLine - l.run, &lineTooLong{line: l.line + 1}
 		}
+		if j < 0 {
+			l.run += run
+			break
+		}
+		l.run = 0
+		l.line++
+		i += j + 1
 	}
 	return n, err
 }

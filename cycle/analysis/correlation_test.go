@@ -2,6 +2,7 @@ package analysis
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"enthalpath/thermo/gibbs"
@@ -271,6 +272,25 @@ func TestMagnesiumPeroxideFromEstimates(t *testing.T) {
 	}
 	t.Logf("MgO2: ΔfH° %.0f ± %.0f; %s ΔrH° %.0f ± %.0f, ΔrG %.0f ± %.0f (%v)", st.Compound.Formation.Value, st.Compound.Formation.Uncertainty,
 		r.Equation, r.Standard.Enthalpy, r.Standard.EnthalpyUncertainty, r.Gibbs, r.GibbsUncertainty, r.Verdict)
+}
+
+// A scan of Mg with O2- still has its Mg⁴⁺ oxide row, written MgO2, and
+// says that the formula alone reads as the peroxide, a different substance.
+func TestScanRowNamesTheOtherReading(t *testing.T) {
+	sc, err := testAnalyst(t).Scan("Mg", "O", ScanOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range sc.Compounds {
+		if c.Formula != "MgO2" {
+			continue
+		}
+		if c.Charge != 4 || len(c.Notes) == 0 || !strings.Contains(c.Notes[0], "reads as Mg2+ with O2^2-") {
+			t.Errorf("MgO2 row (charge %+d): notes %q", c.Charge, c.Notes)
+		}
+		return
+	}
+	t.Fatal("no MgO2 row in the scan of Mg with O")
 }
 
 // The real peroxides and superoxides from the estimates alone, against

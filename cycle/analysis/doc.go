@@ -68,7 +68,7 @@
 // beside it where its ions have contributions. Reactions (disproportionations,
 // losses of the non-metal, gas-releasing decompositions) sum ΔrH° and ΔrS°
 // and are judged by thermo/gibbs: ΔrG(T) with the heat capacities from
-// NASA Glenn polynomials (data.HeatCapacities) where every species has
+// NASA Glenn polynomials (DB.HeatCapacities) where every species has
 // them, else neglected; a verdict only beyond 2σ of zero, and the
 // temperature at which ΔrG crosses zero at the pressure of the gas given off.
 package analysis

@@ -230,6 +230,14 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 			other = true
 			cp.Notes = append([]string{fmt.Sprintf("%s in the data is %s (%s with %s); this row is the hypothetical compound of %s with %s, a different substance",
 				real.Formula, real.Name, real.Cation, real.Anion, cation, an.Symbol)}, cp.Notes...)
+		} else if !ok && !an.Polyatomic && a.groupAnionFits(an.Core, xc) {
+			// Not in the data, but the formula alone reads otherwise (MgO₂
+			// as magnesium peroxide, Mg²⁺ with O₂²⁻): only a group anion
+			// of the element can make it so.
+			if read, err := a.build(est.Formula, "", ""); err == nil && (read.Cation.Ion.Symbol != cation || read.Anion.Ion.Symbol != an.Symbol) {
+				cp.Notes = append([]string{fmt.Sprintf("%s as written reads as %s with %s (the estimate and stability analyses take that reading); this row is the hypothetical compound of %s with %s, a different substance",
+					est.Formula, read.Cation.Ion.Symbol, read.Anion.Ion.Symbol, cation, an.Symbol)}, cp.Notes...)
+			}
 		}
 		if known, ok := a.knownThermo(est.Formula); ok && !other && known.Formation.Known() {
 			// The real compound enters with its measured values, ionic or not.
@@ -269,6 +277,22 @@ func (a *Analyst) Scan(metal, nonmetal string, opt ScanOptions) (*Scan, error) {
 		sc.Notes = append(sc.Notes, "uncertainties of a reaction combine its compounds' σ as independent")
 	}
 	return sc, nil
+}
+
+// groupAnionFits reports whether the data hold a homonuclear group anion
+// of element el (el₂, el₃, …) whose atom count divides n.
+func (a *Analyst) groupAnionFits(el string, n int) bool {
+	for k := 2; k <= n; k++ {
+		if n%k != 0 {
+			continue
+		}
+		for _, in := range a.db.IonsOf(el + strconv.Itoa(k)) {
+			if in.Polyatomic && in.Charge < 0 {
+				return true
+			}
+		}
+	}
+	return false
 }
 
 // correlated reports whether some reaction of the scan combined the σ of

@@ -46,13 +46,63 @@ func benchSum(b *testing.B, c *crystal.Crystal, opt Options) {
 }
 
 // BenchmarkRockSalt: conventional 8-ion cell at the default accuracy 1e-10
-// (target ≤ 50 µs per evaluation).
+// on the small path (target ≤ 5 µs per evaluation).
 func BenchmarkRockSalt(b *testing.B) {
 	c, err := crystal.Build("rock-salt", nil)
 	if err != nil {
 		b.Fatal(err)
 	}
 	benchSum(b, c, Options{})
+}
+
+// BenchmarkRockSaltGeneral: the same cell kept on the general path, for the
+// ratio of the two paths measured in one run.
+func BenchmarkRockSaltGeneral(b *testing.B) {
+	c, err := crystal.Build("rock-salt", nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	benchSum(b, c, Options{general: true})
+}
+
+// BenchmarkSmallTermCost is the calibration of smallAlpha: on the primitive
+// cells of rock salt, fluorite, wurtzite and perovskite (2, 3, 4 and 5
+// sites) at the α the small path chooses and 1e-10, it times the two sums
+// of the small path separately and reports the cost of one real-space term
+// as Result.RealTerms counts them (ns/real-term) and of one k-vector of the
+// half space (ns/k-vector). Under valgrind --tool=cachegrind with a fixed
+// -test.benchtime the same runs give instructions per term.
+func BenchmarkSmallTermCost(b *testing.B) {
+	for _, name := range []string{"rock-salt", "fluorite", "wurtzite", "perovskite"} {
+		c, err := crystal.Build(name, nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		full := newSystem(c, true)
+		s := full
+		if prim, ok := full.primitive(); ok {
+			s = prim
+		}
+		n := len(s.q)
+		alpha := smallAlpha(n, s.volume)
+		p := math.Sqrt(-math.Log(DefaultAccuracy / 2))
+		rc, kc := p/alpha, 2*alpha*p
+		phi := make([]float64, n)
+		b.Run(fmt.Sprintf("%s/real/N=%d", name, n), func(b *testing.B) {
+			terms := 0
+			for i := 0; i < b.N; i++ {
+				terms, _, _, _ = s.realSmall(alpha, rc, phi)
+			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(terms), "ns/real-term")
+		})
+		b.Run(fmt.Sprintf("%s/recip/N=%d", name, n), func(b *testing.B) {
+			vectors := 0
+			for i := 0; i < b.N; i++ {
+				vectors, _ = s.reciprocalPairs(alpha, kc, phi)
+			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(vectors), "ns/k-vector")
+		})
+	}
 }
 
 // BenchmarkPrototypes: every built-in prototype at 1e-10.
@@ -84,14 +134,17 @@ func BenchmarkScaling(b *testing.B) {
 }
 
 // BenchmarkTermCost is the calibration of the splitting parameter (see
-// balancedAlpha): it times the two sums of Sum separately at the α Sum
-// chooses and 1e-10, on a 2-ion cell (caesium chloride) and on displaced
-// rock-salt supercells, and reports the cost of one real-space term
-// (ns/real-term: one ordered pair-image within the cut-off, the pair loop
-// and image search included) and of the reciprocal sum per k-vector
-// (ns/k-vector) and per k-vector and site (ns/recip-site-term). The
-// reciprocal cost is c₀ + c₁·N per k-vector: c₁ from the large cells, c₀
-// from the 2-ion one.
+// realToRecipCost): it times the two sums of Sum separately at the α Sum
+// chooses at 1e-10, on a 2-ion cell (caesium chloride) and on displaced
+// rock-salt supercells of 216, 1,000 and 4,096 ions, and reports the cost of
+// one real-space term (ns/real-term: one ordered pair-image within the
+// cut-off, with its share of the distance checks, the kernel and the
+// potentials) and of the reciprocal sum per k-vector (ns/k-vector) and per
+// k-vector and site (ns/recip-site-term). The reciprocal cost is c₀ + c₁·N
+// per k-vector: c₁ from the large cells, c₀ from the 2-ion one. The name
+// says which real-space path ran: one image per pair (min-image), the
+// sorted list of translations (listed) or the image box of each pair
+// (searched).
 func BenchmarkTermCost(b *testing.B) {
 	cells := []*crystal.Crystal{}
 	cs, err := crystal.Build("caesium-chloride", nil)
@@ -99,16 +152,23 @@ func BenchmarkTermCost(b *testing.B) {
 		b.Fatal(err)
 	}
 	cells = append(cells, cs)
-	for _, n := range []int{3, 5} {
+	for _, n := range []int{3, 5, 8} {
 		cells = append(cells, rockSaltSupercell(b, n, 0.02))
 	}
 	for _, c := range cells {
 		s := newSystem(c, false)
-		alpha := s.balancedAlpha()
 		p := math.Sqrt(-math.Log(DefaultAccuracy / 2))
+		alpha := s.chooseAlpha(p)
 		rc, kc := p/alpha, 2*alpha*p
+		path := "listed"
+		switch {
+		case s.oneImage(rc):
+			path = "min-image"
+		case len(s.q) < listedImages:
+			path = "searched"
+		}
 		phi := make([]float64, len(s.q))
-		b.Run(fmt.Sprintf("real/N=%d", len(s.q)), func(b *testing.B) {
+		b.Run(fmt.Sprintf("real/N=%d/%s", len(s.q), path), func(b *testing.B) {
 			terms := 0
 			for i := 0; i < b.N; i++ {
 				terms, _, _, _ = s.realSpace(alpha, rc, phi)

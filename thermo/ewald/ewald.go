@@ -226,7 +226,9 @@ func newSystem(c *crystal.Crystal, detect bool) *system {
 	s.frac, s.pos = vecs[:n:n], vecs[n:]
 	s.q = make([]float64, n)
 	for i, site := range c.Sites {
-		r := c.Cartesian(site.Frac)
+		// Wrapped first: a coordinate far outside [0, 1) on long lattice
+		// vectors would otherwise lose digits in the Cartesian position.
+		r := c.Cartesian(wrapFrac(site.Frac))
 		f := crystal.Vec3{s.recip[0].Dot(r), s.recip[1].Dot(r), s.recip[2].Dot(r)}
 		for k := range f {
 			f[k] -= math.Floor(f[k])
@@ -262,13 +264,14 @@ func newSystem(c *crystal.Crystal, detect bool) *system {
 // its table, a square root, the pair loop and the image search) relative to
 // one site-by-k-vector term of the reciprocal sum, and kVectorOverhead the
 // cost of one k-vector's own set-up (its Gaussian factor, its row of
-// phases) in the same unit. BenchmarkTermCost measures both: on a loaded
-// 2-core machine (load average about 16) about 42–44 ns per real term and
-// 6.3–7.6 ns per site-term at 216 and 1,000 ions, a ratio of 6 to 7.
-// Instruction counts of whole sums (valgrind --tool=cachegrind, rock salt
-// of 8 ions and displaced supercells of 216, 1,000 and 4,096 ions) were
-// least between 4 and 6 among 4, 6, 8 and 10, and 7 % higher at 10 for
-// 4,096 ions.
+// phases) in the same unit. BenchmarkTermCost measures both. After the
+// two-pass real-space rows and the mirror-pair reciprocal rows, instruction
+// counts per sum (valgrind --tool=cachegrind, displaced rock salt at 1e-10,
+// December 2026) were least at 6 among 4, 6 and 9 for 4,096 ions (1.36G
+// against 1.42G at 9) and within 1 % of each other at 64 and 512 ions;
+// cachegrind's split gives about 49 instructions per pair checked and 70
+// per pair within the cut-off in real space, 21 per site-term in
+// reciprocal space.
 const (
 	realToRecipCost = 6.0
 	kVectorOverhead = 6.0
@@ -289,10 +292,11 @@ func (s *system) balancedAlpha() float64 {
 // oneImageStretch is how far above the balanced value α may be raised to
 // bring the real-space cut-off below half of every plane spacing, where each
 // pair has one image and needs no image search (realSpacePairs). Chosen from
-// the CPU time of BenchmarkScaling (user time, loaded 2-core machine): at
-// 1,000 ions the raise by 1.18 took the sum from 0.09 to 0.05 s; at 512 ions
-// a raise by 1.32 cost more in the reciprocal sum than it saved.
-const oneImageStretch = 1.25
+// instruction counts per sum of BenchmarkScaling (cachegrind, rock salt
+// displaced, 1e-10): raising α to the one-image value saved 22 % at 1,000
+// ions (a raise by 1.29), 37 % at 1,728 (1.18) and half at 4,096, and cost
+// 4 % at 512 ions (1.45) and 44 % at 216 (1.68).
+const oneImageStretch = 1.4
 
 // chooseAlpha returns the balanced splitting parameter for cut-off product
 // p, raised to the one-image cut-off when that is close (oneImageStretch).

@@ -103,13 +103,18 @@ func (im *imageSum) sum(dfLattice, base crystal.Vec3, self bool) (sum float64, c
 	return sum, count, shortest, overlap
 }
 
-// realPart is one chunk's share of the real-space sum.
+// realPart is one chunk's share of the real-space sum, with the scratch of
+// one row: the pairs (i, i+1+within[m]) found within the cut-off at the
+// squared distances dist2[m], and their terms.
 type realPart struct {
 	phi     []float64
 	terms   int
 	nearest float64
 	pair    [2]int
 	overlap [2]int
+	within  []int32
+	dist2   []float64
+	term    []float64
 }
 
 func (p *realPart) pairTerm(s *system, im *imageSum, i, j int) (float64, int) {
@@ -159,17 +164,12 @@ func (s *system) realSpace(alpha, rc float64, phi []float64) (terms int, nearest
 func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
 	n := len(s.q)
 	chunks := len(parts)
-	// With the cut-off below half of every distance between lattice
-	// planes, |Δfₖ + mₖ| ≤ rc·|bₖ| < ½ leaves one image per pair, the one
-	// of the rounded fractional difference (and none of a site itself).
-	minImage := true
-	for k := 0; k < 3; k++ {
-		minImage = minImage && rc*s.recip[k].Norm() < 0.5
-	}
+	minImage := s.oneImage(rc)
 	if !minImage && n < listedImages {
 		s.realSpaceSearched(alpha, rc, parts)
 		return
 	}
+	fixed := s.fixedPositions()
 	var tl translationList
 	var selfSum float64
 	var selfCount int
@@ -180,18 +180,54 @@ func (s *system) realSpacePairs(alpha, rc float64, parts []realPart) {
 	}
 	forChunks(n, func(c int) {
 		p := parts[c].reset(n)
+		p.room(0, n)
 		if minImage {
 			for i := c; i < n; i += chunks {
-				s.minImageRow(i, alpha, rc*rc, p)
+				s.minImageRow(fixed, i, alpha, rc*rc, p)
 			}
 			return
 		}
 		for i := c; i < n; i += chunks {
 			p.phi[i] += s.q[i] * selfSum
 			p.terms += selfCount
-			s.imagesRow(i, alpha, rc, &tl, p)
+			s.imagesRow(fixed, i, alpha, rc, &tl, p)
 		}
 	})
+}
+
+// fixedFrac is a fractional position in units of 2⁻⁶⁴ of the cell: the
+// difference of two, taken as a signed 64-bit integer, wraps to the
+// nearest image exactly (−½ ≤ Δf < ½) and converts to float64 with one
+// rounding, as accurate as the difference of float64 coordinates and with
+// no rounding step per axis.
+type fixedFrac [3]uint64
+
+// fixedUnit is the fractional length of one unit of a fixedFrac.
+const fixedUnit = 0x1p-64
+
+// fixedPositions returns the sites' fractional positions (in [0, 1)) as
+// fixedFrac.
+func (s *system) fixedPositions() []fixedFrac {
+	out := make([]fixedFrac, len(s.frac))
+	for i, f := range s.frac {
+		for k := range f {
+			out[i][k] = uint64(f[k] * 0x1p64)
+		}
+	}
+	return out
+}
+
+// oneImage reports whether the cut-off rc is below half of every distance
+// between lattice planes: then |Δfₖ + mₖ| ≤ rc·|bₖ| < ½ leaves each pair
+// one image within rc, the one of the rounded fractional difference (and a
+// site none of itself).
+func (s *system) oneImage(rc float64) bool {
+	for k := 0; k < 3; k++ {
+		if !(rc*s.recip[k].Norm() < 0.5) {
+			return false
+		}
+	}
+	return true
 }
 
 // roundingShift is 1.5·2⁵²: for |x| < 2⁵¹, (x + roundingShift) −
@@ -210,6 +246,56 @@ func (p *realPart) reset(n int) *realPart {
 	p.nearest, p.pair, p.overlap = math.Inf(1), [2]int{-1, -1}, [2]int{-1, -1}
 	p.phi = make([]float64, n)
 	return p
+}
+
+// room makes the row scratch hold at least size pairs, keeping the first
+// kept.
+func (p *realPart) room(kept, size int) {
+	if size <= len(p.within) {
+		return
+	}
+	size = max(size, 2*len(p.within))
+	p.within = append(p.within[:kept], make([]int32, size-kept)...)
+	p.dist2 = append(p.dist2[:kept], make([]float64, size-kept)...)
+	p.term = make([]float64, size)
+}
+
+// addRow adds the kept pairs of row i (p.within[:kept], p.dist2[:kept]) to
+// p: their terms to the potentials of both sites, their count, the
+// shortest cation–anion distance and a coincident pair if any.
+func (p *realPart) addRow(s *system, i int, alpha float64, kept int) {
+	within, dist2 := p.within[:kept], p.dist2[:kept]
+	qi := s.q[i]
+	q := s.q[i+1:]
+	term := p.term[:kept]
+	screenedPairs(alpha, dist2, term)
+	acc := 0.0
+	phi := p.phi[i+1:]
+	// The shortest cation–anion distance on r²: a new minimum is rare, so
+	// the branch is predicted, and the charges and a coincident pair are
+	// only looked at then.
+	best := p.nearest * p.nearest
+	for m, k := range within {
+		e := term[m]
+		acc += q[k] * e
+		phi[k] += qi * e
+		if r2 := dist2[m]; r2 < best {
+			if r2 < coincident*coincident && p.overlap[0] < 0 {
+				p.overlap = [2]int{i, i + 1 + int(k)}
+			}
+			if qi*q[k] < 0 {
+				best = r2
+				if qi > 0 {
+					p.pair = [2]int{i, i + 1 + int(k)}
+				} else {
+					p.pair = [2]int{i + 1 + int(k), i}
+				}
+			}
+		}
+	}
+	p.nearest = math.Sqrt(best)
+	p.phi[i] += acc
+	p.terms += 2 * kept
 }
 
 // realSpaceSearched is realSpacePairs for a small cell: each pair searches
@@ -313,105 +399,74 @@ func (tl *translationList) selfSum(alpha, rc float64) (sum float64, count int) {
 // imagesRow adds the real-space terms of the pairs (i, j > i) at all their
 // images within the cut-off to p: the difference reduced to the nearest
 // image, d, plus each listed translation t with |t| < rc + |d|.
-func (s *system) imagesRow(i int, alpha, rc float64, tl *translationList, p *realPart) {
-	a0, a1, a2 := s.lat[0], s.lat[1], s.lat[2]
-	fi, qi := s.frac[i], s.q[i]
+func (s *system) imagesRow(fixed []fixedFrac, i int, alpha, rc float64, tl *translationList, p *realPart) {
+	// The lattice vectors in units of a fixedFrac.
+	a0, a1, a2 := s.lat[0].Scale(fixedUnit), s.lat[1].Scale(fixedUnit), s.lat[2].Scale(fixedUnit)
+	fi := fixed[i]
 	rc2 := rc * rc
 	tx, ty, tz, tn := tl.x, tl.y, tl.z, tl.norm
 	tx, ty, tz = tx[:len(tn)], ty[:len(tn)], tz[:len(tn)]
-	acc := 0.0
-	frac, q, phi := s.frac[i+1:], s.q[i+1:], p.phi[i+1:]
-	for k := range frac {
-		fj := &frac[k]
-		d0, d1, d2 := fj[0]-fi[0], fj[1]-fi[1], fj[2]-fi[2]
-		d0 -= (d0 + roundingShift) - roundingShift
-		d1 -= (d1 + roundingShift) - roundingShift
-		d2 -= (d2 + roundingShift) - roundingShift
+	kept := 0
+	rest := fixed[i+1:]
+	for k := range rest {
+		fj := &rest[k]
+		d0 := float64(int64(fj[0] - fi[0]))
+		d1 := float64(int64(fj[1] - fi[1]))
+		d2 := float64(int64(fj[2] - fi[2]))
 		x := d0*a0[0] + d1*a1[0] + d2*a2[0]
 		y := d0*a0[1] + d1*a1[1] + d2*a2[1]
 		z := d0*a0[2] + d1*a1[2] + d2*a2[2]
 		limit := rc + math.Sqrt(x*x+y*y+z*z)
-		sum, shortest, count := 0.0, math.Inf(1), 0
+		p.room(kept, kept+len(tn))
+		within, dist2 := p.within, p.dist2
 		for t, tr := range tn {
 			if tr >= limit {
 				break
 			}
 			wx, wy, wz := x+tx[t], y+ty[t], z+tz[t]
 			r2 := wx*wx + wy*wy + wz*wz
-			if r2 >= rc2 {
-				continue
+			// Written always, kept by moving on (see minImageRow).
+			within[kept], dist2[kept] = int32(k), r2
+			step := 0
+			if r2 < rc2 {
+				step = 1
 			}
-			if r2 < coincident*coincident {
-				if p.overlap[0] < 0 {
-					p.overlap = [2]int{i, i + 1 + k}
-				}
-				continue
-			}
-			r := math.Sqrt(r2)
-			sum += alpha * screened(alpha*r)
-			count++
-			shortest = min(shortest, r)
-		}
-		if count == 0 {
-			continue
-		}
-		acc += q[k] * sum
-		phi[k] += qi * sum
-		p.terms += 2 * count
-		if qi*q[k] < 0 && shortest < p.nearest {
-			p.nearest = shortest
-			if qi > 0 {
-				p.pair = [2]int{i, i + 1 + k}
-			} else {
-				p.pair = [2]int{i + 1 + k, i}
-			}
+			kept += step
 		}
 	}
-	p.phi[i] += acc
+	p.addRow(s, i, alpha, kept)
 }
 
 // minImageRow adds the real-space terms of the pairs (i, j > i) at their
-// one image within the cut-off (see realSpacePairs) to p.
-func (s *system) minImageRow(i int, alpha, rc2 float64, p *realPart) {
-	// |Σ dₖaₖ|² from the metric tensor gₖₗ = aₖ·aₗ of the (reduced) basis:
-	// 9 multiplications instead of 12.
-	a0, a1, a2 := s.lat[0], s.lat[1], s.lat[2]
+// one image within the cut-off (see realSpacePairs) to p. The first pass
+// computes every r² and keeps the pairs within the cut-off without a
+// branch on the comparison (in a large cell about half the pairs fall on
+// either side, in runs too short to predict); addRow then evaluates the
+// kernel on the kept pairs only.
+func (s *system) minImageRow(fixed []fixedFrac, i int, alpha, rc2 float64, p *realPart) {
+	// |Σ dₖaₖ|² from the metric tensor gₖₗ = aₖ·aₗ of the (reduced) basis,
+	// in units of a fixedFrac: 9 multiplications instead of 12.
+	a0, a1, a2 := s.lat[0].Scale(fixedUnit), s.lat[1].Scale(fixedUnit), s.lat[2].Scale(fixedUnit)
 	g00, g11, g22 := a0.Dot(a0), a1.Dot(a1), a2.Dot(a2)
 	h01, h02, h12 := 2*a0.Dot(a1), 2*a0.Dot(a2), 2*a1.Dot(a2)
-	fi, qi := s.frac[i], s.q[i]
-	acc := 0.0
-	frac, q, phi := s.frac[i+1:], s.q[i+1:], p.phi[i+1:]
-	for k := range frac {
-		fj := &frac[k]
-		// Δf ∈ (−1, 1); subtracting the nearest integer (roundingShift).
-		d0, d1, d2 := fj[0]-fi[0], fj[1]-fi[1], fj[2]-fi[2]
-		d0 -= (d0 + roundingShift) - roundingShift
-		d1 -= (d1 + roundingShift) - roundingShift
-		d2 -= (d2 + roundingShift) - roundingShift
+	fi := fixed[i]
+	rest := fixed[i+1:]
+	within, dist2 := p.within[:len(rest)], p.dist2[:len(rest)]
+	kept := 0
+	for k := range rest {
+		fj := &rest[k]
+		// The nearest image by wrapping (fixedFrac).
+		d0 := float64(int64(fj[0] - fi[0]))
+		d1 := float64(int64(fj[1] - fi[1]))
+		d2 := float64(int64(fj[2] - fi[2]))
 		r2 := d0*(g00*d0+h01*d1+h02*d2) + d1*(g11*d1+h12*d2) + g22*d2*d2
-		if r2 >= rc2 {
-			continue
+		// Written always, kept by moving on: a conditional set, no jump.
+		within[kept], dist2[kept] = int32(k), r2
+		step := 0
+		if r2 < rc2 {
+			step = 1
 		}
-		j := i + 1 + k
-		if r2 < coincident*coincident {
-			if p.overlap[0] < 0 {
-				p.overlap = [2]int{i, j}
-			}
-			continue
-		}
-		r := math.Sqrt(r2)
-		e := alpha * screened(alpha*r)
-		acc += q[k] * e
-		phi[k] += qi * e
-		p.terms += 2
-		if qi*q[k] < 0 && r < p.nearest {
-			p.nearest = r
-			if qi > 0 {
-				p.pair = [2]int{i, j}
-			} else {
-				p.pair = [2]int{j, i}
-			}
-		}
+		kept += step
 	}
-	p.phi[i] += acc
+	p.addRow(s, i, alpha, kept)
 }

@@ -82,9 +82,13 @@ func (s *system) reciprocalGeneral(alpha, kc float64, phi []float64) int {
 		part.phi = work[:n:n]
 		out := part.phi
 		pRe, pIm := work[n:2*n:2*n], work[2*n:3*n:3*n]
-		eRe, eIm := work[3*n:4*n:4*n], work[4*n:5*n:5*n]
-		fRe, fIm := work[5*n:6*n:6*n], work[6*n:]
-		ks := make([]rowVector, 0, 2*M2+1)
+		qpRe, qpIm := work[3*n:4*n:4*n], work[4*n:5*n:5*n]
+		u, v := work[5*n:6*n:6*n], work[6*n:]
+		// weight[M2+m2] is the weight of k-vector m2 of the current row (0
+		// outside the sphere); pairs lists the row's |m2| with either sign
+		// inside, two at a time.
+		weight := make([]float64, 2*M2+1)
+		pairs := make([]mirrorPair, 0, M2+1)
 		rowIndex := -1
 		for m0 := 0; m0 <= M0; m0++ {
 			lo1 := -M1
@@ -111,12 +115,6 @@ func (s *system) reciprocalGeneral(alpha, kc float64, phi []float64) int {
 				if lo2 > hi2 {
 					continue
 				}
-				r0, i0 := powRe[0][(M0+m0)*n:(M0+m0+1)*n], powIm[0][(M0+m0)*n:(M0+m0+1)*n]
-				r1, i1 := powRe[1][(M1+m1)*n:(M1+m1+1)*n], powIm[1][(M1+m1)*n:(M1+m1+1)*n]
-				for j := 0; j < n; j++ {
-					pRe[j] = r0[j]*r1[j] - i0[j]*i1[j]
-					pIm[j] = r0[j]*i1[j] + i0[j]*r1[j]
-				}
 				// Along the row k = g + m2·b3, k² = |g|² + 2·m2·g·b3 + m2²·|b3|²,
 				// so exp(−k²/4α²) follows from one exponential by
 				// multiplication.
@@ -124,38 +122,58 @@ func (s *system) reciprocalGeneral(alpha, kc float64, phi []float64) int {
 				k2lo := gg + float64(lo2)*(2*gb+float64(lo2)*b2sq)
 				gauss := math.Exp(-k2lo * inv4a2)
 				step := math.Exp(-(2*gb + float64(2*lo2+1)*b2sq) * inv4a2)
-				row := ks[:0]
+				clear(weight)
+				vectors := 0
 				for m2 := lo2; m2 <= hi2; m2, gauss, step = m2+1, gauss*step, step*stepRatio {
 					fm := float64(m2)
 					k2 := gg + fm*(2*gb+fm*b2sq)
 					if k2 > kc2 || k2 <= 0 {
 						continue
 					}
-					row = append(row, rowVector{m2, pre * gauss / k2})
+					weight[M2+m2] = pre * gauss / k2
+					vectors++
 				}
-				part.count += len(row)
-				// Two k-vectors of the row at a time: the phases of the
-				// row and the potentials are read once for both.
-				for k := 0; k < len(row); k += 2 {
-					a := row[k]
-					ra, ia := powRe[2][(M2+a.m2)*n:(M2+a.m2+1)*n], powIm[2][(M2+a.m2)*n:(M2+a.m2+1)*n]
-					if k+1 == len(row) {
-						sRe, sIm := structureFactor(s.q, pRe, pIm, ra, ia, eRe, eIm)
-						sRe, sIm = a.w*sRe, a.w*sIm
-						// Re(S·conj(e_j)) = sRe·eRe + sIm·eIm.
-						for j, er := range eRe {
-							out[j] += sRe*er + sIm*eIm[j]
-						}
-						break
+				part.count += vectors
+				pairs = pairs[:0]
+				for m := 0; m <= max(hi2, -lo2); m++ {
+					wp, wm := weight[M2+m], weight[M2-m]
+					if m == 0 {
+						wm = 0
 					}
-					b := row[k+1]
-					rb, ib := powRe[2][(M2+b.m2)*n:(M2+b.m2+1)*n], powIm[2][(M2+b.m2)*n:(M2+b.m2+1)*n]
-					saRe, saIm, sbRe, sbIm := structureFactors(s.q, pRe, pIm, ra, ia, rb, ib, eRe, eIm, fRe, fIm)
-					saRe, saIm, sbRe, sbIm = a.w*saRe, a.w*saIm, b.w*sbRe, b.w*sbIm
-					fRe, fIm := fRe[:len(eRe)], fIm[:len(eRe)]
-					for j, er := range eRe {
-						out[j] += (saRe*er + saIm*eIm[j]) + (sbRe*fRe[j] + sbIm*fIm[j])
+					if wp != 0 || wm != 0 {
+						pairs = append(pairs, mirrorPair{m, wp, wm})
 					}
+				}
+				r0, i0 := powRe[0][(M0+m0)*n:(M0+m0+1)*n], powIm[0][(M0+m0)*n:(M0+m0+1)*n]
+				r1, i1 := powRe[1][(M1+m1)*n:(M1+m1+1)*n], powIm[1][(M1+m1)*n:(M1+m1+1)*n]
+				for j, q := range s.q {
+					re := r0[j]*r1[j] - i0[j]*i1[j]
+					im := r0[j]*i1[j] + i0[j]*r1[j]
+					pRe[j], pIm[j] = re, im
+					qpRe[j], qpIm[j] = q*re, q*im
+				}
+				clear(u)
+				clear(v)
+				// Two entries at a time: the row's phases and the
+				// potentials are read once for both.
+				for k := 0; k < len(pairs); k += 2 {
+					a := &pairs[k]
+					za, zai := powRe[2][(M2+a.m)*n:(M2+a.m+1)*n], powIm[2][(M2+a.m)*n:(M2+a.m+1)*n]
+					b := a // a lone last entry is taken with weights 0
+					if k+1 < len(pairs) {
+						b = &pairs[k+1]
+					}
+					zb, zbi := powRe[2][(M2+b.m)*n:(M2+b.m+1)*n], powIm[2][(M2+b.m)*n:(M2+b.m+1)*n]
+					fa := mirrorSums(qpRe, qpIm, za, zai, zb, zbi)
+					ca := a.coefficients(fa[0])
+					cb := [4]float64{}
+					if b != a {
+						cb = b.coefficients(fa[1])
+					}
+					mirrorPotentials(u, v, za, zai, zb, zbi, ca, cb)
+				}
+				for j := range out {
+					out[j] += pRe[j]*u[j] + pIm[j]*v[j]
 				}
 			}
 		}
@@ -170,66 +188,69 @@ func (s *system) reciprocalGeneral(alpha, kc float64, phi []float64) int {
 	return count
 }
 
-// rowVector is one k-vector of a row of the reciprocal sum: its last index
-// and its weight (8π/V)·exp(−k²/4α²)/k².
-type rowVector struct {
-	m2 int
-	w  float64
+// mirrorPair is the k-vectors m2 = +m and m2 = −m of one row of the
+// reciprocal sum, with their weights (8π/V)·exp(−k²/4α²)/k² (0 for a
+// vector outside the sphere, and for −m when m = 0). With p = e^{i(g·r)}
+// the row's phase of a site and z = e^{im·b₃·r}, the two phases are p·z
+// and p·z̄: both follow from the four products A = Re p·Re z, B = Im p·Im z,
+// C = Re p·Im z, D = Im p·Re z (p·z = (A − B, C + D), p·z̄ = (A + B, D − C)),
+// so the pair costs what one vector does, and rows of a nearly orthogonal
+// cell are nearly symmetric in m2.
+type mirrorPair struct {
+	m          int
+	plus, minu float64
 }
 
-// structureFactors is structureFactor for two k-vectors that share the
-// first factor p: e_j = p_j·r_j, f_j = p_j·s_j, and the sums Σ q_j·e_j and
-// Σ q_j·f_j.
-func structureFactors(q, pRe, pIm, rRe, rIm, sRe, sIm, eRe, eIm, fRe, fIm []float64) (aRe, aIm, bRe, bIm float64) {
-	n := len(q)
-	pRe, pIm, rRe, rIm, sRe, sIm = pRe[:n], pIm[:n], rRe[:n], rIm[:n], sRe[:n], sIm[:n]
-	eRe, eIm, fRe, fIm = eRe[:n], eIm[:n], fRe[:n], fIm[:n]
-	// Four independent sums: no chain of dependent additions limits the
-	// loop.
-	for j, qj := range q {
-		pr, pi := pRe[j], pIm[j]
-		er, ei := pr*rRe[j]-pi*rIm[j], pr*rIm[j]+pi*rRe[j]
-		fr, fi := pr*sRe[j]-pi*sIm[j], pr*sIm[j]+pi*sRe[j]
-		eRe[j], eIm[j], fRe[j], fIm[j] = er, ei, fr, fi
-		aRe += qj * er
-		aIm += qj * ei
-		bRe += qj * fr
-		bIm += qj * fi
-	}
-	return aRe, aIm, bRe, bIm
+// coefficients turns the charge-weighted sums f = (ΣqA, ΣqB, ΣqC, ΣqD) of
+// the pair into the factors (a, b, c, d) of its potential at a site,
+// Σ± w±·Re(S±·conj(phase±)) = Re p·(a·Re z + b·Im z) + Im p·(c·Im z + d·Re z).
+func (mp *mirrorPair) coefficients(f [4]float64) [4]float64 {
+	plusRe, plusIm := mp.plus*(f[0]-f[1]), mp.plus*(f[2]+f[3])
+	minuRe, minuIm := mp.minu*(f[0]+f[1]), mp.minu*(f[3]-f[2])
+	return [4]float64{plusRe + minuRe, plusIm - minuIm, minuRe - plusRe, plusIm + minuIm}
 }
 
-// structureFactor sets e_j = p_j·r_j (complex, as real and imaginary
-// parts) and returns S = Σ q_j·e_j. Four partial sums of each part break the
-// chain of dependent additions, so the loop runs at the speed of its
-// multiplications; the order of summation is fixed, so the result does not
-// depend on anything but the inputs.
-func structureFactor(q, pRe, pIm, rRe, rIm, eRe, eIm []float64) (sRe, sIm float64) {
-	n := len(q)
-	pRe, pIm, rRe, rIm, eRe, eIm = pRe[:n], pIm[:n], rRe[:n], rIm[:n], eRe[:n], eIm[:n]
+// mirrorSums returns, for two rows of z (za, zb), the charge-weighted
+// products ΣqA, ΣqB, ΣqC, ΣqD of mirrorPair, from qp = q·p: eight
+// independent sums, so no chain of dependent additions limits the loop;
+// the order of summation is fixed.
+func mirrorSums(qpRe, qpIm, zaRe, zaIm, zbRe, zbIm []float64) (f [2][4]float64) {
+	n := len(qpRe)
+	qpIm, zaRe, zaIm, zbRe, zbIm = qpIm[:n], zaRe[:n], zaIm[:n], zbRe[:n], zbIm[:n]
 	var a0, a1, a2, a3, b0, b1, b2, b3 float64
-	j := 0
-	for ; j+4 <= n; j += 4 {
-		e0r, e0i := pRe[j]*rRe[j]-pIm[j]*rIm[j], pRe[j]*rIm[j]+pIm[j]*rRe[j]
-		e1r, e1i := pRe[j+1]*rRe[j+1]-pIm[j+1]*rIm[j+1], pRe[j+1]*rIm[j+1]+pIm[j+1]*rRe[j+1]
-		e2r, e2i := pRe[j+2]*rRe[j+2]-pIm[j+2]*rIm[j+2], pRe[j+2]*rIm[j+2]+pIm[j+2]*rRe[j+2]
-		e3r, e3i := pRe[j+3]*rRe[j+3]-pIm[j+3]*rIm[j+3], pRe[j+3]*rIm[j+3]+pIm[j+3]*rRe[j+3]
-		eRe[j], eRe[j+1], eRe[j+2], eRe[j+3] = e0r, e1r, e2r, e3r
-		eIm[j], eIm[j+1], eIm[j+2], eIm[j+3] = e0i, e1i, e2i, e3i
-		a0 += q[j] * e0r
-		b0 += q[j] * e0i
-		a1 += q[j+1] * e1r
-		b1 += q[j+1] * e1i
-		a2 += q[j+2] * e2r
-		b2 += q[j+2] * e2i
-		a3 += q[j+3] * e3r
-		b3 += q[j+3] * e3i
+	for j, x := range qpRe {
+		y := qpIm[j]
+		// Each phase read where it is used, so that few values are live
+		// at once and the eight sums stay in registers.
+		ar := zaRe[j]
+		a0 += x * ar
+		a3 += y * ar
+		ai := zaIm[j]
+		a1 += y * ai
+		a2 += x * ai
+		br := zbRe[j]
+		b0 += x * br
+		b3 += y * br
+		bi := zbIm[j]
+		b1 += y * bi
+		b2 += x * bi
 	}
-	for ; j < n; j++ {
-		er, ei := pRe[j]*rRe[j]-pIm[j]*rIm[j], pRe[j]*rIm[j]+pIm[j]*rRe[j]
-		eRe[j], eIm[j] = er, ei
-		a0 += q[j] * er
-		b0 += q[j] * ei
+	return [2][4]float64{{a0, a1, a2, a3}, {b0, b1, b2, b3}}
+}
+
+// mirrorPotentials adds the potential factors of two mirror pairs with
+// coefficients ca, cb (mirrorPair.coefficients) to u (the factor of Re p)
+// and v (that of Im p).
+func mirrorPotentials(u, v, zaRe, zaIm, zbRe, zbIm []float64, ca, cb [4]float64) {
+	n := len(u)
+	v, zaRe, zaIm, zbRe, zbIm = v[:n], zaRe[:n], zaIm[:n], zbRe[:n], zbIm[:n]
+	a0, a1, a2, a3 := ca[0], ca[1], ca[2], ca[3]
+	b0, b1, b2, b3 := cb[0], cb[1], cb[2], cb[3]
+	for j := range u {
+		ar, ai := zaRe[j], zaIm[j]
+		uj, vj := a0*ar+a1*ai, a2*ai+a3*ar
+		br, bi := zbRe[j], zbIm[j]
+		u[j] += uj + (b0*br + b1*bi)
+		v[j] += vj + (b2*bi + b3*br)
 	}
-	return (a0 + a1) + (a2 + a3), (b0 + b1) + (b2 + b3)
 }

@@ -2,26 +2,32 @@ package ewald
 
 import "math"
 
-// This file: the reciprocal-space sum of a small cell, on fixed-size arrays.
+// This file: the reciprocal-space sums of small cells, on fixed-size arrays.
 
 // smallSites is the largest cell (after reduction to its primitive cell)
-// whose reciprocal sum runs on reciprocalSmall; smallOrder is the largest
-// index |mₖ| along any reciprocal axis it accepts. At 1e-10 every built-in
-// prototype but spinel and corundum (10 and 14 sites) qualifies: their
-// primitive cells have 2 to 6 sites and |mₖ| ≤ 5. The tables then take
-// 3·(2·smallOrder+1)·smallSites complex numbers (6.5 kB) on the stack,
-// and the sum allocates nothing.
+// whose sums run on the small path (realSmall, reciprocalPairs): with more
+// sites the pairs cost more per k-vector than structure factors (rutile,
+// 6 sites, 15 pairs: 169k instructions against 128k on the general path);
+// smallOrder is the largest index |mₖ| along any reciprocal axis it
+// accepts. At 1e-10 every built-in prototype but rutile, spinel and
+// corundum (6, 10 and 14 sites) qualifies: their primitive cells have 2 to
+// 5 sites. The per-pair arrays then take about 1 kB on the stack, and the
+// sums allocate nothing.
 const (
-	smallSites = 8
+	smallSites = 5
 	smallOrder = 8
 )
 
-// reciprocalSmall is reciprocalSpace for a cell of at most smallSites
-// sites and reciprocal indices of at most smallOrder; it reports false,
-// and leaves phi alone, for any other cell. It visits the same half space
-// of k-vectors as reciprocalSpace (m₀ > 0, or m₀ = 0 and m₁ > 0, or
-// m₀ = m₁ = 0 and m₂ > 0) with the same weights, so the two agree up to
-// the order of summation.
+// structureSites is the largest cell whose reciprocal sum on the general
+// path runs on reciprocalSmall (structure factors on stack arrays).
+const structureSites = 8
+
+// reciprocalPairs is reciprocalSpace for the small path (sumSmall): a
+// cell of at most smallSites sites and reciprocal indices of at most
+// smallOrder; it reports false, and leaves phi alone, for any other cell.
+// It visits the same half space of k-vectors as reciprocalSpace (m₀ > 0,
+// or m₀ = 0 and m₁ > 0, or m₀ = m₁ = 0 and m₂ > 0) with the same weights,
+// so the two agree up to the order of summation.
 //
 // It works on pairs rather than on structure factors:
 // Re(S(k)·e^{−ik·rᵢ}) = Σⱼ qⱼ·cos(k·(rⱼ−rᵢ)), so with wₖ the weight of k,
@@ -34,7 +40,7 @@ const (
 // per plane of constant m₀: it is the product of the row's value at
 // m₂ = 0 and of ratios that change by constant factors from one m₁, or
 // m₂, to the next.
-func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
+func (s *system) reciprocalPairs(alpha, kc float64, phi []float64) (int, bool) {
 	n := len(s.q)
 	b, mmax := s.reciprocalBox(kc)
 	if n > smallSites || mmax[0] > smallOrder || mmax[1] > smallOrder || mmax[2] > smallOrder {
@@ -67,16 +73,19 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 	g00, g01, g02 := b[0].Dot(b[0]), b[0].Dot(b[1]), b[0].Dot(b[2])
 	g11, g12, g22 := b[1].Dot(b[1]), b[1].Dot(b[2]), b[2].Dot(b[2])
 	c4 := 1 / (4 * alpha * alpha)
-	kc2 := kc * kc
+	kc2, inv22 := kc*kc, 1/g22
 	e00, e11, e22 := math.Exp(-c4*g00), math.Exp(-c4*g11), math.Exp(-c4*g22)
 	x01, x02, x12 := math.Exp(-2*c4*g01), math.Exp(-2*c4*g02), math.Exp(-2*c4*g12)
 	e11sq, e22sq, ix12 := e11*e11, e22*e22, 1/x12
 	ie22sq := 1 / e22sq
 	// The extent in m₁ of the plane m₀ within kc: the quadratic in m₁ of
 	// the shortest k over real m₂.
-	ea, eb, ec := g11-g12*g12/g22, g01-g02*g12/g22, g00-g02*g02/g22
+	ea, eb, ec := g11-g12*g12*inv22, g01-g02*g12*inv22, g00-g02*g02*inv22
+	iea := 1 / ea
 
 	wsum, count := 0.0, 0
+	u0r, u0i, u1r, u1i := ph.ur[0][:np:np], ph.ui[0][:np:np], ph.ur[1][:np:np], ph.ui[1][:np:np]
+	p0r, p0i := ph.p0r[:np:np], ph.p0i[:np:np]
 	var wrow [2*smallOrder + 1]float64 // the weights of one row
 	c := ph.c[:np:np]
 	// At m₁ = 0 of plane m₀: exp(−c₄m₀²g₀₀) (plane), its ratio to the next
@@ -87,8 +96,8 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 		disc1 := eb*eb*f0*f0 - ea*(ec*f0*f0-kc2)
 		if disc1 >= 0 {
 			root := math.Sqrt(disc1)
-			lo1 := max(int(math.Ceil((-eb*f0-root)/ea)), -M1)
-			hi1 := min(int(math.Floor((-eb*f0+root)/ea)), M1)
+			lo1 := max(int(math.Ceil((-eb*f0-root)*iea)), -M1)
+			hi1 := min(int(math.Floor((-eb*f0+root)*iea)), M1)
 			if m0 == 0 {
 				lo1 = max(lo1, 0)
 			}
@@ -99,21 +108,24 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 				rowG, rowStep, y := plane, e11*x01m, x02m
 				down := e11 / x01m
 				ph.start(np, lo1)
+				ar, ai := ph.ar[:np:np], ph.ai[:np:np]
 				for m := 0; m < lo1; m++ {
 					rowG, rowStep, y = rowG*rowStep, rowStep*e11sq, y*x12
 				}
 				for m := 0; m > lo1; m-- {
 					rowG, down, rowStep, y = rowG*down, down*e11sq, rowStep/e11sq, y*ix12
 				}
+				// g·b₂ = gbA + m₁g₁₂ and |g|² = ggA + m₁(ggB + m₁g₁₁).
+				gbA, ggA, ggB := f0*g02, f0*f0*g00, 2*f0*g01
 				for m1 := lo1; m1 <= hi1; m1, rowG, rowStep, y = m1+1, rowG*rowStep, rowStep*e11sq, y*x12 {
 					f1 := float64(m1)
-					gb := f0*g02 + f1*g12
-					gg := f0*(f0*g00+2*f1*g01) + f1*f1*g11
+					gb := gbA + f1*g12
+					gg := ggA + f1*(ggB+f1*g11)
 					lo2, hi2 := 1, 0
 					if disc := gb*gb - g22*(gg-kc2); disc >= 0 {
 						root := math.Sqrt(disc)
-						lo2 = max(int(math.Ceil((-gb-root)/g22)), -M2)
-						hi2 = min(int(math.Floor((-gb+root)/g22)), M2)
+						lo2 = max(int(math.Ceil((-gb-root)*inv22)), -M2)
+						hi2 = min(int(math.Floor((-gb+root)*inv22)), M2)
 						if m0 == 0 && m1 == 0 {
 							lo2 = max(lo2, 1)
 						}
@@ -132,16 +144,16 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 							gauss, down, up = gauss*down, down*e22sq, up*ie22sq
 						}
 						weights := wrow[:hi2-lo2+1]
+						fm, tgb := float64(lo2), 2*gb
 						for k := range weights {
-							fm := float64(lo2 + k)
 							w := 0.0
-							if k2 := gg + fm*(2*gb+fm*g22); k2 <= kc2 && k2 > 0 {
+							if k2 := gg + fm*(tgb+fm*g22); k2 <= kc2 && k2 > 0 {
 								w = gauss / k2
 								count++
 							}
 							weights[k] = w
 							wsum += w
-							gauss, up = gauss*up, up*e22sq
+							gauss, up, fm = gauss*up, up*e22sq, fm+1
 						}
 						// Each pair's phase from m₂ = 0 to lo2, then along the
 						// row by e^{2πi·d₂}.
@@ -161,11 +173,15 @@ func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
 							c[p] += sum
 						}
 					}
-					ph.step(np, 1)
+					for p := range ar {
+						ar[p], ai[p] = ar[p]*u1r[p]-ai[p]*u1i[p], ar[p]*u1i[p]+ai[p]*u1r[p]
+					}
 				}
 			}
 		}
-		ph.step(np, 0)
+		for p := range p0r {
+			p0r[p], p0i[p] = p0r[p]*u0r[p]-p0i[p]*u0i[p], p0r[p]*u0i[p]+p0i[p]*u0r[p]
+		}
 	}
 	pre := 8 * math.Pi / s.volume // both members of each ±k pair
 	for i, pp := 0, 0; i < n; i++ {
@@ -203,14 +219,114 @@ func (ph *smallPhases) start(np, m1 int) {
 	}
 }
 
-// step advances the plane phases (axis 0) or the row phases (axis 1).
-func (ph *smallPhases) step(np, axis int) {
-	ur, ui := ph.ur[axis][:np:np], ph.ui[axis][:np:np]
-	re, im := ph.ar[:np:np], ph.ai[:np:np]
-	if axis == 0 {
-		re, im = ph.p0r[:np:np], ph.p0i[:np:np]
+// smallPowers holds e^{2πi·m·f_jk} for every axis k, m in
+// −smallOrder…smallOrder (stored at m+smallOrder) and site j.
+type smallPowers struct {
+	re, im [3][2*smallOrder + 1][structureSites]float64
+}
+
+// reciprocalSmall is reciprocalSpace for a cell of at most structureSites
+// sites and reciprocal indices of at most smallOrder, on structure factors
+// (its cost per k-vector grows as the sites, that of reciprocalPairs as
+// the pairs: it serves the cells of 6 to 8 sites on the general path); it reports false,
+// and leaves phi alone, for any other cell. It visits the same half space
+// of k-vectors as reciprocalSpace (m₀ > 0, or m₀ = 0 and m₁ > 0, or
+// m₀ = m₁ = 0 and m₂ > 0) with the same weights, so the two agree up to
+// the order of summation.
+func (s *system) reciprocalSmall(alpha, kc float64, phi []float64) (int, bool) {
+	n := len(s.q)
+	b, mmax := s.reciprocalBox(kc)
+	if n > structureSites || mmax[0] > smallOrder || mmax[1] > smallOrder || mmax[2] > smallOrder {
+		return 0, false
 	}
-	for p := range ur {
-		re[p], im[p] = re[p]*ur[p]-im[p]*ui[p], re[p]*ui[p]+im[p]*ur[p]
+	var pw smallPowers
+	for k := 0; k < 3; k++ {
+		for j := 0; j < n; j++ {
+			// Powers by complex multiplication from one sine and cosine;
+			// |m| ≤ smallOrder keeps the rounding of the recurrence near
+			// smallOrder ulps.
+			s1, c1 := math.Sincos(2 * math.Pi * s.frac[j][k])
+			re, im := 1.0, 0.0
+			pw.re[k][smallOrder][j] = 1
+			for m := 1; m <= mmax[k]; m++ {
+				re, im = re*c1-im*s1, re*s1+im*c1
+				pw.re[k][smallOrder+m][j], pw.im[k][smallOrder+m][j] = re, im
+				pw.re[k][smallOrder-m][j], pw.im[k][smallOrder-m][j] = re, -im
+			}
+		}
 	}
+	q := s.q[:n:n]
+	var out, pRe, pIm, eRe, eIm [structureSites]float64
+	kc2 := kc * kc
+	inv4a2 := 1 / (4 * alpha * alpha)
+	pre := 8 * math.Pi / s.volume // both members of each ±k pair
+	// The metric of the reciprocal basis: k² = Σ mₖmₗ·(bₖ·bₗ) needs no
+	// vector arithmetic per row.
+	b00, b01, b02 := b[0].Dot(b[0]), b[0].Dot(b[1]), b[0].Dot(b[2])
+	b11, b12 := b[1].Dot(b[1]), b[1].Dot(b[2])
+	b2sq := b[2].Dot(b[2])
+	stepRatio := math.Exp(-2 * b2sq * inv4a2)
+	count := 0
+	for m0 := 0; m0 <= mmax[0]; m0++ {
+		lo1 := -mmax[1]
+		if m0 == 0 {
+			lo1 = 0
+		}
+		r0, i0 := &pw.re[0][smallOrder+m0], &pw.im[0][smallOrder+m0]
+		for m1 := lo1; m1 <= mmax[1]; m1++ {
+			// g = m₀b₀ + m₁b₁: gb = g·b₂ and gg = g·g.
+			f0, f1 := float64(m0), float64(m1)
+			gb := f0*b02 + f1*b12
+			gg := f0*(f0*b00+2*f1*b01) + f1*f1*b11
+			disc := gb*gb - b2sq*(gg-kc2)
+			if disc < 0 {
+				continue
+			}
+			root := math.Sqrt(disc)
+			lo2 := max(int(math.Ceil((-gb-root)/b2sq)), -mmax[2])
+			hi2 := min(int(math.Floor((-gb+root)/b2sq)), mmax[2])
+			if m0 == 0 && m1 == 0 {
+				lo2 = max(lo2, 1)
+			}
+			if lo2 > hi2 {
+				continue
+			}
+			r1, i1 := &pw.re[1][smallOrder+m1], &pw.im[1][smallOrder+m1]
+			for j := 0; j < n; j++ {
+				pRe[j] = r0[j]*r1[j] - i0[j]*i1[j]
+				pIm[j] = r0[j]*i1[j] + i0[j]*r1[j]
+			}
+			// exp(−k²/4α²) along the row by a multiplicative recurrence,
+			// as in reciprocalSpace.
+			gauss := math.Exp(-(gg + float64(lo2)*(2*gb+float64(lo2)*b2sq)) * inv4a2)
+			step := math.Exp(-(2*gb + float64(2*lo2+1)*b2sq) * inv4a2)
+			for m2 := lo2; m2 <= hi2; m2, gauss, step = m2+1, gauss*step, step*stepRatio {
+				fm := float64(m2)
+				k2 := gg + fm*(2*gb+fm*b2sq)
+				if k2 > kc2 || k2 <= 0 {
+					continue
+				}
+				count++
+				w := pre * gauss / k2
+				r2, i2 := &pw.re[2][smallOrder+m2], &pw.im[2][smallOrder+m2]
+				var sRe, sIm float64
+				for j := 0; j < n; j++ {
+					er := pRe[j]*r2[j] - pIm[j]*i2[j]
+					ei := pRe[j]*i2[j] + pIm[j]*r2[j]
+					eRe[j], eIm[j] = er, ei
+					sRe += q[j] * er
+					sIm += q[j] * ei
+				}
+				sRe, sIm = w*sRe, w*sIm
+				// Re(S·conj(e_j)) = sRe·eRe + sIm·eIm.
+				for j := 0; j < n; j++ {
+					out[j] += sRe*eRe[j] + sIm*eIm[j]
+				}
+			}
+		}
+	}
+	for j := 0; j < n; j++ {
+		phi[j] += out[j]
+	}
+	return count, true
 }

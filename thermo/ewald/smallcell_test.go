@@ -9,16 +9,26 @@ import (
 )
 
 // TestReciprocalSmallEqualsGeneral: on random neutral cells of 2 to
-// smallSites sites (random lattice shapes, positions and charges, several
-// splitting parameters), the small-cell reciprocal sum gives the same
-// potentials as the general one to 1e-12 of the largest of them. The
-// reference is the package's general path, itself checked against
-// pymatgen in reference_test.go.
+// structureSites sites (random lattice shapes, positions and charges,
+// several splitting parameters), the small-cell reciprocal sum by
+// structure factors gives the same potentials as the general one to 1e-12
+// of the largest of them, and so does the one on pairs (reciprocalPairs)
+// on cells of up to smallSites sites. The reference is the package's
+// general path, itself checked against pymatgen in reference_test.go.
 func TestReciprocalSmallEqualsGeneral(t *testing.T) {
+	t.Run("structure factors", func(t *testing.T) {
+		checkReciprocalSmall(t, structureSites, (*system).reciprocalSmall)
+	})
+	t.Run("pairs", func(t *testing.T) {
+		checkReciprocalSmall(t, smallSites, (*system).reciprocalPairs)
+	})
+}
+
+func checkReciprocalSmall(t *testing.T, maxSites int, small func(*system, float64, float64, []float64) (int, bool)) {
 	rng := rand.New(rand.NewSource(19))
 	checked := 0
 	for trial := 0; trial < 300; trial++ {
-		n := 2 + rng.Intn(smallSites-1)
+		n := 2 + rng.Intn(maxSites-1)
 		c := &crystal.Crystal{Name: "random small cell", FormulaUnits: 1}
 		for k := 0; k < 3; k++ {
 			c.Lattice[k][k] = 3 + 4*rng.Float64()
@@ -45,8 +55,8 @@ func TestReciprocalSmallEqualsGeneral(t *testing.T) {
 		alpha := s.balancedAlpha() * (0.7 + 0.6*rng.Float64())
 		p := math.Sqrt(-math.Log(DefaultAccuracy / 2))
 		kc := 2 * alpha * p
-		small := make([]float64, n)
-		count, ok := s.reciprocalSmall(alpha, kc, small)
+		got := make([]float64, n)
+		count, ok := small(s, alpha, kc, got)
 		if !ok {
 			continue // indices beyond smallOrder: the general path only
 		}
@@ -60,9 +70,9 @@ func TestReciprocalSmallEqualsGeneral(t *testing.T) {
 			scale = math.Max(scale, math.Abs(v))
 		}
 		for j := range general {
-			if d := math.Abs(small[j] - general[j]); !(d <= 1e-12*scale) {
+			if d := math.Abs(got[j] - general[j]); !(d <= 1e-12*scale) {
 				t.Errorf("trial %d (%d sites), site %d: small path %.17g, general %.17g (difference %.3g of %.3g)",
-					trial, n, j, small[j], general[j], d, scale)
+					trial, n, j, got[j], general[j], d, scale)
 			}
 		}
 		checked++
@@ -72,8 +82,8 @@ func TestReciprocalSmallEqualsGeneral(t *testing.T) {
 	}
 }
 
-// TestReciprocalSmallDeclines: a cell of more than smallSites sites is left
-// to the general path, with phi untouched.
+// TestReciprocalSmallDeclines: a cell of more than structureSites sites is
+// left to the general path, with phi untouched.
 func TestReciprocalSmallDeclines(t *testing.T) {
 	c := rockSaltSupercell(t, 2, 0.02) // 64 ions, no internal translations
 	s := newSystem(c, false)

@@ -17,6 +17,10 @@ import (
 // qualify.
 const smallFull = 16
 
+// smallSkew bounds |aₖ|⁶/V² for the lattice vectors aₖ of a cell on the
+// small path: no vector longer than 100 times the cube root of the volume.
+const smallSkew = 1e12
+
 // smallGenerators bounds the generators of the translation group of a
 // cell of smallFull sites: each generator at least doubles the group.
 const smallGenerators = 4
@@ -76,6 +80,45 @@ func (gr *smallGroup) orbit(i, n int) uint32 {
 		}
 	}
 	return set
+}
+
+// basis returns a reduced basis of the lattice of the cell lat with its g
+// translations (f holds the wrapped fractional positions the translations
+// were found on) when three of the translations and lattice vectors span
+// it: any three vectors of that lattice whose cell has 1/g of the volume
+// do (a sublattice of index one). It tries the translations first; it
+// reports false when no three of them span it, and the caller takes
+// primitiveLattice, which always can (but costs integer divisions).
+func (gr *smallGroup) basis(lat [3]crystal.Vec3, f []crystal.Vec3, g int) ([3]crystal.Vec3, bool) {
+	var cand [smallFull + 2]crystal.Vec3
+	k := 0
+	for o := gr.orbit(0, len(f)) &^ 1; o != 0; o &= o - 1 {
+		t := f[bits.TrailingZeros32(o)].Sub(f[0])
+		for d := range t {
+			t[d] -= (t[d] + roundingShift) - roundingShift // into [−½, ½]
+		}
+		cand[k] = t
+		k++
+	}
+	cand[k], cand[k+1], cand[k+2] = crystal.Vec3{1, 0, 0}, crystal.Vec3{0, 1, 0}, crystal.Vec3{0, 0, 1}
+	k += 3
+	want := 1 / float64(g)
+	for i := 0; i < k; i++ {
+		for j := i + 1; j < k; j++ {
+			cross := cand[i].Cross(cand[j])
+			for l := j + 1; l < k; l++ {
+				if math.Abs(math.Abs(cross.Dot(cand[l]))-want) > 1e-9*want {
+					continue
+				}
+				var out [3]crystal.Vec3
+				for r, v := range [3]crystal.Vec3{cand[i], cand[j], cand[l]} {
+					out[r] = lat[0].Scale(v[0]).Add(lat[1].Scale(v[1])).Add(lat[2].Scale(v[2]))
+				}
+				return crystal.ReduceBasis(out), true
+			}
+		}
+	}
+	return lat, false
 }
 
 // mapsSites reports whether the fractional translation t, not a lattice
@@ -141,11 +184,22 @@ func sumSmall(c *crystal.Crystal, eps, target, forcedAlpha float64) (Result, boo
 		return Result{}, false
 	}
 	volume := c.Volume()
+	// A lattice given by vectors far longer than the cell is wide (a needle
+	// or a skewed basis of a compact cell) loses digits in the positions
+	// and translations computed from them here; the general path works in
+	// its reduced basis throughout.
+	for _, a := range c.Lattice {
+		if d2 := a.Dot(a); d2*d2*d2 > smallSkew*volume*volume {
+			return Result{}, false
+		}
+	}
 	var lat [3]crystal.Vec3
 	if g > 1 {
 		var ok bool
-		if lat, ok = primitiveLattice(c.Lattice, gr.gens[:gr.nGen], g, volume); !ok {
-			return Result{}, false
+		if lat, ok = gr.basis(c.Lattice, f[:n], g); !ok {
+			if lat, ok = primitiveLattice(c.Lattice, gr.gens[:gr.nGen], g, volume); !ok {
+				return Result{}, false
+			}
 		}
 	} else {
 		lat = crystal.ReduceBasis(c.Lattice)
@@ -193,7 +247,7 @@ func sumSmall(c *crystal.Crystal, eps, target, forcedAlpha float64) (Result, boo
 	if !ok {
 		return Result{}, false
 	}
-	recipTerms, ok := sub.reciprocalSmall(alpha, kc, a.phiRec[:m])
+	recipTerms, ok := sub.reciprocalPairs(alpha, kc, a.phiRec[:m])
 	if !ok {
 		return Result{}, false
 	}
