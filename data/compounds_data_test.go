@@ -14,6 +14,7 @@ package data
 import (
 	"math"
 	"slices"
+	"strings"
 	"testing"
 
 	"enthalpath/thermo"
@@ -234,7 +235,10 @@ func TestCompoundStructures(t *testing.T) {
 			}
 		}
 		if len(c.Params) == 0 {
-			if !c.Density.Known() {
+			// Without a cell or a density the prototype gives the Madelung
+			// constant only; that is allowed where the row says no pinned
+			// source gives a density (the typed one is not used).
+			if !c.Density.Known() && !strings.Contains(c.Note, "not used: no pinned source gives it") {
 				t.Errorf("%s: structure %s without cell parameters or a density: no volume", c.Formula, c.Structure)
 			}
 			continue

@@ -212,7 +212,7 @@ func TestOverlayAtomicWeight(t *testing.T) {
 		t.Errorf("overlaid Na weight: %+v", na.AtomicMass)
 	}
 	// 22.98976928: CIAAW standard atomic weight of Na (Meija et al. 2016), as
-	// vendored in data/sources/atomic-weights/atomic_weights_ciaaw.csv.
+	// vendored in data/sources/atomic-weights/ase_data_init.py (line 96).
 	if na.AtomicMass.Replaced == nil || math.Abs(na.AtomicMass.Replaced.V-22.98976928) > 1e-9 {
 		t.Errorf("overlaid Na weight should keep the built-in 22.98976928 (CIAAW) in Replaced: %+v", na.AtomicMass.Replaced)
 	}

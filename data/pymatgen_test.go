@@ -53,7 +53,9 @@ var acceptedDisagreements = map[string]string{
 	"mass Ge":         "72.630 (IUPAC since 2009); pymatgen carries the earlier 72.64",
 	"mass Se":         "78.971 (IUPAC since 2013); pymatgen carries the earlier 78.96",
 	"mass Mo":         "95.95 (IUPAC since 2013); pymatgen carries the earlier 95.94",
-	"mass Rn":         "222, the mass number of radon-222 (CIAAW via mendeleev: no stable isotope); pymatgen carries 220",
+	"mass Rn":         "222.01758, the mass of radon-222 (IUPAC 2016 Table 4 as ASE carries it: no stable isotope); pymatgen carries 220",
+	"mass Ra":         "226.02541, the mass of radium-226 (IUPAC 2016 Table 4 as ASE carries it: no stable isotope); pymatgen carries the mass number 226",
+	"mass Yb":         "173.054, the 2013 value of ASE's IUPAC 2016 table (CIAAW revised it to 173.045 in 2015, from memory); pymatgen carries the earlier 173.04",
 }
 
 type pymatgenElements struct {

@@ -66,7 +66,7 @@ func numbersIn(line string) []float64 {
 //   - nist-asd, crc2014-ea: the value as printed;
 //   - shannon1976: 100 × the radius in Å is one of the line's radii in pm;
 //   - ciaaw: the atomic weight as printed;
-//   - crc2014-inorganic: 1000 × the density in g/cm³ is the line's kg/m³.
+//   - nist-xraylib: the density in g/cm³ as printed.
 //
 // correctedAtLocator lists the values the generator corrects on purpose (a
 // slip of the vendored copy, data/gen/choices.csv): they are not at their
@@ -123,10 +123,6 @@ func TestValuesAtTheirLocators(t *testing.T) {
 			// computation against the densities the CIFs print): the
 			// locator is the structure's cell.
 			found = strings.HasSuffix(what, " density") && (strings.TrimSpace(line) == "@CELL" || strings.HasPrefix(line, "_cell_length_a"))
-		case "crc2014-inorganic":
-			for _, x := range numbersIn(line) {
-				found = found || math.Abs(x-1000*v.V) < 1e-6 // kg/m³ in the file
-			}
 		default:
 			for _, x := range numbersIn(line) {
 				found = found || math.Abs(x-v.V) < 1e-9
@@ -187,7 +183,7 @@ func TestValuesAtTheirLocators(t *testing.T) {
 		t.Errorf("correctedAtLocator lists %s, which was not checked: remove it", what)
 	}
 	t.Logf("values found at their locators, by source: %v", checked)
-	for _, src := range []string{"nbs1982", "nasa-glenn", "atct1.112", "nist-asd", "crc2014-ea", "shannon1976", "ciaaw", "crc2014-inorganic"} {
+	for _, src := range []string{"nbs1982", "nasa-glenn", "atct1.112", "nist-asd", "crc2014-ea", "shannon1976", "ciaaw", "nist-xraylib"} {
 		if checked[src] == 0 {
 			t.Errorf("no value of %s was checked at its locator", src)
 		}

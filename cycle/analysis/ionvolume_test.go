@@ -11,7 +11,9 @@ import (
 // fit here is cruder (one volume for every O ligand, one for every central
 // atom), and the 1999 split between cation and anion differs (theirs takes
 // cation volumes from radii alone): 30 % is the bound, our choice; the
-// differences are logged.
+// differences are logged. At least 80 salts: 89 have a cell or a density
+// from a pinned source since the CRC density table left the data (204
+// before); the bound guards against the fit running on a handful.
 func TestIonVolumesAgainstJenkins1999FromMemory(t *testing.T) {
 	a := measuredAnalyst(t)
 	f, err := a.IonVolumes()
@@ -19,8 +21,8 @@ func TestIonVolumesAgainstJenkins1999FromMemory(t *testing.T) {
 		t.Fatal(err)
 	}
 	t.Logf("%d salts with a measured V_m, relative RMS %.3f", f.Salts, f.RelativeRMS)
-	if f.Salts < 150 || !(f.RelativeRMS > 0) || f.RelativeRMS > 0.25 {
-		t.Errorf("fit over %d salts, relative RMS %.3f: want at least 150 salts and an RMS under 25 %%", f.Salts, f.RelativeRMS)
+	if f.Salts < 80 || !(f.RelativeRMS > 0) || f.RelativeRMS > 0.25 {
+		t.Errorf("fit over %d salts, relative RMS %.3f: want at least 80 salts and an RMS under 25 %%", f.Salts, f.RelativeRMS)
 	}
 	for _, tc := range []struct {
 		ion       string

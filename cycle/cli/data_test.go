@@ -93,9 +93,12 @@ func TestDataText(t *testing.T) {
 		{[]string{"Ca 2+"}, []string{"Ca2+", "Shannon radii"}},
 		{[]string{"sodium"}, []string{"Na  sodium"}},
 		{[]string{"ClNa"}, []string{"NaCl", "Formation ΔfH°", "nbs1982"}},
-		// The density's line in its vendored source, and a cell read from a
-		// deposited structure with the file and line it stands on.
-		{[]string{"NaCl"}, []string{"Density  2.17", "  at crc-inorganic/physical_constants_inorganic.tsv:"}},
+		// The density and the line of the vendored source it stands on (the
+		// X-ray density of COD 9003308's cell, a = 5.6401 Å: 4·58.443 g/mol
+		// / (N_A·179.42 Å³) = 2.164 g/cm³, the cell volume the file's own
+		// comment prints), and a cell read from a deposited structure with
+		// the file and line it stands on.
+		{[]string{"NaCl"}, []string{"Density  2.164", "  at cod-cells/NaCl_sg225_SodiumChloride.ncmat:"}},
 		{[]string{"NiO"}, []string{"a = 4.1684", "[cod-debian]", "COD 9008693", "cod-debian/NiO-Bunsenite.cif:"}},
 		{[]string{"--kind", "element", "Co"}, []string{"Co  cobalt"}},
 		{[]string{"--list", "sources"}, []string{"shannon1976", "Acta Crystallogr."}},

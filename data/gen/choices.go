@@ -32,9 +32,6 @@ import (
 //   - radiusslip: key "symbol|charge|CN|spin" of a Shannon row, value
 //     "column;printed;corrected" in pm: a radius the vendored copy prints
 //     wrongly; the generator fails if the copy no longer prints it so.
-//   - crcname: key a formula, value the compound's name in the CRC table
-//     of physical constants (crc-inorganic/) where it differs from ours
-//     beyond the spellings crcKey evens out.
 //   - spelling: key an ion symbol, value other ways the NBS tables write
 //     it in a formula, separated by ";" (a formula must name both its
 //     ions, or it is read as a molecule and left out).

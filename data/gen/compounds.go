@@ -215,8 +215,10 @@ var keptValueFields = []struct{ memory, field string }{
 
 // mergeKept copies the hand-kept fields into a generated row. With
 // formation set it also copies the kept formation enthalpy (a compound the
-// sources do not give). A density the CRC table gives replaces the kept
-// one. The memory cell lists the kept values the row still carries.
+// sources do not give). A density comes only from a pinned source: the
+// X-ray density of the compound's deposited cell, else a compilation's
+// measured one; a typed density is not used (it stays in the note). The
+// memory cell lists the kept values the row still carries.
 func (g *generator) mergeKept(row, k map[string]string, formation bool) {
 	for _, f := range []string{"name", "family", "cation", "cation_count", "anion", "anion_count", "structure", "params", "params_source",
 		"density_g_cm3", "density_source", "lattice_kj_per_mol", "lattice_convention", "lattice_source", "note"} {
@@ -240,10 +242,10 @@ func (g *generator) mergeKept(row, k map[string]string, formation bool) {
 		}
 		mem = append(mem, "formation")
 	}
-	sourced := g.addCRCDensity(row, k["formula"], row["name"]) || g.addXrayDensity(row, k)
 	cellSourced := g.addDepositedCell(row, k)
+	g.addSourcedDensity(row, k, cellSourced || k["params"] == "")
 	for _, kv := range keptValueFields {
-		if kv.memory == "density" && sourced || kv.memory == "params" && cellSourced {
+		if kv.memory == "density" || kv.memory == "params" && cellSourced {
 			continue
 		}
 		if k[kv.field] != "" && memoryNames(k["memory"], kv.memory) {
@@ -253,14 +255,32 @@ func (g *generator) mergeKept(row, k map[string]string, formation bool) {
 	row["memory"] = strings.Join(mem, ";")
 }
 
-// addCRCDensity writes the CRC table's density of the compound into the
-// row, with its source and locator, and says whether it found one.
-func (g *generator) addCRCDensity(row map[string]string, formula, name string) bool {
-	d, loc, ok := g.crcDensity(formula, name)
-	if ok {
-		row["density_g_cm3"], row["density_source"], row["density_locator"] = d, keyCRCInorg, loc
+// addSourcedDensity writes the density of a kept compound from a pinned
+// source: the X-ray density of its deposited cell where that cell is
+// trusted (it replaced the typed cell, or there is no typed cell to check
+// it against: a cell outside cellTolerance of the typed one is not), else
+// the density a vendored compilation gives for its composition. The typed density of
+// kept/compounds.csv (recalled, without its document) is never written
+// as the value: where no pinned source gives one the compound has no
+// density, and the typed number stays in the note for whoever checks it.
+func (g *generator) addSourcedDensity(row, k map[string]string, cellTrusted bool) {
+	row["density_g_cm3"], row["density_source"], row["density_locator"] = "", "", ""
+	if cellTrusted && g.addXrayDensity(row, k) || g.addCompiledDensity(row, k) {
+		return
 	}
-	return ok
+	if typed := k["density_g_cm3"]; typed != "" {
+		row["note"] = fmtNote(row["note"], fmt.Sprintf("density: typed %s g/cm³ (%s, from memory) not used: no pinned source gives it", typed, typedDensitySource(k["density_source"])))
+	}
+}
+
+// typedDensitySource names the document a typed density was recalled
+// from: the key of kept/compounds.csv, spelt out for the key that left
+// sources.csv with the values it cited.
+func typedDensitySource(key string) string {
+	if key == "crc-inorganic" {
+		return "CRC Handbook of Chemistry and Physics, 88th ed., section 4"
+	}
+	return key
 }
 
 // addDepositedCell writes the cell a deposited structure gives into the

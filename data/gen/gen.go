@@ -13,30 +13,30 @@ import (
 
 // Source keys of sources.csv the generator cites.
 const (
-	keyNBS      = "nbs1982"
-	keyNASA     = "nasa-glenn"
-	keyATcT     = "atct1.112"
-	keyASD      = "nist-asd"
-	keyCRCEA    = "crc2014-ea"
-	keyShannon  = "shannon1976"
-	keyCIAAW    = "ciaaw"
-	keyCRCInorg = "crc2014-inorganic"
-	thermalRT   = 6.197 // 5/2·R·298.15 K in kJ/mol, as the NBS tables print it for e⁻
-	maxIonStage = 8
+	keyNBS           = "nbs1982"
+	keyNASA          = "nasa-glenn"
+	keyATcT          = "atct1.112"
+	keyASD           = "nist-asd"
+	keyCRCEA         = "crc2014-ea"
+	keyShannon       = "shannon1976"
+	keyCIAAW         = "ciaaw"
+	keyNISTCompounds = "nist-xraylib"
+	thermalRT        = 6.197 // 5/2·R·298.15 K in kJ/mol, as the NBS tables print it for e⁻
+	maxIonStage      = 8
 )
 
 // generator holds the parsed sources and the hand-kept choices.
 type generator struct {
 	sourcesDir, keptDir, tablesDir string
 
-	nbs     []nbsRow
-	nbsIdx  map[string][]int // formula → rows (all states)
-	nasa    []nasaSpecies
-	atct    map[string]atctSpecies
-	crc     map[string]crcRow        // CRC physical constants by crcKey of the name
-	cells   map[string]depositedCell // deposited structures by composition key
-	weights map[string]float64       // CIAAW standard atomic weights by symbol (X-ray densities)
-	choices *choices
+	nbs           []nbsRow
+	nbsIdx        map[string][]int // formula → rows (all states)
+	nasa          []nasaSpecies
+	atct          map[string]atctSpecies
+	cells         map[string]depositedCell // deposited structures by composition key
+	weights       map[string]float64       // IUPAC 2016 atomic weights by symbol (X-ray densities)
+	nistCompounds []nistCompound           // NIST compound list (densities)
+	choices       *choices
 
 	warnings []string
 
@@ -67,13 +67,13 @@ func newGenerator(sourcesDir, keptDir, tablesDir string) (*generator, error) {
 	if g.atct, err = readATcT(sourcesDir); err != nil {
 		return nil, err
 	}
-	if g.crc, err = readCRCInorganic(sourcesDir); err != nil {
-		return nil, err
-	}
 	if g.cells, err = readDepositedCells(sourcesDir); err != nil {
 		return nil, err
 	}
 	if g.weights, err = readAtomicWeights(sourcesDir); err != nil {
+		return nil, err
+	}
+	if g.nistCompounds, err = readNISTCompounds(sourcesDir); err != nil {
 		return nil, err
 	}
 	return g, nil

@@ -15,14 +15,15 @@ import (
 // Paths of the vendored source files, relative to the sources folder; a
 // locator is one of these, a colon and a line number.
 const (
-	nbsFile          = "nbs-tables-1982/NBS_Tables_with_ErratumValues.csv"
-	nasaFile         = "nasa-cea-thermo/thermo.inp"
-	atctFile         = "atct-1.112/ATcT_1.112_gas.tsv"
-	asdFile          = "nist-asd-ionization/ionization_energies_nist_asd.csv"
-	affinityFile     = "electron-affinities/electron_affinities.csv"
-	shannonFile      = "shannon-radii/shannon_radii.csv"
-	weightsFile      = "atomic-weights/atomic_weights_ciaaw.csv"
-	crcInorganicFile = "crc-inorganic/physical_constants_inorganic.tsv"
+	nbsFile           = "nbs-tables-1982/NBS_Tables_with_ErratumValues.csv"
+	nasaFile          = "nasa-cea-thermo/thermo.inp"
+	atctFile          = "atct-1.112/ATcT_1.112_gas.tsv"
+	asdFile           = "nist-asd-ionization/ionization_energies_nist_asd.csv"
+	affinityFile      = "electron-affinities/electron_affinities.csv"
+	shannonFile       = "shannon-radii/shannon_radii.csv"
+	asePeriodicFile   = "atomic-weights/ase_data_init.py"
+	nistPeriodicFile  = "atomic-weights/periodictable_mass.py"
+	nistCompoundsFile = "nist-compounds/nist_compounds_xraylib.csv"
 )
 
 func locator(file string, line int) string { return fmt.Sprintf("%s:%d", file, line) }

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+	"strings"
 )
 
 // avogadroConstant is N_A in mol⁻¹ (exact, SI 2019).
@@ -50,13 +51,10 @@ func cellVolume(c depositedCell) float64 {
 }
 
 // addXrayDensity writes the X-ray density of the compound's deposited
-// structure into a row whose density no measured source gives, for a kept
-// compound whose typed density is the only one (a prototype's cell is not
-// needed: the structure's own atoms give Z). It says whether it wrote one.
+// structure into the row (a prototype's cell is not needed: the
+// structure's own atoms give Z), keeping a typed density in the note. It
+// says whether it wrote one.
 func (g *generator) addXrayDensity(row, k map[string]string) bool {
-	if k["density_g_cm3"] == "" {
-		return false
-	}
 	comp, _, ok := composition(k["formula"])
 	if !ok {
 		return false
@@ -71,7 +69,11 @@ func (g *generator) addXrayDensity(row, k map[string]string) bool {
 		return false
 	}
 	row["density_g_cm3"], row["density_source"], row["density_locator"] = strconv.FormatFloat(rho, 'f', 3, 64), c.source, locator(c.file, c.cellLine)
-	row["note"] = fmtNote(row["note"], fmt.Sprintf("density: X-ray density Z·M/(N_A·V) of COD %s (%s:%d); typed %s", c.entry, c.file, c.cellLine, k["density_g_cm3"]))
+	clause := fmt.Sprintf("density: X-ray density Z·M/(N_A·V) of COD %s (%s:%d)", c.entry, c.file, c.cellLine)
+	if typed := k["density_g_cm3"]; typed != "" {
+		clause += "; typed " + typed
+	}
+	row["note"] = fmtNote(row["note"], clause)
 	return true
 }
 
@@ -83,17 +85,108 @@ func fmtNote(note, clause string) string {
 	return note + "; " + clause
 }
 
-// readAtomicWeights reads the vendored CIAAW weights by symbol.
-func readAtomicWeights(sourcesDir string) (map[string]float64, error) {
-	rows, err := readCSVFile(sourcesDir, weightsFile)
+// nistCompound is one material of the vendored NIST compound list
+// (nist-compounds/): its name, density as printed, and mass fractions.
+type nistCompound struct {
+	line      int
+	name      string
+	density   string
+	fractions map[string]float64
+}
+
+// fractionTolerance is how far a material's mass fraction may lie from
+// the one a formula's atomic weights give and still be that formula: the
+// list prints six decimals, and the 2016 weights differ from older ones
+// by far less than 10⁻³ of a fraction (common practice, no source).
+const fractionTolerance = 1e-3
+
+// readNISTCompounds reads the vendored NIST compound list.
+func readNISTCompounds(dir string) ([]nistCompound, error) {
+	rows, err := readCSVFile(dir, nistCompoundsFile)
 	if err != nil {
 		return nil, err
 	}
-	out := make(map[string]float64, len(rows))
+	out := make([]nistCompound, 0, len(rows))
 	for _, r := range rows {
-		if w, err := strconv.ParseFloat(r.Cells["atomic_weight"], 64); err == nil {
-			out[r.Cells["symbol"]] = w
+		els := strings.Split(r.Cells["elements"], ";")
+		ws := strings.Split(r.Cells["mass_fractions"], ";")
+		if len(els) != len(ws) {
+			return nil, fmt.Errorf("%s:%d: %d elements, %d mass fractions", nistCompoundsFile, r.Line, len(els), len(ws))
 		}
+		m := nistCompound{line: r.Line, name: r.Cells["name"], density: r.Cells["density_g_cm3"], fractions: map[string]float64{}}
+		for i, el := range els {
+			w, err := strconv.ParseFloat(ws[i], 64)
+			if err != nil {
+				return nil, fmt.Errorf("%s:%d: %w", nistCompoundsFile, r.Line, err)
+			}
+			m.fractions[el] = w
+		}
+		out = append(out, m)
 	}
 	return out, nil
+}
+
+// massFractions are the mass fractions of a composition from the atomic
+// weights; ok is false when a weight is missing.
+func (g *generator) massFractions(comp map[string]float64) (map[string]float64, bool) {
+	total := 0.0
+	out := map[string]float64{}
+	for el, n := range comp {
+		w, ok := g.weights[el]
+		if !ok {
+			return nil, false
+		}
+		out[el] = n * w
+		total += n * w
+	}
+	for el := range out {
+		out[el] /= total
+	}
+	return out, true
+}
+
+// addCompiledDensity writes the density the NIST compound list gives for
+// a material of the compound's composition (same elements, every mass
+// fraction within fractionTolerance). A composition two materials fit is
+// ambiguous and gets none.
+func (g *generator) addCompiledDensity(row, k map[string]string) bool {
+	comp, _, ok := composition(k["formula"])
+	if !ok {
+		return false
+	}
+	want, ok := g.massFractions(comp)
+	if !ok {
+		return false
+	}
+	var found []nistCompound
+	for _, m := range g.nistCompounds {
+		if len(m.fractions) != len(want) {
+			continue
+		}
+		fits := true
+		for el, w := range want {
+			if f, ok := m.fractions[el]; !ok || math.Abs(f-w) > fractionTolerance {
+				fits = false
+				break
+			}
+		}
+		if fits {
+			found = append(found, m)
+		}
+	}
+	switch {
+	case len(found) == 0:
+		return false
+	case len(found) > 1:
+		g.warnf("kept compound %s: the NIST compound list has %q and %q of its composition: no density taken", k["formula"], found[0].name, found[1].name)
+		return false
+	}
+	m := found[0]
+	row["density_g_cm3"], row["density_source"], row["density_locator"] = m.density, keyNISTCompounds, locator(nistCompoundsFile, m.line)
+	clause := fmt.Sprintf("density: NIST compound list %q (%s:%d)", m.name, nistCompoundsFile, m.line)
+	if typed := k["density_g_cm3"]; typed != "" {
+		clause += "; typed " + typed
+	}
+	row["note"] = fmtNote(row["note"], clause)
+	return true
 }
