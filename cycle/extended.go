@@ -167,27 +167,16 @@ func (m *Memo) pairSums(st Structure, cation, anion Part) (structureSums, error)
 	e, ok := m.sums[key]
 	m.mu.Unlock()
 	if ok {
-		return e.v, e.err
-	}
-	fkey := failureKey(key, cation, anion) // a failure may name the ions
-	m.mu.Lock()
-	e, ok = m.sums[fkey]
-	m.mu.Unlock()
-	if ok {
-		return e.v, e.err
+		return e.v, wordFit(e.err, cation, anion)
 	}
 	v, err := computePairSums(st, cation, anion)
 	m.mu.Lock()
 	if m.sums == nil || len(m.sums) >= maxMemo {
 		m.sums = map[string]sumsEntry{}
 	}
-	if err == nil {
-		m.sums[key] = sumsEntry{v, nil}
-	} else {
-		m.sums[fkey] = sumsEntry{v, err}
-	}
+	m.sums[key] = sumsEntry{v, err}
 	m.mu.Unlock()
-	return v, err
+	return v, wordFit(err, cation, anion)
 }
 
 type sumsEntry struct {

@@ -1,6 +1,7 @@
 package cycle
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -85,37 +86,41 @@ func (m *Memo) Madelung(st Structure, cation, anion Part, accuracy float64) (Mad
 	}
 	key, e, ok := m.lookup(st, cation, anion, accuracy)
 	if ok {
-		return e.v, e.err
-	}
-	fkey := failureKey(key, cation, anion)
-	m.mu.Lock()
-	e, ok = m.m[fkey]
-	m.mu.Unlock()
-	if ok {
-		return e.v, e.err
+		return e.v, wordFit(e.err, cation, anion)
 	}
 	v, err := m.sumByShape(st, cation, anion, accuracy)
 	m.mu.Lock()
 	if len(m.m) >= maxMemo {
 		clear(m.m)
 	}
-	if err == nil {
-		m.m[key] = memoEntry{v, nil}
-	} else {
-		m.m[fkey] = memoEntry{v, err}
-	}
+	m.m[key] = memoEntry{v, err}
 	m.mu.Unlock()
-	return v, err
+	return v, wordFit(err, cation, anion)
 }
 
-// failureKey is where a sum that failed is remembered: under the sum's key
-// and the ions' symbols, since its error may name the ions (a prototype
-// that does not fit them) while the sum's key holds only their charges. A
-// failure remembered under the sum's key alone would be worded with the
-// ions of whichever compound met it first: with the batch's workers, not
-// the same compound from one run to the next.
-func failureKey(key string, cation, anion Part) string {
-	return key + "\x00" + cation.Ion.Symbol + "\x00" + anion.Ion.Symbol
+// unfitIons is why a prototype does not take a compound's ions (crystal's
+// WithIons, which names slots and charges only). The memo keeps it under
+// the sum's key, which holds the ions' charges and not their symbols, and
+// wordFit words it with the ions of the compound asked: remembered worded,
+// every later compound of the same charges would get the first one's ions
+// (with the batch's workers, a different first compound from run to run).
+type unfitIons struct {
+	prototype string
+	err       error
+}
+
+func (u *unfitIons) Error() string {
+	return "the " + u.prototype + " prototype does not fit the ions: " + u.err.Error()
+}
+
+// wordFit returns err, with an unfitIons worded for cation and anion.
+func wordFit(err error, cation, anion Part) error {
+	var u *unfitIons
+	if !errors.As(err, &u) {
+		return err
+	}
+	return &ModelError{Model: ModelEwald,
+		Reason: fmt.Sprintf("the %s prototype does not fit %s and %s", u.prototype, cation.Ion.Symbol, anion.Ion.Symbol), Err: u.err}
 }
 
 // Remembered returns the sum Madelung would return if it has been
@@ -206,8 +211,7 @@ func buildCell(st Structure, cation, anion Part) (*crystal.Crystal, error) {
 	}
 	cell, err := proto.WithIons(ions)
 	if err != nil {
-		return nil, &ModelError{Model: ModelEwald,
-			Reason: fmt.Sprintf("the %s prototype does not fit %s and %s", st.Prototype, cation.Ion.Symbol, anion.Ion.Symbol), Err: err}
+		return nil, &unfitIons{prototype: st.Prototype, err: err} // worded by wordFit
 	}
 	return cell, nil
 }
