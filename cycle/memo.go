@@ -1,7 +1,6 @@
 package cycle
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -115,12 +114,12 @@ func (u *unfitIons) Error() string {
 
 // wordFit returns err, with an unfitIons worded for cation and anion.
 func wordFit(err error, cation, anion Part) error {
-	var u *unfitIons
-	if !errors.As(err, &u) {
+	u, ok := err.(*unfitIons) // kept as buildCell returns it
+	if !ok {
 		return err
 	}
 	return &ModelError{Model: ModelEwald,
-		Reason: fmt.Sprintf("the %s prototype does not fit %s and %s", u.prototype, cation.Ion.Symbol, anion.Ion.Symbol), Err: u.err}
+		Reason: "the " + u.prototype + " prototype does not fit " + cation.Ion.Symbol + " and " + anion.Ion.Symbol, Err: u.err}
 }
 
 // Remembered returns the sum Madelung would return if it has been
