@@ -44,6 +44,9 @@ type MadelungValue struct {
 type Memo struct {
 	mu sync.Mutex
 	m  map[string]memoEntry
+	// shapes holds the Ewald sums of the prototypes' canonical cells, by
+	// shape (shape.go); m the sums of structures scaled from them.
+	shapes map[string]MadelungValue
 	// sums holds the extended model's pair sums per structure (extended.go).
 	sums map[string]sumsEntry
 	// ext holds the extended model's evaluations (extended.go).
@@ -84,7 +87,7 @@ func (m *Memo) Madelung(st Structure, cation, anion Part, accuracy float64) (Mad
 	if ok {
 		return e.v, e.err
 	}
-	v, err := sumStructure(st, cation, anion, accuracy)
+	v, err := m.sumByShape(st, cation, anion, accuracy)
 	m.mu.Lock()
 	if len(m.m) >= maxMemo {
 		clear(m.m)

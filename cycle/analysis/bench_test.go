@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -133,6 +134,98 @@ func BenchmarkBatchDistinct10000(b *testing.B) {
 	for b.Loop() {
 		if _, err := a.Batch(bytes.NewReader(in.Bytes()), io.Discard, BatchOptions{}); err != nil {
 			b.Fatal(err)
+		}
+	}
+}
+
+// distinctBatchInput makes an invented screening list of n rows no two of
+// which are the same (demo data): the built-in compounds with a structure
+// and batchInput's 288 formulas, each under every estimate model, each
+// model with and without a prototype in the structure column, and past the
+// first round of those a cation radius stepped by 0.0001 Å per round (a
+// radius sweep), so that no row repeats another. Rows that fail (a model
+// without its inputs) are kept: they are rows a screening list holds.
+func distinctBatchInput(db *data.DB, n int) []byte {
+	var formulas []string
+	for _, c := range db.Compounds() {
+		if c.Structure != "" {
+			formulas = append(formulas, c.Formula)
+		}
+	}
+	demo := strings.Split(strings.TrimSuffix(string(batchInput(288)), "\n"), "\n")[1:]
+	charges := make([]string, len(formulas), len(formulas)+len(demo))
+	for _, line := range demo {
+		f, ch, _ := strings.Cut(line, ",")
+		formulas, charges = append(formulas, f), append(charges, ch)
+	}
+	models := EstimateModels()
+	structures := []string{"", "rock-salt", "fluorite", "rutile", "wurtzite", "corundum"}
+	var b bytes.Buffer
+	b.WriteString("formula,charges,model,structure,cation_radius\n")
+	per := len(formulas) * len(models) * len(structures)
+	for i := range n {
+		f := i % len(formulas)
+		m := models[(i/len(formulas))%len(models)]
+		st := structures[(i/(len(formulas)*len(models)))%len(structures)]
+		radius := ""
+		if round := i / per; round > 0 {
+			radius = strconv.FormatFloat(0.5+0.0001*float64(round), 'f', 4, 64)
+		}
+		fmt.Fprintf(&b, "%s,%s,%s,%s,%s\n", formulas[f], charges[f], m, st, radius)
+	}
+	return b.Bytes()
+}
+
+// distinctInputFile, when set, is where TestDistinctBatchInputRecipe writes
+// the distinct batch input (100,000 rows of distinctBatchInput):
+//
+//	go test ./cycle/analysis -run TestDistinctBatchInputRecipe -distinct-input /tmp/distinct100k.csv
+var distinctInputFile = flag.String("distinct-input", "", "write the 100,000-row distinct batch input to this `file`")
+
+// TestDistinctBatchInputRecipe: the distinct input's 100,000 rows are all
+// different and it mixes built-in compounds with demo formulas; with
+// -distinct-input it is written to a file.
+func TestDistinctBatchInputRecipe(t *testing.T) {
+	in := distinctBatchInput(testAnalyst(t).DB(), 100000)
+	rows, err := csv.NewReader(bytes.NewReader(in)).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(rows) != 100001 {
+		t.Fatalf("%d rows", len(rows))
+	}
+	seen := map[string]bool{}
+	for _, r := range rows[1:] {
+		k := strings.Join(r, "\x00")
+		if seen[k] {
+			t.Fatalf("row %q repeats", r)
+		}
+		seen[k] = true
+	}
+	if *distinctInputFile != "" {
+		if err := os.WriteFile(*distinctInputFile, in, 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkBatchDistinctWhole100000 is BenchmarkBatchWhole100000 on the
+// distinct input (100,000 rows, none repeated, demo data).
+func BenchmarkBatchDistinctWhole100000(b *testing.B) {
+	db0, err := data.Load()
+	if err != nil {
+		b.Fatal(err)
+	}
+	in := distinctBatchInput(db0, 100000)
+	b.ReportAllocs()
+	for b.Loop() {
+		db, err := data.Load()
+		if err != nil {
+			b.Fatal(err)
+		}
+		sum, err := New(db).Batch(bytes.NewReader(in), io.Discard, BatchOptions{})
+		if err != nil || sum.Rows != 100000 {
+			b.Fatalf("%d rows: %v", sum.Rows, err)
 		}
 	}
 }

@@ -100,8 +100,8 @@
 // length until |t| ≥ rc + |d| (translationList); a smaller cell searches
 // the box of images around each pair. The splitting parameter is set from
 // measured costs (BenchmarkTermCost, see balancedAlpha), and raised (by
-// up to oneImageStretch) when that brings the cut-off under half the plane spacings
-// (chooseAlpha). The translation search that finds the primitive cell
+// up to oneImageStretch) when that brings the cut-off under half the
+// plane spacings (chooseAlpha). The translation search that finds the primitive cell
 // scans the sites of a small cell and bisects a sorted list in a large
 // one; no hash map is built. Set-up and the real-space sum allocate a few
 // slices per call on the general path.

@@ -197,8 +197,8 @@ func (s *system) reciprocalGeneral(alpha, kc float64, phi []float64) int {
 // so the pair costs what one vector does, and rows of a nearly orthogonal
 // cell are nearly symmetric in m2.
 type mirrorPair struct {
-	m          int
-	plus, minu float64
+	m           int
+	plus, minus float64
 }
 
 // coefficients turns the charge-weighted sums f = (ΣqA, ΣqB, ΣqC, ΣqD) of
@@ -206,8 +206,8 @@ type mirrorPair struct {
 // Σ± w±·Re(S±·conj(phase±)) = Re p·(a·Re z + b·Im z) + Im p·(c·Im z + d·Re z).
 func (mp *mirrorPair) coefficients(f [4]float64) [4]float64 {
 	plusRe, plusIm := mp.plus*(f[0]-f[1]), mp.plus*(f[2]+f[3])
-	minuRe, minuIm := mp.minu*(f[0]+f[1]), mp.minu*(f[3]-f[2])
-	return [4]float64{plusRe + minuRe, plusIm - minuIm, minuRe - plusRe, plusIm + minuIm}
+	minusRe, minusIm := mp.minus*(f[0]+f[1]), mp.minus*(f[3]-f[2])
+	return [4]float64{plusRe + minusRe, plusIm - minusIm, minusRe - plusRe, plusIm + minusIm}
 }
 
 // mirrorSums returns, for two rows of z (za, zb), the charge-weighted

@@ -43,14 +43,17 @@ func newSphere(lat [3]crystal.Vec3, alpha, rc float64, b0 float64) sphere {
 	return sp
 }
 
-// images returns Σ erfc(α|w|)/|w| / α over the vectors w = D + m (D and m
+// images returns Σ erfc(α|w|)/|w| over the vectors w = D + m (D and m
 // fractional, m integral) with |w| < rc, their number and the shortest
 // |w|, and whether one is shorter than coincident. With half, D is e/2
 // for the integers e up to rounding (then −w runs over the same set as w)
 // and only the w of the half space w₀ > 0, or w₀ = 0 and w₁ > 0, or
-// w₀ = w₁ = 0 and w₂ > 0 are taken, each standing for ±w.
+// w₀ = w₁ = 0 and w₂ > 0 are taken, each standing for ±w. The squared
+// lengths go to the kernel (screenedPairs) in batches.
 func (sp *sphere) images(D [3]float64, half bool, e [3]int) (sum float64, count int, shortest float64, overlap bool) {
-	shortest = math.Inf(1)
+	shortest2 := math.Inf(1)
+	var batch, terms [32]float64
+	nb := 0
 	lo0, hi0 := int(math.Ceil(-D[0]-sp.h0)), int(math.Floor(-D[0]+sp.h0))
 	if half {
 		lo0 = max(lo0, (1-e[0])>>1) // 2m₀ + e₀ ≥ 0
@@ -95,16 +98,32 @@ func (sp *sphere) images(D [3]float64, half bool, e [3]int) (sum float64, count 
 					overlap = true
 					continue
 				}
-				r := math.Sqrt(r2)
-				sum += screened(sp.alpha * r)
-				count++
-				if r < shortest {
-					shortest = r
+				if r2 < shortest2 {
+					shortest2 = r2
+				}
+				batch[nb] = r2
+				if nb++; nb == len(batch) {
+					sum += sp.kernel(batch[:], terms[:])
+					count += nb
+					nb = 0
 				}
 			}
 		}
 	}
+	sum += sp.kernel(batch[:nb], terms[:nb])
+	count += nb
+	shortest = math.Sqrt(shortest2)
 	return sum, count, shortest, overlap
+}
+
+// kernel returns Σ erfc(α·rₘ)/rₘ over the squared distances d2.
+func (sp *sphere) kernel(d2, e []float64) float64 {
+	screenedPairs(sp.alpha, d2, e)
+	sum := 0.0
+	for _, v := range e {
+		sum += v
+	}
+	return sum
 }
 
 // realSmall adds to phi[i] the screened sum Σⱼ Σₙ' qⱼ·erfc(α·r)/r over all
@@ -151,14 +170,14 @@ func (s *system) realSmall(alpha, rc float64, phi []float64) (terms int, nearest
 		}
 	}
 	selfSum, selfCount, _, _ := sp.images([3]float64{}, true, [3]int{})
-	self := 2 * alpha * selfSum
+	self := 2 * selfSum
 	terms = 2 * n * selfCount
 	p = 0
 	for i := 0; i < n; i++ {
 		qi := s.q[i]
 		phi[i] += qi * self
 		for j := i + 1; j < n; j++ {
-			e := alpha * sum[p]
+			e := sum[p]
 			phi[i] += s.q[j] * e
 			phi[j] += qi * e
 			terms += 2 * count[p]
