@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 	"slices"
-	"sort"
 	"strconv"
 	"strings"
 	"sync"
@@ -134,15 +133,25 @@ func (m *Memo) Remembered(st Structure, cation, anion Part, accuracy float64) (M
 
 // lookup returns the memo's key for a sum and the entry kept under it.
 func (m *Memo) lookup(st Structure, cation, anion Part, accuracy float64) (string, memoEntry, bool) {
-	key := memoKey(st, cation, anion, accuracy)
+	var buf [128]byte
+	key := appendMemoKey(buf[:0], st, cation, anion, accuracy)
 	m.mu.Lock()
-	e, ok := m.m[key]
+	e, ok := m.m[string(key)] // no copy for a lookup
 	m.mu.Unlock()
-	return key, e, ok
+	if ok {
+		return "", e, true // the key is not needed: nothing is stored
+	}
+	return string(key), e, false
 }
 
 func memoKey(st Structure, cation, anion Part, accuracy float64) string {
-	b := make([]byte, 0, 64)
+	return string(appendMemoKey(make([]byte, 0, 64), st, cation, anion, accuracy))
+}
+
+// appendMemoKey appends the memo's key for a sum to b: the charges, the
+// accuracy and the structure (a cell's every site, or a prototype's name
+// and its parameters by name).
+func appendMemoKey(b []byte, st Structure, cation, anion Part, accuracy float64) []byte {
 	b = strconv.AppendInt(b, int64(cation.Ion.Charge), 10)
 	b = append(b, '|')
 	b = strconv.AppendInt(b, int64(anion.Ion.Charge), 10)
@@ -155,21 +164,22 @@ func memoKey(st Structure, cation, anion Part, accuracy float64) string {
 		for _, s := range cell.Sites {
 			b = fmt.Appendf(b, "%s,%g,%v;", s.Species, s.Charge, s.Frac)
 		}
-		return string(b)
+		return b
 	}
 	b = append(b, st.Prototype...)
-	keys := make([]string, 0, len(st.Params))
+	var names [8]string // a prototype has at most four parameters
+	keys := names[:0]
 	for k := range st.Params {
 		keys = append(keys, k)
 	}
-	sort.Strings(keys)
+	slices.Sort(keys)
 	for _, k := range keys {
 		b = append(b, '|')
 		b = append(b, k...)
 		b = append(b, '=')
 		b = strconv.AppendFloat(b, st.Params[k], 'g', -1, 64)
 	}
-	return string(b)
+	return b
 }
 
 func sumStructure(st Structure, cation, anion Part, accuracy float64) (MadelungValue, error) {
