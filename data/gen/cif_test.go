@@ -29,6 +29,19 @@ func TestCIFCellsAgainstTheirPrintedVolume(t *testing.T) {
 		"MnO2-Pyrolusite.cif": 2 * 3, "Na2O.cif": 4 * 3, "NaH.cif": 4 * 2, "NiO-Bunsenite.cif": 4 * 2,
 		"PbSe-Clausthalite.cif": 4 * 2, "PbTe-Altaite.cif": 4 * 2, "Rb2O.cif": 4 * 3, "SnO2-Cassiterite.cif": 2 * 3,
 		"SrO.cif": 4 * 2, "V2O3-Karelianite.cif": 6 * 5,
+		// Added with the X-ray densities: Z as the file prints it
+		// (_cell_formula_units_Z) where it does, else from the structure's
+		// standard description (from memory): barite, anglesite, celestine,
+		// anhydrite, CoSO4 (CrVO4 type) and Li2CO3 4; calcite 6 per
+		// hexagonal cell; CrCl2 (distorted rutile), LiOH and SnO (litharge
+		// type) 2; SnS (GeS type) 4; γ-Na2CO3 4 in this file's cell (its
+		// printed volume 277.516 Å³ and X-ray density 2.537 g/cm³ imply
+		// Z = 4.00 with M = 105.99 g/mol).
+		"Ag2O.cif": 2 * 3, "BaSO4-Barite.cif": 4 * 6, "CaCO3-Calcite.cif": 6 * 5, "CaSO4-Anhydrite.cif": 4 * 6,
+		"CoSO4.cif": 4 * 6, "CrCl2.cif": 2 * 3, "CrCl3.cif": 6 * 4, "Cu2O-Cuprite.cif": 2 * 3,
+		"In2O3.cif": 16 * 5, "Li2CO3-Zabuyelite.cif": 4 * 6, "LiOH.cif": 2 * 3, "Na2CO3-Natrite.cif": 4 * 6,
+		"PbSO4-Anglesite.cif": 4 * 6, "Sc2O3.cif": 16 * 5, "SnO.cif": 2 * 2, "SnS-Herzenbergite.cif": 4 * 2,
+		"SrSO4-Celestine.cif": 4 * 6,
 	}
 	for _, name := range names {
 		base := filepath.Base(name)
@@ -47,7 +60,13 @@ func TestCIFCellsAgainstTheirPrintedVolume(t *testing.T) {
 			t.Errorf("%s: no printed volume: %v", base, err)
 			continue
 		}
-		if v := cellVolume(c); math.Abs(v-printed)/printed > 2e-4 {
+		// 2·10⁻⁴ of the volume, or half a unit of the last digit printed
+		// (Ag2O's file prints 107.9 for a = 4.76 Å).
+		tol := 2e-4 * printed
+		if _, frac, ok := strings.Cut(strings.Split(d.items["_cell_volume"].value, "(")[0], "."); ok {
+			tol = max(tol, 0.5*math.Pow(10, -float64(len(frac))))
+		}
+		if v := cellVolume(c); math.Abs(v-printed) > tol {
 			t.Errorf("%s: volume %.3f Å³ from the cell read, the file prints %.3f", base, v, printed)
 		}
 		want, ok := atomsPerCell[base]
