@@ -34,7 +34,8 @@ type smallGroup struct {
 	gens  [smallGenerators]crystal.Vec3
 	perms [smallGenerators][smallFull]uint8
 	nGen  int
-	size  int // number of translations g, the identity included
+	size  int    // number of translations g, the identity included
+	zero  uint32 // the orbit of site 0, as a set of bits
 }
 
 // find fills gr with the translations of the cell of wrapped fractional
@@ -77,7 +78,7 @@ func (gr *smallGroup) find(f []crystal.Vec3, q []float64) bool {
 		gr.nGen++
 		reached = gr.orbit(0, n)
 	}
-	gr.size = bits.OnesCount32(reached)
+	gr.size, gr.zero = bits.OnesCount32(reached), reached
 	return n%gr.size == 0
 }
 
@@ -108,7 +109,7 @@ func (gr *smallGroup) orbit(i, n int) uint32 {
 func (gr *smallGroup) basis(lat [3]crystal.Vec3, f []crystal.Vec3, g int) ([3]crystal.Vec3, bool) {
 	var cand [smallFull + 2]crystal.Vec3
 	k := 0
-	for o := gr.orbit(0, len(f)) &^ 1; o != 0; o &= o - 1 {
+	for o := gr.zero &^ 1; o != 0; o &= o - 1 {
 		t := f[bits.TrailingZeros32(o)].Sub(f[0])
 		for d := range t {
 			t[d] -= (t[d] + roundingShift) - roundingShift // into [−½, ½]
@@ -235,7 +236,9 @@ func sumSmall(c *crystal.Crystal, eps, target, forcedAlpha float64) (Result, boo
 			continue
 		}
 		orbit := uint32(1) << i
-		if g > 1 {
+		if i == 0 {
+			orbit = gr.zero // found with the group
+		} else if g > 1 {
 			orbit = gr.orbit(i, n)
 		}
 		if bits.OnesCount32(orbit) != g || m == smallSites {
