@@ -37,32 +37,17 @@ func checkReciprocalSmall(t *testing.T, maxSites int, halves bool, small func(*s
 	checked := 0
 	for trial := 0; trial < 300; trial++ {
 		n := 2 + rng.Intn(maxSites-1)
-		c := &crystal.Crystal{Name: "random small cell", FormulaUnits: 1}
-		for k := 0; k < 3; k++ {
-			c.Lattice[k][k] = 3 + 4*rng.Float64()
-			for d := 0; d < 3; d++ {
-				if d != k {
-					c.Lattice[k][d] = 1.5 * (rng.Float64() - 0.5)
+		var place func(int, []crystal.Site, crystal.Vec3) crystal.Vec3
+		if halves {
+			place = func(j int, before []crystal.Site, f crystal.Vec3) crystal.Vec3 {
+				if j > 0 && rng.Intn(4) > 0 {
+					e := 1 + rng.Intn(7)
+					f = before[rng.Intn(j)].Frac.Add(crystal.Vec3{0.5 * float64(e&1), 0.5 * float64(e>>1&1), 0.5 * float64(e>>2)})
 				}
+				return f
 			}
 		}
-		total := 0.0
-		for j := 0; j < n; j++ {
-			q := float64(1 + rng.Intn(3))
-			if j%2 == 1 {
-				q = -q
-			}
-			if j == n-1 {
-				q = -total
-			}
-			total += q
-			f := crystal.Vec3{rng.Float64(), rng.Float64(), rng.Float64()}
-			if halves && j > 0 && rng.Intn(4) > 0 {
-				e := 1 + rng.Intn(7)
-				f = c.Sites[rng.Intn(j)].Frac.Add(crystal.Vec3{0.5 * float64(e&1), 0.5 * float64(e>>1&1), 0.5 * float64(e>>2)})
-			}
-			c.Sites = append(c.Sites, crystal.Site{Species: "X", Charge: q, Frac: f})
-		}
+		c := randomSmallCellPlaced(rng, n, place)
 		s := newSystem(c, false)
 		alpha := s.balancedAlpha() * (0.7 + 0.6*rng.Float64())
 		p := math.Sqrt(-math.Log(DefaultAccuracy / 2))
