@@ -79,7 +79,9 @@
 // metric (smallreal.go; a pair half a lattice vector apart, and a site with
 // its own images, on half the sphere), and the reciprocal sum works on
 // pairs, Σₖ wₖ·cos(k·dᵢⱼ), with the Gaussian factors and phases by
-// recurrence (reciprocalPairs, smallcell.go). A cell of up to 8 sites on
+// recurrence (reciprocalPairs, smallcell.go; a pair half a lattice vector
+// apart has cos(k·d) = ±1 and takes the signed sums of each row's weights,
+// no phases). A cell of up to 8 sites on
 // the general path has its reciprocal sum on stack arrays by structure
 // factors (reciprocalSmall). Its splitting parameter
 // balances the two sums with the small path's own costs (smallAlpha). It

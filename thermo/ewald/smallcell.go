@@ -1,6 +1,10 @@
 package ewald
 
-import "math"
+import (
+	"math"
+
+	"enthalpath/thermo/crystal"
+)
 
 // This file: the reciprocal-space sums of small cells, on fixed-size arrays.
 
@@ -47,19 +51,38 @@ func (s *system) reciprocalPairs(alpha, kc float64, phi []float64) (int, bool) {
 		return 0, false
 	}
 	M0, M1, M2 := mmax[0], mmax[1], mmax[2]
+	// Pairs half a lattice vector apart (2d = e integral, as the two sites
+	// of rock salt's primitive cell) have cos(k·d) = (−1)^(m·e) exactly:
+	// they need no phases, only each row's sum of weights or its
+	// alternating sum, with the sign of m·e at the row's start. The other
+	// pairs (np of them) carry phases.
+	var pi, pj [smallPairs]int
+	var half halfPairs
+	np := 0
+	for i := 0; i < n; i++ {
+		for j := i + 1; j < n; j++ {
+			D := s.frac[j].Sub(s.frac[i])
+			if sameModulo(2*D[0]) && sameModulo(2*D[1]) && sameModulo(2*D[2]) {
+				half.add(i, j, D)
+				continue
+			}
+			pi[np], pj[np] = i, j
+			np++
+		}
+	}
 	// Per pair i < j, the phase steps e^{2πi·dₖ} of d = fⱼ − fᵢ along each
 	// axis, e^{2πi·fⱼ}·conj(e^{2πi·fᵢ}) from one sine and cosine per site
 	// and axis.
-	var cs, sn [3][smallSites]float64
-	for j := 0; j < n; j++ {
-		for k := 0; k < 3; k++ {
-			sn[k][j], cs[k][j] = math.Sincos(2 * math.Pi * s.frac[j][k])
-		}
-	}
-	np := n * (n - 1) / 2
 	var ph smallPhases
-	for i, pp := 0, 0; i < n; i++ {
-		for j := i + 1; j < n; j, pp = j+1, pp+1 {
+	if np > 0 {
+		var cs, sn [3][smallSites]float64
+		for j := 0; j < n; j++ {
+			for k := 0; k < 3; k++ {
+				sn[k][j], cs[k][j] = math.Sincos(2 * math.Pi * s.frac[j][k])
+			}
+		}
+		for pp := 0; pp < np; pp++ {
+			i, j := pi[pp], pj[pp]
 			for k := 0; k < 3; k++ {
 				ph.ur[k][pp] = cs[k][j]*cs[k][i] + sn[k][j]*sn[k][i]
 				ph.ui[k][pp] = sn[k][j]*cs[k][i] - cs[k][j]*sn[k][i]
@@ -145,6 +168,7 @@ func (s *system) reciprocalPairs(alpha, kc float64, phi []float64) (int, bool) {
 						}
 						weights := wrow[:hi2-lo2+1]
 						fm, tgb := float64(lo2), 2*gb
+						rowSum, rowAlt, sign := 0.0, 0.0, 1.0
 						for k := range weights {
 							w := 0.0
 							if k2 := gg + fm*(tgb+fm*g22); k2 <= kc2 && k2 > 0 {
@@ -152,9 +176,12 @@ func (s *system) reciprocalPairs(alpha, kc float64, phi []float64) (int, bool) {
 								count++
 							}
 							weights[k] = w
-							wsum += w
-							gauss, up, fm = gauss*up, up*e22sq, fm+1
+							rowSum += w
+							rowAlt += sign * w
+							gauss, up, fm, sign = gauss*up, up*e22sq, fm+1, -sign
 						}
+						wsum += rowSum
+						half.row(m0, m1, lo2, rowSum, rowAlt)
 						// Each pair's phase from m₂ = 0 to lo2, then along the
 						// row by e^{2πi·d₂}.
 						for p := 0; p < np; p++ {
@@ -184,14 +211,56 @@ func (s *system) reciprocalPairs(alpha, kc float64, phi []float64) (int, bool) {
 		}
 	}
 	pre := 8 * math.Pi / s.volume // both members of each ±k pair
-	for i, pp := 0, 0; i < n; i++ {
+	for i := 0; i < n; i++ {
 		phi[i] += pre * s.q[i] * wsum
-		for j := i + 1; j < n; j, pp = j+1, pp+1 {
-			phi[i] += pre * s.q[j] * ph.c[pp]
-			phi[j] += pre * s.q[i] * ph.c[pp]
-		}
+	}
+	for pp := 0; pp < np; pp++ {
+		i, j := pi[pp], pj[pp]
+		phi[i] += pre * s.q[j] * ph.c[pp]
+		phi[j] += pre * s.q[i] * ph.c[pp]
+	}
+	for h := 0; h < half.n; h++ {
+		i, j := half.i[h], half.j[h]
+		phi[i] += pre * s.q[j] * half.c[h]
+		phi[j] += pre * s.q[i] * half.c[h]
 	}
 	return count, true
+}
+
+// halfPairs holds the pairs of sites of a small cell half a lattice vector
+// apart: their sites, the parities e mod 2 of 2d, and the accumulated
+// Σₖ wₖ·cos(k·dᵢⱼ) = Σₖ wₖ·(−1)^(m·e).
+type halfPairs struct {
+	i, j [smallPairs]int
+	e    [smallPairs][3]int
+	c    [smallPairs]float64
+	n    int
+}
+
+// add records the pair i, j whose difference D is half a lattice vector.
+func (h *halfPairs) add(i, j int, D crystal.Vec3) {
+	for k := range D {
+		h.e[h.n][k] = int(math.Round(2*D[k])) & 1
+	}
+	h.i[h.n], h.j[h.n] = i, j
+	h.n++
+}
+
+// row adds a row of k-vectors (m₀, m₁, m₂ from lo2 on) with the sum and
+// the alternating sum of its weights: along m₂ the sign (−1)^(m·e) stays
+// when e₂ is even and alternates when it is odd.
+func (h *halfPairs) row(m0, m1, lo2 int, sum, alt float64) {
+	for p := 0; p < h.n; p++ {
+		e := &h.e[p]
+		v := sum
+		if e[2] != 0 {
+			v = alt
+		}
+		if (m0*e[0]+m1*e[1]+lo2*e[2])&1 != 0 {
+			v = -v
+		}
+		h.c[p] += v
+	}
 }
 
 // smallPhases holds, per pair of sites, the phase steps along the three

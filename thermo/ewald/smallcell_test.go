@@ -13,44 +13,41 @@ import (
 // several splitting parameters), the small-cell reciprocal sum by
 // structure factors gives the same potentials as the general one to 1e-12
 // of the largest of them, and so does the one on pairs (reciprocalPairs)
-// on cells of up to smallSites sites. The reference is the package's
-// general path, itself checked against pymatgen in reference_test.go.
+// on cells of up to smallSites sites, also where sites lie half a lattice
+// vector apart (the sign shortcut of halfPairs). The reference is the
+// package's general path, itself checked against pymatgen in
+// reference_test.go.
 func TestReciprocalSmallEqualsGeneral(t *testing.T) {
 	t.Run("structure factors", func(t *testing.T) {
-		checkReciprocalSmall(t, structureSites, (*system).reciprocalSmall)
+		checkReciprocalSmall(t, structureSites, false, (*system).reciprocalSmall)
 	})
 	t.Run("pairs", func(t *testing.T) {
-		checkReciprocalSmall(t, smallSites, (*system).reciprocalPairs)
+		checkReciprocalSmall(t, smallSites, false, (*system).reciprocalPairs)
+	})
+	t.Run("pairs half a lattice vector apart", func(t *testing.T) {
+		checkReciprocalSmall(t, smallSites, true, (*system).reciprocalPairs)
 	})
 }
 
-func checkReciprocalSmall(t *testing.T, maxSites int, small func(*system, float64, float64, []float64) (int, bool)) {
+// checkReciprocalSmall compares small with the general path on 300 random
+// cells; with halves, most sites after the first lie half a lattice vector
+// (e/2, e in {0, 1}³ but 0) from an earlier site.
+func checkReciprocalSmall(t *testing.T, maxSites int, halves bool, small func(*system, float64, float64, []float64) (int, bool)) {
 	rng := rand.New(rand.NewSource(19))
 	checked := 0
 	for trial := 0; trial < 300; trial++ {
 		n := 2 + rng.Intn(maxSites-1)
-		c := &crystal.Crystal{Name: "random small cell", FormulaUnits: 1}
-		for k := 0; k < 3; k++ {
-			c.Lattice[k][k] = 3 + 4*rng.Float64()
-			for d := 0; d < 3; d++ {
-				if d != k {
-					c.Lattice[k][d] = 1.5 * (rng.Float64() - 0.5)
+		var place func(int, []crystal.Site, crystal.Vec3) crystal.Vec3
+		if halves {
+			place = func(j int, before []crystal.Site, f crystal.Vec3) crystal.Vec3 {
+				if j > 0 && rng.Intn(4) > 0 {
+					e := 1 + rng.Intn(7)
+					f = before[rng.Intn(j)].Frac.Add(crystal.Vec3{0.5 * float64(e&1), 0.5 * float64(e>>1&1), 0.5 * float64(e>>2)})
 				}
+				return f
 			}
 		}
-		total := 0.0
-		for j := 0; j < n; j++ {
-			q := float64(1 + rng.Intn(3))
-			if j%2 == 1 {
-				q = -q
-			}
-			if j == n-1 {
-				q = -total
-			}
-			total += q
-			c.Sites = append(c.Sites, crystal.Site{Species: "X", Charge: q,
-				Frac: crystal.Vec3{rng.Float64(), rng.Float64(), rng.Float64()}})
-		}
+		c := randomSmallCellPlaced(rng, n, place)
 		s := newSystem(c, false)
 		alpha := s.balancedAlpha() * (0.7 + 0.6*rng.Float64())
 		p := math.Sqrt(-math.Log(DefaultAccuracy / 2))

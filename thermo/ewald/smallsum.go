@@ -34,7 +34,8 @@ type smallGroup struct {
 	gens  [smallGenerators]crystal.Vec3
 	perms [smallGenerators][smallFull]uint8
 	nGen  int
-	size  int // number of translations g, the identity included
+	size  int    // number of translations g, the identity included
+	zero  uint32 // the orbit of site 0, as a set of bits
 }
 
 // find fills gr with the translations of the cell of wrapped fractional
@@ -45,6 +46,22 @@ type smallGroup struct {
 func (gr *smallGroup) find(f []crystal.Vec3, q []float64) bool {
 	n := len(f)
 	gr.nGen = 0
+	// like[i]: the sites of the charge of site i, as a set of bits.
+	var like [smallFull]uint32
+	for i := 0; i < n; i++ {
+		if like[i] != 0 {
+			continue
+		}
+		set := uint32(0)
+		for j := i; j < n; j++ {
+			if q[j] == q[i] {
+				set |= 1 << j
+			}
+		}
+		for o := set; o != 0; o &= o - 1 {
+			like[bits.TrailingZeros32(o)] = set
+		}
+	}
 	reached := uint32(1) // the orbit of site 0 under the generators found
 	for c := 1; c < n; c++ {
 		if q[c] != q[0] || reached&(1<<c) != 0 {
@@ -54,14 +71,14 @@ func (gr *smallGroup) find(f []crystal.Vec3, q []float64) bool {
 			return false
 		}
 		t := f[c].Sub(f[0])
-		if !mapsSites(f, q, t, &gr.perms[gr.nGen]) {
+		if !mapsSites(f, like[:n], t, &gr.perms[gr.nGen]) {
 			continue
 		}
 		gr.gens[gr.nGen] = t
 		gr.nGen++
 		reached = gr.orbit(0, n)
 	}
-	gr.size = bits.OnesCount32(reached)
+	gr.size, gr.zero = bits.OnesCount32(reached), reached
 	return n%gr.size == 0
 }
 
@@ -92,7 +109,7 @@ func (gr *smallGroup) orbit(i, n int) uint32 {
 func (gr *smallGroup) basis(lat [3]crystal.Vec3, f []crystal.Vec3, g int) ([3]crystal.Vec3, bool) {
 	var cand [smallFull + 2]crystal.Vec3
 	k := 0
-	for o := gr.orbit(0, len(f)) &^ 1; o != 0; o &= o - 1 {
+	for o := gr.zero &^ 1; o != 0; o &= o - 1 {
 		t := f[bits.TrailingZeros32(o)].Sub(f[0])
 		for d := range t {
 			t[d] -= (t[d] + roundingShift) - roundingShift // into [−½, ½]
@@ -122,10 +139,10 @@ func (gr *smallGroup) basis(lat [3]crystal.Vec3, f []crystal.Vec3, g int) ([3]cr
 }
 
 // mapsSites reports whether the fractional translation t, not a lattice
-// vector, maps every site onto a distinct site of equal charge, and sets
-// p[i] to the image of site i. It stops at the first site without an
-// image.
-func mapsSites(f []crystal.Vec3, q []float64, t crystal.Vec3, p *[smallFull]uint8) bool {
+// vector, maps every site onto a distinct site of equal charge (like[i]:
+// the sites of the charge of site i, as a set of bits), and sets p[i] to
+// the image of site i. It stops at the first site without an image.
+func mapsSites(f []crystal.Vec3, like []uint32, t crystal.Vec3, p *[smallFull]uint8) bool {
 	if sameModulo(t[0]) && sameModulo(t[1]) && sameModulo(t[2]) {
 		return false
 	}
@@ -133,8 +150,9 @@ func mapsSites(f []crystal.Vec3, q []float64, t crystal.Vec3, p *[smallFull]uint
 	for i := range f {
 		x, y, z := f[i][0]+t[0], f[i][1]+t[1], f[i][2]+t[2]
 		found := false
-		for j := range f {
-			if used&(1<<j) != 0 || q[j] != q[i] || !sameModulo(x-f[j][0]) || !sameModulo(y-f[j][1]) || !sameModulo(z-f[j][2]) {
+		for o := like[i] &^ used; o != 0; o &= o - 1 {
+			j := bits.TrailingZeros32(o)
+			if !sameModulo(x-f[j][0]) || !sameModulo(y-f[j][1]) || !sameModulo(z-f[j][2]) {
 				continue
 			}
 			used |= 1 << j
@@ -218,7 +236,9 @@ func sumSmall(c *crystal.Crystal, eps, target, forcedAlpha float64) (Result, boo
 			continue
 		}
 		orbit := uint32(1) << i
-		if g > 1 {
+		if i == 0 {
+			orbit = gr.zero // found with the group
+		} else if g > 1 {
 			orbit = gr.orbit(i, n)
 		}
 		if bits.OnesCount32(orbit) != g || m == smallSites {

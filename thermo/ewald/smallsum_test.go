@@ -16,6 +16,12 @@ import (
 // (triclinic, vectors of 3 to 7 Å, off-diagonal parts up to ±0.75 Å) with
 // random positions and integer charges up to ±3.
 func randomSmallCell(rng *rand.Rand, n int) *crystal.Crystal {
+	return randomSmallCellPlaced(rng, n, nil)
+}
+
+// randomSmallCellPlaced is randomSmallCell with place, when not nil, given
+// each site's drawn position (and the sites before it) to keep or replace.
+func randomSmallCellPlaced(rng *rand.Rand, n int, place func(j int, before []crystal.Site, f crystal.Vec3) crystal.Vec3) *crystal.Crystal {
 	c := &crystal.Crystal{Name: "random small cell", FormulaUnits: 1}
 	for k := 0; k < 3; k++ {
 		c.Lattice[k][k] = 3 + 4*rng.Float64()
@@ -35,8 +41,11 @@ func randomSmallCell(rng *rand.Rand, n int) *crystal.Crystal {
 			q = -total
 		}
 		total += q
-		c.Sites = append(c.Sites, crystal.Site{Species: "X", Charge: q,
-			Frac: crystal.Vec3{rng.Float64(), rng.Float64(), rng.Float64()}})
+		f := crystal.Vec3{rng.Float64(), rng.Float64(), rng.Float64()}
+		if place != nil {
+			f = place(j, c.Sites, f)
+		}
+		c.Sites = append(c.Sites, crystal.Site{Species: "X", Charge: q, Frac: f})
 	}
 	return c
 }
