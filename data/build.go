@@ -189,14 +189,16 @@ func (b *builder) finish() {
 	db.fold = &foldIndexes{}
 }
 
-// absoluteHydrations gives every ion with a conventional hydration
-// enthalpy and no absolute one the absolute value
+// absoluteHydrations gives every ion with a hydration enthalpy on one
+// scale only the other one,
 //
 //	ΔhydH°abs(ion) = ΔhydH°conv(ion) + z·ΔhydH°abs(H⁺),
 //
-// from the absolute row of H⁺ (the one number that fixes the scale), with
-// that row's source and memory flag, marked derived. Values derived by an
-// earlier build (before an overlay) are derived again.
+// from the absolute row of H⁺ (the one number that fixes the scale), marked
+// derived and memory when either of the two was recalled. An absolute
+// value takes the H⁺ row's source, a conventional one derived from an
+// absolute value that value's source. Values derived by an earlier build
+// (before an overlay) are derived again.
 func (b *builder) absoluteHydrations() {
 	db := b.db
 	var hAbs Value
@@ -215,24 +217,27 @@ func (b *builder) absoluteHydrations() {
 		if !hAbs.Known() || ion.Symbol == "H+" {
 			continue
 		}
-		var conv Value
-		hasAbs := false
+		var conv, abs Value
 		for _, h := range ion.Hydrations {
 			switch h.Scale {
 			case "conventional":
 				conv = h.Value
 			case "absolute":
-				hasAbs = true
+				abs = h.Value
 			}
 		}
-		if hasAbs || !conv.Known() {
+		if conv.Known() == abs.Known() {
 			continue
 		}
 		z := float64(ion.Charge)
-		v := Value{V: math.Round((conv.V+z*hAbs.V)*1e6) / 1e6, U: math.Hypot(conv.U, z*hAbs.U), Unit: conv.Unit, Source: hAbs.Source,
-			Memory: hAbs.Memory || conv.Memory, Derived: true, Override: conv.Override || hAbs.Override,
-			Note: fmt.Sprintf("derived: conventional %g %+g × ΔhydH°(H+, absolute) %g kJ/mol [%s]", conv.V, z, hAbs.V, hAbs.Source)}
-		ion.Hydrations = append(ion.Hydrations, ScaledValue{Scale: "absolute", Value: v, derivedScale: true})
+		from, sign, scale, source, name := conv, 1.0, "absolute", hAbs.Source, "conventional"
+		if abs.Known() {
+			from, sign, scale, source, name = abs, -1.0, "conventional", abs.Source, "absolute"
+		}
+		v := Value{V: math.Round((from.V+sign*z*hAbs.V)*1e6) / 1e6, U: math.Hypot(from.U, z*hAbs.U), Unit: from.Unit, Source: source,
+			Memory: hAbs.Memory || from.Memory, Derived: true, Override: from.Override || hAbs.Override,
+			Note: fmt.Sprintf("derived: %s %g %+g × ΔhydH°(H+, absolute) %g kJ/mol [%s]", name, from.V, sign*z, hAbs.V, hAbs.Source)}
+		ion.Hydrations = append(ion.Hydrations, ScaledValue{Scale: scale, Value: v, derivedScale: true})
 	}
 }
 

@@ -234,3 +234,51 @@ func TestSolutionCycle(t *testing.T) {
 		t.Errorf("%d of %d solution cycles differ from the table by more than 5 kJ/mol", len(off), checked)
 	}
 }
+
+// TestHydrationScales: an ion's hydration enthalpy is stored on one scale and
+// the loader gives the other from ΔhydH°(H⁺, absolute) either way (the
+// definition of the conventional scale, ΔhydH°(H⁺) = 0), carrying the memory
+// mark of a recalled input; a value computed from the NBS tables is not
+// memory on the conventional scale.
+func TestHydrationScales(t *testing.T) {
+	db := loadTables(t)
+	cases := []struct {
+		ion, scale    string
+		want, tol     float64
+		memory        bool
+		derivedByLoad bool
+		source        string
+	}{
+		// Marcus 1987 (from memory): ClO4⁻ absolute −246, H⁺ absolute −1103;
+		// conventional = −246 − (−1)·(−1103) = −1349 kJ/mol.
+		{"ClO4-", "absolute", -246, 1e-9, true, false, "marcus1987"},
+		{"ClO4-", "conventional", -1349, 1e-9, true, true, "marcus1987"},
+		// Marcus 1987 (from memory): SO4²⁻ absolute −1035; conventional
+		// −1035 − (−2)·(−1103) = −3241 kJ/mol.
+		{"SO4^2-", "conventional", -3241, 1e-9, true, true, "marcus1987"},
+		// NBS 1982 (vendored file, lines 3165, 3161, 28): ΔfH°(Sn²⁺, ao, ionic
+		// strength 3.0 NaClO4) −8.8, ΔfH°(Sn²⁺, g) 2434.80, ΔfH°(H⁺, g)
+		// 1536.202: −8.8 − 2434.80 + 2·1536.202 = 628.804, printed to 0.01.
+		{"Sn2+", "conventional", 628.804, 0.006, false, false, "nbs1982"},
+		// Its absolute value needs the recalled H⁺ row: 628.80 + 2·(−1103).
+		{"Sn2+", "absolute", 628.80 - 2206, 1e-6, true, true, "marcus1987"},
+	}
+	for _, c := range cases {
+		ion := ionOf(t, db, c.ion)
+		var got *ScaledValue
+		for i := range ion.Hydrations {
+			if ion.Hydrations[i].Scale == c.scale {
+				got = &ion.Hydrations[i]
+			}
+		}
+		if got == nil {
+			t.Errorf("%s: no %s hydration enthalpy", c.ion, c.scale)
+			continue
+		}
+		v := got.Value
+		if math.Abs(v.V-c.want) > c.tol || v.Memory != c.memory || got.derivedScale != c.derivedByLoad || v.Source != c.source {
+			t.Errorf("%s %s: %g memory %v derived by the loader %v source %s; want %g memory %v derived %v source %s",
+				c.ion, c.scale, v.V, v.Memory, got.derivedScale, v.Source, c.want, c.memory, c.derivedByLoad, c.source)
+		}
+	}
+}

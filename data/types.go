@@ -151,8 +151,8 @@ type Ion struct {
 type ScaledValue struct {
 	Scale string
 	Value Value
-	// derivedScale marks an absolute value the loader derived from the
-	// conventional one (see builder.absoluteHydrations).
+	// derivedScale marks a value the loader derived from the ion's value
+	// on the other scale (see builder.absoluteHydrations).
 	derivedScale bool
 }
 

@@ -35,6 +35,10 @@ import (
 //   - spelling: key an ion symbol, value other ways the NBS tables write
 //     it in a formula, separated by ";" (a formula must name both its
 //     ions, or it is read as a molecule and left out).
+//   - aqmedium: key an ion symbol, value the solvent cell of an NBS ao
+//     row measured in a medium (NBS gives the ion at no infinite
+//     dilution): the hydration enthalpy is computed from that row, and its
+//     note says so; the generator fails if the file no longer prints it.
 type choices struct {
 	byKind map[string]map[string]choice
 }

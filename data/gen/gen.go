@@ -151,9 +151,15 @@ func (g *generator) run() (map[string][]byte, error) {
 // nbsFind returns the first NBS row of formula in state (solvent empty)
 // with a 298.15 K enthalpy of formation.
 func (g *generator) nbsFind(formula, state string) (nbsRow, bool) {
+	return g.nbsFindIn(formula, state, "")
+}
+
+// nbsFindIn is nbsFind for a row whose solvent cell reads solvent (the
+// medium NBS measured it in; "" for the substance itself).
+func (g *generator) nbsFindIn(formula, state, solvent string) (nbsRow, bool) {
 	for _, i := range g.nbsIdx[formula] {
 		r := g.nbs[i]
-		if r.State == state && r.Solvent == "" && !math.IsNaN(r.H) {
+		if r.State == state && r.Solvent == solvent && !math.IsNaN(r.H) {
 			return r, true
 		}
 	}

@@ -113,8 +113,16 @@ func (g *generator) hydration(t *table, ions []ionDef, kept []map[string]string)
 	for _, ion := range ions {
 		spelling := nbsIonSpelling(ion)
 		aq, ok := g.nbsFind(spelling, "ao")
+		medium := ""
 		if !ok {
-			continue
+			ch, has := g.choices.get("aqmedium", ion.symbol)
+			if !has {
+				continue
+			}
+			if aq, ok = g.nbsFindIn(spelling, "ao", ch.value); !ok {
+				return nil, fmt.Errorf("choices.csv:%d: aqmedium %s: the NBS tables no longer print %s(ao) in %q", ch.line, ion.symbol, spelling, ch.value)
+			}
+			medium = fmt.Sprintf("; ΔfH°(%s, ao) is NBS's value in the medium %q (an ionic strength, not infinite dilution; choices.csv aqmedium)", ion.symbol, ch.value)
 		}
 		var gH float64
 		gLoc := ""
@@ -139,7 +147,7 @@ func (g *generator) hydration(t *table, ions []ionDef, kept []map[string]string)
 		out[ion.symbol] = true
 		t.add(map[string]string{"ion": ion.symbol, "property": "hydration", "value": numDigits(conv, 2), "unit": "kJ/mol", "scale": "conventional",
 			"source": keyNBS, "locator": locator(nbsFile, aq.Line) + "; " + locator(nbsFile, hPlus.Line), "derived": "yes",
-			"note": fmt.Sprintf("ΔfH°(%s, ao) %s − ΔfH°(%s, g) %s (%s) %+g × ΔfH°(H+, g) %s (%s)", ion.symbol, aq.Original, ion.symbol, num(gH), gLoc, z, hPlus.Original, locator(nbsFile, hPlus.Line))})
+			"note": fmt.Sprintf("ΔfH°(%s, ao) %s − ΔfH°(%s, g) %s (%s) %+g × ΔfH°(H+, g) %s (%s)%s", ion.symbol, aq.Original, ion.symbol, num(gH), gLoc, z, hPlus.Original, locator(nbsFile, hPlus.Line), medium)})
 	}
 	return out, nil
 }
