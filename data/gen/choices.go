@@ -35,6 +35,8 @@ import (
 //   - spelling: key an ion symbol, value other ways the NBS tables write
 //     it in a formula, separated by ";" (a formula must name both its
 //     ions, or it is read as a molecule and left out).
+//   - hydrationcompare: key an ion symbol, value another (recalled)
+//     hydration enthalpy, written after the computed one's note.
 //   - aqmedium: key an ion symbol, value the solvent cell of an NBS ao
 //     row measured in a medium (NBS gives the ion at no infinite
 //     dilution): the hydration enthalpy is computed from that row, and its

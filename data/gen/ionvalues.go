@@ -113,7 +113,7 @@ func (g *generator) hydration(t *table, ions []ionDef, kept []map[string]string)
 	for _, ion := range ions {
 		spelling := nbsIonSpelling(ion)
 		aq, ok := g.nbsFind(spelling, "ao")
-		medium := ""
+		noteTail := ""
 		if !ok {
 			ch, has := g.choices.get("aqmedium", ion.symbol)
 			if !has {
@@ -122,7 +122,7 @@ func (g *generator) hydration(t *table, ions []ionDef, kept []map[string]string)
 			if aq, ok = g.nbsFindIn(spelling, "ao", ch.value); !ok {
 				return nil, fmt.Errorf("choices.csv:%d: aqmedium %s: the NBS tables no longer print %s(ao) in %q", ch.line, ion.symbol, spelling, ch.value)
 			}
-			medium = fmt.Sprintf("; ΔfH°(%s, ao) is NBS's value in the medium %q (an ionic strength, not infinite dilution; choices.csv aqmedium)", ion.symbol, ch.value)
+			noteTail = fmt.Sprintf("; ΔfH°(%s, ao) is NBS's value in the medium %q (an ionic strength, not infinite dilution; choices.csv aqmedium)", ion.symbol, ch.value)
 		}
 		var gH float64
 		gLoc := ""
@@ -139,6 +139,9 @@ func (g *generator) hydration(t *table, ions []ionDef, kept []map[string]string)
 			}
 			gH, gLoc = r.H, locator(nbsFile, r.Line)
 		}
+		if ch, ok := g.choices.get("hydrationcompare", ion.symbol); ok {
+			noteTail += "; for comparison, not used: " + ch.value
+		}
 		z := float64(ion.charge)
 		conv := round6(aq.H - gH + z*hPlus.H)
 		if ion.symbol == "H+" {
@@ -147,7 +150,7 @@ func (g *generator) hydration(t *table, ions []ionDef, kept []map[string]string)
 		out[ion.symbol] = true
 		t.add(map[string]string{"ion": ion.symbol, "property": "hydration", "value": numDigits(conv, 2), "unit": "kJ/mol", "scale": "conventional",
 			"source": keyNBS, "locator": locator(nbsFile, aq.Line) + "; " + locator(nbsFile, hPlus.Line), "derived": "yes",
-			"note": fmt.Sprintf("ΔfH°(%s, ao) %s − ΔfH°(%s, g) %s (%s) %+g × ΔfH°(H+, g) %s (%s)%s", ion.symbol, aq.Original, ion.symbol, num(gH), gLoc, z, hPlus.Original, locator(nbsFile, hPlus.Line), medium)})
+			"note": fmt.Sprintf("ΔfH°(%s, ao) %s − ΔfH°(%s, g) %s (%s) %+g × ΔfH°(H+, g) %s (%s)%s", ion.symbol, aq.Original, ion.symbol, num(gH), gLoc, z, hPlus.Original, locator(nbsFile, hPlus.Line), noteTail)})
 	}
 	return out, nil
 }
