@@ -168,7 +168,7 @@ func (b *builder) finish() {
 		})
 		db.radii[k] = list
 	}
-	b.absoluteHydrations()
+	b.otherHydrationScales()
 	db.ionKeyIdx = make(map[ionKey]int, len(db.ions))
 	for i := range db.ions {
 		ion := &db.ions[i]
@@ -189,7 +189,7 @@ func (b *builder) finish() {
 	db.fold = &foldIndexes{}
 }
 
-// absoluteHydrations gives every ion with a hydration enthalpy on one
+// otherHydrationScales gives every ion with a hydration enthalpy on one
 // scale only the other one,
 //
 //	ΔhydH°abs(ion) = ΔhydH°conv(ion) + z·ΔhydH°abs(H⁺),
@@ -199,7 +199,7 @@ func (b *builder) finish() {
 // value takes the H⁺ row's source, a conventional one derived from an
 // absolute value that value's source. Values derived by an earlier build
 // (before an overlay) are derived again.
-func (b *builder) absoluteHydrations() {
+func (b *builder) otherHydrationScales() {
 	db := b.db
 	var hAbs Value
 	for _, ion := range db.ions {
@@ -234,7 +234,14 @@ func (b *builder) absoluteHydrations() {
 		if abs.Known() {
 			from, sign, scale, source, name = abs, -1.0, "conventional", abs.Source, "absolute"
 		}
-		v := Value{V: math.Round((from.V+sign*z*hAbs.V)*1e6) / 1e6, U: math.Hypot(from.U, z*hAbs.U), Unit: from.Unit, Source: source,
+		// An absolute value is a conventional one shifted by z·ΔhydH°(H⁺): the
+		// shift's uncertainty enters the absolute value, and leaves again when
+		// the shift is taken back off.
+		u := math.Hypot(from.U, z*hAbs.U)
+		if abs.Known() {
+			u = from.U
+		}
+		v := Value{V: math.Round((from.V+sign*z*hAbs.V)*1e6) / 1e6, U: u, Unit: from.Unit, Source: source,
 			Memory: hAbs.Memory || from.Memory, Derived: true, Override: from.Override || hAbs.Override,
 			Note: fmt.Sprintf("derived: %s %g %+g × ΔhydH°(H+, absolute) %g kJ/mol [%s]", name, from.V, sign*z, hAbs.V, hAbs.Source)}
 		ion.Hydrations = append(ion.Hydrations, ScaledValue{Scale: scale, Value: v, derivedScale: true})

@@ -152,7 +152,7 @@ type ScaledValue struct {
 	Scale string
 	Value Value
 	// derivedScale marks a value the loader derived from the ion's value
-	// on the other scale (see builder.absoluteHydrations).
+	// on the other scale (see builder.otherHydrationScales).
 	derivedScale bool
 }
 
