@@ -216,18 +216,7 @@ func BenchmarkBatchDistinctWhole100000(b *testing.B) {
 	if err != nil {
 		b.Fatal(err)
 	}
-	in := distinctBatchInput(db0, 100000)
-	b.ReportAllocs()
-	for b.Loop() {
-		db, err := data.Load()
-		if err != nil {
-			b.Fatal(err)
-		}
-		sum, err := New(db).Batch(bytes.NewReader(in), io.Discard, BatchOptions{})
-		if err != nil || sum.Rows != 100000 {
-			b.Fatalf("%d rows: %v", sum.Rows, err)
-		}
-	}
+	benchBatchWhole(b, distinctBatchInput(db0, 100000), 100000)
 }
 
 // BenchmarkBatchWhole100000 is the whole batch path of `enthalpath batch`
@@ -236,7 +225,13 @@ func BenchmarkBatchDistinctWhole100000(b *testing.B) {
 // CSV, estimating and writing the CSV output; nothing is shared between
 // iterations. Run with -cpu 1,2 for one and two cores.
 func BenchmarkBatchWhole100000(b *testing.B) {
-	in := batchInput(100000)
+	benchBatchWhole(b, batchInput(100000), 100000)
+}
+
+// benchBatchWhole loads the tables, makes a fresh Analyst and batches in
+// (rows rows) to io.Discard on every iteration: nothing is shared between
+// iterations.
+func benchBatchWhole(b *testing.B, in []byte, rows int) {
 	b.ReportAllocs()
 	for b.Loop() {
 		db, err := data.Load()
@@ -244,7 +239,7 @@ func BenchmarkBatchWhole100000(b *testing.B) {
 			b.Fatal(err)
 		}
 		sum, err := New(db).Batch(bytes.NewReader(in), io.Discard, BatchOptions{})
-		if err != nil || sum.Rows != 100000 {
+		if err != nil || sum.Rows != rows {
 			b.Fatalf("%d rows: %v", sum.Rows, err)
 		}
 	}
